@@ -1,0 +1,110 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"sort"
+	"strings"
+
+	"github.com/spf13/cobra"
+)
+
+// scenario is an embedded example of our own, with its physical reading.
+type scenario struct {
+	name, title, meaning string
+	args                 []string
+}
+
+const caution = "Caution: an idealised linear model. For design, follow local codes and licensed practice."
+
+var scenarios = []scenario{
+	{
+		name:  "cable",
+		title: "Heated copper cable",
+		meaning: "A copper conductor of radius 5 mm carries current that generates q = 2e7 W/m^3 of heat;\n" +
+			"k = 400 W/(m K) and the surface is held at 40 C. u is the temperature in C, r in metres.\n" +
+			"The peak is at the axis: 40 + q a^2/(4k).",
+		args: []string{"solve", "-400*lap(u) = 2e7", "--disk", "0.005", "--bc", "u = 40", "--at", "r=0,theta=0", "--at", "r=0.0025,theta=0"},
+	},
+	{
+		name:  "shaft",
+		title: "Twisted round shaft (Prandtl stress function)",
+		meaning: "Saint-Venant torsion of a round shaft of radius a: the stress function satisfies lap(u) = -2\n" +
+			"with u = 0 on the rim; the torsion constant is J = 2 * (area integral of u) = pi a^4/2.",
+		args: []string{"solve", "lap(u) = -2", "--disk", "a", "--bc", "u = 0", "--format", "text"},
+	},
+	{
+		name:  "drum",
+		title: "Pressurised drum skin on a warped frame",
+		meaning: "A membrane with tension T = 50 N/m under pressure p = 300 Pa, stretched over a circular frame\n" +
+			"of radius 0.2 m whose rim is warped by 2 mm in a saddle shape: T lap(w) = -p, w = 0.002 cos(2 theta).",
+		args: []string{"solve", "50*lap(u) = -300", "--disk", "0.2", "--bc", "u = 0.002*cos(2theta)", "--at", "x=0.1,y=0"},
+	},
+	{
+		name:  "plate",
+		title: "Charged disk with a non-uniform charge",
+		meaning: "A thin disk of unit radius carries charge density growing to one side, lap(u) = -(1 + x),\n" +
+			"with its rim grounded (u = 0). u is the potential in units of rho0 a^2/eps0.",
+		args: []string{"solve", "lap(u) = -(1 + x)", "--disk", "1", "--bc", "u = 0", "--steps"},
+	},
+}
+
+func newDemoCmd() *cobra.Command {
+	return &cobra.Command{
+		Use:   "demo [NAME]",
+		Short: "Run the embedded scenarios (all, or the one named)",
+		Long:  "Scenarios: " + strings.Join(scenarioNames(), ", "),
+		Args:  cobra.MaximumNArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			list := scenarios
+			if len(args) == 1 {
+				list = nil
+				for _, s := range scenarios {
+					if s.name == args[0] {
+						list = append(list, s)
+					}
+				}
+				if list == nil {
+					return usagef("no demo named %q (there are: %s)", args[0], strings.Join(scenarioNames(), ", "))
+				}
+			}
+			return runDemos(cmd.OutOrStdout(), list)
+		},
+	}
+}
+
+func scenarioNames() []string {
+	var names []string
+	for _, s := range scenarios {
+		names = append(names, s.name)
+	}
+	sort.Strings(names)
+	return names
+}
+
+func runDemos(w io.Writer, list []scenario) error {
+	for i, s := range list {
+		if i > 0 {
+			fmt.Fprintln(w)
+		}
+		fmt.Fprintf(w, "== %s: %s\n%s\n\n$ psol %s\n", s.name, s.title, s.meaning, shellQuote(s.args))
+		var errb strings.Builder
+		if code := run(s.args, w, &errb); code != 0 {
+			return fmt.Errorf("demo %s failed: %s", s.name, errb.String())
+		}
+	}
+	fmt.Fprintln(w, "\n"+caution)
+	return nil
+}
+
+// shellQuote joins args as a shell line a user can paste.
+func shellQuote(args []string) string {
+	out := make([]string, len(args))
+	for i, a := range args {
+		if strings.ContainsAny(a, " *()^=;,\"'<>?|&$") {
+			a = `"` + strings.ReplaceAll(a, `"`, `\"`) + `"`
+		}
+		out[i] = a
+	}
+	return strings.Join(out, " ")
+}

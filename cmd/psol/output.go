@@ -1,0 +1,205 @@
+package main
+
+import (
+	"encoding/json"
+	"fmt"
+	"io"
+	"strings"
+
+	"psol/ansatz"
+	"psol/series"
+	"psol/series/domain"
+)
+
+// stage is one printed formula.
+type stage struct {
+	Label string `json:"-"`
+	Text  string `json:"text"`
+	LaTeX string `json:"latex"`
+	Exact bool   `json:"exact"`
+	tex   string // the LaTeX left-hand side
+}
+
+type checkOut struct {
+	Name     string  `json:"name"`
+	Side     string  `json:"side,omitempty"`
+	Exact    bool    `json:"exact"`
+	Residual float64 `json:"residual"`
+	Formula  string  `json:"formula"`
+}
+
+// view is everything a renderer prints, computed once.
+type view struct {
+	Problem    stage      `json:"problem"`
+	Particular stage      `json:"particular"`
+	Trace      stage      `json:"trace"`
+	Correction stage      `json:"correction"`
+	Harmonic   stage      `json:"harmonic"`
+	Solution   stage      `json:"solution"`
+	Checks     []checkOut `json:"checks"`
+	Points     []point    `json:"points"`
+	Steps      []string   `json:"steps,omitempty"`
+	Warnings   []string   `json:"warnings"`
+	showSteps  bool
+}
+
+func exactStage(label, text, latex, tex string) stage {
+	return stage{Label: label, Text: text, LaTeX: latex, Exact: true, tex: tex}
+}
+
+func newView(pr *problem, sol *domain.Solution, steps []ansatz.Step, pts []point, showSteps bool) *view {
+	v := &view{Points: pts, Warnings: []string{}, showSteps: showSteps}
+	if v.Points == nil {
+		v.Points = []point{}
+	}
+	f := sol.Source
+	var conds, condsTeX []string
+	for _, s := range sol.Sides {
+		conds = append(conds, s.Condition.Side+": "+domain.OperatorText(s.Condition, "u")+" = "+s.Data.Text())
+		condsTeX = append(condsTeX, operatorTeX(s.Condition, "u")+" = "+s.Data.LaTeX()+`\ \text{on `+s.Condition.Side+"}")
+	}
+	v.Problem = exactStage("problem",
+		"lap(u) = "+f.Text()+" on "+pr.domain.Describe()+"; "+strings.Join(conds, "; "),
+		`\Delta u = `+f.LaTeX()+`,\quad `+strings.Join(condsTeX, `,\quad `), "")
+	v.Particular = exactStage("particular", "u_p = "+sol.Particular.Text(), sol.Particular.LaTeX(), "u_p")
+	var tr, trTeX, co, coTeX []string
+	single := len(sol.Sides) == 1
+	for _, s := range sol.Sides {
+		prefix := ""
+		if !single {
+			prefix = s.Condition.Side + ": "
+		}
+		tr = append(tr, prefix+traceText(s)+" = "+s.Trace.Text())
+		trTeX = append(trTeX, s.Trace.LaTeX())
+		co = append(co, prefix+series.JoinText(s.Data, s.Trace.Neg()))
+		coTeX = append(coTeX, series.JoinLaTeX(s.Data, s.Trace.Neg()))
+	}
+	side := sol.Sides[0]
+	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(trTeX, ", "), traceTeX(side))
+	v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(coTeX, ", "), `g - `+traceTeX(side))
+	v.Harmonic = exactStage("harmonic", sol.Harmonic.Text(), sol.Harmonic.LaTeX(), "u_h")
+	v.Solution = exactStage("solution", "u = "+series.JoinText(sol.Particular, sol.Harmonic), series.JoinLaTeX(sol.Particular, sol.Harmonic), "u")
+	for _, c := range sol.Checks {
+		v.Checks = append(v.Checks, checkOut{Name: c.Name, Side: c.Side, Exact: c.Exact, Formula: c.Residual.Text(), Residual: residualSize(c.Residual, pr.env)})
+	}
+	for _, st := range steps {
+		v.Steps = append(v.Steps, fmt.Sprintf("ansatz %s -> %s (%s)", st.Source.Text(), st.Result.Text(), st.Rule))
+	}
+	v.Steps = append(v.Steps, sol.Steps...)
+	v.Warnings = append(v.Warnings, sol.Notes...)
+	return v
+}
+
+// residualSize is 0 for an exactly vanishing residual, and 1 as a flag otherwise
+// (the formula field carries the exact residual).
+func residualSize(r series.Sum, _ series.Env) float64 {
+	if r.IsZero() {
+		return 0
+	}
+	return 1
+}
+
+func traceText(s domain.Side) string {
+	at := "(" + s.Radius.Text() + ", theta)"
+	switch s.Condition.Kind {
+	case domain.Dirichlet:
+		return "u_p" + at
+	}
+	return domain.OperatorText(s.Condition, "u_p") + " at r = " + s.Radius.Text()
+}
+
+func operatorTeX(c domain.Condition, fn string) string {
+	switch c.Kind {
+	case domain.Neumann:
+		return `\partial_n ` + fn
+	case domain.Robin:
+		return `\partial_n ` + fn + " + " + c.H.LaTeX() + " " + fn
+	}
+	return fn
+}
+
+func traceTeX(s domain.Side) string {
+	return operatorTeX(s.Condition, "u_p") + `\big|_{r=` + s.Radius.LaTeX() + "}"
+}
+
+func (v *view) failedCheck() error {
+	for _, c := range v.Checks {
+		if c.Formula != "0" {
+			return fmt.Errorf("internal check failed: %s = %s", c.Name, c.Formula)
+		}
+	}
+	return nil
+}
+
+var renderers = map[string]func(io.Writer, *view) error{
+	"text":  renderText,
+	"latex": renderLaTeX,
+	"json":  renderJSON,
+}
+
+const labelWidth = 13
+
+func line(w io.Writer, label, text string) {
+	fmt.Fprintf(w, "%-*s%s\n", labelWidth, label, text)
+}
+
+func renderText(w io.Writer, v *view) error {
+	if v.showSteps {
+		line(w, "problem", v.Problem.Text)
+		for _, s := range v.Steps {
+			line(w, "step", s)
+		}
+	}
+	for _, s := range []stage{v.Particular, v.Trace, v.Correction, v.Harmonic, v.Solution} {
+		line(w, s.Label, s.Text)
+	}
+	line(w, "check", checkSummary(v.Checks))
+	for _, p := range v.Points {
+		line(w, "point", fmt.Sprintf("r = %.10g, theta = %.10g (x = %.10g, y = %.10g): u = %.12g", p.R, p.Theta, p.X, p.Y, p.U))
+	}
+	for _, s := range v.Warnings {
+		line(w, "note", s)
+	}
+	return nil
+}
+
+func checkSummary(cs []checkOut) string {
+	var parts []string
+	exact := true
+	for _, c := range cs {
+		p := c.Name + " = " + c.Formula
+		if c.Side != "" {
+			p += " on " + c.Side
+		}
+		parts = append(parts, p)
+		exact = exact && c.Exact
+	}
+	if exact {
+		return strings.Join(parts, ", ") + " (exact)"
+	}
+	return strings.Join(parts, ", ")
+}
+
+func renderLaTeX(w io.Writer, v *view) error {
+	fmt.Fprintf(w, "%% psol: %s\n", v.Problem.Text)
+	fmt.Fprintln(w, `\begin{align*}`)
+	fmt.Fprintf(w, "  & %s \\\\\n", v.Problem.LaTeX)
+	rows := []stage{v.Particular, v.Trace, v.Correction, v.Harmonic, v.Solution}
+	for i, s := range rows {
+		end := ` \\`
+		if i == len(rows)-1 {
+			end = ""
+		}
+		fmt.Fprintf(w, "  %s &= %s%s\n", s.tex, s.LaTeX, end)
+	}
+	fmt.Fprintln(w, `\end{align*}`)
+	fmt.Fprintf(w, "%% check: %s\n", checkSummary(v.Checks))
+	return nil
+}
+
+func renderJSON(w io.Writer, v *view) error {
+	enc := json.NewEncoder(w)
+	enc.SetIndent("", "  ")
+	enc.SetEscapeHTML(false)
+	return enc.Encode(v)
+}

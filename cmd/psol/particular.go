@@ -1,0 +1,87 @@
+package main
+
+import (
+	"io"
+
+	"github.com/spf13/cobra"
+
+	"psol/ansatz"
+	"psol/parse"
+	"psol/series/domain"
+)
+
+type particularOptions struct {
+	lets   []string
+	steps  bool
+	format string
+}
+
+func newParticularCmd() *cobra.Command {
+	o := &particularOptions{}
+	cmd := &cobra.Command{
+		Use:     "particular SOURCE",
+		Short:   "Find one particular solution of lap(u) = SOURCE, with no boundary",
+		Example: `  psol particular "r^2*cos(4theta)"`,
+		Args:    cobra.ExactArgs(1),
+		RunE:    func(cmd *cobra.Command, args []string) error { return o.run(cmd.OutOrStdout(), args[0]) },
+	}
+	f := cmd.Flags()
+	f.StringArrayVar(&o.lets, "let", nil, `parameter values "a=0.05,q=2e5" (repeatable)`)
+	f.BoolVar(&o.steps, "steps", false, "show the rule used for each source term")
+	f.StringVar(&o.format, "format", "text", "output format: text, latex or json")
+	return cmd
+}
+
+func (o *particularOptions) run(w io.Writer, source string) error {
+	render, ok := particularRenderers[o.format]
+	if !ok {
+		return usagef("--format %q: choose text, latex or json", o.format)
+	}
+	env, err := (&problemFlags{lets: o.lets}).env()
+	if err != nil {
+		return err
+	}
+	f, err := parse.Equation(source, env)
+	if err != nil {
+		return err
+	}
+	if !f.IsExact() {
+		return &domain.Unsupported{Reason: "the source has a part with no closed form yet: " + f.Rest.Text()}
+	}
+	up, steps, err := ansatz.Particular(f.Exact)
+	if err != nil {
+		return err
+	}
+	v := &view{Warnings: []string{}, Points: []point{}, showSteps: o.steps}
+	v.Problem = exactStage("problem", "lap(u) = "+f.Exact.Text(), `\Delta u = `+f.Exact.LaTeX(), "")
+	v.Particular = exactStage("particular", "u_p = "+up.Text(), up.LaTeX(), "u_p")
+	res := up.Laplacian().Sub(f.Exact)
+	v.Checks = []checkOut{{Name: "lap(u_p) - f", Exact: true, Formula: res.Text(), Residual: residualSize(res, env)}}
+	for _, st := range steps {
+		v.Steps = append(v.Steps, st.Source.Text()+" -> "+st.Result.Text()+" ("+st.Rule+")")
+	}
+	if err := v.failedCheck(); err != nil {
+		return err
+	}
+	return render(w, v)
+}
+
+var particularRenderers = map[string]func(io.Writer, *view) error{
+	"text": func(w io.Writer, v *view) error {
+		line(w, "particular", v.Particular.Text)
+		for _, s := range v.Steps {
+			if v.showSteps {
+				line(w, "step", s)
+			}
+		}
+		line(w, "check", checkSummary(v.Checks))
+		return nil
+	},
+	"latex": func(w io.Writer, v *view) error {
+		_, err := io.WriteString(w, "% psol: "+v.Problem.Text+"\n\\begin{equation*}\n  u_p = "+v.Particular.LaTeX+"\n\\end{equation*}\n")
+		return err
+	},
+	"json": func(w io.Writer, v *view) error {
+		return renderJSON(w, &view{Problem: v.Problem, Particular: v.Particular, Checks: v.Checks, Steps: v.Steps, Warnings: v.Warnings, Points: v.Points})
+	},
+}

@@ -1,0 +1,83 @@
+package main
+
+import (
+	"math"
+
+	"psol/parse"
+	"psol/series"
+	"psol/series/domain"
+)
+
+// point is one --at evaluation.
+type point struct {
+	R     float64 `json:"r"`
+	Theta float64 `json:"theta"`
+	X     float64 `json:"x"`
+	Y     float64 `json:"y"`
+	U     float64 `json:"u"`
+	Input string  `json:"input"`
+}
+
+// readPoint reads "r=…,theta=…" or "x=…,y=…".
+func readPoint(text string, env series.Env) (point, error) {
+	bs, err := parse.Bindings("--at", text, env)
+	if err != nil {
+		return point{}, err
+	}
+	vals := map[string]float64{}
+	for _, b := range bs {
+		v, err := b.Value.Float(env)
+		if err != nil {
+			return point{}, usagef("--at %s: %v", text, err)
+		}
+		name := b.Name
+		if name == "θ" {
+			name = "theta"
+		}
+		vals[name] = v
+	}
+	p := point{Input: text}
+	_, hasR := vals["r"]
+	_, hasT := vals["theta"]
+	_, hasX := vals["x"]
+	_, hasY := vals["y"]
+	switch {
+	case len(vals) == 2 && hasR && hasT:
+		p.R, p.Theta = vals["r"], vals["theta"]
+		p.X, p.Y = p.R*math.Cos(p.Theta), p.R*math.Sin(p.Theta)
+	case len(vals) == 2 && hasX && hasY:
+		p.X, p.Y = vals["x"], vals["y"]
+		p.R, p.Theta = math.Hypot(p.X, p.Y), math.Atan2(p.Y, p.X)
+		if p.Theta < 0 {
+			p.Theta += 2 * math.Pi
+		}
+	default:
+		return point{}, usagef("--at %q: give r and theta, or x and y", text)
+	}
+	if p.R < 0 {
+		return point{}, usagef("--at %q: r must not be negative", text)
+	}
+	return p, nil
+}
+
+// evaluate fills u at each point from the compiled solution.
+func evaluate(u series.Sum, env series.Env, pts []point, d domain.Domain) error {
+	if len(pts) == 0 {
+		return nil
+	}
+	c, err := u.Compile(env)
+	if err != nil {
+		return usagef("--at: %v", err)
+	}
+	for i := range pts {
+		in, err := d.Contains(pts[i].R, pts[i].Theta, env)
+		if err != nil {
+			return usagef("--at: %v", err)
+		}
+		if !in {
+			return usagef("--at %q lies outside %s", pts[i].Input, d.Describe())
+		}
+		pts[i].U = c.At(pts[i].R, pts[i].Theta)
+	}
+	return nil
+}

@@ -1,0 +1,91 @@
+package main
+
+import (
+	"errors"
+	"fmt"
+	"io"
+
+	"github.com/spf13/cobra"
+
+	"psol/ansatz"
+	"psol/parse"
+	"psol/series/domain"
+)
+
+const version = "0.1.0"
+
+// newRoot builds the command tree; each call is independent, for in-process tests.
+func newRoot() *cobra.Command {
+	root := &cobra.Command{
+		Use:   "psol",
+		Short: "Solve Poisson's equation lap(u) = f on a disk, annulus, sector, rectangle or outside a circle",
+		Long: `psol splits the solution of lap(u) = f into a particular solution of the
+source and a harmonic part that corrects the boundary values, prints each
+stage as an exact formula, and checks the result.`,
+		SilenceErrors: true,
+		SilenceUsage:  true,
+	}
+	root.AddCommand(newSolveCmd(), newParticularCmd(), newDemoCmd(), newVersionCmd())
+	return root
+}
+
+// run executes psol with args and returns the exit status: 0 success,
+// 1 a well-formed problem with no solution as posed, 2 bad input.
+func run(args []string, stdout, stderr io.Writer) int {
+	root := newRoot()
+	root.SetArgs(protectNegatives(args))
+	root.SetOut(stdout)
+	root.SetErr(stderr)
+	err := root.Execute()
+	if err == nil {
+		return 0
+	}
+	fmt.Fprintln(stderr, "psol: "+err.Error())
+	return exitStatus(err)
+}
+
+// protectNegatives keeps arguments such as "-k*lap(u) = q" or "-1" from
+// being read as flags: psol has no one-letter flags but -h, so a leading
+// space (which the parser ignores) marks them as values.
+func protectNegatives(args []string) []string {
+	out := make([]string, len(args))
+	for i, a := range args {
+		if len(a) > 1 && a[0] == '-' && a[1] != '-' && a != "-h" {
+			a = " " + a
+		}
+		out[i] = a
+	}
+	return out
+}
+
+// usageError marks bad input found outside the parser (flags, missing sides).
+type usageError struct{ msg string }
+
+func (e *usageError) Error() string { return e.msg }
+
+func usagef(format string, args ...any) error { return &usageError{fmt.Sprintf(format, args...)} }
+
+func exitStatus(err error) int {
+	var (
+		unsolvable  *domain.Unsolvable
+		unsupported *domain.Unsupported
+		noRule      *ansatz.NoRule
+		claimFailed *claimError
+	)
+	switch {
+	case errors.As(err, &unsolvable), errors.As(err, &unsupported), errors.As(err, &noRule), errors.As(err, &claimFailed):
+		return 1
+	}
+	var pe *parse.Error
+	var ue *usageError
+	var ms *domain.MissingSides
+	if errors.As(err, &pe) || errors.As(err, &ue) || errors.As(err, &ms) {
+		return 2
+	}
+	return 2 // cobra's own errors are about flags and arguments
+}
+
+// claimError is a failed verification (for psol check).
+type claimError struct{ msg string }
+
+func (e *claimError) Error() string { return e.msg }

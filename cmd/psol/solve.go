@@ -1,0 +1,64 @@
+package main
+
+import (
+	"io"
+
+	"github.com/spf13/cobra"
+)
+
+type solveOptions struct {
+	problemFlags
+	steps  bool
+	format string
+	at     []string
+}
+
+func newSolveCmd() *cobra.Command {
+	o := &solveOptions{}
+	cmd := &cobra.Command{
+		Use:   "solve EQUATION --disk R --bc CONDITION",
+		Short: "Solve lap(u) = f with boundary conditions, stage by stage",
+		Example: `  psol solve "lap(u) = 6r*sin(theta)" --disk 2 --bc "u = 4sin(3theta)"
+  psol solve "-k*lap(u) = q" --disk a --bc "u = Ts"`,
+		Args: cobra.ExactArgs(1),
+		RunE: func(cmd *cobra.Command, args []string) error { return o.run(cmd.OutOrStdout(), args[0]) },
+	}
+	f := cmd.Flags()
+	o.bind(f)
+	f.BoolVar(&o.steps, "steps", false, "show how each stage was found")
+	f.StringVar(&o.format, "format", "text", "output format: text, latex or json")
+	f.StringArrayVar(&o.at, "at", nil, `evaluate at "r=0.5,theta=pi/4" or "x=0.1,y=0.2" (repeatable)`)
+	return cmd
+}
+
+func (o *solveOptions) run(w io.Writer, equation string) error {
+	render, ok := renderers[o.format]
+	if !ok {
+		return usagef("--format %q: choose text, latex or json", o.format)
+	}
+	pr, err := o.pose(equation)
+	if err != nil {
+		return err
+	}
+	var pts []point
+	for _, a := range o.at {
+		p, err := readPoint(a, pr.env)
+		if err != nil {
+			return err
+		}
+		pts = append(pts, p)
+	}
+	sol, steps, err := pr.solve()
+	if err != nil {
+		return err
+	}
+	if err := evaluate(sol.U, pr.env, pts, pr.domain); err != nil {
+		return err
+	}
+	v := newView(pr, sol, steps, pts, o.steps)
+	if err := v.failedCheck(); err != nil {
+		render(w, v)
+		return err
+	}
+	return render(w, v)
+}

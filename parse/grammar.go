@@ -1,0 +1,154 @@
+package parse
+
+import (
+	"github.com/alecthomas/participle/v2"
+	"github.com/alecthomas/participle/v2/lexer"
+)
+
+// The grammar, in EBNF:
+//
+//	statement = [ ident ":" ] choice [ "=" choice ] .
+//	bindings  = binding { "," binding } .
+//	binding   = ident "=" choice .
+//	choice    = compare [ "?" choice ":" choice ] .
+//	compare   = additive { ( "<=" | ">=" | "<" | ">" ) additive } .
+//	additive  = product { ( "+" | "-" ) product } .
+//	product   = unary { ( "*" | "/" ) unary } .
+//	unary     = ( "-" | "+" ) unary | power .
+//	power     = primary [ ( "^" | "**" ) unary ] .
+//	primary   = number [ atom [ ( "^" | "**" ) unary ] ] | atom .
+//	atom      = lap ident | ident "(" choice { "," choice } ")" | ident | "(" choice ")" .
+//
+// A number directly followed by an atom multiplies it ("2r", "3(x+y)",
+// "4sin(3theta)"); lap is Δ, ∇² or ∇^2.
+
+type statement struct {
+	Pos  lexer.Position
+	Side *sideName `parser:"( @@ \":\" )?"`
+	Left *choice   `parser:"@@"`
+	Eq   *eqTail   `parser:"@@?"`
+}
+
+type sideName struct {
+	Pos  lexer.Position
+	Name string `parser:"@Ident"`
+}
+
+type eqTail struct {
+	Pos   lexer.Position
+	Right *choice `parser:"\"=\" @@"`
+}
+
+type bindings struct {
+	List []*binding `parser:"@@ ( \",\" @@ )*"`
+}
+
+type binding struct {
+	Pos   lexer.Position
+	Name  string  `parser:"@Ident \"=\""`
+	Value *choice `parser:"@@"`
+}
+
+type choice struct {
+	Pos  lexer.Position
+	Cond *compare `parser:"@@"`
+	Then *choice  `parser:"( \"?\" @@"`
+	Else *choice  `parser:"\":\" @@ )?"`
+}
+
+type compare struct {
+	Pos  lexer.Position
+	Left *additive  `parser:"@@"`
+	Rest []*cmpTail `parser:"@@*"`
+}
+
+type cmpTail struct {
+	Pos   lexer.Position
+	Op    string    `parser:"@( \"<=\" | \">=\" | \"<\" | \">\" )"`
+	Right *additive `parser:"@@"`
+}
+
+type additive struct {
+	Pos  lexer.Position
+	Left *product   `parser:"@@"`
+	Rest []*addTail `parser:"@@*"`
+}
+
+type addTail struct {
+	Pos   lexer.Position
+	Op    string   `parser:"@( \"+\" | \"-\" )"`
+	Right *product `parser:"@@"`
+}
+
+type product struct {
+	Pos  lexer.Position
+	Left *unary     `parser:"@@"`
+	Rest []*mulTail `parser:"@@*"`
+}
+
+type mulTail struct {
+	Pos   lexer.Position
+	Op    string `parser:"@( \"*\" | \"/\" )"`
+	Right *unary `parser:"@@"`
+}
+
+type unary struct {
+	Pos   lexer.Position
+	Sign  string `parser:"( @( \"-\" | \"+\" )"`
+	Inner *unary `parser:"@@ )"`
+	Power *power `parser:"| @@"`
+}
+
+type power struct {
+	Pos  lexer.Position
+	Base *primary `parser:"@@"`
+	Exp  *unary   `parser:"( ( \"**\" | \"^\" ) @@ )?"`
+}
+
+type primary struct {
+	Pos    lexer.Position
+	Number *string `parser:"( @Number"`
+	Times  *scaled `parser:"@@? )"`
+	Atom   *atom   `parser:"| @@"`
+}
+
+// scaled is the atom a number multiplies without a sign, as in "2r^2".
+type scaled struct {
+	Pos  lexer.Position
+	Atom *atom  `parser:"@@"`
+	Exp  *unary `parser:"( ( \"**\" | \"^\" ) @@ )?"`
+}
+
+type atom struct {
+	Pos   lexer.Position
+	Lap   *string `parser:"( @Lap"`
+	LapOf string  `parser:"@Ident )"`
+	Call  *call   `parser:"| @@"`
+	Name  *string `parser:"| @Ident"`
+	Group *choice `parser:"| \"(\" @@ \")\""`
+}
+
+type call struct {
+	Pos  lexer.Position
+	Name string    `parser:"@Ident \"(\""`
+	Args []*choice `parser:"@@ ( \",\" @@ )* \")\""`
+}
+
+var tokens = lexer.MustSimple([]lexer.SimpleRule{
+	{Name: "Space", Pattern: `\s+`},
+	{Name: "Lap", Pattern: `Δ|∇²|∇\^2`},
+	{Name: "Number", Pattern: `(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?`},
+	{Name: "Ident", Pattern: `[\p{L}_][\p{L}\p{N}_]*`},
+	{Name: "Punct", Pattern: `\*\*|<=|>=|[-+*/^()=?:<>,]`},
+})
+
+// The parsers are built once.
+var (
+	statementParser = participle.MustBuild[statement](
+		participle.Lexer(tokens), participle.Elide("Space"), participle.UseLookahead(3))
+	bindingsParser = participle.MustBuild[bindings](
+		participle.Lexer(tokens), participle.Elide("Space"), participle.UseLookahead(3))
+)
+
+// Grammar is the EBNF participle derives from the node types, for the golden test.
+func Grammar() string { return statementParser.String() }

@@ -1,0 +1,570 @@
+package parse
+
+import (
+	"errors"
+	"fmt"
+	"math/big"
+	"sort"
+	"strings"
+
+	"github.com/alecthomas/participle/v2"
+	"github.com/alecthomas/participle/v2/lexer"
+
+	"psol/series"
+	"psol/series/domain"
+)
+
+// Limits that keep exact arithmetic bounded; DEVELOPERS.md documents them.
+const (
+	MaxDecimalExponent = 1000 // |e| in a literal such as 2e5
+	MaxExponent        = 1000 // |numerator| and denominator of a power's exponent
+	MaxSumPower        = 64   // whole power of an expression with several terms
+)
+
+// value is what lowering makes of a node: an affine form
+// lap·Δu + dn·∂u/∂n + u·u + f, where only conditions and equations may have
+// nonzero unknown parts.
+type value struct {
+	lap, dn, u series.Coef
+	f          series.Field
+}
+
+func (v value) hasUnknown() bool { return !v.lap.IsZero() || !v.dn.IsZero() || !v.u.IsZero() }
+
+func (v value) add(w value) value {
+	return value{v.lap.Add(w.lap), v.dn.Add(w.dn), v.u.Add(w.u), v.f.Add(w.f)}
+}
+
+func (v value) scale(c series.Coef) value {
+	return value{v.lap.Mul(c), v.dn.Mul(c), v.u.Mul(c), v.f.Scale(c)}
+}
+
+// lowerer turns the private syntax tree into series values; it is the only
+// place that knows both.
+type lowerer struct {
+	label, input string
+	env          series.Env
+}
+
+func (lw *lowerer) fail(pos lexer.Position, format string, args ...any) error {
+	return &Error{Label: lw.label, Input: lw.input, Offset: pos.Offset, Msg: fmt.Sprintf(format, args...)}
+}
+
+// wrapParse converts participle's errors to ours.
+func (lw *lowerer) wrapParse(err error) error {
+	var pe participle.Error
+	if errors.As(err, &pe) {
+		msg := pe.Message()
+		msg = strings.ReplaceAll(msg, `"<EOF>"`, "end of input")
+		if strings.Contains(msg, "invalid input text") {
+			msg = "unexpected character"
+		}
+		return &Error{Label: lw.label, Input: lw.input, Offset: pe.Position().Offset, Msg: msg}
+	}
+	return &Error{Label: lw.label, Input: lw.input, Msg: err.Error()}
+}
+
+func (lw *lowerer) choice(c *choice) (value, error) {
+	if c.Then != nil {
+		return value{}, lw.fail(c.Pos, "piecewise data (cond ? a : b) is not supported yet")
+	}
+	if len(c.Cond.Rest) > 0 {
+		return value{}, lw.fail(c.Cond.Rest[0].Pos, "a comparison belongs inside cond ? a : b")
+	}
+	return lw.additive(c.Cond.Left)
+}
+
+func (lw *lowerer) additive(a *additive) (value, error) {
+	v, err := lw.product(a.Left)
+	if err != nil {
+		return value{}, err
+	}
+	for _, t := range a.Rest {
+		w, err := lw.product(t.Right)
+		if err != nil {
+			return value{}, err
+		}
+		if t.Op == "-" {
+			w = w.scale(series.IntCoef(-1))
+		}
+		v = v.add(w)
+	}
+	return v, nil
+}
+
+func (lw *lowerer) product(p *product) (value, error) {
+	v, err := lw.unary(p.Left)
+	if err != nil {
+		return value{}, err
+	}
+	vpos := p.Left.Pos
+	for _, t := range p.Rest {
+		w, err := lw.unary(t.Right)
+		if err != nil {
+			return value{}, err
+		}
+		if t.Op == "*" {
+			v, err = lw.mul(v, vpos, w, t.Right.Pos)
+		} else {
+			v, err = lw.div(v, w, t.Right.Pos)
+		}
+		if err != nil {
+			return value{}, err
+		}
+	}
+	return v, nil
+}
+
+// constant reports v as an exact constant without unknowns.
+func constant(v value) (series.Coef, bool) {
+	if v.hasUnknown() || !v.f.IsExact() {
+		return series.Coef{}, false
+	}
+	return v.f.Exact.Const()
+}
+
+func (lw *lowerer) mul(v value, vpos lexer.Position, w value, wpos lexer.Position) (value, error) {
+	switch {
+	case v.hasUnknown() && w.hasUnknown():
+		return value{}, lw.fail(wpos, "u appears in a product with itself; the problem must be linear")
+	case v.hasUnknown():
+		c, ok := constant(w)
+		if !ok {
+			return value{}, lw.fail(wpos, "the factor of %s must be a constant", unknownName(v))
+		}
+		return v.scale(c), nil
+	case w.hasUnknown():
+		c, ok := constant(v)
+		if !ok {
+			return value{}, lw.fail(vpos, "the factor of %s must be a constant", unknownName(w))
+		}
+		return w.scale(c), nil
+	}
+	return value{f: v.f.Mul(w.f)}, nil
+}
+
+func unknownName(v value) string {
+	switch {
+	case !v.lap.IsZero():
+		return "lap(u)"
+	case !v.dn.IsZero():
+		return "dn(u)"
+	}
+	return "u"
+}
+
+func (lw *lowerer) div(v, w value, wpos lexer.Position) (value, error) {
+	if w.hasUnknown() {
+		return value{}, lw.fail(wpos, "cannot divide by %s", unknownName(w))
+	}
+	if v.hasUnknown() {
+		c, ok := constant(w)
+		if !ok {
+			return value{}, lw.fail(wpos, "the factor of %s must be a constant", unknownName(v))
+		}
+		inv, err := series.IntCoef(1).Div(c)
+		if err != nil {
+			return value{}, lw.fail(wpos, "division by zero")
+		}
+		return v.scale(inv), nil
+	}
+	f, err := v.f.Div(w.f)
+	if err != nil {
+		return value{}, lw.fail(wpos, "division by zero")
+	}
+	return value{f: f}, nil
+}
+
+func (lw *lowerer) unary(u *unary) (value, error) {
+	if u.Inner != nil {
+		v, err := lw.unary(u.Inner)
+		if err != nil || u.Sign == "+" {
+			return v, err
+		}
+		return v.scale(series.IntCoef(-1)), nil
+	}
+	return lw.power(u.Power.Base, u.Power.Exp)
+}
+
+func (lw *lowerer) power(b *primary, exp *unary) (value, error) {
+	v, err := lw.primary(b)
+	if err != nil || exp == nil {
+		return v, err
+	}
+	return lw.raise(v, b.Pos, exp)
+}
+
+func (lw *lowerer) raise(v value, vpos lexer.Position, exp *unary) (value, error) {
+	e, err := lw.unary(exp)
+	if err != nil {
+		return value{}, err
+	}
+	if v.hasUnknown() || e.hasUnknown() {
+		return value{}, lw.fail(vpos, "u may not be raised to a power; the problem must be linear")
+	}
+	c, ok := constant(e)
+	q, isRat := c.Rat()
+	if !ok || !isRat {
+		return value{}, lw.fail(exp.Pos, "an exponent must be a rational number")
+	}
+	if new(big.Int).Abs(q.Num()).Cmp(big.NewInt(MaxExponent)) > 0 || q.Denom().Cmp(big.NewInt(MaxExponent)) > 0 {
+		return value{}, lw.fail(exp.Pos, "exponent %s is beyond the bound %d on its numerator and denominator", q.RatString(), MaxExponent)
+	}
+	if q.IsInt() && q.Num().Int64() > MaxSumPower && v.f.Exact.Len() > 1 {
+		return value{}, lw.fail(exp.Pos, "a power of a sum is limited to %d", MaxSumPower)
+	}
+	f, err := v.f.Pow(q)
+	if err != nil {
+		return value{}, lw.fail(vpos, "%v", err)
+	}
+	return value{f: f}, nil
+}
+
+func (lw *lowerer) primary(p *primary) (value, error) {
+	if p.Atom != nil {
+		return lw.atom(p.Atom)
+	}
+	n, err := lw.number(*p.Number, p.Pos)
+	if err != nil {
+		return value{}, err
+	}
+	v := value{f: series.ExactField(series.Const(series.RatCoef(n)))}
+	if p.Times == nil {
+		return v, nil
+	}
+	w, err := lw.atom(p.Times.Atom)
+	if err == nil && p.Times.Exp != nil {
+		w, err = lw.raise(w, p.Times.Pos, p.Times.Exp)
+	}
+	if err != nil {
+		return value{}, err
+	}
+	return lw.mul(v, p.Pos, w, p.Times.Pos)
+}
+
+func (lw *lowerer) number(text string, pos lexer.Position) (*big.Rat, error) {
+	if i := strings.IndexAny(text, "eE"); i >= 0 {
+		var e int
+		if _, err := fmt.Sscan(text[i+1:], &e); err != nil || e > MaxDecimalExponent || e < -MaxDecimalExponent {
+			return nil, lw.fail(pos, "the exponent of %s is beyond ±%d", text, MaxDecimalExponent)
+		}
+	}
+	n, ok := new(big.Rat).SetString(text)
+	if !ok {
+		return nil, lw.fail(pos, "malformed number %s", text)
+	}
+	return n, nil
+}
+
+var (
+	cosTheta = series.Trig(1, false)
+	sinTheta = series.Trig(1, true)
+)
+
+// variables are the coordinates, in the polar form the algebra keeps.
+var variables = map[string]series.Sum{
+	"r":     series.R,
+	"theta": series.Theta,
+	"θ":     series.Theta,
+	"x":     series.R.Mul(cosTheta),
+	"y":     series.R.Mul(sinTheta),
+	"pi":    series.Const(series.SymCoef(series.Pi)),
+	"π":     series.Const(series.SymCoef(series.Pi)),
+}
+
+// reserved names may not be parameters.
+var reserved = map[string]string{
+	"u":   "u stands alone only in boundary conditions; the equation uses lap(u)",
+	"lap": "lap needs its argument: lap(u)",
+	"dn":  "dn needs its argument: dn(u)",
+}
+
+func (lw *lowerer) atom(a *atom) (value, error) {
+	switch {
+	case a.Group != nil:
+		return lw.choice(a.Group)
+	case a.Lap != nil:
+		if a.LapOf != "u" {
+			return value{}, lw.fail(a.Pos, "%s applies to u only", *a.Lap)
+		}
+		return value{lap: series.IntCoef(1)}, nil
+	case a.Call != nil:
+		return lw.call(a.Call)
+	}
+	name := *a.Name
+	if s, ok := variables[name]; ok {
+		return value{f: series.ExactField(s)}, nil
+	}
+	if name == "u" {
+		return value{u: series.IntCoef(1)}, nil
+	}
+	if msg, ok := reserved[name]; ok {
+		return value{}, lw.fail(a.Pos, "%s", msg)
+	}
+	if series.IsFunction(name) {
+		return value{}, lw.fail(a.Pos, "%s needs an argument in brackets: %s(...)", name, name)
+	}
+	if c, ok := lw.env[name]; ok {
+		return value{f: series.ExactField(series.Const(c))}, nil
+	}
+	return value{f: series.ExactField(series.Const(series.SymCoef(series.Param(name))))}, nil
+}
+
+func (lw *lowerer) call(c *call) (value, error) {
+	if len(c.Args) != 1 {
+		return value{}, lw.fail(c.Pos, "%s takes one argument, not %d", c.Name, len(c.Args))
+	}
+	arg := c.Args[0]
+	switch c.Name {
+	case "lap", "dn":
+		if !isU(arg) {
+			return value{}, lw.fail(arg.Pos, "%s applies to u only", c.Name)
+		}
+		if c.Name == "lap" {
+			return value{lap: series.IntCoef(1)}, nil
+		}
+		return value{dn: series.IntCoef(1)}, nil
+	}
+	if !series.IsFunction(c.Name) {
+		return value{}, lw.fail(c.Pos, "unknown function %q (known: %s)", c.Name, strings.Join(knownFunctions(), " "))
+	}
+	v, err := lw.choice(arg)
+	if err != nil {
+		return value{}, err
+	}
+	if v.hasUnknown() {
+		return value{}, lw.fail(arg.Pos, "u may not appear inside %s(...); the problem must be linear", c.Name)
+	}
+	f, err := series.Apply(c.Name, v.f)
+	if err != nil {
+		return value{}, lw.fail(arg.Pos, "%v", err)
+	}
+	return value{f: f}, nil
+}
+
+func knownFunctions() []string {
+	var names []string
+	for _, n := range []string{"sin", "cos", "tan", "exp", "log", "ln", "sqrt", "abs", "sinh", "cosh", "tanh"} {
+		if series.IsFunction(n) {
+			names = append(names, n)
+		}
+	}
+	sort.Strings(names)
+	return names
+}
+
+func isU(c *choice) bool {
+	if c.Then != nil || len(c.Cond.Rest) > 0 || len(c.Cond.Left.Rest) > 0 {
+		return false
+	}
+	p := c.Cond.Left.Left
+	if len(p.Rest) > 0 || p.Left.Power == nil || p.Left.Power.Exp != nil {
+		return false
+	}
+	at := p.Left.Power.Base.Atom
+	return at != nil && at.Name != nil && *at.Name == "u"
+}
+
+// Equation reads "c*lap(u) = f", or a bare source f, as the source of Δu = f.
+func Equation(text string, env series.Env) (series.Field, error) {
+	lw := &lowerer{label: "equation", input: text, env: env}
+	st, err := lw.statement()
+	if err != nil {
+		return series.Field{}, err
+	}
+	if st.Side != nil {
+		return series.Field{}, lw.fail(st.Side.Pos, "a side name belongs in --bc, not in the equation")
+	}
+	v, err := lw.choice(st.Left)
+	if err != nil {
+		return series.Field{}, err
+	}
+	if st.Eq == nil {
+		if v.hasUnknown() {
+			return series.Field{}, lw.fail(st.Pos, "write the equation with an = sign: lap(u) = f")
+		}
+		return v.f, nil
+	}
+	w, err := lw.choice(st.Eq.Right)
+	if err != nil {
+		return series.Field{}, err
+	}
+	v = v.add(w.scale(series.IntCoef(-1)))
+	if !v.dn.IsZero() {
+		return series.Field{}, lw.fail(st.Pos, "dn(u) belongs in boundary conditions, not in the equation")
+	}
+	if !v.u.IsZero() {
+		return series.Field{}, lw.fail(st.Pos, "u appears outside lap(u); psol solves Poisson's equation lap(u) = f only")
+	}
+	if v.lap.IsZero() {
+		return series.Field{}, lw.fail(st.Pos, "missing lap(u): write the equation as c*lap(u) = f")
+	}
+	// lap·Δu + f = 0  ⇒  Δu = −f/lap.
+	inv, err := series.IntCoef(-1).Div(v.lap)
+	if err != nil {
+		return series.Field{}, lw.fail(st.Pos, "%v", err)
+	}
+	return v.f.Scale(inv), nil
+}
+
+func (lw *lowerer) statement() (*statement, error) {
+	if strings.TrimSpace(lw.input) == "" {
+		return nil, &Error{Label: lw.label, Input: lw.input, Msg: "empty input"}
+	}
+	st, err := statementParser.ParseString("", lw.input)
+	if err != nil {
+		return nil, lw.wrapParse(err)
+	}
+	return st, nil
+}
+
+// Condition reads "[SIDE:] CONDITION" for a domain with the given sides; a
+// domain with one side lets SIDE be omitted.
+func Condition(text string, sides []string, env series.Env) (domain.Condition, error) {
+	lw := &lowerer{label: "--bc", input: text, env: env}
+	st, err := lw.statement()
+	if err != nil {
+		return domain.Condition{}, err
+	}
+	cond := domain.Condition{Text: text}
+	switch {
+	case st.Side != nil:
+		if !contains(sides, st.Side.Name) {
+			return domain.Condition{}, lw.fail(st.Side.Pos, "this domain has no side %q (its sides: %s)", st.Side.Name, strings.Join(sides, ", "))
+		}
+		cond.Side = st.Side.Name
+	case len(sides) == 1:
+		cond.Side = sides[0]
+	default:
+		return domain.Condition{}, lw.fail(st.Pos, "name the side first, one of: %s (as in %q)", strings.Join(sides, ", "), sides[0]+": u = 0")
+	}
+	if st.Eq == nil {
+		return domain.Condition{}, lw.fail(st.Left.Pos, "a condition needs an = sign, as in u = g or dn(u) = g")
+	}
+	v, err := lw.choice(st.Left)
+	if err != nil {
+		return domain.Condition{}, err
+	}
+	w, err := lw.choice(st.Eq.Right)
+	if err != nil {
+		return domain.Condition{}, err
+	}
+	v = v.add(w.scale(series.IntCoef(-1)))
+	if !v.lap.IsZero() {
+		return domain.Condition{}, lw.fail(st.Pos, "lap(u) belongs in the equation, not in a boundary condition")
+	}
+	// dn·∂u/∂n + u·u + f = 0.
+	lead := v.dn
+	switch {
+	case !v.dn.IsZero() && v.u.IsZero():
+		cond.Kind = domain.Neumann
+	case !v.dn.IsZero():
+		cond.Kind = domain.Robin
+		cond.H, _ = v.u.Div(v.dn)
+	case !v.u.IsZero():
+		cond.Kind = domain.Dirichlet
+		lead = v.u
+	default:
+		return domain.Condition{}, lw.fail(st.Pos, "a condition must involve u or dn(u)")
+	}
+	inv, _ := series.IntCoef(-1).Div(lead)
+	cond.G = v.f.Scale(inv)
+	return cond, nil
+}
+
+func contains(list []string, s string) bool {
+	for _, x := range list {
+		if x == s {
+			return true
+		}
+	}
+	return false
+}
+
+// Expression reads a formula in r, θ, x, y and parameters, with no unknown.
+func Expression(label, text string, env series.Env) (series.Field, error) {
+	lw := &lowerer{label: label, input: text, env: env}
+	st, err := lw.statement()
+	if err != nil {
+		return series.Field{}, err
+	}
+	if st.Side != nil || st.Eq != nil {
+		return series.Field{}, lw.fail(st.Pos, "expected a formula, not an equation")
+	}
+	v, err := lw.choice(st.Left)
+	if err != nil {
+		return series.Field{}, err
+	}
+	if v.hasUnknown() {
+		return series.Field{}, lw.fail(st.Pos, "expected a formula without u")
+	}
+	return v.f, nil
+}
+
+// Binding is one name = value pair of --let or --at.
+type Binding struct {
+	Name  string
+	Value series.Coef
+}
+
+// Bindings reads "a=0.05,q=2e5": names bound to exact constants.
+func Bindings(label, text string, env series.Env) ([]Binding, error) {
+	lw := &lowerer{label: label, input: text, env: env}
+	if strings.TrimSpace(text) == "" {
+		return nil, &Error{Label: label, Input: text, Msg: "empty input"}
+	}
+	bs, err := bindingsParser.ParseString("", text)
+	if err != nil {
+		return nil, lw.wrapParse(err)
+	}
+	var out []Binding
+	seen := map[string]bool{}
+	for _, b := range bs.List {
+		if seen[b.Name] {
+			return nil, lw.fail(b.Pos, "%s is given twice", b.Name)
+		}
+		seen[b.Name] = true
+		v, err := lw.choice(b.Value)
+		if err != nil {
+			return nil, err
+		}
+		c, ok := constant(v)
+		if !ok {
+			return nil, lw.fail(b.Value.Pos, "the value of %s must be a constant", b.Name)
+		}
+		out = append(out, Binding{b.Name, c})
+	}
+	return out, nil
+}
+
+// Lengths reads n comma-separated positive sizes such as "2", "a" or "pi/3".
+func Lengths(label, text string, n int, env series.Env) ([]series.Coef, error) {
+	lw := &lowerer{label: label, input: text, env: env}
+	parts := strings.Split(text, ",")
+	if len(parts) != n {
+		return nil, &Error{Label: label, Input: text, Offset: len(text), Msg: fmt.Sprintf("expected %d comma-separated values, found %d", n, len(parts))}
+	}
+	var out []series.Coef
+	off := 0
+	for _, p := range parts {
+		f, err := Expression(label, p, env)
+		if err != nil {
+			var pe *Error
+			if errors.As(err, &pe) {
+				pe.Input, pe.Offset = text, pe.Offset+off
+			}
+			return nil, err
+		}
+		c, ok := constant(value{f: f})
+		if !ok {
+			return nil, lw.fail(lexer.Position{Offset: off}, "a size must be a constant")
+		}
+		if !series.Positive(c) {
+			lead := off + len(p) - len(strings.TrimLeft(p, " "))
+			return nil, lw.fail(lexer.Position{Offset: lead}, "a size must be positive, not %s", c.Text())
+		}
+		out = append(out, c)
+		off += len(p) + 1
+	}
+	return out, nil
+}

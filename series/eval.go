@@ -1,0 +1,68 @@
+package series
+
+import "math"
+
+// Compiled is a sum with float64 coefficients, for fast evaluation.
+type Compiled struct {
+	t []cterm
+}
+
+type cterm struct {
+	c, p    float64
+	l, k, m int
+	sin     bool
+}
+
+// Compile fixes the parameters from env and rounds the coefficients to float64.
+func (s Sum) Compile(env Env) (Compiled, error) {
+	out := Compiled{t: make([]cterm, len(s.t))}
+	for i, t := range s.t {
+		c, err := t.C.Float(env)
+		if err != nil {
+			return Compiled{}, err
+		}
+		p, _ := t.power().Float64()
+		out.t[i] = cterm{c, p, t.L, t.K, t.M, t.Sin}
+	}
+	return out, nil
+}
+
+// At is the value at (r, θ), r > 0 (r = 0 is taken as the limit where it exists).
+func (c Compiled) At(r, theta float64) float64 {
+	sum := 0.0
+	lnr := math.Log(r)
+	for _, t := range c.t {
+		v := t.c
+		switch {
+		case t.p == 0:
+		case r == 0 && t.p > 0:
+			continue // r^p (ln r)^j → 0
+		default:
+			v *= math.Pow(r, t.p)
+		}
+		if t.l > 0 {
+			v *= powInt(lnr, int64(t.l))
+		}
+		if t.k > 0 {
+			v *= powInt(theta, int64(t.k))
+		}
+		if t.m > 0 {
+			if t.sin {
+				v *= math.Sin(float64(t.m) * theta)
+			} else {
+				v *= math.Cos(float64(t.m) * theta)
+			}
+		}
+		sum += v
+	}
+	return sum
+}
+
+// Eval is s at (r, θ) with parameters from env.
+func (s Sum) Eval(r, theta float64, env Env) (float64, error) {
+	c, err := s.Compile(env)
+	if err != nil {
+		return 0, err
+	}
+	return c.At(r, theta), nil
+}

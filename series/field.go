@@ -1,0 +1,342 @@
+package series
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"math/big"
+)
+
+// Field is a function of the plane: an exact sum plus, where the algebra has
+// no closed form, a remainder kept as an expression tree that evaluates in
+// float64. Later stages hand the remainder to numerical methods.
+type Field struct {
+	Exact Sum
+	Rest  *Expr // nil when the field is exact
+}
+
+// Exact wraps a sum as a field.
+func ExactField(s Sum) Field { return Field{Exact: s} }
+
+// IsExact reports whether f has no remainder.
+func (f Field) IsExact() bool { return f.Rest == nil }
+
+// Expr is a node of a remainder: a leaf sum, or an operation on nodes.
+type Expr struct {
+	op   string // "sum", "+", "*", "/", "^", or a function name
+	sum  Sum
+	args []*Expr
+}
+
+func (f Field) expr() *Expr {
+	leaf := &Expr{op: "sum", sum: f.Exact}
+	if f.Rest == nil {
+		return leaf
+	}
+	if f.Exact.IsZero() {
+		return f.Rest
+	}
+	return &Expr{op: "+", args: []*Expr{leaf, f.Rest}}
+}
+
+func opaque(e *Expr) Field { return Field{Rest: e} }
+
+// Add is f + g.
+func (f Field) Add(g Field) Field {
+	rest := f.Rest
+	switch {
+	case rest == nil:
+		rest = g.Rest
+	case g.Rest != nil:
+		rest = &Expr{op: "+", args: []*Expr{f.Rest, g.Rest}}
+	}
+	return Field{Exact: f.Exact.Add(g.Exact), Rest: rest}
+}
+
+// Neg is −f.
+func (f Field) Neg() Field { return f.Scale(IntCoef(-1)) }
+
+// Scale is c·f.
+func (f Field) Scale(c Coef) Field {
+	out := Field{Exact: f.Exact.Scale(c)}
+	if f.Rest != nil {
+		out.Rest = &Expr{op: "*", args: []*Expr{{op: "sum", sum: Const(c)}, f.Rest}}
+	}
+	return out
+}
+
+// Mul is f·g.
+func (f Field) Mul(g Field) Field {
+	if f.IsExact() && g.IsExact() {
+		return ExactField(f.Exact.Mul(g.Exact))
+	}
+	return opaque(&Expr{op: "*", args: []*Expr{f.expr(), g.expr()}})
+}
+
+// Div is f/g; exact when g is a single term free of angles and logarithms.
+func (f Field) Div(g Field) (Field, error) {
+	if g.IsExact() && g.Exact.IsZero() {
+		return Field{}, ErrDivideByZero
+	}
+	if g.IsExact() {
+		if inv, err := g.Exact.Pow(big.NewRat(-1, 1)); err == nil {
+			return f.Mul(ExactField(inv)), nil
+		}
+	}
+	return opaque(&Expr{op: "/", args: []*Expr{f.expr(), g.expr()}}), nil
+}
+
+// Pow is f^g for a constant rational exponent g, exact where the algebra allows.
+func (f Field) Pow(q *big.Rat) (Field, error) {
+	if f.IsExact() {
+		s, err := f.Exact.Pow(q)
+		if err == nil {
+			return ExactField(s), nil
+		}
+		if errors.Is(err, ErrDivideByZero) {
+			return Field{}, err
+		}
+		if c, ok := f.Exact.Const(); ok {
+			return Field{}, fmt.Errorf("%s^(%s): %w", c.Text(), q.RatString(), err)
+		}
+	}
+	return opaque(&Expr{op: "^", args: []*Expr{f.expr(), {op: "sum", sum: Const(RatCoef(q))}}}), nil
+}
+
+// unaryFloat holds the float64 form of each function a remainder may contain.
+var unaryFloat = map[string]func(float64) float64{
+	"sin": math.Sin, "cos": math.Cos, "tan": math.Tan, "exp": math.Exp,
+	"ln": math.Log, "log": math.Log, "sqrt": math.Sqrt, "abs": math.Abs,
+	"sinh": math.Sinh, "cosh": math.Cosh, "tanh": math.Tanh,
+}
+
+// IsFunction reports whether name is a function psol knows.
+func IsFunction(name string) bool { _, ok := unaryFloat[name]; return ok }
+
+// Apply is fn(f): exact where the algebra has the value, a remainder node otherwise.
+func Apply(fn string, f Field) (Field, error) {
+	if f.IsExact() {
+		s, ok, err := applyExact(fn, f.Exact)
+		if err != nil {
+			return Field{}, err
+		}
+		if ok {
+			return ExactField(s), nil
+		}
+	}
+	return opaque(&Expr{op: fn, args: []*Expr{f.expr()}}), nil
+}
+
+// applyExact knows sin and cos of mθ + c (c a simple multiple of π or 0),
+// ln of a single power term, sqrt through Pow, and abs and exp of plain constants.
+func applyExact(fn string, s Sum) (Sum, bool, error) {
+	switch fn {
+	case "sin", "cos":
+		m, shift, ok := angleOf(s)
+		if !ok {
+			return Sum{}, false, nil
+		}
+		if m < 0 { // cos(−x) = cos x, sin(−x) = −sin x
+			r, ok, err := applyExact(fn, s.Neg())
+			if fn == "sin" {
+				r = r.Neg()
+			}
+			return r, ok, err
+		}
+		cs, sn, ok := unitCircle(shift)
+		if !ok {
+			return Sum{}, false, nil
+		}
+		// cos(mθ+c) = cos c cos mθ − sin c sin mθ; sin(mθ+c) = cos c sin mθ + sin c cos mθ.
+		if fn == "cos" {
+			return Trig(m, false).Scale(cs).Sub(Trig(m, true).Scale(sn)), true, nil
+		}
+		return Trig(m, true).Scale(cs).Add(Trig(m, false).Scale(sn)), true, nil
+	case "sqrt":
+		r, err := s.Pow(big.NewRat(1, 2))
+		return r, err == nil, nil
+	case "ln", "log": // log is the natural logarithm, as in most numeric libraries
+		if len(s.t) != 1 || s.t[0].L != 0 || s.t[0].K != 0 || s.t[0].M != 0 {
+			return Sum{}, false, nil
+		}
+		t := s.t[0]
+		l, err := t.C.Ln()
+		if err != nil {
+			if t.C.IsZero() || (t.C.IsPoly() && t.C.num.isMonomial() && t.C.num.t[0].c.Sign() <= 0) {
+				return Sum{}, false, fmt.Errorf("ln of a non-positive value")
+			}
+			return Sum{}, false, nil
+		}
+		return Const(l).Add(NewSum(Term{C: RatCoef(t.power()), L: 1})), true, nil
+	case "abs":
+		if c, ok := s.Const(); ok {
+			if q, ok := c.Rat(); ok {
+				return Const(RatCoef(new(big.Rat).Abs(q))), true, nil
+			}
+		}
+	case "exp", "sinh", "tanh", "tan":
+		if c, ok := s.Const(); ok && c.IsZero() {
+			if fn == "exp" {
+				return Const(IntCoef(1)), true, nil
+			}
+			return Sum{}, true, nil
+		}
+	case "cosh":
+		if c, ok := s.Const(); ok && c.IsZero() {
+			return Const(IntCoef(1)), true, nil
+		}
+	}
+	return Sum{}, false, nil
+}
+
+// angleOf splits s = mθ + c with m a whole number and c constant.
+func angleOf(s Sum) (m int, c Coef, ok bool) {
+	for _, t := range s.t {
+		switch {
+		case t.isConst():
+			c = t.C
+		case t.K == 1 && t.M == 0 && t.L == 0 && t.power().Sign() == 0:
+			q, isRat := t.C.Rat()
+			if !isRat || !q.IsInt() || !q.Num().IsInt64() || q.Num().Int64() > 1<<20 || q.Num().Int64() < -(1<<20) {
+				return 0, Coef{}, false
+			}
+			m = int(q.Num().Int64())
+		default:
+			return 0, Coef{}, false
+		}
+	}
+	return m, c, true
+}
+
+// unitCircle is (cos c, sin c) for c = 0 or c = qπ with 12q whole.
+func unitCircle(c Coef) (Coef, Coef, bool) {
+	if c.IsZero() {
+		return IntCoef(1), Coef{}, true
+	}
+	piInv, _ := IntCoef(1).Div(SymCoef(Pi))
+	q, ok := c.Mul(piInv).Rat()
+	if !ok {
+		return Coef{}, Coef{}, false
+	}
+	twelfths := new(big.Rat).Mul(q, big.NewRat(12, 1))
+	if !twelfths.IsInt() {
+		return Coef{}, Coef{}, false
+	}
+	k := new(big.Int).Mod(twelfths.Num(), big.NewInt(24)).Int64()
+	v, ok := cos12[k%24]
+	if !ok {
+		return Coef{}, Coef{}, false
+	}
+	s, ok := cos12[(k+18)%24] // sin x = cos(x − π/2)
+	if !ok {
+		return Coef{}, Coef{}, false
+	}
+	return v, s, true
+}
+
+// cos12 holds cos(kπ/12) for the k whose value is a rational times √2, √3 or 1.
+var cos12 = func() map[int64]Coef {
+	half := big.NewRat(1, 2)
+	r2, _ := IntCoef(2).Pow(half)
+	r3, _ := IntCoef(3).Pow(half)
+	base := map[int64]Coef{
+		0: IntCoef(1),
+		2: r3.MulRat(half),
+		3: r2.MulRat(half),
+		4: FracCoef(1, 2),
+		6: {},
+	}
+	out := map[int64]Coef{}
+	for k, v := range base {
+		out[k] = v               // cos(kπ/12)
+		out[(24-k)%24] = v       // cos(−x) = cos x
+		out[12-k] = v.Neg()      // cos(π − x) = −cos x
+		out[(12+k)%24] = v.Neg() // cos(π + x) = −cos x
+	}
+	return out
+}()
+
+// Text prints the remainder in psol's syntax.
+func (e *Expr) Text() string {
+	switch e.op {
+	case "sum":
+		if e.sum.Len() > 1 {
+			return "(" + e.sum.Text() + ")"
+		}
+		return e.sum.Text()
+	case "+":
+		return e.args[0].Text() + " + " + e.args[1].Text()
+	case "*", "/":
+		return wrap(e.args[0]) + e.op + wrap(e.args[1])
+	case "^":
+		return wrap(e.args[0]) + "^(" + e.args[1].sum.Text() + ")"
+	}
+	return e.op + "(" + trimParens(e.args[0].Text()) + ")"
+}
+
+func wrap(e *Expr) string {
+	if e.op == "+" {
+		return "(" + e.Text() + ")"
+	}
+	return e.Text()
+}
+
+func trimParens(s string) string {
+	if len(s) > 1 && s[0] == '(' && s[len(s)-1] == ')' {
+		return s[1 : len(s)-1]
+	}
+	return s
+}
+
+// Text prints the field in psol's syntax.
+func (f Field) Text() string {
+	if f.IsExact() {
+		return f.Exact.Text()
+	}
+	return f.expr().Text()
+}
+
+// CompiledField evaluates a field in float64.
+type CompiledField struct {
+	e    *Expr
+	sums map[*Expr]Compiled
+}
+
+// Compile fixes parameters from env for float64 evaluation.
+func (f Field) Compile(env Env) (CompiledField, error) {
+	cf := CompiledField{e: f.expr(), sums: map[*Expr]Compiled{}}
+	var walk func(*Expr) error
+	walk = func(e *Expr) error {
+		if e.op == "sum" {
+			c, err := e.sum.Compile(env)
+			cf.sums[e] = c
+			return err
+		}
+		for _, a := range e.args {
+			if err := walk(a); err != nil {
+				return err
+			}
+		}
+		return nil
+	}
+	return cf, walk(cf.e)
+}
+
+// At is the field's value at (r, θ).
+func (cf CompiledField) At(r, theta float64) float64 { return cf.eval(cf.e, r, theta) }
+
+func (cf CompiledField) eval(e *Expr, r, theta float64) float64 {
+	switch e.op {
+	case "sum":
+		return cf.sums[e].At(r, theta)
+	case "+":
+		return cf.eval(e.args[0], r, theta) + cf.eval(e.args[1], r, theta)
+	case "*":
+		return cf.eval(e.args[0], r, theta) * cf.eval(e.args[1], r, theta)
+	case "/":
+		return cf.eval(e.args[0], r, theta) / cf.eval(e.args[1], r, theta)
+	case "^":
+		return math.Pow(cf.eval(e.args[0], r, theta), cf.eval(e.args[1], r, theta))
+	}
+	return unaryFloat[e.op](cf.eval(e.args[0], r, theta))
+}

@@ -1,0 +1,337 @@
+package series
+
+import (
+	"math/big"
+	"strconv"
+	"strings"
+)
+
+// Text and LaTeX printing. Text uses psol's input syntax, so every printed
+// formula parses back to an equal value.
+
+// Text is c in psol's syntax.
+func (c Coef) Text() string { return printCoef(c, textStyle) }
+
+// LaTeX is c as LaTeX math.
+func (c Coef) LaTeX() string { return printCoef(c, latexStyle) }
+
+// Text is s in psol's syntax.
+func (s Sum) Text() string { return printTerms(s.t, textStyle) }
+
+// LaTeX is s as LaTeX math.
+func (s Sum) LaTeX() string { return printTerms(s.t, latexStyle) }
+
+// JoinText prints the sum of parts, each part's terms in its own order and
+// a like term merged into its first appearance, so a solution reads as its parts.
+func JoinText(parts ...Sum) string { return printTerms(joinTerms(parts), textStyle) }
+
+// JoinLaTeX is JoinText as LaTeX.
+func JoinLaTeX(parts ...Sum) string { return printTerms(joinTerms(parts), latexStyle) }
+
+func joinTerms(parts []Sum) []Term {
+	idx := map[shape]int{}
+	var out []Term
+	for _, p := range parts {
+		for _, t := range p.t {
+			if i, ok := idx[t.shape()]; ok {
+				out[i].C = out[i].C.Add(t.C)
+				continue
+			}
+			idx[t.shape()] = len(out)
+			out = append(out, t)
+		}
+	}
+	kept := out[:0]
+	for _, t := range out {
+		if !t.C.IsZero() {
+			kept = append(kept, t)
+		}
+	}
+	return kept
+}
+
+// style is one output syntax.
+type style struct {
+	latex bool
+	mul   string
+}
+
+var (
+	textStyle  = style{false, "*"}
+	latexStyle = style{true, " "}
+)
+
+func printTerms(ts []Term, st style) string {
+	if len(ts) == 0 {
+		return "0"
+	}
+	var b strings.Builder
+	for i, t := range ts {
+		neg, body := printTerm(t, st)
+		switch {
+		case i == 0 && neg:
+			b.WriteString("-")
+		case i > 0 && neg:
+			b.WriteString(" - ")
+		case i > 0:
+			b.WriteString(" + ")
+		}
+		b.WriteString(body)
+	}
+	return b.String()
+}
+
+// variables is the r, ln r, θ and trigonometric part of a term.
+func (t Term) variables(st style) []string {
+	var v []string
+	if p := t.power(); p.Sign() != 0 {
+		v = append(v, power("r", p, st))
+	}
+	if t.L > 0 {
+		if st.latex {
+			v = append(v, power(`(\ln r)`, big.NewRat(int64(t.L), 1), st))
+			if t.L == 1 {
+				v[len(v)-1] = `\ln r`
+			}
+		} else {
+			v = append(v, power("ln(r)", big.NewRat(int64(t.L), 1), st))
+		}
+	}
+	if t.K > 0 {
+		name := "theta"
+		if st.latex {
+			name = `\theta`
+		}
+		v = append(v, power(name, big.NewRat(int64(t.K), 1), st))
+	}
+	if t.M > 0 {
+		v = append(v, trigText(t.M, t.Sin, st))
+	}
+	return v
+}
+
+func trigText(m int, sin bool, st style) string {
+	fn := "cos"
+	if sin {
+		fn = "sin"
+	}
+	switch {
+	case st.latex && m == 1:
+		return `\` + fn + `\theta`
+	case st.latex:
+		return `\` + fn + " " + strconv.Itoa(m) + `\theta`
+	case m == 1:
+		return fn + "(theta)"
+	}
+	return fn + "(" + strconv.Itoa(m) + "*theta)"
+}
+
+// power is base^e in the style's syntax; e = 1 prints the bare base.
+func power(base string, e *big.Rat, st style) string {
+	switch {
+	case e.Cmp(one) == 0:
+		return base
+	case st.latex:
+		return base + "^{" + latexRat(e) + "}"
+	case e.IsInt() && e.Sign() > 0:
+		return base + "^" + e.RatString()
+	}
+	return base + "^(" + e.RatString() + ")"
+}
+
+func latexRat(e *big.Rat) string {
+	if e.IsInt() {
+		return e.RatString()
+	}
+	s := ""
+	if e.Sign() < 0 {
+		s = "-"
+	}
+	return s + new(big.Int).Abs(e.Num()).String() + "/" + e.Denom().String()
+}
+
+func printTerm(t Term, st style) (neg bool, body string) {
+	vars := t.variables(st)
+	c := t.C
+	if c.den.IsZero() && c.num.isMonomial() {
+		return printMonomialTerm(c.num.t[0], vars, st)
+	}
+	var coef string
+	if c.den.IsZero() {
+		num := c.num
+		neg = num.t[0].c.Sign() < 0
+		if neg {
+			num = num.Neg()
+		}
+		if len(vars) == 0 {
+			return neg, printPoly(num, st)
+		}
+		coef = paren(printPoly(num, st), st)
+	} else if st.latex {
+		coef = `\frac{` + printPoly(c.num, st) + "}{" + printPoly(c.den, st) + "}"
+	} else {
+		coef = "(" + printQuotient(c, st) + ")"
+	}
+	return neg, strings.Join(append([]string{coef}, vars...), st.mul)
+}
+
+func paren(s string, st style) string {
+	if st.latex {
+		return `\left(` + s + `\right)`
+	}
+	return "(" + s + ")"
+}
+
+func printPoly(p Poly, st style) string {
+	var b strings.Builder
+	for i, t := range p.t {
+		neg, body := printMonomialTerm(t, nil, st)
+		switch {
+		case i == 0 && neg:
+			b.WriteString("-")
+		case neg:
+			b.WriteString(" - ")
+		case i > 0:
+			b.WriteString(" + ")
+		}
+		b.WriteString(body)
+	}
+	return b.String()
+}
+
+// printMonomialTerm prints q·Π atoms·vars: in text as q*atoms*vars/atoms,
+// in LaTeX as \frac{q_num atoms}{q_den atoms} vars.
+func printMonomialTerm(t pterm, vars []string, st style) (bool, string) {
+	q := t.c
+	neg := q.Sign() < 0
+	num := new(big.Int).Abs(q.Num())
+	den := q.Denom()
+	var up, down []string
+	for _, f := range t.m.f {
+		if f.exp.Sign() > 0 {
+			up = append(up, atomPower(f.sym, f.exp, st))
+		} else {
+			down = append(down, atomPower(f.sym, new(big.Rat).Neg(f.exp), st))
+		}
+	}
+	if st.latex {
+		top := up
+		if num.Cmp(one.Num()) != 0 || len(up) == 0 && (len(vars) == 0 || len(down) > 0 || den.Cmp(one.Num()) != 0) {
+			top = append([]string{num.String()}, up...)
+		}
+		bottom := down
+		if den.Cmp(one.Num()) != 0 {
+			bottom = append([]string{den.String()}, down...)
+		}
+		head := strings.Join(top, " ")
+		if len(bottom) > 0 {
+			head = `\frac{` + head + "}{" + strings.Join(bottom, " ") + "}"
+		}
+		parts := vars
+		if head != "" {
+			parts = append([]string{head}, vars...)
+		}
+		return neg, strings.Join(parts, " ")
+	}
+	var parts []string
+	abs := new(big.Rat).Abs(q)
+	if abs.Cmp(one) != 0 || len(up)+len(vars) == 0 {
+		parts = append(parts, abs.RatString())
+	}
+	parts = append(append(parts, up...), vars...)
+	s := strings.Join(parts, "*")
+	for _, d := range down {
+		s += "/" + d
+	}
+	return neg, s
+}
+
+// greek lists the parameter names that print as LaTeX Greek letters.
+var greek = map[string]bool{
+	"alpha": true, "beta": true, "gamma": true, "delta": true, "epsilon": true, "zeta": true,
+	"eta": true, "iota": true, "kappa": true, "lambda": true, "mu": true, "nu": true, "xi": true,
+	"rho": true, "sigma": true, "tau": true, "phi": true, "chi": true, "psi": true, "omega": true,
+	"Gamma": true, "Delta": true, "Lambda": true, "Sigma": true, "Phi": true, "Psi": true, "Omega": true,
+}
+
+// nameLaTeX typesets a parameter: Greek names as letters, trailing digits as a subscript.
+func nameLaTeX(n string) string {
+	i := len(n)
+	for i > 0 && n[i-1] >= '0' && n[i-1] <= '9' {
+		i--
+	}
+	base, sub := n[:i], n[i:]
+	switch {
+	case greek[base]:
+		base = `\` + base
+	case len([]rune(base)) > 1:
+		base = `\mathrm{` + base + "}"
+	}
+	if sub != "" && base != "" {
+		return base + "_{" + sub + "}"
+	}
+	return base + sub
+}
+
+func atomPower(s Symbol, e *big.Rat, st style) string {
+	switch s.kind {
+	case kindRoot:
+		if e.Num().IsInt64() && e.Num().Int64() == 1 {
+			d := e.Denom().String()
+			switch {
+			case d == "2" && st.latex:
+				return `\sqrt{` + s.name + "}"
+			case st.latex:
+				return `\sqrt[` + d + "]{" + s.name + "}"
+			case d == "2":
+				return "sqrt(" + s.name + ")"
+			}
+		}
+		return power(s.name, e, st)
+	case kindPi:
+		if st.latex {
+			return power(`\pi`, e, st)
+		}
+		return power("pi", e, st)
+	case kindLog:
+		if st.latex {
+			arg := s.name
+			if !isDigits(arg) {
+				arg = nameLaTeX(arg)
+				if s.name == "pi" {
+					arg = `\pi`
+				}
+			}
+			if e.Cmp(one) == 0 {
+				return `\ln ` + arg
+			}
+			return power(`(\ln `+arg+")", e, st)
+		}
+		return power("ln("+s.name+")", e, st)
+	}
+	if st.latex {
+		return power(nameLaTeX(s.name), e, st)
+	}
+	return power(s.name, e, st)
+}
+
+func printCoef(c Coef, st style) string {
+	switch {
+	case c.num.IsZero():
+		return "0"
+	case c.den.IsZero():
+		return printPoly(c.num, st)
+	case st.latex:
+		return `\frac{` + printPoly(c.num, st) + "}{" + printPoly(c.den, st) + "}"
+	}
+	return printQuotient(c, st)
+}
+
+// printQuotient is num/den in text, bracketing only what needs it.
+func printQuotient(c Coef, st style) string {
+	num := printPoly(c.num, st)
+	if len(c.num.t) > 1 {
+		num = paren(num, st)
+	}
+	return num + "/" + paren(printPoly(c.den, st), st)
+}

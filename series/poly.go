@@ -1,0 +1,253 @@
+package series
+
+import (
+	"errors"
+	"math/big"
+	"sort"
+)
+
+// Poly is a Laurent polynomial with rational coefficients in the atoms:
+// Σ c_i·m_i, terms sorted by monomial, no zero coefficient. The zero value is 0.
+// Operations never mutate their operands.
+type Poly struct {
+	t []pterm
+}
+
+type pterm struct {
+	m monomial
+	c *big.Rat
+}
+
+// RatPoly is the constant polynomial x.
+func RatPoly(x *big.Rat) Poly {
+	if x.Sign() == 0 {
+		return Poly{}
+	}
+	return Poly{[]pterm{{c: new(big.Rat).Set(x)}}}
+}
+
+// SymPoly is the polynomial s^e.
+func SymPoly(s Symbol, e *big.Rat) Poly {
+	m, k := normalizeRoots([]factor{{s, new(big.Rat).Set(e)}})
+	return Poly{[]pterm{{m: m, c: k}}}
+}
+
+func (p Poly) IsZero() bool { return len(p.t) == 0 }
+
+// Rat reports p as a rational constant, if it is one.
+func (p Poly) Rat() (*big.Rat, bool) {
+	switch {
+	case len(p.t) == 0:
+		return new(big.Rat), true
+	case len(p.t) == 1 && len(p.t[0].m.f) == 0:
+		return p.t[0].c, true
+	}
+	return nil, false
+}
+
+// fromMap builds the canonical polynomial from accumulated terms.
+func fromMap(acc map[string]pterm) Poly {
+	out := make([]pterm, 0, len(acc))
+	for _, t := range acc {
+		if t.c.Sign() != 0 {
+			out = append(out, t)
+		}
+	}
+	sort.Slice(out, func(i, j int) bool { return monoLess(out[i].m, out[j].m) })
+	return Poly{out}
+}
+
+// monoLess orders monomials by their atoms in print order, then by exponent.
+func monoLess(a, b monomial) bool {
+	for i := 0; i < len(a.f) && i < len(b.f); i++ {
+		x, y := a.f[i], b.f[i]
+		if x.sym != y.sym {
+			return x.sym.less(y.sym)
+		}
+		if c := x.exp.Cmp(y.exp); c != 0 {
+			return c > 0
+		}
+	}
+	return len(a.f) < len(b.f)
+}
+
+func accumulate(acc map[string]pterm, m monomial, c *big.Rat) {
+	if old, ok := acc[m.key]; ok {
+		acc[m.key] = pterm{m, new(big.Rat).Add(old.c, c)}
+		return
+	}
+	acc[m.key] = pterm{m, c}
+}
+
+// Add is p + q.
+func (p Poly) Add(q Poly) Poly {
+	if p.IsZero() {
+		return q
+	}
+	if q.IsZero() {
+		return p
+	}
+	acc := make(map[string]pterm, len(p.t)+len(q.t))
+	for _, t := range p.t {
+		accumulate(acc, t.m, t.c)
+	}
+	for _, t := range q.t {
+		accumulate(acc, t.m, t.c)
+	}
+	return fromMap(acc)
+}
+
+// Neg is −p.
+func (p Poly) Neg() Poly { return p.ScaleRat(big.NewRat(-1, 1)) }
+
+// Sub is p − q.
+func (p Poly) Sub(q Poly) Poly { return p.Add(q.Neg()) }
+
+// ScaleRat is x·p.
+func (p Poly) ScaleRat(x *big.Rat) Poly {
+	if x.Sign() == 0 {
+		return Poly{}
+	}
+	out := make([]pterm, len(p.t))
+	for i, t := range p.t {
+		out[i] = pterm{t.m, new(big.Rat).Mul(t.c, x)}
+	}
+	return Poly{out}
+}
+
+// Mul is p·q.
+func (p Poly) Mul(q Poly) Poly {
+	if p.IsZero() || q.IsZero() {
+		return Poly{}
+	}
+	acc := make(map[string]pterm, len(p.t)*len(q.t))
+	for _, a := range p.t {
+		for _, b := range q.t {
+			m, k := monoMul(a.m, b.m)
+			c := new(big.Rat).Mul(a.c, b.c)
+			if k != one {
+				c.Mul(c, k)
+			}
+			accumulate(acc, m, c)
+		}
+	}
+	return fromMap(acc)
+}
+
+// Equal reports p = q.
+func (p Poly) Equal(q Poly) bool { return p.Sub(q).IsZero() }
+
+// isMonomial reports whether p is a single term.
+func (p Poly) isMonomial() bool { return len(p.t) == 1 }
+
+// ErrRootOfNegative and its kin report a power that has no real exact value.
+var (
+	ErrRootOfNegative = errors.New("a fractional power of a negative number has no real value")
+	ErrTooLarge       = errors.New("a number too large to factor exactly")
+	ErrDivideByZero   = errors.New("division by zero")
+)
+
+// PowRat is p^q for a single-term p; q fractional needs a positive coefficient.
+func (p Poly) PowRat(q *big.Rat) (Poly, error) {
+	if q.IsInt() && q.Sign() >= 0 {
+		n := q.Num().Int64()
+		out := RatPoly(one)
+		for i := int64(0); i < n; i++ {
+			out = out.Mul(p)
+		}
+		return out, nil
+	}
+	if !p.isMonomial() {
+		if p.IsZero() {
+			return Poly{}, ErrDivideByZero
+		}
+		return Poly{}, errNotMonomial
+	}
+	t := p.t[0]
+	c, roots, err := ratPowRat(t.c, q)
+	if err != nil {
+		return Poly{}, err
+	}
+	m, k := monoPow(t.m, q)
+	m, k2 := monoMul(m, roots)
+	c = new(big.Rat).Mul(c, k)
+	c.Mul(c, k2)
+	return Poly{[]pterm{{m, c}}}, nil
+}
+
+var errNotMonomial = errors.New("power of a sum")
+
+// ratPowRat is x^q as a rational times a monomial of prime roots.
+func ratPowRat(x *big.Rat, q *big.Rat) (*big.Rat, monomial, error) {
+	if x.Sign() == 0 {
+		if q.Sign() <= 0 {
+			return nil, monomial{}, ErrDivideByZero
+		}
+		return new(big.Rat), monomial{}, nil
+	}
+	if q.IsInt() {
+		return ratPowInt(x, q.Num().Int64()), monomial{}, nil
+	}
+	if x.Sign() < 0 {
+		return nil, monomial{}, ErrRootOfNegative
+	}
+	var fs []factor
+	add := func(n *big.Int, sign int64) error {
+		ps, err := factorize(n)
+		if err != nil {
+			return err
+		}
+		for _, pe := range ps {
+			e := new(big.Rat).Mul(q, big.NewRat(sign*pe.e, 1))
+			fs = append(fs, factor{Symbol{kindRoot, pe.p.String()}, e})
+		}
+		return nil
+	}
+	if err := add(x.Num(), 1); err != nil {
+		return nil, monomial{}, err
+	}
+	if err := add(x.Denom(), -1); err != nil {
+		return nil, monomial{}, err
+	}
+	m, k := normalizeRoots(fs)
+	return k, m, nil
+}
+
+type primePower struct {
+	p *big.Int
+	e int64
+}
+
+// factorize splits n > 0 into primes by trial division; a cofactor that
+// is not prime after that is refused rather than guessed.
+func factorize(n *big.Int) ([]primePower, error) {
+	n = new(big.Int).Set(n)
+	var out []primePower
+	if n.BitLen() > 62 && !n.ProbablyPrime(20) {
+		return nil, ErrTooLarge
+	}
+	if n.BitLen() > 62 {
+		return []primePower{{n, 1}}, nil
+	}
+	v := n.Uint64()
+	for p := uint64(2); p*p <= v; p++ {
+		if p > 1<<20 {
+			if !new(big.Int).SetUint64(v).ProbablyPrime(20) {
+				return nil, ErrTooLarge
+			}
+			break
+		}
+		var e int64
+		for v%p == 0 {
+			v /= p
+			e++
+		}
+		if e > 0 {
+			out = append(out, primePower{new(big.Int).SetUint64(p), e})
+		}
+	}
+	if v > 1 {
+		out = append(out, primePower{new(big.Int).SetUint64(v), 1})
+	}
+	return out, nil
+}
