@@ -19,6 +19,7 @@ const (
 	MaxDecimalExponent = 1000 // |e| in a literal such as 2e5
 	MaxExponent        = 1000 // |numerator| and denominator of a power's exponent
 	MaxSumPower        = 64   // whole power of an expression with several terms
+	MaxSize            = 5000 // monomials in an intermediate result
 )
 
 // value is what lowering makes of a node: an affine form
@@ -140,6 +141,9 @@ func (lw *lowerer) mul(v value, vpos lexer.Position, w value, wpos lexer.Positio
 		}
 		return w.scale(c), nil
 	}
+	if v.f.Exact.Size()*w.f.Exact.Size() > MaxSize {
+		return value{}, lw.fail(wpos, "the expanded expression would exceed %d terms", MaxSize)
+	}
 	return value{f: v.f.Mul(w.f)}, nil
 }
 
@@ -210,8 +214,18 @@ func (lw *lowerer) raise(v value, vpos lexer.Position, exp *unary) (value, error
 	if new(big.Int).Abs(q.Num()).Cmp(big.NewInt(MaxExponent)) > 0 || q.Denom().Cmp(big.NewInt(MaxExponent)) > 0 {
 		return value{}, lw.fail(exp.Pos, "exponent %s is beyond the bound %d on its numerator and denominator", q.RatString(), MaxExponent)
 	}
-	if q.IsInt() && q.Num().Int64() > MaxSumPower && v.f.Exact.Len() > 1 {
+	if q.IsInt() && q.Num().Int64() > MaxSumPower && v.f.Exact.Size() > 1 {
 		return value{}, lw.fail(exp.Pos, "a power of a sum is limited to %d", MaxSumPower)
+	}
+	if q.IsInt() && q.Sign() > 0 && v.f.IsExact() && v.f.Exact.Size() > 1 {
+		// Expand step by step so that a blow-up is caught before it happens.
+		acc := v
+		for i := int64(1); i < q.Num().Int64(); i++ {
+			if acc, err = lw.mul(acc, vpos, v, vpos); err != nil {
+				return value{}, err
+			}
+		}
+		return acc, nil
 	}
 	f, err := v.f.Pow(q)
 	if err != nil {
@@ -274,7 +288,6 @@ var variables = map[string]series.Sum{
 
 // reserved names may not be parameters.
 var reserved = map[string]string{
-	"u":   "u stands alone only in boundary conditions; the equation uses lap(u)",
 	"lap": "lap needs its argument: lap(u)",
 	"dn":  "dn needs its argument: dn(u)",
 }

@@ -68,6 +68,9 @@ func printTerms(ts []Term, st style) string {
 	var b strings.Builder
 	for i, t := range ts {
 		neg, body := printTerm(t, st)
+		if !neg && i > 0 && strings.HasPrefix(body, "-") {
+			neg, body = true, body[1:]
+		}
 		switch {
 		case i == 0 && neg:
 			b.WriteString("-")
@@ -157,16 +160,21 @@ func printTerm(t Term, st style) (neg bool, body string) {
 		return printMonomialTerm(c.num.t[0], vars, st)
 	}
 	var coef string
+	if !c.den.IsZero() && c.num.t[0].c.Sign() < 0 {
+		neg, c = true, c.Neg()
+	}
 	if c.den.IsZero() {
+		if len(vars) == 0 { // a bare sum: its own signs stand
+			return false, printPoly(c.num, st)
+		}
 		num := c.num
 		neg = num.t[0].c.Sign() < 0
 		if neg {
 			num = num.Neg()
 		}
-		if len(vars) == 0 {
-			return neg, printPoly(num, st)
-		}
 		coef = paren(printPoly(num, st), st)
+	} else if len(vars) == 0 {
+		return false, printCoef(c, st)
 	} else if st.latex {
 		coef = `\frac{` + printPoly(c.num, st) + "}{" + printPoly(c.den, st) + "}"
 	} else {

@@ -260,3 +260,12 @@ func (s Sum) MaxMode() int {
 	}
 	return m
 }
+
+// Size counts the monomials of s, coefficients included: a bound on the work of a product.
+func (s Sum) Size() int {
+	n := 0
+	for _, t := range s.t {
+		n += len(t.C.num.t) + len(t.C.den.t)
+	}
+	return n
+}

@@ -6,7 +6,6 @@ import (
 	"io"
 	"strings"
 
-	"psol/ansatz"
 	"psol/series"
 	"psol/series/domain"
 )
@@ -47,7 +46,7 @@ func exactStage(label, text, latex, tex string) stage {
 	return stage{Label: label, Text: text, LaTeX: latex, Exact: true, tex: tex}
 }
 
-func newView(pr *problem, sol *domain.Solution, steps []ansatz.Step, pts []point, showSteps bool) *view {
+func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *view {
 	v := &view{Points: pts, Warnings: []string{}, showSteps: showSteps}
 	if v.Points == nil {
 		v.Points = []point{}
@@ -82,7 +81,7 @@ func newView(pr *problem, sol *domain.Solution, steps []ansatz.Step, pts []point
 	for _, c := range sol.Checks {
 		v.Checks = append(v.Checks, checkOut{Name: c.Name, Side: c.Side, Exact: c.Exact, Formula: c.Residual.Text(), Residual: residualSize(c.Residual, pr.env)})
 	}
-	for _, st := range steps {
+	for _, st := range sol.Rules {
 		v.Steps = append(v.Steps, fmt.Sprintf("ansatz %s -> %s (%s)", st.Source.Text(), st.Result.Text(), st.Rule))
 	}
 	v.Steps = append(v.Steps, sol.Steps...)

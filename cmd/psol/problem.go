@@ -6,7 +6,6 @@ import (
 
 	"github.com/spf13/pflag"
 
-	"psol/ansatz"
 	"psol/parse"
 	"psol/series"
 	"psol/series/domain"
@@ -91,19 +90,12 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 	return pr, nil
 }
 
-// solve finds the particular solution and assembles the solution.
-func (pr *problem) solve() (*domain.Solution, []ansatz.Step, error) {
-	if !pr.source.IsExact() {
-		return nil, nil, &domain.Unsupported{Reason: "the source has a part with no closed form yet: " + pr.source.Rest.Text()}
-	}
-	up, steps, err := ansatz.Particular(pr.source.Exact)
-	if err != nil {
-		return nil, nil, err
-	}
-	sol, err := domain.Solve(pr.domain, pr.source.Exact, up, pr.conds)
+// solve assembles the solution.
+func (pr *problem) solve() (*domain.Solution, error) {
+	sol, err := domain.Solve(pr.domain, pr.source, pr.conds)
 	var ms *domain.MissingSides
 	if errors.As(err, &ms) {
-		return nil, nil, usagef("no boundary condition for side %s; add --bc \"%s: u = ...\"", strings.Join(ms.Sides, ", "), ms.Sides[0])
+		return nil, usagef("no boundary condition for side %s; add --bc \"%s: u = ...\"", strings.Join(ms.Sides, ", "), ms.Sides[0])
 	}
-	return sol, steps, err
+	return sol, err
 }

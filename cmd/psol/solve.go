@@ -48,14 +48,14 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		}
 		pts = append(pts, p)
 	}
-	sol, steps, err := pr.solve()
+	sol, err := pr.solve()
 	if err != nil {
 		return err
 	}
 	if err := evaluate(sol.U, pr.env, pts, pr.domain); err != nil {
 		return err
 	}
-	v := newView(pr, sol, steps, pts, o.steps)
+	v := newView(pr, sol, pts, o.steps)
 	if err := v.failedCheck(); err != nil {
 		render(w, v)
 		return err

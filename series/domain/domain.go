@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math/big"
 
+	"psol/ansatz"
 	"psol/series"
 )
 
@@ -123,13 +124,18 @@ type Solution struct {
 	Harmonic   series.Sum
 	U          series.Sum
 	Checks     []Check
-	Steps      []string
+	Rules      []ansatz.Step // how each source term was solved
+	Steps      []string      // how the harmonic part was found
 	Notes      []string
 }
 
-// Solve assembles u = u_p + h on d for Δu = f with the given conditions and
-// a particular solution up of Δu_p = f.
-func Solve(d Domain, f, up series.Sum, conds []Condition) (*Solution, error) {
+// Solve assembles u = u_p + h on d for Δu = f with the given conditions:
+// u_p from the ansatz rules, h from the domain's harmonic series.
+func Solve(d Domain, source series.Field, conds []Condition) (*Solution, error) {
+	if !source.IsExact() {
+		return nil, &Unsupported{"the source has a part with no closed form yet: " + source.Rest.Text()}
+	}
+	f := source.Exact
 	if err := d.admit(f); err != nil {
 		return nil, err
 	}
@@ -149,7 +155,11 @@ func Solve(d Domain, f, up series.Sum, conds []Condition) (*Solution, error) {
 	if len(missing) > 0 {
 		return nil, &MissingSides{missing}
 	}
-	sol := &Solution{Domain: d, Source: f, Particular: up}
+	up, rules, err := ansatz.Particular(f)
+	if err != nil {
+		return nil, err
+	}
+	sol := &Solution{Domain: d, Source: f, Particular: up, Rules: rules}
 	data := map[string]series.Sum{}
 	for _, name := range d.Sides() {
 		cond := byName[name]

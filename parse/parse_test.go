@@ -1,0 +1,241 @@
+package parse
+
+import (
+	"errors"
+	"flag"
+	"math/big"
+	"math/rand"
+	"os"
+	"strings"
+	"testing"
+
+	"psol/series"
+	"psol/series/domain"
+)
+
+var update = flag.Bool("update", false, "rewrite golden files")
+
+// The grammar participle derives from the node types is pinned by a golden file.
+func TestGrammarGolden(t *testing.T) {
+	const path = "../testdata/grammar.ebnf"
+	got := Grammar() + "\n"
+	if *update {
+		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
+			t.Fatal(err)
+		}
+	}
+	want, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got != string(want) {
+		t.Errorf("grammar changed; run go test ./parse -update and review the diff\n%s", got)
+	}
+}
+
+func TestLowering(t *testing.T) {
+	cases := []struct{ in, want string }{
+		{"6r*sin(theta)", "6*r*sin(theta)"},
+		{"4sin(3theta)", "4*sin(3*theta)"},
+		{"3(x+y)", "3*r*cos(theta) + 3*r*sin(theta)"},
+		{"x*y", "1/2*r^2*sin(2*theta)"},
+		{"x^2 + y^2", "r^2"},
+		{"x*r^2", "r^3*cos(theta)"},
+		{"cos(theta)^3", "3/4*cos(theta) + 1/4*cos(3*theta)"},
+		{"2e5", "200000"},
+		{"0.05*a", "1/20*a"},
+		{"r**2", "r^2"},
+		{"2^-1", "1/2"},
+		{"-r^2", "-r^2"},
+		{"2r^2", "2*r^2"},
+		{"sqrt(r)", "r^(1/2)"},
+		{"sqrt(x^2+y^2)", "r"},
+		{"ln(r^3)", "3*ln(r)"},
+		{"log(r)", "ln(r)"},
+		{"sin(-2theta)", "-sin(2*theta)"},
+		{"cos(theta - pi/2)", "sin(theta)"},
+		{"cos(θ)", "cos(theta)"},
+		{"π", "pi"},
+		{"G/(4mu)", "1/4*G/mu"},
+		{"(a+b)^2", "a^2 + 2*a*b + b^2"},
+		{"1/(a+b)", "1/(a + b)"},
+		{"exp(-r^2)", "exp(-r^2)"},
+		{"1/(1+r^2)", "1/(1 + r^2)"},
+	}
+	for _, c := range cases {
+		f, err := Expression("test", c.in, nil)
+		if err != nil {
+			t.Errorf("%s: %v", c.in, err)
+			continue
+		}
+		if got := f.Text(); got != c.want {
+			t.Errorf("%s: got %s, want %s", c.in, got, c.want)
+		}
+	}
+}
+
+func TestEquations(t *testing.T) {
+	cases := []struct{ in, want string }{
+		{"lap(u) = 6r*sin(theta)", "6*r*sin(theta)"},
+		{"-k*lap(u) = q", "-q/k"},
+		{"Δu = 1", "1"},
+		{"∇²u = x", "r*cos(theta)"},
+		{"∇^2u = x", "r*cos(theta)"},
+		{"x^2*y", "1/4*r^3*sin(theta) + 1/4*r^3*sin(3*theta)"},
+		{"0 = mu*lap(u) + G", "-G/mu"},
+		{"2*lap(u) - 4 = lap(u)", "4"},
+		{"lap(u)/3 = r", "3*r"},
+	}
+	for _, c := range cases {
+		f, err := Equation(c.in, nil)
+		if err != nil {
+			t.Errorf("%s: %v", c.in, err)
+			continue
+		}
+		if got := f.Text(); got != c.want {
+			t.Errorf("%s: got %s, want %s", c.in, got, c.want)
+		}
+	}
+}
+
+func TestConditions(t *testing.T) {
+	cases := []struct {
+		in   string
+		kind domain.Kind
+		h, g string
+	}{
+		{"u = 4sin(3theta)", domain.Dirichlet, "0", "4*sin(3*theta)"},
+		{"rim: u = 0", domain.Dirichlet, "0", "0"},
+		{"dn(u) = 1", domain.Neumann, "0", "1"},
+		{"dn(u) + h*u = h*Tinf", domain.Robin, "h", "Tinf*h"},
+		{"-k*dn(u) = hc*(u - T)", domain.Robin, "hc/k", "T*hc/k"},
+		{"2u = x", domain.Dirichlet, "0", "1/2*r*cos(theta)"},
+	}
+	for _, c := range cases {
+		cond, err := Condition(c.in, []string{"rim"}, nil)
+		if err != nil {
+			t.Errorf("%s: %v", c.in, err)
+			continue
+		}
+		if cond.Kind != c.kind || cond.H.Text() != c.h || cond.G.Text() != c.g {
+			t.Errorf("%s: got %v h=%s g=%s, want %v h=%s g=%s", c.in, cond.Kind, cond.H.Text(), cond.G.Text(), c.kind, c.h, c.g)
+		}
+	}
+}
+
+// Malformed input is refused with an Error that carries the column.
+func TestBadInput(t *testing.T) {
+	cases := []struct {
+		in  string
+		col int
+		msg string
+	}{
+		{"lap(u) = (1 + r", 16, "unexpected"},
+		{"lap(u) = sine(r)", 10, "unknown function"},
+		{"u = 1", 1, "u appears outside lap(u)"},
+		{"lap(u) = u", 1, "u appears outside lap(u)"},
+		{"r*lap(u) = 1", 1, "must be a constant"},
+		{"", 1, "empty input"},
+		{"lap(u) = r^100000", 12, "beyond the bound"},
+		{"lap(u) = (1+r)^65", 16, "power of a sum"},
+		{"lap(v) = 1", 5, "applies to u only"},
+		{"lap(u) = 1e5000", 10, "beyond"},
+		{"lap(u) = 2 $ 3", 12, "unexpected"},
+		{"lap(u) = theta < pi ? 1 : 0", 10, "piecewise"},
+		{"lap(u) = sin", 10, "needs an argument"},
+		{"lap(u) = r^r", 12, "rational number"},
+		{"lap(u) = 1/0", 12, "division by zero"},
+		{"lap(u) = sin(1, 2)", 10, "one argument"},
+		{"lap(u)*lap(u) = 1", 8, "linear"},
+	}
+	for _, c := range cases {
+		_, err := Equation(c.in, nil)
+		var pe *Error
+		if !errors.As(err, &pe) {
+			t.Errorf("%q: got %v, want a parse error", c.in, err)
+			continue
+		}
+		msg := pe.Error()
+		col := strings.SplitN(msg, ":", 3)[1]
+		if !strings.Contains(msg, c.msg) || col != itoa(c.col) || !strings.Contains(msg, "\n    "+c.in+"\n") {
+			t.Errorf("%q: message %q, want column %d and %q", c.in, msg, c.col, c.msg)
+		}
+	}
+	if _, err := Condition("inner: u = 0", []string{"rim"}, nil); err == nil || !strings.Contains(err.Error(), `no side "inner"`) {
+		t.Errorf("a side the disk lacks: %v", err)
+	}
+	if _, err := Lengths("--disk", "0", 1, nil); err == nil || !strings.Contains(err.Error(), "positive") {
+		t.Errorf("--disk 0: %v", err)
+	}
+	if _, err := Lengths("--disk", "-1", 1, nil); err == nil || !strings.Contains(err.Error(), "positive") {
+		t.Errorf("--disk -1: %v", err)
+	}
+}
+
+func itoa(n int) string { return big.NewInt(int64(n)).String() }
+
+// randomSum draws sums over the whole term algebra, parameters included.
+func randomSum(rng *rand.Rand) series.Sum {
+	var ts []series.Term
+	for i := rng.Intn(5) + 1; i > 0; i-- {
+		c := series.FracCoef(int64(rng.Intn(21)-10), int64(rng.Intn(6)+1))
+		switch rng.Intn(5) {
+		case 0:
+			c = c.Mul(series.SymCoef(series.Param([]string{"a", "mu", "T0", "q"}[rng.Intn(4)])))
+		case 1:
+			c = c.Mul(series.SymCoef(series.Pi))
+		case 2:
+			r, _ := series.IntCoef(int64(rng.Intn(5) + 2)).Pow(big.NewRat(1, int64(rng.Intn(2)+2)))
+			c = c.Mul(r)
+		case 3:
+			l, _ := series.IntCoef(int64(rng.Intn(5) + 2)).Ln()
+			c = c.Add(l)
+		}
+		ts = append(ts, series.Term{C: c, P: big.NewRat(int64(rng.Intn(9)-4), int64(rng.Intn(3)+1)), L: rng.Intn(3), K: rng.Intn(2), M: rng.Intn(5), Sin: rng.Intn(2) == 0})
+	}
+	return series.NewSum(ts...)
+}
+
+// Printed text parses back to an equal value (property test over generated sums).
+func TestRoundTrip(t *testing.T) {
+	rng := rand.New(rand.NewSource(4))
+	for i := 0; i < 500; i++ {
+		s := randomSum(rng)
+		f, err := Expression("round trip", s.Text(), nil)
+		if err != nil {
+			t.Fatalf("%s: %v", s.Text(), err)
+		}
+		if !f.IsExact() || !f.Exact.Equal(s) {
+			t.Fatalf("%s parsed back as %s", s.Text(), f.Text())
+		}
+	}
+}
+
+func FuzzParse(f *testing.F) {
+	for _, s := range []string{"lap(u) = 6r*sin(theta)", "x^2*y", "-k*lap(u) = q", "dn(u) + h*u = g", "rim: u = 4sin(3theta)", "(a+b)^3/(1+r^2)", "theta < pi ? 1 : 0", "2e5*exp(-r^2)", "∇²u = 1"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, in string) {
+		if fld, err := Equation(in, nil); err == nil && fld.IsExact() {
+			back, err := Expression("fuzz", fld.Text(), nil)
+			if err != nil || !back.Exact.Equal(fld.Exact) {
+				t.Fatalf("%q printed as %q, which parses back as %v (%v)", in, fld.Text(), back.Text(), err)
+			}
+		}
+		_, _ = Condition(in, []string{"rim"}, series.Env{"a": series.IntCoef(2)})
+		_, _ = Bindings("fuzz", in, nil)
+	})
+}
+
+func BenchmarkEquation(b *testing.B) {
+	for _, in := range []string{"lap(u) = 6r*sin(theta)", "-k*lap(u) = q*(1 + x^2*y - 3r^(1/2)*cos(2theta) + ln(r))"} {
+		b.Run(strings.Fields(in)[0]+"_"+itoa(len(in)), func(b *testing.B) {
+			b.ReportAllocs()
+			for i := 0; i < b.N; i++ {
+				if _, err := Equation(in, nil); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
