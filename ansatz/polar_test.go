@@ -97,7 +97,7 @@ func BenchmarkParticular(b *testing.B) {
 	for _, n := range []int{1, 5, 25} {
 		var ts []series.Term
 		for i := 0; i < n; i++ {
-			ts = append(ts, series.Term{C: series.FracCoef(int64(i+1), 3), P: rat(int64(i%4), 1), L: i % 3, M: i % 5, Sin: i%2 == 0})
+			ts = append(ts, series.Term{C: series.FracCoef(int64(i+1), 3), P: rat(int64(i%4), 1), L: i % 3, M: i%5 + 1, Sin: i%2 == 0})
 		}
 		f := series.NewSum(ts...)
 		b.Run(fmt.Sprintf("terms=%d", f.Len()), func(b *testing.B) {

@@ -16,13 +16,11 @@ type Error struct {
 }
 
 func (e *Error) Error() string {
-	off := e.Offset
-	if off < 0 {
-		off = 0
+	in, off := e.Input, e.Offset
+	if lead := len(in) - len(strings.TrimLeft(in, " ")); off >= lead {
+		in, off = in[lead:], off-lead // leading blanks are not the user's concern
 	}
-	if off > len(e.Input) {
-		off = len(e.Input)
-	}
-	col := utf8.RuneCountInString(e.Input[:off]) + 1
-	return fmt.Sprintf("%s 1:%d: %s\n    %s\n    %s^", e.Label, col, e.Msg, e.Input, strings.Repeat(" ", col-1))
+	off = max(0, min(off, len(in)))
+	col := utf8.RuneCountInString(in[:off]) + 1
+	return fmt.Sprintf("%s 1:%d: %s\n    %s\n    %s^", e.Label, col, e.Msg, in, strings.Repeat(" ", col-1))
 }

@@ -145,9 +145,9 @@ var tokens = lexer.MustSimple([]lexer.SimpleRule{
 // The parsers are built once.
 var (
 	statementParser = participle.MustBuild[statement](
-		participle.Lexer(tokens), participle.Elide("Space"), participle.UseLookahead(3))
+		participle.Lexer(tokens), participle.Elide("Space"), participle.UseLookahead(2))
 	bindingsParser = participle.MustBuild[bindings](
-		participle.Lexer(tokens), participle.Elide("Space"), participle.UseLookahead(3))
+		participle.Lexer(tokens), participle.Elide("Space"), participle.UseLookahead(2))
 )
 
 // Grammar is the EBNF participle derives from the node types, for the golden test.

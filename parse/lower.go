@@ -56,7 +56,7 @@ func (lw *lowerer) wrapParse(err error) error {
 	var pe participle.Error
 	if errors.As(err, &pe) {
 		msg := pe.Message()
-		msg = strings.ReplaceAll(msg, `"<EOF>"`, "end of input")
+		msg = strings.ReplaceAll(msg, `unexpected token "<EOF>"`, "unexpected end of input")
 		if strings.Contains(msg, "invalid input text") {
 			msg = "unexpected character"
 		}

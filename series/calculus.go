@@ -57,10 +57,43 @@ func (s Sum) MulR(q *big.Rat) Sum {
 	return NewSum(out...)
 }
 
-// Laplacian is Δs = ∂²s/∂r² + (1/r)∂s/∂r + (1/r²)∂²s/∂θ².
+// Laplacian is Δs = ∂²s/∂r² + (1/r)∂s/∂r + (1/r²)∂²s/∂θ², term by term:
+//
+//	Δ[r^p L^j θ^k T(mθ)] = r^(p−2) [ (p²−m²) L^j θ^k T + 2pj L^(j−1) θ^k T
+//	                       + j(j−1) L^(j−2) θ^k T + k(k−1) L^j θ^(k−2) T + 2k L^j θ^(k−1) T′ ]
+//
+// with L = ln r and T′ = dT/d(mθ)·m.
 func (s Sum) Laplacian() Sum {
-	d := s.DR()
-	return d.DR().Add(d.MulR(big.NewRat(-1, 1))).Add(s.DTheta().DTheta().MulR(big.NewRat(-2, 1)))
+	out := make([]Term, 0, 3*len(s.t))
+	two := big.NewRat(2, 1)
+	for _, t := range s.t {
+		p := t.power()
+		base := t
+		base.P = new(big.Rat).Sub(p, two)
+		add := func(w *big.Rat, l, k int) {
+			if w.Sign() == 0 || l < 0 || k < 0 {
+				return
+			}
+			u := base
+			u.C, u.L, u.K = t.C.MulRat(w), l, k
+			out = append(out, u)
+		}
+		pp := new(big.Rat).Mul(p, p)
+		add(pp.Sub(pp, big.NewRat(int64(t.M)*int64(t.M), 1)), t.L, t.K)
+		add(new(big.Rat).Mul(p, big.NewRat(2*int64(t.L), 1)), t.L-1, t.K)
+		add(big.NewRat(int64(t.L)*int64(t.L-1), 1), t.L-2, t.K)
+		add(big.NewRat(int64(t.K)*int64(t.K-1), 1), t.L, t.K-2)
+		if t.K > 0 && t.M > 0 { // 2k θ^(k−1) T′: cos′ = −m sin, sin′ = m cos
+			sign := int64(-1)
+			if t.Sin {
+				sign = 1
+			}
+			u := base
+			u.C, u.K, u.Sin = t.C.MulRat(big.NewRat(2*int64(t.K)*sign*int64(t.M), 1)), t.K-1, !t.Sin
+			out = append(out, u)
+		}
+	}
+	return NewSum(out...)
 }
 
 // ErrLogOfRadius reports a trace that needs ln R where R has no exact logarithm.

@@ -59,10 +59,28 @@ func (f Field) Neg() Field { return f.Scale(IntCoef(-1)) }
 // Scale is c·f.
 func (f Field) Scale(c Coef) Field {
 	out := Field{Exact: f.Exact.Scale(c)}
-	if f.Rest != nil {
-		out.Rest = &Expr{op: "*", args: []*Expr{{op: "sum", sum: Const(c)}, f.Rest}}
+	if f.Rest == nil || c.Equal(IntCoef(1)) {
+		out.Rest = f.Rest
+		return out
 	}
+	rest := f.Rest
+	if k, ok := rest.constFactor(); ok { // fold c·(k·e) into (ck)·e
+		c, rest = c.Mul(k), rest.args[1]
+		if c.Equal(IntCoef(1)) {
+			out.Rest = rest
+			return out
+		}
+	}
+	out.Rest = &Expr{op: "*", args: []*Expr{{op: "sum", sum: Const(c)}, rest}}
 	return out
+}
+
+// constFactor reports e = k·e' with k a constant leaf.
+func (e *Expr) constFactor() (Coef, bool) {
+	if e.op != "*" || e.args[0].op != "sum" {
+		return Coef{}, false
+	}
+	return e.args[0].sum.Const()
 }
 
 // Mul is f·g.
@@ -267,6 +285,9 @@ func (e *Expr) Text() string {
 	case "+":
 		return e.args[0].Text() + " + " + e.args[1].Text()
 	case "*", "/":
+		if k, ok := e.constFactor(); ok && k.Equal(IntCoef(-1)) {
+			return "-" + wrap(e.args[1])
+		}
 		return wrap(e.args[0]) + e.op + wrap(e.args[1])
 	case "^":
 		return wrap(e.args[0]) + "^(" + e.args[1].sum.Text() + ")"

@@ -45,16 +45,27 @@ func (p Poly) Rat() (*big.Rat, bool) {
 	return nil, false
 }
 
-// fromMap builds the canonical polynomial from accumulated terms.
-func fromMap(acc map[string]pterm) Poly {
-	out := make([]pterm, 0, len(acc))
-	for _, t := range acc {
+// canonical sorts accumulated terms, merges equal monomials and drops zeros.
+func canonical(ts []pterm) Poly {
+	sort.SliceStable(ts, func(i, j int) bool { return monoLess(ts[i].m, ts[j].m) })
+	out := ts[:0]
+	for _, t := range ts {
+		if n := len(out); n > 0 && out[n-1].m.key == t.m.key {
+			out[n-1].c = new(big.Rat).Add(out[n-1].c, t.c)
+			continue
+		}
+		out = append(out, t)
+	}
+	kept := out[:0]
+	for _, t := range out {
 		if t.c.Sign() != 0 {
-			out = append(out, t)
+			kept = append(kept, t)
 		}
 	}
-	sort.Slice(out, func(i, j int) bool { return monoLess(out[i].m, out[j].m) })
-	return Poly{out}
+	if len(kept) == 0 {
+		return Poly{}
+	}
+	return Poly{kept}
 }
 
 // monoLess orders monomials by their atoms in print order, then by exponent.
@@ -71,15 +82,7 @@ func monoLess(a, b monomial) bool {
 	return len(a.f) < len(b.f)
 }
 
-func accumulate(acc map[string]pterm, m monomial, c *big.Rat) {
-	if old, ok := acc[m.key]; ok {
-		acc[m.key] = pterm{m, new(big.Rat).Add(old.c, c)}
-		return
-	}
-	acc[m.key] = pterm{m, c}
-}
-
-// Add is p + q.
+// Add is p + q, by merging the two sorted term lists.
 func (p Poly) Add(q Poly) Poly {
 	if p.IsZero() {
 		return q
@@ -87,14 +90,28 @@ func (p Poly) Add(q Poly) Poly {
 	if q.IsZero() {
 		return p
 	}
-	acc := make(map[string]pterm, len(p.t)+len(q.t))
-	for _, t := range p.t {
-		accumulate(acc, t.m, t.c)
+	out := make([]pterm, 0, len(p.t)+len(q.t))
+	i, j := 0, 0
+	for i < len(p.t) || j < len(q.t) {
+		switch {
+		case j == len(q.t) || (i < len(p.t) && monoLess(p.t[i].m, q.t[j].m)):
+			out = append(out, p.t[i])
+			i++
+		case i == len(p.t) || monoLess(q.t[j].m, p.t[i].m):
+			out = append(out, q.t[j])
+			j++
+		default:
+			if c := new(big.Rat).Add(p.t[i].c, q.t[j].c); c.Sign() != 0 {
+				out = append(out, pterm{p.t[i].m, c})
+			}
+			i++
+			j++
+		}
 	}
-	for _, t := range q.t {
-		accumulate(acc, t.m, t.c)
+	if len(out) == 0 {
+		return Poly{}
 	}
-	return fromMap(acc)
+	return Poly{out}
 }
 
 // Neg is −p.
@@ -120,7 +137,7 @@ func (p Poly) Mul(q Poly) Poly {
 	if p.IsZero() || q.IsZero() {
 		return Poly{}
 	}
-	acc := make(map[string]pterm, len(p.t)*len(q.t))
+	acc := make([]pterm, 0, len(p.t)*len(q.t))
 	for _, a := range p.t {
 		for _, b := range q.t {
 			m, k := monoMul(a.m, b.m)
@@ -128,10 +145,10 @@ func (p Poly) Mul(q Poly) Poly {
 			if k != one {
 				c.Mul(c, k)
 			}
-			accumulate(acc, m, c)
+			acc = append(acc, pterm{m, c})
 		}
 	}
-	return fromMap(acc)
+	return canonical(acc)
 }
 
 // Equal reports p = q.

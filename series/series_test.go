@@ -69,6 +69,20 @@ func TestLaplacianFormula(t *testing.T) {
 	}
 }
 
+// The direct Laplacian agrees with the chain ∂rr + ∂r/r + ∂θθ/r² built from DR and DTheta,
+// θ powers included.
+func TestLaplacianChain(t *testing.T) {
+	rng := rand.New(rand.NewSource(6))
+	for i := 0; i < 300; i++ {
+		s := randomSum(rng).Mul(NewSum(Term{C: IntCoef(1), K: rng.Intn(3)}))
+		d := s.DR()
+		chain := d.DR().Add(d.MulR(big.NewRat(-1, 1))).Add(s.DTheta().DTheta().MulR(big.NewRat(-2, 1)))
+		if !s.Laplacian().Equal(chain) {
+			t.Fatalf("Δ(%s): direct %s, chain %s", s.Text(), s.Laplacian().Text(), chain.Text())
+		}
+	}
+}
+
 func TestExactAtoms(t *testing.T) {
 	half := big.NewRat(1, 2)
 	r2, _ := IntCoef(2).Pow(half)

@@ -26,12 +26,23 @@ func (t Term) power() *big.Rat {
 
 // shape is the part of a term that like terms share.
 type shape struct {
-	p       string
+	pn, pd  int64  // r's exponent, when it fits in int64
+	p       string // r's exponent otherwise
 	l, k, m int
 	sin     bool
 }
 
-func (t Term) shape() shape { return shape{t.power().RatString(), t.L, t.K, t.M, t.Sin} }
+func (t Term) shape() shape {
+	p := t.power()
+	if p.Num().IsInt64() && p.Denom().IsInt64() {
+		return shape{pn: p.Num().Int64(), pd: p.Denom().Int64(), l: t.L, k: t.K, m: t.M, sin: t.Sin}
+	}
+	return shape{p: p.RatString(), l: t.L, k: t.K, m: t.M, sin: t.Sin}
+}
+
+func (t Term) sameShape(u Term) bool {
+	return t.M == u.M && t.Sin == u.Sin && t.K == u.K && t.L == u.L && t.power().Cmp(u.power()) == 0
+}
 
 // termLess is the canonical order: by mode, cos before sin, then by θ power,
 // r power and log power.
@@ -56,10 +67,10 @@ type Sum struct {
 	t []Term
 }
 
-// NewSum builds the canonical sum of the given terms.
+// NewSum builds the canonical sum of the given terms: sorted, like terms
+// merged, zero terms dropped.
 func NewSum(terms ...Term) Sum {
-	idx := make(map[shape]int, len(terms))
-	var out []Term
+	out := make([]Term, 0, len(terms))
 	for _, t := range terms {
 		if t.C.IsZero() || (t.M == 0 && t.Sin) {
 			continue
@@ -71,21 +82,23 @@ func NewSum(terms ...Term) Sum {
 			}
 		}
 		t.P = t.power()
-		s := t.shape()
-		if i, ok := idx[s]; ok {
-			out[i].C = out[i].C.Add(t.C)
-			continue
-		}
-		idx[s] = len(out)
 		out = append(out, t)
 	}
-	kept := out[:0]
+	sort.SliceStable(out, func(i, j int) bool { return termLess(out[i], out[j]) })
+	merged := out[:0]
 	for _, t := range out {
+		if n := len(merged); n > 0 && merged[n-1].sameShape(t) {
+			merged[n-1].C = merged[n-1].C.Add(t.C)
+			continue
+		}
+		merged = append(merged, t)
+	}
+	kept := merged[:0]
+	for _, t := range merged {
 		if !t.C.IsZero() {
 			kept = append(kept, t)
 		}
 	}
-	sort.SliceStable(kept, func(i, j int) bool { return termLess(kept[i], kept[j]) })
 	return Sum{kept}
 }
 

@@ -52,10 +52,10 @@ func readPoint(text string, env series.Env) (point, error) {
 			p.Theta += 2 * math.Pi
 		}
 	default:
-		return point{}, usagef("--at %q: give r and theta, or x and y", text)
+		return point{}, &parse.Error{Label: "--at", Input: text, Offset: len(text), Msg: "give r and theta, or x and y"}
 	}
 	if p.R < 0 {
-		return point{}, usagef("--at %q: r must not be negative", text)
+		return point{}, &parse.Error{Label: "--at", Input: text, Msg: "r must not be negative"}
 	}
 	return p, nil
 }
@@ -75,7 +75,7 @@ func evaluate(u series.Sum, env series.Env, pts []point, d domain.Domain) error 
 			return usagef("--at: %v", err)
 		}
 		if !in {
-			return usagef("--at %q lies outside %s", pts[i].Input, d.Describe())
+			return &parse.Error{Label: "--at", Input: pts[i].Input, Msg: "the point lies outside " + d.Describe()}
 		}
 		pts[i].U = c.At(pts[i].R, pts[i].Theta)
 	}

@@ -195,3 +195,24 @@ func TestDiskRefusals(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkSolveDisk is a five-term closed-form disk problem, from lowered
+// values to the verified solution (parsing has its own benchmark).
+func BenchmarkSolveDisk(b *testing.B) {
+	f, err := parse.Equation("lap(u) = 6r*sin(theta) - 2 + ln(r) + r^2*cos(4theta) + r^(1/2)*cos(2theta)", nil)
+	if err != nil {
+		b.Fatal(err)
+	}
+	d := domain.Disk{R: series.IntCoef(2)}
+	c, err := parse.Condition("u = 4sin(3theta) + x*y", d.Sides(), nil)
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		if _, err := domain.Solve(d, f, []domain.Condition{c}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
