@@ -1,0 +1,59 @@
+package main
+
+import (
+	"os"
+	"os/exec"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// The README's examples are real output: every "$ psol ..." block is rerun.
+func TestReadmeExamples(t *testing.T) {
+	data, err := os.ReadFile("../../README.md")
+	if err != nil {
+		t.Fatal(err)
+	}
+	blocks := strings.Split(string(data), "```")
+	n := 0
+	for i := 1; i < len(blocks); i += 2 {
+		body := strings.TrimPrefix(blocks[i], "\n")
+		if !strings.HasPrefix(body, "$ psol ") {
+			continue
+		}
+		cmdLine, want, _ := strings.Cut(body, "\n")
+		if got := runLine(t, strings.TrimPrefix(cmdLine, "$ ")); got != want {
+			t.Errorf("README example %s\n--- got\n%s--- README\n%s", cmdLine, got, want)
+		}
+		n++
+	}
+	if n < 4 {
+		t.Errorf("found %d README examples, want at least 4", n)
+	}
+}
+
+// The LaTeX output compiles in a plain amsmath document (skipped without pdflatex).
+func TestLaTeXCompiles(t *testing.T) {
+	if _, err := exec.LookPath("pdflatex"); err != nil {
+		t.Skip("pdflatex not installed (Debian: texlive-latex-base)")
+	}
+	doc := `\documentclass{article}\usepackage{amsmath}\begin{document}` + "\n"
+	for _, c := range []string{
+		`psol solve "lap(u) = 6r*sin(theta)" --disk 2 --bc "u = 4sin(3theta)" --format latex`,
+		`psol solve "mu*lap(u) = -G + r^2*cos(4theta)" --disk a --bc "u = 0" --format latex`,
+		`psol solve "lap(u) = r^(1/2)*cos(theta) + ln(r)" --disk 2 --bc "u = x*y" --format latex`,
+		`psol particular "ln(r)" --format latex`,
+	} {
+		doc += runLine(t, c)
+	}
+	doc += `\end{document}` + "\n"
+	dir := t.TempDir()
+	if err := os.WriteFile(filepath.Join(dir, "t.tex"), []byte(doc), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	cmd := exec.Command("pdflatex", "-interaction=nonstopmode", "-halt-on-error", "t.tex")
+	cmd.Dir = dir
+	if out, err := cmd.CombinedOutput(); err != nil {
+		t.Fatalf("pdflatex: %v\n%s\n%s", err, out, doc)
+	}
+}
