@@ -581,3 +581,38 @@ func Lengths(label, text string, n int, env series.Env) ([]series.Coef, error) {
 	}
 	return out, nil
 }
+
+// Fix reads "u(R0, THETA0) = V": a value of u at a point given in polar
+// coordinates, used to pin a free additive constant.
+func Fix(text string, env series.Env) (r, theta, v series.Coef, err error) {
+	lw := &lowerer{label: "--fix", input: text, env: env}
+	st, err := lw.statement()
+	if err != nil {
+		return
+	}
+	at := st.Left.Cond.Left.Left.Left
+	var c *call
+	if st.Left.Then == nil && len(st.Left.Cond.Rest) == 0 && len(st.Left.Cond.Left.Rest) == 0 && len(st.Left.Cond.Left.Left.Rest) == 0 &&
+		at.Power != nil && at.Power.Exp == nil && at.Power.Base.Atom != nil {
+		c = at.Power.Base.Atom.Call
+	}
+	if st.Side != nil || st.Eq == nil || c == nil || c.Name != "u" || len(c.Args) != 2 {
+		err = lw.fail(st.Pos, `write the pinned value as u(r, theta) = v, e.g. "u(0, 0) = 0"`)
+		return
+	}
+	var vals [3]series.Coef
+	for i, node := range []*choice{c.Args[0], c.Args[1], st.Eq.Right} {
+		val, e := lw.choice(node)
+		if e != nil {
+			err = e
+			return
+		}
+		k, ok := constant(val)
+		if !ok {
+			err = lw.fail(node.Pos, "expected a constant")
+			return
+		}
+		vals[i] = k
+	}
+	return vals[0], vals[1], vals[2], nil
+}

@@ -127,3 +127,49 @@ func (s Sum) Trace(radius Coef) (Sum, error) {
 	}
 	return NewSum(out...), nil
 }
+
+// ErrNoExactAngle reports an angle whose sine and cosine psol cannot hold exactly.
+var ErrNoExactAngle = errors.New("no exact value of the trigonometric functions at that angle (use 0 or a multiple of pi/12)")
+
+// At is s at the point (r, θ), exactly: r^p and ln r through the atoms,
+// cos(mθ) and sin(mθ) for θ = 0 or a multiple of π/12.
+func (s Sum) At(r, theta Coef) (Coef, error) {
+	var tr Sum
+	if r.IsZero() {
+		for _, t := range s.t {
+			switch p := t.power().Sign(); {
+			case p > 0:
+			case p == 0 && t.L == 0:
+				tr = tr.Add(NewSum(Term{C: t.C, K: t.K, M: t.M, Sin: t.Sin}))
+			default:
+				return Coef{}, errors.New("the solution is singular at r = 0")
+			}
+		}
+	} else {
+		var err error
+		if tr, err = s.Trace(r); err != nil {
+			return Coef{}, err
+		}
+	}
+	total := Coef{}
+	for _, t := range tr.t {
+		c := t.C
+		if t.K > 0 {
+			pw, _ := theta.Pow(big.NewRat(int64(t.K), 1))
+			c = c.Mul(pw)
+		}
+		if t.M > 0 {
+			cs, sn, ok := unitCircle(theta.MulRat(big.NewRat(int64(t.M), 1)))
+			if !ok {
+				return Coef{}, ErrNoExactAngle
+			}
+			if t.Sin {
+				c = c.Mul(sn)
+			} else {
+				c = c.Mul(cs)
+			}
+		}
+		total = total.Add(c)
+	}
+	return total, nil
+}

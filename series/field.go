@@ -252,16 +252,18 @@ func unitCircle(c Coef) (Coef, Coef, bool) {
 	return v, s, true
 }
 
-// cos12 holds cos(kπ/12) for the k whose value is a rational times √2, √3 or 1.
+// cos12 holds cos(kπ/12), every value a sum of rationals times 1, √2, √3 and √6.
 var cos12 = func() map[int64]Coef {
 	half := big.NewRat(1, 2)
 	r2, _ := IntCoef(2).Pow(half)
 	r3, _ := IntCoef(3).Pow(half)
 	base := map[int64]Coef{
 		0: IntCoef(1),
+		1: r2.Mul(r3).Add(r2).MulRat(big.NewRat(1, 4)), // (√6 + √2)/4
 		2: r3.MulRat(half),
 		3: r2.MulRat(half),
 		4: FracCoef(1, 2),
+		5: r2.Mul(r3).Sub(r2).MulRat(big.NewRat(1, 4)), // (√6 − √2)/4
 		6: {},
 	}
 	out := map[int64]Coef{}

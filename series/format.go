@@ -178,7 +178,7 @@ func printTerm(t Term, st style) (neg bool, body string) {
 	} else if st.latex {
 		coef = `\frac{` + printPoly(c.num, st) + "}{" + printPoly(c.den, st) + "}"
 	} else {
-		coef = "(" + printQuotient(c, st) + ")"
+		coef = printQuotient(c, st)
 	}
 	return neg, strings.Join(append([]string{coef}, vars...), st.mul)
 }
@@ -335,11 +335,18 @@ func printCoef(c Coef, st style) string {
 	return printQuotient(c, st)
 }
 
-// printQuotient is num/den in text, bracketing only what needs it.
+// printQuotient is num/den in text, the numerator's rational content in
+// front and brackets only where they are needed.
 func printQuotient(c Coef, st style) string {
-	num := printPoly(c.num, st)
-	if len(c.num.t) > 1 {
-		num = paren(num, st)
+	q := c.num.content()
+	num := c.num.ScaleRat(new(big.Rat).Inv(q))
+	head := ""
+	if q.Cmp(one) != 0 {
+		head = q.RatString() + "*"
 	}
-	return num + "/" + paren(printPoly(c.den, st), st)
+	text := printPoly(num, st)
+	if len(num.t) > 1 {
+		text = paren(text, st)
+	}
+	return head + text + "/" + paren(printPoly(c.den, st), st)
 }

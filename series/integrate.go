@@ -1,62 +1,81 @@
 package series
 
 import (
-	"fmt"
+	"errors"
 	"math/big"
 )
 
-// DiskIntegral is ∬_{r<R} s dA = Σ over the θ-free terms of
-// 2π ∫_0^R r^(p+1) (ln r)^j dr, using
+// ErrDiverges reports an area integral that does not converge.
+var ErrDiverges = errors.New("the area integral diverges")
+
+// radialAntiderivative is F with dF/dr = r·s₀(r), s₀ the θ-free part of s,
+// term by term: for a = p + 1,
 //
-//	∫_0^R r^a (ln r)^j dr = R^(a+1) Σ_{i=0}^{j} (−1)^i j!/(j−i)! (ln R)^(j−i) / (a+1)^(i+1),  a > −1.
+//	∫ r^a (ln r)^j dr = r^(a+1) Σ_{i=0}^{j} (−1)^i j!/(j−i)! (ln r)^(j−i) / (a+1)^(i+1)   (a ≠ −1)
+//	∫ r^(−1) (ln r)^j dr = (ln r)^(j+1) / (j+1).
 //
-// Terms with cos(mθ) or sin(mθ), m ≥ 1, integrate to zero over a full turn.
-func (s Sum) DiskIntegral(radius Coef) (Coef, error) {
-	total := Coef{}
-	twoPi := SymCoef(Pi).MulRat(big.NewRat(2, 1))
+// The terms with cos(mθ) or sin(mθ), m ≥ 1, integrate to zero over a full turn.
+func (s Sum) radialAntiderivative() (Sum, error) {
+	var out []Term
 	for _, t := range s.t {
 		if t.M != 0 {
 			continue
 		}
 		if t.K != 0 {
-			return Coef{}, fmt.Errorf("no exact integral for a power of theta")
+			return Sum{}, errors.New("no exact integral for a power of theta")
 		}
-		a := new(big.Rat).Add(t.power(), one)
-		v, err := radialMoment(a, t.L, radius)
-		if err != nil {
-			return Coef{}, err
+		a1 := new(big.Rat).Add(t.power(), big.NewRat(2, 1)) // a + 1
+		if a1.Sign() == 0 {
+			out = append(out, Term{C: t.C.MulRat(big.NewRat(1, int64(t.L+1))), L: t.L + 1})
+			continue
 		}
-		total = total.Add(v.Mul(t.C).Mul(twoPi))
+		fall := big.NewRat(1, 1) // j!/(j−i)!
+		for i := 0; i <= t.L; i++ {
+			w := new(big.Rat).Quo(fall, ratPowInt(a1, int64(i+1)))
+			if i%2 == 1 {
+				w.Neg(w)
+			}
+			out = append(out, Term{C: t.C.MulRat(w), P: a1, L: t.L - i})
+			fall = new(big.Rat).Mul(fall, big.NewRat(int64(t.L-i), 1))
+		}
 	}
-	return total, nil
+	return NewSum(out...), nil
 }
 
-// radialMoment is ∫_0^R r^a (ln r)^j dr for a > −1.
-func radialMoment(a *big.Rat, j int, radius Coef) (Coef, error) {
-	a1 := new(big.Rat).Add(a, one)
-	if a1.Sign() <= 0 {
-		return Coef{}, fmt.Errorf("∫ r^%s dr diverges at r = 0", a.RatString())
-	}
-	head, err := radius.Pow(a1)
+// AreaIntegral is ∬ s dA over inner < r < outer, a full turn; a nil inner
+// means the disk's centre and a nil outer means infinity.
+func (s Sum) AreaIntegral(inner, outer *Coef) (Coef, error) {
+	F, err := s.radialAntiderivative()
 	if err != nil {
 		return Coef{}, err
 	}
-	var lnR Coef
-	if j > 0 {
-		if lnR, err = radius.Ln(); err != nil {
-			return Coef{}, err
+	at := func(r *Coef, atZero bool) (Coef, error) {
+		if r != nil {
+			v, err := F.Trace(*r)
+			if err != nil {
+				return Coef{}, err
+			}
+			c, _ := v.Const()
+			return c, nil
 		}
-	}
-	sum := Coef{}
-	fall := big.NewRat(1, 1) // j!/(j−i)!
-	for i := 0; i <= j; i++ {
-		w := new(big.Rat).Quo(fall, ratPowInt(a1, int64(i+1)))
-		if i%2 == 1 {
-			w.Neg(w)
+		for _, t := range F.t { // F must vanish in the limit
+			p := t.power().Sign()
+			if atZero && (p < 0 || p == 0 && t.L > 0) || !atZero && (p > 0 || p == 0 && t.L > 0) {
+				return Coef{}, ErrDiverges
+			}
 		}
-		lp, _ := lnR.Pow(big.NewRat(int64(j-i), 1))
-		sum = sum.Add(lp.MulRat(w))
-		fall = new(big.Rat).Mul(fall, big.NewRat(int64(j-i), 1))
+		return Coef{}, nil
 	}
-	return sum.Mul(head), nil
+	hi, err := at(outer, false)
+	if err != nil {
+		return Coef{}, err
+	}
+	lo, err := at(inner, true)
+	if err != nil {
+		return Coef{}, err
+	}
+	return hi.Sub(lo).Mul(SymCoef(Pi).MulRat(big.NewRat(2, 1))), nil
 }
+
+// DiskIntegral is ∬_{r<R} s dA.
+func (s Sum) DiskIntegral(radius Coef) (Coef, error) { return s.AreaIntegral(nil, &radius) }

@@ -268,3 +268,18 @@ func factorize(n *big.Int) ([]primePower, error) {
 	}
 	return out, nil
 }
+
+// content is the positive rational q with p/q having coprime integer coefficients.
+func (p Poly) content() *big.Rat {
+	if len(p.t) == 0 {
+		return big.NewRat(1, 1)
+	}
+	g := new(big.Int)
+	l := big.NewInt(1)
+	for _, t := range p.t {
+		g.GCD(nil, nil, g, new(big.Int).Abs(t.c.Num()))
+		d := t.c.Denom()
+		l.Div(new(big.Int).Mul(l, d), new(big.Int).GCD(nil, nil, l, d))
+	}
+	return new(big.Rat).SetFrac(g, l)
+}

@@ -99,12 +99,10 @@ func residualSize(r series.Sum, _ series.Env) float64 {
 }
 
 func traceText(s domain.Side) string {
-	at := "(" + s.Radius.Text() + ", theta)"
-	switch s.Condition.Kind {
-	case domain.Dirichlet:
-		return "u_p" + at
+	if s.Condition.Kind == domain.Dirichlet {
+		return "u_p(" + s.At + ")"
 	}
-	return domain.OperatorText(s.Condition, "u_p") + " at r = " + s.Radius.Text()
+	return domain.OperatorText(s.Condition, "u_p") + " at (" + s.At + ")"
 }
 
 func operatorTeX(c domain.Condition, fn string) string {
@@ -118,7 +116,7 @@ func operatorTeX(c domain.Condition, fn string) string {
 }
 
 func traceTeX(s domain.Side) string {
-	return operatorTeX(s.Condition, "u_p") + `\big|_{r=` + s.Radius.LaTeX() + "}"
+	return operatorTeX(s.Condition, "u_p") + `\big|_{` + s.AtLaTeX + "}"
 }
 
 func (v *view) failedCheck() error {

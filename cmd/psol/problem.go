@@ -2,6 +2,7 @@ package main
 
 import (
 	"errors"
+	"fmt"
 	"strings"
 
 	"github.com/spf13/pflag"
@@ -13,20 +14,48 @@ import (
 
 // problemFlags are the flags that pose a problem, shared by solve and check.
 type problemFlags struct {
-	disk string
-	bcs  []string
-	lets []string
+	regions map[string]*string // domain flag name → its value
+	bcs     []string
+	lets    []string
+	fix     string
+}
+
+// regionKind is one domain flag: how many sizes it takes and the region they make.
+type regionKind struct {
+	flag, usage string
+	sizes       int
+	make        func(sizes []series.Coef) (domain.Domain, string)
+}
+
+// regionKinds are the domain flags, in the order help lists them.
+var regionKinds = []regionKind{
+	{"disk", "solve on the disk r < R (R a number or parameter)", 1,
+		func(v []series.Coef) (domain.Domain, string) { return domain.Disk{R: v[0]}, "" }},
+	{"annulus", "solve on the annulus R1 < r < R2, given as R1,R2", 2,
+		func(v []series.Coef) (domain.Domain, string) {
+			if d := v[1].Sub(v[0]); !series.Positive(d) {
+				return nil, "the inner radius must be smaller than the outer"
+			}
+			return domain.Annulus{R1: v[0], R2: v[1]}, ""
+		}},
+	{"outside", "solve outside the circle, r > R, with u bounded at infinity", 1,
+		func(v []series.Coef) (domain.Domain, string) { return domain.Outside{R: v[0]}, "" }},
 }
 
 func (p *problemFlags) bind(f *pflag.FlagSet) {
-	f.StringVar(&p.disk, "disk", "", "solve on the disk r < R (R a number or parameter)")
+	p.regions = map[string]*string{}
+	for _, k := range regionKinds {
+		p.regions[k.flag] = f.String(k.flag, "", k.usage)
+	}
 	f.StringArrayVar(&p.bcs, "bc", nil, `boundary condition "[SIDE:] u = g", "dn(u) = g" or "dn(u) + h*u = g" (repeatable)`)
 	f.StringArrayVar(&p.lets, "let", nil, `parameter values "a=0.05,q=2e5" (repeatable)`)
+	f.StringVar(&p.fix, "fix", "", `pin the free constant of a pure Neumann problem: "u(R0, THETA0) = V" (polar point)`)
 }
 
 // problem is a posed problem, lowered to series values.
 type problem struct {
 	equation string
+	fix      string
 	env      series.Env
 	domain   domain.Domain
 	source   series.Field
@@ -66,16 +95,30 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 	if err != nil {
 		return nil, err
 	}
-	pr := &problem{equation: equation, env: env}
-	switch {
-	case p.disk == "":
-		return nil, usagef("give the domain, e.g. --disk 1")
-	default:
-		rs, err := parse.Lengths("--disk", p.disk, 1, env)
+	pr := &problem{equation: equation, env: env, fix: p.fix}
+	var chosen []string
+	for _, k := range regionKinds {
+		text := *p.regions[k.flag]
+		if text == "" {
+			continue
+		}
+		chosen = append(chosen, "--"+k.flag)
+		sizes, err := parse.Lengths("--"+k.flag, text, k.sizes, env)
 		if err != nil {
 			return nil, err
 		}
-		pr.domain = domain.Disk{R: rs[0]}
+		d, msg := k.make(sizes)
+		if msg != "" {
+			return nil, &parse.Error{Label: "--" + k.flag, Input: text, Msg: msg}
+		}
+		pr.domain = d
+	}
+	switch len(chosen) {
+	case 0:
+		return nil, usagef("give the domain: --disk R, --annulus R1,R2 or --outside R")
+	case 1:
+	default:
+		return nil, usagef("give one domain, not %s", strings.Join(chosen, " and "))
 	}
 	if pr.source, err = parse.Equation(equation, env); err != nil {
 		return nil, err
@@ -90,12 +133,43 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 	return pr, nil
 }
 
-// solve assembles the solution.
+// solve assembles the solution, pinning a free constant by --fix.
 func (pr *problem) solve() (*domain.Solution, error) {
 	sol, err := domain.Solve(pr.domain, pr.source, pr.conds)
 	var ms *domain.MissingSides
 	if errors.As(err, &ms) {
 		return nil, usagef("no boundary condition for side %s; add --bc \"%s: u = ...\"", strings.Join(ms.Sides, ", "), ms.Sides[0])
 	}
-	return sol, err
+	if err != nil {
+		return nil, err
+	}
+	if sol.Free == "" {
+		if pr.fix != "" {
+			return nil, usagef("--fix pins the free constant of a pure Neumann problem; this problem has none")
+		}
+		return sol, nil
+	}
+	if pr.fix == "" {
+		sol.Notes = append(sol.Notes, fmt.Sprintf("%s = %s makes the mean of u on %s zero; numeric values use it (--fix \"u(r, theta) = v\" pins %s instead)",
+			sol.Free, sol.FreeMean.Text(), pr.domain.Sides()[0], sol.Free))
+		pr.env[sol.Free] = sol.FreeMean
+		return sol, nil
+	}
+	r, th, v, err := parse.Fix(pr.fix, pr.env)
+	if err != nil {
+		return nil, err
+	}
+	at, err := sol.U.Subst(series.Env{sol.Free: {}})
+	if err == nil {
+		var u0 series.Coef
+		if u0, err = at.At(r, th); err == nil {
+			c := v.Sub(u0)
+			sol.Notes = append(sol.Notes, fmt.Sprintf("%s = %s from --fix %s", sol.Free, c.Text(), pr.fix))
+			err = sol.Pin(c)
+		}
+	}
+	if err != nil {
+		return nil, &parse.Error{Label: "--fix", Input: pr.fix, Msg: err.Error()}
+	}
+	return sol, nil
 }

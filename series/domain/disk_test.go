@@ -23,15 +23,18 @@ func solveDisk(t testing.TB, equation, radius string, bcs []string, env series.E
 }
 
 func trySolveDisk(equation, radius string, bcs []string, env series.Env) (*domain.Solution, error) {
-	f, err := parse.Equation(equation, env)
-	if err != nil {
-		return nil, err
-	}
 	rs, err := parse.Lengths("--disk", radius, 1, env)
 	if err != nil {
 		return nil, err
 	}
-	d := domain.Disk{R: rs[0]}
+	return trySolve(equation, domain.Disk{R: rs[0]}, bcs, env)
+}
+
+func trySolve(equation string, d domain.Domain, bcs []string, env series.Env) (*domain.Solution, error) {
+	f, err := parse.Equation(equation, env)
+	if err != nil {
+		return nil, err
+	}
 	var conds []domain.Condition
 	for _, b := range bcs {
 		c, err := parse.Condition(b, d.Sides(), env)
@@ -41,6 +44,24 @@ func trySolveDisk(equation, radius string, bcs []string, env series.Env) (*domai
 		conds = append(conds, c)
 	}
 	return domain.Solve(d, f, conds)
+}
+
+func solve(t testing.TB, equation string, d domain.Domain, bcs ...string) *domain.Solution {
+	t.Helper()
+	sol, err := trySolve(equation, d, bcs, nil)
+	if err != nil {
+		t.Fatalf("%s on %s: %v", equation, d.Describe(), err)
+	}
+	return sol
+}
+
+func coef(t testing.TB, s string) series.Coef {
+	t.Helper()
+	c, ok := expr(t, s).Const()
+	if !ok {
+		t.Fatalf("%s is not a constant", s)
+	}
+	return c
 }
 
 func expr(t testing.TB, s string) series.Sum {

@@ -2,7 +2,7 @@ package domain
 
 import (
 	"fmt"
-	"math/big"
+	"strings"
 
 	"psol/ansatz"
 	"psol/series"
@@ -22,6 +22,17 @@ type Unsupported struct{ Reason string }
 
 func (e *Unsupported) Error() string { return e.Reason }
 
+func unsupported(format string, args ...any) error {
+	return &Unsupported{fmt.Sprintf(format, args...)}
+}
+
+// MissingSides reports sides that have no condition.
+type MissingSides struct{ Sides []string }
+
+func (e *MissingSides) Error() string {
+	return fmt.Sprintf("no boundary condition for %s; give one --bc per side", strings.Join(e.Sides, ", "))
+}
+
 // Domain is a region psol solves on.
 type Domain interface {
 	// Sides names the boundary parts, in the order output lists them.
@@ -30,70 +41,14 @@ type Domain interface {
 	Describe() string
 	// Contains reports whether the point (r, θ) lies in the closed region.
 	Contains(r, theta float64, env series.Env) (bool, error)
-	// admit refuses a source the region cannot take (e.g. not integrable).
-	admit(f series.Sum) error
-	// side is the boundary part of that name.
-	side(name string) circle
-	// harmonic solves Δh = 0 with B_side h = data_side on every side.
-	harmonic(data map[string]series.Sum, conds map[string]Condition) (series.Sum, []string, error)
+	// solve assembles the solution; each region family has its own method.
+	solve(p *posed) (*Solution, error)
 }
 
-// circle is a boundary circle r = radius, with the outward normal along
-// +r (outward = 1) or −r (outward = −1).
-type circle struct {
-	name    string
-	radius  series.Coef
-	outward int64
-}
-
-// apply is the condition's operator on s at this circle: u, ∂u/∂n or ∂u/∂n + h·u.
-func (c circle) apply(cond Condition, s series.Sum) (series.Sum, error) {
-	if cond.Kind == Dirichlet {
-		return s.Trace(c.radius)
-	}
-	dn, err := s.DR().Trace(c.radius)
-	if err != nil {
-		return series.Sum{}, err
-	}
-	dn = dn.Scale(series.IntCoef(c.outward))
-	if cond.Kind == Neumann {
-		return dn, nil
-	}
-	v, err := s.Trace(c.radius)
-	if err != nil {
-		return series.Sum{}, err
-	}
-	return dn.Add(v.Scale(cond.H)), nil
-}
-
-// OperatorText names the condition's operator applied to a function, e.g. "dn(u_p) + h*u_p".
-func OperatorText(cond Condition, fn string) string {
-	switch cond.Kind {
-	case Neumann:
-		return "dn(" + fn + ")"
-	case Robin:
-		return "dn(" + fn + ") + " + coefFactor(cond.H) + fn
-	}
-	return fn
-}
-
-func coefFactor(h series.Coef) string {
-	if h.Equal(series.IntCoef(1)) {
-		return ""
-	}
-	if q, ok := h.Rat(); ok && q.Sign() > 0 || len(h.Text()) > 0 && isSimple(h.Text()) {
-		return h.Text() + "*"
-	}
-	return "(" + h.Text() + ")*"
-}
-
-func isSimple(s string) bool {
-	for _, c := range s {
-		if c == ' ' || c == '+' || c == '-' {
-			return false
-		}
-	}
-	return true
+// posed is a problem after the checks every region shares.
+type posed struct {
+	f     series.Sum
+	conds map[string]Condition
 }
 
 // Side is what one boundary part contributes: the condition, the particular
@@ -101,7 +56,8 @@ func isSimple(s string) bool {
 // (data minus trace) the harmonic part must supply.
 type Side struct {
 	Condition  Condition
-	Radius     series.Coef
+	At         string // where the trace is taken, e.g. "2, theta"
+	AtLaTeX    string // e.g. "r=2"
 	Data       series.Sum
 	Trace      series.Sum
 	Correction series.Sum
@@ -123,6 +79,8 @@ type Solution struct {
 	Sides      []Side
 	Harmonic   series.Sum
 	U          series.Sum
+	Free       string      // the name of a free additive constant in U, if any
+	FreeMean   series.Coef // the value of Free that makes u's mean on the first boundary circle zero
 	Checks     []Check
 	Rules      []ansatz.Step // how each source term was solved
 	Steps      []string      // how the harmonic part was found
@@ -130,90 +88,73 @@ type Solution struct {
 }
 
 // Solve assembles u = u_p + h on d for Δu = f with the given conditions:
-// u_p from the ansatz rules, h from the domain's harmonic series.
+// u_p from the ansatz rules, h from the region's harmonic series.
 func Solve(d Domain, source series.Field, conds []Condition) (*Solution, error) {
 	if !source.IsExact() {
-		return nil, &Unsupported{"the source has a part with no closed form yet: " + source.Rest.Text()}
+		return nil, unsupported("the source has a part with no closed form yet: %s", source.Rest.Text())
 	}
-	f := source.Exact
-	if err := d.admit(f); err != nil {
-		return nil, err
-	}
-	byName := map[string]Condition{}
+	p := &posed{f: source.Exact, conds: map[string]Condition{}}
 	for _, c := range conds {
-		if _, dup := byName[c.Side]; dup {
-			return nil, &Unsupported{fmt.Sprintf("side %s has two conditions; give one", c.Side)}
+		if _, dup := p.conds[c.Side]; dup {
+			return nil, unsupported("side %s has two conditions; give one", c.Side)
 		}
-		byName[c.Side] = c
+		if !c.G.IsExact() {
+			return nil, unsupported("boundary data %s on %s has no closed form yet", c.G.Text(), c.Side)
+		}
+		p.conds[c.Side] = c
 	}
 	var missing []string
 	for _, s := range d.Sides() {
-		if _, ok := byName[s]; !ok {
+		if _, ok := p.conds[s]; !ok {
 			missing = append(missing, s)
 		}
 	}
 	if len(missing) > 0 {
 		return nil, &MissingSides{missing}
 	}
-	up, rules, err := ansatz.Particular(f)
-	if err != nil {
-		return nil, err
-	}
-	sol := &Solution{Domain: d, Source: f, Particular: up, Rules: rules}
-	data := map[string]series.Sum{}
-	for _, name := range d.Sides() {
-		cond := byName[name]
-		side := d.side(name)
-		if !cond.G.IsExact() {
-			return nil, &Unsupported{fmt.Sprintf("boundary data %s on %s has no closed form yet", cond.G.Text(), name)}
-		}
-		g, err := cond.G.Exact.Trace(side.radius)
-		if err != nil {
-			return nil, &Unsupported{fmt.Sprintf("boundary data on %s: %v", name, err)}
-		}
-		if g.HasAngle() {
-			return nil, &Unsupported{fmt.Sprintf("boundary data on %s is not a trigonometric polynomial in theta; only sums of cos(n*theta) and sin(n*theta) are supported so far", name)}
-		}
-		tr, err := side.apply(cond, up)
-		if err != nil {
-			return nil, &Unsupported{fmt.Sprintf("trace on %s: %v", name, err)}
-		}
-		corr := g.Sub(tr)
-		sol.Sides = append(sol.Sides, Side{cond, side.radius, g, tr, corr})
-		data[name] = corr
-	}
-	h, steps, err := d.harmonic(data, byName)
-	if err != nil {
-		return nil, err
-	}
-	sol.Harmonic, sol.Steps = h, steps
-	sol.U = up.Add(h)
-	sol.Checks = verify(d, sol.U, f, sol.Sides)
-	return sol, nil
+	return d.solve(p)
 }
 
-// MissingSides reports sides that have no condition.
-type MissingSides struct{ Sides []string }
-
-func (e *MissingSides) Error() string {
-	return fmt.Sprintf("no boundary condition for %v; give one --bc per side", e.Sides)
-}
-
-// verify reduces Δu − f and each boundary residual exactly.
-func verify(d Domain, u, f series.Sum, sides []Side) []Check {
-	checks := []Check{{Name: "lap(u) - f", Exact: true, Residual: u.Laplacian().Sub(f)}}
-	for _, s := range sides {
-		b, err := d.side(s.Condition.Side).apply(s.Condition, u)
-		res := b.Sub(s.Data)
-		if err != nil {
-			res = series.Sum{}
-		}
-		checks = append(checks, Check{Name: OperatorText(s.Condition, "u") + " - g", Side: s.Condition.Side, Exact: err == nil, Residual: res})
+// OperatorText names the condition's operator applied to a function, e.g. "dn(u_p) + h*u_p".
+func OperatorText(cond Condition, fn string) string {
+	switch cond.Kind {
+	case Neumann:
+		return "dn(" + fn + ")"
+	case Robin:
+		return "dn(" + fn + ") + " + factorText(cond.H) + fn
 	}
-	return checks
+	return fn
 }
 
-// rPow is r^n.
-func rPow(n int) series.Sum {
-	return series.NewSum(series.Term{C: series.IntCoef(1), P: big.NewRat(int64(n), 1)})
+func factorText(h series.Coef) string {
+	if h.Equal(series.IntCoef(1)) {
+		return ""
+	}
+	s := h.Text()
+	if strings.ContainsAny(s[1:], " ") || strings.HasPrefix(s, "-") {
+		return "(" + s + ")*"
+	}
+	return s + "*"
+}
+
+// freeName picks a name for a free constant that the problem does not use.
+func freeName(used map[string]bool) string {
+	for _, n := range []string{"C", "C0", "C1", "C_free"} {
+		if !used[n] {
+			return n
+		}
+	}
+	return "C_free"
+}
+
+// Pin gives the free additive constant its value.
+func (s *Solution) Pin(v series.Coef) error {
+	env := series.Env{s.Free: v}
+	var err error
+	if s.U, err = s.U.Subst(env); err != nil {
+		return err
+	}
+	s.Harmonic, err = s.Harmonic.Subst(env)
+	s.Free = ""
+	return err
 }

@@ -1,0 +1,425 @@
+package domain
+
+import (
+	"fmt"
+	"math/big"
+
+	"psol/ansatz"
+	"psol/series"
+)
+
+// circle is a boundary circle r = radius, with the outward normal along
+// +r (outward = 1) or −r (outward = −1).
+type circle struct {
+	name    string
+	radius  series.Coef
+	outward int64
+}
+
+// apply is the condition's operator on s at this circle: u, ∂u/∂n or ∂u/∂n + h·u.
+func (c circle) apply(cond Condition, s series.Sum) (series.Sum, error) {
+	if cond.Kind == Dirichlet {
+		return s.Trace(c.radius)
+	}
+	dn, err := s.DR().Trace(c.radius)
+	if err != nil {
+		return series.Sum{}, err
+	}
+	dn = dn.Scale(series.IntCoef(c.outward))
+	if cond.Kind == Neumann {
+		return dn, nil
+	}
+	v, err := s.Trace(c.radius)
+	if err != nil {
+		return series.Sum{}, err
+	}
+	return dn.Add(v.Scale(cond.H)), nil
+}
+
+// circular is a region bounded by circles about the origin. Its harmonic
+// functions separate into modes ρ(r)·T(nθ); basis lists the admissible ρ.
+type circular interface {
+	Domain
+	circles() []circle
+	basis(n int) []series.Sum
+	// admit refuses a source, or a particular solution, the region cannot take.
+	admit(f, up series.Sum) error
+	// inner and outer bound the region for area integrals (nil: centre, infinity).
+	bounds() (inner, outer *series.Coef)
+}
+
+func rPow(q *big.Rat) series.Sum {
+	return series.NewSum(series.Term{C: series.IntCoef(1), P: q})
+}
+
+func rInt(n int) series.Sum { return rPow(big.NewRat(int64(n), 1)) }
+
+var lnR = series.NewSum(series.Term{C: series.IntCoef(1), L: 1})
+
+// Disk is the region r < R.
+type Disk struct{ R series.Coef }
+
+func (Disk) Sides() []string { return []string{"rim"} }
+
+func (d Disk) Describe() string { return "the disk r < " + d.R.Text() }
+
+func (d Disk) Contains(r, _ float64, env series.Env) (bool, error) {
+	R, err := d.R.Float(env)
+	return r <= R*(1+1e-12), err
+}
+
+func (d Disk) circles() []circle { return []circle{{"rim", d.R, 1}} }
+
+// basis: r^n, bounded at the centre.
+func (Disk) basis(n int) []series.Sum { return []series.Sum{rInt(n)} }
+
+func (d Disk) bounds() (*series.Coef, *series.Coef) { return nil, &d.R }
+
+// admit refuses sources whose area integral diverges at the origin:
+// ∬ r^k dA = 2π∫ r^(k+1) dr diverges for k ≤ −2.
+func (Disk) admit(f, _ series.Sum) error {
+	for _, t := range f.Terms() {
+		if t.P.Cmp(big.NewRat(-2, 1)) <= 0 {
+			return unsolvable("the source term %s is not integrable near r = 0 (r^k with k <= -2), so the disk problem has no solution", series.NewSum(t).Text())
+		}
+	}
+	return nil
+}
+
+func (d Disk) solve(p *posed) (*Solution, error) { return solveCircular(d, p) }
+
+// Annulus is the region R1 < r < R2.
+type Annulus struct{ R1, R2 series.Coef }
+
+func (Annulus) Sides() []string { return []string{"inner", "outer"} }
+
+func (a Annulus) Describe() string {
+	return "the annulus " + a.R1.Text() + " < r < " + a.R2.Text()
+}
+
+func (a Annulus) Contains(r, _ float64, env series.Env) (bool, error) {
+	r1, err := a.R1.Float(env)
+	if err != nil {
+		return false, err
+	}
+	r2, err := a.R2.Float(env)
+	return r >= r1*(1-1e-12) && r <= r2*(1+1e-12), err
+}
+
+func (a Annulus) circles() []circle {
+	return []circle{{"inner", a.R1, -1}, {"outer", a.R2, 1}}
+}
+
+// basis: 1 and ln r for n = 0; r^n and r^−n otherwise.
+func (Annulus) basis(n int) []series.Sum {
+	if n == 0 {
+		return []series.Sum{rInt(0), lnR}
+	}
+	return []series.Sum{rInt(n), rInt(-n)}
+}
+
+func (a Annulus) bounds() (*series.Coef, *series.Coef) { return &a.R1, &a.R2 }
+
+func (Annulus) admit(_, _ series.Sum) error { return nil }
+
+func (a Annulus) solve(p *posed) (*Solution, error) { return solveCircular(a, p) }
+
+// Outside is the region r > R, with u bounded as r → ∞.
+type Outside struct{ R series.Coef }
+
+func (Outside) Sides() []string { return []string{"rim"} }
+
+func (o Outside) Describe() string { return "the region r > " + o.R.Text() + " (u bounded at infinity)" }
+
+func (o Outside) Contains(r, _ float64, env series.Env) (bool, error) {
+	R, err := o.R.Float(env)
+	return r >= R*(1-1e-12), err
+}
+
+func (o Outside) circles() []circle { return []circle{{"rim", o.R, -1}} }
+
+// basis: 1 for n = 0 (ln r is unbounded), r^−n otherwise.
+func (Outside) basis(n int) []series.Sum { return []series.Sum{rInt(-n)} }
+
+func (o Outside) bounds() (*series.Coef, *series.Coef) { return &o.R, nil }
+
+// admit refuses a particular solution that grows: r^s (ln r)^i with s > 0,
+// or s = 0 and i > 0. No harmonic r^(±n) T(nθ) can cancel such a term, so no
+// bounded solution exists.
+func (Outside) admit(f, up series.Sum) error {
+	for _, t := range up.Terms() {
+		if s := t.P.Sign(); s > 0 || s == 0 && t.L > 0 {
+			return unsolvable("outside a circle the solution must stay bounded, but the source %s forces a term %s that grows without bound as r -> infinity", f.Text(), series.NewSum(t).Text())
+		}
+	}
+	return nil
+}
+
+func (o Outside) solve(p *posed) (*Solution, error) { return solveCircular(o, p) }
+
+// solveCircular is the pipeline for regions bounded by circles: the
+// particular solution, each circle's trace and correction, and per angular
+// mode an exact square system for the coefficients of the radial basis.
+func solveCircular(d circular, p *posed) (*Solution, error) {
+	up, rules, err := ansatz.Particular(p.f)
+	if err != nil {
+		return nil, err
+	}
+	if err := d.admit(p.f, up); err != nil {
+		return nil, err
+	}
+	sol := &Solution{Domain: d, Source: p.f, Particular: up, Rules: rules}
+	data := map[string]series.Sum{}
+	for _, c := range d.circles() {
+		cond := p.conds[c.name]
+		g, err := cond.G.Exact.Trace(c.radius)
+		if err != nil {
+			return nil, unsupported("boundary data on %s: %v", c.name, err)
+		}
+		if g.HasAngle() {
+			return nil, unsupported("boundary data on %s is not a trigonometric polynomial in theta; only sums of cos(n*theta) and sin(n*theta) are supported so far", c.name)
+		}
+		tr, err := c.apply(cond, up)
+		if err != nil {
+			return nil, unsupported("trace on %s: %v", c.name, err)
+		}
+		corr := g.Sub(tr)
+		sol.Sides = append(sol.Sides, Side{Condition: cond, At: c.radius.Text() + ", theta", AtLaTeX: "r=" + c.radius.LaTeX(), Data: g, Trace: tr, Correction: corr})
+		data[c.name] = corr
+	}
+	if err := harmonicModes(d, p, sol, data); err != nil {
+		return nil, err
+	}
+	sol.U = up.Add(sol.Harmonic)
+	if sol.Free != "" {
+		c0 := d.circles()[0]
+		u0, err := sol.U.Subst(series.Env{sol.Free: {}})
+		if err == nil {
+			tr, err := u0.Trace(c0.radius)
+			if err == nil {
+				sol.FreeMean = coefOf(tr, mode{}).Neg()
+			}
+		}
+	}
+	sol.Checks = verifyCircular(d, sol, p.conds)
+	return sol, nil
+}
+
+// mode is one angular mode: cos(nθ) or sin(nθ).
+type mode struct {
+	n   int
+	sin bool
+}
+
+func (m mode) trig() series.Sum { return series.Trig(m.n, m.sin) }
+
+func (m mode) name() string {
+	if m.n == 0 {
+		return "constant"
+	}
+	return m.trig().Text()
+}
+
+// coefOf is the coefficient of T(nθ) in a θ-only sum.
+func coefOf(s series.Sum, m mode) series.Coef {
+	for _, t := range s.Terms() {
+		if t.M == m.n && t.Sin == m.sin && t.P.Sign() == 0 && t.L == 0 && t.K == 0 {
+			return t.C
+		}
+	}
+	return series.Coef{}
+}
+
+func harmonicModes(d circular, p *posed, sol *Solution, data map[string]series.Sum) error {
+	circles := d.circles()
+	modes := map[mode]bool{{0, false}: true} // mode 0 always: it may carry a free constant
+	for _, c := range circles {
+		for _, t := range data[c.name].Terms() {
+			modes[mode{t.M, t.Sin}] = true
+		}
+	}
+	var order []mode
+	for m := range modes {
+		order = append(order, m)
+	}
+	sortModes(order)
+	for _, m := range order {
+		basis := d.basis(m.n)
+		a := make([][]series.Coef, len(circles))
+		b := make([]series.Coef, len(circles))
+		for i, c := range circles {
+			for _, fn := range basis {
+				v, err := c.apply(p.conds[c.name], fn)
+				if err != nil {
+					return err
+				}
+				k, _ := v.Const()
+				a[i] = append(a[i], k)
+			}
+			b[i] = coefOf(data[c.name], m)
+		}
+		x, free, ok := solveLinear(a, b)
+		if !ok {
+			return singular(d, p, sol, m)
+		}
+		for j, fn := range basis {
+			sol.Harmonic = sol.Harmonic.Add(fn.Mul(m.trig()).Scale(x[j]))
+		}
+		for _, j := range free {
+			if m.n == 0 && j == 0 { // the constant: pure Neumann data leave it free
+				used := map[string]bool{}
+				p.f.Params(used)
+				for _, c := range p.conds {
+					c.G.Exact.Params(used)
+				}
+				sol.Free = freeName(used)
+				sol.Harmonic = sol.Harmonic.Add(series.Const(series.SymCoef(series.Param(sol.Free))))
+				sol.Notes = append(sol.Notes, fmt.Sprintf("pure Neumann data fix u only up to an additive constant %s", sol.Free))
+				continue
+			}
+			sol.Notes = append(sol.Notes, fmt.Sprintf("mode %s is not determined by the conditions; its free coefficient is taken as 0", m.name()))
+		}
+		if !allZero(b) {
+			sol.Steps = append(sol.Steps, modeStep(m, basis, x))
+		}
+	}
+	return nil
+}
+
+func allZero(cs []series.Coef) bool {
+	for _, c := range cs {
+		if !c.IsZero() {
+			return false
+		}
+	}
+	return true
+}
+
+func modeStep(m mode, basis []series.Sum, x []series.Coef) string {
+	s := "harmonic mode " + m.name() + ":"
+	for j, fn := range basis {
+		if j > 0 {
+			s += ","
+		}
+		s += fmt.Sprintf(" coefficient of %s = %s", fn.Text(), x[j].Text())
+	}
+	return s
+}
+
+func sortModes(ms []mode) {
+	for i := 1; i < len(ms); i++ {
+		for j := i; j > 0 && (ms[j].n < ms[j-1].n || ms[j].n == ms[j-1].n && !ms[j].sin && ms[j-1].sin); j-- {
+			ms[j], ms[j-1] = ms[j-1], ms[j]
+		}
+	}
+}
+
+// singular explains a mode whose system has no solution.
+func singular(d circular, p *posed, sol *Solution, m mode) error {
+	allNeumann := true
+	for _, c := range p.conds {
+		allNeumann = allNeumann && c.Kind == Neumann
+	}
+	if m.n == 0 && allNeumann {
+		// ∮ ∂u/∂n ds = ∬ f dA (the divergence theorem) is what mode 0 asks.
+		flux := series.Coef{}
+		for _, s := range sol.Sides {
+			for _, c := range d.circles() {
+				if c.name == s.Condition.Side {
+					flux = flux.Add(coefOf(s.Data, m).Mul(c.radius).Mul(series.SymCoef(series.Pi)).MulRat(big.NewRat(2, 1)))
+				}
+			}
+		}
+		in, out := d.bounds()
+		src, err := p.f.AreaIntegral(in, out)
+		if err != nil {
+			return unsolvable("the Neumann data is incompatible with the source (mode 0 of the correction does not vanish)")
+		}
+		extra := ""
+		if out == nil {
+			extra = " (outside a circle the ln r term that could carry the difference is unbounded)"
+		}
+		return unsolvable("the Neumann data is incompatible with the source: the net outward flux of the data is %s but the source integral is %s; they must be equal%s", flux.Text(), src.Text(), extra)
+	}
+	for _, c := range d.circles() {
+		cond := p.conds[c.name]
+		if cond.Kind != Robin {
+			continue
+		}
+		// On r = R the operator takes r^(±n) to R^(±n)·(±n/R·outward + h).
+		for _, fn := range d.basis(m.n) {
+			v, err := c.apply(cond, fn)
+			if k, _ := v.Const(); err == nil && k.IsZero() {
+				return unsolvable("the Robin condition on %s (h = %s, radius %s) is singular for mode %s: the operator annihilates %s there, and the correction has a component in that mode", c.name, cond.H.Text(), c.radius.Text(), m.name(), fn.Text())
+			}
+		}
+	}
+	return unsolvable("the boundary conditions are singular for mode %s, and the correction has a component there", m.name())
+}
+
+// solveLinear solves the square system a·x = b exactly by Gaussian
+// elimination. A column with no pivot is a free unknown, set to 0 and
+// listed; ok is false when the system is inconsistent.
+func solveLinear(a [][]series.Coef, b []series.Coef) (x []series.Coef, free []int, ok bool) {
+	n := len(a[0])
+	rows := len(a)
+	m := make([][]series.Coef, rows)
+	for i := range a {
+		m[i] = append(append([]series.Coef(nil), a[i]...), b[i])
+	}
+	pivotCol := make([]int, 0, n)
+	r := 0
+	for c := 0; c < n && r < rows; c++ {
+		p := -1
+		for i := r; i < rows; i++ {
+			if !m[i][c].IsZero() {
+				p = i
+				break
+			}
+		}
+		if p < 0 {
+			free = append(free, c)
+			continue
+		}
+		m[r], m[p] = m[p], m[r]
+		for i := 0; i < rows; i++ {
+			if i == r || m[i][c].IsZero() {
+				continue
+			}
+			k, _ := m[i][c].Div(m[r][c])
+			for j := c; j <= n; j++ {
+				m[i][j] = m[i][j].Sub(k.Mul(m[r][j]))
+			}
+		}
+		pivotCol = append(pivotCol, c)
+		r++
+	}
+	for c := len(pivotCol) + len(free); c < n; c++ {
+		free = append(free, c)
+	}
+	for i := r; i < rows; i++ {
+		if !m[i][n].IsZero() {
+			return nil, nil, false
+		}
+	}
+	x = make([]series.Coef, n)
+	for i, c := range pivotCol {
+		x[c], _ = m[i][n].Div(m[i][c])
+	}
+	return x, free, true
+}
+
+// verifyCircular reduces Δu − f and each boundary residual exactly.
+func verifyCircular(d circular, sol *Solution, conds map[string]Condition) []Check {
+	checks := []Check{{Name: "lap(u) - f", Exact: true, Residual: sol.U.Laplacian().Sub(sol.Source)}}
+	for i, c := range d.circles() {
+		cond := conds[c.name]
+		b, err := c.apply(cond, sol.U)
+		res := b.Sub(sol.Sides[i].Data)
+		if err != nil {
+			res = series.Sum{}
+		}
+		checks = append(checks, Check{Name: OperatorText(cond, "u") + " - g", Side: c.name, Exact: err == nil, Residual: res})
+	}
+	return checks
+}
