@@ -129,7 +129,9 @@ type Outside struct{ R series.Coef }
 
 func (Outside) Sides() []string { return []string{"rim"} }
 
-func (o Outside) Describe() string { return "the region r > " + o.R.Text() + " (u bounded at infinity)" }
+func (o Outside) Describe() string {
+	return "the region r > " + o.R.Text() + " (u bounded at infinity)"
+}
 
 func (o Outside) Contains(r, _ float64, env series.Env) (bool, error) {
 	R, err := o.R.Float(env)

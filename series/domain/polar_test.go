@@ -258,4 +258,3 @@ func mustCompileEnv(t testing.TB, s series.Sum, env series.Env) series.Compiled 
 	}
 	return c
 }
-
