@@ -33,38 +33,53 @@ func (e *NoRule) Error() string {
 type polarRule struct {
 	name    string
 	degree  int
-	applies func(s *big.Rat, m int) bool
+	applies func(s, nu2 series.Coef) bool
 }
 
-// polarRules is tried in order; the first rule that applies is used.
+// polarRules is tried in order; the first rule that applies is used. ν² is
+// m² for a Fourier mode and may be symbolic (a sector's ν_n² in n).
 var polarRules = []polarRule{
-	{"power-log-trig (double resonance s = m = 0: log degree +2)", 2, func(s *big.Rat, m int) bool { return s.Sign() == 0 && m == 0 }},
-	{"power-log-trig (resonance s² = m²: log degree +1)", 1, func(s *big.Rat, m int) bool { return new(big.Rat).Abs(s).Cmp(big.NewRat(int64(m), 1)) == 0 }},
-	{"power-log-trig", 0, func(*big.Rat, int) bool { return true }},
+	{"power-log-trig (double resonance s = m = 0: log degree +2)", 2, func(s, nu2 series.Coef) bool { return s.IsZero() && nu2.IsZero() }},
+	{"power-log-trig (resonance s² = m²: log degree +1)", 1, func(s, nu2 series.Coef) bool { return s.Mul(s).Equal(nu2) }},
+	{"power-log-trig", 0, func(series.Coef, series.Coef) bool { return true }},
 }
 
-// pivot is the coefficient of c_{i+d} in the (ln r)^i equation.
-func pivot(d int, s *big.Rat, m, i int) *big.Rat {
-	switch d {
-	case 0:
-		return new(big.Rat).Sub(new(big.Rat).Mul(s, s), big.NewRat(int64(m*m), 1))
-	case 1:
-		return new(big.Rat).Mul(s, big.NewRat(int64(2*(i+1)), 1))
-	}
-	return big.NewRat(int64((i+2)*(i+1)), 1)
-}
-
-// lapCoef is the weight of c_n in the (ln r)^i equation (n ≥ i).
-func lapCoef(s *big.Rat, m, i, n int) *big.Rat {
+// weight is the coefficient of c_n in the (ln r)^i equation (n ≥ i).
+func weight(s, nu2 series.Coef, i, n int) series.Coef {
 	switch n - i {
 	case 0:
-		return pivot(0, s, m, i)
+		return s.Mul(s).Sub(nu2)
 	case 1:
-		return pivot(1, s, m, i)
+		return s.MulRat(big.NewRat(int64(2*(i+1)), 1))
 	case 2:
-		return pivot(2, s, m, i)
+		return series.IntCoef(int64((i + 2) * (i + 1)))
 	}
-	return new(big.Rat)
+	return series.Coef{}
+}
+
+// Radial solves ρ” + ρ'/r − ν²ρ/r² = c·r^(s−2) (ln r)^j for ρ = r^s Σ_i c_i (ln r)^i,
+// returning the c_i and the rule used. Homogeneous parts (c_i, i < d) are 0.
+func Radial(c series.Coef, s *big.Rat, j int, nu2 series.Coef) ([]series.Coef, string) {
+	sc := series.RatCoef(s)
+	for _, rule := range polarRules {
+		if !rule.applies(sc, nu2) {
+			continue
+		}
+		d := rule.degree
+		cs := make([]series.Coef, j+d+1)
+		for i := j; i >= 0; i-- {
+			rhs := series.Coef{}
+			if i == j {
+				rhs = c
+			}
+			for n := i + d + 1; n <= i+2 && n < len(cs); n++ {
+				rhs = rhs.Sub(cs[n].Mul(weight(sc, nu2, i, n)))
+			}
+			cs[i+d], _ = rhs.Div(weight(sc, nu2, i, i+d)) // the rule guarantees a nonzero pivot
+		}
+		return cs, rule.name
+	}
+	panic("unreachable: the last polar rule applies to every term")
 }
 
 func solvePolarTerm(t series.Term) (series.Sum, string, error) {
@@ -72,30 +87,12 @@ func solvePolarTerm(t series.Term) (series.Sum, string, error) {
 		return series.Sum{}, "", &NoRule{series.NewSum(t), "a power of theta itself is not single-valued around the origin"}
 	}
 	s := new(big.Rat).Add(t.P, big.NewRat(2, 1))
-	for _, rule := range polarRules {
-		if !rule.applies(s, t.M) {
-			continue
-		}
-		d, j := rule.degree, t.L
-		c := make([]series.Coef, j+d+1) // c[0..d-1] stay 0: they multiply homogeneous solutions
-		for i := j; i >= 0; i-- {
-			rhs := series.Coef{}
-			if i == j {
-				rhs = t.C
-			}
-			for n := i + d + 1; n <= i+2 && n < len(c); n++ {
-				rhs = rhs.Sub(c[n].MulRat(lapCoef(s, t.M, i, n)))
-			}
-			inv := new(big.Rat).Inv(pivot(d, s, t.M, i))
-			c[i+d] = rhs.MulRat(inv)
-		}
-		terms := make([]series.Term, len(c))
-		for i, ci := range c {
-			terms[i] = series.Term{C: ci, P: s, L: i, M: t.M, Sin: t.Sin}
-		}
-		return series.NewSum(terms...), rule.name, nil
+	cs, rule := Radial(t.C, s, t.L, series.IntCoef(int64(t.M)*int64(t.M)))
+	terms := make([]series.Term, len(cs))
+	for i, ci := range cs {
+		terms[i] = series.Term{C: ci, P: s, L: i, M: t.M, Sin: t.Sin}
 	}
-	panic("unreachable: the last polar rule applies to every term")
+	return series.NewSum(terms...), rule, nil
 }
 
 // Particular is a particular solution of Δu = f for an exact polar sum f,

@@ -49,18 +49,50 @@ func makeCoef(num, den Poly) (Coef, error) {
 		}
 		return Coef{num: num.Mul(inv)}, nil
 	}
-	// Divide out the monomial common to every denominator term.
-	g := commonMonomial(den)
+	// Clear negative powers of parameters from both sides, then divide out
+	// the monomial common to every term of both.
+	if clear := negativePowers(num, den); len(clear.f) > 0 {
+		m := Poly{[]pterm{{clear, one}}}
+		num, den = num.Mul(m), den.Mul(m)
+	}
+	g := commonMonomial(Poly{append(append([]pterm(nil), num.t...), den.t...)})
 	if len(g.f) > 0 {
 		inv, _ := Poly{[]pterm{{g, one}}}.PowRat(big.NewRat(-1, 1))
 		num, den = num.Mul(inv), den.Mul(inv)
 	}
-	lead := new(big.Rat).Inv(den.t[0].c)
-	num, den = num.ScaleRat(lead), den.ScaleRat(lead)
+	// Scale so that the denominator has coprime whole coefficients, the first positive.
+	k := new(big.Rat).Inv(den.content())
+	if den.t[0].c.Sign() < 0 {
+		k.Neg(k)
+	}
+	num, den = num.ScaleRat(k), den.ScaleRat(k)
 	if k, ok := proportional(num, den); ok {
 		return RatCoef(k), nil
 	}
 	return Coef{num: num, den: den}, nil
+}
+
+// negativePowers is the monomial that clears every negative power of a
+// parameter or π from the terms of num and den.
+func negativePowers(num, den Poly) monomial {
+	worst := map[Symbol]*big.Rat{}
+	for _, p := range []Poly{num, den} {
+		for _, t := range p.t {
+			for _, f := range t.m.f {
+				if (f.sym.kind == kindParam || f.sym.kind == kindPi) && f.exp.Sign() < 0 {
+					if w, ok := worst[f.sym]; !ok || f.exp.Cmp(w) < 0 {
+						worst[f.sym] = f.exp
+					}
+				}
+			}
+		}
+	}
+	var fs []factor
+	for s, e := range worst {
+		fs = append(fs, factor{s, new(big.Rat).Neg(e)})
+	}
+	m, _ := normalizeRoots(fs)
+	return m
 }
 
 // commonMonomial is the largest monomial dividing every term of p.
@@ -273,6 +305,12 @@ func (s Symbol) float(env Env) (float64, error) {
 		return f, nil
 	case kindPi:
 		return math.Pi, nil
+	case kindSign:
+		v, err := env.float(s.name)
+		if math.Mod(math.Abs(v), 2) == 1 {
+			return -1, err
+		}
+		return 1, err
 	case kindLog:
 		if isDigits(s.name) {
 			p, _ := new(big.Float).SetString(s.name)
@@ -364,6 +402,14 @@ func (p Poly) subst(env Env) (Coef, error) {
 			case f.sym.kind == kindParam:
 				if v, ok := env[f.sym.name]; ok {
 					base = v
+				}
+			case f.sym.kind == kindSign:
+				if v, ok := env[f.sym.name]; ok {
+					q, isRat := v.Rat()
+					if !isRat || !q.IsInt() {
+						return Coef{}, fmt.Errorf("(-1)^%s needs a whole number", f.sym.name)
+					}
+					base = IntCoef(1 - 2*new(big.Int).Mod(q.Num(), big.NewInt(2)).Int64())
 				}
 			case f.sym.kind == kindLog && !isDigits(f.sym.name) && f.sym.name != "pi":
 				if v, ok := env[f.sym.name]; ok {

@@ -176,7 +176,7 @@ func printTerm(t Term, st style) (neg bool, body string) {
 	} else if len(vars) == 0 {
 		return false, printCoef(c, st)
 	} else if st.latex {
-		coef = `\frac{` + printPoly(c.num, st) + "}{" + printPoly(c.den, st) + "}"
+		coef = `\frac{` + printPoly(c.num, st) + "}{" + factoredPoly(c.den, st) + "}"
 	} else {
 		coef = printQuotient(c, st)
 	}
@@ -301,6 +301,11 @@ func atomPower(s Symbol, e *big.Rat, st style) string {
 			return power(`\pi`, e, st)
 		}
 		return power("pi", e, st)
+	case kindSign:
+		if st.latex {
+			return "(-1)^{" + s.name + "}"
+		}
+		return "(-1)^" + s.name
 	case kindLog:
 		if st.latex {
 			arg := s.name
@@ -330,23 +335,43 @@ func printCoef(c Coef, st style) string {
 	case c.den.IsZero():
 		return printPoly(c.num, st)
 	case st.latex:
-		return `\frac{` + printPoly(c.num, st) + "}{" + printPoly(c.den, st) + "}"
+		return `\frac{` + printPoly(c.num, st) + "}{" + factoredPoly(c.den, st) + "}"
 	}
 	return printQuotient(c, st)
 }
 
-// printQuotient is num/den in text, the numerator's rational content in
-// front and brackets only where they are needed.
+// printQuotient is num/den in text: the numerator's rational content and
+// common atoms in front, brackets only where they are needed.
 func printQuotient(c Coef, st style) string {
 	q := c.num.content()
+	g := commonMonomial(c.num)
 	num := c.num.ScaleRat(new(big.Rat).Inv(q))
 	head := ""
-	if q.Cmp(one) != 0 {
+	if len(g.f) > 0 {
+		inv, _ := Poly{[]pterm{{g, one}}}.PowRat(big.NewRat(-1, 1))
+		num = num.Mul(inv)
+		_, head = printMonomialTerm(pterm{g, q}, nil, st)
+		head += "*"
+	} else if q.Cmp(one) != 0 {
 		head = q.RatString() + "*"
 	}
 	text := printPoly(num, st)
-	if len(num.t) > 1 {
+	switch {
+	case len(num.t) > 1:
 		text = paren(text, st)
+	case head != "" && text == "1":
+		head, text = head[:len(head)-1], ""
 	}
-	return head + text + "/" + paren(printPoly(c.den, st), st)
+	return head + text + "/" + paren(factoredPoly(c.den, st), st)
+}
+
+// factoredPoly prints p with the monomial common to its terms in front: pi*n*(n^2 - 4).
+func factoredPoly(p Poly, st style) string {
+	g := commonMonomial(p)
+	if len(g.f) == 0 {
+		return printPoly(p, st)
+	}
+	inv, _ := Poly{[]pterm{{g, one}}}.PowRat(big.NewRat(-1, 1))
+	_, head := printMonomialTerm(pterm{g, one}, nil, st)
+	return head + st.mul + paren(printPoly(p.Mul(inv), st), st)
 }

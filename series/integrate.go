@@ -79,3 +79,42 @@ func (s Sum) AreaIntegral(inner, outer *Coef) (Coef, error) {
 
 // DiskIntegral is ∬_{r<R} s dA.
 func (s Sum) DiskIntegral(radius Coef) (Coef, error) { return s.AreaIntegral(nil, &radius) }
+
+// radialMoment is ∫_0^R r^a (ln r)^j dr for a > −1.
+func radialMoment(a *big.Rat, j int, radius Coef) (Coef, error) {
+	F, err := NewSum(Term{C: IntCoef(1), P: new(big.Rat).Sub(a, big.NewRat(1, 1)), L: j}).radialAntiderivative()
+	if err != nil {
+		return Coef{}, err
+	}
+	if new(big.Rat).Add(a, big.NewRat(1, 1)).Sign() <= 0 {
+		return Coef{}, ErrDiverges
+	}
+	v, err := F.Trace(radius)
+	if err != nil {
+		return Coef{}, err
+	}
+	c, _ := v.Const()
+	return c, nil
+}
+
+// SectorIntegral is ∬ s dA over r < R, 0 < θ < α: per term
+// ∫_0^R r^(p+1) (ln r)^j dr · ∫_0^α θ^k T(mθ) dθ.
+func (s Sum) SectorIntegral(radius, alpha Coef) (Coef, error) {
+	total := Coef{}
+	for _, t := range s.t {
+		rad, err := radialMoment(new(big.Rat).Add(t.power(), big.NewRat(1, 1)), t.L, radius)
+		if err != nil {
+			return Coef{}, err
+		}
+		cs, sn, ok := unitCircle(alpha.MulRat(big.NewRat(int64(t.M), 1)))
+		if !ok {
+			return Coef{}, ErrAngle
+		}
+		ang, err := thetaMoment(t.K, t.Sin, IntCoef(int64(t.M)), alpha, cs, sn)
+		if err != nil {
+			return Coef{}, err
+		}
+		total = total.Add(t.C.Mul(rad).Mul(ang))
+	}
+	return total, nil
+}

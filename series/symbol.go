@@ -14,6 +14,7 @@ const (
 	kindPi                   // π
 	kindParam                // a parameter such as a, mu, G
 	kindLog                  // ln of a prime or of a parameter
+	kindSign                 // (−1)^n for a whole-number parameter n
 )
 
 // Symbol is one atom of a coefficient. Atoms are treated as independent
@@ -29,6 +30,9 @@ func Param(name string) Symbol { return Symbol{kindParam, name} }
 // Pi is the atom π.
 var Pi = Symbol{kind: kindPi}
 
+// SignOf is the atom (−1)^n of the whole-number parameter n.
+func SignOf(n string) Symbol { return Symbol{kindSign, n} }
+
 func (s Symbol) key() string {
 	switch s.kind {
 	case kindRoot:
@@ -37,6 +41,8 @@ func (s Symbol) key() string {
 		return "pi"
 	case kindLog:
 		return "ln(" + s.name + ")"
+	case kindSign:
+		return "(-1)^" + s.name
 	}
 	return s.name
 }
@@ -127,6 +133,12 @@ func normalizeRoots(fs []factor) (monomial, *big.Rat) {
 	scale := one
 	kept := fs[:0:0]
 	for _, f := range fs {
+		if f.sym.kind == kindSign { // (−1)^(2n) = 1
+			if new(big.Int).Mod(f.exp.Num(), big.NewInt(2)).Sign() != 0 {
+				kept = append(kept, factor{f.sym, big.NewRat(1, 1)})
+			}
+			continue
+		}
 		if f.sym.kind != kindRoot {
 			kept = append(kept, f)
 			continue

@@ -74,10 +74,16 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 		coTeX = append(coTeX, series.JoinLaTeX(s.Data, s.Trace.Neg()))
 	}
 	side := sol.Sides[0]
+	if sol.Series != nil { // rays carry no trace: their data is met by the eigenfunctions and the shift
+		tr, trTeX, co, coTeX = tr[:1], trTeX[:1], co[:1], coTeX[:1]
+	}
 	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(trTeX, ", "), traceTeX(side))
 	v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(coTeX, ", "), `g - `+traceTeX(side))
 	v.Harmonic = exactStage("harmonic", sol.Harmonic.Text(), sol.Harmonic.LaTeX(), "u_h")
 	v.Solution = exactStage("solution", "u = "+series.JoinText(sol.Particular, sol.Harmonic), series.JoinLaTeX(sol.Particular, sol.Harmonic), "u")
+	if ps := sol.Series; ps != nil {
+		v.seriesStages(sol, ps)
+	}
 	for _, c := range sol.Checks {
 		v.Checks = append(v.Checks, checkOut{Name: c.Name, Side: c.Side, Exact: c.Exact, Formula: c.Residual.Text(), Residual: residualSize(c.Residual, pr.env)})
 	}
@@ -199,4 +205,42 @@ func renderJSON(w io.Writer, v *view) error {
 	enc.SetIndent("", "  ")
 	enc.SetEscapeHTML(false)
 	return enc.Encode(v)
+}
+
+// seriesStages prints a sector's stages: the mode-by-mode particular
+// solution, its arc trace, the correction, and the harmonic part as the
+// ray shift plus a series.
+func (v *view) seriesStages(sol *domain.Solution, ps *domain.SeriesParts) {
+	side := sol.Sides[0]
+	plus := func(a, b string) string {
+		switch {
+		case a == "0":
+			return b
+		case strings.HasPrefix(b, "-"):
+			return a + " - " + b[1:]
+		}
+		return a + " + " + b
+	}
+	join := func(closed series.Sum, ser series.Series, latex bool) string {
+		c, t := closed.Text(), ser.Text()
+		if latex {
+			c, t = closed.LaTeX(), ser.LaTeX()
+		}
+		switch {
+		case ser.IsZero():
+			return c
+		case closed.IsZero():
+			return t
+		}
+		return plus(c, t)
+	}
+	up, upSer := sol.Particular, ps.Particular
+	h, hSer := sol.Harmonic, ps.Harmonic
+	v.Particular = exactStage("particular", "u_p = "+join(up, upSer, false), join(up, upSer, true), "u_p")
+	v.Trace = exactStage("trace", traceText(side)+" = "+join(side.Trace, ps.Trace, false), join(side.Trace, ps.Trace, true), traceTeX(side))
+	v.Correction = exactStage("correction", ps.Correction.Text(), ps.Correction.LaTeX(), `g - w - `+traceTeX(side))
+	v.Harmonic = exactStage("harmonic", join(h, hSer, false), join(h, hSer, true), "u_h")
+	v.Solution = exactStage("solution", "u = "+join(up.Add(h), ps.U, false), join(up.Add(h), ps.U, true), "u")
+	shift := sol.Harmonic.Text()
+	v.Steps = append(v.Steps, "the rays' values are carried by the harmonic shift w = "+shift+"; the modes vanish on the rays")
 }

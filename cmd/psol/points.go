@@ -15,6 +15,8 @@ type point struct {
 	X     float64 `json:"x"`
 	Y     float64 `json:"y"`
 	U     float64 `json:"u"`
+	Error float64 `json:"error"`           // truncation estimate; 0 for closed forms
+	Terms int     `json:"terms,omitempty"` // series terms summed
 	Input string  `json:"input"`
 }
 
@@ -60,24 +62,24 @@ func readPoint(text string, env series.Env) (point, error) {
 	return p, nil
 }
 
-// evaluate fills u at each point from the compiled solution.
-func evaluate(u series.Sum, env series.Env, pts []point, d domain.Domain) error {
+// evaluate fills u at each point, summing series to tol.
+func evaluate(sol *domain.Solution, env series.Env, pts []point, tol float64, maxTerms int) error {
 	if len(pts) == 0 {
 		return nil
 	}
-	c, err := u.Compile(env)
+	ev, err := sol.Compile(env, tol, maxTerms)
 	if err != nil {
 		return usagef("--at: %v", err)
 	}
 	for i := range pts {
-		in, err := d.Contains(pts[i].R, pts[i].Theta, env)
+		in, err := sol.Domain.Contains(pts[i].R, pts[i].Theta, env)
 		if err != nil {
 			return usagef("--at: %v", err)
 		}
 		if !in {
-			return &parse.Error{Label: "--at", Input: pts[i].Input, Msg: "the point lies outside " + d.Describe()}
+			return &parse.Error{Label: "--at", Input: pts[i].Input, Msg: "the point lies outside " + sol.Domain.Describe()}
 		}
-		pts[i].U = c.At(pts[i].R, pts[i].Theta)
+		pts[i].U, pts[i].Error, pts[i].Terms = ev.At(pts[i].R, pts[i].Theta)
 	}
 	return nil
 }

@@ -3,6 +3,7 @@ package main
 import (
 	"errors"
 	"fmt"
+	"math/big"
 	"strings"
 
 	"github.com/spf13/pflag"
@@ -40,6 +41,13 @@ var regionKinds = []regionKind{
 		}},
 	{"outside", "solve outside the circle, r > R, with u bounded at infinity", 1,
 		func(v []series.Coef) (domain.Domain, string) { return domain.Outside{R: v[0]}, "" }},
+	{"sector", "solve on the sector r < R, 0 < theta < ALPHA, given as R,ALPHA (ALPHA a rational multiple of pi)", 2,
+		func(v []series.Coef) (domain.Domain, string) {
+			if a, ok := domain.AlphaOverPi(v[1]); !ok || a.Cmp(big.NewRat(2, 1)) > 0 {
+				return nil, "the angle must be a rational multiple of pi, at most 2*pi"
+			}
+			return domain.Sector{R: v[0], Alpha: v[1]}, ""
+		}},
 }
 
 func (p *problemFlags) bind(f *pflag.FlagSet) {
@@ -115,7 +123,7 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 	}
 	switch len(chosen) {
 	case 0:
-		return nil, usagef("give the domain: --disk R, --annulus R1,R2 or --outside R")
+		return nil, usagef("give the domain: --disk R, --annulus R1,R2, --outside R or --sector R,ALPHA")
 	case 1:
 	default:
 		return nil, usagef("give one domain, not %s", strings.Join(chosen, " and "))

@@ -4,6 +4,8 @@ import (
 	"io"
 
 	"github.com/spf13/cobra"
+
+	"psol/series/domain"
 )
 
 type solveOptions struct {
@@ -11,6 +13,8 @@ type solveOptions struct {
 	steps  bool
 	format string
 	at     []string
+	tol    float64
+	terms  int
 }
 
 func newSolveCmd() *cobra.Command {
@@ -27,6 +31,8 @@ func newSolveCmd() *cobra.Command {
 	o.bind(f)
 	f.BoolVar(&o.steps, "steps", false, "show how each stage was found")
 	f.StringVar(&o.format, "format", "text", "output format: text, latex or json")
+	f.Float64Var(&o.tol, "tol", domain.SumTol, "numeric target for summed series")
+	f.IntVar(&o.terms, "terms", 100000, "cap on the series terms summed")
 	f.StringArrayVar(&o.at, "at", nil, `evaluate at "r=0.5,theta=pi/4" or "x=0.1,y=0.2" (repeatable)`)
 	return cmd
 }
@@ -52,7 +58,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	if err != nil {
 		return err
 	}
-	if err := evaluate(sol.U, pr.env, pts, pr.domain); err != nil {
+	if err := evaluate(sol, pr.env, pts, o.tol, o.terms); err != nil {
 		return err
 	}
 	v := newView(pr, sol, pts, o.steps)

@@ -69,6 +69,7 @@ type Check struct {
 	Side     string // "" for the equation
 	Exact    bool
 	Residual series.Sum
+	Numeric  float64 // the largest residual on a check grid, when not exact
 }
 
 // Solution is the assembled answer with its stages.
@@ -82,6 +83,7 @@ type Solution struct {
 	Free       string      // the name of a free additive constant in U, if any
 	FreeMean   series.Coef // the value of Free that makes u's mean on the first boundary circle zero
 	Checks     []Check
+	Series     *SeriesParts  // the infinite-series stages, where the region needs them
 	Rules      []ansatz.Step // how each source term was solved
 	Steps      []string      // how the harmonic part was found
 	Notes      []string

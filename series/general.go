@@ -1,0 +1,535 @@
+package series
+
+import (
+	"fmt"
+	"math"
+	"math/big"
+	"sort"
+	"strconv"
+	"strings"
+)
+
+// Index is the name of a series' summation index; psol reserves it.
+const Index = "n"
+
+// IndexCoef is the index n as a coefficient, for general terms.
+var IndexCoef = SymCoef(Param(Index))
+
+// SignCoef is (−1)^n.
+var SignCoef = SymCoef(SignOf(Index))
+
+// Family is a sector's angular eigenfunctions: Φ_n(θ) = sin(ν_n θ) or
+// cos(ν_n θ) with ν_n = Slope·n + Offset, for n ≥ From.
+type Family struct {
+	Sin           bool
+	Slope, Offset *big.Rat
+	From          int
+}
+
+// Nu is ν_n, symbolic when n is IndexCoef.
+func (f Family) Nu(n Coef) Coef { return n.MulRat(f.Slope).Add(RatCoef(f.Offset)) }
+
+// NuAt is ν_n for a concrete n.
+func (f Family) NuAt(n int) *big.Rat {
+	return new(big.Rat).Add(new(big.Rat).Mul(f.Slope, big.NewRat(int64(n), 1)), f.Offset)
+}
+
+// RadialTerm is C·r^P·(ln r)^L, or C·(r/R)^ν_n when Scaled.
+type RadialTerm struct {
+	C      Coef
+	P      *big.Rat
+	L      int
+	Scaled bool
+}
+
+// Series is Σ_{n ≥ From} ρ_n(r) Φ_n(θ), ρ_n the sum of the general radial
+// terms (coefficients in n and (−1)^n), except where Special gives the terms
+// of an exceptional n (a vanishing denominator of the general form).
+type Series struct {
+	Family  Family
+	R       Coef // the radius in (r/R)^ν_n
+	General []RadialTerm
+	Special map[int][]RadialTerm
+}
+
+// IsZero reports a series whose every term vanishes.
+func (s Series) IsZero() bool {
+	for _, ts := range append([][]RadialTerm{s.General}, mapValues(s.Special)...) {
+		for _, t := range ts {
+			if !t.C.IsZero() {
+				return false
+			}
+		}
+	}
+	return true
+}
+
+func mapValues(m map[int][]RadialTerm) [][]RadialTerm {
+	var out [][]RadialTerm
+	for _, v := range m {
+		out = append(out, v)
+	}
+	return out
+}
+
+func (s Series) specials() []int {
+	var ns []int
+	for n := range s.Special {
+		ns = append(ns, n)
+	}
+	sort.Ints(ns)
+	return ns
+}
+
+func (s Series) radialText(ts []RadialTerm, nu Coef, st style) string {
+	var plain []Term
+	var scaled []string
+	for _, t := range ts {
+		if t.Scaled {
+			if t.C.IsZero() {
+				continue
+			}
+			scaled = append(scaled, s.scaledText(t.C, nu, st))
+			continue
+		}
+		plain = append(plain, Term{C: t.C, P: t.P, L: t.L})
+	}
+	text := ""
+	if p := NewSum(plain...); !p.IsZero() || len(scaled) == 0 {
+		text = p.print(st)
+	}
+	for _, sc := range scaled {
+		switch {
+		case text == "" || text == "0":
+			text = sc
+		case strings.HasPrefix(sc, "-"):
+			text += " - " + sc[1:]
+		default:
+			text += " + " + sc
+		}
+	}
+	return text
+}
+
+func (s Sum) print(st style) string { return printTerms(s.t, st) }
+
+func (s Series) scaledText(c Coef, nu Coef, st style) string {
+	neg, body := printTerm(Term{C: c, P: new(big.Rat)}, st)
+	base, exp := "(r/"+wrapText(s.R.Text())+")", nu.Text()
+	if st.latex {
+		base, exp = `\left(\frac{r}{`+s.R.LaTeX()+`}\right)`, nu.LaTeX()
+	}
+	if s.R.Equal(IntCoef(1)) {
+		base = "r"
+	}
+	pw := base + "^{" + exp + "}"
+	if !st.latex {
+		pw = base + "^(" + exp + ")"
+		if isName(exp) {
+			pw = base + "^" + exp
+		}
+	}
+	switch body {
+	case "1":
+		body = pw
+	default:
+		body = body + st.mul + pw
+	}
+	if neg {
+		return "-" + body
+	}
+	return body
+}
+
+func isName(s string) bool {
+	for _, c := range s {
+		if !(c >= 'a' && c <= 'z' || c >= 'A' && c <= 'Z' || c >= '0' && c <= '9') {
+			return false
+		}
+	}
+	return s != ""
+}
+
+func wrapText(s string) string {
+	if strings.ContainsAny(s, " /*") {
+		return "(" + s + ")"
+	}
+	return s
+}
+
+func (s Series) phiText(nu Coef, st style) string {
+	fn := "cos"
+	if s.Family.Sin {
+		fn = "sin"
+	}
+	if st.latex {
+		return `\` + fn + `\left(` + nu.LaTeX() + ` \theta\right)`
+	}
+	arg := nu.Text()
+	if strings.ContainsAny(arg, " ") {
+		arg = "(" + arg + ")"
+	}
+	return fn + "(" + arg + "*theta)"
+}
+
+func (s Series) termText(ts []RadialTerm, nu Coef, st style) string {
+	if q, ok := nu.Rat(); ok && q.Sign() == 0 && !s.Family.Sin { // Φ = cos 0 = 1
+		return s.radialText(ts, nu, st)
+	}
+	radial := s.radialText(ts, nu, st)
+	if radial == "0" {
+		return "0"
+	}
+	if strings.ContainsAny(radial[1:], "+-") || strings.Contains(radial, " ") {
+		if st.latex {
+			radial = `\left(` + radial + `\right)`
+		} else {
+			radial = "(" + radial + ")"
+		}
+	}
+	return radial + st.mul + s.phiText(nu, st)
+}
+
+// Text prints the series in psol's syntax: sum(n=FROM..inf[, n != K ...], TERM)
+// followed by the exceptional terms.
+func (s Series) Text() string {
+	var b strings.Builder
+	b.WriteString("sum(" + Index + "=" + strconv.Itoa(s.Family.From) + "..inf")
+	for _, n := range s.specials() {
+		b.WriteString(", " + Index + " != " + strconv.Itoa(n))
+	}
+	b.WriteString(", " + s.termText(s.General, s.Family.Nu(IndexCoef), textStyle) + ")")
+	for _, n := range s.specials() {
+		t := s.termText(s.Special[n], RatCoef(s.Family.NuAt(n)), textStyle)
+		if t == "0" {
+			continue
+		}
+		if strings.HasPrefix(t, "-") {
+			b.WriteString(" - " + t[1:])
+		} else {
+			b.WriteString(" + " + t)
+		}
+	}
+	return b.String()
+}
+
+// LaTeX prints the series with \sum.
+func (s Series) LaTeX() string {
+	var b strings.Builder
+	lower := Index + "=" + strconv.Itoa(s.Family.From)
+	if len(s.Special) > 0 {
+		var ex []string
+		for _, n := range s.specials() {
+			ex = append(ex, strconv.Itoa(n))
+		}
+		lower = Index + `\ge ` + strconv.Itoa(s.Family.From) + `,\ ` + Index + `\ne ` + strings.Join(ex, ",")
+	}
+	b.WriteString(`\sum_{` + lower + `}^{\infty} ` + s.termText(s.General, s.Family.Nu(IndexCoef), latexStyle))
+	for _, n := range s.specials() {
+		t := s.termText(s.Special[n], RatCoef(s.Family.NuAt(n)), latexStyle)
+		if t == "0" {
+			continue
+		}
+		if strings.HasPrefix(t, "-") {
+			b.WriteString(" - " + t[1:])
+		} else {
+			b.WriteString(" + " + t)
+		}
+	}
+	return b.String()
+}
+
+// coefFunc is a coefficient compiled to a float64 function of n.
+type coefFunc struct {
+	num, den []monoFunc
+}
+
+type monoFunc struct {
+	c      float64 // coefficient times every atom but n and (−1)^n
+	nPow   float64
+	signed bool
+}
+
+func compilePoly(p Poly, env Env) ([]monoFunc, error) {
+	out := make([]monoFunc, len(p.t))
+	for i, t := range p.t {
+		c, _ := t.c.Float64()
+		mf := monoFunc{}
+		for _, f := range t.m.f {
+			switch {
+			case f.sym.kind == kindParam && f.sym.name == Index:
+				mf.nPow, _ = f.exp.Float64()
+			case f.sym.kind == kindSign:
+				mf.signed = true
+			default:
+				v, err := f.sym.float(env)
+				if err != nil {
+					return nil, err
+				}
+				e, _ := f.exp.Float64()
+				c *= math.Pow(v, e)
+			}
+		}
+		mf.c = c
+		out[i] = mf
+	}
+	return out, nil
+}
+
+func compileCoef(c Coef, env Env) (coefFunc, error) {
+	num, err := compilePoly(c.num, env)
+	if err != nil {
+		return coefFunc{}, err
+	}
+	den, err := compilePoly(c.den, env)
+	return coefFunc{num, den}, err
+}
+
+func evalMonos(ms []monoFunc, n, sign float64) float64 {
+	s := 0.0
+	for _, m := range ms {
+		v := m.c
+		if m.nPow != 0 {
+			v *= math.Pow(n, m.nPow)
+		}
+		if m.signed {
+			v *= sign
+		}
+		s += v
+	}
+	return s
+}
+
+func (c coefFunc) at(n float64) float64 {
+	sign := 1.0
+	if math.Mod(n, 2) == 1 {
+		sign = -1
+	}
+	v := evalMonos(c.num, n, sign)
+	if len(c.den) > 0 {
+		v /= evalMonos(c.den, n, sign)
+	}
+	return v
+}
+
+type radialFunc struct {
+	c      coefFunc
+	p      float64
+	l      int
+	scaled bool
+}
+
+// CompiledSeries evaluates a series in float64.
+type CompiledSeries struct {
+	fam     Family
+	slope   float64
+	offset  float64
+	R       float64
+	general []radialFunc
+	special map[int][]radialFunc
+}
+
+func compileRadial(ts []RadialTerm, env Env) ([]radialFunc, error) {
+	out := make([]radialFunc, len(ts))
+	for i, t := range ts {
+		c, err := compileCoef(t.C, env)
+		if err != nil {
+			return nil, err
+		}
+		p := 0.0
+		if t.P != nil {
+			p, _ = t.P.Float64()
+		}
+		out[i] = radialFunc{c, p, t.L, t.Scaled}
+	}
+	return out, nil
+}
+
+// Compile fixes the parameters from env for float64 evaluation.
+func (s Series) Compile(env Env) (CompiledSeries, error) {
+	R, err := s.R.Float(env)
+	if err != nil {
+		return CompiledSeries{}, err
+	}
+	cs := CompiledSeries{fam: s.Family, R: R, special: map[int][]radialFunc{}}
+	cs.slope, _ = s.Family.Slope.Float64()
+	cs.offset, _ = s.Family.Offset.Float64()
+	if cs.general, err = compileRadial(s.General, env); err != nil {
+		return CompiledSeries{}, err
+	}
+	for n, ts := range s.Special {
+		if cs.special[n], err = compileRadial(ts, env); err != nil {
+			return CompiledSeries{}, err
+		}
+	}
+	return cs, nil
+}
+
+func (cs CompiledSeries) radial(ts []radialFunc, n, nu, r, lnr float64) float64 {
+	v := 0.0
+	for _, t := range ts {
+		c := t.c.at(n)
+		if c == 0 {
+			continue
+		}
+		if t.scaled {
+			v += c * math.Pow(r/cs.R, nu)
+			continue
+		}
+		x := c
+		if t.p != 0 {
+			x *= math.Pow(r, t.p)
+		}
+		if t.l > 0 {
+			x *= powInt(lnr, int64(t.l))
+		}
+		v += x
+	}
+	return v
+}
+
+// Summed is a series value with its truncation.
+type Summed struct {
+	Value float64
+	Terms int     // the last index summed
+	Tail  float64 // an estimate of the neglected tail
+}
+
+// At sums the series at (r, θ) until the tail estimate n·|ρ_n(r)| is below
+// tol·max(1, |sum|) (the estimate is sound for terms decaying like n^(−2) or
+// faster), or maxTerms terms have been summed.
+func (cs CompiledSeries) At(r, theta, tol float64, maxTerms int) Summed {
+	lnr := math.Log(r)
+	sum := 0.0
+	quiet := 0
+	last := cs.fam.From
+	tail := math.Inf(1)
+	for n := cs.fam.From; n < cs.fam.From+maxTerms; n++ {
+		nf := float64(n)
+		nu := cs.slope*nf + cs.offset
+		ts, special := cs.special[n]
+		if !special {
+			ts = cs.general
+		}
+		rho := cs.radial(ts, nf, nu, r, lnr)
+		phi := math.Cos(nu * theta)
+		if cs.fam.Sin {
+			phi = math.Sin(nu * theta)
+		}
+		sum += rho * phi
+		last = n
+		tail = nf * math.Abs(rho)
+		if !special && tail <= tol*math.Max(1, math.Abs(sum)) {
+			quiet++
+			if quiet >= 4 {
+				break
+			}
+		} else {
+			quiet = 0
+		}
+	}
+	return Summed{Value: sum, Terms: last, Tail: tail}
+}
+
+// Coefficient evaluates a general coefficient at a concrete n, exactly.
+func Coefficient(c Coef, n int) (Coef, error) {
+	return c.Subst(Env{Index: IntCoef(int64(n))})
+}
+
+// String is for debugging.
+func (s Series) String() string { return fmt.Sprintf("Series(%s)", s.Text()) }
+
+// IndexedSum is Σ_{n ≥ From} c_n, c_n = General at n except where Special gives it.
+type IndexedSum struct {
+	From    int
+	General Coef
+	Special map[int]Coef
+}
+
+// Float sums in float64 until the tail estimate n·|c_n| is below tol·max(1, |sum|)
+// (sound for terms decaying like n^(−2) or faster), or maxTerms terms.
+func (s IndexedSum) Float(env Env, tol float64, maxTerms int) (Summed, error) {
+	g, err := compileCoef(s.General, env)
+	if err != nil {
+		return Summed{}, err
+	}
+	special := map[int]float64{}
+	for n, c := range s.Special {
+		if special[n], err = c.Float(env); err != nil {
+			return Summed{}, err
+		}
+	}
+	sum, tail, quiet, last := 0.0, math.Inf(1), 0, s.From
+	for n := s.From; n < s.From+maxTerms; n++ {
+		c, ok := special[n]
+		if !ok {
+			c = g.at(float64(n))
+		}
+		sum += c
+		last, tail = n, float64(n)*math.Abs(c)
+		if !ok && tail <= tol*math.Max(1, math.Abs(sum)) {
+			if quiet++; quiet >= 4 {
+				break
+			}
+		} else {
+			quiet = 0
+		}
+	}
+	return Summed{Value: sum, Terms: last, Tail: tail}, nil
+}
+
+// SectorIntegral is ∬ over the sector r < R, 0 < θ < α (α = aOverPi·π) of the
+// series, term by term: ∫_0^α Φ_n dθ is (1 − cos ν_nα)/ν_n for sines and
+// sin(ν_nα)/ν_n for cosines (α where ν_n = 0); ∫_0^R (r/R)^ν r dr = R²/(ν + 2).
+func (s Series) SectorIntegral(aOverPi *big.Rat) (IndexedSum, error) {
+	out := IndexedSum{From: s.Family.From, Special: map[int]Coef{}}
+	var err error
+	if out.General, err = s.modeIntegral(s.General, aOverPi, IndexCoef, SignCoef); err != nil {
+		return IndexedSum{}, err
+	}
+	for n, ts := range s.Special {
+		sign := IntCoef(1 - 2*int64(((n%2)+2)%2))
+		if out.Special[n], err = s.modeIntegral(ts, aOverPi, IntCoef(int64(n)), sign); err != nil {
+			return IndexedSum{}, err
+		}
+	}
+	return out, nil
+}
+
+func (s Series) modeIntegral(ts []RadialTerm, aOverPi *big.Rat, n, sign Coef) (Coef, error) {
+	nu := s.Family.Nu(n)
+	cd, sd, ok := unitCircle(SymCoef(Pi).Mul(RatCoef(new(big.Rat).Mul(s.Family.Offset, aOverPi))))
+	if !ok {
+		return Coef{}, ErrAngle
+	}
+	var angular Coef
+	switch q, isRat := nu.Rat(); {
+	case isRat && q.Sign() == 0:
+		if s.Family.Sin {
+			return Coef{}, nil
+		}
+		angular = SymCoef(Pi).MulRat(aOverPi)
+	case s.Family.Sin:
+		angular, _ = IntCoef(1).Sub(sign.Mul(cd)).Div(nu)
+	default:
+		angular, _ = sign.Mul(sd).Div(nu)
+	}
+	radial := Coef{}
+	for _, t := range ts {
+		if t.Scaled {
+			r2, _ := s.R.Pow(big.NewRat(2, 1))
+			v, err := r2.Div(nu.Add(IntCoef(2)))
+			if err != nil {
+				return Coef{}, err
+			}
+			radial = radial.Add(t.C.Mul(v))
+			continue
+		}
+		v, err := radialMoment(new(big.Rat).Add(t.P, one), t.L, s.R)
+		if err != nil {
+			return Coef{}, err
+		}
+		radial = radial.Add(t.C.Mul(v))
+	}
+	return radial.Mul(angular), nil
+}
