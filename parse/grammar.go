@@ -17,7 +17,8 @@ import (
 //	unary     = ( "-" | "+" ) unary | power .
 //	power     = primary [ ( "^" | "**" ) unary ] .
 //	primary   = number [ atom [ ( "^" | "**" ) unary ] ] | atom .
-//	atom      = lap ident | ident "(" choice { "," choice } ")" | ident | "(" choice ")" .
+//	atom      = lap ident | sum | ident "(" choice { "," choice } ")" | ident | "(" choice ")" .
+//	sum       = "sum" "(" ident "=" number ".." ( "inf" | number ) { "," ident "!=" number } "," choice ")" .
 //
 // A number directly followed by an atom multiplies it ("2r", "3(x+y)",
 // "4sin(3theta)"); lap is Δ, ∇² or ∇^2.
@@ -121,11 +122,28 @@ type scaled struct {
 
 type atom struct {
 	Pos   lexer.Position
-	Lap   *string `parser:"( @Lap"`
-	LapOf string  `parser:"@Ident )"`
-	Call  *call   `parser:"| @@"`
-	Name  *string `parser:"| @Ident"`
-	Group *choice `parser:"| \"(\" @@ \")\""`
+	Lap   *string  `parser:"( @Lap"`
+	LapOf string   `parser:"@Ident )"`
+	Sum   *sumNode `parser:"| @@"`
+	Call  *call    `parser:"| @@"`
+	Name  *string  `parser:"| @Ident"`
+	Group *choice  `parser:"| \"(\" @@ \")\""`
+}
+
+// sumNode is a series as psol prints it: sum(n=1..inf, n != 2, TERM).
+type sumNode struct {
+	Pos   lexer.Position
+	Index string     `parser:"\"sum\" \"(\" @Ident \"=\""`
+	From  string     `parser:"@Number \"..\""`
+	To    string     `parser:"( @\"inf\" | @Number )"`
+	Skip  []*skipped `parser:"( \",\" @@ )*"`
+	Body  *choice    `parser:"\",\" @@ \")\""`
+}
+
+type skipped struct {
+	Pos   lexer.Position
+	Index string `parser:"@Ident \"!=\""`
+	Value string `parser:"@Number"`
 }
 
 type call struct {
@@ -137,9 +155,9 @@ type call struct {
 var tokens = lexer.MustSimple([]lexer.SimpleRule{
 	{Name: "Space", Pattern: `\s+`},
 	{Name: "Lap", Pattern: `Δ|∇²|∇\^2`},
-	{Name: "Number", Pattern: `(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?`},
+	{Name: "Number", Pattern: `(\d+\.\d+|\d+|\.\d+)([eE][-+]?\d+)?`},
 	{Name: "Ident", Pattern: `[\p{L}_][\p{L}\p{N}_]*`},
-	{Name: "Punct", Pattern: `\*\*|<=|>=|[-+*/^()=?:<>,]`},
+	{Name: "Punct", Pattern: `\*\*|<=|>=|!=|\.\.|[-+*/^()=?:<>,]`},
 })
 
 // The parsers are built once.

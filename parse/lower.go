@@ -209,7 +209,14 @@ func (lw *lowerer) raise(v value, vpos lexer.Position, exp *unary) (value, error
 	c, ok := constant(e)
 	q, isRat := c.Rat()
 	if !ok || !isRat {
-		return value{}, lw.fail(exp.Pos, "an exponent must be a rational number")
+		if base, isConst := constant(v); isConst && base.Equal(series.IntCoef(-1)) && ok && c.Equal(series.IndexCoef) {
+			return value{f: series.ExactField(series.Const(series.SignCoef))}, nil // (−1)^n
+		}
+		f, err := series.PowField(v.f, e.f)
+		if err != nil {
+			return value{}, lw.fail(vpos, "%v", err)
+		}
+		return value{f: f}, nil
 	}
 	if new(big.Int).Abs(q.Num()).Cmp(big.NewInt(MaxExponent)) > 0 || q.Denom().Cmp(big.NewInt(MaxExponent)) > 0 {
 		return value{}, lw.fail(exp.Pos, "exponent %s is beyond the bound %d on its numerator and denominator", q.RatString(), MaxExponent)
@@ -303,6 +310,8 @@ func (lw *lowerer) atom(a *atom) (value, error) {
 		return value{lap: series.IntCoef(1)}, nil
 	case a.Call != nil:
 		return lw.call(a.Call)
+	case a.Sum != nil:
+		return lw.series(a.Sum)
 	}
 	name := *a.Name
 	if s, ok := variables[name]; ok {
@@ -615,4 +624,44 @@ func Fix(text string, env series.Env) (r, theta, v series.Coef, err error) {
 		vals[i] = k
 	}
 	return vals[0], vals[1], vals[2], nil
+}
+
+func (lw *lowerer) series(s *sumNode) (value, error) {
+	if s.Index != series.Index {
+		return value{}, lw.fail(s.Pos, "the index of a sum is %s", series.Index)
+	}
+	from, err := lw.whole(s.From, s.Pos)
+	if err != nil {
+		return value{}, err
+	}
+	if s.To != "inf" {
+		return value{}, lw.fail(s.Pos, "a sum runs to inf: sum(n=1..inf, ...)")
+	}
+	var skip []int
+	for _, k := range s.Skip {
+		if k.Index != series.Index {
+			return value{}, lw.fail(k.Pos, "the index of a sum is %s", series.Index)
+		}
+		v, err := lw.whole(k.Value, k.Pos)
+		if err != nil {
+			return value{}, err
+		}
+		skip = append(skip, v)
+	}
+	body, err := lw.choice(s.Body)
+	if err != nil {
+		return value{}, err
+	}
+	if body.hasUnknown() {
+		return value{}, lw.fail(s.Body.Pos, "u may not appear inside a sum")
+	}
+	return value{f: series.SeriesField(from, skip, body.f)}, nil
+}
+
+func (lw *lowerer) whole(text string, pos lexer.Position) (int, error) {
+	n, err := lw.number(text, pos)
+	if err != nil || !n.IsInt() || !n.Num().IsInt64() || n.Num().Int64() > 1<<20 {
+		return 0, lw.fail(pos, "expected a whole number, not %s", text)
+	}
+	return int(n.Num().Int64()), nil
 }

@@ -143,7 +143,7 @@ func TestBadInput(t *testing.T) {
 		{"lap(u) = 2 $ 3", 12, "unexpected"},
 		{"lap(u) = theta < pi ? 1 : 0", 10, "piecewise"},
 		{"lap(u) = sin", 10, "needs an argument"},
-		{"lap(u) = r^r", 12, "rational number"},
+		{"lap(u) = r^", 12, "unexpected end of input"},
 		{"lap(u) = 1/0", 12, "division by zero"},
 		{"lap(u) = sin(1, 2)", 10, "one argument"},
 		{"lap(u)*lap(u) = 1", 8, "linear"},
@@ -179,7 +179,7 @@ func randomSum(rng *rand.Rand) series.Sum {
 	var ts []series.Term
 	for i := rng.Intn(5) + 1; i > 0; i-- {
 		c := series.FracCoef(int64(rng.Intn(21)-10), int64(rng.Intn(6)+1))
-		switch rng.Intn(5) {
+		switch rng.Intn(6) {
 		case 0:
 			c = c.Mul(series.SymCoef(series.Param([]string{"a", "mu", "T0", "q"}[rng.Intn(4)])))
 		case 1:
@@ -190,6 +190,11 @@ func randomSum(rng *rand.Rand) series.Sum {
 		case 3:
 			l, _ := series.IntCoef(int64(rng.Intn(5) + 2)).Ln()
 			c = c.Add(l)
+		case 4: // a rational function of the parameters, either sign
+			d := series.SymCoef(series.Param("a")).Add(series.FracCoef(int64(rng.Intn(7)-3), 2).Mul(series.SymCoef(series.Param("mu"))))
+			if q, err := c.Div(d); err == nil {
+				c = q
+			}
 		}
 		ts = append(ts, series.Term{C: c, P: big.NewRat(int64(rng.Intn(9)-4), int64(rng.Intn(3)+1)), L: rng.Intn(3), K: rng.Intn(2), M: rng.Intn(5), Sin: rng.Intn(2) == 0})
 	}

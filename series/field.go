@@ -23,9 +23,16 @@ func (f Field) IsExact() bool { return f.Rest == nil }
 
 // Expr is a node of a remainder: a leaf sum, or an operation on nodes.
 type Expr struct {
-	op   string // "sum", "+", "*", "/", "^", or a function name
+	op   string // "sum", "+", "*", "/", "^", "series", or a function name
 	sum  Sum
 	args []*Expr
+	ser  *seriesNode
+}
+
+// seriesNode is Σ_{n=from}^{∞} body(n), skipping the listed n.
+type seriesNode struct {
+	from int
+	skip []int
 }
 
 func (f Field) expr() *Expr {
@@ -276,9 +283,33 @@ var cos12 = func() map[int64]Coef {
 	return out
 }()
 
+// SeriesField is the series Σ_{n ≥ from, n ∉ skip} body: a remainder that
+// evaluates by summing until the terms fall below 1e-15 of the sum.
+func SeriesField(from int, skip []int, body Field) Field {
+	return opaque(&Expr{op: "series", args: []*Expr{body.expr()}, ser: &seriesNode{from, skip}})
+}
+
+// PowField is f^g for any exponent g, exact where the algebra allows.
+func PowField(f, g Field) (Field, error) {
+	if g.IsExact() {
+		if c, ok := g.Exact.Const(); ok {
+			if q, ok := c.Rat(); ok {
+				return f.Pow(q)
+			}
+		}
+	}
+	return opaque(&Expr{op: "^", args: []*Expr{f.expr(), g.expr()}}), nil
+}
+
 // Text prints the remainder in psol's syntax.
 func (e *Expr) Text() string {
 	switch e.op {
+	case "series":
+		s := "sum(" + Index + "=" + fmt.Sprint(e.ser.from) + "..inf"
+		for _, k := range e.ser.skip {
+			s += fmt.Sprintf(", %s != %d", Index, k)
+		}
+		return s + ", " + trimParens(e.args[0].Text()) + ")"
 	case "sum":
 		if e.sum.Len() > 1 {
 			return "(" + e.sum.Text() + ")"
@@ -292,7 +323,7 @@ func (e *Expr) Text() string {
 		}
 		return wrap(e.args[0]) + e.op + wrap(e.args[1])
 	case "^":
-		return wrap(e.args[0]) + "^(" + e.args[1].sum.Text() + ")"
+		return wrap(e.args[0]) + "^(" + trimParens(e.args[1].Text()) + ")"
 	}
 	return e.op + "(" + trimParens(e.args[0].Text()) + ")"
 }
@@ -322,16 +353,76 @@ func (f Field) Text() string {
 // CompiledField evaluates a field in float64.
 type CompiledField struct {
 	e    *Expr
-	sums map[*Expr]Compiled
+	sums map[*Expr]indexedSum
+}
+
+// indexedSum is a compiled leaf whose coefficients may depend on a series index.
+type indexedSum struct {
+	fixed   Compiled
+	indexed []indexedTerm
+}
+
+type indexedTerm struct {
+	c    coefFunc
+	term cterm
+}
+
+func dependsOnIndex(c Coef) bool {
+	for _, p := range []Poly{c.num, c.den} {
+		for _, t := range p.t {
+			for _, f := range t.m.f {
+				if f.sym.kind == kindSign || f.sym.kind == kindParam && f.sym.name == Index {
+					return true
+				}
+			}
+		}
+	}
+	return false
+}
+
+func compileIndexed(s Sum, env Env) (indexedSum, error) {
+	var fixed, rest []Term
+	for _, t := range s.t {
+		if dependsOnIndex(t.C) {
+			rest = append(rest, t)
+		} else {
+			fixed = append(fixed, t)
+		}
+	}
+	out := indexedSum{}
+	var err error
+	if out.fixed, err = NewSum(fixed...).Compile(env); err != nil {
+		return out, err
+	}
+	for _, t := range rest {
+		cf, err := compileCoef(t.C, env)
+		if err != nil {
+			return out, err
+		}
+		p, _ := t.power().Float64()
+		out.indexed = append(out.indexed, indexedTerm{cf, cterm{1, p, t.L, t.K, t.M, t.Sin}})
+	}
+	return out, nil
+}
+
+func (s indexedSum) at(r, theta, n float64) float64 {
+	v := s.fixed.At(r, theta)
+	for _, t := range s.indexed {
+		c := t.c.at(n)
+		if c != 0 {
+			v += c * Compiled{t: []cterm{t.term}}.At(r, theta)
+		}
+	}
+	return v
 }
 
 // Compile fixes parameters from env for float64 evaluation.
 func (f Field) Compile(env Env) (CompiledField, error) {
-	cf := CompiledField{e: f.expr(), sums: map[*Expr]Compiled{}}
+	cf := CompiledField{e: f.expr(), sums: map[*Expr]indexedSum{}}
 	var walk func(*Expr) error
 	walk = func(e *Expr) error {
 		if e.op == "sum" {
-			c, err := e.sum.Compile(env)
+			c, err := compileIndexed(e.sum, env)
 			cf.sums[e] = c
 			return err
 		}
@@ -346,20 +437,44 @@ func (f Field) Compile(env Env) (CompiledField, error) {
 }
 
 // At is the field's value at (r, θ).
-func (cf CompiledField) At(r, theta float64) float64 { return cf.eval(cf.e, r, theta) }
+func (cf CompiledField) At(r, theta float64) float64 { return cf.eval(cf.e, r, theta, math.NaN()) }
 
-func (cf CompiledField) eval(e *Expr, r, theta float64) float64 {
+// MaxSeriesTerms caps the summation of a series read from text.
+const MaxSeriesTerms = 200000
+
+func (cf CompiledField) eval(e *Expr, r, theta, n float64) float64 {
 	switch e.op {
 	case "sum":
-		return cf.sums[e].At(r, theta)
+		return cf.sums[e].at(r, theta, n)
 	case "+":
-		return cf.eval(e.args[0], r, theta) + cf.eval(e.args[1], r, theta)
+		return cf.eval(e.args[0], r, theta, n) + cf.eval(e.args[1], r, theta, n)
 	case "*":
-		return cf.eval(e.args[0], r, theta) * cf.eval(e.args[1], r, theta)
+		return cf.eval(e.args[0], r, theta, n) * cf.eval(e.args[1], r, theta, n)
 	case "/":
-		return cf.eval(e.args[0], r, theta) / cf.eval(e.args[1], r, theta)
+		return cf.eval(e.args[0], r, theta, n) / cf.eval(e.args[1], r, theta, n)
 	case "^":
-		return math.Pow(cf.eval(e.args[0], r, theta), cf.eval(e.args[1], r, theta))
+		return math.Pow(cf.eval(e.args[0], r, theta, n), cf.eval(e.args[1], r, theta, n))
+	case "series":
+		skip := map[int]bool{}
+		for _, k := range e.ser.skip {
+			skip[k] = true
+		}
+		sum, quiet := 0.0, 0
+		for k := e.ser.from; k < e.ser.from+MaxSeriesTerms; k++ {
+			if skip[k] {
+				continue
+			}
+			t := cf.eval(e.args[0], r, theta, float64(k))
+			sum += t
+			if math.Abs(t)*float64(k) <= 1e-15*math.Max(1, math.Abs(sum)) {
+				if quiet++; quiet >= 4 {
+					break
+				}
+			} else {
+				quiet = 0
+			}
+		}
+		return sum
 	}
-	return unaryFloat[e.op](cf.eval(e.args[0], r, theta))
+	return unaryFloat[e.op](cf.eval(e.args[0], r, theta, n))
 }

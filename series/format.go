@@ -174,7 +174,7 @@ func printTerm(t Term, st style) (neg bool, body string) {
 		}
 		coef = paren(printPoly(num, st), st)
 	} else if len(vars) == 0 {
-		return false, printCoef(c, st)
+		return neg, printCoef(c, st)
 	} else if st.latex {
 		coef = `\frac{` + printPoly(c.num, st) + "}{" + factoredPoly(c.den, st) + "}"
 	} else {

@@ -212,35 +212,14 @@ func renderJSON(w io.Writer, v *view) error {
 // ray shift plus a series.
 func (v *view) seriesStages(sol *domain.Solution, ps *domain.SeriesParts) {
 	side := sol.Sides[0]
-	plus := func(a, b string) string {
-		switch {
-		case a == "0":
-			return b
-		case strings.HasPrefix(b, "-"):
-			return a + " - " + b[1:]
-		}
-		return a + " + " + b
-	}
-	join := func(closed series.Sum, ser series.Series, latex bool) string {
-		c, t := closed.Text(), ser.Text()
-		if latex {
-			c, t = closed.LaTeX(), ser.LaTeX()
-		}
-		switch {
-		case ser.IsZero():
-			return c
-		case closed.IsZero():
-			return t
-		}
-		return plus(c, t)
-	}
+	join := domain.JoinSeries
 	up, upSer := sol.Particular, ps.Particular
 	h, hSer := sol.Harmonic, ps.Harmonic
 	v.Particular = exactStage("particular", "u_p = "+join(up, upSer, false), join(up, upSer, true), "u_p")
 	v.Trace = exactStage("trace", traceText(side)+" = "+join(side.Trace, ps.Trace, false), join(side.Trace, ps.Trace, true), traceTeX(side))
 	v.Correction = exactStage("correction", ps.Correction.Text(), ps.Correction.LaTeX(), `g - w - `+traceTeX(side))
 	v.Harmonic = exactStage("harmonic", join(h, hSer, false), join(h, hSer, true), "u_h")
-	v.Solution = exactStage("solution", "u = "+join(up.Add(h), ps.U, false), join(up.Add(h), ps.U, true), "u")
 	shift := sol.Harmonic.Text()
+	v.Solution = exactStage("solution", "u = "+sol.Formula(false), sol.Formula(true), "u")
 	v.Steps = append(v.Steps, "the rays' values are carried by the harmonic shift w = "+shift+"; the modes vanish on the rays")
 }

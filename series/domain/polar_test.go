@@ -7,6 +7,7 @@ import (
 	"strings"
 	"testing"
 
+	"psol/parse"
 	"psol/series"
 	"psol/series/domain"
 )
@@ -341,6 +342,21 @@ func TestSectorNumeric(t *testing.T) {
 			fd := (4*lap(5e-3) - lap(1e-2)) / 3
 			if want := f.At(r, th); math.Abs(fd-want) > 1e-5*math.Max(1, math.Abs(want)) {
 				t.Errorf("%s on α = %s at (%.3f, %.3f): FD Laplacian %.8g, f = %.8g", c.eq, c.alpha, r, th, fd, want)
+			}
+		}
+		// The printed formula parses back to the same values (the round trip of series text).
+		back, err := parse.Expression("round trip", sol.Formula(false), nil)
+		if err != nil {
+			t.Fatalf("%s: %v", sol.Formula(false), err)
+		}
+		bc, err := back.Compile(nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, pt := range [][2]float64{{0.5, 0.4 * alpha}, {0.8, 0.7 * alpha}} {
+			want, _, _ := ev.At(pt[0], pt[1])
+			if got := bc.At(pt[0], pt[1]); math.Abs(got-want) > 1e-10 {
+				t.Errorf("%s: printed formula gives %.12f at %v, the solver %.12f", c.eq, got, pt, want)
 			}
 		}
 		if c.g != nil {

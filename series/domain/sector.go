@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"strings"
 
 	"psol/ansatz"
 	"psol/series"
@@ -524,4 +525,32 @@ func closedChecks(u, f series.Sum, startD, endD bool, alpha series.Coef) []Check
 		checks = append(checks, Check{Name: "u_p on the ray (closed part)", Side: ray.name, Exact: true, Residual: res})
 	}
 	return checks
+}
+
+// Formula is u in psol's syntax (or LaTeX): the closed parts, then any series.
+func (s *Solution) Formula(latex bool) string {
+	if s.Series == nil {
+		if latex {
+			return series.JoinLaTeX(s.Particular, s.Harmonic)
+		}
+		return series.JoinText(s.Particular, s.Harmonic)
+	}
+	return JoinSeries(s.Particular.Add(s.Harmonic), s.Series.U, latex)
+}
+
+// JoinSeries prints closed + ser, leaving out a part that is zero.
+func JoinSeries(closed series.Sum, ser series.Series, latex bool) string {
+	c, t := closed.Text(), ser.Text()
+	if latex {
+		c, t = closed.LaTeX(), ser.LaTeX()
+	}
+	switch {
+	case ser.IsZero():
+		return c
+	case closed.IsZero():
+		return t
+	case strings.HasPrefix(t, "-"):
+		return c + " - " + t[1:]
+	}
+	return c + " + " + t
 }
