@@ -55,6 +55,10 @@ func makeCoef(num, den Poly) (Coef, error) {
 		m := Poly{[]pterm{{clear, one}}}
 		num, den = num.Mul(m), den.Mul(m)
 	}
+	num, den = cancelIndexRoots(num, den)
+	if den.isMonomial() {
+		return makeCoef(num, den)
+	}
 	g := commonMonomial(Poly{append(append([]pterm(nil), num.t...), den.t...)})
 	if len(g.f) > 0 {
 		inv, _ := Poly{[]pterm{{g, one}}}.PowRat(big.NewRat(-1, 1))

@@ -163,7 +163,11 @@ func (s Series) phiText(nu Coef, st style) string {
 		fn = "sin"
 	}
 	if st.latex {
-		return `\` + fn + `\left(` + nu.LaTeX() + ` \theta\right)`
+		arg := nu.LaTeX()
+		if _, ok := nu.Rat(); !ok && strings.ContainsAny(arg, "+-") {
+			arg = `\left(` + arg + `\right)`
+		}
+		return `\` + fn + `\left(` + arg + ` \theta\right)`
 	}
 	arg := nu.Text()
 	if strings.ContainsAny(arg, " ") {

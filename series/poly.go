@@ -28,6 +28,9 @@ func RatPoly(x *big.Rat) Poly {
 
 // SymPoly is the polynomial s^e.
 func SymPoly(s Symbol, e *big.Rat) Poly {
+	if e.Sign() == 0 {
+		return RatPoly(one)
+	}
 	m, k := normalizeRoots([]factor{{s, new(big.Rat).Set(e)}})
 	return Poly{[]pterm{{m: m, c: k}}}
 }

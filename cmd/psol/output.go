@@ -158,7 +158,11 @@ func renderText(w io.Writer, v *view) error {
 	}
 	line(w, "check", checkSummary(v.Checks))
 	for _, p := range v.Points {
-		line(w, "point", fmt.Sprintf("r = %.10g, theta = %.10g (x = %.10g, y = %.10g): u = %.12g", p.R, p.Theta, p.X, p.Y, p.U))
+		at := fmt.Sprintf("r = %.10g, theta = %.10g (x = %.10g, y = %.10g): u = %.12g", p.R, p.Theta, p.X, p.Y, p.U)
+		if p.Terms > 0 {
+			at += fmt.Sprintf(" (series summed to n = %d, tail estimate %.1e)", p.Terms, p.Error)
+		}
+		line(w, "point", at)
 	}
 	for _, s := range v.Warnings {
 		line(w, "note", s)
