@@ -1,6 +1,9 @@
 package series
 
-import "math/big"
+import (
+	"math"
+	"math/big"
+)
 
 // Cancellation of common linear factors n − k between the numerator and the
 // denominator of a coefficient, for the index n of a series' general term:
@@ -89,7 +92,11 @@ func cancelIndexRoots(num, den Poly) (Poly, Poly) {
 		return num, den
 	}
 	changed := false
+	df, nf := probe(dc), probe(nc)
 	for _, k := range rootCandidates {
+		if kf, _ := k.Float64(); !nearRoot(df, kf) || !nearRoot(nf, kf) {
+			continue // the exact division below is costly; a float probe rules most k out
+		}
 		for {
 			dq, ok := divideRoot(dc, k)
 			if !ok {
@@ -109,4 +116,41 @@ func cancelIndexRoots(num, den Poly) (Poly, Poly) {
 		return num, den
 	}
 	return fromIndexPoly(nc), fromIndexPoly(dc)
+}
+
+// probe turns index-polynomial coefficients into floats, every atom given a
+// fixed generic value, so that a root test in float64 can rule candidates out.
+func probe(cs []Poly) []float64 {
+	out := make([]float64, len(cs))
+	for i, c := range cs {
+		for _, t := range c.t {
+			v, _ := t.c.Float64()
+			for _, f := range t.m.f {
+				e, _ := f.exp.Float64()
+				v *= math.Pow(genericValue(f.sym), e)
+			}
+			out[i] += v
+		}
+	}
+	return out
+}
+
+func genericValue(s Symbol) float64 {
+	if s.kind == kindPi {
+		return math.Pi
+	}
+	h := 0.0
+	for i, c := range s.key() {
+		h += float64(c) * float64(i+1)
+	}
+	return 1.25 + math.Mod(h*0.6180339887, 1) // in (1.25, 2.25), never ±1
+}
+
+func nearRoot(cs []float64, k float64) bool {
+	v, scale := 0.0, 0.0
+	for i := len(cs) - 1; i >= 0; i-- {
+		v = v*k + cs[i]
+		scale = scale*math.Abs(k) + math.Abs(cs[i])
+	}
+	return math.Abs(v) <= 1e-9*scale
 }

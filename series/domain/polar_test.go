@@ -369,3 +369,55 @@ func TestSectorNumeric(t *testing.T) {
 		}
 	}
 }
+
+func benchSolve(b *testing.B, equation string, d domain.Domain, bcs ...string) {
+	f, err := parse.Equation(equation, nil)
+	if err != nil {
+		b.Fatal(err)
+	}
+	var conds []domain.Condition
+	for _, s := range bcs {
+		c, err := parse.Condition(s, d.Sides(), nil)
+		if err != nil {
+			b.Fatal(err)
+		}
+		conds = append(conds, c)
+	}
+	b.ReportAllocs()
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		if _, err := domain.Solve(d, f, conds); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func BenchmarkSolveAnnulus(b *testing.B) {
+	benchSolve(b, "lap(u) = -1 + x*y", annulus(b, "1/2", "2"), "inner: dn(u) + 3u = cos(theta)", "outer: u = x")
+}
+
+func BenchmarkSolveSector(b *testing.B) {
+	benchSolve(b, "lap(u) = -2 + x", sector(b, "1", "3*pi/2"), "arc: u = 0", "start: u = 0", "end: u = 1")
+}
+
+// BenchmarkSectorSum sums the re-entrant sector's series to 1e-12 at 1000
+// points spread over the sector, r up to 0.99R.
+func BenchmarkSectorSum(b *testing.B) {
+	sol, err := trySolve("lap(u) = -2", sector(b, "1", "3*pi/2"), []string{"arc: u = 0", "start: u = 0", "end: u = 0"}, nil)
+	if err != nil {
+		b.Fatal(err)
+	}
+	ev, err := sol.Compile(nil, 1e-12, 1<<20)
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		for k := 0; k < 1000; k++ {
+			r := 0.01 + 0.98*float64(k%40)/39
+			th := 3 * math.Pi / 2 * float64(k/40+1) / 26
+			ev.At(r, th)
+		}
+	}
+}
