@@ -41,6 +41,22 @@ var scenarios = []scenario{
 		args: []string{"solve", "50*lap(u) = -300", "--disk", "0.2", "--bc", "u = 0.002*cos(2theta)", "--at", "x=0.1,y=0"},
 	},
 	{
+		name:  "sleeve",
+		title: "Charged rod inside a grounded sleeve",
+		meaning: "The gap between a uniformly charged rod (radius a) and a grounded coaxial sleeve (radius b):\n" +
+			"lap(u) = 0 in the gap, Gauss's law fixes the field at the rod, dn(u) = rho*a/(2*eps) there\n" +
+			"(outward from the gap is towards the axis), and u = 0 on the sleeve.",
+		args: []string{"solve", "lap(u) = 0", "--annulus", "a,b", "--bc", "inner: dn(u) = rho*a/(2*eps)", "--bc", "outer: u = 0"},
+	},
+	{
+		name:  "bracket",
+		title: "Twisted bar with a re-entrant corner",
+		meaning: "A bar whose section is three quarters of a disk of radius 1 (a 270 degree sector), twisted:\n" +
+			"the stress function has lap(u) = -2 and u = 0 on the boundary. The corner exponent 2/3 < 1\n" +
+			"says the shear stress is unbounded at the re-entrant corner: real parts need a fillet.",
+		args: []string{"solve", "lap(u) = -2", "--sector", "1,3*pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--at", "r=0.5,theta=3*pi/4"},
+	},
+	{
 		name:  "plate",
 		title: "Charged disk with a non-uniform charge",
 		meaning: "A thin disk of unit radius carries charge density growing to one side, lap(u) = -(1 + x),\n" +

@@ -40,6 +40,7 @@ type view struct {
 	Steps      []string   `json:"steps,omitempty"`
 	Warnings   []string   `json:"warnings"`
 	showSteps  bool
+	checkScope string // how far an exact check reaches, for series
 }
 
 func exactStage(label, text, latex, tex string) stage {
@@ -156,7 +157,7 @@ func renderText(w io.Writer, v *view) error {
 	for _, s := range []stage{v.Particular, v.Trace, v.Correction, v.Harmonic, v.Solution} {
 		line(w, s.Label, s.Text)
 	}
-	line(w, "check", checkSummary(v.Checks))
+	line(w, "check", checkSummary(v.Checks)+v.checkScope)
 	for _, p := range v.Points {
 		at := fmt.Sprintf("r = %.10g, theta = %.10g (x = %.10g, y = %.10g): u = %.12g", p.R, p.Theta, p.X, p.Y, p.U)
 		if p.Terms > 0 {
@@ -225,5 +226,6 @@ func (v *view) seriesStages(sol *domain.Solution, ps *domain.SeriesParts) {
 	v.Harmonic = exactStage("harmonic", join(h, hSer, false), join(h, hSer, true), "u_h")
 	shift := sol.Harmonic.Text()
 	v.Solution = exactStage("solution", "u = "+sol.Formula(false), sol.Formula(true), "u")
+	v.checkScope = "; the series term by term, for every n"
 	v.Steps = append(v.Steps, "the rays' values are carried by the harmonic shift w = "+shift+"; the modes vanish on the rays")
 }

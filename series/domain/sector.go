@@ -171,8 +171,7 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 	for _, name := range []string{"start", "end"} {
 		sol.Sides = append(sol.Sides, Side{Condition: p.conds[name], At: "r, " + map[string]string{"start": "0", "end": s.Alpha.Text()}[name], Data: p.conds[name].G.Exact})
 	}
-	sol.Checks = b.checks(general, shift, start, end, p)
-	sol.Checks = append(sol.Checks, closedChecks(closed, p.f.Sub(expanded), start.dirichlet, end.dirichlet, s.Alpha)...)
+	sol.Checks = mergeChecks(append(b.checks(general, shift, start, end, p), closedChecks(closed, p.f.Sub(expanded), start.dirichlet, end.dirichlet, s.Alpha, p)...))
 	if nu1 := fam.NuAt(max(fam.From, 1)); nu1.Cmp(big.NewRat(1, 1)) < 0 {
 		sol.Notes = append(sol.Notes, fmt.Sprintf("the corner exponent is %s < 1: the gradient of u is unbounded at the corner r = 0", nu1.RatString()))
 	}
@@ -343,8 +342,8 @@ func (b *sectorBuilder) checks(general modeResult, shift series.Sum, start, end 
 	ode := radialOperator(general.rho, nu.Mul(nu)).Sub(general.source)
 	arcRes := general.bPart.Add(general.a.Mul(general.bScaled)).Sub(general.gamma)
 	checks := []Check{
-		{Name: "lap(u) - f (every mode n)", Exact: true, Residual: ode},
-		{Name: OperatorText(b.cond, "u") + " - g (every mode n)", Side: "arc", Exact: true, Residual: series.Const(arcRes)},
+		{Name: "lap(u) - f", Exact: true, Residual: ode},
+		{Name: OperatorText(b.cond, "u") + " - g", Side: "arc", Exact: true, Residual: series.Const(arcRes)},
 	}
 	alpha := b.s.Alpha
 	for i, ray := range []rayKind{start, end} {
@@ -499,12 +498,12 @@ func thetaParticular(c series.Coef, m int, sin bool, s int) series.Sum {
 
 // closedChecks verifies the ray-adapted part exactly: its Laplacian is the
 // source it took, and it meets the homogeneous ray conditions.
-func closedChecks(u, f series.Sum, startD, endD bool, alpha series.Coef) []Check {
+func closedChecks(u, f series.Sum, startD, endD bool, alpha series.Coef, p *posed) []Check {
 	if u.IsZero() && f.IsZero() {
 		return nil
 	}
-	checks := []Check{{Name: "lap(u_p) - f (closed part)", Exact: true, Residual: u.Laplacian().Sub(f)}}
-	for i, ray := range []struct {
+	checks := []Check{{Name: "lap(u) - f", Exact: true, Residual: u.Laplacian().Sub(f)}}
+	for _, ray := range []struct {
 		name string
 		d    bool
 		at   series.Coef
@@ -521,8 +520,7 @@ func closedChecks(u, f series.Sum, startD, endD bool, alpha series.Coef) []Check
 			}
 			res = res.Add(series.NewSum(series.Term{C: v, P: t.P, L: t.L}))
 		}
-		_ = i
-		checks = append(checks, Check{Name: "u_p on the ray (closed part)", Side: ray.name, Exact: true, Residual: res})
+		checks = append(checks, Check{Name: OperatorText(p.conds[ray.name], "u") + " - g", Side: ray.name, Exact: true, Residual: res})
 	}
 	return checks
 }
@@ -553,4 +551,24 @@ func JoinSeries(closed series.Sum, ser series.Series, latex bool) string {
 		return c + " - " + t[1:]
 	}
 	return c + " + " + t
+}
+
+// mergeChecks adds up the residuals of checks with the same name and side:
+// a sector's closed part and its series are verified separately.
+func mergeChecks(cs []Check) []Check {
+	var out []Check
+	for _, c := range cs {
+		merged := false
+		for i := range out {
+			if out[i].Name == c.Name && out[i].Side == c.Side {
+				out[i].Residual = out[i].Residual.Add(c.Residual)
+				out[i].Exact = out[i].Exact && c.Exact
+				merged = true
+			}
+		}
+		if !merged {
+			out = append(out, c)
+		}
+	}
+	return out
 }
