@@ -66,13 +66,101 @@ func (lw *lowerer) wrapParse(err error) error {
 }
 
 func (lw *lowerer) choice(c *choice) (value, error) {
-	if c.Then != nil {
-		return value{}, lw.fail(c.Pos, "piecewise data (cond ? a : b) is not supported yet")
+	if c.Then == nil {
+		if len(c.Cond.Rest) > 0 {
+			return value{}, lw.fail(c.Cond.Rest[0].Pos, "a comparison belongs inside cond ? a : b")
+		}
+		return lw.additive(c.Cond.Left)
 	}
-	if len(c.Cond.Rest) > 0 {
-		return value{}, lw.fail(c.Cond.Rest[0].Pos, "a comparison belongs inside cond ? a : b")
+	lo, hi, err := lw.interval(c.Cond)
+	if err != nil {
+		return value{}, err
 	}
-	return lw.additive(c.Cond.Left)
+	a, err := lw.choice(c.Then)
+	if err != nil {
+		return value{}, err
+	}
+	b, err := lw.choice(c.Else)
+	if err != nil {
+		return value{}, err
+	}
+	if a.hasUnknown() || b.hasUnknown() {
+		return value{}, lw.fail(c.Pos, "u may not appear inside cond ? a : b")
+	}
+	return value{f: series.Piecewise(lo, hi, a.f, b.f)}, nil
+}
+
+// interval reads a condition on θ, such as "theta < pi" or "0 < theta < pi/2",
+// as [lo·π, hi·π) within [0, 2π).
+func (lw *lowerer) interval(c *compare) (lo, hi *big.Rat, err error) {
+	if len(c.Rest) == 0 || len(c.Rest) > 2 {
+		return nil, nil, lw.fail(c.Pos, "the condition compares theta with break points, as in 0 < theta < pi/2")
+	}
+	sides := []*additive{c.Left}
+	for _, t := range c.Rest {
+		sides = append(sides, t.Right)
+	}
+	at := -1 // which side is θ
+	bounds := make([]*big.Rat, len(sides))
+	for i, sd := range sides {
+		v, err := lw.additive(sd)
+		if err != nil {
+			return nil, nil, err
+		}
+		if v.f.IsExact() && v.f.Exact.Equal(series.Theta) {
+			at = i
+			continue
+		}
+		k, ok := constant(v)
+		if !ok {
+			return nil, nil, lw.fail(sd.Pos, "a condition compares theta with constants")
+		}
+		q, err := k.Div(series.SymCoef(series.Pi))
+		r, isRat := q.Rat()
+		if err != nil || !isRat {
+			return nil, nil, lw.fail(sd.Pos, "break points must be rational multiples of pi")
+		}
+		bounds[i] = r
+	}
+	if at < 0 {
+		return nil, nil, lw.fail(c.Pos, "the condition must involve theta")
+	}
+	less := func(op string) bool { return op == "<" || op == "<=" }
+	// Each comparison is between θ and a bound.
+	lo, hi = new(big.Rat), big.NewRat(2, 1)
+	for i, t := range c.Rest {
+		left, right := i, i+1
+		switch {
+		case left == at && less(t.Op): // θ < c
+			hi = minRat(hi, bounds[right])
+		case left == at: // θ > c
+			lo = maxRat(lo, bounds[right])
+		case right == at && less(t.Op): // c < θ
+			lo = maxRat(lo, bounds[left])
+		case right == at: // c > θ
+			hi = minRat(hi, bounds[left])
+		default:
+			return nil, nil, lw.fail(t.Pos, "each comparison must involve theta")
+		}
+	}
+	if lo.Cmp(hi) >= 0 {
+		return nil, nil, lw.fail(c.Pos, "the condition holds nowhere in 0 <= theta < 2*pi")
+	}
+	return lo, hi, nil
+}
+
+func maxRat(a, b *big.Rat) *big.Rat {
+	if a.Cmp(b) >= 0 {
+		return a
+	}
+	return b
+}
+
+func minRat(a, b *big.Rat) *big.Rat {
+	if a.Cmp(b) <= 0 {
+		return a
+	}
+	return b
 }
 
 func (lw *lowerer) additive(a *additive) (value, error) {

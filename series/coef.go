@@ -309,6 +309,14 @@ func (s Symbol) float(env Env) (float64, error) {
 		return f, nil
 	case kindPi:
 		return math.Pi, nil
+	case kindCosN, kindSinN:
+		v, err := env.float(Index)
+		q, _ := new(big.Rat).SetString(s.name)
+		x := ratFloat(q) * math.Pi * v
+		if s.kind == kindCosN {
+			return math.Cos(x), err
+		}
+		return math.Sin(x), err
 	case kindSign:
 		v, err := env.float(s.name)
 		if math.Mod(math.Abs(v), 2) == 1 {
@@ -406,6 +414,18 @@ func (p Poly) subst(env Env) (Coef, error) {
 			case f.sym.kind == kindParam:
 				if v, ok := env[f.sym.name]; ok {
 					base = v
+				}
+			case f.sym.kind == kindCosN || f.sym.kind == kindSinN:
+				if v, ok := env[Index]; ok {
+					q, _ := new(big.Rat).SetString(f.sym.name)
+					cs, sn, ok := unitCircle(SymCoef(Pi).Mul(v).MulRat(q))
+					if !ok {
+						return Coef{}, ErrNoExactAngle
+					}
+					base = cs
+					if f.sym.kind == kindSinN {
+						base = sn
+					}
 				}
 			case f.sym.kind == kindSign:
 				if v, ok := env[f.sym.name]; ok {

@@ -11,22 +11,24 @@ import (
 // no closed form, a remainder kept as an expression tree that evaluates in
 // float64. Later stages hand the remainder to numerical methods.
 type Field struct {
-	Exact Sum
-	Rest  *Expr // nil when the field is exact
+	Exact  Sum
+	Rest   *Expr   // nil when the field is exact
+	Pieces []Piece // when not nil, the field is these pieces in θ (Exact and Rest unused)
 }
 
 // Exact wraps a sum as a field.
 func ExactField(s Sum) Field { return Field{Exact: s} }
 
-// IsExact reports whether f has no remainder.
-func (f Field) IsExact() bool { return f.Rest == nil }
+// IsExact reports whether f is a single exact sum.
+func (f Field) IsExact() bool { return f.Rest == nil && f.Pieces == nil }
 
 // Expr is a node of a remainder: a leaf sum, or an operation on nodes.
 type Expr struct {
 	op   string // "sum", "+", "*", "/", "^", "series", or a function name
 	sum  Sum
 	args []*Expr
-	ser  *seriesNode
+	ser    *seriesNode
+	pieces []Piece
 }
 
 // seriesNode is Σ_{n=from}^{∞} body(n), skipping the listed n.
@@ -36,6 +38,9 @@ type seriesNode struct {
 }
 
 func (f Field) expr() *Expr {
+	if f.IsPiecewise() {
+		return &Expr{op: "pieces", pieces: f.Pieces}
+	}
 	leaf := &Expr{op: "sum", sum: f.Exact}
 	if f.Rest == nil {
 		return leaf
@@ -50,6 +55,10 @@ func opaque(e *Expr) Field { return Field{Rest: e} }
 
 // Add is f + g.
 func (f Field) Add(g Field) Field {
+	if f.IsPiecewise() || g.IsPiecewise() {
+		h, _ := liftPieces(f, g, func(a, b Field) (Field, error) { return a.Add(b), nil })
+		return h
+	}
 	rest := f.Rest
 	switch {
 	case rest == nil:
@@ -65,6 +74,10 @@ func (f Field) Neg() Field { return f.Scale(IntCoef(-1)) }
 
 // Scale is c·f.
 func (f Field) Scale(c Coef) Field {
+	if f.IsPiecewise() {
+		h, _ := mapPieces(f, func(a Field) (Field, error) { return a.Scale(c), nil })
+		return h
+	}
 	out := Field{Exact: f.Exact.Scale(c)}
 	if f.Rest == nil || c.Equal(IntCoef(1)) {
 		out.Rest = f.Rest
@@ -92,6 +105,10 @@ func (e *Expr) constFactor() (Coef, bool) {
 
 // Mul is f·g.
 func (f Field) Mul(g Field) Field {
+	if f.IsPiecewise() || g.IsPiecewise() {
+		h, _ := liftPieces(f, g, func(a, b Field) (Field, error) { return a.Mul(b), nil })
+		return h
+	}
 	if f.IsExact() && g.IsExact() {
 		return ExactField(f.Exact.Mul(g.Exact))
 	}
@@ -100,6 +117,9 @@ func (f Field) Mul(g Field) Field {
 
 // Div is f/g; exact when g is a single term free of angles and logarithms.
 func (f Field) Div(g Field) (Field, error) {
+	if f.IsPiecewise() || g.IsPiecewise() {
+		return liftPieces(f, g, func(a, b Field) (Field, error) { return a.Div(b) })
+	}
 	if g.IsExact() && g.Exact.IsZero() {
 		return Field{}, ErrDivideByZero
 	}
@@ -113,6 +133,9 @@ func (f Field) Div(g Field) (Field, error) {
 
 // Pow is f^g for a constant rational exponent g, exact where the algebra allows.
 func (f Field) Pow(q *big.Rat) (Field, error) {
+	if f.IsPiecewise() {
+		return mapPieces(f, func(a Field) (Field, error) { return a.Pow(q) })
+	}
 	if f.IsExact() {
 		s, err := f.Exact.Pow(q)
 		if err == nil {
@@ -140,6 +163,14 @@ func IsFunction(name string) bool { _, ok := unaryFloat[name]; return ok }
 
 // Apply is fn(f): exact where the algebra has the value, a remainder node otherwise.
 func Apply(fn string, f Field) (Field, error) {
+	if f.IsPiecewise() {
+		return mapPieces(f, func(a Field) (Field, error) { return Apply(fn, a) })
+	}
+	if fn == "abs" && f.IsExact() {
+		if p, ok := absPieces(f.Exact); ok {
+			return p, nil
+		}
+	}
 	if f.IsExact() {
 		s, ok, err := applyExact(fn, f.Exact)
 		if err != nil {
@@ -291,6 +322,9 @@ func SeriesField(from int, skip []int, body Field) Field {
 
 // PowField is f^g for any exponent g, exact where the algebra allows.
 func PowField(f, g Field) (Field, error) {
+	if f.IsPiecewise() || g.IsPiecewise() {
+		return liftPieces(f, g, PowField)
+	}
 	if g.IsExact() {
 		if c, ok := g.Exact.Const(); ok {
 			if q, ok := c.Rat(); ok {
@@ -303,7 +337,12 @@ func PowField(f, g Field) (Field, error) {
 
 // Text prints the remainder in psol's syntax.
 func (e *Expr) Text() string {
+	if e == nil {
+		return "0"
+	}
 	switch e.op {
+	case "pieces":
+		return "(" + piecesText(e.pieces) + ")"
 	case "series":
 		s := "sum(" + Index + "=" + fmt.Sprint(e.ser.from) + "..inf"
 		for _, k := range e.ser.skip {
@@ -344,6 +383,9 @@ func trimParens(s string) string {
 
 // Text prints the field in psol's syntax.
 func (f Field) Text() string {
+	if f.IsPiecewise() {
+		return piecesText(f.Pieces)
+	}
 	if f.IsExact() {
 		return f.Exact.Text()
 	}
@@ -352,8 +394,9 @@ func (f Field) Text() string {
 
 // CompiledField evaluates a field in float64.
 type CompiledField struct {
-	e    *Expr
-	sums map[*Expr]indexedSum
+	e      *Expr
+	sums   map[*Expr]indexedSum
+	pieces map[*Expr]floatPieces
 }
 
 // indexedSum is a compiled leaf whose coefficients may depend on a series index.
@@ -371,7 +414,7 @@ func dependsOnIndex(c Coef) bool {
 	for _, p := range []Poly{c.num, c.den} {
 		for _, t := range p.t {
 			for _, f := range t.m.f {
-				if f.sym.kind == kindSign || f.sym.kind == kindParam && f.sym.name == Index {
+				if f.sym.kind == kindSign || f.sym.kind == kindCosN || f.sym.kind == kindSinN || f.sym.kind == kindParam && f.sym.name == Index {
 					return true
 				}
 			}
@@ -418,9 +461,14 @@ func (s indexedSum) at(r, theta, n float64) float64 {
 
 // Compile fixes parameters from env for float64 evaluation.
 func (f Field) Compile(env Env) (CompiledField, error) {
-	cf := CompiledField{e: f.expr(), sums: map[*Expr]indexedSum{}}
+	cf := CompiledField{e: f.expr(), sums: map[*Expr]indexedSum{}, pieces: map[*Expr]floatPieces{}}
 	var walk func(*Expr) error
 	walk = func(e *Expr) error {
+		if e.op == "pieces" {
+			p, err := Field{Pieces: e.pieces}.compilePieces(env)
+			cf.pieces[e] = p
+			return err
+		}
 		if e.op == "sum" {
 			c, err := compileIndexed(e.sum, env)
 			cf.sums[e] = c
@@ -444,6 +492,8 @@ const MaxSeriesTerms = 200000
 
 func (cf CompiledField) eval(e *Expr, r, theta, n float64) float64 {
 	switch e.op {
+	case "pieces":
+		return cf.pieces[e].at(r, theta)
 	case "sum":
 		return cf.sums[e].at(r, theta, n)
 	case "+":

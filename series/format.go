@@ -52,13 +52,14 @@ func joinTerms(parts []Sum) []Term {
 
 // style is one output syntax.
 type style struct {
-	latex bool
-	mul   string
+	latex   bool
+	mul     string
+	decimal bool // rationals as 12-digit decimals, for numeric coefficients
 }
 
 var (
-	textStyle  = style{false, "*"}
-	latexStyle = style{true, " "}
+	textStyle  = style{latex: false, mul: "*"}
+	latexStyle = style{latex: true, mul: " "}
 )
 
 func printTerms(ts []Term, st style) string {
@@ -164,6 +165,11 @@ func printTerm(t Term, st style) (neg bool, body string) {
 		neg, c = true, c.Neg()
 	}
 	if c.den.IsZero() {
+		if f, ok := factoredSum(c.num, st); ok { // (1 - (-1)^n)/(pi*n)
+			neg = strings.HasPrefix(f, "-")
+			f = strings.TrimPrefix(f, "-")
+			return neg, strings.Join(append([]string{f}, vars...), st.mul)
+		}
 		if len(vars) == 0 { // a bare sum: its own signs stand
 			return false, printPoly(c.num, st)
 		}
@@ -214,6 +220,27 @@ func printMonomialTerm(t pterm, vars []string, st style) (bool, string) {
 	neg := q.Sign() < 0
 	num := new(big.Int).Abs(q.Num())
 	den := q.Denom()
+	if st.decimal && !q.IsInt() {
+		f, _ := new(big.Rat).Abs(q).Float64()
+		d, _ := new(big.Rat).SetString(strconv.FormatFloat(f, 'g', 12, 64))
+		num, den = d.Num(), big.NewInt(1)
+		if !d.IsInt() {
+			parts := []string{strconv.FormatFloat(f, 'g', 12, 64)}
+			for _, f := range t.m.f {
+				if f.exp.Sign() > 0 {
+					parts = append(parts, atomPower(f.sym, f.exp, st))
+				}
+			}
+			parts = append(parts, vars...)
+			body := strings.Join(parts, st.mul)
+			for _, f := range t.m.f {
+				if f.exp.Sign() < 0 {
+					body += "/" + atomPower(f.sym, new(big.Rat).Neg(f.exp), st)
+				}
+			}
+			return neg, body
+		}
+	}
 	var up, down []string
 	for _, f := range t.m.f {
 		if f.exp.Sign() > 0 {
@@ -306,6 +333,18 @@ func atomPower(s Symbol, e *big.Rat, st style) string {
 			return "(-1)^{" + s.name + "}"
 		}
 		return "(-1)^" + s.name
+	case kindCosN, kindSinN:
+		fn := map[symKind]string{kindCosN: "cos", kindSinN: "sin"}[s.kind]
+		q, _ := new(big.Rat).SetString(s.name)
+		arg := "n*pi"
+		if st.latex {
+			arg = `\frac{` + q.Num().String() + ` n \pi}{` + q.Denom().String() + "}"
+			return power(`\`+fn+arg, e, st)
+		}
+		if q.Num().Int64() != 1 {
+			arg = q.Num().String() + "*" + arg
+		}
+		return power(fn+"("+arg+"/"+q.Denom().String()+")", e, st)
 	case kindLog:
 		if st.latex {
 			arg := s.name
@@ -374,4 +413,47 @@ func factoredPoly(p Poly, st style) string {
 	inv, _ := Poly{[]pterm{{g, one}}}.PowRat(big.NewRat(-1, 1))
 	_, head := printMonomialTerm(pterm{g, one}, nil, st)
 	return head + st.mul + paren(printPoly(p.Mul(inv), st), st)
+}
+
+// factoredSum prints a polynomial whose terms share negative powers with
+// those powers as a denominator: (1 - (-1)^n)/(pi*n). It reports false when
+// there is nothing to factor.
+func factoredSum(p Poly, st style) (string, bool) {
+	if len(p.t) < 2 {
+		return "", false
+	}
+	g := commonMonomial(p)
+	var down []factor
+	for _, f := range g.f {
+		if f.exp.Sign() < 0 {
+			down = append(down, factor{f.sym, f.exp})
+		}
+	}
+	m, _ := normalizeRoots(down)
+	if m.degreeOf(Param(Index)).Sign() == 0 { // only a series' general term is worth the change
+		return "", false
+	}
+	inv, _ := Poly{[]pterm{{m, one}}}.PowRat(big.NewRat(-1, 1))
+	rest := p.Mul(inv)
+	q := rest.content()
+	if rest.t[0].c.Sign() < 0 {
+		q.Neg(q)
+	}
+	rest = rest.ScaleRat(new(big.Rat).Inv(q))
+	_, den := printMonomialTerm(pterm{Poly{[]pterm{{m, one}}}.inverse(), new(big.Rat).Inv(new(big.Rat).Abs(q))}, nil, st)
+	sign := ""
+	if q.Sign() < 0 {
+		sign = "-"
+	}
+	num := printPoly(rest, st)
+	if st.latex {
+		return sign + `\frac{` + num + "}{" + den + "}", true
+	}
+	return sign + "(" + num + ")/(" + den + ")", true
+}
+
+// inverse is the monomial of a single-term polynomial, inverted.
+func (p Poly) inverse() monomial {
+	inv, _ := p.PowRat(big.NewRat(-1, 1))
+	return inv.t[0].m
 }

@@ -47,6 +47,7 @@ type RadialTerm struct {
 // of an exceptional n (a vanishing denominator of the general form).
 type Series struct {
 	Family  Family
+	Inverse bool // scaled terms are (R/r)^ν_n, outside a circle
 	R       Coef // the radius in (r/R)^ν_n
 	General []RadialTerm
 	Special map[int][]RadialTerm
@@ -119,7 +120,12 @@ func (s Series) scaledText(c Coef, nu Coef, st style) string {
 	if st.latex {
 		base, exp = `\left(\frac{r}{`+s.R.LaTeX()+`}\right)`, nu.LaTeX()
 	}
-	if s.R.Equal(IntCoef(1)) {
+	switch {
+	case s.Inverse && st.latex:
+		base = `\left(\frac{` + s.R.LaTeX() + `}{r}\right)`
+	case s.Inverse:
+		base = "(" + wrapText(s.R.Text()) + "/r)"
+	case s.R.Equal(IntCoef(1)):
 		base = "r"
 	}
 	pw := base + "^{" + exp + "}"
@@ -129,9 +135,15 @@ func (s Series) scaledText(c Coef, nu Coef, st style) string {
 			pw = base + "^" + exp
 		}
 	}
-	switch body {
-	case "1":
+	switch {
+	case body == "1":
 		body = pw
+	case topLevelSum(body):
+		if st.latex {
+			body = `\left(` + body + `\right)` + st.mul + pw
+		} else {
+			body = "(" + body + ")" + st.mul + pw
+		}
 	default:
 		body = body + st.mul + pw
 	}
@@ -249,9 +261,16 @@ type coefFunc struct {
 }
 
 type monoFunc struct {
-	c      float64 // coefficient times every atom but n and (−1)^n
+	c      float64 // coefficient times every atom but n, (−1)^n, cos(qπn) and sin(qπn)
 	nPow   float64
 	signed bool
+	trig   []nTrigFactor
+}
+
+// nTrigFactor is cos(qπn)^e or sin(qπn)^e.
+type nTrigFactor struct {
+	q, e float64
+	sin  bool
 }
 
 func compilePoly(p Poly, env Env) ([]monoFunc, error) {
@@ -265,6 +284,10 @@ func compilePoly(p Poly, env Env) ([]monoFunc, error) {
 				mf.nPow, _ = f.exp.Float64()
 			case f.sym.kind == kindSign:
 				mf.signed = true
+			case f.sym.kind == kindCosN || f.sym.kind == kindSinN:
+				q, _ := new(big.Rat).SetString(f.sym.name)
+				e, _ := f.exp.Float64()
+				mf.trig = append(mf.trig, nTrigFactor{ratFloat(q), e, f.sym.kind == kindSinN})
 			default:
 				v, err := f.sym.float(env)
 				if err != nil {
@@ -299,6 +322,13 @@ func evalMonos(ms []monoFunc, n, sign float64) float64 {
 		if m.signed {
 			v *= sign
 		}
+		for _, t := range m.trig {
+			x := math.Cos(t.q * math.Pi * n)
+			if t.sin {
+				x = math.Sin(t.q * math.Pi * n)
+			}
+			v *= math.Pow(x, t.e)
+		}
 		s += v
 	}
 	return s
@@ -325,6 +355,8 @@ type radialFunc struct {
 
 // CompiledSeries evaluates a series in float64.
 type CompiledSeries struct {
+	jump    func(n float64) float64 // a part of each scaled coefficient summed elsewhere
+	inverse bool                    // scaled terms are (R/r)^ν
 	fam     Family
 	slope   float64
 	offset  float64
@@ -355,7 +387,7 @@ func (s Series) Compile(env Env) (CompiledSeries, error) {
 	if err != nil {
 		return CompiledSeries{}, err
 	}
-	cs := CompiledSeries{fam: s.Family, R: R, special: map[int][]radialFunc{}}
+	cs := CompiledSeries{fam: s.Family, R: R, special: map[int][]radialFunc{}, inverse: s.Inverse}
 	cs.slope, _ = s.Family.Slope.Float64()
 	cs.offset, _ = s.Family.Offset.Float64()
 	if cs.general, err = compileRadial(s.General, env); err != nil {
@@ -377,7 +409,7 @@ func (cs CompiledSeries) radial(ts []radialFunc, n, nu, r, lnr float64) float64 
 			continue
 		}
 		if t.scaled {
-			v += c * math.Pow(r/cs.R, nu)
+			v += c * cs.scale(r, nu)
 			continue
 		}
 		x := c
@@ -390,6 +422,13 @@ func (cs CompiledSeries) radial(ts []radialFunc, n, nu, r, lnr float64) float64 
 		v += x
 	}
 	return v
+}
+
+func (cs CompiledSeries) scale(r, nu float64) float64 {
+	if cs.inverse {
+		return math.Pow(cs.R/r, nu)
+	}
+	return math.Pow(r/cs.R, nu)
 }
 
 // Summed is a series value with its truncation.
@@ -416,6 +455,9 @@ func (cs CompiledSeries) At(r, theta, tol float64, maxTerms int) Summed {
 			ts = cs.general
 		}
 		rho := cs.radial(ts, nf, nu, r, lnr)
+		if cs.jump != nil {
+			rho -= cs.jump(nf) * cs.scale(r, nu)
+		}
 		phi := math.Cos(nu * theta)
 		if cs.fam.Sin {
 			phi = math.Sin(nu * theta)
@@ -536,4 +578,22 @@ func (s Series) modeIntegral(ts []RadialTerm, aOverPi *big.Rat, n, sign Coef) (C
 		radial = radial.Add(t.C.Mul(v))
 	}
 	return radial.Mul(angular), nil
+}
+
+// topLevelSum reports a printed expression with a + or − outside brackets.
+func topLevelSum(s string) bool {
+	depth := 0
+	for i := 0; i < len(s); i++ {
+		switch s[i] {
+		case '(', '{':
+			depth++
+		case ')', '}':
+			depth--
+		case '+', '-':
+			if depth == 0 && i > 0 && s[i-1] == ' ' {
+				return true
+			}
+		}
+	}
+	return false
 }

@@ -15,6 +15,8 @@ const (
 	kindParam                // a parameter such as a, mu, G
 	kindLog                  // ln of a prime or of a parameter
 	kindSign                 // (−1)^n for a whole-number parameter n
+	kindCosN                 // cos(qπn) for the index n, q in (0, 1) (name: q)
+	kindSinN                 // sin(qπn)
 )
 
 // Symbol is one atom of a coefficient. Atoms are treated as independent
@@ -43,6 +45,10 @@ func (s Symbol) key() string {
 		return "ln(" + s.name + ")"
 	case kindSign:
 		return "(-1)^" + s.name
+	case kindCosN:
+		return "cos(" + s.name + "*pi*n)"
+	case kindSinN:
+		return "sin(" + s.name + "*pi*n)"
 	}
 	return s.name
 }

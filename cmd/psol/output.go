@@ -55,8 +55,8 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	f := sol.Source
 	var conds, condsTeX []string
 	for _, s := range sol.Sides {
-		conds = append(conds, s.Condition.Side+": "+domain.OperatorText(s.Condition, "u")+" = "+s.Data.Text())
-		condsTeX = append(condsTeX, operatorTeX(s.Condition, "u")+" = "+s.Data.LaTeX()+`\ \text{on `+s.Condition.Side+"}")
+		conds = append(conds, s.Condition.Side+": "+domain.OperatorText(s.Condition, "u")+" = "+s.DataText)
+		condsTeX = append(condsTeX, operatorTeX(s.Condition, "u")+" = "+s.DataLaTeX+`\ \text{on `+s.Condition.Side+"}")
 	}
 	v.Problem = exactStage("problem",
 		"lap(u) = "+f.Text()+" on "+pr.domain.Describe()+"; "+strings.Join(conds, "; "),
@@ -75,7 +75,7 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 		coTeX = append(coTeX, series.JoinLaTeX(s.Data, s.Trace.Neg()))
 	}
 	side := sol.Sides[0]
-	if sol.Series != nil { // rays carry no trace: their data is met by the eigenfunctions and the shift
+	if _, ok := sol.Domain.(domain.Sector); ok { // rays carry no trace: their data is met by the eigenfunctions and the shift
 		tr, trTeX, co, coTeX = tr[:1], trTeX[:1], co[:1], coTeX[:1]
 	}
 	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(trTeX, ", "), traceTeX(side))
@@ -84,6 +84,9 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	v.Solution = exactStage("solution", "u = "+series.JoinText(sol.Particular, sol.Harmonic), series.JoinLaTeX(sol.Particular, sol.Harmonic), "u")
 	if ps := sol.Series; ps != nil {
 		v.seriesStages(sol, ps)
+	}
+	if sol.Numeric {
+		v.approximate(sol)
 	}
 	for _, c := range sol.Checks {
 		v.Checks = append(v.Checks, checkOut{Name: c.Name, Side: c.Side, Exact: c.Exact, Formula: c.Residual.Text(), Residual: residualSize(c.Residual, pr.env)})
@@ -222,10 +225,33 @@ func (v *view) seriesStages(sol *domain.Solution, ps *domain.SeriesParts) {
 	h, hSer := sol.Harmonic, ps.Harmonic
 	v.Particular = exactStage("particular", "u_p = "+join(up, upSer, false), join(up, upSer, true), "u_p")
 	v.Trace = exactStage("trace", traceText(side)+" = "+join(side.Trace, ps.Trace, false), join(side.Trace, ps.Trace, true), traceTeX(side))
-	v.Correction = exactStage("correction", ps.Correction.Text(), ps.Correction.LaTeX(), `g - w - `+traceTeX(side))
+	corr := side.Data.Sub(side.Trace)
+	lhs := `g - ` + traceTeX(side)
+	if _, ok := sol.Domain.(domain.Sector); ok {
+		corr, lhs = series.Sum{}, `g - w - `+traceTeX(side)
+		v.Steps = append(v.Steps, "the rays' values are carried by the harmonic shift w = "+h.Text()+"; the modes vanish on the rays")
+	}
+	v.Correction = exactStage("correction", join(corr, ps.Correction, false), join(corr, ps.Correction, true), lhs)
 	v.Harmonic = exactStage("harmonic", join(h, hSer, false), join(h, hSer, true), "u_h")
-	shift := sol.Harmonic.Text()
 	v.Solution = exactStage("solution", "u = "+sol.Formula(false), sol.Formula(true), "u")
 	v.checkScope = "; the series term by term, for every n"
-	v.Steps = append(v.Steps, "the rays' values are carried by the harmonic shift w = "+shift+"; the modes vanish on the rays")
+}
+
+// approximate reprints the stages that carry numeric coefficients as decimals, marked ≈.
+func (v *view) approximate(sol *domain.Solution) {
+	mark := func(st *stage, text, latex string) {
+		st.Text, st.LaTeX, st.Exact = text, latex, false
+	}
+	var co, coTeX []string
+	for _, s := range sol.Sides {
+		prefix := ""
+		if len(sol.Sides) > 1 {
+			prefix = s.Condition.Side + ": "
+		}
+		c := s.Data.Sub(s.Trace)
+		co, coTeX = append(co, prefix+"≈ "+c.TextApprox()), append(coTeX, c.LaTeXApprox())
+	}
+	mark(&v.Correction, strings.Join(co, "; "), strings.Join(coTeX, ", "))
+	mark(&v.Harmonic, "≈ "+sol.Harmonic.TextApprox(), sol.Harmonic.LaTeXApprox())
+	mark(&v.Solution, "u ≈ "+sol.U.TextApprox(), sol.U.LaTeXApprox())
 }

@@ -80,6 +80,7 @@ func evaluate(sol *domain.Solution, env series.Env, pts []point, tol float64, ma
 			return &parse.Error{Label: "--at", Input: pts[i].Input, Msg: "the point lies outside " + sol.Domain.Describe()}
 		}
 		pts[i].U, pts[i].Error, pts[i].Terms = ev.At(pts[i].R, pts[i].Theta)
+		pts[i].Error += sol.DataError // the maximum principle bounds the data's error inside
 	}
 	return nil
 }

@@ -64,6 +64,7 @@ func (p *problemFlags) bind(f *pflag.FlagSet) {
 type problem struct {
 	equation string
 	fix      string
+	tol      float64
 	env      series.Env
 	domain   domain.Domain
 	source   series.Field
@@ -143,7 +144,7 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 
 // solve assembles the solution, pinning a free constant by --fix.
 func (pr *problem) solve() (*domain.Solution, error) {
-	sol, err := domain.Solve(pr.domain, pr.source, pr.conds)
+	sol, err := domain.SolveWith(pr.domain, pr.source, pr.conds, domain.Options{Env: pr.env, Tol: pr.tol})
 	var ms *domain.MissingSides
 	if errors.As(err, &ms) {
 		return nil, usagef("no boundary condition for side %s; add --bc \"%s: u = ...\"", strings.Join(ms.Sides, ", "), ms.Sides[0])

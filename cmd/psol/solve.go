@@ -46,6 +46,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	if err != nil {
 		return err
 	}
+	pr.tol = o.tol
 	var pts []point
 	for _, a := range o.at {
 		p, err := readPoint(a, pr.env)

@@ -174,19 +174,22 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 	data := map[string]series.Sum{}
 	for _, c := range d.circles() {
 		cond := p.conds[c.name]
-		g, err := cond.G.Exact.Trace(c.radius)
+		gf, err := cond.G.TraceField(c.radius)
 		if err != nil {
 			return nil, unsupported("boundary data on %s: %v", c.name, err)
-		}
-		if g.HasAngle() {
-			return nil, unsupported("boundary data on %s is not a trigonometric polynomial in theta; only sums of cos(n*theta) and sin(n*theta) are supported so far", c.name)
 		}
 		tr, err := c.apply(cond, up)
 		if err != nil {
 			return nil, unsupported("trace on %s: %v", c.name, err)
 		}
+		g, err := circleData(d, c, cond, gf, tr, p, sol)
+		if err != nil {
+			return nil, err
+		}
 		corr := g.Sub(tr)
-		sol.Sides = append(sol.Sides, Side{Condition: cond, At: c.radius.Text() + ", theta", AtLaTeX: "r=" + c.radius.LaTeX(), Data: g, Trace: tr, Correction: corr})
+		side := Side{Condition: cond, At: c.radius.Text() + ", theta", AtLaTeX: "r=" + c.radius.LaTeX(), Data: g, Trace: tr, Correction: corr,
+			DataText: gf.Text(), DataLaTeX: gf.LaTeX()}
+		sol.Sides = append(sol.Sides, side)
 		data[c.name] = corr
 	}
 	if err := harmonicModes(d, p, sol, data); err != nil {
@@ -424,4 +427,111 @@ func verifyCircular(d circular, sol *Solution, conds map[string]Condition) []Che
 		checks = append(checks, Check{Name: OperatorText(cond, "u") + " - g", Side: c.name, Exact: err == nil, Residual: res})
 	}
 	return checks
+}
+
+
+// circleData reduces a circle's data to what the mode systems take: a
+// trigonometric polynomial as it is; exact pieces (or powers of θ) on a
+// region with one circle as the modes 0 and the exceptional n, the rest
+// going to a series with exact general term; anything else by FFT.
+func circleData(d circular, c circle, cond Condition, gf series.Field, tr series.Sum, p *posed, sol *Solution) (series.Sum, error) {
+	if gf.IsExact() && !gf.Exact.HasAngle() && !p.numeric {
+		return gf.Exact, nil
+	}
+	pieces := gf.Pieces
+	if gf.IsExact() { // a polynomial in θ on [0, 2π)
+		pieces = []series.Piece{{From: big.NewRat(0, 1), To: big.NewRat(2, 1), Value: gf}}
+	}
+	if len(d.circles()) == 1 && pieces != nil && !p.numeric {
+		if fc, err := series.Fourier(pieces); err == nil {
+			return seriesData(d, c, cond, series.Field{Pieces: pieces}, fc, tr, sol)
+		}
+	}
+	// The numeric fallback: sample the data on the circle.
+	cf, err := gf.Compile(p.env)
+	if err != nil {
+		return series.Sum{}, unsupported("boundary data on %s: %v (numeric data needs every parameter's value: --let)", c.name, err)
+	}
+	R, err := c.radius.Float(p.env)
+	if err != nil {
+		return series.Sum{}, unsupported("boundary data on %s: %v", c.name, err)
+	}
+	nf := series.FourierFFT(func(th float64) float64 { return cf.At(R, th) }, p.tol)
+	sol.Numeric = true
+	sol.DataError += nf.Tail
+	sol.Notes = append(sol.Notes, fmt.Sprintf("boundary data on %s: %s", c.name, nf.Describe()))
+	return nf.Sum, nil
+}
+
+// seriesData splits exact Fourier coefficients: mode 0 and the exceptional n
+// (those of the general form, of the trace, and of a singular Robin mode) go
+// back as a trigonometric polynomial; every other n to the harmonic series,
+// A_n/B_n with B_n the operator on (r/R)^n (or (R/r)^n outside): 1, n/R, n/R + h.
+func seriesData(d circular, c circle, cond Condition, data series.Field, fc series.FourierCoefficients, tr series.Sum, sol *Solution) (series.Sum, error) {
+	skip := map[int]bool{}
+	for n := range fc.Special {
+		skip[n] = true
+	}
+	for _, t := range tr.Terms() {
+		if t.M > 0 {
+			skip[t.M] = true
+		}
+	}
+	if cond.Kind == Robin {
+		if hr, ok := cond.H.Mul(c.radius).Rat(); ok && hr.Sign() < 0 && hr.IsInt() {
+			skip[int(new(big.Int).Neg(hr.Num()).Int64())] = true
+		}
+	}
+	closed := series.Const(fc.A0)
+	for n := range skip {
+		ab, ok := fc.Special[n]
+		if !ok {
+			a, err := series.Coefficient(fc.A, n)
+			if err != nil {
+				return series.Sum{}, unsupported("%v", err)
+			}
+			b, err := series.Coefficient(fc.B, n)
+			if err != nil {
+				return series.Sum{}, unsupported("%v", err)
+			}
+			ab = [2]series.Coef{a, b}
+		}
+		closed = closed.Add(series.Trig(n, false).Scale(ab[0])).Add(series.Trig(n, true).Scale(ab[1]))
+	}
+	inverse := c.outward < 0
+	bn := series.IntCoef(1)
+	if cond.Kind != Dirichlet {
+		bn, _ = series.IndexCoef.Div(c.radius)
+		if cond.Kind == Robin {
+			bn = bn.Add(cond.H)
+		}
+	}
+	var corr, harm []series.Series
+	for i, general := range []series.Coef{fc.A, fc.B} {
+		fam := series.Family{Sin: i == 1, Slope: big.NewRat(1, 1), Offset: new(big.Rat), From: 1}
+		special := map[int][]series.RadialTerm{}
+		for n := range skip {
+			special[n] = nil
+		}
+		coef, err := general.Div(bn)
+		if err != nil {
+			return series.Sum{}, err
+		}
+		corr = append(corr, series.Series{Family: fam, R: c.radius, Inverse: inverse, General: []series.RadialTerm{{C: general, P: new(big.Rat)}}, Special: special})
+		harm = append(harm, series.Series{Family: fam, R: c.radius, Inverse: inverse, General: []series.RadialTerm{{C: coef, Scaled: true}}, Special: special})
+	}
+	jumps := data.Jumps()
+	for _, j := range jumps {
+		sol.Notes = append(sol.Notes, fmt.Sprintf("the data on %s jumps by %s at theta = %s; the series converges to the mean of the two sides there", c.name, j.Size.Text(), series.SymCoef(series.Pi).MulRat(j.At).Text()))
+	}
+	ss := series.SeriesSum{Parts: harm, Inverse: inverse}
+	if cond.Kind == Dirichlet {
+		ss.Jumps = jumps
+	}
+	sol.Series = &SeriesParts{
+		Correction: series.SeriesSum{Parts: corr},
+		Harmonic:   ss,
+		U:          ss,
+	}
+	return closed, nil
 }

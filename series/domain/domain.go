@@ -49,6 +49,9 @@ type Domain interface {
 type posed struct {
 	f     series.Sum
 	conds map[string]Condition
+	env     series.Env // parameter values, for numeric data
+	tol     float64
+	numeric bool
 }
 
 // Side is what one boundary part contributes: the condition, the particular
@@ -58,9 +61,11 @@ type Side struct {
 	Condition  Condition
 	At         string // where the trace is taken, e.g. "2, theta"
 	AtLaTeX    string // e.g. "r=2"
-	Data       series.Sum
+	Data       series.Sum // the data as the mode systems take it
 	Trace      series.Sum
 	Correction series.Sum
+	DataText   string // the data as given, traced on the side
+	DataLaTeX  string
 }
 
 // Check is one verification of the assembled solution.
@@ -87,21 +92,40 @@ type Solution struct {
 	Rules      []ansatz.Step // how each source term was solved
 	Steps      []string      // how the harmonic part was found
 	Notes      []string
+	Numeric    bool    // some coefficients are numeric (FFT of boundary data)
+	DataError  float64 // an estimate of the error the numeric data bring
 }
 
 // Solve assembles u = u_p + h on d for Δu = f with the given conditions:
 // u_p from the ansatz rules, h from the region's harmonic series.
 func Solve(d Domain, source series.Field, conds []Condition) (*Solution, error) {
-	if !source.IsExact() {
+	return SolveWith(d, source, conds, Options{})
+}
+
+// Options are what numeric fallbacks need.
+type Options struct {
+	Env series.Env // parameter values
+	Tol float64    // numeric target (default SumTol)
+	// NumericData forces the FFT path for boundary data, even where exact
+	// coefficients exist (for comparing the two).
+	NumericData bool
+}
+
+// SolveWith is Solve with options for the numeric fallbacks.
+func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*Solution, error) {
+	if opt.Tol == 0 {
+		opt.Tol = SumTol
+	}
+	switch {
+	case source.IsPiecewise():
+		return nil, unsupported("a source given piece by piece (cond ? a : b) is not supported; pieces are for boundary data")
+	case !source.IsExact():
 		return nil, unsupported("the source has a part with no closed form yet: %s", source.Rest.Text())
 	}
-	p := &posed{f: source.Exact, conds: map[string]Condition{}}
+	p := &posed{f: source.Exact, conds: map[string]Condition{}, env: opt.Env, tol: opt.Tol, numeric: opt.NumericData}
 	for _, c := range conds {
 		if _, dup := p.conds[c.Side]; dup {
 			return nil, unsupported("side %s has two conditions; give one", c.Side)
-		}
-		if !c.G.IsExact() {
-			return nil, unsupported("boundary data %s on %s has no closed form yet", c.G.Text(), c.Side)
 		}
 		p.conds[c.Side] = c
 	}

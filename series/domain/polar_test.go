@@ -270,7 +270,7 @@ func torsionConstant(t *testing.T, alpha string) float64 {
 	sol := solve(t, "lap(u) = -2", sector(t, "1", alpha), "arc: u = 0", "start: u = 0", "end: u = 0")
 	assertChecks(t, sol)
 	a, _ := domain.AlphaOverPi(coef(t, alpha))
-	area, err := sol.Series.U.SectorIntegral(a)
+	area, err := sol.Series.U.Parts[0].SectorIntegral(a)
 	if err != nil {
 		t.Fatal(err)
 	}

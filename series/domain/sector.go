@@ -40,11 +40,11 @@ func AlphaOverPi(alpha series.Coef) (*big.Rat, bool) {
 // SeriesParts are the infinite-series stages of a sector solution; the
 // shift w (a harmonic that carries constant ray values) is in Solution.Harmonic.
 type SeriesParts struct {
-	Particular series.Series // mode by mode, vanishing on the rays as Φ_n does
-	Trace      series.Series // the arc operator applied to it
-	Correction series.Series // arc data minus trace and shift, mode by mode
-	Harmonic   series.Series // Σ A_n (r/R)^ν_n Φ_n
-	U          series.Series // particular + harmonic, term by term
+	Particular series.SeriesSum // mode by mode (a sector's terms the closed form cannot take)
+	Trace      series.SeriesSum // the boundary operator applied to it
+	Correction series.SeriesSum // data minus trace (and shift), mode by mode
+	Harmonic   series.SeriesSum // Σ A_n (r/R)^ν_n Φ_n
+	U          series.SeriesSum // particular + harmonic, term by term
 }
 
 // rayKind is a ray's condition, reduced to what the eigenfunctions allow.
@@ -58,6 +58,7 @@ func (s Sector) rays(p *posed) (start, end rayKind, err error) {
 	for i, name := range []string{"start", "end"} {
 		c := p.conds[name]
 		g, ok := c.G.Exact.Const()
+		ok = ok && c.G.IsExact()
 		switch {
 		case c.Kind == Dirichlet && ok:
 			out[i] = rayKind{true, g}
@@ -117,10 +118,14 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 	}
 	arc := circle{"arc", s.R, 1}
 	arcCond := p.conds["arc"]
-	g, err := arcCond.G.Exact.Trace(s.R)
+	gf, err := arcCond.G.TraceField(s.R)
 	if err != nil {
 		return nil, unsupported("boundary data on arc: %v", err)
 	}
+	if !gf.IsExact() {
+		return nil, unsupported("boundary data on a sector's arc must be exact sums of powers of theta times cos(m*theta) and sin(m*theta) so far, not %s", gf.Text())
+	}
+	g := gf.Exact
 	bw, err := arc.apply(arcCond, shift)
 	if err != nil {
 		return nil, err
@@ -145,8 +150,8 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 	b := &sectorBuilder{s: s, a: a, fam: fam, f: expanded, data: data, arc: arc, cond: arcCond}
 	sol := &Solution{Domain: s, Source: p.f, Particular: closed, Harmonic: shift}
 	parts := &SeriesParts{}
-	for _, part := range []*series.Series{&parts.Particular, &parts.Trace, &parts.Correction, &parts.Harmonic, &parts.U} {
-		*part = series.Series{Family: fam, R: s.R, Special: map[int][]series.RadialTerm{}}
+	for _, part := range []*series.SeriesSum{&parts.Particular, &parts.Trace, &parts.Correction, &parts.Harmonic, &parts.U} {
+		*part = series.SeriesSum{Parts: []series.Series{{Family: fam, R: s.R, Special: map[int][]series.RadialTerm{}}}}
 	}
 	general, err := b.mode(series.IndexCoef, 0, false)
 	if err != nil {
@@ -167,9 +172,10 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 		m.store(parts, n)
 	}
 	sol.Series = parts
-	sol.Sides = []Side{{Condition: arcCond, At: s.R.Text() + ", theta", AtLaTeX: "r=" + s.R.LaTeX(), Data: g, Trace: bu}}
+	sol.Sides = []Side{{Condition: arcCond, At: s.R.Text() + ", theta", AtLaTeX: "r=" + s.R.LaTeX(), Data: g, Trace: bu, DataText: g.Text(), DataLaTeX: g.LaTeX()}}
 	for _, name := range []string{"start", "end"} {
-		sol.Sides = append(sol.Sides, Side{Condition: p.conds[name], At: "r, " + map[string]string{"start": "0", "end": s.Alpha.Text()}[name], Data: p.conds[name].G.Exact})
+		ray := p.conds[name].G
+		sol.Sides = append(sol.Sides, Side{Condition: p.conds[name], At: "r, " + map[string]string{"start": "0", "end": s.Alpha.Text()}[name], Data: ray.Exact, DataText: ray.Text(), DataLaTeX: ray.LaTeX()})
 	}
 	sol.Checks = mergeChecks(append(b.checks(general, shift, start, end, p), closedChecks(closed, p.f.Sub(expanded), start.dirichlet, end.dirichlet, s.Alpha, p)...))
 	if nu1 := fam.NuAt(max(fam.From, 1)); nu1.Cmp(big.NewRat(1, 1)) < 0 {
@@ -200,7 +206,8 @@ type modeResult struct {
 }
 
 func (m modeResult) store(p *SeriesParts, n int) {
-	set := func(s *series.Series, ts []series.RadialTerm) {
+	set := func(ss *series.SeriesSum, ts []series.RadialTerm) {
+		s := &ss.Parts[0]
 		if n < 0 {
 			s.General = ts
 		} else {
@@ -372,7 +379,7 @@ const SumTol = 1e-12
 // Evaluator evaluates a solution at points in float64, summing any series to tol.
 type Evaluator struct {
 	closed series.Compiled
-	ser    *series.CompiledSeries
+	ser    *series.CompiledSeriesSum
 	tol    float64
 	max    int
 }
@@ -537,7 +544,7 @@ func (s *Solution) Formula(latex bool) string {
 }
 
 // JoinSeries prints closed + ser, leaving out a part that is zero.
-func JoinSeries(closed series.Sum, ser series.Series, latex bool) string {
+func JoinSeries(closed series.Sum, ser series.SeriesSum, latex bool) string {
 	c, t := closed.Text(), ser.Text()
 	if latex {
 		c, t = closed.LaTeX(), ser.LaTeX()

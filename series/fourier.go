@@ -1,0 +1,141 @@
+package series
+
+import (
+	"errors"
+	"math/big"
+)
+
+// nTrig is (cos(qπn), sin(qπn)) for the index n, reduced: q taken mod 2 into
+// [0, 1] by cos(2πn − x) = cos x and sin(2πn − x) = −sin x; q = 0 and q = 1
+// give 1 and (−1)^n, other q the atoms cos(qπn) and sin(qπn).
+func nTrig(q *big.Rat) (Coef, Coef) {
+	q = new(big.Rat).Sub(q, new(big.Rat).SetInt(floorRat(new(big.Rat).Quo(q, ratTwo))).Mul(new(big.Rat).SetInt(floorRat(new(big.Rat).Quo(q, ratTwo))), ratTwo))
+	sign := int64(1)
+	if q.Cmp(one) > 0 {
+		q, sign = new(big.Rat).Sub(ratTwo, q), -1
+	}
+	switch {
+	case q.Sign() == 0:
+		return IntCoef(1), Coef{}
+	case q.Cmp(one) == 0:
+		return SignCoef, Coef{}
+	}
+	name := q.RatString()
+	return SymCoef(Symbol{kindCosN, name}), SymCoef(Symbol{kindSinN, name}).MulRat(big.NewRat(sign, 1))
+}
+
+// FourierCoefficients are the Fourier coefficients of boundary data on
+// [0, 2π): g = A0 + Σ_{n≥1} (A_n cos nθ + B_n sin nθ), with A_n and B_n
+// general in n (and (−1)^n, cos(qπn), sin(qπn)) except at the listed n.
+type FourierCoefficients struct {
+	A0      Coef
+	A, B    Coef
+	Special map[int][2]Coef // n → (A_n, B_n) where the general form fails
+}
+
+// ErrNotExactPieces reports data outside the exact class.
+var ErrNotExactPieces = errors.New("boundary data outside the exact class")
+
+// Fourier computes the coefficients of exact pieces in θ (each piece a sum of
+// θ^k cos(mθ), θ^k sin(mθ)), break points at multiples of π/12:
+// A_n = (1/π) Σ ∫ g cos nθ dθ, B_n = (1/π) Σ ∫ g sin nθ dθ, A0 = (1/2π) Σ ∫ g dθ.
+func Fourier(ps []Piece) (FourierCoefficients, error) {
+	out := FourierCoefficients{Special: map[int][2]Coef{}}
+	specials := map[int]bool{}
+	for _, p := range ps {
+		if !p.Value.IsExact() {
+			return out, ErrNotExactPieces
+		}
+		for _, t := range p.Value.Exact.t {
+			if t.power().Sign() != 0 || t.L != 0 {
+				return out, ErrNotExactPieces
+			}
+			if t.M > 0 {
+				specials[t.M] = true
+			}
+		}
+	}
+	var err error
+	if out.A0, err = pieceMoment(ps, 0, false, IntCoef(0), true); err != nil {
+		return out, err
+	}
+	out.A0 = out.A0.Mul(invPi).MulRat(big.NewRat(1, 2))
+	for _, sin := range []bool{false, true} {
+		c, err := pieceMoment(ps, 0, sin, IndexCoef, false)
+		if err != nil {
+			return out, err
+		}
+		if sin {
+			out.B = c.Mul(invPi)
+		} else {
+			out.A = c.Mul(invPi)
+		}
+	}
+	for n := range specials {
+		var ab [2]Coef
+		for i, sin := range []bool{false, true} {
+			c, err := pieceMoment(ps, n, sin, IntCoef(int64(n)), true)
+			if err != nil {
+				return out, err
+			}
+			ab[i] = c.Mul(invPi)
+		}
+		out.Special[n] = ab
+	}
+	return out, nil
+}
+
+var invPi, _ = IntCoef(1).Div(SymCoef(Pi))
+
+// pieceMoment is Σ_pieces ∫ g(θ)·T(nθ) dθ, T = cos or sin; n symbolic unless concrete.
+func pieceMoment(ps []Piece, n int, sin bool, nc Coef, concrete bool) (Coef, error) {
+	total := Coef{}
+	for _, p := range ps {
+		for _, t := range p.Value.Exact.t {
+			rule := trigProduct[b2i(t.Sin)][b2i(sin)]
+			x := t.Sin != sin
+			for _, part := range []struct{ sigma, w int64 }{{-1, rule.dif}, {1, rule.add}} {
+				if part.w == 0 {
+					continue
+				}
+				lambda := IntCoef(int64(t.M)).Add(nc.MulRat(big.NewRat(part.sigma, 1)))
+				v := Coef{}
+				for i, end := range []*big.Rat{p.From, p.To} {
+					m, err := endMoment(t.K, x, t.M, part.sigma, lambda, end, n, concrete)
+					if err != nil {
+						return Coef{}, err
+					}
+					if i == 0 {
+						m = m.Neg()
+					}
+					v = v.Add(m)
+				}
+				total = total.Add(v.Mul(t.C).MulRat(big.NewRat(part.w, 2)))
+			}
+		}
+	}
+	return total, nil
+}
+
+// endMoment is ∫_0^{qπ} θ^k T(λθ) dθ for λ = m + σn.
+func endMoment(k int, sin bool, m int, sigma int64, lambda Coef, q *big.Rat, n int, concrete bool) (Coef, error) {
+	end := SymCoef(Pi).MulRat(q)
+	cm, sm, ok := unitCircle(end.MulRat(big.NewRat(int64(m), 1)))
+	if !ok {
+		return Coef{}, ErrAngle
+	}
+	var cn, sn Coef
+	if concrete {
+		cn, sn, ok = unitCircle(end.MulRat(big.NewRat(int64(n), 1)))
+		if !ok {
+			return Coef{}, ErrAngle
+		}
+	} else {
+		cn, sn = nTrig(q)
+	}
+	sn = sn.MulRat(big.NewRat(sigma, 1))
+	// cos(mθ + σnθ) and sin(mθ + σnθ) at θ = qπ.
+	cosL := cm.Mul(cn).Sub(sm.Mul(sn))
+	sinL := sm.Mul(cn).Add(cm.Mul(sn))
+	return thetaMoment(k, sin, lambda, end, cosL, sinL)
+}
