@@ -87,7 +87,11 @@ func (nf NumericFourier) Describe() string {
 }
 
 // TextApprox prints s with its coefficients as decimals, for numeric results.
-func (s Sum) TextApprox() string { return printTerms(s.t, style{latex: false, mul: "*", decimal: true}) }
+func (s Sum) TextApprox() string {
+	return printTerms(s.t, style{latex: false, mul: "*", decimal: true})
+}
 
 // LaTeXApprox is TextApprox as LaTeX.
-func (s Sum) LaTeXApprox() string { return printTerms(s.t, style{latex: true, mul: " ", decimal: true}) }
+func (s Sum) LaTeXApprox() string {
+	return printTerms(s.t, style{latex: true, mul: " ", decimal: true})
+}

@@ -24,9 +24,9 @@ func (f Field) IsExact() bool { return f.Rest == nil && f.Pieces == nil }
 
 // Expr is a node of a remainder: a leaf sum, or an operation on nodes.
 type Expr struct {
-	op   string // "sum", "+", "*", "/", "^", "series", or a function name
-	sum  Sum
-	args []*Expr
+	op     string // "sum", "+", "*", "/", "^", "series", or a function name
+	sum    Sum
+	args   []*Expr
 	ser    *seriesNode
 	pieces []Piece
 }

@@ -429,7 +429,6 @@ func verifyCircular(d circular, sol *Solution, conds map[string]Condition) []Che
 	return checks
 }
 
-
 // circleData reduces a circle's data to what the mode systems take: a
 // trigonometric polynomial as it is; exact pieces (or powers of θ) on a
 // region with one circle as the modes 0 and the exceptional n, the rest

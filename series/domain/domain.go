@@ -47,8 +47,8 @@ type Domain interface {
 
 // posed is a problem after the checks every region shares.
 type posed struct {
-	f     series.Sum
-	conds map[string]Condition
+	f       series.Sum
+	conds   map[string]Condition
 	env     series.Env // parameter values, for numeric data
 	tol     float64
 	numeric bool
@@ -59,8 +59,8 @@ type posed struct {
 // (data minus trace) the harmonic part must supply.
 type Side struct {
 	Condition  Condition
-	At         string // where the trace is taken, e.g. "2, theta"
-	AtLaTeX    string // e.g. "r=2"
+	At         string     // where the trace is taken, e.g. "2, theta"
+	AtLaTeX    string     // e.g. "r=2"
 	Data       series.Sum // the data as the mode systems take it
 	Trace      series.Sum
 	Correction series.Sum
