@@ -25,8 +25,13 @@ const MaxSamples = 1 << 12
 // until the coefficients in the top half of the resolved band are below
 // tol·max|c|; it keeps the modes above that level.
 func FourierFFT(g func(theta float64) float64, tol float64) NumericFourier {
+	return FourierFFTUpTo(g, tol, MaxSamples)
+}
+
+// FourierFFTUpTo is FourierFFT with at most maxSamples samples.
+func FourierFFTUpTo(g func(theta float64) float64, tol float64, maxSamples int) NumericFourier {
 	var out NumericFourier
-	for n := 64; n <= MaxSamples; n *= 2 {
+	for n := 64; n <= maxSamples; n *= 2 {
 		x := make([]float64, n)
 		for j := range x {
 			x[j] = g(2 * math.Pi * float64(j) / float64(n))
@@ -51,14 +56,16 @@ func FourierFFT(g func(theta float64) float64, tol float64) NumericFourier {
 		keep := half / 2
 		var terms []Term
 		tail := 0.0
+		floor := math.Max(tol*1e-2, 1e-14) * scale
 		for k := 0; k < half; k++ {
-			mag := math.Hypot(a[k], b[k])
-			if k >= keep || mag <= math.Max(tol*1e-2, 1e-14)*scale {
-				tail += mag
-				continue
+			for i, c := range []float64{a[k], b[k]} {
+				if k >= keep || math.Abs(c) <= floor {
+					tail += math.Abs(c)
+					continue
+				}
+				out.Modes = k
+				terms = append(terms, Term{C: decimalCoef(c), M: k, Sin: i == 1})
 			}
-			out.Modes = k
-			terms = append(terms, Term{C: decimalCoef(a[k]), M: k}, Term{C: decimalCoef(b[k]), M: k, Sin: true})
 		}
 		out = NumericFourier{Sum: NewSum(terms...), Samples: n, Modes: out.Modes, Tail: tail, Met: top <= tol*math.Max(scale, 1e-300)}
 		if out.Met {

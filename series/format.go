@@ -221,11 +221,12 @@ func printMonomialTerm(t pterm, vars []string, st style) (bool, string) {
 	num := new(big.Int).Abs(q.Num())
 	den := q.Denom()
 	if st.decimal && !q.IsInt() {
-		f, _ := new(big.Rat).Abs(q).Float64()
-		d, _ := new(big.Rat).SetString(strconv.FormatFloat(f, 'g', 12, 64))
-		num, den = d.Num(), big.NewInt(1)
-		if !d.IsInt() {
-			parts := []string{strconv.FormatFloat(f, 'g', 12, 64)}
+		text := new(big.Float).SetRat(new(big.Rat).Abs(q)).Text('g', 12)
+		d, ok := new(big.Rat).SetString(text)
+		if ok && d.IsInt() {
+			num, den = d.Num(), big.NewInt(1)
+		} else {
+			parts := []string{text}
 			for _, f := range t.m.f {
 				if f.exp.Sign() > 0 {
 					parts = append(parts, atomPower(f.sym, f.exp, st))
@@ -338,7 +339,11 @@ func atomPower(s Symbol, e *big.Rat, st style) string {
 		q, _ := new(big.Rat).SetString(s.name)
 		arg := "n*pi"
 		if st.latex {
-			arg = `\frac{` + q.Num().String() + ` n \pi}{` + q.Denom().String() + "}"
+			top := q.Num().String() + ` n \pi`
+			if q.Num().Int64() == 1 {
+				top = `n \pi`
+			}
+			arg = `\frac{` + top + `}{` + q.Denom().String() + "}"
 			return power(`\`+fn+arg, e, st)
 		}
 		if q.Num().Int64() != 1 {
@@ -440,16 +445,27 @@ func factoredSum(p Poly, st style) (string, bool) {
 		q.Neg(q)
 	}
 	rest = rest.ScaleRat(new(big.Rat).Inv(q))
-	_, den := printMonomialTerm(pterm{Poly{[]pterm{{m, one}}}.inverse(), new(big.Rat).Inv(new(big.Rat).Abs(q))}, nil, st)
+	_, den := printMonomialTerm(pterm{Poly{[]pterm{{m, one}}}.inverse(), one}, nil, st)
 	sign := ""
 	if q.Sign() < 0 {
 		sign = "-"
 	}
+	abs := new(big.Rat).Abs(q)
 	num := printPoly(rest, st)
 	if st.latex {
+		if abs.Cmp(one) != 0 {
+			num = abs.RatString() + ` \left(` + num + `\right)`
+			if !abs.IsInt() {
+				num = `\frac{` + abs.Num().String() + `}{` + abs.Denom().String() + `} \left(` + printPoly(rest, st) + `\right)`
+			}
+		}
 		return sign + `\frac{` + num + "}{" + den + "}", true
 	}
-	return sign + "(" + num + ")/(" + den + ")", true
+	head := ""
+	if abs.Cmp(one) != 0 {
+		head = abs.RatString() + "*"
+	}
+	return sign + head + "(" + num + ")/(" + den + ")", true
 }
 
 // inverse is the monomial of a single-term polynomial, inverted.

@@ -316,7 +316,11 @@ func evalMonos(ms []monoFunc, n, sign float64) float64 {
 	s := 0.0
 	for _, m := range ms {
 		v := m.c
-		if m.nPow != 0 {
+		switch {
+		case m.nPow == 0:
+		case m.nPow == math.Trunc(m.nPow) && math.Abs(m.nPow) < 64:
+			v *= powInt(n, int64(m.nPow))
+		default:
 			v *= math.Pow(n, m.nPow)
 		}
 		if m.signed {
@@ -443,6 +447,29 @@ type Summed struct {
 // faster), or maxTerms terms have been summed.
 func (cs CompiledSeries) At(r, theta, tol float64, maxTerms int) Summed {
 	lnr := math.Log(r)
+	// Per point: the fixed radial factors r^P (ln r)^L of the general terms;
+	// per step, (r/R)^ν and the angle advance by constant factors.
+	fixed := make([]float64, len(cs.general))
+	for i, t := range cs.general {
+		if !t.scaled {
+			x := 1.0
+			if t.p != 0 {
+				x = math.Pow(r, t.p)
+			}
+			if t.l > 0 {
+				x *= powInt(lnr, int64(t.l))
+			}
+			fixed[i] = x
+		}
+	}
+	n0 := float64(cs.fam.From)
+	nu0 := cs.slope*n0 + cs.offset
+	scale, step := cs.scale(r, nu0), cs.scale(r, cs.slope)
+	if cs.scale(r, 1) == 0 {
+		scale, step = 0, 0
+	}
+	c, s := math.Cos(nu0*theta), math.Sin(nu0*theta)
+	dc, ds := math.Cos(cs.slope*theta), math.Sin(cs.slope*theta)
 	sum := 0.0
 	quiet := 0
 	last := cs.fam.From
@@ -450,17 +477,30 @@ func (cs CompiledSeries) At(r, theta, tol float64, maxTerms int) Summed {
 	for n := cs.fam.From; n < cs.fam.From+maxTerms; n++ {
 		nf := float64(n)
 		nu := cs.slope*nf + cs.offset
+		if n%64 == 0 { // refresh the recurrences against drift
+			scale = cs.scale(r, nu)
+			c, s = math.Cos(nu*theta), math.Sin(nu*theta)
+		}
+		var rho float64
 		ts, special := cs.special[n]
-		if !special {
-			ts = cs.general
+		if special {
+			rho = cs.radial(ts, nf, nu, r, lnr)
+		} else {
+			for i, t := range cs.general {
+				k := t.c.at(nf)
+				if t.scaled {
+					rho += k * scale
+				} else {
+					rho += k * fixed[i]
+				}
+			}
 		}
-		rho := cs.radial(ts, nf, nu, r, lnr)
 		if cs.jump != nil {
-			rho -= cs.jump(nf) * cs.scale(r, nu)
+			rho -= cs.jump(nf) * scale
 		}
-		phi := math.Cos(nu * theta)
+		phi := c
 		if cs.fam.Sin {
-			phi = math.Sin(nu * theta)
+			phi = s
 		}
 		sum += rho * phi
 		last = n
@@ -473,6 +513,8 @@ func (cs CompiledSeries) At(r, theta, tol float64, maxTerms int) Summed {
 		} else {
 			quiet = 0
 		}
+		scale *= step
+		c, s = c*dc-s*ds, s*dc+c*ds
 	}
 	return Summed{Value: sum, Terms: last, Tail: tail}
 }

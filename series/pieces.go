@@ -239,7 +239,7 @@ func (fp floatPieces) at(r, theta float64) float64 {
 	}
 	for i, e := range fp.ends {
 		if t < e || i == len(fp.ends)-1 {
-			return fp.vals[i].At(r, theta)
+			return fp.vals[i].At(r, t) // pieces are functions of θ in [0, 2π)
 		}
 	}
 	return math.NaN()

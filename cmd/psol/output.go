@@ -87,6 +87,7 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	}
 	if sol.Numeric {
 		v.approximate(sol)
+		v.checkScope = fmt.Sprintf(" for the FFT data, which stand in for the given data to about %.1e", sol.DataError)
 	}
 	for _, c := range sol.Checks {
 		v.Checks = append(v.Checks, checkOut{Name: c.Name, Side: c.Side, Exact: c.Exact, Formula: c.Residual.Text(), Residual: residualSize(c.Residual, pr.env)})

@@ -455,7 +455,13 @@ func circleData(d circular, c circle, cond Condition, gf series.Field, tr series
 	if err != nil {
 		return series.Sum{}, unsupported("boundary data on %s: %v", c.name, err)
 	}
-	nf := series.FourierFFT(func(th float64) float64 { return cf.At(R, th) }, p.tol)
+	// Between two circles the modes grow like (R2/R1)^n in the exact algebra's
+	// r^n, r^−n form; fewer samples keep them representable.
+	samples := series.MaxSamples
+	if len(d.circles()) > 1 {
+		samples = 512
+	}
+	nf := series.FourierFFTUpTo(func(th float64) float64 { return cf.At(R, th) }, p.tol, samples)
 	sol.Numeric = true
 	sol.DataError += nf.Tail
 	sol.Notes = append(sol.Notes, fmt.Sprintf("boundary data on %s: %s", c.name, nf.Describe()))
@@ -526,6 +532,7 @@ func seriesData(d circular, c circle, cond Condition, data series.Field, fc seri
 	ss := series.SeriesSum{Parts: harm, Inverse: inverse}
 	if cond.Kind == Dirichlet {
 		ss.Jumps = jumps
+		sol.rim = &rimData{data: data, trace: tr, radius: c.radius, inverse: inverse}
 	}
 	sol.Series = &SeriesParts{
 		Correction: series.SeriesSum{Parts: corr},

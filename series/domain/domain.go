@@ -92,6 +92,7 @@ type Solution struct {
 	Rules      []ansatz.Step // how each source term was solved
 	Steps      []string      // how the harmonic part was found
 	Notes      []string
+	rim        *rimData // Dirichlet data on a single circle, for the Poisson integral near it
 	Numeric    bool    // some coefficients are numeric (FFT of boundary data)
 	DataError  float64 // an estimate of the error the numeric data bring
 }

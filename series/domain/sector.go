@@ -382,6 +382,7 @@ type Evaluator struct {
 	ser    *series.CompiledSeriesSum
 	tol    float64
 	max    int
+	rim    *compiledRim
 }
 
 // Compile prepares the solution for evaluation with parameters from env.
@@ -395,6 +396,11 @@ func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluato
 		return nil, err
 	}
 	e := &Evaluator{closed: c, tol: tol, max: maxTerms}
+	if s.rim != nil {
+		if e.rim, err = s.rim.compile(s.Particular, env); err != nil {
+			return nil, err
+		}
+	}
 	if s.Series != nil {
 		cs, err := s.Series.U.Compile(env)
 		if err != nil {
@@ -414,6 +420,9 @@ func (e *Evaluator) At(r, theta float64) (u, errEst float64, terms int) {
 	}
 	if r == 0 {
 		r = math.SmallestNonzeroFloat64
+	}
+	if e.rim != nil && e.rim.near(r) {
+		return e.rim.at(r, theta), e.tol, 0
 	}
 	s := e.ser.At(r, theta, e.tol, e.max)
 	return u + s.Value, s.Tail, s.Terms
