@@ -4,7 +4,8 @@ import "math"
 
 // Compiled is a sum with float64 coefficients, for fast evaluation.
 type Compiled struct {
-	t []cterm
+	t      []cterm
+	hasLog bool
 }
 
 type cterm struct {
@@ -23,6 +24,7 @@ func (s Sum) Compile(env Env) (Compiled, error) {
 		}
 		p, _ := t.power().Float64()
 		out.t[i] = cterm{c, p, t.L, t.K, t.M, t.Sin}
+		out.hasLog = out.hasLog || t.L > 0
 	}
 	return out, nil
 }
@@ -30,7 +32,10 @@ func (s Sum) Compile(env Env) (Compiled, error) {
 // At is the value at (r, θ), r > 0 (r = 0 is taken as the limit where it exists).
 func (c Compiled) At(r, theta float64) float64 {
 	sum := 0.0
-	lnr := math.Log(r)
+	lnr := 0.0
+	if c.hasLog {
+		lnr = math.Log(r)
+	}
 	for _, t := range c.t {
 		v := t.c
 		switch {
