@@ -454,7 +454,7 @@ func (lw *lowerer) call(c *call) (value, error) {
 
 func knownFunctions() []string {
 	var names []string
-	for _, n := range []string{"sin", "cos", "tan", "exp", "log", "ln", "sqrt", "abs", "sinh", "cosh", "tanh"} {
+	for _, n := range []string{"sin", "cos", "tan", "exp", "log", "ln", "sqrt", "abs", "sinh", "cosh", "tanh", "atan"} {
 		if series.IsFunction(n) {
 			names = append(names, n)
 		}

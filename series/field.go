@@ -156,6 +156,7 @@ var unaryFloat = map[string]func(float64) float64{
 	"sin": math.Sin, "cos": math.Cos, "tan": math.Tan, "exp": math.Exp,
 	"ln": math.Log, "log": math.Log, "sqrt": math.Sqrt, "abs": math.Abs,
 	"sinh": math.Sinh, "cosh": math.Cosh, "tanh": math.Tanh,
+	"atan": math.Atan, // for closed forms such as the Poisson integral of a step
 }
 
 // IsFunction reports whether name is a function psol knows.

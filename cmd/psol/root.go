@@ -25,7 +25,7 @@ stage as an exact formula, and checks the result.`,
 		SilenceErrors: true,
 		SilenceUsage:  true,
 	}
-	root.AddCommand(newSolveCmd(), newParticularCmd(), newDemoCmd(), newVersionCmd())
+	root.AddCommand(newSolveCmd(), newParticularCmd(), newCheckCmd(), newDemoCmd(), newVersionCmd())
 	return root
 }
 

@@ -1,0 +1,269 @@
+package domain
+
+import (
+	"fmt"
+	"math"
+	"math/big"
+
+	"psol/series"
+)
+
+// ClaimCheck is one verification of a claimed solution.
+type ClaimCheck struct {
+	Name     string
+	Side     string // "" for the equation
+	Exact    bool
+	Residual series.Sum // exact residual (when Exact)
+	Max      float64    // largest numeric residual (when not Exact)
+	Where    [2]float64 // (r, θ) of the largest numeric residual
+}
+
+// Holds reports a vanishing residual: exactly zero, or numerically below tol.
+func (c ClaimCheck) Holds(tol float64) bool {
+	if c.Exact {
+		return c.Residual.IsZero()
+	}
+	return c.Max <= tol
+}
+
+// CheckClaim verifies a claimed solution of Δu = f with the conditions:
+// exactly when the claim and the data are closed forms, numerically (finite
+// differences and boundary samples) otherwise.
+func CheckClaim(d Domain, f series.Field, conds []Condition, claim series.Field, env series.Env) ([]ClaimCheck, error) {
+	byName := map[string]Condition{}
+	for _, c := range conds {
+		byName[c.Side] = c
+	}
+	var out []ClaimCheck
+	exact := claim.IsExact() && f.IsExact()
+	if exact {
+		out = append(out, ClaimCheck{Name: "lap(u) - f", Exact: true, Residual: claim.Exact.Laplacian().Sub(f.Exact)})
+	} else {
+		c, err := numericLaplacianResidual(d, f, claim, env)
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, c)
+	}
+	for _, side := range d.Sides() {
+		cond, ok := byName[side]
+		if !ok {
+			return nil, &MissingSides{[]string{side}}
+		}
+		c, err := sideResidual(d, side, cond, claim, env)
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, c)
+	}
+	return out, nil
+}
+
+// boundaryOf finds a side's circle, or reports a ray (θ = at).
+func boundaryOf(d Domain, side string) (circle, bool, series.Coef) {
+	switch d := d.(type) {
+	case circular:
+		for _, c := range d.circles() {
+			if c.name == side {
+				return c, true, series.Coef{}
+			}
+		}
+	case Sector:
+		switch side {
+		case "arc":
+			return circle{"arc", d.R, 1}, true, series.Coef{}
+		case "end":
+			return circle{}, false, d.Alpha
+		}
+		return circle{}, false, series.Coef{}
+	}
+	return circle{}, false, series.Coef{}
+}
+
+func sideResidual(d Domain, side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
+	name := OperatorText(cond, "u") + " - g"
+	c, isCircle, at := boundaryOf(d, side)
+	if isCircle && claim.IsExact() && cond.G.IsExact() {
+		b, err := c.apply(cond, claim.Exact)
+		if err == nil {
+			g, err := cond.G.Exact.Trace(c.radius)
+			if err == nil {
+				return ClaimCheck{Name: name, Side: side, Exact: true, Residual: b.Sub(g)}, nil
+			}
+		}
+	}
+	if !isCircle && claim.IsExact() && cond.G.IsExact() { // a ray θ = at: u, or dn(u) = ∓(1/r)∂u/∂θ
+		u := claim.Exact
+		if cond.Kind != Dirichlet {
+			u = u.DTheta().MulR(ratOf(-1))
+			if !at.IsZero() {
+				u = u.Neg()
+			}
+		}
+		var res series.Sum
+		ok := true
+		for _, t := range u.Terms() {
+			v, err := series.NewSum(series.Term{C: t.C, K: t.K, M: t.M, Sin: t.Sin}).At(series.IntCoef(1), at)
+			if err != nil {
+				ok = false
+				break
+			}
+			res = res.Add(series.NewSum(series.Term{C: v, P: t.P, L: t.L}))
+		}
+		if ok && cond.Kind == Robin {
+			ok = false
+		}
+		if ok {
+			return ClaimCheck{Name: name, Side: side, Exact: true, Residual: res.Sub(cond.G.Exact)}, nil
+		}
+	}
+	return numericSideResidual(d, side, cond, claim, env)
+}
+
+func ratOf(n int64) *big.Rat { return big.NewRat(n, 1) }
+
+// samplePoints are interior points of the region for numeric checks.
+func samplePoints(d Domain, env series.Env) ([][2]float64, error) {
+	var pts [][2]float64
+	for i := 1; i <= 6; i++ {
+		for j := 0; j < 12; j++ {
+			var r, th float64
+			switch d := d.(type) {
+			case Disk:
+				R, err := d.R.Float(env)
+				if err != nil {
+					return nil, err
+				}
+				r, th = R*float64(i)/7.5, 2*math.Pi*(float64(j)+0.3)/12
+			case Annulus:
+				a, err := d.R1.Float(env)
+				if err != nil {
+					return nil, err
+				}
+				b, err := d.R2.Float(env)
+				if err != nil {
+					return nil, err
+				}
+				r, th = a+(b-a)*float64(i)/7, 2*math.Pi*(float64(j)+0.3)/12
+			case Outside:
+				R, err := d.R.Float(env)
+				if err != nil {
+					return nil, err
+				}
+				r, th = R*(1+float64(i)/3), 2*math.Pi*(float64(j)+0.3)/12
+			case Sector:
+				R, err := d.R.Float(env)
+				if err != nil {
+					return nil, err
+				}
+				a, _ := d.Alpha.Float(nil)
+				r, th = R*float64(i)/7.5, a*(float64(j)+0.5)/12
+			}
+			pts = append(pts, [2]float64{r, th})
+		}
+	}
+	return pts, nil
+}
+
+func numericLaplacianResidual(d Domain, f, claim series.Field, env series.Env) (ClaimCheck, error) {
+	u, err := claim.Compile(env)
+	if err != nil {
+		return ClaimCheck{}, err
+	}
+	fc, err := f.Compile(env)
+	if err != nil {
+		return ClaimCheck{}, err
+	}
+	pts, err := samplePoints(d, env)
+	if err != nil {
+		return ClaimCheck{}, err
+	}
+	cart := func(x, y float64) float64 { return u.At(math.Hypot(x, y), math.Atan2(y, x)) }
+	out := ClaimCheck{Name: "lap(u) - f"}
+	for _, p := range pts {
+		x, y := p[0]*math.Cos(p[1]), p[0]*math.Sin(p[1])
+		h := 1e-3 * math.Max(1, p[0])
+		lap := func(h float64) float64 {
+			return (cart(x+h, y) + cart(x-h, y) + cart(x, y+h) + cart(x, y-h) - 4*cart(x, y)) / (h * h)
+		}
+		fd := (4*lap(h/2) - lap(h)) / 3
+		if r := math.Abs(fd - fc.At(p[0], p[1])); r > out.Max || math.IsNaN(r) || out.Where == ([2]float64{}) {
+			out.Max, out.Where = r, p
+		}
+	}
+	return out, nil
+}
+
+func numericSideResidual(d Domain, side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
+	u, err := claim.Compile(env)
+	if err != nil {
+		return ClaimCheck{}, err
+	}
+	g, err := cond.G.Compile(env)
+	if err != nil {
+		return ClaimCheck{}, err
+	}
+	h := 0.0
+	if cond.Kind == Robin {
+		if h, err = cond.H.Float(env); err != nil {
+			return ClaimCheck{}, err
+		}
+	}
+	out := ClaimCheck{Name: OperatorText(cond, "u") + " - g", Side: side}
+	c, isCircle, at := boundaryOf(d, side)
+	for k := 0; k < 48; k++ {
+		var r, th, dn float64
+		const eps = 1e-5
+		if isCircle {
+			R, err := c.radius.Float(env)
+			if err != nil {
+				return ClaimCheck{}, err
+			}
+			r, th = R, 2*math.Pi*(float64(k)+0.5)/48
+			if s, ok := d.(Sector); ok {
+				a, _ := s.Alpha.Float(nil)
+				th = a * (float64(k) + 0.5) / 48
+			}
+			dn = float64(c.outward) * (u.At(r+eps, th) - u.At(r-eps, th)) / (2 * eps)
+		} else {
+			s := d.(Sector)
+			R, err := s.R.Float(env)
+			if err != nil {
+				return ClaimCheck{}, err
+			}
+			th, _ = at.Float(nil)
+			r = R * (float64(k) + 0.5) / 48
+			sign := -1.0
+			if th > 0 {
+				sign = 1
+			}
+			dn = sign * (u.At(r, th+eps) - u.At(r, th-eps)) / (2 * eps * r)
+		}
+		v := u.At(r, th)
+		var lhs float64
+		switch cond.Kind {
+		case Dirichlet:
+			lhs = v
+		case Neumann:
+			lhs = dn
+		default:
+			lhs = dn + h*v
+		}
+		if res := math.Abs(lhs - g.At(r, th)); res > out.Max || math.IsNaN(res) || k == 0 {
+			out.Max, out.Where = res, [2]float64{r, th}
+		}
+	}
+	return out, nil
+}
+
+// Describe is a check in words for output.
+func (c ClaimCheck) Describe() string {
+	where := ""
+	if c.Side != "" {
+		where = " on " + c.Side
+	}
+	if c.Exact {
+		return fmt.Sprintf("%s = %s%s (exact)", c.Name, c.Residual.Text(), where)
+	}
+	return fmt.Sprintf("%s: largest residual %.3g%s at r = %.4g, theta = %.4g (numeric)", c.Name, c.Max, where, c.Where[0], c.Where[1])
+}
