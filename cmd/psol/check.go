@@ -23,11 +23,11 @@ const numericCheckTol = 1e-6
 func newCheckCmd() *cobra.Command {
 	o := &checkOptions{}
 	cmd := &cobra.Command{
-		Use:   "check EQUATION --disk R --bc CONDITION --claim EXPR",
-		Short: "Verify a hand-derived solution: the equation and every boundary condition",
+		Use:     "check EQUATION --disk R --bc CONDITION --claim EXPR",
+		Short:   "Verify a hand-derived solution: the equation and every boundary condition",
 		Example: `  psol check "lap(u) = -2" --disk a --bc "u = 0" --claim "(a^2 - r^2)/2"`,
-		Args: cobra.ExactArgs(1),
-		RunE: func(cmd *cobra.Command, args []string) error { return o.run(cmd.OutOrStdout(), args[0]) },
+		Args:    cobra.ExactArgs(1),
+		RunE:    func(cmd *cobra.Command, args []string) error { return o.run(cmd.OutOrStdout(), args[0]) },
 	}
 	f := cmd.Flags()
 	o.bind(f)
