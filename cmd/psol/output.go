@@ -4,6 +4,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"strconv"
 	"strings"
 
 	"psol/series"
@@ -38,6 +39,7 @@ type view struct {
 	Checks     []checkOut `json:"checks"`
 	Points     []point    `json:"points"`
 	Steps      []string   `json:"steps,omitempty"`
+	Report     *reportOut `json:"report,omitempty"`
 	Warnings   []string   `json:"warnings"`
 	showSteps  bool
 	checkScope string // how far an exact check reaches, for series
@@ -169,10 +171,58 @@ func renderText(w io.Writer, v *view) error {
 		}
 		line(w, "point", at)
 	}
+	if r := v.Report; r != nil {
+		line(w, "report", fmt.Sprintf("max u = %.12g at r = %.6g, theta = %.6g", r.Max, r.ArgMax[0], r.ArgMax[1]))
+		line(w, "report", fmt.Sprintf("min u = %.12g at r = %.6g, theta = %.6g", r.Min, r.ArgMin[0], r.ArgMin[1]))
+		line(w, "report", "area integral of u = "+figure(r.IntegralText, r.Integral)+fmt.Sprintf(", mean u = %.12g", r.Mean))
+		line(w, "report", "net outward flux = "+figure(r.FluxText, r.Flux)+", source integral = "+figure(r.SourceText, r.SourceIntegral)+
+			fmt.Sprintf(" (divergence theorem: difference %.2g)", r.Flux-r.SourceIntegral))
+		if r.Note != "" {
+			line(w, "report", r.Note)
+		}
+	}
 	for _, s := range v.Warnings {
 		line(w, "note", s)
 	}
 	return nil
+}
+
+// reportOut is the JSON form of a report: the SPEC keys, with exact forms beside.
+type reportOut struct {
+	Max            float64    `json:"max"`
+	Min            float64    `json:"min"`
+	ArgMax         [2]float64 `json:"argmax"`
+	ArgMin         [2]float64 `json:"argmin"`
+	Integral       float64    `json:"integral"`
+	IntegralText   string     `json:"integral_exact,omitempty"`
+	Mean           float64    `json:"mean"`
+	Flux           float64    `json:"flux"`
+	FluxText       string     `json:"flux_exact,omitempty"`
+	SourceIntegral float64    `json:"source_integral"`
+	SourceText     string     `json:"source_integral_exact,omitempty"`
+	Note           string     `json:"note,omitempty"`
+}
+
+func newReportOut(r *domain.Report) *reportOut {
+	text := func(c *series.Coef) string {
+		if c == nil {
+			return ""
+		}
+		return c.Text()
+	}
+	return &reportOut{Max: r.Max, Min: r.Min, ArgMax: r.ArgMax, ArgMin: r.ArgMin, Integral: r.Integral, IntegralText: text(r.IntegralExact),
+		Mean: r.Mean, Flux: r.Flux, FluxText: text(r.FluxExact), SourceIntegral: r.Source, SourceText: text(r.SourceExact), Note: r.Bounded}
+}
+
+// figure prints an exact value with its decimal, or the decimal alone.
+func figure(exact string, v float64) string {
+	if exact == "" {
+		return fmt.Sprintf("%.12g", v)
+	}
+	if q, err := strconv.ParseFloat(exact, 64); err == nil && q == v {
+		return exact
+	}
+	return fmt.Sprintf("%s = %.12g", exact, v)
 }
 
 func checkSummary(cs []checkOut) string {

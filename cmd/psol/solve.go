@@ -15,6 +15,7 @@ type solveOptions struct {
 	at     []string
 	tol    float64
 	terms  int
+	report bool
 }
 
 func newSolveCmd() *cobra.Command {
@@ -32,6 +33,7 @@ func newSolveCmd() *cobra.Command {
 	f.BoolVar(&o.steps, "steps", false, "show how each stage was found")
 	f.StringVar(&o.format, "format", "text", "output format: text, latex or json")
 	f.Float64Var(&o.tol, "tol", domain.SumTol, "numeric target for summed series")
+	f.BoolVar(&o.report, "report", false, "add max, min, area integral, mean and the flux balance")
 	f.IntVar(&o.terms, "terms", 100000, "cap on the series terms summed")
 	f.StringArrayVar(&o.at, "at", nil, `evaluate at "r=0.5,theta=pi/4" or "x=0.1,y=0.2" (repeatable)`)
 	return cmd
@@ -63,6 +65,13 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		return err
 	}
 	v := newView(pr, sol, pts, o.steps)
+	if o.report {
+		rep, err := sol.Report(pr.env, o.tol)
+		if err != nil {
+			return usagef("--report: %v", err)
+		}
+		v.Report = newReportOut(rep)
+	}
 	if err := v.failedCheck(); err != nil {
 		render(w, v)
 		return err

@@ -1,0 +1,228 @@
+package domain
+
+import (
+	"math"
+	"math/big"
+
+	"psol/series"
+)
+
+// Report holds the figures users quote: extremes with their location, the
+// area integral and mean of u, and the net outward flux next to the source
+// integral (equal by the divergence theorem).
+type Report struct {
+	Max, Min       float64
+	ArgMax, ArgMin [2]float64 // (r, θ)
+	Integral       float64
+	IntegralExact  *series.Coef // nil where a series or a divergence forbids
+	Mean           float64
+	Area           series.Coef
+	Flux           float64
+	FluxExact      *series.Coef
+	Source         float64
+	SourceExact    *series.Coef
+	Bounded        string // a note where the region is unbounded
+}
+
+// Report computes the figures. Extremes come from a dense sample refined by a
+// local search; integrals and fluxes are exact for closed forms.
+func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
+	// Thousands of evaluations, some on the boundary where a series converges
+	// slowly: cap the terms (extremes need no more than a few digits there).
+	ev, err := s.Compile(env, tol, 1<<13)
+	if err != nil {
+		return nil, err
+	}
+	rep := &Report{}
+	sub := func(c series.Coef) (series.Coef, float64, error) {
+		c, err := c.Subst(env)
+		if err != nil {
+			return c, 0, err
+		}
+		v, err := c.Float(env)
+		return c, v, err
+	}
+	switch d := s.Domain.(type) {
+	case circular:
+		in, out := d.bounds()
+		if area, err := areaOf(in, out); err == nil {
+			rep.Area = area
+		}
+		if out == nil {
+			rep.Bounded = "the region is unbounded: extremes are over R <= r <= 10R, and u has no finite area integral unless it decays"
+		}
+		if c, err := s.U.AreaIntegral(in, out); err == nil { // series modes n ≥ 1 integrate to zero
+			c, v, err := sub(c)
+			if err == nil {
+				rep.IntegralExact, rep.Integral = &c, v
+			}
+		}
+		flux := series.Coef{}
+		for _, c := range d.circles() {
+			dn, err := c.apply(Condition{Kind: Neumann}, s.U)
+			if err != nil {
+				return nil, err
+			}
+			k := series.Coef{}
+			for _, t := range dn.Terms() {
+				if t.M == 0 && t.K == 0 {
+					k = t.C
+				}
+			}
+			flux = flux.Add(k.Mul(c.radius).Mul(series.SymCoef(series.Pi)).MulRat(ratOf(2)))
+		}
+		if c, v, err := sub(flux); err == nil {
+			rep.FluxExact, rep.Flux = &c, v
+		}
+		if c, err := s.Source.AreaIntegral(in, out); err == nil {
+			if c, v, err := sub(c); err == nil {
+				rep.SourceExact, rep.Source = &c, v
+			}
+		}
+	case Sector:
+		rep.Area = d.R.Mul(d.R).Mul(d.Alpha).MulRat(big.NewRat(1, 2))
+		a, _ := AlphaOverPi(d.Alpha)
+		closed, err := s.Particular.Add(s.Harmonic).SectorIntegral(d.R, d.Alpha)
+		if err == nil {
+			c, v, err := sub(closed)
+			if err == nil {
+				rep.Integral = v
+				if s.Series != nil && !s.Series.U.IsZero() {
+					for _, p := range s.Series.U.Parts {
+						is, err := p.SectorIntegral(a)
+						if err == nil {
+							sum, err := is.Float(env, tol, 1<<22)
+							if err == nil {
+								rep.Integral += sum.Value
+							}
+						}
+					}
+				} else {
+					rep.IntegralExact = &c
+				}
+			}
+		}
+		if c, err := s.Source.SectorIntegral(d.R, d.Alpha); err == nil {
+			if c, v, err := sub(c); err == nil {
+				rep.SourceExact, rep.Source = &c, v
+			}
+		}
+		rep.Flux, err = sectorFlux(d, ev, env)
+		if err != nil {
+			return nil, err
+		}
+	}
+	if A, err := rep.Area.Float(env); err == nil && A > 0 {
+		rep.Mean = rep.Integral / A
+	}
+	rep.Max, rep.ArgMax, rep.Min, rep.ArgMin, err = extremes(s.Domain, ev, env)
+	return rep, err
+}
+
+func areaOf(in, out *series.Coef) (series.Coef, error) {
+	one := series.Const(series.IntCoef(1))
+	return one.AreaIntegral(in, out)
+}
+
+// sectorFlux is ∮ ∂u/∂n ds over arc and rays by Gauss–Legendre panels, with
+// central differences for the normal derivative.
+func sectorFlux(d Sector, ev *Evaluator, env series.Env) (float64, error) {
+	R, err := d.R.Float(env)
+	if err != nil {
+		return 0, err
+	}
+	alpha, _ := d.Alpha.Float(nil)
+	u := func(r, th float64) float64 { v, _, _ := ev.At(r, th); return v }
+	// One-sided second-order differences, inward from the boundary:
+	// f′(0) ≈ (−3f(0) + 4f(h) − f(2h))/(2h).
+	const h = 1e-4
+	inward := func(f func(float64) float64, step float64) float64 {
+		return (-3*f(0) + 4*f(step) - f(2*step)) / (2 * step)
+	}
+	total := 0.0
+	for i := 0; i < 16; i++ {
+		a, b := alpha*float64(i)/16, alpha*float64(i+1)/16
+		for k, x := range legendreX {
+			th := (a+b)/2 + (b-a)/2*x
+			dn := -inward(func(s float64) float64 { return u(R-s, th) }, h*R)
+			total += (b - a) / 2 * legendreW[k] * R * dn
+		}
+	}
+	for i := 0; i < 16; i++ {
+		a, b := R*float64(i)/16, R*float64(i+1)/16
+		for k, x := range legendreX {
+			r := (a+b)/2 + (b-a)/2*x
+			start := -inward(func(s float64) float64 { return u(r, s) }, h) / r
+			end := -inward(func(s float64) float64 { return u(r, alpha-s) }, h) / r
+			total += (b - a) / 2 * legendreW[k] * (start + end)
+		}
+	}
+	return total, nil
+}
+
+// extremes samples the closed region densely, then refines the best points
+// by a shrinking pattern search that stays inside the region.
+func extremes(d Domain, ev *Evaluator, env series.Env) (maxV float64, argMax [2]float64, minV float64, argMin [2]float64, err error) {
+	var rlo, rhi, tlo, thi float64 = 0, 1, 0, 2 * math.Pi
+	switch d := d.(type) {
+	case Disk:
+		rhi, err = d.R.Float(env)
+	case Annulus:
+		if rlo, err = d.R1.Float(env); err == nil {
+			rhi, err = d.R2.Float(env)
+		}
+	case Outside:
+		rlo, err = d.R.Float(env)
+		rhi = 10 * rlo
+	case Sector:
+		rhi, err = d.R.Float(env)
+		thi, _ = d.Alpha.Float(nil)
+	}
+	if err != nil {
+		return
+	}
+	u := func(p [2]float64) float64 { v, _, _ := ev.At(p[0], p[1]); return v }
+	maxV, minV = math.Inf(-1), math.Inf(1)
+	const nr, nt = 48, 96
+	for i := 0; i <= nr; i++ {
+		for j := 0; j <= nt; j++ {
+			p := [2]float64{rlo + (rhi-rlo)*float64(i)/nr, tlo + (thi-tlo)*float64(j)/nt}
+			v := u(p)
+			if v > maxV {
+				maxV, argMax = v, p
+			}
+			if v < minV {
+				minV, argMin = v, p
+			}
+		}
+	}
+	refine := func(p [2]float64, sign float64) ([2]float64, float64) {
+		best := sign * u(p)
+		dr, dt := (rhi-rlo)/nr, (thi-tlo)/nt
+		for it := 0; it < 60 && (dr > 1e-12*(rhi+1) || dt > 1e-12); it++ {
+			moved := false
+			for _, step := range [][2]float64{{dr, 0}, {-dr, 0}, {0, dt}, {0, -dt}} {
+				q := [2]float64{p[0] + step[0], p[1] + step[1]}
+				if q[0] < rlo || q[0] > rhi || q[1] < tlo || q[1] > thi {
+					continue
+				}
+				if v := sign * u(q); v > best {
+					best, p, moved = v, q, true
+				}
+			}
+			if !moved {
+				dr, dt = dr/2, dt/2
+			}
+		}
+		return p, sign * best
+	}
+	argMax, maxV = refine(argMax, 1)
+	argMin, minV = refine(argMin, -1)
+	if argMax[0] < 1e-9 {
+		argMax[1] = 0 // the centre has no angle
+	}
+	if argMin[0] < 1e-9 {
+		argMin[1] = 0
+	}
+	return
+}
