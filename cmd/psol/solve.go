@@ -16,6 +16,7 @@ type solveOptions struct {
 	tol    float64
 	terms  int
 	report bool
+	lang   string
 }
 
 func newSolveCmd() *cobra.Command {
@@ -31,8 +32,9 @@ func newSolveCmd() *cobra.Command {
 	f := cmd.Flags()
 	o.bind(f)
 	f.BoolVar(&o.steps, "steps", false, "show how each stage was found")
-	f.StringVar(&o.format, "format", "text", "output format: text, latex or json")
+	f.StringVar(&o.format, "format", "text", "output format: text, latex, json or code")
 	f.Float64Var(&o.tol, "tol", domain.SumTol, "numeric target for summed series")
+	f.StringVar(&o.lang, "lang", "go", "language of --format code: go, c or python")
 	f.BoolVar(&o.report, "report", false, "add max, min, area integral, mean and the flux balance")
 	f.IntVar(&o.terms, "terms", 100000, "cap on the series terms summed")
 	f.StringArrayVar(&o.at, "at", nil, `evaluate at "r=0.5,theta=pi/4" or "x=0.1,y=0.2" (repeatable)`)
@@ -41,8 +43,8 @@ func newSolveCmd() *cobra.Command {
 
 func (o *solveOptions) run(w io.Writer, equation string) error {
 	render, ok := renderers[o.format]
-	if !ok {
-		return usagef("--format %q: choose text, latex or json", o.format)
+	if !ok && o.format != "code" {
+		return usagef("--format %q: choose text, latex, json or code", o.format)
 	}
 	pr, err := o.pose(equation)
 	if err != nil {
@@ -63,6 +65,13 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	}
 	if err := evaluate(sol, pr.env, pts, o.tol, o.terms); err != nil {
 		return err
+	}
+	if o.format == "code" {
+		terms := codeTerms
+		if o.terms != 100000 {
+			terms = o.terms
+		}
+		return writeCode(w, o.lang, pr, sol, terms)
 	}
 	v := newView(pr, sol, pts, o.steps)
 	if o.report {

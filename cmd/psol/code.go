@@ -1,0 +1,139 @@
+package main
+
+import (
+	"fmt"
+	"io"
+	"sort"
+	"strings"
+
+	"psol/series"
+	"psol/series/domain"
+)
+
+// codeTerms is the series truncation in generated code unless --terms says otherwise.
+const codeTerms = 2000
+
+// writeCode emits a function u(r, theta, parameters...) in the chosen language.
+func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, terms int) error {
+	l, ok := series.Langs[lang]
+	if !ok {
+		return usagef("--lang %q: choose go, c or python", lang)
+	}
+	closed := sol.U
+	var parts []series.Series
+	if sol.Series != nil {
+		closed = sol.Particular.Add(sol.Harmonic)
+		parts = sol.Series.U.Parts
+	}
+	closed, err := closed.Subst(pr.env)
+	if err != nil {
+		return err
+	}
+	used := map[string]bool{}
+	closed.Params(used)
+	var kept []series.Series
+	for _, p := range parts {
+		if !p.IsZero() {
+			kept = append(kept, p)
+		}
+	}
+	parts = kept
+	for i := range parts {
+		if parts[i], err = substSeries(parts[i], pr.env); err != nil {
+			return err
+		}
+		for _, t := range parts[i].General {
+			t.C.Params(used)
+		}
+		parts[i].R.Params(used)
+	}
+	delete(used, series.Index)
+	var params []string
+	for p := range used {
+		params = append(params, p)
+	}
+	sort.Strings(params)
+	g := codeGen{l: l, params: params, closed: closed.Code(l), parts: parts, terms: terms}
+	fmt.Fprintf(w, "%s psol %s: %s\n", g.comment(), version, sol.Formula(false))
+	if len(parts) > 0 {
+		fmt.Fprintf(w, "%s The series are summed to n = %d.\n", g.comment(), terms)
+	}
+	return g.write(w)
+}
+
+func substSeries(s series.Series, env series.Env) (series.Series, error) {
+	out := s
+	out.General = nil
+	for _, t := range s.General {
+		c, err := t.C.Subst(env)
+		if err != nil {
+			return s, err
+		}
+		t.C = c
+		out.General = append(out.General, t)
+	}
+	r, err := s.R.Subst(env)
+	out.R = r
+	return out, err
+}
+
+type codeGen struct {
+	l      series.Lang
+	params []string
+	closed string
+	parts  []series.Series
+	terms  int
+}
+
+func (g codeGen) comment() string {
+	if g.l.Name == "python" {
+		return "#"
+	}
+	return "//"
+}
+
+func (g codeGen) write(w io.Writer) error {
+	switch g.l.Name {
+	case "go":
+		fmt.Fprintln(w, "// It needs: import \"math\"")
+		args := "r, theta float64"
+		if len(g.params) > 0 {
+			args += ", " + strings.Join(g.params, ", ") + " float64"
+		}
+		fmt.Fprintf(w, "func U(%s) float64 {\n\tu := %s\n", args, g.closed)
+		for _, p := range g.parts {
+			fmt.Fprintf(w, "\tfor n := %d.0; n <= %d; n++ {\n", p.Family.From, g.terms)
+			for _, k := range p.Skips() {
+				fmt.Fprintf(w, "\t\tif n == %d {\n\t\t\tu += %s\n\t\t\tcontinue\n\t\t}\n", k, p.SpecialCode(g.l, k))
+			}
+			fmt.Fprintf(w, "\t\tu += %s\n\t}\n", p.TermCode(g.l))
+		}
+		fmt.Fprintln(w, "\treturn u\n}")
+	case "c":
+		args := []string{"double r", "double theta"}
+		for _, p := range g.params {
+			args = append(args, "double "+p)
+		}
+		fmt.Fprintf(w, "#include <math.h>\n\ndouble u(%s) {\n\tdouble u = %s;\n", strings.Join(args, ", "), g.closed)
+		for _, p := range g.parts {
+			fmt.Fprintf(w, "\tfor (double n = %d; n <= %d; n++) {\n", p.Family.From, g.terms)
+			for _, k := range p.Skips() {
+				fmt.Fprintf(w, "\t\tif (n == %d) { u += %s; continue; }\n", k, p.SpecialCode(g.l, k))
+			}
+			fmt.Fprintf(w, "\t\tu += %s;\n\t}\n", p.TermCode(g.l))
+		}
+		fmt.Fprintln(w, "\treturn u;\n}")
+	case "python":
+		args := append([]string{"r", "theta"}, g.params...)
+		fmt.Fprintf(w, "import math\n\n\ndef u(%s):\n    u = %s\n", strings.Join(args, ", "), g.closed)
+		for _, p := range g.parts {
+			fmt.Fprintf(w, "    for k in range(%d, %d):\n        n = float(k)\n", p.Family.From, g.terms+1)
+			for _, k := range p.Skips() {
+				fmt.Fprintf(w, "        if k == %d:\n            u += %s\n            continue\n", k, p.SpecialCode(g.l, k))
+			}
+			fmt.Fprintf(w, "        u += %s\n", p.TermCode(g.l))
+		}
+		fmt.Fprintln(w, "    return u")
+	}
+	return nil
+}

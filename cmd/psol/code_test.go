@@ -1,0 +1,176 @@
+package main
+
+import (
+	"bytes"
+	"fmt"
+	"math"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"strconv"
+	"strings"
+	"testing"
+
+	"psol/series/domain"
+)
+
+var codeCases = []struct {
+	args []string
+	env  string // parameter values as the generated function's trailing arguments
+}{
+	{[]string{"solve", "-k*lap(u) = q*(1 + x)", "--disk", "a", "--bc", "u = Ts + cos(2theta)"}, "k=2,q=3,Ts=1,a=1.5"},
+	{[]string{"solve", "lap(u) = -2", "--sector", "1,pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--terms", "400"}, ""},
+	{[]string{"solve", "lap(u) = 0", "--disk", "1", "--bc", "u = 0 < theta < pi ? 1 : 0", "--terms", "400"}, ""},
+}
+
+var codePoints = [][2]float64{{0.3, 0.4}, {0.6, 1.1}, {0.2, 1.4}}
+
+// psolValues evaluates the same problems in-process, for comparison.
+func psolValues(t *testing.T, args []string, env string) []float64 {
+	o := &solveOptions{tol: 1e-13, terms: 1 << 20}
+	cmd := newSolveCmd()
+	if err := cmd.Flags().Parse(args[2:]); err != nil {
+		t.Fatal(err)
+	}
+	o.problemFlags.regions = map[string]*string{}
+	for _, k := range regionKinds {
+		v, _ := cmd.Flags().GetString(k.flag)
+		o.problemFlags.regions[k.flag] = &v
+	}
+	o.bcs, _ = cmd.Flags().GetStringArray("bc")
+	if env != "" {
+		o.lets = []string{env}
+	}
+	pr, err := o.pose(args[1])
+	if err != nil {
+		t.Fatal(err)
+	}
+	sol, err := domain.SolveWith(pr.domain, pr.source, pr.conds, domain.Options{Env: pr.env})
+	if err != nil {
+		t.Fatal(err)
+	}
+	ev, err := sol.Compile(pr.env, 1e-13, 1<<20)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var out []float64
+	for _, p := range codePoints {
+		v, _, _ := ev.At(p[0], p[1])
+		out = append(out, v)
+	}
+	return out
+}
+
+func generate(t *testing.T, args []string, lang string) string {
+	var out, errb bytes.Buffer
+	if code := run(append(append([]string(nil), args...), "--format", "code", "--lang", lang), &out, &errb); code != 0 {
+		t.Fatalf("%v: %s", args, errb.String())
+	}
+	return out.String()
+}
+
+func callArgs(env string) string {
+	var vals []string
+	names := []string{}
+	m := map[string]string{}
+	for _, kv := range strings.Split(env, ",") {
+		if kv == "" {
+			continue
+		}
+		p := strings.SplitN(kv, "=", 2)
+		m[p[0]] = p[1]
+		names = append(names, p[0])
+	}
+	sortStrings(names)
+	for _, n := range names {
+		vals = append(vals, m[n])
+	}
+	if len(vals) == 0 {
+		return ""
+	}
+	return ", " + strings.Join(vals, ", ")
+}
+
+func sortStrings(s []string) {
+	for i := 1; i < len(s); i++ {
+		for j := i; j > 0 && s[j] < s[j-1]; j-- {
+			s[j], s[j-1] = s[j-1], s[j]
+		}
+	}
+}
+
+func parseOutput(t *testing.T, out []byte) []float64 {
+	var vs []float64
+	for _, f := range strings.Fields(string(out)) {
+		v, err := strconv.ParseFloat(f, 64)
+		if err != nil {
+			t.Fatalf("output %q: %v", out, err)
+		}
+		vs = append(vs, v)
+	}
+	return vs
+}
+
+// Generated code, compiled and run, gives psol's own values.
+func TestGeneratedCode(t *testing.T) {
+	dir := t.TempDir()
+	for i, c := range codeCases {
+		want := psolValues(t, c.args, c.env)
+		runners := map[string]func(src string) ([]byte, error){
+			"go": func(src string) ([]byte, error) {
+				var calls strings.Builder
+				for _, p := range codePoints {
+					fmt.Fprintf(&calls, "\tfmt.Println(U(%v, %v%s))\n", p[0], p[1], callArgs(c.env))
+				}
+				prog := "package main\n\nimport (\n\t\"fmt\"\n\t\"math\"\n)\n\n" + src + "\nfunc main() {\n" + calls.String() + "}\n"
+				path := filepath.Join(dir, fmt.Sprintf("u%d.go", i))
+				if err := os.WriteFile(path, []byte(prog), 0o644); err != nil {
+					return nil, err
+				}
+				return exec.Command("go", "run", path).CombinedOutput()
+			},
+			"c": func(src string) ([]byte, error) {
+				if _, err := exec.LookPath("gcc"); err != nil {
+					t.Skip("gcc not installed")
+				}
+				var calls strings.Builder
+				for _, p := range codePoints {
+					fmt.Fprintf(&calls, "\tprintf(\"%%.17g\\n\", u(%v, %v%s));\n", p[0], p[1], callArgs(c.env))
+				}
+				prog := "#include <stdio.h>\n" + src + "\nint main(void) {\n" + calls.String() + "\treturn 0;\n}\n"
+				path := filepath.Join(dir, fmt.Sprintf("u%d.c", i))
+				if err := os.WriteFile(path, []byte(prog), 0o644); err != nil {
+					return nil, err
+				}
+				bin := filepath.Join(dir, fmt.Sprintf("u%d", i))
+				if out, err := exec.Command("gcc", "-O1", "-o", bin, path, "-lm").CombinedOutput(); err != nil {
+					return out, err
+				}
+				return exec.Command(bin).CombinedOutput()
+			},
+			"python": func(src string) ([]byte, error) {
+				if _, err := exec.LookPath("python3"); err != nil {
+					t.Skip("python3 not installed")
+				}
+				var calls strings.Builder
+				for _, p := range codePoints {
+					fmt.Fprintf(&calls, "print(repr(u(%v, %v%s)))\n", p[0], p[1], callArgs(c.env))
+				}
+				return exec.Command("python3", "-c", src+"\n"+calls.String()).CombinedOutput()
+			},
+		}
+		for lang, runIt := range runners {
+			src := generate(t, c.args, lang)
+			out, err := runIt(src)
+			if err != nil {
+				t.Fatalf("%s for %v: %v\n%s\n%s", lang, c.args, err, out, src)
+			}
+			got := parseOutput(t, out)
+			for k := range want {
+				if math.Abs(got[k]-want[k]) > 1e-9*math.Max(1, math.Abs(want[k])) {
+					t.Errorf("%s for %v at %v: %.15g, psol %.15g", lang, c.args, codePoints[k], got[k], want[k])
+				}
+			}
+		}
+	}
+}
