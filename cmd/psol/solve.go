@@ -17,6 +17,9 @@ type solveOptions struct {
 	terms  int
 	report bool
 	lang   string
+	grid   int
+	csv    string
+	stderr io.Writer
 }
 
 func newSolveCmd() *cobra.Command {
@@ -27,13 +30,18 @@ func newSolveCmd() *cobra.Command {
 		Example: `  psol solve "lap(u) = 6r*sin(theta)" --disk 2 --bc "u = 4sin(3theta)"
   psol solve "-k*lap(u) = q" --disk a --bc "u = Ts"`,
 		Args: cobra.ExactArgs(1),
-		RunE: func(cmd *cobra.Command, args []string) error { return o.run(cmd.OutOrStdout(), args[0]) },
+		RunE: func(cmd *cobra.Command, args []string) error {
+			o.stderr = cmd.ErrOrStderr()
+			return o.run(cmd.OutOrStdout(), args[0])
+		},
 	}
 	f := cmd.Flags()
 	o.bind(f)
 	f.BoolVar(&o.steps, "steps", false, "show how each stage was found")
 	f.StringVar(&o.format, "format", "text", "output format: text, latex, json or code")
 	f.Float64Var(&o.tol, "tol", domain.SumTol, "numeric target for summed series")
+	f.IntVar(&o.grid, "grid", 0, "with --csv: evaluate u on an N x N grid over the domain")
+	f.StringVar(&o.csv, "csv", "", "with --grid: the CSV file to write (replaced only when the run succeeds)")
 	f.StringVar(&o.lang, "lang", "go", "language of --format code: go, c or python")
 	f.BoolVar(&o.report, "report", false, "add max, min, area integral, mean and the flux balance")
 	f.IntVar(&o.terms, "terms", 100000, "cap on the series terms summed")
@@ -51,6 +59,12 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		return err
 	}
 	pr.tol = o.tol
+	if (o.grid > 0) != (o.csv != "") {
+		return usagef("--grid N and --csv FILE go together")
+	}
+	if o.grid == 1 || o.grid > 4000 {
+		return usagef("--grid %d: choose 2 to 4000 points a side", o.grid)
+	}
 	var pts []point
 	for _, a := range o.at {
 		p, err := readPoint(a, pr.env)
@@ -65,6 +79,15 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	}
 	if err := evaluate(sol, pr.env, pts, o.tol, o.terms); err != nil {
 		return err
+	}
+	if o.csv != "" {
+		var progress io.Writer
+		if terminal(o.stderr) {
+			progress = o.stderr
+		}
+		if err := writeGrid(o.csv, sol, pr.env, o.grid, o.tol, o.terms, progress); err != nil {
+			return err
+		}
 	}
 	if o.format == "code" {
 		terms := codeTerms

@@ -1,0 +1,114 @@
+package main
+
+import (
+	"bufio"
+	"fmt"
+	"io"
+	"math"
+	"os"
+	"path/filepath"
+
+	"psol/series"
+	"psol/series/domain"
+)
+
+// gridPoints is an N×N polar grid over the closed region: r from the inner
+// to the outer bound (10R outside a circle), θ over the full turn or the sector.
+func gridPoints(d domain.Domain, n int, env series.Env) ([][2]float64, error) {
+	var rlo, rhi, thi float64 = 0, 1, 2 * math.Pi
+	full := true
+	var err error
+	switch d := d.(type) {
+	case domain.Disk:
+		rhi, err = d.R.Float(env)
+	case domain.Annulus:
+		if rlo, err = d.R1.Float(env); err == nil {
+			rhi, err = d.R2.Float(env)
+		}
+	case domain.Outside:
+		rlo, err = d.R.Float(env)
+		rhi = 10 * rlo
+	case domain.Sector:
+		rhi, err = d.R.Float(env)
+		thi, _ = d.Alpha.Float(nil)
+		full = false
+	}
+	if err != nil {
+		return nil, err
+	}
+	var pts [][2]float64
+	for i := 0; i < n; i++ {
+		r := rlo + (rhi-rlo)*float64(i)/float64(n-1)
+		for j := 0; j < n; j++ {
+			th := thi * float64(j) / float64(n)
+			if !full {
+				th = thi * float64(j) / float64(n-1)
+			}
+			if r == 0 && j > 0 {
+				break // the centre once
+			}
+			pts = append(pts, [2]float64{r, th})
+		}
+	}
+	return pts, nil
+}
+
+// writeAtomically writes through a temporary file in the target's folder and
+// renames it into place only when fill succeeds, so a failed run never
+// truncates an existing file.
+func writeAtomically(path string, fill func(io.Writer) error) error {
+	tmp, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp*")
+	if err != nil {
+		return err
+	}
+	defer os.Remove(tmp.Name()) // a no-op after the rename
+	bw := bufio.NewWriter(tmp)
+	if err := fill(bw); err != nil {
+		tmp.Close()
+		return err
+	}
+	if err := bw.Flush(); err != nil {
+		tmp.Close()
+		return err
+	}
+	if err := tmp.Close(); err != nil {
+		return err
+	}
+	return os.Rename(tmp.Name(), path)
+}
+
+// writeGrid evaluates u on the grid and writes CSV: r,theta,x,y,u,error.
+func writeGrid(path string, sol *domain.Solution, env series.Env, n int, tol float64, terms int, progress io.Writer) error {
+	pts, err := gridPoints(sol.Domain, n, env)
+	if err != nil {
+		return usagef("--grid: %v", err)
+	}
+	ev, err := sol.Compile(env, tol, terms)
+	if err != nil {
+		return usagef("--grid: %v", err)
+	}
+	return writeAtomically(path, func(w io.Writer) error {
+		fmt.Fprintln(w, "r,theta,x,y,u,error")
+		for i, p := range pts {
+			u, e, _ := ev.At(p[0], p[1])
+			fmt.Fprintf(w, "%.12g,%.12g,%.12g,%.12g,%.15g,%.3g\n", p[0], p[1], p[0]*math.Cos(p[1]), p[0]*math.Sin(p[1]), u, e+sol.DataError)
+			if progress != nil && i%1000 == 0 {
+				fmt.Fprintf(progress, "\rgrid %3d%%", 100*i/len(pts))
+			}
+		}
+		if progress != nil {
+			fmt.Fprint(progress, "\rgrid 100%\n")
+		}
+		return nil
+	})
+}
+
+// terminal reports whether w is a terminal, for progress output.
+func terminal(w io.Writer) bool {
+	f, ok := w.(*os.File)
+	if !ok {
+		return false
+	}
+	st, err := f.Stat()
+	return err == nil && st.Mode()&os.ModeCharDevice != 0
+}
