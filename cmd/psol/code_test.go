@@ -2,7 +2,10 @@ package main
 
 import (
 	"bytes"
+	"encoding/xml"
 	"fmt"
+	"image/color"
+	"image/png"
 	"math"
 	"os"
 	"os/exec"
@@ -171,6 +174,110 @@ func TestGeneratedCode(t *testing.T) {
 					t.Errorf("%s for %v at %v: %.15g, psol %.15g", lang, c.args, codePoints[k], got[k], want[k])
 				}
 			}
+		}
+	}
+}
+
+// Plot files decode: PNG with image/png, SVG as XML; the map is not blank.
+func TestPlotFiles(t *testing.T) {
+	dir := t.TempDir()
+	for _, name := range []string{"u.png", "u.svg"} {
+		path := filepath.Join(dir, name)
+		args := []string{"solve", "lap(u) = -2", "--sector", "1,3*pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--plot", path}
+		var out, errb bytes.Buffer
+		if code := run(args, &out, &errb); code != 0 {
+			t.Fatalf("%s: %s", name, errb.String())
+		}
+		data, err := os.ReadFile(path)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if strings.HasSuffix(name, ".png") {
+			img, err := png.Decode(bytes.NewReader(data))
+			if err != nil {
+				t.Fatal(err)
+			}
+			b := img.Bounds()
+			if b.Dx() < 400 || b.Dy() < 300 {
+				t.Errorf("PNG is %v", b)
+			}
+			colours := map[color.Color]bool{}
+			for y := b.Min.Y; y < b.Max.Y; y += 7 {
+				for x := b.Min.X; x < b.Max.X; x += 7 {
+					colours[img.At(x, y)] = true
+				}
+			}
+			if len(colours) < 30 {
+				t.Errorf("PNG has %d colours: blank?", len(colours))
+			}
+			continue
+		}
+		var doc struct {
+			XMLName xml.Name
+			Width   string `xml:"width,attr"`
+		}
+		if err := xml.Unmarshal(data, &doc); err != nil || doc.XMLName.Local != "svg" {
+			t.Fatalf("SVG does not parse: %v (%s)", err, doc.XMLName.Local)
+		}
+		if n := strings.Count(string(data), "<path"); n < 100 {
+			t.Errorf("SVG has %d paths: blank?", n)
+		}
+	}
+}
+
+// A failed run leaves an existing output file byte for byte as it was.
+func TestFailedRunKeepsFiles(t *testing.T) {
+	dir := t.TempDir()
+	for _, flag := range [][]string{{"--grid", "5", "--csv", "out.csv"}, {"--plot", "out.png"}} {
+		path := filepath.Join(dir, flag[len(flag)-1])
+		before := []byte("precious data\n")
+		if err := os.WriteFile(path, before, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		flag[len(flag)-1] = path
+		for _, bad := range [][]string{
+			{"solve", "lap(u) = (1 +", "--disk", "1", "--bc", "u = 0"},  // bad input
+			{"solve", "lap(u) = 1/r^2", "--disk", "1", "--bc", "u = 0"}, // no solution
+			{"solve", "lap(u) = 1", "--disk", "1", "--bc", "dn(u) = 5"}, // incompatible data
+		} {
+			var out, errb bytes.Buffer
+			if code := run(append(bad, flag...), &out, &errb); code == 0 {
+				t.Fatalf("%v succeeded", bad)
+			}
+			after, err := os.ReadFile(path)
+			if err != nil || !bytes.Equal(after, before) {
+				t.Errorf("%v with %v changed the file: %q (%v)", bad, flag, after, err)
+			}
+		}
+		entries, _ := os.ReadDir(dir)
+		for _, e := range entries {
+			if strings.Contains(e.Name(), ".tmp") {
+				t.Errorf("temporary file %s left behind", e.Name())
+			}
+		}
+	}
+}
+
+// BenchmarkGrid evaluates a 50-term series (the sector's) on a 500×500 grid.
+func BenchmarkGrid(b *testing.B) {
+	path := filepath.Join(b.TempDir(), "g.csv")
+	args := []string{"solve", "lap(u) = -2", "--sector", "1,3*pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--grid", "500", "--csv", path, "--terms", "50"}
+	for i := 0; i < b.N; i++ {
+		var out bytes.Buffer
+		if code := run(args, &out, &out); code != 0 {
+			b.Fatal(out.String())
+		}
+	}
+}
+
+// BenchmarkPlot draws the PNG of the same solution.
+func BenchmarkPlot(b *testing.B) {
+	path := filepath.Join(b.TempDir(), "u.png")
+	args := []string{"solve", "lap(u) = -2", "--sector", "1,3*pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--plot", path, "--terms", "50"}
+	for i := 0; i < b.N; i++ {
+		var out bytes.Buffer
+		if code := run(args, &out, &out); code != 0 {
+			b.Fatal(out.String())
 		}
 	}
 }

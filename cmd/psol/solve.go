@@ -20,6 +20,7 @@ type solveOptions struct {
 	grid   int
 	csv    string
 	stderr io.Writer
+	plot   string
 }
 
 func newSolveCmd() *cobra.Command {
@@ -42,6 +43,7 @@ func newSolveCmd() *cobra.Command {
 	f.Float64Var(&o.tol, "tol", domain.SumTol, "numeric target for summed series")
 	f.IntVar(&o.grid, "grid", 0, "with --csv: evaluate u on an N x N grid over the domain")
 	f.StringVar(&o.csv, "csv", "", "with --grid: the CSV file to write (replaced only when the run succeeds)")
+	f.StringVar(&o.plot, "plot", "", "draw u over the domain to FILE.png or FILE.svg")
 	f.StringVar(&o.lang, "lang", "go", "language of --format code: go, c or python")
 	f.BoolVar(&o.report, "report", false, "add max, min, area integral, mean and the flux balance")
 	f.IntVar(&o.terms, "terms", 100000, "cap on the series terms summed")
@@ -79,6 +81,16 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	}
 	if err := evaluate(sol, pr.env, pts, o.tol, o.terms); err != nil {
 		return err
+	}
+	if o.plot != "" {
+		format, err := plotFormat(o.plot)
+		if err != nil {
+			return err
+		}
+		title := "lap(u) = " + sol.Source.Text() + " on " + pr.domain.Describe()
+		if err := writeAtomically(o.plot, func(w io.Writer) error { return plotSolution(w, format, title, sol, pr.env, o.tol) }); err != nil {
+			return err
+		}
 	}
 	if o.csv != "" {
 		var progress io.Writer

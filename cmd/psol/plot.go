@@ -1,0 +1,230 @@
+package main
+
+import (
+	"fmt"
+	"image/color"
+	"io"
+	"math"
+	"path/filepath"
+	"strings"
+
+	"gonum.org/v1/plot"
+	"gonum.org/v1/plot/palette"
+	"gonum.org/v1/plot/palette/moreland"
+	"gonum.org/v1/plot/plotter"
+	"gonum.org/v1/plot/vg"
+	"gonum.org/v1/plot/vg/draw"
+	"gonum.org/v1/plot/vg/vgimg"
+	"gonum.org/v1/plot/vg/vgsvg"
+
+	"psol/series"
+	"psol/series/domain"
+)
+
+// plotPalette is psol's own ramp, from deep blue-green through olive to a
+// pale sand; its luminance rises throughout, so it reads in greyscale too.
+func plotPalette() palette.ColorMap {
+	cm, err := moreland.NewLuminance([]color.Color{
+		color.NRGBA{R: 24, G: 40, B: 72, A: 255},
+		color.NRGBA{R: 30, G: 110, B: 110, A: 255},
+		color.NRGBA{R: 140, G: 170, B: 70, A: 255},
+		color.NRGBA{R: 246, G: 236, B: 196, A: 255},
+	})
+	if err != nil {
+		panic("psol: palette: " + err.Error()) // fixed controls: cannot fail
+	}
+	return cm
+}
+
+// field is u on a Cartesian grid, NaN outside the domain.
+type field struct {
+	x0, y0, dx, dy float64
+	nx, ny         int
+	z              []float64
+	min, max       float64
+}
+
+func (f *field) Dims() (c, r int)   { return f.nx, f.ny }
+func (f *field) Z(c, r int) float64 { return f.z[r*f.nx+c] }
+func (f *field) X(c int) float64    { return f.x0 + f.dx*float64(c) }
+func (f *field) Y(r int) float64    { return f.y0 + f.dy*float64(r) }
+func (f *field) Min() float64       { return f.min }
+func (f *field) Max() float64       { return f.max }
+
+// bounds is the region's bounding box and its boundary as polylines.
+func bounds(d domain.Domain, env series.Env) (x0, x1, y0, y1 float64, edges []plotter.XYs, err error) {
+	circle := func(R, from, to float64) plotter.XYs {
+		var xy plotter.XYs
+		for i := 0; i <= 200; i++ {
+			t := from + (to-from)*float64(i)/200
+			xy = append(xy, plotter.XY{X: R * math.Cos(t), Y: R * math.Sin(t)})
+		}
+		return xy
+	}
+	switch d := d.(type) {
+	case domain.Disk:
+		R, e := d.R.Float(env)
+		return -R, R, -R, R, []plotter.XYs{circle(R, 0, 2*math.Pi)}, e
+	case domain.Annulus:
+		a, e := d.R1.Float(env)
+		if e != nil {
+			return 0, 0, 0, 0, nil, e
+		}
+		b, e := d.R2.Float(env)
+		return -b, b, -b, b, []plotter.XYs{circle(a, 0, 2*math.Pi), circle(b, 0, 2*math.Pi)}, e
+	case domain.Outside:
+		R, e := d.R.Float(env)
+		return -3 * R, 3 * R, -3 * R, 3 * R, []plotter.XYs{circle(R, 0, 2*math.Pi)}, e
+	case domain.Sector:
+		R, e := d.R.Float(env)
+		a, _ := d.Alpha.Float(nil)
+		arc := circle(R, 0, a)
+		edge := append(plotter.XYs{{X: 0, Y: 0}}, arc...)
+		edge = append(edge, plotter.XY{X: 0, Y: 0})
+		x0, x1, y0, y1 = 0, 0, 0, 0
+		for _, p := range edge {
+			x0, x1, y0, y1 = math.Min(x0, p.X), math.Max(x1, p.X), math.Min(y0, p.Y), math.Max(y1, p.Y)
+		}
+		return x0, x1, y0, y1, []plotter.XYs{edge}, e
+	}
+	return 0, 0, 0, 0, nil, fmt.Errorf("no plot for this region")
+}
+
+// plotSolution draws a filled map of u over the true domain, labelled
+// contour lines, the boundary, a colour bar, axes and a title.
+func plotSolution(w io.Writer, format string, title string, sol *domain.Solution, env series.Env, tol float64) error {
+	x0, x1, y0, y1, edges, err := bounds(sol.Domain, env)
+	if err != nil {
+		return usagef("--plot: %v", err)
+	}
+	ev, err := sol.Compile(env, tol, 1<<12)
+	if err != nil {
+		return usagef("--plot: %v", err)
+	}
+	const n = 160
+	f := &field{x0: x0, y0: y0, dx: (x1 - x0) / (n - 1), dy: (y1 - y0) / (n - 1), nx: n, ny: n, z: make([]float64, n*n), min: math.Inf(1), max: math.Inf(-1)}
+	for r := 0; r < n; r++ {
+		for c := 0; c < n; c++ {
+			x, y := f.X(c), f.Y(r)
+			rad, th := math.Hypot(x, y), math.Atan2(y, x)
+			if th < 0 {
+				th += 2 * math.Pi
+			}
+			v := math.NaN()
+			if in, _ := sol.Domain.Contains(rad, th, env); in {
+				v, _, _ = ev.At(rad, th)
+				f.min, f.max = math.Min(f.min, v), math.Max(f.max, v)
+			}
+			f.z[r*n+c] = v
+		}
+	}
+	if !(f.max > f.min) {
+		f.max = f.min + 1
+	}
+	cm := plotPalette()
+	cm.SetMin(f.min)
+	cm.SetMax(f.max)
+	p := plot.New()
+	p.Title.Text = title
+	p.X.Label.Text = "x"
+	p.Y.Label.Text = "y"
+	heat := plotter.NewHeatMap(f, cm.Palette(255))
+	heat.NaN = color.Transparent
+	heat.Min, heat.Max = f.min, f.max
+	p.Add(heat)
+	var levels []float64
+	for i := 1; i <= 8; i++ {
+		levels = append(levels, f.min+(f.max-f.min)*float64(i)/9)
+	}
+	ink := palette.Palette(plainPalette{color.NRGBA{A: 200}})
+	contours := plotter.NewContour(f, levels, ink)
+	contours.LineStyles[0].Width = vg.Points(0.6)
+	p.Add(contours)
+	if labels := contourLabels(f, levels); labels != nil {
+		p.Add(labels)
+	}
+	for _, e := range edges {
+		l, err := plotter.NewLine(e)
+		if err != nil {
+			return err
+		}
+		l.Width = vg.Points(1.5)
+		p.Add(l)
+	}
+	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = x0, x1, y0, y1
+	bar := plot.New()
+	bar.HideY()
+	bar.X.Label.Text = "u"
+	cb := &plotter.ColorBar{ColorMap: cm, Vertical: true}
+	bar.Add(cb)
+	bar.HideX()
+	bar.Y.Padding = 0
+	bar.HideAxes()
+	bar.Y.Tick.Marker = plot.DefaultTicks{}
+	bar2 := plot.New()
+	bar2.Add(cb)
+	bar2.HideX()
+	bar2.Y.Label.Text = "u"
+
+	width, height := 7*vg.Inch, 5.6*vg.Inch
+	var canvas vg.CanvasWriterTo
+	switch format {
+	case "svg":
+		canvas = vgsvg.New(width, height)
+	default:
+		canvas = vgimg.PngCanvas{Canvas: vgimg.New(width, height)}
+	}
+	dc := draw.New(canvas)
+	main := draw.Crop(dc, 0, -1.4*vg.Inch, 0, 0)
+	side := draw.Crop(dc, width-1.3*vg.Inch, 0, 0.45*vg.Inch, -0.6*vg.Inch)
+	p.Draw(main)
+	bar2.Draw(side)
+	_, err = canvas.WriteTo(w)
+	return err
+}
+
+// plainPalette is a one-colour palette for contour lines.
+type plainPalette []color.Color
+
+func (p plainPalette) Colors() []color.Color { return p }
+
+// contourLabels puts each level's value beside a grid point where u is
+// closest to it, away from the others.
+func contourLabels(f *field, levels []float64) *plotter.Labels {
+	var xys plotter.XYs
+	var texts []string
+	for _, lv := range levels {
+		best, bc, br := math.Inf(1), -1, -1
+		for r := f.ny / 5; r < 4*f.ny/5; r += 3 {
+			for c := 0; c < f.nx; c += 3 {
+				if z := f.Z(c, r); !math.IsNaN(z) && math.Abs(z-lv) < best {
+					best, bc, br = math.Abs(z-lv), c, r
+				}
+			}
+		}
+		if bc < 0 {
+			continue
+		}
+		xys = append(xys, plotter.XY{X: f.X(bc), Y: f.Y(br)})
+		texts = append(texts, fmt.Sprintf("%.3g", lv))
+	}
+	if len(xys) == 0 {
+		return nil
+	}
+	l, err := plotter.NewLabels(plotter.XYLabels{XYs: xys, Labels: texts})
+	if err != nil {
+		return nil
+	}
+	return l
+}
+
+// plotFormat picks PNG or SVG from the file name.
+func plotFormat(path string) (string, error) {
+	switch strings.ToLower(filepath.Ext(path)) {
+	case ".png":
+		return "png", nil
+	case ".svg":
+		return "svg", nil
+	}
+	return "", usagef("--plot %s: the file name must end in .png or .svg", path)
+}
