@@ -39,6 +39,9 @@ func (l Lang) pow(base string, e *big.Rat) string {
 	if e.IsInt() && e.Num().Int64() >= 1 && e.Num().Int64() <= 4 {
 		return strings.TrimSuffix(strings.Repeat(base+"*", int(e.Num().Int64())), "*")
 	}
+	if e.IsInt() && e.Num().Int64() <= -1 && e.Num().Int64() >= -4 {
+		return "(1.0/(" + l.pow(base, new(big.Rat).Neg(e)) + "))"
+	}
 	return l.Fn["pow"] + "(" + base + ", " + l.lit(e) + ")"
 }
 

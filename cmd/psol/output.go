@@ -40,6 +40,7 @@ type view struct {
 	Points     []point    `json:"points"`
 	Steps      []string   `json:"steps,omitempty"`
 	Report     *reportOut `json:"report,omitempty"`
+	Quantities []string   `json:"quantities,omitempty"`
 	Warnings   []string   `json:"warnings"`
 	showSteps  bool
 	checkScope string // how far an exact check reaches, for series
@@ -180,6 +181,9 @@ func renderText(w io.Writer, v *view) error {
 		if r.Note != "" {
 			line(w, "report", r.Note)
 		}
+	}
+	for _, q := range v.Quantities {
+		line(w, "figure", q)
 	}
 	for _, s := range v.Warnings {
 		line(w, "note", s)

@@ -19,8 +19,9 @@ type solveOptions struct {
 	lang   string
 	grid   int
 	csv    string
-	stderr io.Writer
-	plot   string
+	stderr   io.Writer
+	plot     string
+	quantity string
 }
 
 func newSolveCmd() *cobra.Command {
@@ -43,6 +44,7 @@ func newSolveCmd() *cobra.Command {
 	f.Float64Var(&o.tol, "tol", domain.SumTol, "numeric target for summed series")
 	f.IntVar(&o.grid, "grid", 0, "with --csv: evaluate u on an N x N grid over the domain")
 	f.StringVar(&o.csv, "csv", "", "with --grid: the CSV file to write (replaced only when the run succeeds)")
+	f.StringVar(&o.quantity, "quantity", "", "a named engineering figure: flow (duct flow rate, mean and fRe), torsion (torsion constant), peak (largest value)")
 	f.StringVar(&o.plot, "plot", "", "draw u over the domain to FILE.png or FILE.svg")
 	f.StringVar(&o.lang, "lang", "go", "language of --format code: go, c or python")
 	f.BoolVar(&o.report, "report", false, "add max, min, area integral, mean and the flux balance")
@@ -109,12 +111,21 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		return writeCode(w, o.lang, pr, sol, terms)
 	}
 	v := newView(pr, sol, pts, o.steps)
-	if o.report {
+	if o.report || o.quantity != "" {
 		rep, err := sol.Report(pr.env, o.tol)
 		if err != nil {
 			return usagef("--report: %v", err)
 		}
-		v.Report = newReportOut(rep)
+		if o.report {
+			v.Report = newReportOut(rep)
+		}
+		if o.quantity != "" {
+			q, err := quantity(o.quantity, pr, rep)
+			if err != nil {
+				return err
+			}
+			v.Quantities = q
+		}
 	}
 	if err := v.failedCheck(); err != nil {
 		render(w, v)

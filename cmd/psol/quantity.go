@@ -1,0 +1,54 @@
+package main
+
+import (
+	"fmt"
+	"math"
+
+	"psol/series/domain"
+)
+
+// quantity computes a named figure from the report. Each preset states its
+// physical reading and the usual caution:
+//
+//	flow:    Δu = −G/μ with u = 0 on the walls: u is the axial velocity,
+//	         Q = ∬u dA the flow rate, ū = Q/A, and for Δu = −1 the Fanning
+//	         product fRe = D_h²/(2ū) with D_h = 4A/P.
+//	torsion: Δφ = −2 with φ = 0 on the outer boundary: J = 2∬φ dA
+//	         (Saint-Venant; a hole needs its own constant φ on its boundary).
+//	peak:    the largest value of u and where it is (a peak temperature, say).
+func quantity(name string, pr *problem, rep *domain.Report) ([]string, error) {
+	var out []string
+	switch name {
+	case "flow":
+		out = append(out, fmt.Sprintf("flow rate Q = area integral of u = %.12g", rep.Integral), fmt.Sprintf("mean velocity = Q/A = %.12g", rep.Mean))
+		if a, p, ok := areaPerimeter(pr); ok && rep.Mean != 0 {
+			dh := 4 * a / p
+			out = append(out, fmt.Sprintf("hydraulic diameter D_h = 4A/P = %.12g; for lap(u) = -1, fRe = D_h^2/(2*mean) = %.12g", dh, dh*dh/(2*rep.Mean)))
+		}
+	case "torsion":
+		out = append(out, fmt.Sprintf("torsion constant J = 2 * area integral of u = %.12g (u the stress function of lap(u) = -2, zero on the outer boundary)", 2*rep.Integral))
+	case "peak":
+		out = append(out, fmt.Sprintf("peak u = %.12g at r = %.6g, theta = %.6g", rep.Max, rep.ArgMax[0], rep.ArgMax[1]))
+	default:
+		return nil, usagef("--quantity %q: choose flow, torsion or peak", name)
+	}
+	return append(out, caution), nil
+}
+
+// areaPerimeter is the region's area and wetted perimeter, numerically.
+func areaPerimeter(pr *problem) (float64, float64, bool) {
+	switch d := pr.domain.(type) {
+	case domain.Disk:
+		R, err := d.R.Float(pr.env)
+		return math.Pi * R * R, 2 * math.Pi * R, err == nil
+	case domain.Annulus:
+		a, err1 := d.R1.Float(pr.env)
+		b, err2 := d.R2.Float(pr.env)
+		return math.Pi * (b*b - a*a), 2 * math.Pi * (a + b), err1 == nil && err2 == nil
+	case domain.Sector:
+		R, err := d.R.Float(pr.env)
+		al, _ := d.Alpha.Float(nil)
+		return al * R * R / 2, al*R + 2*R, err == nil
+	}
+	return 0, 0, false
+}
