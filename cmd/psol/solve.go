@@ -10,15 +10,15 @@ import (
 
 type solveOptions struct {
 	problemFlags
-	steps  bool
-	format string
-	at     []string
-	tol    float64
-	terms  int
-	report bool
-	lang   string
-	grid   int
-	csv    string
+	steps    bool
+	format   string
+	at       []string
+	tol      float64
+	terms    int
+	report   bool
+	lang     string
+	grid     int
+	csv      string
 	stderr   io.Writer
 	plot     string
 	quantity string
