@@ -57,6 +57,14 @@ func weight(s, nu2 series.Coef, i, n int) series.Coef {
 	return series.Coef{}
 }
 
+// mulCoef is a·w, fast when w is rational.
+func mulCoef(a, w series.Coef) series.Coef {
+	if q, ok := w.Rat(); ok {
+		return a.MulRat(q)
+	}
+	return a.Mul(w)
+}
+
 // Radial solves ρ” + ρ'/r − ν²ρ/r² = c·r^(s−2) (ln r)^j for ρ = r^s Σ_i c_i (ln r)^i,
 // returning the c_i and the rule used. Homogeneous parts (c_i, i < d) are 0.
 func Radial(c series.Coef, s *big.Rat, j int, nu2 series.Coef) ([]series.Coef, string) {
@@ -73,9 +81,14 @@ func Radial(c series.Coef, s *big.Rat, j int, nu2 series.Coef) ([]series.Coef, s
 				rhs = c
 			}
 			for n := i + d + 1; n <= i+2 && n < len(cs); n++ {
-				rhs = rhs.Sub(cs[n].Mul(weight(sc, nu2, i, n)))
+				rhs = rhs.Sub(mulCoef(cs[n], weight(sc, nu2, i, n)))
 			}
-			cs[i+d], _ = rhs.Div(weight(sc, nu2, i, i+d)) // the rule guarantees a nonzero pivot
+			w := weight(sc, nu2, i, i+d) // the rule guarantees a nonzero pivot
+			if q, ok := w.Rat(); ok {
+				cs[i+d] = rhs.MulRat(new(big.Rat).Inv(q)) // the common case: a rational pivot
+			} else {
+				cs[i+d], _ = rhs.Div(w)
+			}
 		}
 		return cs, rule.name
 	}

@@ -102,15 +102,25 @@ var ErrLogOfRadius = errors.New("the radius has no exact logarithm")
 // Trace is s on the circle r = radius, a function of θ alone.
 func (s Sum) Trace(radius Coef) (Sum, error) {
 	var lnR *Coef
+	powers := map[string]Coef{} // R^p, once per exponent
 	out := make([]Term, 0, len(s.t))
 	for _, t := range s.t {
 		c := t.C
-		if t.power().Sign() != 0 {
-			pw, err := radius.Pow(t.power())
-			if err != nil {
-				return Sum{}, err
+		if p := t.power(); p.Sign() != 0 {
+			key := p.RatString()
+			pw, ok := powers[key]
+			if !ok {
+				var err error
+				if pw, err = radius.Pow(p); err != nil {
+					return Sum{}, err
+				}
+				powers[key] = pw
 			}
-			c = c.Mul(pw)
+			if q, ok := pw.Rat(); ok {
+				c = c.MulRat(q)
+			} else {
+				c = c.Mul(pw)
+			}
 		}
 		if t.L > 0 {
 			if lnR == nil {

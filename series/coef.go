@@ -210,6 +210,9 @@ func (c Coef) Equal(d Coef) bool { return c.Sub(d).IsZero() }
 
 // Pow is c^q: any integer q, or a rational q when c is a single term.
 func (c Coef) Pow(q *big.Rat) (Coef, error) {
+	if x, ok := c.Rat(); ok && q.IsInt() && (x.Sign() != 0 || q.Sign() > 0) {
+		return RatCoef(ratPowInt(x, q.Num().Int64())), nil // the common case: a numeric radius
+	}
 	if q.IsInt() {
 		n := q.Num().Int64()
 		if n < 0 {
