@@ -359,14 +359,16 @@ type radialFunc struct {
 
 // CompiledSeries evaluates a series in float64.
 type CompiledSeries struct {
-	jump    func(n float64) float64 // a part of each scaled coefficient summed elsewhere
-	inverse bool                    // scaled terms are (R/r)^ν
-	fam     Family
-	slope   float64
-	offset  float64
-	R       float64
-	general []radialFunc
-	special map[int][]radialFunc
+	lastSpecial int                     // the largest exceptional n
+	cache       *coefCache              // general coefficients by n, filled as sums reach them
+	jump        func(n float64) float64 // a part of each scaled coefficient summed elsewhere
+	inverse     bool                    // scaled terms are (R/r)^ν
+	fam         Family
+	slope       float64
+	offset      float64
+	R           float64
+	general     []radialFunc
+	special     map[int][]radialFunc
 }
 
 func compileRadial(ts []RadialTerm, env Env) ([]radialFunc, error) {
@@ -385,6 +387,31 @@ func compileRadial(ts []RadialTerm, env Env) ([]radialFunc, error) {
 	return out, nil
 }
 
+// coefCache holds c_n for each general term and n − From, since the
+// coefficients do not depend on the point.
+type coefCache struct {
+	vals [][]float64 // [term][n − From]
+	jump []float64
+}
+
+func (cs CompiledSeries) coef(i, n int) float64 {
+	k := n - cs.fam.From
+	v := cs.cache.vals[i]
+	for len(v) <= k {
+		v = append(v, cs.general[i].c.at(float64(cs.fam.From+len(v))))
+	}
+	cs.cache.vals[i] = v
+	return v[k]
+}
+
+func (cs CompiledSeries) jumpAt(n int) float64 {
+	k := n - cs.fam.From
+	for len(cs.cache.jump) <= k {
+		cs.cache.jump = append(cs.cache.jump, cs.jump(float64(cs.fam.From+len(cs.cache.jump))))
+	}
+	return cs.cache.jump[k]
+}
+
 // Compile fixes the parameters from env for float64 evaluation.
 func (s Series) Compile(env Env) (CompiledSeries, error) {
 	R, err := s.R.Float(env)
@@ -397,10 +424,12 @@ func (s Series) Compile(env Env) (CompiledSeries, error) {
 	if cs.general, err = compileRadial(s.General, env); err != nil {
 		return CompiledSeries{}, err
 	}
+	cs.cache = &coefCache{vals: make([][]float64, len(cs.general))}
 	for n, ts := range s.Special {
 		if cs.special[n], err = compileRadial(ts, env); err != nil {
 			return CompiledSeries{}, err
 		}
+		cs.lastSpecial = max(cs.lastSpecial, n)
 	}
 	return cs, nil
 }
@@ -449,7 +478,12 @@ func (cs CompiledSeries) At(r, theta, tol float64, maxTerms int) Summed {
 	lnr := math.Log(r)
 	// Per point: the fixed radial factors r^P (ln r)^L of the general terms;
 	// per step, (r/R)^ν and the angle advance by constant factors.
-	fixed := make([]float64, len(cs.general))
+	var buf [8]float64
+	fixed := buf[:0]
+	if len(cs.general) > len(buf) {
+		fixed = make([]float64, 0, len(cs.general))
+	}
+	fixed = fixed[:len(cs.general)]
 	for i, t := range cs.general {
 		if !t.scaled {
 			x := 1.0
@@ -482,12 +516,16 @@ func (cs CompiledSeries) At(r, theta, tol float64, maxTerms int) Summed {
 			c, s = math.Cos(nu*theta), math.Sin(nu*theta)
 		}
 		var rho float64
-		ts, special := cs.special[n]
+		var ts []radialFunc
+		special := len(cs.special) > 0 && n <= cs.lastSpecial
+		if special {
+			ts, special = cs.special[n]
+		}
 		if special {
 			rho = cs.radial(ts, nf, nu, r, lnr)
 		} else {
 			for i, t := range cs.general {
-				k := t.c.at(nf)
+				k := cs.coef(i, n)
 				if t.scaled {
 					rho += k * scale
 				} else {
@@ -496,7 +534,7 @@ func (cs CompiledSeries) At(r, theta, tol float64, maxTerms int) Summed {
 			}
 		}
 		if cs.jump != nil {
-			rho -= cs.jump(nf) * scale
+			rho -= cs.jumpAt(n) * scale
 		}
 		phi := c
 		if cs.fam.Sin {

@@ -7,6 +7,7 @@ import (
 	"math"
 	"os"
 	"path/filepath"
+	"strconv"
 
 	"psol/series"
 	"psol/series/domain"
@@ -89,9 +90,20 @@ func writeGrid(path string, sol *domain.Solution, env series.Env, n int, tol flo
 	}
 	return writeAtomically(path, func(w io.Writer) error {
 		fmt.Fprintln(w, "r,theta,x,y,u,error")
+		var line []byte
 		for i, p := range pts {
 			u, e, _ := ev.At(p[0], p[1])
-			fmt.Fprintf(w, "%.12g,%.12g,%.12g,%.12g,%.15g,%.3g\n", p[0], p[1], p[0]*math.Cos(p[1]), p[0]*math.Sin(p[1]), u, e+sol.DataError)
+			line = line[:0]
+			for k, v := range [6]float64{p[0], p[1], p[0] * math.Cos(p[1]), p[0] * math.Sin(p[1]), u, e + sol.DataError} {
+				if k > 0 {
+					line = append(line, ',')
+				}
+				line = strconv.AppendFloat(line, v, 'g', []int{12, 12, 12, 12, 15, 3}[k], 64)
+			}
+			line = append(line, '\n')
+			if _, err := w.Write(line); err != nil {
+				return err
+			}
 			if progress != nil && i%1000 == 0 {
 				fmt.Fprintf(progress, "\rgrid %3d%%", 100*i/len(pts))
 			}
