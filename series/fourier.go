@@ -139,3 +139,82 @@ func endMoment(k int, sin bool, m int, sigma int64, lambda Coef, q *big.Rat, n i
 	sinL := sm.Mul(cn).Add(cm.Mul(sn))
 	return thetaMoment(k, sin, lambda, end, cosL, sinL)
 }
+
+// ProjectPieces is the coefficient of Φ_n in the expansion on (0, α) of data
+// given by exact pieces (those beyond α are ignored): (1/N_n) Σ ∫ g Φ_n dθ,
+// N_n = ∫_0^α Φ_n² dθ, α = aOverPi·π. It is general in n unless concrete.
+func ProjectPieces(ps []Piece, fam Family, aOverPi *big.Rat, n int, concrete bool) (Coef, error) {
+	nc := IndexCoef
+	if concrete {
+		nc = IntCoef(int64(n))
+	}
+	nu := fam.Nu(nc)
+	total := Coef{}
+	for _, p := range ps {
+		lo, hi := p.From, p.To
+		if lo.Cmp(aOverPi) >= 0 {
+			continue
+		}
+		if hi.Cmp(aOverPi) > 0 {
+			hi = aOverPi
+		}
+		if !p.Value.IsExact() {
+			return Coef{}, ErrNotExactPieces
+		}
+		for _, t := range p.Value.Exact.t {
+			if t.power().Sign() != 0 || t.L != 0 {
+				return Coef{}, ErrNotExactPieces
+			}
+			rule := trigProduct[b2i(t.Sin)][b2i(fam.Sin)]
+			x := t.Sin != fam.Sin
+			for _, part := range []struct{ sigma, w int64 }{{-1, rule.dif}, {1, rule.add}} {
+				if part.w == 0 {
+					continue
+				}
+				lambda := IntCoef(int64(t.M)).Add(nu.MulRat(big.NewRat(part.sigma, 1)))
+				v := Coef{}
+				for i, end := range []*big.Rat{lo, hi} {
+					m, err := familyEndMoment(t.K, x, t.M, part.sigma, lambda, end, fam, n, concrete)
+					if err != nil {
+						return Coef{}, err
+					}
+					if i == 0 {
+						m = m.Neg()
+					}
+					v = v.Add(m)
+				}
+				total = total.Add(v.Mul(t.C).MulRat(big.NewRat(part.w, 2)))
+			}
+		}
+	}
+	norm := SymCoef(Pi).MulRat(aOverPi).MulRat(big.NewRat(1, 2))
+	if q, ok := nu.Rat(); ok && q.Sign() == 0 && !fam.Sin {
+		norm = SymCoef(Pi).MulRat(aOverPi)
+	}
+	return total.Div(norm)
+}
+
+// familyEndMoment is ∫_0^{qπ} θ^k T(λθ) dθ for λ = m + σν_n, ν_n = Slope·n + Offset:
+// λqπ = φ + σ·Slope·q·nπ with the fixed phase φ = (m + σ·Offset)qπ.
+func familyEndMoment(k int, sin bool, m int, sigma int64, lambda Coef, q *big.Rat, fam Family, n int, concrete bool) (Coef, error) {
+	end := SymCoef(Pi).MulRat(q)
+	phase := new(big.Rat).Add(big.NewRat(int64(m), 1), new(big.Rat).Mul(big.NewRat(sigma, 1), fam.Offset))
+	cp, sp, ok := unitCircle(end.MulRat(phase))
+	if !ok {
+		return Coef{}, ErrAngle
+	}
+	rate := new(big.Rat).Mul(fam.Slope, q) // the angle's multiple of nπ
+	var cn, sn Coef
+	if concrete {
+		cn, sn, ok = unitCircle(SymCoef(Pi).MulRat(new(big.Rat).Mul(rate, big.NewRat(int64(n), 1))))
+		if !ok {
+			return Coef{}, ErrAngle
+		}
+	} else {
+		cn, sn = nTrig(rate)
+	}
+	sn = sn.MulRat(big.NewRat(sigma, 1))
+	cosL := cp.Mul(cn).Sub(sp.Mul(sn))
+	sinL := sp.Mul(cn).Add(cp.Mul(sn))
+	return thetaMoment(k, sin, lambda, end, cosL, sinL)
+}

@@ -75,9 +75,11 @@ func poisson(g func(float64) float64, r, theta float64) float64 {
 		edges = append(edges, theta-d, theta+d)
 	}
 	edges = append(edges, theta-math.Pi, theta+math.Pi)
-	for _, k := range []float64{-2 * math.Pi, 0, 2 * math.Pi} { // the data's own break point φ = 0
-		if k > theta-math.Pi && k < theta+math.Pi {
-			edges = append(edges, k)
+	for _, b := range []float64{0, math.Pi / 2, math.Pi, 3 * math.Pi / 2} { // the data's break points
+		for _, k := range []float64{-2 * math.Pi, 0, 2 * math.Pi} {
+			if x := b + k; x > theta-math.Pi && x < theta+math.Pi {
+				edges = append(edges, x)
+			}
 		}
 	}
 	sortFloats(edges)
@@ -294,6 +296,30 @@ func TestReport(t *testing.T) {
 		}
 		if math.Abs(rep.Flux-rep.Source) > c.tol*math.Max(1, math.Abs(rep.Source)) {
 			t.Errorf("%s on %s: flux %.15g, source integral %.15g", c.eq, c.d.Describe(), rep.Flux, rep.Source)
+		}
+	}
+}
+
+// Piecewise data on a sector's arc: the semicircle with u = 1 on the arc for
+// θ < π/2 and 0 elsewhere on its boundary is, by odd reflection across the
+// diameter (common practice), the disk with data 1, 0, −1, 0 on the quarters;
+// its Poisson integral by quadrature is the independent value.
+func TestSectorPiecewiseArc(t *testing.T) {
+	sol := solve(t, "lap(u) = 0", sector(t, "1", "pi"), "arc: u = theta < pi/2 ? 1 : 0", "start: u = 0", "end: u = 0")
+	ev := evaluator(t, sol, 1e-13)
+	odd := func(th float64) float64 {
+		switch {
+		case th < math.Pi/2:
+			return 1
+		case th >= 3*math.Pi/2:
+			return -1
+		}
+		return 0
+	}
+	for _, p := range [][2]float64{{0.3, 0.5}, {0.5, 1}, {0.8, 2.5}, {0.9, 1.4}} {
+		got, _, _ := ev.At(p[0], p[1])
+		if want := poisson(odd, p[0], p[1]); math.Abs(got-want) > 1e-10 {
+			t.Errorf("u(%v) = %.13f, Poisson quadrature of the reflection %.13f", p, got, want)
 		}
 	}
 }

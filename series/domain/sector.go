@@ -122,8 +122,8 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 	if err != nil {
 		return nil, unsupported("boundary data on arc: %v", err)
 	}
-	if !gf.IsExact() {
-		return nil, unsupported("boundary data on a sector's arc must be exact sums of powers of theta times cos(m*theta) and sin(m*theta) so far, not %s", gf.Text())
+	if !gf.IsExact() && !(gf.IsPiecewise() && gf.ExactPieces()) {
+		return nil, unsupported("boundary data on a sector's arc must be exact (sums of powers of theta times cos(m*theta) and sin(m*theta), or pieces of them), not %s", gf.Text())
 	}
 	g := gf.Exact
 	bw, err := arc.apply(arcCond, shift)
@@ -148,6 +148,10 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 	}
 	data := g.Sub(bw).Sub(bu) // what the modes must carry on the arc
 	b := &sectorBuilder{s: s, a: a, fam: fam, f: expanded, data: data, arc: arc, cond: arcCond}
+	if gf.IsPiecewise() { // data pieces, less the shift's and the closed part's traces
+		b.pieces = gf.Add(series.ExactField(bw.Add(bu).Neg())).Pieces
+		b.data = series.Sum{}
+	}
 	sol := &Solution{Domain: s, Source: p.f, Particular: closed, Harmonic: shift}
 	parts := &SeriesParts{}
 	for _, part := range []*series.SeriesSum{&parts.Particular, &parts.Trace, &parts.Correction, &parts.Harmonic, &parts.U} {
@@ -172,7 +176,7 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 		m.store(parts, n)
 	}
 	sol.Series = parts
-	sol.Sides = []Side{{Condition: arcCond, At: s.R.Text() + ", theta", AtLaTeX: "r=" + s.R.LaTeX(), Data: g, Trace: bu, DataText: g.Text(), DataLaTeX: g.LaTeX()}}
+	sol.Sides = []Side{{Condition: arcCond, At: s.R.Text() + ", theta", AtLaTeX: "r=" + s.R.LaTeX(), Data: g, Trace: bu, DataText: gf.Text(), DataLaTeX: gf.LaTeX()}}
 	for _, name := range []string{"start", "end"} {
 		ray := p.conds[name].G
 		sol.Sides = append(sol.Sides, Side{Condition: p.conds[name], At: "r, " + map[string]string{"start": "0", "end": s.Alpha.Text()}[name], Data: ray.Exact, DataText: ray.Text(), DataLaTeX: ray.LaTeX()})
@@ -190,8 +194,9 @@ type sectorBuilder struct {
 	a    *big.Rat // α/π
 	fam  series.Family
 	f    series.Sum
-	data series.Sum
-	arc  circle
+	data   series.Sum
+	pieces []series.Piece // piecewise arc data, when given so
+	arc    circle
 	cond Condition
 }
 
@@ -252,6 +257,13 @@ func (b *sectorBuilder) mode(nc series.Coef, n int, concrete bool) (modeResult, 
 		}
 	}
 	gamma := series.Coef{}
+	if b.pieces != nil {
+		gp, err := series.ProjectPieces(b.pieces, b.fam, b.a, n, concrete)
+		if err != nil {
+			return res, unsupported("%v", err)
+		}
+		gamma = gp
+	}
 	for _, t := range b.data.Terms() {
 		beta, err := series.Project(t.K, t.M, t.Sin, b.fam, b.a, n, concrete)
 		if err != nil {
@@ -311,6 +323,11 @@ func (b *sectorBuilder) exceptional() []int {
 	}
 	for _, t := range append(b.f.Terms(), b.data.Terms()...) {
 		hit(big.NewRat(int64(t.M), 1))
+	}
+	for _, p := range b.pieces {
+		for _, t := range p.Value.Exact.Terms() {
+			hit(big.NewRat(int64(t.M), 1))
+		}
 	}
 	for _, t := range b.f.Terms() {
 		hit(new(big.Rat).Abs(new(big.Rat).Add(t.P, big.NewRat(2, 1))))
