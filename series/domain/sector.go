@@ -190,14 +190,14 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 
 // sectorBuilder computes the modes of a sector solution.
 type sectorBuilder struct {
-	s    Sector
-	a    *big.Rat // α/π
-	fam  series.Family
-	f    series.Sum
+	s      Sector
+	a      *big.Rat // α/π
+	fam    series.Family
+	f      series.Sum
 	data   series.Sum
 	pieces []series.Piece // piecewise arc data, when given so
 	arc    circle
-	cond Condition
+	cond   Condition
 }
 
 // modeResult is one mode's radial parts: particular (r^s (ln r)^i terms),
