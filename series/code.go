@@ -61,6 +61,8 @@ func (l Lang) atom(s Symbol, index string) string {
 		return l.Fn["log"] + "(" + s.name + ")"
 	case kindSign:
 		return l.Fn["cos"] + "(" + l.Pi + "*" + index + ")"
+	case kindPowN:
+		return l.Fn["pow"] + "(" + powBase(s.name).Code(l, index) + ", " + index + ")"
 	case kindCosN, kindSinN:
 		q, _ := new(big.Rat).SetString(s.name)
 		fn := l.Fn["cos"]

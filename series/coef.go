@@ -312,6 +312,13 @@ func (s Symbol) float(env Env) (float64, error) {
 		return f, nil
 	case kindPi:
 		return math.Pi, nil
+	case kindPowN:
+		v, err := env.float(Index)
+		if err != nil {
+			return 0, err
+		}
+		b, err := powBase(s.name).Float(env)
+		return math.Pow(b, v), err
 	case kindCosN, kindSinN:
 		v, err := env.float(Index)
 		q, _ := new(big.Rat).SetString(s.name)
@@ -417,6 +424,20 @@ func (p Poly) subst(env Env) (Coef, error) {
 			case f.sym.kind == kindParam:
 				if v, ok := env[f.sym.name]; ok {
 					base = v
+				}
+			case f.sym.kind == kindPowN:
+				if v, ok := env[Index]; ok {
+					q, isRat := v.Rat()
+					if !isRat || !q.IsInt() {
+						return Coef{}, fmt.Errorf("(%s)^n needs a whole number", f.sym.name)
+					}
+					b, err := powBase(f.sym.name).Subst(env)
+					if err != nil {
+						return Coef{}, err
+					}
+					if base, err = b.Pow(q); err != nil {
+						return Coef{}, err
+					}
 				}
 			case f.sym.kind == kindCosN || f.sym.kind == kindSinN:
 				if v, ok := env[Index]; ok {

@@ -415,7 +415,7 @@ func dependsOnIndex(c Coef) bool {
 	for _, p := range []Poly{c.num, c.den} {
 		for _, t := range p.t {
 			for _, f := range t.m.f {
-				if f.sym.kind == kindSign || f.sym.kind == kindCosN || f.sym.kind == kindSinN || f.sym.kind == kindParam && f.sym.name == Index {
+				if f.sym.kind == kindSign || f.sym.kind == kindCosN || f.sym.kind == kindSinN || f.sym.kind == kindPowN || f.sym.kind == kindParam && f.sym.name == Index {
 					return true
 				}
 			}

@@ -334,6 +334,16 @@ func atomPower(s Symbol, e *big.Rat, st style) string {
 			return "(-1)^{" + s.name + "}"
 		}
 		return "(-1)^" + s.name
+	case kindPowN:
+		b := "(" + s.name + ")"
+		if st.latex {
+			b = `\left(` + powBase(s.name).LaTeX() + `\right)`
+			return b + "^{" + latexRat(e) + " n}"
+		}
+		if e.Cmp(one) == 0 {
+			return b + "^n"
+		}
+		return b + "^(" + e.RatString() + "*n)"
 	case kindCosN, kindSinN:
 		fn := map[symKind]string{kindCosN: "cos", kindSinN: "sin"}[s.kind]
 		q, _ := new(big.Rat).SetString(s.name)

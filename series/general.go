@@ -271,6 +271,7 @@ type monoFunc struct {
 type nTrigFactor struct {
 	q, e float64
 	sin  bool
+	pow  bool // ρ^(e·n) with ρ = q, instead of a trigonometric factor
 }
 
 func compilePoly(p Poly, env Env) ([]monoFunc, error) {
@@ -284,10 +285,17 @@ func compilePoly(p Poly, env Env) ([]monoFunc, error) {
 				mf.nPow, _ = f.exp.Float64()
 			case f.sym.kind == kindSign:
 				mf.signed = true
+			case f.sym.kind == kindPowN:
+				b, err := powBase(f.sym.name).Float(env)
+				if err != nil {
+					return nil, err
+				}
+				e, _ := f.exp.Float64()
+				mf.trig = append(mf.trig, nTrigFactor{q: b, e: e, pow: true})
 			case f.sym.kind == kindCosN || f.sym.kind == kindSinN:
 				q, _ := new(big.Rat).SetString(f.sym.name)
 				e, _ := f.exp.Float64()
-				mf.trig = append(mf.trig, nTrigFactor{ratFloat(q), e, f.sym.kind == kindSinN})
+				mf.trig = append(mf.trig, nTrigFactor{q: ratFloat(q), e: e, sin: f.sym.kind == kindSinN})
 			default:
 				v, err := f.sym.float(env)
 				if err != nil {
@@ -327,6 +335,10 @@ func evalMonos(ms []monoFunc, n, sign float64) float64 {
 			v *= sign
 		}
 		for _, t := range m.trig {
+			if t.pow {
+				v *= math.Pow(t.q, t.e*n)
+				continue
+			}
 			x := math.Cos(t.q * math.Pi * n)
 			if t.sin {
 				x = math.Sin(t.q * math.Pi * n)

@@ -17,6 +17,7 @@ const (
 	kindSign                 // (−1)^n for a whole-number parameter n
 	kindCosN                 // cos(qπn) for the index n, q in (0, 1) (name: q)
 	kindSinN                 // sin(qπn)
+	kindPowN                 // ρ^n for a fixed ratio ρ (name: ρ's text; value in powBases)
 )
 
 // Symbol is one atom of a coefficient. Atoms are treated as independent
@@ -49,6 +50,8 @@ func (s Symbol) key() string {
 		return "cos(" + s.name + "*pi*n)"
 	case kindSinN:
 		return "sin(" + s.name + "*pi*n)"
+	case kindPowN:
+		return "(" + s.name + ")^n"
 	}
 	return s.name
 }

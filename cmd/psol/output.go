@@ -279,14 +279,25 @@ func (v *view) seriesStages(sol *domain.Solution, ps *domain.SeriesParts) {
 	up, upSer := sol.Particular, ps.Particular
 	h, hSer := sol.Harmonic, ps.Harmonic
 	v.Particular = exactStage("particular", "u_p = "+join(up, upSer, false), join(up, upSer, true), "u_p")
-	v.Trace = exactStage("trace", traceText(side)+" = "+join(side.Trace, ps.Trace, false), join(side.Trace, ps.Trace, true), traceTeX(side))
-	corr := side.Data.Sub(side.Trace)
-	lhs := `g - ` + traceTeX(side)
 	if _, ok := sol.Domain.(domain.Sector); ok {
-		corr, lhs = series.Sum{}, `g - w - `+traceTeX(side)
-		v.Steps = append(v.Steps, "the rays' values are carried by the harmonic shift w = "+h.Text()+"; the modes vanish on the rays")
+		v.Trace = exactStage("trace", traceText(side)+" = "+join(side.Trace, ps.Trace, false), join(side.Trace, ps.Trace, true), traceTeX(side))
 	}
-	v.Correction = exactStage("correction", join(corr, ps.Correction, false), join(corr, ps.Correction, true), lhs)
+	if _, ok := sol.Domain.(domain.Sector); ok {
+		v.Steps = append(v.Steps, "the rays' values are carried by the harmonic shift w = "+h.Text()+"; the modes vanish on the rays")
+		v.Correction = exactStage("correction", ps.Correction.Text(), ps.Correction.LaTeX(), `g - w - `+traceTeX(side))
+	} else {
+		var co, coTeX []string
+		for _, s := range sol.Sides {
+			prefix := ""
+			if len(sol.Sides) > 1 {
+				prefix = s.Condition.Side + ": "
+			}
+			corr := s.Data.Sub(s.Trace)
+			co = append(co, prefix+join(corr, ps.BySide[s.Condition.Side], false))
+			coTeX = append(coTeX, join(corr, ps.BySide[s.Condition.Side], true))
+		}
+		v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(coTeX, ", "), `g - `+traceTeX(side))
+	}
 	v.Harmonic = exactStage("harmonic", join(h, hSer, false), join(h, hSer, true), "u_h")
 	v.Solution = exactStage("solution", "u = "+sol.Formula(false), sol.Formula(true), "u")
 	v.checkScope = "; the series term by term, for every n"

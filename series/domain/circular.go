@@ -172,6 +172,8 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 	}
 	sol := &Solution{Domain: d, Source: p.f, Particular: up, Rules: rules}
 	data := map[string]series.Sum{}
+	traced := map[string]series.Field{}
+	traces := map[string]series.Sum{}
 	for _, c := range d.circles() {
 		cond := p.conds[c.name]
 		gf, err := cond.G.TraceField(c.radius)
@@ -182,9 +184,20 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 		if err != nil {
 			return nil, unsupported("trace on %s: %v", c.name, err)
 		}
-		g, err := circleData(d, c, cond, gf, tr, p, sol)
-		if err != nil {
-			return nil, err
+		traced[c.name], traces[c.name] = gf, tr
+	}
+	closedData, err := twoCircleSeries(d, p, traced, traces, sol)
+	if err != nil {
+		return nil, err
+	}
+	for _, c := range d.circles() {
+		cond := p.conds[c.name]
+		gf, tr := traced[c.name], traces[c.name]
+		g, ok := closedData[c.name]
+		if !ok {
+			if g, err = circleData(d, c, cond, gf, tr, p, sol); err != nil {
+				return nil, err
+			}
 		}
 		corr := g.Sub(tr)
 		side := Side{Condition: cond, At: c.radius.Text() + ", theta", AtLaTeX: "r=" + c.radius.LaTeX(), Data: g, Trace: tr, Correction: corr,
@@ -207,6 +220,11 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 		}
 	}
 	sol.Checks = verifyCircular(d, sol, p.conds)
+	for i := range sol.Checks {
+		if r, ok := sol.seriesResidual[sol.Checks[i].Side]; ok {
+			sol.Checks[i].Residual = sol.Checks[i].Residual.Add(series.Const(r))
+		}
+	}
 	return sol, nil
 }
 
@@ -522,6 +540,7 @@ func seriesData(d circular, c circle, cond Condition, data series.Field, fc seri
 		if err != nil {
 			return series.Sum{}, err
 		}
+		sol.addSeriesResidual(c.name, coef.Mul(bn).Sub(general)) // the general term checked exactly
 		corr = append(corr, series.Series{Family: fam, R: c.radius, Inverse: inverse, General: []series.RadialTerm{{C: general, P: new(big.Rat)}}, Special: special})
 		harm = append(harm, series.Series{Family: fam, R: c.radius, Inverse: inverse, General: []series.RadialTerm{{C: coef, Scaled: true}}, Special: special})
 	}
@@ -538,6 +557,168 @@ func seriesData(d circular, c circle, cond Condition, data series.Field, fc seri
 		Correction: series.SeriesSum{Parts: corr},
 		Harmonic:   ss,
 		U:          ss,
+		BySide:     map[string]series.SeriesSum{c.name: {Parts: corr}},
 	}
 	return closed, nil
+}
+
+// exactAngular reports data that have exact Fourier coefficients: a
+// trigonometric polynomial, a polynomial in θ, or exact pieces.
+func exactAngular(f series.Field) ([]series.Piece, bool) {
+	switch {
+	case f.IsExact():
+		return []series.Piece{{From: big.NewRat(0, 1), To: big.NewRat(2, 1), Value: f}}, true
+	case f.IsPiecewise() && f.ExactPieces():
+		return f.Pieces, true
+	}
+	return nil, false
+}
+
+// twoCircleSeries handles an annulus whose data are exact but not both
+// trigonometric polynomials. Per mode n the harmonic part is
+// A_n (r/R2)^n + B_n (R1/r)^n, and the conditions give, with ρ = R1/R2,
+//
+//	inner: B_in[(r/R2)^n] = ρ^n·(1, −n/R1, −n/R1 + h),  B_in[(R1/r)^n] = (1, n/R1, n/R1 + h)
+//	outer: B_out[(r/R2)^n] = (1, n/R2, n/R2 + h),        B_out[(R1/r)^n] = ρ^n·(1, −n/R2, −n/R2 + h)
+//
+// for Dirichlet, Neumann and Robin, solved by Cramer's rule with ρ^n an atom.
+// Mode 0 and the exceptional n return as trigonometric polynomials for the
+// mode systems. It returns nil where the data do not call for it.
+func twoCircleSeries(d circular, p *posed, traced map[string]series.Field, traces map[string]series.Sum, sol *Solution) (map[string]series.Sum, error) {
+	circles := d.circles()
+	if len(circles) != 2 || p.numeric {
+		return nil, nil
+	}
+	fcs := map[string]series.FourierCoefficients{}
+	needed := false
+	for _, c := range circles {
+		gf := traced[c.name]
+		if !gf.IsExact() || gf.Exact.HasAngle() {
+			needed = true
+		}
+		pieces, ok := exactAngular(gf)
+		if !ok {
+			return nil, nil // numeric data: the FFT path
+		}
+		fc, err := series.Fourier(pieces)
+		if err != nil {
+			return nil, nil
+		}
+		fcs[c.name] = fc
+	}
+	if !needed {
+		return nil, nil
+	}
+	inner, outer := circles[0], circles[1]
+	rho, err := inner.radius.Div(outer.radius)
+	if err != nil {
+		return nil, err
+	}
+	P := series.PowIndex(rho)
+	n := series.IndexCoef
+	entry := func(c circle, scaledOuter bool) series.Coef {
+		cond := p.conds[c.name]
+		// The radial derivative of (r/R2)^n is (n/r)(r/R2)^n, of (R1/r)^n it is −(n/r)(R1/r)^n.
+		deriv, _ := n.Div(c.radius)
+		if !scaledOuter {
+			deriv = deriv.Neg()
+		}
+		value := series.IntCoef(1)
+		if (c.name == inner.name) == scaledOuter { // the far circle of this basis function
+			value, deriv = P, deriv.Mul(P)
+		}
+		dn := deriv.MulRat(big.NewRat(c.outward, 1))
+		switch cond.Kind {
+		case Neumann:
+			return dn
+		case Robin:
+			return dn.Add(cond.H.Mul(value))
+		}
+		return value
+	}
+	m00, m01 := entry(inner, true), entry(inner, false)
+	m10, m11 := entry(outer, true), entry(outer, false)
+	det := m00.Mul(m11).Sub(m01.Mul(m10))
+	skip := map[int]bool{}
+	for _, c := range circles {
+		for k := range fcs[c.name].Special {
+			skip[k] = true
+		}
+		for _, t := range traces[c.name].Terms() {
+			if t.M > 0 {
+				skip[t.M] = true
+			}
+		}
+	}
+	for k := 1; k <= 64; k++ { // a mode where the system is singular is solved apart
+		if v, err := series.Coefficient(det, k); err != nil || v.IsZero() {
+			skip[k] = true
+		}
+	}
+	closed := map[string]series.Sum{}
+	for _, c := range circles {
+		fc := fcs[c.name]
+		g := series.Const(fc.A0)
+		for k := range skip {
+			ab, ok := fc.Special[k]
+			if !ok {
+				a, err1 := series.Coefficient(fc.A, k)
+				b, err2 := series.Coefficient(fc.B, k)
+				if err1 != nil || err2 != nil {
+					return nil, unsupported("mode %d of the data on %s has no exact value", k, c.name)
+				}
+				ab = [2]series.Coef{a, b}
+			}
+			g = g.Add(series.Trig(k, false).Scale(ab[0])).Add(series.Trig(k, true).Scale(ab[1]))
+		}
+		closed[c.name] = g
+	}
+	special := map[int][]series.RadialTerm{}
+	for k := range skip {
+		special[k] = nil
+	}
+	var harm []series.Series
+	corr := map[string][]series.Series{}
+	for i, pick := range []func(series.FourierCoefficients) series.Coef{
+		func(f series.FourierCoefficients) series.Coef { return f.A },
+		func(f series.FourierCoefficients) series.Coef { return f.B },
+	} {
+		fam := series.Family{Sin: i == 1, Slope: big.NewRat(1, 1), Offset: new(big.Rat), From: 1}
+		gi, go_ := pick(fcs[inner.name]), pick(fcs[outer.name])
+		a, err := gi.Mul(m11).Sub(m01.Mul(go_)).Div(det)
+		if err != nil {
+			return nil, err
+		}
+		b, err := m00.Mul(go_).Sub(gi.Mul(m10)).Div(det)
+		if err != nil {
+			return nil, err
+		}
+		// The general term checked exactly: both conditions hold for every n.
+		sol.addSeriesResidual(inner.name, m00.Mul(a).Add(m01.Mul(b)).Sub(gi))
+		sol.addSeriesResidual(outer.name, m10.Mul(a).Add(m11.Mul(b)).Sub(go_))
+		harm = append(harm,
+			series.Series{Family: fam, R: outer.radius, General: []series.RadialTerm{{C: a, Scaled: true}}, Special: special},
+			series.Series{Family: fam, R: inner.radius, Inverse: true, General: []series.RadialTerm{{C: b, Scaled: true}}, Special: special})
+		for _, c := range circles {
+			corr[c.name] = append(corr[c.name], series.Series{Family: fam, R: c.radius, General: []series.RadialTerm{{C: pick(fcs[c.name]), P: new(big.Rat)}}, Special: special})
+		}
+	}
+	for _, c := range circles {
+		for _, j := range traced[c.name].Jumps() {
+			sol.Notes = append(sol.Notes, fmt.Sprintf("the data on %s jumps by %s at theta = %s; the series converges to the mean of the two sides there", c.name, j.Size.Text(), series.SymCoef(series.Pi).MulRat(j.At).Text()))
+		}
+	}
+	ss := series.SeriesSum{Parts: harm}
+	sol.Series = &SeriesParts{Harmonic: ss, U: ss, BySide: map[string]series.SeriesSum{}}
+	for name, parts := range corr {
+		sol.Series.BySide[name] = series.SeriesSum{Parts: parts}
+	}
+	return closed, nil
+}
+
+func (s *Solution) addSeriesResidual(side string, r series.Coef) {
+	if s.seriesResidual == nil {
+		s.seriesResidual = map[string]series.Coef{}
+	}
+	s.seriesResidual[side] = s.seriesResidual[side].Add(r)
 }

@@ -323,3 +323,25 @@ func TestSectorPiecewiseArc(t *testing.T) {
 		}
 	}
 }
+
+// Exact piecewise data on an annulus: the printed series is harmonic (finite
+// differences at interior points) and takes the data on both circles.
+func TestAnnulusPiecewise(t *testing.T) {
+	sol := solve(t, "lap(u) = 1", annulus(t, "1", "2"), "inner: u = abs(sin(theta))", "outer: dn(u) + u = 0 < theta < pi ? 1 : 0")
+	assertChecks(t, sol)
+	ev := evaluator(t, sol, 1e-13)
+	u := func(x, y float64) float64 { v, _, _ := ev.At(math.Hypot(x, y), math.Mod(math.Atan2(y, x)+2*math.Pi, 2*math.Pi)); return v }
+	for _, p := range [][2]float64{{1.3, 0.5}, {1.5, 2}, {1.7, 4}} {
+		x, y := p[0]*math.Cos(p[1]), p[0]*math.Sin(p[1])
+		lap := func(h float64) float64 { return (u(x+h, y) + u(x-h, y) + u(x, y+h) + u(x, y-h) - 4*u(x, y)) / (h * h) }
+		if fd := (4*lap(5e-3) - lap(1e-2)) / 3; math.Abs(fd-1) > 1e-6 {
+			t.Errorf("FD Laplacian at %v: %.9f, want 1", p, fd)
+		}
+	}
+	for _, th := range []float64{0.7, 2.2, 4} {
+		got, _, _ := ev.At(1, th)
+		if want := math.Abs(math.Sin(th)); math.Abs(got-want) > 1e-5 {
+			t.Errorf("inner value at θ = %g: %.8f, want %.8f", th, got, want)
+		}
+	}
+}

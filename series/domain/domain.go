@@ -93,8 +93,10 @@ type Solution struct {
 	Steps      []string      // how the harmonic part was found
 	Notes      []string
 	rim        *rimData // Dirichlet data on a single circle, for the Poisson integral near it
-	Numeric    bool     // some coefficients are numeric (FFT of boundary data)
-	DataError  float64  // an estimate of the error the numeric data bring
+	// seriesResidual is, per side, the exact residual of the general term's condition.
+	seriesResidual map[string]series.Coef
+	Numeric        bool    // some coefficients are numeric (FFT of boundary data)
+	DataError      float64 // an estimate of the error the numeric data bring
 }
 
 // Solve assembles u = u_p + h on d for Δu = f with the given conditions:

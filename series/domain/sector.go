@@ -45,6 +45,8 @@ type SeriesParts struct {
 	Correction series.SeriesSum // data minus trace (and shift), mode by mode
 	Harmonic   series.SeriesSum // Σ A_n (r/R)^ν_n Φ_n
 	U          series.SeriesSum // particular + harmonic, term by term
+	// BySide is each circle's data series (the correction's series part), on regions bounded by circles.
+	BySide map[string]series.SeriesSum
 }
 
 // rayKind is a ray's condition, reduced to what the eigenfunctions allow.
