@@ -330,7 +330,10 @@ func TestAnnulusPiecewise(t *testing.T) {
 	sol := solve(t, "lap(u) = 1", annulus(t, "1", "2"), "inner: u = abs(sin(theta))", "outer: dn(u) + u = 0 < theta < pi ? 1 : 0")
 	assertChecks(t, sol)
 	ev := evaluator(t, sol, 1e-13)
-	u := func(x, y float64) float64 { v, _, _ := ev.At(math.Hypot(x, y), math.Mod(math.Atan2(y, x)+2*math.Pi, 2*math.Pi)); return v }
+	u := func(x, y float64) float64 {
+		v, _, _ := ev.At(math.Hypot(x, y), math.Mod(math.Atan2(y, x)+2*math.Pi, 2*math.Pi))
+		return v
+	}
 	for _, p := range [][2]float64{{1.3, 0.5}, {1.5, 2}, {1.7, 4}} {
 		x, y := p[0]*math.Cos(p[1]), p[0]*math.Sin(p[1])
 		lap := func(h float64) float64 { return (u(x+h, y) + u(x-h, y) + u(x, y+h) + u(x, y-h) - 4*u(x, y)) / (h * h) }
