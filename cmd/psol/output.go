@@ -40,6 +40,7 @@ type view struct {
 	Points     []point    `json:"points"`
 	Steps      []string   `json:"steps,omitempty"`
 	Report     *reportOut `json:"report,omitempty"`
+	ClosedForm *stage     `json:"closed_form,omitempty"`
 	Quantities []string   `json:"quantities,omitempty"`
 	Warnings   []string   `json:"warnings"`
 	showSteps  bool
@@ -87,6 +88,19 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	v.Solution = exactStage("solution", "u = "+series.JoinText(sol.Particular, sol.Harmonic), series.JoinLaTeX(sol.Particular, sol.Harmonic), "u")
 	if ps := sol.Series; ps != nil {
 		v.seriesStages(sol, ps)
+	}
+	if sol.ClosedForm != "" {
+		closed := sol.Particular.Add(sol.Harmonic)
+		text, tex := sol.ClosedForm, sol.ClosedFormLaTeX
+		if !closed.IsZero() {
+			join := " + "
+			if strings.HasPrefix(text, " - ") {
+				join = ""
+			}
+			text, tex = closed.Text()+join+text, closed.LaTeX()+join+tex
+		}
+		st := exactStage("closed form", "u = "+text, tex, "u")
+		v.ClosedForm = &st
 	}
 	if sol.Numeric {
 		v.approximate(sol)
@@ -148,7 +162,7 @@ var renderers = map[string]func(io.Writer, *view) error{
 	"json":  renderJSON,
 }
 
-const labelWidth = 13
+const labelWidth = 13 // "closed form" and the longest stage names fit
 
 func line(w io.Writer, label, text string) {
 	fmt.Fprintf(w, "%-*s%s\n", labelWidth, label, text)
@@ -163,6 +177,9 @@ func renderText(w io.Writer, v *view) error {
 	}
 	for _, s := range []stage{v.Particular, v.Trace, v.Correction, v.Harmonic, v.Solution} {
 		line(w, s.Label, s.Text)
+	}
+	if v.ClosedForm != nil {
+		line(w, "closed form", v.ClosedForm.Text)
 	}
 	line(w, "check", checkSummary(v.Checks)+v.checkScope)
 	for _, p := range v.Points {

@@ -3,6 +3,7 @@ package domain
 import (
 	"fmt"
 	"math/big"
+	"strings"
 
 	"psol/ansatz"
 	"psol/series"
@@ -549,6 +550,10 @@ func seriesData(d circular, c circle, cond Condition, data series.Field, fc seri
 		sol.Notes = append(sol.Notes, fmt.Sprintf("the data on %s jumps by %s at theta = %s; the series converges to the mean of the two sides there", c.name, j.Size.Text(), series.SymCoef(series.Pi).MulRat(j.At).Text()))
 	}
 	ss := series.SeriesSum{Parts: harm, Inverse: inverse}
+	if cond.Kind == Dirichlet && len(skip) == 0 && constantPieces(data) {
+		// Piecewise-constant values: the series sums to arctangents, one per jump.
+		sol.ClosedForm, sol.ClosedFormLaTeX = jumpClosedForm(jumps, c.radius, inverse)
+	}
 	if cond.Kind == Dirichlet {
 		ss.Jumps = jumps
 		sol.rim = &rimData{data: data, trace: tr, radius: c.radius, inverse: inverse}
@@ -721,4 +726,50 @@ func (s *Solution) addSeriesResidual(side string, r series.Coef) {
 		s.seriesResidual = map[string]series.Coef{}
 	}
 	s.seriesResidual[side] = s.seriesResidual[side].Add(r)
+}
+
+func constantPieces(f series.Field) bool {
+	for _, p := range f.Pieces {
+		if _, ok := p.Value.Exact.Const(); !ok || !p.Value.IsExact() {
+			return false
+		}
+	}
+	return len(f.Pieces) > 0
+}
+
+// jumpClosedForm is Σ_j (J_j/π) arctan(ρ sin(θ − θ_j)/(1 − ρ cos(θ − θ_j))),
+// ρ = r/R (R/r outside): the sum of Σ_n ρ^n J_j sin(n(θ − θ_j))/(πn), valid
+// for ρ < 1 where 1 − ρ cos(·) > 0.
+func jumpClosedForm(jumps []series.Jump, radius series.Coef, inverse bool) (string, string) {
+	rho, rhoTeX := "r/"+paren(radius.Text()), `\frac{r}{`+radius.LaTeX()+"}"
+	if inverse {
+		rho, rhoTeX = paren(radius.Text())+"/r", `\frac{`+radius.LaTeX()+"}{r}"
+	}
+	if radius.Equal(series.IntCoef(1)) && !inverse {
+		rho, rhoTeX = "r", "r"
+	}
+	var text, tex []string
+	for _, j := range jumps {
+		at := series.SymCoef(series.Pi).MulRat(j.At)
+		phi, phiTeX := "theta", `\theta`
+		if !at.IsZero() {
+			phi, phiTeX = "theta - "+at.Text(), `\theta - `+at.LaTeX()
+		}
+		k, _ := j.Size.Div(series.SymCoef(series.Pi))
+		sign := " + "
+		if q, ok := k.Rat(); ok && q.Sign() < 0 || strings.HasPrefix(k.Text(), "-") {
+			sign, k = " - ", k.Neg()
+		}
+		text = append(text, sign+fmt.Sprintf("%s*atan(%s*sin(%s)/(1 - %s*cos(%s)))", paren(k.Text()), rho, phi, rho, phi))
+		tex = append(tex, sign+fmt.Sprintf(`%s \arctan\frac{%s \sin(%s)}{1 - %s \cos(%s)}`, k.LaTeX(), rhoTeX, phiTeX, rhoTeX, phiTeX))
+	}
+	t, x := strings.Join(text, ""), strings.Join(tex, "")
+	return strings.TrimPrefix(t, " + "), strings.TrimPrefix(x, " + ")
+}
+
+func paren(s string) string {
+	if strings.ContainsAny(s, " +-/*") {
+		return "(" + s + ")"
+	}
+	return s
 }

@@ -61,6 +61,21 @@ func TestHalfRimPoisson(t *testing.T) {
 	if len(sol.Notes) != 2 {
 		t.Errorf("want a warning per jump, got %q", sol.Notes)
 	}
+	// The recognised closed sum, parsed back, is the Poisson closed form too.
+	closed, err := parse.Expression("closed form", "1/2 + "+sol.ClosedForm, nil)
+	if err != nil {
+		t.Fatalf("%s: %v", sol.ClosedForm, err)
+	}
+	cf, err := closed.Compile(nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range [][2]float64{{0.3, 1}, {0.9, 4}, {0.999, 0.3}} {
+		r, th := p[0], p[1]
+		if got, want := cf.At(r, th), 0.5+math.Atan(2*r*math.Sin(th)/(1-r*r))/math.Pi; math.Abs(got-want) > 1e-12 {
+			t.Errorf("closed form %s at %v: %.14f, want %.14f", sol.ClosedForm, p, got, want)
+		}
+	}
 }
 
 // poisson is the Poisson integral (1/2π)∫ P(r, θ − φ) g(φ) dφ by gonum's

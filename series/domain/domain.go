@@ -95,8 +95,11 @@ type Solution struct {
 	rim        *rimData // Dirichlet data on a single circle, for the Poisson integral near it
 	// seriesResidual is, per side, the exact residual of the general term's condition.
 	seriesResidual map[string]series.Coef
-	Numeric        bool    // some coefficients are numeric (FFT of boundary data)
-	DataError      float64 // an estimate of the error the numeric data bring
+	// ClosedForm is the harmonic series summed in closed form, where psol
+	// recognises it (piecewise-constant values on a circle), to add to the closed parts.
+	ClosedForm, ClosedFormLaTeX string
+	Numeric                     bool    // some coefficients are numeric (FFT of boundary data)
+	DataError                   float64 // an estimate of the error the numeric data bring
 }
 
 // Solve assembles u = u_p + h on d for Δu = f with the given conditions:
