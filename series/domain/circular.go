@@ -594,14 +594,18 @@ func twoCircleSeries(d circular, p *posed, traced map[string]series.Field, trace
 	if len(circles) != 2 || p.numeric {
 		return nil, nil
 	}
-	fcs := map[string]series.FourierCoefficients{}
 	needed := false
 	for _, c := range circles {
-		gf := traced[c.name]
-		if !gf.IsExact() || gf.Exact.HasAngle() {
+		if gf := traced[c.name]; !gf.IsExact() || gf.Exact.HasAngle() {
 			needed = true
 		}
-		pieces, ok := exactAngular(gf)
+	}
+	if !needed {
+		return nil, nil // trigonometric data on both circles: the mode systems take them as they are
+	}
+	fcs := map[string]series.FourierCoefficients{}
+	for _, c := range circles {
+		pieces, ok := exactAngular(traced[c.name])
 		if !ok {
 			return nil, nil // numeric data: the FFT path
 		}
@@ -610,9 +614,6 @@ func twoCircleSeries(d circular, p *posed, traced map[string]series.Field, trace
 			return nil, nil
 		}
 		fcs[c.name] = fc
-	}
-	if !needed {
-		return nil, nil
 	}
 	inner, outer := circles[0], circles[1]
 	rho, err := inner.radius.Div(outer.radius)
