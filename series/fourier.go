@@ -55,89 +55,33 @@ func Fourier(ps []Piece) (FourierCoefficients, error) {
 			}
 		}
 	}
+	// On [0, 2π) with Φ_n = cos nθ, sin nθ the projection's normalisation is
+	// π (2π for n = 0): the coefficients are projections on that family.
+	whole := big.NewRat(2, 1)
+	cosines := Family{Slope: big.NewRat(1, 1), Offset: new(big.Rat), From: 0}
+	sines := Family{Sin: true, Slope: big.NewRat(1, 1), Offset: new(big.Rat), From: 1}
 	var err error
-	if out.A0, err = pieceMoment(ps, 0, false, IntCoef(0), true); err != nil {
+	if out.A0, err = ProjectPieces(ps, cosines, whole, 0, true); err != nil {
 		return out, err
 	}
-	out.A0 = out.A0.Mul(invPi).MulRat(big.NewRat(1, 2))
-	for _, sin := range []bool{false, true} {
-		c, err := pieceMoment(ps, 0, sin, IndexCoef, false)
+	if out.A, err = ProjectPieces(ps, cosines, whole, 0, false); err != nil {
+		return out, err
+	}
+	if out.B, err = ProjectPieces(ps, sines, whole, 0, false); err != nil {
+		return out, err
+	}
+	for n := range specials {
+		a, err := ProjectPieces(ps, cosines, whole, n, true)
 		if err != nil {
 			return out, err
 		}
-		if sin {
-			out.B = c.Mul(invPi)
-		} else {
-			out.A = c.Mul(invPi)
+		b, err := ProjectPieces(ps, sines, whole, n, true)
+		if err != nil {
+			return out, err
 		}
-	}
-	for n := range specials {
-		var ab [2]Coef
-		for i, sin := range []bool{false, true} {
-			c, err := pieceMoment(ps, n, sin, IntCoef(int64(n)), true)
-			if err != nil {
-				return out, err
-			}
-			ab[i] = c.Mul(invPi)
-		}
-		out.Special[n] = ab
+		out.Special[n] = [2]Coef{a, b}
 	}
 	return out, nil
-}
-
-var invPi, _ = IntCoef(1).Div(SymCoef(Pi))
-
-// pieceMoment is Σ_pieces ∫ g(θ)·T(nθ) dθ, T = cos or sin; n symbolic unless concrete.
-func pieceMoment(ps []Piece, n int, sin bool, nc Coef, concrete bool) (Coef, error) {
-	total := Coef{}
-	for _, p := range ps {
-		for _, t := range p.Value.Exact.t {
-			rule := trigProduct[b2i(t.Sin)][b2i(sin)]
-			x := t.Sin != sin
-			for _, part := range []struct{ sigma, w int64 }{{-1, rule.dif}, {1, rule.add}} {
-				if part.w == 0 {
-					continue
-				}
-				lambda := IntCoef(int64(t.M)).Add(nc.MulRat(big.NewRat(part.sigma, 1)))
-				v := Coef{}
-				for i, end := range []*big.Rat{p.From, p.To} {
-					m, err := endMoment(t.K, x, t.M, part.sigma, lambda, end, n, concrete)
-					if err != nil {
-						return Coef{}, err
-					}
-					if i == 0 {
-						m = m.Neg()
-					}
-					v = v.Add(m)
-				}
-				total = total.Add(v.Mul(t.C).MulRat(big.NewRat(part.w, 2)))
-			}
-		}
-	}
-	return total, nil
-}
-
-// endMoment is ∫_0^{qπ} θ^k T(λθ) dθ for λ = m + σn.
-func endMoment(k int, sin bool, m int, sigma int64, lambda Coef, q *big.Rat, n int, concrete bool) (Coef, error) {
-	end := SymCoef(Pi).MulRat(q)
-	cm, sm, ok := unitCircle(end.MulRat(big.NewRat(int64(m), 1)))
-	if !ok {
-		return Coef{}, ErrAngle
-	}
-	var cn, sn Coef
-	if concrete {
-		cn, sn, ok = unitCircle(end.MulRat(big.NewRat(int64(n), 1)))
-		if !ok {
-			return Coef{}, ErrAngle
-		}
-	} else {
-		cn, sn = nTrig(q)
-	}
-	sn = sn.MulRat(big.NewRat(sigma, 1))
-	// cos(mθ + σnθ) and sin(mθ + σnθ) at θ = qπ.
-	cosL := cm.Mul(cn).Sub(sm.Mul(sn))
-	sinL := sm.Mul(cn).Add(cm.Mul(sn))
-	return thetaMoment(k, sin, lambda, end, cosL, sinL)
 }
 
 // ProjectPieces is the coefficient of Φ_n in the expansion on (0, α) of data

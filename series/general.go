@@ -209,29 +209,15 @@ func (s Series) termText(ts []RadialTerm, nu Coef, st style) string {
 // Text prints the series in psol's syntax: sum(n=FROM..inf[, n != K ...], TERM)
 // followed by the exceptional terms.
 func (s Series) Text() string {
-	var b strings.Builder
-	b.WriteString("sum(" + Index + "=" + strconv.Itoa(s.Family.From) + "..inf")
+	head := "sum(" + Index + "=" + strconv.Itoa(s.Family.From) + "..inf"
 	for _, n := range s.specials() {
-		b.WriteString(", " + Index + " != " + strconv.Itoa(n))
+		head += ", " + Index + " != " + strconv.Itoa(n)
 	}
-	b.WriteString(", " + s.termText(s.General, s.Family.Nu(IndexCoef), textStyle) + ")")
-	for _, n := range s.specials() {
-		t := s.termText(s.Special[n], RatCoef(s.Family.NuAt(n)), textStyle)
-		if t == "0" {
-			continue
-		}
-		if strings.HasPrefix(t, "-") {
-			b.WriteString(" - " + t[1:])
-		} else {
-			b.WriteString(" + " + t)
-		}
-	}
-	return b.String()
+	return s.print(head+", ", ")", textStyle)
 }
 
 // LaTeX prints the series with \sum.
 func (s Series) LaTeX() string {
-	var b strings.Builder
 	lower := Index + "=" + strconv.Itoa(s.Family.From)
 	if len(s.Special) > 0 {
 		var ex []string
@@ -240,15 +226,20 @@ func (s Series) LaTeX() string {
 		}
 		lower = Index + `\ge ` + strconv.Itoa(s.Family.From) + `,\ ` + Index + `\ne ` + strings.Join(ex, ",")
 	}
-	b.WriteString(`\sum_{` + lower + `}^{\infty} ` + s.termText(s.General, s.Family.Nu(IndexCoef), latexStyle))
+	return s.print(`\sum_{`+lower+`}^{\infty} `, "", latexStyle)
+}
+
+// print is open + general term + close, then the exceptional terms.
+func (s Series) print(open, close string, st style) string {
+	var b strings.Builder
+	b.WriteString(open + s.termText(s.General, s.Family.Nu(IndexCoef), st) + close)
 	for _, n := range s.specials() {
-		t := s.termText(s.Special[n], RatCoef(s.Family.NuAt(n)), latexStyle)
-		if t == "0" {
-			continue
-		}
-		if strings.HasPrefix(t, "-") {
+		t := s.termText(s.Special[n], RatCoef(s.Family.NuAt(n)), st)
+		switch {
+		case t == "0":
+		case strings.HasPrefix(t, "-"):
 			b.WriteString(" - " + t[1:])
-		} else {
+		default:
 			b.WriteString(" + " + t)
 		}
 	}
