@@ -67,12 +67,8 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 		`\Delta u = `+f.LaTeX()+`,\quad `+strings.Join(condsTeX, `,\quad `), "")
 	v.Particular = exactStage("particular", "u_p = "+sol.Particular.Text(), sol.Particular.LaTeX(), "u_p")
 	var tr, trTeX, co, coTeX []string
-	single := len(sol.Sides) == 1
 	for _, s := range sol.Sides {
-		prefix := ""
-		if !single {
-			prefix = s.Condition.Side + ": "
-		}
+		prefix := sidePrefix(sol, s)
 		tr = append(tr, prefix+traceText(s)+" = "+s.Trace.Text())
 		trTeX = append(trTeX, s.Trace.LaTeX())
 		co = append(co, prefix+series.JoinText(s.Data, s.Trace.Neg()))
@@ -305,12 +301,8 @@ func (v *view) seriesStages(sol *domain.Solution, ps *domain.SeriesParts) {
 	} else {
 		var co, coTeX []string
 		for _, s := range sol.Sides {
-			prefix := ""
-			if len(sol.Sides) > 1 {
-				prefix = s.Condition.Side + ": "
-			}
 			corr := s.Data.Sub(s.Trace)
-			co = append(co, prefix+join(corr, ps.BySide[s.Condition.Side], false))
+			co = append(co, sidePrefix(sol, s)+join(corr, ps.BySide[s.Condition.Side], false))
 			coTeX = append(coTeX, join(corr, ps.BySide[s.Condition.Side], true))
 		}
 		v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(coTeX, ", "), `g - `+traceTeX(side))
@@ -327,14 +319,18 @@ func (v *view) approximate(sol *domain.Solution) {
 	}
 	var co, coTeX []string
 	for _, s := range sol.Sides {
-		prefix := ""
-		if len(sol.Sides) > 1 {
-			prefix = s.Condition.Side + ": "
-		}
 		c := s.Data.Sub(s.Trace)
-		co, coTeX = append(co, prefix+"≈ "+c.TextApprox()), append(coTeX, c.LaTeXApprox())
+		co, coTeX = append(co, sidePrefix(sol, s)+"≈ "+c.TextApprox()), append(coTeX, c.LaTeXApprox())
 	}
 	mark(&v.Correction, strings.Join(co, "; "), strings.Join(coTeX, ", "))
 	mark(&v.Harmonic, "≈ "+sol.Harmonic.TextApprox(), sol.Harmonic.LaTeXApprox())
 	mark(&v.Solution, "u ≈ "+sol.U.TextApprox(), sol.U.LaTeXApprox())
+}
+
+// sidePrefix names the side in a stage line where the region has several.
+func sidePrefix(sol *domain.Solution, s domain.Side) string {
+	if len(sol.Sides) > 1 {
+		return s.Condition.Side + ": "
+	}
+	return ""
 }

@@ -15,17 +15,9 @@ import (
 
 func solveWith(t testing.TB, equation string, d domain.Domain, opt domain.Options, bcs ...string) *domain.Solution {
 	t.Helper()
-	f, err := parse.Equation(equation, nil)
+	f, conds, err := pose(equation, d, bcs, nil)
 	if err != nil {
 		t.Fatal(err)
-	}
-	var conds []domain.Condition
-	for _, b := range bcs {
-		c, err := parse.Condition(b, d.Sides(), nil)
-		if err != nil {
-			t.Fatal(err)
-		}
-		conds = append(conds, c)
 	}
 	sol, err := domain.SolveWith(d, f, conds, opt)
 	if err != nil {

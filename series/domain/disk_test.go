@@ -30,18 +30,27 @@ func trySolveDisk(equation, radius string, bcs []string, env series.Env) (*domai
 	return trySolve(equation, domain.Disk{R: rs[0]}, bcs, env)
 }
 
-func trySolve(equation string, d domain.Domain, bcs []string, env series.Env) (*domain.Solution, error) {
+// pose lowers an equation and conditions the way the CLI does.
+func pose(equation string, d domain.Domain, bcs []string, env series.Env) (series.Field, []domain.Condition, error) {
 	f, err := parse.Equation(equation, env)
 	if err != nil {
-		return nil, err
+		return series.Field{}, nil, err
 	}
 	var conds []domain.Condition
 	for _, b := range bcs {
 		c, err := parse.Condition(b, d.Sides(), env)
 		if err != nil {
-			return nil, err
+			return series.Field{}, nil, err
 		}
 		conds = append(conds, c)
+	}
+	return f, conds, nil
+}
+
+func trySolve(equation string, d domain.Domain, bcs []string, env series.Env) (*domain.Solution, error) {
+	f, conds, err := pose(equation, d, bcs, env)
+	if err != nil {
+		return nil, err
 	}
 	return domain.Solve(d, f, conds)
 }

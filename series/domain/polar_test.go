@@ -371,17 +371,9 @@ func TestSectorNumeric(t *testing.T) {
 }
 
 func benchSolve(b *testing.B, equation string, d domain.Domain, bcs ...string) {
-	f, err := parse.Equation(equation, nil)
+	f, conds, err := pose(equation, d, bcs, nil)
 	if err != nil {
 		b.Fatal(err)
-	}
-	var conds []domain.Condition
-	for _, s := range bcs {
-		c, err := parse.Condition(s, d.Sides(), nil)
-		if err != nil {
-			b.Fatal(err)
-		}
-		conds = append(conds, c)
 	}
 	b.ReportAllocs()
 	b.ResetTimer()
