@@ -73,7 +73,27 @@ func makeCoef(num, den Poly) (Coef, error) {
 	if k, ok := proportional(num, den); ok {
 		return RatCoef(k), nil
 	}
+	if q, ok := monomialQuotient(num, den); ok {
+		return Coef{num: q}, nil
+	}
 	return Coef{num: num, den: den}, nil
+}
+
+// monomialQuotient reports num = q·den for a single term q, tried as the
+// quotient of the leading terms.
+func monomialQuotient(num, den Poly) (Poly, bool) {
+	if len(num.t) != len(den.t) {
+		return Poly{}, false
+	}
+	inv, err := Poly{[]pterm{den.t[0]}}.PowRat(big.NewRat(-1, 1))
+	if err != nil {
+		return Poly{}, false
+	}
+	q := Poly{[]pterm{num.t[0]}}.Mul(inv)
+	if !q.Mul(den).Equal(num) {
+		return Poly{}, false
+	}
+	return q, true
 }
 
 // negativePowers is the monomial that clears every negative power of a

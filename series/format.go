@@ -338,6 +338,9 @@ func atomPower(s Symbol, e *big.Rat, st style) string {
 		b := "(" + s.name + ")"
 		if st.latex {
 			b = `\left(` + powBase(s.name).LaTeX() + `\right)`
+			if e.Cmp(one) == 0 {
+				return b + "^{n}"
+			}
 			return b + "^{" + latexRat(e) + " n}"
 		}
 		if e.Cmp(one) == 0 {

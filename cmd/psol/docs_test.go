@@ -50,6 +50,11 @@ func TestLaTeXCompiles(t *testing.T) {
 		`psol solve "mu*lap(u) = -G + r^2*cos(4theta)" --disk a --bc "u = 0" --format latex`,
 		`psol solve "lap(u) = r^(1/2)*cos(theta) + ln(r)" --disk 2 --bc "u = x*y" --format latex`,
 		`psol particular "ln(r)" --format latex`,
+		`psol solve "lap(u) = -2" --sector 1,3*pi/2 --bc "arc: u = 0" --bc "start: u = 0" --bc "end: u = 0" --format latex`,
+		`psol solve "lap(u) = x" --sector 2,pi/3 --bc "arc: dn(u) = 0" --bc "start: dn(u) = 0" --bc "end: u = 1" --format latex`,
+		`psol solve "-k*lap(u) = q" --disk 1 --bc "u = theta < pi/2 ? 100 : 20" --format latex`,
+		`psol solve "lap(u) = 0" --annulus 1,2 --bc "inner: u = abs(sin(theta))" --bc "outer: u = 0" --format latex`,
+		`psol solve "lap(u) = 0" --disk 1 --bc "u = exp(cos(theta))" --format latex`,
 	} {
 		doc += runLine(t, c)
 	}
