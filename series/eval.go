@@ -71,3 +71,50 @@ func (s Sum) Eval(r, theta float64, env Env) (float64, error) {
 	}
 	return c.At(r, theta), nil
 }
+
+// Grid adds the sum's values on the tensor grid rs × thetas to out[i][j]:
+// every term is a radial factor times an angular one, so the work is
+// terms·(len(rs) + len(thetas)) evaluations and one product per point.
+func (c Compiled) Grid(rs, thetas []float64, out [][]float64) {
+	rf := make([]float64, len(rs))
+	tf := make([]float64, len(thetas))
+	for _, t := range c.t {
+		for i, r := range rs {
+			v := t.c
+			switch {
+			case t.p == 0:
+			case r == 0 && t.p > 0:
+				v = 0
+			default:
+				v *= math.Pow(r, t.p)
+			}
+			if t.l > 0 && v != 0 {
+				v *= powInt(math.Log(r), int64(t.l))
+			}
+			rf[i] = v
+		}
+		for j, th := range thetas {
+			v := 1.0
+			if t.k > 0 {
+				v = powInt(th, int64(t.k))
+			}
+			if t.m > 0 {
+				if t.sin {
+					v *= math.Sin(float64(t.m) * th)
+				} else {
+					v *= math.Cos(float64(t.m) * th)
+				}
+			}
+			tf[j] = v
+		}
+		for i := range rs {
+			if rf[i] == 0 {
+				continue
+			}
+			row := out[i]
+			for j := range thetas {
+				row[j] += rf[i] * tf[j]
+			}
+		}
+	}
+}

@@ -680,3 +680,86 @@ func topLevelSum(s string) bool {
 	}
 	return false
 }
+
+// Grid adds the series on the tensor grid rs × thetas to out and returns the
+// tail estimate per radius: each mode is ρ_n(r)·Φ_n(θ), so a mode costs
+// len(rs) + len(thetas) evaluations; a radius stops taking modes once
+// n·|ρ_n(r)| has stayed below tol·max(1, |row|) for four modes.
+func (cs CompiledSeries) Grid(rs, thetas []float64, out [][]float64, tol float64, maxTerms int) []float64 {
+	rho := make([]float64, len(rs))
+	phi := make([]float64, len(thetas))
+	tail := make([]float64, len(rs))
+	quiet := make([]int, len(rs))
+	scale := make([]float64, len(rs))
+	lnr := make([]float64, len(rs))
+	for i, r := range rs {
+		lnr[i] = math.Log(r)
+		tail[i] = math.Inf(1)
+	}
+	active := len(rs)
+	for n := cs.fam.From; n < cs.fam.From+maxTerms && active > 0; n++ {
+		nf := float64(n)
+		nu := cs.slope*nf + cs.offset
+		ts, special := cs.special[n]
+		for i, r := range rs {
+			if quiet[i] >= 4 {
+				rho[i] = 0
+				continue
+			}
+			scale[i] = cs.scale(r, nu)
+			v := 0.0
+			if special {
+				v = cs.radial(ts, nf, nu, r, lnr[i])
+			} else {
+				for k, t := range cs.general {
+					c := cs.coef(k, n)
+					switch {
+					case t.scaled:
+						v += c * scale[i]
+					default:
+						x := c
+						if t.p != 0 {
+							x *= math.Pow(r, t.p)
+						}
+						if t.l > 0 {
+							x *= powInt(lnr[i], int64(t.l))
+						}
+						v += x
+					}
+				}
+			}
+			if cs.jump != nil {
+				v -= cs.jumpAt(n) * scale[i]
+			}
+			rho[i] = v
+			tail[i] = nf * math.Abs(v)
+		}
+		for j, th := range thetas {
+			if cs.fam.Sin {
+				phi[j] = math.Sin(nu * th)
+			} else {
+				phi[j] = math.Cos(nu * th)
+			}
+		}
+		for i := range rs {
+			if rho[i] == 0 && quiet[i] >= 4 {
+				continue
+			}
+			row := out[i]
+			big := 0.0
+			for j := range thetas {
+				row[j] += rho[i] * phi[j]
+				big = math.Max(big, math.Abs(row[j]))
+			}
+			if !special && tail[i] <= tol*math.Max(1, big) {
+				quiet[i]++
+				if quiet[i] == 4 {
+					active--
+				}
+			} else if quiet[i] < 4 {
+				quiet[i] = 0
+			}
+		}
+	}
+	return tail
+}

@@ -122,3 +122,27 @@ func (c CompiledSeriesSum) At(r, theta, tol float64, maxTerms int) Summed {
 	}
 	return out
 }
+
+// Grid adds every series on the tensor grid and the jumps' closed forms; it
+// returns the summed tail estimates per radius.
+func (c CompiledSeriesSum) Grid(rs, thetas []float64, out [][]float64, tol float64, maxTerms int) []float64 {
+	total := make([]float64, len(rs))
+	for _, p := range c.parts {
+		for i, t := range p.Grid(rs, thetas, out, tol, maxTerms) {
+			total[i] += t
+		}
+	}
+	for _, j := range c.jumps {
+		for i, r := range rs {
+			rho := r / c.R
+			if c.inverse {
+				rho = c.R / r
+			}
+			for k, th := range thetas {
+				phi := th - j.at
+				out[i][k] += j.size / math.Pi * math.Atan2(rho*math.Sin(phi), 1-rho*math.Cos(phi))
+			}
+		}
+	}
+	return total
+}

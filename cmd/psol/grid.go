@@ -13,12 +13,11 @@ import (
 	"psol/series/domain"
 )
 
-// gridPoints is an N×N polar grid over the closed region: r from the inner
+// gridAxes is an N×N polar grid over the closed region: r from the inner
 // to the outer bound (10R outside a circle), θ over the full turn or the sector.
-func gridPoints(d domain.Domain, n int, env series.Env) ([][2]float64, error) {
+func gridAxes(d domain.Domain, n int, env series.Env) (rs, ths []float64, err error) {
 	var rlo, rhi, thi float64 = 0, 1, 2 * math.Pi
 	full := true
-	var err error
 	switch d := d.(type) {
 	case domain.Disk:
 		rhi, err = d.R.Float(env)
@@ -34,24 +33,15 @@ func gridPoints(d domain.Domain, n int, env series.Env) ([][2]float64, error) {
 		thi, _ = d.Alpha.Float(nil)
 		full = false
 	}
-	if err != nil {
-		return nil, err
-	}
-	var pts [][2]float64
 	for i := 0; i < n; i++ {
-		r := rlo + (rhi-rlo)*float64(i)/float64(n-1)
-		for j := 0; j < n; j++ {
-			th := thi * float64(j) / float64(n)
-			if !full {
-				th = thi * float64(j) / float64(n-1)
-			}
-			if r == 0 && j > 0 {
-				break // the centre once
-			}
-			pts = append(pts, [2]float64{r, th})
+		rs = append(rs, rlo+(rhi-rlo)*float64(i)/float64(n-1))
+		if full {
+			ths = append(ths, thi*float64(i)/float64(n))
+		} else {
+			ths = append(ths, thi*float64(i)/float64(n-1))
 		}
 	}
-	return pts, nil
+	return rs, ths, err
 }
 
 // writeAtomically writes through a temporary file in the target's folder and
@@ -80,7 +70,7 @@ func writeAtomically(path string, fill func(io.Writer) error) error {
 
 // writeGrid evaluates u on the grid and writes CSV: r,theta,x,y,u,error.
 func writeGrid(path string, sol *domain.Solution, env series.Env, n int, tol float64, terms int, progress io.Writer) error {
-	pts, err := gridPoints(sol.Domain, n, env)
+	rs, ths, err := gridAxes(sol.Domain, n, env)
 	if err != nil {
 		return usagef("--grid: %v", err)
 	}
@@ -88,24 +78,29 @@ func writeGrid(path string, sol *domain.Solution, env series.Env, n int, tol flo
 	if err != nil {
 		return usagef("--grid: %v", err)
 	}
+	u, errs := ev.Grid(rs, ths)
 	return writeAtomically(path, func(w io.Writer) error {
 		fmt.Fprintln(w, "r,theta,x,y,u,error")
 		var line []byte
-		for i, p := range pts {
-			u, e, _ := ev.At(p[0], p[1])
-			line = line[:0]
-			for k, v := range [6]float64{p[0], p[1], p[0] * math.Cos(p[1]), p[0] * math.Sin(p[1]), u, e + sol.DataError} {
-				if k > 0 {
-					line = append(line, ',')
+		for i, r := range rs {
+			for j, th := range ths {
+				if r == 0 && j > 0 {
+					break // the centre once
 				}
-				line = strconv.AppendFloat(line, v, 'g', []int{12, 12, 12, 12, 15, 3}[k], 64)
+				line = line[:0]
+				for k, v := range [6]float64{r, th, r * math.Cos(th), r * math.Sin(th), u[i][j], errs[i][j] + sol.DataError} {
+					if k > 0 {
+						line = append(line, ',')
+					}
+					line = strconv.AppendFloat(line, v, 'g', []int{12, 12, 12, 12, 15, 3}[k], 64)
+				}
+				line = append(line, '\n')
+				if _, err := w.Write(line); err != nil {
+					return err
+				}
 			}
-			line = append(line, '\n')
-			if _, err := w.Write(line); err != nil {
-				return err
-			}
-			if progress != nil && i%1000 == 0 {
-				fmt.Fprintf(progress, "\rgrid %3d%%", 100*i/len(pts))
+			if progress != nil && i%50 == 0 {
+				fmt.Fprintf(progress, "\rgrid %3d%%", 100*i/len(rs))
 			}
 		}
 		if progress != nil {

@@ -607,3 +607,39 @@ func mergeChecks(cs []Check) []Check {
 	}
 	return out
 }
+
+// Grid evaluates u on the tensor grid rs × thetas, returning values and an
+// error estimate per point; radii next to a Dirichlet circle take the
+// Poisson integral point by point.
+func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
+	u = make([][]float64, len(rs))
+	errs = make([][]float64, len(rs))
+	for i := range rs {
+		u[i] = make([]float64, len(thetas))
+		errs[i] = make([]float64, len(thetas))
+	}
+	var far []float64
+	var farRows []int
+	for i, r := range rs {
+		if e.ser != nil && (r == 0 || e.rim != nil && e.rim.near(r)) {
+			for j, th := range thetas {
+				u[i][j], errs[i][j], _ = e.At(r, th)
+			}
+			continue
+		}
+		far, farRows = append(far, r), append(farRows, i)
+	}
+	rows := make([][]float64, len(far))
+	for k, i := range farRows {
+		rows[k] = u[i]
+	}
+	e.closed.Grid(far, thetas, rows)
+	if e.ser != nil {
+		for k, t := range e.ser.Grid(far, thetas, rows, e.tol, e.max) {
+			for j := range thetas {
+				errs[farRows[k]][j] = t
+			}
+		}
+	}
+	return u, errs
+}
