@@ -31,9 +31,9 @@ type compiledRim struct {
 	breaks  []float64
 }
 
-// legendreX and legendreW are the 24-point Gauss–Legendre rule on [−1, 1], from gonum.
+// legendreX and legendreW are the 16-point Gauss–Legendre rule on [−1, 1], from gonum.
 var legendreX, legendreW = func() ([]float64, []float64) {
-	x, w := make([]float64, 24), make([]float64, 24)
+	x, w := make([]float64, 16), make([]float64, 16)
 	quad.Legendre{}.FixedLocations(x, w, -1, 1)
 	return x, w
 }()
@@ -78,11 +78,13 @@ func (c *compiledRim) near(r float64) bool { return c.rho(r) > nearRim && c.rho(
 func (c *compiledRim) at(r, theta float64) float64 {
 	rho := c.rho(r)
 	f := func(phi float64) float64 {
-		k := (1 - rho*rho) / (1 - 2*rho*math.Cos(theta-phi) + rho*rho)
+		// 1 − 2ρ cos x + ρ² = (1 − ρ)² + 4ρ sin²(x/2), without the cancellation near x = 0.
+		s := math.Sin((theta - phi) / 2)
+		k := (1 - rho) * (1 + rho) / ((1-rho)*(1-rho) + 4*rho*s*s)
 		return k * (c.g.At(c.R, phi) - c.tr.At(1, phi))
 	}
 	edges := []float64{theta - math.Pi, theta + math.Pi}
-	for d := (1 - rho) / 4; d < math.Pi; d *= 2 {
+	for d := (1 - rho) / 4; d < math.Pi; d *= 2.5 {
 		edges = append(edges, theta-d, theta+d)
 	}
 	for _, b := range c.breaks {
