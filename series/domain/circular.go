@@ -267,6 +267,8 @@ func harmonicModes(d circular, p *posed, sol *Solution, data map[string]series.S
 		order = append(order, m)
 	}
 	sortModes(order)
+	harmonic := sol.Harmonic.Terms() // built once, at the end
+	defer func() { sol.Harmonic = series.NewSum(harmonic...) }()
 	for _, m := range order {
 		basis := d.basis(m.n)
 		a := make([][]series.Coef, len(circles))
@@ -287,7 +289,7 @@ func harmonicModes(d circular, p *posed, sol *Solution, data map[string]series.S
 			return singular(d, p, sol, m)
 		}
 		for j, fn := range basis {
-			sol.Harmonic = sol.Harmonic.Add(fn.Mul(m.trig()).Scale(x[j]))
+			harmonic = append(harmonic, fn.Mul(m.trig()).Scale(x[j]).Terms()...)
 		}
 		for _, j := range free {
 			if m.n == 0 && j == 0 { // the constant: pure Neumann data leave it free
@@ -297,14 +299,14 @@ func harmonicModes(d circular, p *posed, sol *Solution, data map[string]series.S
 					c.G.Exact.Params(used)
 				}
 				sol.Free = freeName(used)
-				sol.Harmonic = sol.Harmonic.Add(series.Const(series.SymCoef(series.Param(sol.Free))))
+				harmonic = append(harmonic, series.Const(series.SymCoef(series.Param(sol.Free))).Terms()...)
 				sol.Notes = append(sol.Notes, fmt.Sprintf("pure Neumann data fix u only up to an additive constant %s", sol.Free))
 				continue
 			}
 			sol.Notes = append(sol.Notes, fmt.Sprintf("mode %s is not determined by the conditions; its free coefficient is taken as 0", m.name()))
 		}
 		if !allZero(b) {
-			sol.Steps = append(sol.Steps, modeStep(m, basis, x))
+			sol.modes = append(sol.modes, modeRecord{m, basis, x})
 		}
 	}
 	return nil
@@ -317,6 +319,13 @@ func allZero(cs []series.Coef) bool {
 		}
 	}
 	return true
+}
+
+// modeRecord is how one mode's coefficients were found, printed only on request.
+type modeRecord struct {
+	m     mode
+	basis []series.Sum
+	x     []series.Coef
 }
 
 func modeStep(m mode, basis []series.Sum, x []series.Coef) string {

@@ -90,7 +90,8 @@ type Solution struct {
 	Checks     []Check
 	Series     *SeriesParts  // the infinite-series stages, where the region needs them
 	Rules      []ansatz.Step // how each source term was solved
-	Steps      []string      // how the harmonic part was found
+	Steps      []string      // how the harmonic part was found, beyond the per-mode records
+	modes      []modeRecord
 	Notes      []string
 	rim        *rimData // Dirichlet data on a single circle, for the Poisson integral near it
 	// seriesResidual is, per side, the exact residual of the general term's condition.
@@ -189,4 +190,13 @@ func (s *Solution) Pin(v series.Coef) error {
 	s.Harmonic, err = s.Harmonic.Subst(env)
 	s.Free = ""
 	return err
+}
+
+// StepLines is how the harmonic part was found, one line a step.
+func (s *Solution) StepLines() []string {
+	lines := append([]string(nil), s.Steps...)
+	for _, r := range s.modes {
+		lines = append(lines, modeStep(r.m, r.basis, r.x))
+	}
+	return lines
 }
