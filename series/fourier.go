@@ -162,3 +162,26 @@ func familyEndMoment(k int, sin bool, m int, sigma int64, lambda Coef, q *big.Ra
 	sinL := sp.Mul(cn).Add(cp.Mul(sn))
 	return thetaMoment(k, sin, lambda, end, cosL, sinL)
 }
+
+// SineCoefficient is the general term b_n = (2/L) ∫_0^L p(s) sin(nπs/L) ds of
+// the sine series on [0, L] of the polynomial p(s) = Σ_k c_k s^k (the
+// rectangle's side expansions); cos(nπ) = (−1)^n and sin(nπ) = 0.
+func SineCoefficient(c []Coef, L Coef) (Coef, error) {
+	lambda, err := IndexCoef.Mul(SymCoef(Pi)).Div(L)
+	if err != nil {
+		return Coef{}, err
+	}
+	total := Coef{}
+	for k, ck := range c {
+		if ck.IsZero() {
+			continue
+		}
+		m, err := thetaMoment(k, true, lambda, L, SignCoef, Coef{})
+		if err != nil {
+			return Coef{}, err
+		}
+		total = total.Add(m.Mul(ck))
+	}
+	two, _ := IntCoef(2).Div(L)
+	return total.Mul(two), nil
+}

@@ -1,0 +1,107 @@
+package cart
+
+import (
+	"math"
+	"math/big"
+	"math/rand"
+	"testing"
+
+	"psol/series"
+)
+
+func randomPoly(rng *rand.Rand) Poly {
+	var p Poly
+	for k := rng.Intn(5) + 1; k > 0; k-- {
+		c := series.FracCoef(int64(rng.Intn(19)-9), int64(rng.Intn(4)+1))
+		if rng.Intn(3) == 0 {
+			c = c.Mul(series.SymCoef(series.Param("a")))
+		}
+		p = p.Add(Monomial(c, rng.Intn(5), rng.Intn(5)))
+	}
+	return p
+}
+
+// The polynomial particular solution satisfies Δu_p = f exactly and
+// vanishes on x = 0 and x = L (property test over generated sources).
+func TestParticular(t *testing.T) {
+	rng := rand.New(rand.NewSource(9))
+	L := series.SymCoef(series.Param("L"))
+	for k := 0; k < 200; k++ {
+		f := randomPoly(rng)
+		u := Particular(f, L)
+		if !u.Laplacian().Equal(f) {
+			t.Fatalf("Δ(%s) = %s, want %s", u.Text(), u.Laplacian().Text(), f.Text())
+		}
+		if !u.AtX(series.Coef{}).IsZero() || !u.AtX(L).IsZero() {
+			t.Fatalf("%s does not vanish on x = 0 and x = L", u.Text())
+		}
+	}
+	// The parabola for a constant source (common practice for channel flow between plates).
+	if got, want := Particular(Monomial(series.IntCoef(-1), 0, 0), L), X.Scale(L).Sub(X.Mul(X)).Scale(series.FracCoef(1, 2)); !got.Equal(want) {
+		t.Errorf("Δu = −1: %s, want x(L − x)/2", got.Text())
+	}
+}
+
+// Polar polynomials convert exactly: both forms agree at scattered points
+// (direct evaluation of r^p cos mθ against the polynomial, an independent path).
+func TestFromPolar(t *testing.T) {
+	rng := rand.New(rand.NewSource(10))
+	for k := 0; k < 100; k++ {
+		var ts []series.Term
+		for n := rng.Intn(3) + 1; n > 0; n-- {
+			m := rng.Intn(5)
+			p := m + 2*rng.Intn(3)
+			ts = append(ts, series.Term{C: series.FracCoef(int64(rng.Intn(9)+1), 3), P: big.NewRat(int64(p), 1), M: m, Sin: m > 0 && rng.Intn(2) == 0})
+		}
+		s := series.NewSum(ts...)
+		poly, err := FromPolar(s)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for i := 0; i < 5; i++ {
+			x, y := rng.Float64()*2-1, rng.Float64()*2-1
+			want, _ := s.Eval(math.Hypot(x, y), math.Atan2(y, x), nil)
+			got, _ := poly.Eval(x, y, nil)
+			if math.Abs(got-want) > 1e-12*math.Max(1, math.Abs(want)) {
+				t.Fatalf("%s at (%g, %g): polynomial %s gives %g, want %g", s.Text(), x, y, poly.Text(), got, want)
+			}
+		}
+	}
+	if _, err := FromPolar(series.NewSum(series.Term{C: series.IntCoef(1), P: big.NewRat(1, 1), L: 1})); err == nil {
+		t.Error("r ln r converted to a polynomial")
+	}
+}
+
+// Sine coefficients of a side polynomial: exact general term against gonum-free
+// midpoint quadrature (an independent numeric path), and x(L − x) on [0, L]
+// whose coefficients are 4L²(1 − (−1)^n)/(nπ)³ (an elementary integral, common practice).
+func TestSineCoefficient(t *testing.T) {
+	L := series.IntCoef(2)
+	p := X.Scale(L).Sub(X.Mul(X))
+	cs, ok := p.Coefficients()
+	if !ok {
+		t.Fatal("not one variable")
+	}
+	b, err := series.SineCoefficient(cs, L)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for n := 1; n <= 6; n++ {
+		v, err := series.Coefficient(b, n)
+		if err != nil {
+			t.Fatal(err)
+		}
+		got, _ := v.Float(nil)
+		want := 16 * (1 - math.Pow(-1, float64(n))) / math.Pow(float64(n)*math.Pi, 3)
+		num := 0.0
+		const N = 200000
+		for i := 0; i < N; i++ {
+			s := 2 * (float64(i) + 0.5) / N
+			num += s * (2 - s) * math.Sin(float64(n)*math.Pi*s/2)
+		}
+		num *= 2.0 / N
+		if math.Abs(got-want) > 1e-14 || math.Abs(got-num) > 1e-9 {
+			t.Errorf("b_%d = %.15g; closed form %.15g, quadrature %.15g", n, got, want, num)
+		}
+	}
+}

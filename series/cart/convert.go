@@ -1,0 +1,61 @@
+package cart
+
+import (
+	"errors"
+	"math/big"
+
+	"psol/series"
+)
+
+// ErrNotPolynomial reports a polar sum that is not a polynomial in x and y.
+var ErrNotPolynomial = errors.New("not a polynomial in x and y")
+
+// FromPolar converts a polar sum whose terms are r^p cos(mθ) or r^p sin(mθ)
+// with p − m a non-negative even number (and no logarithm or power of θ)
+// into x and y: r^m cos mθ = Re (x + iy)^m, r^m sin mθ = Im (x + iy)^m, and
+// r² = x² + y².
+func FromPolar(s series.Sum) (Poly, error) {
+	var out Poly
+	for _, t := range s.Terms() {
+		if t.L != 0 || t.K != 0 || !t.P.IsInt() {
+			return Poly{}, ErrNotPolynomial
+		}
+		p := int(t.P.Num().Int64())
+		if p < t.M || (p-t.M)%2 != 0 {
+			return Poly{}, ErrNotPolynomial
+		}
+		re, im := zPower(t.M)
+		trig := re
+		if t.Sin {
+			trig = im
+		}
+		r2 := X.Mul(X).Add(Y.Mul(Y))
+		f := trig
+		for k := 0; k < (p-t.M)/2; k++ {
+			f = f.Mul(r2)
+		}
+		out = out.Add(f.Scale(t.C))
+	}
+	return out, nil
+}
+
+// zPower is the real and imaginary parts of (x + iy)^m by the binomial theorem.
+func zPower(m int) (re, im Poly) {
+	binom := big.NewInt(1)
+	for k := 0; k <= m; k++ {
+		// C(m, k) x^(m−k) (iy)^k
+		c := series.RatCoef(new(big.Rat).SetInt(binom))
+		switch k % 4 {
+		case 0:
+			re = re.Add(Monomial(c, m-k, k))
+		case 1:
+			im = im.Add(Monomial(c, m-k, k))
+		case 2:
+			re = re.Add(Monomial(c.Neg(), m-k, k))
+		case 3:
+			im = im.Add(Monomial(c.Neg(), m-k, k))
+		}
+		binom = new(big.Int).Div(new(big.Int).Mul(binom, big.NewInt(int64(m-k))), big.NewInt(int64(k+1)))
+	}
+	return re, im
+}

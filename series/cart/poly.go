@@ -1,0 +1,222 @@
+package cart
+
+import (
+	"fmt"
+	"math/big"
+	"sort"
+	"strings"
+
+	"psol/series"
+)
+
+// Poly is Σ c_ij x^i y^j with exact coefficients, in canonical order
+// (by total degree, then by the power of x, highest first), no zero terms.
+// Operations never mutate their operands.
+type Poly struct {
+	t []term
+}
+
+type term struct {
+	i, j int
+	c    series.Coef
+}
+
+// Monomial is c·x^i·y^j.
+func Monomial(c series.Coef, i, j int) Poly { return newPoly([]term{{i, j, c}}) }
+
+// X and Y are the coordinates.
+var (
+	X = Monomial(series.IntCoef(1), 1, 0)
+	Y = Monomial(series.IntCoef(1), 0, 1)
+)
+
+func newPoly(ts []term) Poly {
+	sort.SliceStable(ts, func(a, b int) bool {
+		da, db := ts[a].i+ts[a].j, ts[b].i+ts[b].j
+		if da != db {
+			return da < db
+		}
+		return ts[a].i > ts[b].i
+	})
+	var out []term
+	for _, t := range ts {
+		if n := len(out); n > 0 && out[n-1].i == t.i && out[n-1].j == t.j {
+			out[n-1].c = out[n-1].c.Add(t.c)
+			continue
+		}
+		out = append(out, t)
+	}
+	kept := out[:0]
+	for _, t := range out {
+		if !t.c.IsZero() {
+			kept = append(kept, t)
+		}
+	}
+	return Poly{kept}
+}
+
+func (p Poly) IsZero() bool { return len(p.t) == 0 }
+
+// Add is p + q.
+func (p Poly) Add(q Poly) Poly { return newPoly(append(append([]term(nil), p.t...), q.t...)) }
+
+// Scale is c·p.
+func (p Poly) Scale(c series.Coef) Poly {
+	out := make([]term, len(p.t))
+	for k, t := range p.t {
+		out[k] = term{t.i, t.j, t.c.Mul(c)}
+	}
+	return newPoly(out)
+}
+
+// Sub is p − q.
+func (p Poly) Sub(q Poly) Poly { return p.Add(q.Scale(series.IntCoef(-1))) }
+
+// Mul is p·q.
+func (p Poly) Mul(q Poly) Poly {
+	var out []term
+	for _, a := range p.t {
+		for _, b := range q.t {
+			out = append(out, term{a.i + b.i, a.j + b.j, a.c.Mul(b.c)})
+		}
+	}
+	return newPoly(out)
+}
+
+// Equal reports p = q.
+func (p Poly) Equal(q Poly) bool { return p.Sub(q).IsZero() }
+
+// DX and DY are the partial derivatives.
+func (p Poly) DX() Poly {
+	var out []term
+	for _, t := range p.t {
+		if t.i > 0 {
+			out = append(out, term{t.i - 1, t.j, t.c.MulRat(big.NewRat(int64(t.i), 1))})
+		}
+	}
+	return newPoly(out)
+}
+
+func (p Poly) DY() Poly {
+	var out []term
+	for _, t := range p.t {
+		if t.j > 0 {
+			out = append(out, term{t.i, t.j - 1, t.c.MulRat(big.NewRat(int64(t.j), 1))})
+		}
+	}
+	return newPoly(out)
+}
+
+// Laplacian is ∂²p/∂x² + ∂²p/∂y².
+func (p Poly) Laplacian() Poly { return p.DX().DX().Add(p.DY().DY()) }
+
+// AntiXX is the x-antiderivative taken twice, x^i → x^(i+2)/((i+1)(i+2)),
+// with no integration constants.
+func (p Poly) AntiXX() Poly {
+	out := make([]term, len(p.t))
+	for k, t := range p.t {
+		out[k] = term{t.i + 2, t.j, t.c.MulRat(big.NewRat(1, int64((t.i+1)*(t.i+2))))}
+	}
+	return newPoly(out)
+}
+
+// AtX is p on the line x = a, a polynomial in y alone; AtY likewise.
+func (p Poly) AtX(a series.Coef) Poly {
+	var out []term
+	for _, t := range p.t {
+		pw, _ := a.Pow(big.NewRat(int64(t.i), 1))
+		out = append(out, term{0, t.j, t.c.Mul(pw)})
+	}
+	return newPoly(out)
+}
+
+func (p Poly) AtY(b series.Coef) Poly {
+	var out []term
+	for _, t := range p.t {
+		pw, _ := b.Pow(big.NewRat(int64(t.j), 1))
+		out = append(out, term{t.i, 0, t.c.Mul(pw)})
+	}
+	return newPoly(out)
+}
+
+// Text prints p in psol's syntax.
+func (p Poly) Text() string {
+	if p.IsZero() {
+		return "0"
+	}
+	var b strings.Builder
+	for k, t := range p.t {
+		s := t.c.Text()
+		var vars []string
+		if t.i > 0 {
+			vars = append(vars, power("x", t.i))
+		}
+		if t.j > 0 {
+			vars = append(vars, power("y", t.j))
+		}
+		body := s
+		switch {
+		case len(vars) == 0:
+		case s == "1":
+			body = strings.Join(vars, "*")
+		case s == "-1":
+			body = "-" + strings.Join(vars, "*")
+		case strings.ContainsAny(s[1:], " +-"):
+			body = "(" + s + ")*" + strings.Join(vars, "*")
+		default:
+			body = s + "*" + strings.Join(vars, "*")
+		}
+		switch {
+		case k == 0:
+			b.WriteString(body)
+		case strings.HasPrefix(body, "-"):
+			b.WriteString(" - " + body[1:])
+		default:
+			b.WriteString(" + " + body)
+		}
+	}
+	return b.String()
+}
+
+func power(v string, n int) string {
+	if n == 1 {
+		return v
+	}
+	return fmt.Sprintf("%s^%d", v, n)
+}
+
+// Eval is p at (x, y) with parameters from env.
+func (p Poly) Eval(x, y float64, env series.Env) (float64, error) {
+	sum := 0.0
+	for _, t := range p.t {
+		c, err := t.c.Float(env)
+		if err != nil {
+			return 0, err
+		}
+		v := c
+		for k := 0; k < t.i; k++ {
+			v *= x
+		}
+		for k := 0; k < t.j; k++ {
+			v *= y
+		}
+		sum += v
+	}
+	return sum, nil
+}
+
+// Coefficients lists a polynomial in one variable (x or y alone) as c_0, c_1, ...
+func (p Poly) Coefficients() ([]series.Coef, bool) {
+	var out []series.Coef
+	for _, t := range p.t {
+		if t.i > 0 && t.j > 0 {
+			return nil, false
+		}
+		d := t.i + t.j
+		for len(out) <= d {
+			out = append(out, series.Coef{})
+		}
+		out[d] = out[d].Add(t.c)
+	}
+	return out, true
+}
