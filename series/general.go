@@ -763,3 +763,12 @@ func (cs CompiledSeries) Grid(rs, thetas []float64, out [][]float64, tol float64
 	}
 	return tail
 }
+
+// IndexFunc compiles a general coefficient to a float64 function of n.
+func (c Coef) IndexFunc(env Env) (func(n float64) float64, error) {
+	f, err := compileCoef(c, env)
+	if err != nil {
+		return nil, err
+	}
+	return f.at, nil
+}

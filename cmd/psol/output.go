@@ -103,7 +103,14 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 		v.checkScope = fmt.Sprintf(" for the FFT data, which stand in for the given data to about %.1e", sol.DataError)
 	}
 	for _, c := range sol.Checks {
+		if !c.Exact {
+			v.Checks = append(v.Checks, checkOut{Name: c.Name, Side: c.Side, Residual: c.Numeric})
+			continue
+		}
 		v.Checks = append(v.Checks, checkOut{Name: c.Name, Side: c.Side, Exact: c.Exact, Formula: c.Residual.Text(), Residual: residualSize(c.Residual, pr.env)})
+	}
+	if sol.Rect != nil {
+		v.rectStages(sol)
 	}
 	for _, st := range sol.Rules {
 		v.Steps = append(v.Steps, fmt.Sprintf("ansatz %s -> %s (%s)", st.Source.Text(), st.Result.Text(), st.Rule))
@@ -145,7 +152,7 @@ func traceTeX(s domain.Side) string {
 
 func (v *view) failedCheck() error {
 	for _, c := range v.Checks {
-		if c.Formula != "0" {
+		if c.Exact && c.Formula != "0" {
 			return fmt.Errorf("internal check failed: %s = %s", c.Name, c.Formula)
 		}
 	}
@@ -245,18 +252,24 @@ func figure(exact string, v float64) string {
 func checkSummary(cs []checkOut) string {
 	var parts []string
 	exact := true
+	var numeric []string
 	for _, c := range cs {
-		p := c.Name + " = " + c.Formula
+		on := ""
 		if c.Side != "" {
-			p += " on " + c.Side
+			on = " on " + c.Side
 		}
-		parts = append(parts, p)
+		if !c.Exact {
+			numeric = append(numeric, fmt.Sprintf("%s%s %.1e", c.Name, on, c.Residual))
+			continue
+		}
+		parts = append(parts, c.Name+" = "+c.Formula+on)
 		exact = exact && c.Exact
 	}
-	if exact {
-		return strings.Join(parts, ", ") + " (exact)"
+	out := strings.Join(parts, ", ") + " (exact)"
+	if len(numeric) > 0 {
+		out += "; largest sampled residuals: " + strings.Join(numeric, ", ")
 	}
-	return strings.Join(parts, ", ")
+	return out
 }
 
 func renderLaTeX(w io.Writer, v *view) error {
@@ -333,4 +346,37 @@ func sidePrefix(sol *domain.Solution, s domain.Side) string {
 		return s.Condition.Side + ": "
 	}
 	return ""
+}
+
+// rectStages prints a rectangle's stages in x and y: the particular
+// solution, each side's trace and correction, and a series per side.
+func (v *view) rectStages(sol *domain.Solution) {
+	rp := sol.Rect
+	var tr, co, h, hTeX []string
+	for _, s := range rp.Sides {
+		coord := "x"
+		if s.Name == "left" || s.Name == "right" {
+			coord = "y"
+		}
+		tr = append(tr, s.Name+": "+s.Trace.Text())
+		co = append(co, s.Name+": "+s.Correction.Text()+" (in "+coord+")")
+		if !s.Correction.IsZero() {
+			h = append(h, s.Series.Text())
+			hTeX = append(hTeX, s.Series.LaTeX())
+		}
+	}
+	harm, harmTeX := strings.Join(h, " + "), strings.Join(hTeX, " + ")
+	if harm == "" {
+		harm, harmTeX = "0", "0"
+	}
+	v.Particular = exactStage("particular", "u_p = "+rp.Particular.Text(), sol.Particular.LaTeX(), "u_p")
+	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(tr, "; "), "u_p|_{\\partial}")
+	v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(co, "; "), "g - u_p")
+	v.Harmonic = exactStage("harmonic", harm, harmTeX, "u_h")
+	sol0 := rp.Particular.Text()
+	if harm != "0" {
+		sol0 += " + " + harm
+	}
+	v.Solution = exactStage("solution", "u = "+sol0, sol.Particular.LaTeX()+" + "+harmTeX, "u")
+	v.checkScope = ""
 }

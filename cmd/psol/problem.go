@@ -41,6 +41,8 @@ var regionKinds = []regionKind{
 		}},
 	{"outside", "solve outside the circle, r > R, with u bounded at infinity", 1,
 		func(v []series.Coef) (domain.Domain, string) { return domain.Outside{R: v[0]}, "" }},
+	{"rect", "solve on the rectangle 0 < x < L, 0 < y < H, given as L,H", 2,
+		func(v []series.Coef) (domain.Domain, string) { return domain.Rect{L: v[0], H: v[1]}, "" }},
 	{"sector", "solve on the sector r < R, 0 < theta < ALPHA, given as R,ALPHA (ALPHA a rational multiple of pi)", 2,
 		func(v []series.Coef) (domain.Domain, string) {
 			if a, ok := domain.AlphaOverPi(v[1]); !ok || a.Cmp(big.NewRat(2, 1)) > 0 {
@@ -124,7 +126,7 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 	}
 	switch len(chosen) {
 	case 0:
-		return nil, usagef("give the domain: --disk R, --annulus R1,R2, --outside R or --sector R,ALPHA")
+		return nil, usagef("give the domain: --disk R, --annulus R1,R2, --outside R, --sector R,ALPHA or --rect L,H")
 	case 1:
 	default:
 		return nil, usagef("give one domain, not %s", strings.Join(chosen, " and "))

@@ -220,3 +220,18 @@ func (p Poly) Coefficients() ([]series.Coef, bool) {
 	}
 	return out, true
 }
+
+// PolyTerm is one term c·x^I·y^J.
+type PolyTerm struct {
+	C    series.Coef
+	I, J int
+}
+
+// Terms lists the terms in canonical order.
+func (p Poly) Terms() []PolyTerm {
+	out := make([]PolyTerm, len(p.t))
+	for k, t := range p.t {
+		out[k] = PolyTerm{t.c, t.i, t.j}
+	}
+	return out
+}

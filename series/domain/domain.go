@@ -88,7 +88,9 @@ type Solution struct {
 	Free       string      // the name of a free additive constant in U, if any
 	FreeMean   series.Coef // the value of Free that makes u's mean on the first boundary circle zero
 	Checks     []Check
-	Series     *SeriesParts  // the infinite-series stages, where the region needs them
+	Series     *SeriesParts // the infinite-series stages, where the region needs them
+	Rect       *RectParts   // a rectangle's stages in x and y
+	rectEnv    series.Env
 	Rules      []ansatz.Step // how each source term was solved
 	Steps      []string      // how the harmonic part was found, beyond the per-mode records
 	modes      []modeRecord

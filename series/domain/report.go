@@ -5,6 +5,7 @@ import (
 	"math/big"
 
 	"psol/series"
+	"psol/series/cart"
 )
 
 // Report holds the figures users quote: extremes with their location, the
@@ -79,6 +80,24 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 				rep.SourceExact, rep.Source = &c, v
 			}
 		}
+	case Rect:
+		rep.Area = d.L.Mul(d.H)
+		_, v, err := sub(rectIntegral(s.Rect.Particular, d))
+		if err != nil {
+			return nil, err
+		}
+		rep.Integral = v
+		for _, side := range ev.rect {
+			rep.Integral += side.Integral(tol, 1<<20)
+		}
+		if f, err := cart.FromPolar(s.Source); err == nil {
+			if c, v, err := sub(rectIntegral(f, d)); err == nil {
+				rep.SourceExact, rep.Source = &c, v
+			}
+		}
+		if rep.Flux, err = rectFlux(d, ev, env); err != nil {
+			return nil, err
+		}
 	case Sector:
 		rep.Area = d.R.Mul(d.R).Mul(d.Alpha).MulRat(big.NewRat(1, 2))
 		a, _ := AlphaOverPi(d.Alpha)
@@ -114,6 +133,10 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 	}
 	if A, err := rep.Area.Float(env); err == nil && A > 0 {
 		rep.Mean = rep.Integral / A
+	}
+	if d, ok := s.Domain.(Rect); ok {
+		rep.Max, rep.ArgMax, rep.Min, rep.ArgMin, err = rectExtremes(d, ev, env)
+		return rep, err
 	}
 	rep.Max, rep.ArgMax, rep.Min, rep.ArgMin, err = extremes(s.Domain, ev, env)
 	return rep, err
@@ -225,4 +248,76 @@ func extremes(d Domain, ev *Evaluator, env series.Env) (maxV float64, argMax [2]
 		argMin[1] = 0
 	}
 	return
+}
+
+// rectFlux is ∮ ∂u/∂n ds over the four sides, by Gauss–Legendre panels and
+// one-sided second-order differences inward.
+func rectFlux(d Rect, ev *Evaluator, env series.Env) (float64, error) {
+	L, err := d.L.Float(env)
+	if err != nil {
+		return 0, err
+	}
+	H, err := d.H.Float(env)
+	if err != nil {
+		return 0, err
+	}
+	u := ev.atXY
+	inward := func(f func(float64) float64, h float64) float64 {
+		return (-3*f(0) + 4*f(h) - f(2*h)) / (2 * h)
+	}
+	total := 0.0
+	side := func(length float64, dn func(s float64) float64) {
+		for i := 0; i < 16; i++ {
+			a, b := length*float64(i)/16, length*float64(i+1)/16
+			for k, x := range legendreX {
+				total += (b - a) / 2 * legendreW[k] * dn((a+b)/2+(b-a)/2*x)
+			}
+		}
+	}
+	h := 1e-4 * math.Min(L, H)
+	side(L, func(x float64) float64 { return -inward(func(t float64) float64 { return u(x, t) }, h) })   // bottom: −∂u/∂y
+	side(L, func(x float64) float64 { return -inward(func(t float64) float64 { return u(x, H-t) }, h) }) // top: ∂u/∂y
+	side(H, func(y float64) float64 { return -inward(func(t float64) float64 { return u(t, y) }, h) })   // left: −∂u/∂x
+	side(H, func(y float64) float64 { return -inward(func(t float64) float64 { return u(L-t, y) }, h) }) // right: ∂u/∂x
+	return total, nil
+}
+
+// rectExtremes samples the rectangle densely; the location is given in polar
+// form like every other region's (r, θ of the point (x, y)).
+func rectExtremes(d Rect, ev *Evaluator, env series.Env) (maxV float64, argMax [2]float64, minV float64, argMin [2]float64, err error) {
+	L, err := d.L.Float(env)
+	if err != nil {
+		return
+	}
+	H, err := d.H.Float(env)
+	if err != nil {
+		return
+	}
+	maxV, minV = math.Inf(-1), math.Inf(1)
+	const n = 96
+	for i := 0; i <= n; i++ {
+		for j := 0; j <= n; j++ {
+			x, y := L*float64(i)/n, H*float64(j)/n
+			v := ev.atXY(x, y)
+			p := [2]float64{math.Hypot(x, y), math.Atan2(y, x)}
+			if v > maxV {
+				maxV, argMax = v, p
+			}
+			if v < minV {
+				minV, argMin = v, p
+			}
+		}
+	}
+	return
+}
+
+// rectIntegral is ∬ p dA over the rectangle: ∬ x^i y^j = L^(i+1) H^(j+1)/((i+1)(j+1)).
+func rectIntegral(p cart.Poly, d Rect) series.Coef {
+	total := series.Coef{}
+	for _, t := range p.Terms() {
+		lp, _ := d.L.Pow(big.NewRat(int64(t.I+1), 1))
+		hp, _ := d.H.Pow(big.NewRat(int64(t.J+1), 1))
+		total = total.Add(t.C.Mul(lp).Mul(hp).MulRat(big.NewRat(1, int64((t.I+1)*(t.J+1)))))
+	}
+	return total
 }

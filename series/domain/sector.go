@@ -8,6 +8,7 @@ import (
 
 	"psol/ansatz"
 	"psol/series"
+	"psol/series/cart"
 )
 
 // Sector is the region r < R, 0 < θ < Alpha, with Alpha a rational multiple of π.
@@ -402,6 +403,7 @@ type Evaluator struct {
 	tol    float64
 	max    int
 	rim    *compiledRim
+	rect   []*cart.CompiledSide
 }
 
 // Compile prepares the solution for evaluation with parameters from env.
@@ -415,6 +417,15 @@ func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluato
 		return nil, err
 	}
 	e := &Evaluator{closed: c, tol: tol, max: maxTerms}
+	if s.Rect != nil {
+		for _, side := range s.Rect.Sides {
+			cs, err := side.Series.Compile(env)
+			if err != nil {
+				return nil, err
+			}
+			e.rect = append(e.rect, cs)
+		}
+	}
 	if s.rim != nil {
 		if e.rim, err = s.rim.compile(s.Particular, env); err != nil {
 			return nil, err
@@ -433,6 +444,10 @@ func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluato
 // At is u(r, θ) with an estimate of the truncation error (0 for closed forms)
 // and the number of series terms summed.
 func (e *Evaluator) At(r, theta float64) (u, errEst float64, terms int) {
+	if e.rect != nil {
+		u, errEst = e.atXYTail(r*math.Cos(theta), r*math.Sin(theta))
+		return u, errEst, 0
+	}
 	u = e.closed.At(r, theta)
 	if e.ser == nil {
 		return u, 0, 0
@@ -643,3 +658,15 @@ func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
 	}
 	return u, errs
 }
+
+// atXYTail is a rectangle's u(x, y) with the summed tail estimates.
+func (e *Evaluator) atXYTail(x, y float64) (u, tail float64) {
+	u = e.closed.At(math.Hypot(x, y), math.Atan2(y, x))
+	for _, s := range e.rect {
+		v, t := s.At(x, y, e.tol, e.max)
+		u, tail = u+v, tail+t
+	}
+	return u, tail
+}
+
+func (e *Evaluator) atXY(x, y float64) float64 { u, _ := e.atXYTail(x, y); return u }
