@@ -19,6 +19,9 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 	if !ok {
 		return usagef("--lang %q: choose go, c or python", lang)
 	}
+	if sol.Rect != nil {
+		return &domain.Unsupported{Reason: "generated code for the rectangle's series is not written yet"}
+	}
 	closed := sol.U
 	var parts []series.Series
 	if sol.Series != nil {

@@ -70,11 +70,14 @@ func writeAtomically(path string, fill func(io.Writer) error) error {
 
 // writeGrid evaluates u on the grid and writes CSV: r,theta,x,y,u,error.
 func writeGrid(path string, sol *domain.Solution, env series.Env, n int, tol float64, terms int, progress io.Writer) error {
-	rs, ths, err := gridAxes(sol.Domain, n, env)
+	ev, err := sol.Compile(env, tol, terms)
 	if err != nil {
 		return usagef("--grid: %v", err)
 	}
-	ev, err := sol.Compile(env, tol, terms)
+	if d, ok := sol.Domain.(domain.Rect); ok {
+		return writeRectGrid(path, d, ev, env, n)
+	}
+	rs, ths, err := gridAxes(sol.Domain, n, env)
 	if err != nil {
 		return usagef("--grid: %v", err)
 	}
@@ -118,4 +121,38 @@ func terminal(w io.Writer) bool {
 	}
 	st, err := f.Stat()
 	return err == nil && st.Mode()&os.ModeCharDevice != 0
+}
+
+// writeRectGrid writes u on an N×N Cartesian grid over the rectangle: x,y,u,error.
+func writeRectGrid(path string, d domain.Rect, ev *domain.Evaluator, env series.Env, n int) error {
+	L, err := d.L.Float(env)
+	if err != nil {
+		return usagef("--grid: %v", err)
+	}
+	H, err := d.H.Float(env)
+	if err != nil {
+		return usagef("--grid: %v", err)
+	}
+	return writeAtomically(path, func(w io.Writer) error {
+		fmt.Fprintln(w, "x,y,u,error")
+		var line []byte
+		for i := 0; i < n; i++ {
+			for j := 0; j < n; j++ {
+				x, y := L*float64(i)/float64(n-1), H*float64(j)/float64(n-1)
+				u, e, _ := ev.At(math.Hypot(x, y), math.Atan2(y, x))
+				line = line[:0]
+				for k, v := range [4]float64{x, y, u, e} {
+					if k > 0 {
+						line = append(line, ',')
+					}
+					line = strconv.AppendFloat(line, v, 'g', []int{12, 12, 15, 3}[k], 64)
+				}
+				line = append(line, '\n')
+				if _, err := w.Write(line); err != nil {
+					return err
+				}
+			}
+		}
+		return nil
+	})
 }

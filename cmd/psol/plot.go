@@ -75,6 +75,14 @@ func bounds(d domain.Domain, env series.Env) (x0, x1, y0, y1 float64, edges []pl
 	case domain.Outside:
 		R, e := d.R.Float(env)
 		return -3 * R, 3 * R, -3 * R, 3 * R, []plotter.XYs{circle(R, 0, 2*math.Pi)}, e
+	case domain.Rect:
+		L, e := d.L.Float(env)
+		if e != nil {
+			return 0, 0, 0, 0, nil, e
+		}
+		H, e := d.H.Float(env)
+		box := plotter.XYs{{X: 0, Y: 0}, {X: L, Y: 0}, {X: L, Y: H}, {X: 0, Y: H}, {X: 0, Y: 0}}
+		return 0, L, 0, H, []plotter.XYs{box}, e
 	case domain.Sector:
 		R, e := d.R.Float(env)
 		a, _ := d.Alpha.Float(nil)
