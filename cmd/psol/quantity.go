@@ -45,6 +45,10 @@ func areaPerimeter(pr *problem) (float64, float64, bool) {
 		a, err1 := d.R1.Float(pr.env)
 		b, err2 := d.R2.Float(pr.env)
 		return math.Pi * (b*b - a*a), 2 * math.Pi * (a + b), err1 == nil && err2 == nil
+	case domain.Rect:
+		L, err1 := d.L.Float(pr.env)
+		H, err2 := d.H.Float(pr.env)
+		return L * H, 2 * (L + H), err1 == nil && err2 == nil
 	case domain.Sector:
 		R, err := d.R.Float(pr.env)
 		al, _ := d.Alpha.Float(nil)
