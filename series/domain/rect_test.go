@@ -117,3 +117,40 @@ func TestRectanglePolynomialData(t *testing.T) {
 		}
 	}
 }
+
+// BenchmarkSquareDuct solves the square duct and sums its area integral to 1e-12.
+func BenchmarkSquareDuct(b *testing.B) {
+	d := rect(b, "1", "1")
+	f, conds, err := pose("lap(u) = -1", d, zeroWalls, nil)
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for i := 0; i < b.N; i++ {
+		sol, err := domain.Solve(d, f, conds)
+		if err != nil {
+			b.Fatal(err)
+		}
+		ev, err := sol.Compile(nil, 1e-12, 1<<16)
+		if err != nil {
+			b.Fatal(err)
+		}
+		_ = ev
+	}
+}
+
+// BenchmarkRectPoints evaluates the square duct at 10⁴ points.
+func BenchmarkRectPoints(b *testing.B) {
+	sol := solve(b, "lap(u) = -1", rect(b, "1", "1"), zeroWalls...)
+	ev, err := sol.Compile(nil, 1e-12, 1<<16)
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		for k := 0; k < 10000; k++ {
+			x, y := float64(k%100)/99, float64(k/100)/99
+			ev.At(math.Hypot(x, y), math.Atan2(y, x))
+		}
+	}
+}
