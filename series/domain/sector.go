@@ -404,6 +404,39 @@ type Evaluator struct {
 	max    int
 	rim    *compiledRim
 	rect   []*cart.CompiledSide
+	walls  *rectWalls // a rectangle's side data, exact on the sides themselves
+}
+
+// rectWalls holds a rectangle's Dirichlet data in the side coordinates.
+type rectWalls struct {
+	L, H                     float64
+	left, right, bottom, top cart.Poly
+	env                      series.Env
+}
+
+// on is u on a side (not a corner) of the rectangle, where it is the data.
+func (w *rectWalls) on(x, y float64) (float64, bool) {
+	if w == nil {
+		return 0, false
+	}
+	const eps = 1e-14
+	inX, inY := x > eps*w.L && x < w.L*(1-eps), y > eps*w.H && y < w.H*(1-eps)
+	var p cart.Poly
+	var s float64
+	switch {
+	case math.Abs(x) <= eps*w.L && inY:
+		p, s = w.left, y
+	case math.Abs(x-w.L) <= eps*w.L && inY:
+		p, s = w.right, y
+	case math.Abs(y) <= eps*w.H && inX:
+		p, s = w.bottom, x
+	case math.Abs(y-w.H) <= eps*w.H && inX:
+		p, s = w.top, x
+	default:
+		return 0, false
+	}
+	v, err := p.Eval(s, s, w.env)
+	return v, err == nil
 }
 
 // Compile prepares the solution for evaluation with parameters from env.
@@ -418,13 +451,23 @@ func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluato
 	}
 	e := &Evaluator{closed: c, tol: tol, max: maxTerms}
 	if s.Rect != nil {
+		d := s.Domain.(Rect)
+		w := &rectWalls{env: env}
+		if w.L, err = d.L.Float(env); err != nil {
+			return nil, err
+		}
+		if w.H, err = d.H.Float(env); err != nil {
+			return nil, err
+		}
 		for _, side := range s.Rect.Sides {
 			cs, err := side.Series.Compile(env)
 			if err != nil {
 				return nil, err
 			}
 			e.rect = append(e.rect, cs)
+			*map[string]*cart.Poly{"left": &w.left, "right": &w.right, "bottom": &w.bottom, "top": &w.top}[side.Name] = side.Data
 		}
+		e.walls = w
 	}
 	if s.rim != nil {
 		if e.rim, err = s.rim.compile(s.Particular, env); err != nil {
@@ -661,6 +704,9 @@ func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
 
 // atXYTail is a rectangle's u(x, y) with the summed tail estimates.
 func (e *Evaluator) atXYTail(x, y float64) (u, tail float64) {
+	if v, ok := e.walls.on(x, y); ok {
+		return v, 0
+	}
 	u = e.closed.At(math.Hypot(x, y), math.Atan2(y, x))
 	for _, s := range e.rect {
 		v, t := s.At(x, y, e.tol, e.max)
