@@ -1,10 +1,28 @@
 package cart
 
 import (
+	"fmt"
 	"math"
+	"math/big"
+	"sync"
+
+	"gonum.org/v1/gonum/integrate/quad"
 
 	"psol/series"
 )
+
+var (
+	lgOnce   sync.Once
+	lgX, lgW []float64
+)
+
+func legendre16() ([]float64, []float64) {
+	lgOnce.Do(func() {
+		lgX, lgW = make([]float64, 16), make([]float64, 16)
+		quad.Legendre{}.FixedLocations(lgX, lgW, -1, 1)
+	})
+	return lgX, lgW
+}
 
 // Side is one side of the rectangle [0, L] × [0, H].
 type Side int
@@ -32,6 +50,27 @@ type SideSeries struct {
 	Side Side
 	B    series.Coef // b_n, general in n
 	L, H series.Coef
+	// Fam is the along-side family Φ_n(s) = sin/cos(ν_n π s/ℓ), set by the
+	// two neighbouring sides (values: sine ends, insulated: cosine ends); the
+	// zero value is the sine family for values on both neighbours.
+	Fam series.Family
+	// Flux marks a side whose condition is dn(u) = g; Insulated, an opposite
+	// side with dn(u) = 0. Across, the factor is then
+	//	values here, values opposite:      sinh(kd)/sinh(kw)
+	//	values here, insulated opposite:   cosh(kd)/cosh(kw)
+	//	flux here, values opposite:        sinh(kd)/(k cosh(kw))
+	//	flux here, insulated opposite:     cosh(kd)/(k sinh(kw))
+	Flux, Insulated bool
+	// B0 is the coefficient of the constant mode (n = 0 of a cosine family), apart.
+	B0 *series.Coef
+}
+
+// family is Fam, or the sine family when unset.
+func (s SideSeries) family() series.Family {
+	if s.Fam.Slope == nil {
+		return series.Family{Sin: true, Slope: big.NewRat(1, 1), Offset: new(big.Rat), From: 1}
+	}
+	return s.Fam
 }
 
 // along is the side's length ℓ and the width w across.
@@ -46,17 +85,7 @@ func (s SideSeries) along() (l, w series.Coef) {
 func (s SideSeries) Text() string {
 	l, w := s.along()
 	lt, wt := paren(l.Text()), paren(w.Text())
-	var sv, d string
-	switch s.Side {
-	case Bottom:
-		sv, d = "x", "("+wt+" - y)"
-	case Top:
-		sv, d = "x", "y"
-	case Left:
-		sv, d = "y", "("+wt+" - x)"
-	case Right:
-		sv, d = "y", "x"
-	}
+	sv, d := s.coords(false)
 	b := series.Const(s.B).Text()
 	if len(b) > 1 && (containsAny(b[1:], " ") || containsAny(b, "/")) {
 		b = "(" + b + ")"
@@ -65,25 +94,108 @@ func (s SideSeries) Text() string {
 	if lt == "1" {
 		over = ""
 	}
-	return "sum(n=1..inf, " + b + "*sin(n*pi*" + sv + over + ")*sinh(n*pi*" + d + over + ")/sinh(n*pi*" + wt + over + "))"
+	fam := s.family()
+	nu := fam.Nu(series.IndexCoef).Text()
+	if containsAny(nu, " ") {
+		nu = "(" + nu + ")"
+	}
+	k := nu + "*pi"
+	phi := "sin"
+	if !fam.Sin {
+		phi = "cos"
+	}
+	num, den := "sinh", "sinh"
+	switch {
+	case s.Insulated && s.Flux:
+		num, den = "cosh", "sinh"
+	case s.Insulated:
+		num, den = "cosh", "cosh"
+	case s.Flux:
+		num, den = "sinh", "cosh"
+	}
+	denom := den + "(" + k + "*" + wt + over + ")"
+	if s.Flux {
+		denom = "((" + k + over + ")*" + denom + ")"
+	}
+	from := fam.From
+	head := ""
+	if s.B0 != nil { // the constant mode, apart
+		from = 1
+		if !s.B0.IsZero() {
+			head = "(" + s.B0.Text() + ")*" + s.constantAcross(false) + " + "
+		}
+	}
+	return head + "sum(n=" + fmt.Sprint(from) + "..inf, " + b + "*" + phi + "(" + k + "*" + sv + over + ")*" + num + "(" + k + "*" + d + over + ")/" + denom + ")"
+}
+
+// constantAcross is the constant mode's factor across: 1, d, or d/w.
+func (s SideSeries) constantAcross(latex bool) string {
+	_, w := s.along()
+	_, d := s.coords(latex)
+	switch {
+	case s.Insulated:
+		return "1"
+	case s.Flux:
+		return d
+	}
+	if w.Equal(series.IntCoef(1)) {
+		return d
+	}
+	if latex {
+		return `\frac{` + d + `}{` + w.LaTeX() + `}`
+	}
+	return d + "/" + paren(w.Text())
+}
+
+// coords names the along and the across coordinate (distance from the opposite side).
+func (s SideSeries) coords(latex bool) (along, across string) {
+	_, w := s.along()
+	wt := w.Text()
+	if latex {
+		wt = w.LaTeX()
+	}
+	switch s.Side {
+	case Bottom:
+		return "x", "(" + wt + " - y)"
+	case Top:
+		return "x", "y"
+	case Left:
+		return "y", "(" + wt + " - x)"
+	}
+	return "y", "x"
 }
 
 // LaTeX prints the series with \sum.
 func (s SideSeries) LaTeX() string {
 	l, w := s.along()
-	var sv, d string
-	switch s.Side {
-	case Bottom:
-		sv, d = "x", "("+w.LaTeX()+" - y)"
-	case Top:
-		sv, d = "x", "y"
-	case Left:
-		sv, d = "y", "("+w.LaTeX()+" - x)"
-	case Right:
-		sv, d = "y", "x"
+	sv, d := s.coords(true)
+	fam := s.family()
+	k := `\frac{` + fam.Nu(series.IndexCoef).LaTeX() + ` \pi}{` + l.LaTeX() + `}`
+	phi := `\sin`
+	if !fam.Sin {
+		phi = `\cos`
 	}
-	k := `\frac{n \pi}{` + l.LaTeX() + `}`
-	return `\sum_{n=1}^{\infty} \left(` + series.Const(s.B).LaTeX() + `\right) \sin\left(` + k + " " + sv + `\right) \frac{\sinh\left(` + k + " " + d + `\right)}{\sinh\left(` + k + " " + w.LaTeX() + `\right)}`
+	num, den := `\sinh`, `\sinh`
+	switch {
+	case s.Insulated && s.Flux:
+		num, den = `\cosh`, `\sinh`
+	case s.Insulated:
+		num, den = `\cosh`, `\cosh`
+	case s.Flux:
+		num, den = `\sinh`, `\cosh`
+	}
+	denom := den + `\left(` + k + " " + w.LaTeX() + `\right)`
+	if s.Flux {
+		denom = k + " " + denom
+	}
+	from, head := fam.From, ""
+	if s.B0 != nil {
+		from = 1
+		if !s.B0.IsZero() {
+			head = `\left(` + s.B0.LaTeX() + `\right) ` + s.constantAcross(true) + " + "
+		}
+	}
+	return head + `\sum_{n=` + fmt.Sprint(from) + `}^{\infty} \left(` + series.Const(s.B).LaTeX() + `\right) ` + phi + `\left(` + k + " " + sv + `\right) \frac{` + num + `\left(` + k + " " + d + `\right)}{` + denom + `}`
 }
 
 func paren(s string) string {
@@ -106,10 +218,15 @@ func containsAny(s, chars string) bool {
 
 // CompiledSide evaluates a side series.
 type CompiledSide struct {
-	side Side
-	b    func(n float64) float64
-	l, w float64
-	bs   []float64 // cached b_n
+	side            Side
+	b               func(n float64) float64
+	l, w            float64
+	bs              []float64 // cached b_n
+	sin             bool
+	slope, offset   float64
+	from            int
+	flux, insulated bool
+	b0              float64
 }
 
 // Compile fixes parameters for evaluation.
@@ -124,14 +241,55 @@ func (s SideSeries) Compile(env series.Env) (*CompiledSide, error) {
 		return nil, err
 	}
 	wf, err := w.Float(env)
-	return &CompiledSide{side: s.Side, b: b, l: lf, w: wf}, err
+	fam := s.family()
+	slope, _ := fam.Slope.Float64()
+	offset, _ := fam.Offset.Float64()
+	cs := &CompiledSide{side: s.Side, b: b, l: lf, w: wf, sin: fam.Sin, slope: slope, offset: offset, from: fam.From, flux: s.Flux, insulated: s.Insulated}
+	if s.B0 != nil {
+		if cs.b0, err = s.B0.Float(env); err != nil {
+			return nil, err
+		}
+	}
+	return cs, err
+}
+
+// across is the factor Y(d) with k = ν π/ℓ, in a form that neither overflows
+// nor loses digits for large k; k = 0 (the constant mode) takes its limit.
+func (c *CompiledSide) across(k, d float64) float64 {
+	if k == 0 {
+		switch {
+		case c.insulated && c.flux:
+			return math.NaN() // no such mode: excluded by the solver
+		case c.insulated:
+			return 1
+		case c.flux:
+			return d
+		}
+		return d / c.w
+	}
+	e := math.Exp(-k * (c.w - d))
+	sh, ch := -math.Expm1(-2*k*d), 1+math.Exp(-2*k*d)
+	shw, chw := -math.Expm1(-2*k*c.w), 1+math.Exp(-2*k*c.w)
+	switch {
+	case c.insulated && c.flux:
+		return e * ch / (k * shw)
+	case c.insulated:
+		return e * ch / chw
+	case c.flux:
+		return e * sh / (k * chw)
+	}
+	return e * sh / shw
 }
 
 func (c *CompiledSide) coef(n int) float64 {
-	for len(c.bs) < n {
-		c.bs = append(c.bs, c.b(float64(len(c.bs)+1)))
+	if n == 0 {
+		return c.b0
 	}
-	return c.bs[n-1]
+	k := n - c.from
+	for len(c.bs) <= k {
+		c.bs = append(c.bs, c.b(float64(c.from+len(c.bs))))
+	}
+	return c.bs[k]
 }
 
 // At sums the series at (x, y) until n·|term bound| < tol·max(1, |sum|), at most maxTerms.
@@ -149,12 +307,20 @@ func (c *CompiledSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
 	}
 	quiet := 0
 	tail = math.Inf(1)
-	for n := 1; n <= maxTerms; n++ {
-		k := float64(n) * math.Pi / c.l
-		ratio := math.Exp(-k*(c.w-d)) * (-math.Expm1(-2 * k * d)) / (-math.Expm1(-2 * k * c.w))
-		term := c.coef(n) * ratio
-		sum += term * math.Sin(k*s)
-		tail = float64(n) * math.Abs(term)
+	for n := c.from; n < c.from+maxTerms; n++ {
+		k := (c.slope*float64(n) + c.offset) * math.Pi / c.l
+		b := c.coef(n)
+		if b == 0 {
+			quiet++
+			continue
+		}
+		term := b * c.across(k, d)
+		phi := math.Cos(k * s)
+		if c.sin {
+			phi = math.Sin(k * s)
+		}
+		sum += term * phi
+		tail = float64(n+1) * math.Abs(term)
 		if tail <= tol*math.Max(1, math.Abs(sum)) {
 			if quiet++; quiet >= 4 {
 				break
@@ -169,6 +335,9 @@ func (c *CompiledSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
 // Integral is ∬ over the rectangle: Σ b_n · ℓ(1 − (−1)^n)/(nπ) · (ℓ/(nπ)) tanh(nπw/(2ℓ)),
 // since ∫_0^w sinh(kd)/sinh(kw) dd = (cosh(kw) − 1)/(k sinh(kw)) = tanh(kw/2)/k.
 func (c *CompiledSide) Integral(tol float64, maxTerms int) float64 {
+	if !c.sin || c.offset != 0 || c.flux || c.insulated {
+		return c.integralByQuadrature()
+	}
 	sum, quiet := 0.0, 0
 	for n := 1; n <= maxTerms; n++ {
 		k := float64(n) * math.Pi / c.l
@@ -184,4 +353,36 @@ func (c *CompiledSide) Integral(tol float64, maxTerms int) float64 {
 		}
 	}
 	return sum
+}
+
+// integralByQuadrature is the series' area integral by a tensor Gauss–Legendre
+// rule on 16×16 panels, for the families without a closed form here.
+func (c *CompiledSide) integralByQuadrature() float64 {
+	x, wts := legendre16()
+	total := 0.0
+	const panels = 16
+	for i := 0; i < panels; i++ {
+		for j := 0; j < panels; j++ {
+			for a, xa := range x {
+				for b, xb := range x {
+					s := c.l * (float64(i) + (xa+1)/2) / panels
+					d := c.w * (float64(j) + (xb+1)/2) / panels
+					var px, py float64
+					switch c.side {
+					case Bottom:
+						px, py = s, c.w-d
+					case Top:
+						px, py = s, d
+					case Left:
+						px, py = c.w-d, s
+					default:
+						px, py = d, s
+					}
+					v, _ := c.At(px, py, 1e-13, 1<<14)
+					total += wts[a] * wts[b] * v
+				}
+			}
+		}
+	}
+	return total * c.l * c.w / (4 * panels * panels)
 }

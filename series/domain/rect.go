@@ -44,29 +44,37 @@ type RectSide struct {
 	Series     cart.SideSeries
 }
 
-// solve: u = u_p + Σ four one-side series. The particular solution is the
+// solve: u = u_p + Σ four one-side series, one per side with data. The particular solution is the
 // polynomial that vanishes on x = 0 and x = L (cart.Particular); each side's
 // correction, a polynomial in the side's coordinate, is expanded in
 // sin(nπs/ℓ) with the exact general term (series.SineCoefficient) and
 // continued across by sinh(nπd/ℓ)/sinh(nπw/ℓ), which vanishes on the other
 // three sides.
 func (d Rect) solve(p *posed) (*Solution, error) {
+	allValues, anyValues := true, false
 	for _, name := range d.Sides() {
-		if c := p.conds[name]; c.Kind != Dirichlet || !c.G.IsExact() {
-			return nil, unsupported("the rectangle takes values on every side (u = g, g a polynomial) so far; %s has %q", name, c.Text)
+		c := p.conds[name]
+		if c.Kind == Robin || !c.G.IsExact() {
+			return nil, unsupported("the rectangle takes u = g or dn(u) = g on each side, g a polynomial, so far; %s has %q", name, c.Text)
 		}
+		allValues = allValues && c.Kind == Dirichlet
+		anyValues = anyValues || c.Kind == Dirichlet
+	}
+	if !anyValues {
+		return nil, unsupported("the rectangle needs values (u = g) on at least one side so far")
 	}
 	f, err := cart.FromPolar(p.f)
 	if err != nil {
 		return nil, unsupported("on the rectangle the source must be a polynomial in x and y so far, not %s", p.f.Text())
 	}
 	up := cart.Particular(f, d.L)
-	// Add the harmonic a + bx + cy + dxy that takes the corrections' corner
-	// values, so that every side's correction vanishes at its ends and its
-	// sine series converges like 1/n³ rather than 1/n (common practice).
-	up, err = withCornerFit(up, d, p)
-	if err != nil {
-		return nil, err
+	if allValues {
+		// Add the harmonic a + bx + cy + dxy that takes the corrections' corner
+		// values, so that every side's correction vanishes at its ends and its
+		// sine series converges like 1/n³ rather than 1/n (common practice).
+		if up, err = withCornerFit(up, d, p); err != nil {
+			return nil, err
+		}
 	}
 	parts := &RectParts{Particular: up}
 	sol := &Solution{Domain: d, Source: p.f, Rect: parts}
@@ -75,54 +83,43 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 	}
 	sol.U = sol.Particular // the closed part; the side series are evaluated beside it
 	zero := series.Coef{}
-	at := map[string]func(cart.Poly) cart.Poly{
-		"left":   func(q cart.Poly) cart.Poly { return q.AtX(zero) },
-		"right":  func(q cart.Poly) cart.Poly { return q.AtX(d.L) },
-		"bottom": func(q cart.Poly) cart.Poly { return q.AtY(zero) },
-		"top":    func(q cart.Poly) cart.Poly { return q.AtY(d.H) },
+	// Each side: where it lies, its operator (u or the outward derivative),
+	// its neighbours at s = 0 and s = ℓ, and its opposite side.
+	geometry := map[string]struct {
+		side             cart.Side
+		at               func(cart.Poly) cart.Poly
+		normal           func(cart.Poly) cart.Poly
+		length           series.Coef
+		start, end, away string
+	}{
+		"left":   {cart.Left, func(q cart.Poly) cart.Poly { return q.AtX(zero) }, func(q cart.Poly) cart.Poly { return q.DX().Scale(series.IntCoef(-1)).AtX(zero) }, d.H, "bottom", "top", "right"},
+		"right":  {cart.Right, func(q cart.Poly) cart.Poly { return q.AtX(d.L) }, func(q cart.Poly) cart.Poly { return q.DX().AtX(d.L) }, d.H, "bottom", "top", "left"},
+		"bottom": {cart.Bottom, func(q cart.Poly) cart.Poly { return q.AtY(zero) }, func(q cart.Poly) cart.Poly { return q.DY().Scale(series.IntCoef(-1)).AtY(zero) }, d.L, "left", "right", "top"},
+		"top":    {cart.Top, func(q cart.Poly) cart.Poly { return q.AtY(d.H) }, func(q cart.Poly) cart.Poly { return q.DY().AtY(d.H) }, d.L, "left", "right", "bottom"},
 	}
-	sides := map[string]cart.Side{"left": cart.Left, "right": cart.Right, "bottom": cart.Bottom, "top": cart.Top}
-	corner := map[string]series.Coef{}
 	for _, name := range d.Sides() {
-		g, err := cart.FromPolar(p.conds[name].G.Exact)
+		geo := geometry[name]
+		cond := p.conds[name]
+		g, err := cart.FromPolar(cond.G.Exact)
 		if err != nil {
-			return nil, unsupported("boundary data on %s must be a polynomial so far, not %s", name, p.conds[name].G.Text())
+			return nil, unsupported("boundary data on %s must be a polynomial so far, not %s", name, cond.G.Text())
 		}
-		data := at[name](g)
-		tr := at[name](up)
+		data := geo.at(g)
+		tr := geo.at(up)
+		if cond.Kind == Neumann {
+			tr = geo.normal(up)
+		}
 		corr := data.Sub(tr)
-		cs, ok := corr.Coefficients()
-		if !ok {
-			return nil, unsupported("the data on %s depend on both x and y", name)
-		}
-		length := d.L
-		if name == "left" || name == "right" {
-			length = d.H
-		}
-		b, err := series.SineCoefficient(cs, length)
+		ser, err := sideSeries(geo.side, corr, geo.length, d, p.conds[geo.start].Kind == Neumann, p.conds[geo.end].Kind == Neumann, cond.Kind == Neumann, p.conds[geo.away].Kind == Neumann)
 		if err != nil {
 			return nil, err
 		}
-		parts.Sides = append(parts.Sides, RectSide{Name: name, Data: data, Trace: tr, Correction: corr, Series: cart.SideSeries{Side: sides[name], B: b, L: d.L, H: d.H}})
+		parts.Sides = append(parts.Sides, RectSide{Name: name, Data: data, Trace: tr, Correction: corr, Series: ser})
 		where := map[string]string{"left": "0, y", "right": d.L.Text() + ", y", "bottom": "x, 0", "top": "x, " + d.H.Text()}[name]
-		sol.Sides = append(sol.Sides, Side{Condition: p.conds[name], At: where, AtLaTeX: where, DataText: data.Text(), DataLaTeX: data.Text()})
-		// Values at the two ends of the side, for the corner compatibility check.
-		v0, _ := corr.AtX(zero).AtY(zero).Coefficients()
-		vl, _ := corr.AtX(length).AtY(length).Coefficients()
-		corner[name+"0"], corner[name+"1"] = first(v0), first(vl)
+		sol.Sides = append(sol.Sides, Side{Condition: cond, At: where, AtLaTeX: where, DataText: data.Text(), DataLaTeX: data.Text()})
 	}
-	// Corners where the data of adjacent sides disagree: the series still
-	// converge, to the mean, but slowly there.
-	for _, c := range []struct{ a, b, where string }{
-		{"left0", "bottom0", "(0, 0)"}, {"bottom1", "right0", "(L, 0)"}, {"right1", "top1", "(L, H)"}, {"top0", "left1", "(0, H)"},
-	} {
-		sideA, sideB := c.a[:len(c.a)-1], c.b[:len(c.b)-1]
-		ga, _ := cart.FromPolar(p.conds[sideA].G.Exact)
-		gb, _ := cart.FromPolar(p.conds[sideB].G.Exact)
-		va, vb := cornerValue(ga, c.where, d), cornerValue(gb, c.where, d)
-		if !va.Equal(vb) {
-			sol.Notes = append(sol.Notes, fmt.Sprintf("the data disagree at the corner %s: %s gives %s, %s gives %s (a jump of %s)", c.where, sideA, va.Text(), sideB, vb.Text(), vb.Sub(va).Text()))
-		}
+	if allValues {
+		cornerWarnings(d, p, sol)
 	}
 	res := up.Laplacian().Sub(f)
 	resPolar, _ := toPolar(res)
@@ -202,9 +199,14 @@ func rectChecks(d Rect, sol *Solution, ev *Evaluator, env series.Env) []Check {
 			}
 			g, _ = s.Data.Eval(along, along, env)
 			u := ev.atXY(x, y)
+			if sol.Sides[k0(s.Name)].Condition.Kind == Neumann { // the outward derivative, one-sided inward
+				h := 1e-4 * math.Min(L, H)
+				dx, dy := map[string][2]float64{"left": {1, 0}, "right": {-1, 0}, "bottom": {0, 1}, "top": {0, -1}}[s.Name][0], map[string][2]float64{"left": {1, 0}, "right": {-1, 0}, "bottom": {0, 1}, "top": {0, -1}}[s.Name][1]
+				u = -(-3*u + 4*ev.atXY(x+h*dx, y+h*dy) - ev.atXY(x+2*h*dx, y+2*h*dy)) / (2 * h)
+			}
 			worst = math.Max(worst, math.Abs(u-g))
 		}
-		out = append(out, Check{Name: "u - g", Side: s.Name, Numeric: worst})
+		out = append(out, Check{Name: OperatorText(sol.Sides[k0(s.Name)].Condition, "u") + " - g", Side: s.Name, Numeric: worst})
 	}
 	return out
 }
@@ -252,4 +254,70 @@ func withCornerFit(up cart.Poly, d Rect, p *posed) (cart.Poly, error) {
 		Add(cart.Y.Scale(c0H.Sub(c00).Mul(invH))).
 		Add(cart.X.Mul(cart.Y).Scale(cLH.Sub(cL0).Sub(c0H).Add(c00).Mul(invL).Mul(invH)))
 	return up.Add(w), nil
+}
+
+// sideSeries expands a side's correction c(s), s ∈ [0, ℓ], in the family the
+// neighbours set (values: sine ends; insulated: cosine ends), through θ = πs/ℓ
+// so that series.ProjectPieces gives the exact general term; the constant
+// mode of a cosine family is computed apart.
+func sideSeries(side cart.Side, corr cart.Poly, length series.Coef, d Rect, startN, endN, flux, insulated bool) (cart.SideSeries, error) {
+	fam := series.Family{Sin: !startN, Slope: big.NewRat(1, 1), Offset: new(big.Rat), From: 1}
+	switch {
+	case startN && endN:
+		fam.From = 0
+	case startN != endN:
+		fam.Offset = big.NewRat(-1, 2)
+	}
+	cs, ok := corr.Coefficients()
+	if !ok {
+		return cart.SideSeries{}, unsupported("the data on side %v depend on both x and y", side)
+	}
+	scale, err := length.Div(series.SymCoef(series.Pi)) // s = (ℓ/π) θ
+	if err != nil {
+		return cart.SideSeries{}, err
+	}
+	var theta series.Sum
+	for k, c := range cs {
+		pw, _ := scale.Pow(big.NewRat(int64(k), 1))
+		theta = theta.Add(series.NewSum(series.Term{C: c.Mul(pw), K: k}))
+	}
+	pieces := []series.Piece{{From: big.NewRat(0, 1), To: big.NewRat(1, 1), Value: series.ExactField(theta)}}
+	b, err := series.ProjectPieces(pieces, fam, big.NewRat(1, 1), 0, false)
+	if err != nil {
+		return cart.SideSeries{}, err
+	}
+	ser := cart.SideSeries{Side: side, B: b, L: d.L, H: d.H, Fam: fam, Flux: flux, Insulated: insulated}
+	if fam.From == 0 {
+		b0, err := series.ProjectPieces(pieces, fam, big.NewRat(1, 1), 0, true)
+		if err != nil {
+			return cart.SideSeries{}, err
+		}
+		if flux && insulated && !b0.IsZero() {
+			return cart.SideSeries{}, unsolvable("the flux data are incompatible with the source: the mean of the correction on side %v is %s, not 0", side, b0.Text())
+		}
+		// The constant mode's factor across is 1, d or d/w (see cart.SideSeries): scale to the operator.
+		ser.B0 = &b0
+	}
+	return ser, nil
+}
+
+// k0 is the index of a side in Sides().
+func k0(name string) int {
+	return map[string]int{"left": 0, "right": 1, "bottom": 2, "top": 3}[name]
+}
+
+// cornerWarnings names the corners where the data of adjacent sides disagree:
+// the series still converge, to the mean, but slowly there.
+func cornerWarnings(d Rect, p *posed, sol *Solution) {
+	for _, c := range []struct{ a, b, where string }{
+		{"left0", "bottom0", "(0, 0)"}, {"bottom1", "right0", "(L, 0)"}, {"right1", "top1", "(L, H)"}, {"top0", "left1", "(0, H)"},
+	} {
+		sideA, sideB := c.a[:len(c.a)-1], c.b[:len(c.b)-1]
+		ga, _ := cart.FromPolar(p.conds[sideA].G.Exact)
+		gb, _ := cart.FromPolar(p.conds[sideB].G.Exact)
+		va, vb := cornerValue(ga, c.where, d), cornerValue(gb, c.where, d)
+		if !va.Equal(vb) {
+			sol.Notes = append(sol.Notes, fmt.Sprintf("the data disagree at the corner %s: %s gives %s, %s gives %s (a jump of %s)", c.where, sideA, va.Text(), sideB, vb.Text(), vb.Sub(va).Text()))
+		}
+	}
 }

@@ -154,3 +154,54 @@ func BenchmarkRectPoints(b *testing.B) {
 		}
 	}
 }
+
+// Insulated sides: a channel between plates y = 0 and y = H with insulated
+// ends has the plane-Poiseuille profile u = y(H − y)/2 for Δu = −1
+// (common practice: the flow between parallel plates), whatever the ends.
+func TestRectangleInsulatedEnds(t *testing.T) {
+	sol := solve(t, "lap(u) = -1", rect(t, "2", "1"), "left: dn(u) = 0", "right: dn(u) = 0", "bottom: u = 0", "top: u = 0")
+	ev, err := sol.Compile(nil, 1e-13, 1<<16)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range [][2]float64{{0.3, 0.4}, {1.7, 0.8}, {1, 0.1}, {0.05, 0.5}} {
+		v, _, _ := ev.At(math.Hypot(p[0], p[1]), math.Atan2(p[1], p[0]))
+		if want := p[1] * (1 - p[1]) / 2; math.Abs(v-want) > 1e-9 {
+			t.Errorf("u(%v) = %.12f, want %.12f", p, v, want)
+		}
+	}
+}
+
+// A mixed rectangle (flux on one side, insulation on another, values on two)
+// checked by finite differences with Richardson inside and by the data.
+func TestRectangleMixed(t *testing.T) {
+	sol := solve(t, "lap(u) = 2 - x", rect(t, "1", "3/2"), "left: u = y", "right: dn(u) = 1", "bottom: dn(u) = 0", "top: u = 3/2 + x^2")
+	ev, err := sol.Compile(nil, 1e-13, 1<<16)
+	if err != nil {
+		t.Fatal(err)
+	}
+	u := func(x, y float64) float64 { v, _, _ := ev.At(math.Hypot(x, y), math.Atan2(y, x)); return v }
+	rng := rand.New(rand.NewSource(12))
+	for i := 0; i < 8; i++ {
+		x, y := 0.2+0.6*rng.Float64(), 0.2+1.1*rng.Float64()
+		lap := func(h float64) float64 { return (u(x+h, y) + u(x-h, y) + u(x, y+h) + u(x, y-h) - 4*u(x, y)) / (h * h) }
+		if fd := (4*lap(5e-3) - lap(1e-2)) / 3; math.Abs(fd-(2-x)) > 1e-6 {
+			t.Errorf("FD Laplacian at (%.3f, %.3f): %.9f, want %.9f", x, y, fd, 2-x)
+		}
+	}
+	// Interior approach to the sides: values and fluxes (one-sided differences).
+	const h = 1e-4
+	for _, y := range []float64{0.4, 0.9} {
+		if v := u(1e-9, y); math.Abs(v-y) > 1e-4 { // sine series of data with nonzero ends converge slowly at the side
+			t.Errorf("left value at y = %g: %.9f", y, v)
+		}
+		if dn := (3*u(1, y) - 4*u(1-h, y) + u(1-2*h, y)) / (2 * h); math.Abs(dn-1) > 1e-4 {
+			t.Errorf("right flux at y = %g: %.7f, want 1", y, dn)
+		}
+	}
+	for _, x := range []float64{0.3, 0.7} {
+		if dn := -(-3*u(x, 0) + 4*u(x, h) - u(x, 2*h)) / (2 * h); math.Abs(dn) > 1e-4 {
+			t.Errorf("bottom flux at x = %g: %.7f, want 0", x, dn)
+		}
+	}
+}

@@ -410,7 +410,7 @@ type Evaluator struct {
 // rectWalls holds a rectangle's Dirichlet data in the side coordinates.
 type rectWalls struct {
 	L, H                     float64
-	left, right, bottom, top cart.Poly
+	left, right, bottom, top *cart.Poly // nil where the side carries a flux, not a value
 	env                      series.Env
 }
 
@@ -421,7 +421,7 @@ func (w *rectWalls) on(x, y float64) (float64, bool) {
 	}
 	const eps = 1e-14
 	inX, inY := x > eps*w.L && x < w.L*(1-eps), y > eps*w.H && y < w.H*(1-eps)
-	var p cart.Poly
+	var p *cart.Poly
 	var s float64
 	switch {
 	case math.Abs(x) <= eps*w.L && inY:
@@ -433,6 +433,9 @@ func (w *rectWalls) on(x, y float64) (float64, bool) {
 	case math.Abs(y-w.H) <= eps*w.H && inX:
 		p, s = w.top, x
 	default:
+		return 0, false
+	}
+	if p == nil {
 		return 0, false
 	}
 	v, err := p.Eval(s, s, w.env)
@@ -465,7 +468,10 @@ func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluato
 				return nil, err
 			}
 			e.rect = append(e.rect, cs)
-			*map[string]*cart.Poly{"left": &w.left, "right": &w.right, "bottom": &w.bottom, "top": &w.top}[side.Name] = side.Data
+			if s.Sides[k0(side.Name)].Condition.Kind == Dirichlet {
+				data := side.Data
+				*map[string]**cart.Poly{"left": &w.left, "right": &w.right, "bottom": &w.bottom, "top": &w.top}[side.Name] = &data
+			}
 		}
 		e.walls = w
 	}
