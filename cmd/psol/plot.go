@@ -159,6 +159,14 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 		l.Width = vg.Points(1.5)
 		p.Add(l)
 	}
+	// Equal scales on both axes, so that the domain keeps its true shape.
+	if w, h := x1-x0, y1-y0; w > h {
+		c := (y0 + y1) / 2
+		y0, y1 = c-w/2, c+w/2
+	} else {
+		c := (x0 + x1) / 2
+		x0, x1 = c-h/2, c+h/2
+	}
 	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = x0, x1, y0, y1
 	bar := plot.New()
 	bar.HideY()
