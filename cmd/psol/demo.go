@@ -57,6 +57,14 @@ var scenarios = []scenario{
 		args: []string{"solve", "lap(u) = -2", "--sector", "1,3*pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--at", "r=0.5,theta=3*pi/4"},
 	},
 	{
+		name:  "duct",
+		title: "Rectangular air duct in laminar flow",
+		meaning: "A 30 cm x 15 cm duct carrying air in fully developed laminar flow: with u the velocity in units\n" +
+			"of (-dp/dz) a^2/mu, lap(u) = -1 and u = 0 on the walls; --quantity flow gives the flow rate,\n" +
+			"the mean velocity and the friction product fRe that pressure-drop estimates use.",
+		args: []string{"solve", "lap(u) = -1", "--rect", "0.3,0.15", "--bc", "left: u = 0", "--bc", "right: u = 0", "--bc", "bottom: u = 0", "--bc", "top: u = 0", "--quantity", "flow"},
+	},
+	{
 		name:  "plate",
 		title: "Charged disk with a non-uniform charge",
 		meaning: "A thin disk of unit radius carries charge density growing to one side, lap(u) = -(1 + x),\n" +
