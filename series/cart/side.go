@@ -104,15 +104,7 @@ func (s SideSeries) Text() string {
 	if !fam.Sin {
 		phi = "cos"
 	}
-	num, den := "sinh", "sinh"
-	switch {
-	case s.Insulated && s.Flux:
-		num, den = "cosh", "sinh"
-	case s.Insulated:
-		num, den = "cosh", "cosh"
-	case s.Flux:
-		num, den = "sinh", "cosh"
-	}
+	num, den := s.acrossFunctions("")
 	denom := den + "(" + k + "*" + wt + over + ")"
 	if s.Flux {
 		denom = "((" + k + over + ")*" + denom + ")"
@@ -175,15 +167,7 @@ func (s SideSeries) LaTeX() string {
 	if !fam.Sin {
 		phi = `\cos`
 	}
-	num, den := `\sinh`, `\sinh`
-	switch {
-	case s.Insulated && s.Flux:
-		num, den = `\cosh`, `\sinh`
-	case s.Insulated:
-		num, den = `\cosh`, `\cosh`
-	case s.Flux:
-		num, den = `\sinh`, `\cosh`
-	}
+	num, den := s.acrossFunctions(`\`)
 	denom := den + `\left(` + k + " " + w.LaTeX() + `\right)`
 	if s.Flux {
 		denom = k + " " + denom
@@ -294,17 +278,7 @@ func (c *CompiledSide) coef(n int) float64 {
 
 // At sums the series at (x, y) until n·|term bound| < tol·max(1, |sum|), at most maxTerms.
 func (c *CompiledSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
-	var s, d float64
-	switch c.side {
-	case Bottom:
-		s, d = x, c.w-y
-	case Top:
-		s, d = x, y
-	case Left:
-		s, d = y, c.w-x
-	case Right:
-		s, d = y, x
-	}
+	s, d := c.local(x, y)
 	quiet := 0
 	tail = math.Inf(1)
 	for n := c.from; n < c.from+maxTerms; n++ {
@@ -367,17 +341,7 @@ func (c *CompiledSide) integralByQuadrature() float64 {
 				for b, xb := range x {
 					s := c.l * (float64(i) + (xa+1)/2) / panels
 					d := c.w * (float64(j) + (xb+1)/2) / panels
-					var px, py float64
-					switch c.side {
-					case Bottom:
-						px, py = s, c.w-d
-					case Top:
-						px, py = s, d
-					case Left:
-						px, py = c.w-d, s
-					default:
-						px, py = d, s
-					}
+					px, py := c.point(s, d)
 					v, _ := c.At(px, py, 1e-13, 1<<14)
 					total += wts[a] * wts[b] * v
 				}
@@ -385,4 +349,45 @@ func (c *CompiledSide) integralByQuadrature() float64 {
 		}
 	}
 	return total * c.l * c.w / (4 * panels * panels)
+}
+
+// local is the point (x, y) as (s along the side, d from the opposite side).
+func (c *CompiledSide) local(x, y float64) (s, d float64) {
+	switch c.side {
+	case Bottom:
+		return x, c.w - y
+	case Top:
+		return x, y
+	case Left:
+		return y, c.w - x
+	}
+	return y, x
+}
+
+// point is local's inverse.
+func (c *CompiledSide) point(s, d float64) (x, y float64) {
+	switch c.side {
+	case Bottom:
+		return s, c.w - d
+	case Top:
+		return s, d
+	case Left:
+		return c.w - d, s
+	}
+	return d, s
+}
+
+// acrossFunctions names the across factor's numerator and denominator
+// functions, with a prefix (a backslash for LaTeX).
+func (s SideSeries) acrossFunctions(prefix string) (num, den string) {
+	num, den = "sinh", "sinh"
+	switch {
+	case s.Insulated && s.Flux:
+		num, den = "cosh", "sinh"
+	case s.Insulated:
+		num, den = "cosh", "cosh"
+	case s.Flux:
+		num, den = "sinh", "cosh"
+	}
+	return prefix + num, prefix + den
 }
