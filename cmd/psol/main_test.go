@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"flag"
 	"fmt"
+	"math/rand"
 	"os"
 	"os/exec"
 	"path/filepath"
@@ -244,6 +245,45 @@ func BenchmarkCommand(b *testing.B) {
 	for i := 0; i < b.N; i++ {
 		if out, err := exec.Command(bin, benchArgs...).CombinedOutput(); err != nil {
 			b.Fatalf("%v\n%s", err, out)
+		}
+	}
+}
+
+// Random combinations of equations, regions, conditions and options never
+// panic, and always end with one of the three exit codes.
+func TestNoPanics(t *testing.T) {
+	eqs := []string{"lap(u) = 1", "lap(u) = x*y", "lap(u) = theta < pi ? 1 : 0", "lap(u) = exp(x)", "lap(u) = r^(-3)", "lap(u) = ln(r)",
+		"lap(u) = sum(n=1..inf, r^n/n^2)", "lap(u) = 1/0", "lap(u) = abs(sin(theta))", "lap(u) = -2", "lap(u) = a*r^(1/2)*cos(2theta)"}
+	doms := [][]string{{"--disk", "1"}, {"--annulus", "1,2"}, {"--outside", "1"}, {"--sector", "1,pi/2"}, {"--sector", "1,2*pi"},
+		{"--rect", "1,2"}, {"--disk", "a"}, {"--rect", "a,b"}, {"--sector", "a,3*pi/2"}}
+	bcs := []string{"u = 0", "dn(u) = 1", "dn(u) + u = x", "u = theta < pi ? 1 : 0", "u = abs(sin(theta))", "u = exp(cos(theta))",
+		"dn(u) = 0", "u = 1", "u = y^2", "dn(u) - 2u = 0", "u = a"}
+	sides := map[string][]string{"--disk": {"rim"}, "--outside": {"rim"}, "--annulus": {"inner", "outer"}, "--sector": {"arc", "start", "end"}, "--rect": {"left", "right", "bottom", "top"}}
+	extras := [][]string{{"--report"}, {"--at", "r=0.5,theta=1"}, {"--format", "json"}, {"--format", "latex"}, {"--format", "code"}, {"--let", "a=2,b=1"}, {"--quantity", "peak"}, {"--steps"}}
+	rng := rand.New(rand.NewSource(13))
+	for i := 0; i < 300; i++ {
+		d := doms[rng.Intn(len(doms))]
+		args := []string{"solve", eqs[rng.Intn(len(eqs))], d[0], d[1]}
+		for _, s := range sides[d[0]] {
+			args = append(args, "--bc", s+": "+bcs[rng.Intn(len(bcs))])
+		}
+		for _, e := range extras {
+			if rng.Intn(4) == 0 {
+				args = append(args, e...)
+			}
+		}
+		var out bytes.Buffer
+		code := -1
+		func() {
+			defer func() {
+				if r := recover(); r != nil {
+					t.Errorf("panic %v for %q", r, args)
+				}
+			}()
+			code = run(args, &out, &out)
+		}()
+		if code < 0 || code > 2 {
+			t.Errorf("%q: exit %d", args, code)
 		}
 	}
 }
