@@ -529,3 +529,22 @@ func (cf CompiledField) eval(e *Expr, r, theta, n float64) float64 {
 	}
 	return unaryFloat[e.op](cf.eval(e.args[0], r, theta, n))
 }
+
+// ExprOf is an exact sum as a remainder node, for numeric methods.
+func ExprOf(s Sum) *Expr { return &Expr{op: "sum", sum: s} }
+
+// HasSeries reports a remainder that contains a series (slow to evaluate).
+func (e *Expr) HasSeries() bool {
+	if e == nil {
+		return false
+	}
+	if e.op == "series" {
+		return true
+	}
+	for _, a := range e.args {
+		if a.HasSeries() {
+			return true
+		}
+	}
+	return false
+}

@@ -261,7 +261,7 @@ func TestNoPanics(t *testing.T) {
 	sides := map[string][]string{"--disk": {"rim"}, "--outside": {"rim"}, "--annulus": {"inner", "outer"}, "--sector": {"arc", "start", "end"}, "--rect": {"left", "right", "bottom", "top"}}
 	extras := [][]string{{"--report"}, {"--at", "r=0.5,theta=1"}, {"--format", "json"}, {"--format", "latex"}, {"--format", "code"}, {"--let", "a=2,b=1"}, {"--quantity", "peak"}, {"--steps"}}
 	rng := rand.New(rand.NewSource(13))
-	for i := 0; i < 300; i++ {
+	for i := 0; i < 150; i++ {
 		d := doms[rng.Intn(len(doms))]
 		args := []string{"solve", eqs[rng.Intn(len(eqs))], d[0], d[1]}
 		for _, s := range sides[d[0]] {

@@ -100,7 +100,7 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	}
 	if sol.Numeric {
 		v.approximate(sol)
-		v.checkScope = fmt.Sprintf(" for the FFT data, which stand in for the given data to about %.1e", sol.DataError)
+		v.checkScope = fmt.Sprintf(" for the numeric parts as computed (see the notes), which carry an error of about %.1e", sol.DataError)
 	}
 	for _, c := range sol.Checks {
 		if !c.Exact {
@@ -336,8 +336,25 @@ func (v *view) approximate(sol *domain.Solution) {
 		co, coTeX = append(co, sidePrefix(sol, s)+"≈ "+c.TextApprox()), append(coTeX, c.LaTeXApprox())
 	}
 	mark(&v.Correction, strings.Join(co, "; "), strings.Join(coTeX, ", "))
+	var tr, trTeX []string
+	for _, s := range sol.Sides {
+		tr, trTeX = append(tr, sidePrefix(sol, s)+traceText(s)+" ≈ "+s.Trace.TextApprox()), append(trTeX, s.Trace.LaTeXApprox())
+	}
+	mark(&v.Trace, strings.Join(tr, "; "), strings.Join(trTeX, ", "))
+	if sol.Quadrature != nil {
+		q := "quadrature(" + sol.Rest.Text() + ")"
+		text := "u_p = " + sol.Particular.Text() + " + " + q
+		if sol.Particular.IsZero() {
+			text = "u_p = " + q
+		}
+		mark(&v.Particular, text, sol.Particular.LaTeX()+` + u_q`)
+	}
 	mark(&v.Harmonic, "≈ "+sol.Harmonic.TextApprox(), sol.Harmonic.LaTeXApprox())
-	mark(&v.Solution, "u ≈ "+sol.U.TextApprox(), sol.U.LaTeXApprox())
+	solText, solTeX := sol.U.TextApprox(), sol.U.LaTeXApprox()
+	if sol.Quadrature != nil {
+		solText, solTeX = solText+" + quadrature("+sol.Rest.Text()+")", solTeX+` + u_q`
+	}
+	mark(&v.Solution, "u ≈ "+solText, solTeX)
 }
 
 // sidePrefix names the side in a stage line where the region has several.

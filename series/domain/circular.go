@@ -2,7 +2,9 @@ package domain
 
 import (
 	"fmt"
+	"math"
 	"math/big"
+	"strconv"
 	"strings"
 
 	"psol/ansatz"
@@ -187,6 +189,11 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 		}
 		traced[c.name], traces[c.name] = gf, tr
 	}
+	if p.rest != nil {
+		if err := quadratureParticular(d, p, sol, traces); err != nil {
+			return nil, err
+		}
+	}
 	closedData, err := twoCircleSeries(d, p, traced, traces, sol)
 	if err != nil {
 		return nil, err
@@ -221,6 +228,11 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 		}
 	}
 	sol.Checks = verifyCircular(d, sol, p.conds)
+	if sol.Quadrature != nil {
+		sol.Checks[0].Name = "lap(u_p) - f (the closed part)"
+		full := series.ExactField(p.f).Add(series.Field{Rest: p.rest})
+		sol.Checks = append(sol.Checks, quadratureCheck(d, sol, p.env, full))
+	}
 	for i := range sol.Checks {
 		if r, ok := sol.seriesResidual[sol.Checks[i].Side]; ok {
 			sol.Checks[i].Residual = sol.Checks[i].Residual.Add(series.Const(r))
@@ -449,12 +461,49 @@ func verifyCircular(d circular, sol *Solution, conds map[string]Condition) []Che
 		cond := conds[c.name]
 		b, err := c.apply(cond, sol.U)
 		res := b.Sub(sol.Sides[i].Data)
+		if sol.Quadrature != nil {
+			// The numeric particular's trace is in the correction: check the
+			// harmonic part against it exactly, and the whole solution below.
+			b, err = c.apply(cond, sol.Harmonic)
+			res = b.Sub(sol.Sides[i].Correction)
+		}
 		if err != nil {
 			res = series.Sum{}
 		}
 		checks = append(checks, Check{Name: OperatorText(cond, "u") + " - g", Side: c.name, Exact: err == nil, Residual: res})
 	}
 	return checks
+}
+
+// quadratureCheck is the largest |Δu − f| on a sample of interior points by
+// finite differences with one Richardson step, for a solution with a numeric
+// particular part (an independent look at the quadrature).
+func quadratureCheck(d circular, sol *Solution, env series.Env, f series.Field) Check {
+	out := Check{Name: "lap(u) - f (sampled)"}
+	ev, err := sol.Compile(env, 1e-12, 1<<12)
+	if err != nil {
+		return out
+	}
+	fc, err := f.Compile(env)
+	if err != nil {
+		return out
+	}
+	pts, err := samplePoints(d, env)
+	if err != nil {
+		return out
+	}
+	u := func(x, y float64) float64 { v, _, _ := ev.At(math.Hypot(x, y), math.Atan2(y, x)); return v }
+	for k, p := range pts {
+		if k%6 != 0 { // a dozen points: each costs many quadratures
+			continue
+		}
+		x, y := p[0]*math.Cos(p[1]), p[0]*math.Sin(p[1])
+		h := 1e-2 * math.Max(p[0], 0.1)
+		lap := func(h float64) float64 { return (u(x+h, y) + u(x-h, y) + u(x, y+h) + u(x, y-h) - 4*u(x, y)) / (h * h) }
+		fd := (4*lap(h/2) - lap(h)) / 3
+		out.Numeric = math.Max(out.Numeric, math.Abs(fd-fc.At(p[0], p[1])))
+	}
+	return out
 }
 
 // circleData reduces a circle's data to what the mode systems take: a
@@ -782,4 +831,71 @@ func paren(s string) string {
 		return "(" + s + ")"
 	}
 	return s
+}
+
+// quadratureParticular adds to each circle's trace that of the numeric
+// particular solution of the source's remaining part (ansatz.Quadrature),
+// mode by mode under the circle's operator.
+func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string]series.Sum) error {
+	cf, err := series.Field{Rest: p.rest}.Compile(p.env)
+	if err != nil {
+		return unsupported("the source %s needs every parameter's value (--let): %v", p.rest.Text(), err)
+	}
+	in, out := d.bounds()
+	a := 0.0
+	if in != nil {
+		if a, err = in.Float(p.env); err != nil {
+			return err
+		}
+	}
+	R, err := out.Float(p.env)
+	if err != nil {
+		return err
+	}
+	q := &ansatz.Quadrature{G: cf.At, A: a, R: R, Tol: p.tol}
+	q.Prepare(R)
+	sol.Quadrature, sol.Rest, sol.Numeric = q, p.rest, true
+	for _, c := range d.circles() {
+		r, err := c.radius.Float(p.env)
+		if err != nil {
+			return err
+		}
+		pm, dpm, qerr := q.Mode(r)
+		cond := p.conds[c.name]
+		h := 0.0
+		if cond.Kind == Robin {
+			if h, err = cond.H.Float(p.env); err != nil {
+				return unsupported("the Robin coefficient needs a value for the numeric source: %v", err)
+			}
+		}
+		var terms []series.Term
+		for m := range pm {
+			for k := 0; k < 2; k++ {
+				v := pm[m][k]
+				switch cond.Kind {
+				case Neumann:
+					v = float64(c.outward) * dpm[m][k]
+				case Robin:
+					v = float64(c.outward)*dpm[m][k] + h*pm[m][k]
+				}
+				if m == 0 && k == 1 {
+					continue
+				}
+				terms = append(terms, series.Term{C: decimal(v), M: m, Sin: k == 1})
+			}
+		}
+		traces[c.name] = traces[c.name].Add(series.NewSum(terms...))
+		sol.DataError += qerr
+	}
+	sol.Notes = append(sol.Notes, fmt.Sprintf("the source part %s has no closed form: its particular solution is by quadrature (FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r)", p.rest.Text(), q.Samples, q.Modes))
+	return nil
+}
+
+// decimal is x rounded to 15 digits as an exact decimal.
+func decimal(x float64) series.Coef {
+	if x == 0 || math.IsNaN(x) {
+		return series.Coef{}
+	}
+	q, _ := new(big.Rat).SetString(strconv.FormatFloat(x, 'g', 15, 64))
+	return series.RatCoef(q)
 }

@@ -52,6 +52,7 @@ type posed struct {
 	env     series.Env // parameter values, for numeric data
 	tol     float64
 	numeric bool
+	rest    *series.Expr // the source's part with no closed form, for quadrature
 }
 
 // Side is what one boundary part contributes: the condition, the particular
@@ -96,6 +97,10 @@ type Solution struct {
 	modes      []modeRecord
 	Notes      []string
 	rim        *rimData // Dirichlet data on a single circle, for the Poisson integral near it
+	// Quadrature is the particular solution of the source's part with no
+	// closed form, and Rest that part.
+	Quadrature *ansatz.Quadrature
+	Rest       *series.Expr
 	// seriesResidual is, per side, the exact residual of the general term's condition.
 	seriesResidual map[string]series.Coef
 	// ClosedForm is the harmonic series summed in closed form, where psol
@@ -118,6 +123,8 @@ type Options struct {
 	// NumericData forces the FFT path for boundary data, even where exact
 	// coefficients exist (for comparing the two).
 	NumericData bool
+	// NumericSource sends the whole source to the quadrature fallback (for comparing the two).
+	NumericSource bool
 }
 
 // SolveWith is Solve with options for the numeric fallbacks.
@@ -129,9 +136,19 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 	case source.IsPiecewise():
 		return nil, unsupported("a source given piece by piece (cond ? a : b) is not supported; pieces are for boundary data")
 	case !source.IsExact():
-		return nil, unsupported("the source has a part with no closed form yet: %s", source.Rest.Text())
+		switch d.(type) {
+		case Disk, Annulus: // the quadrature fallback takes the part with no closed form
+			if source.Rest.HasSeries() {
+				return nil, unsupported("a source given as an infinite series is not taken by the quadrature fallback: %s", source.Rest.Text())
+			}
+		default:
+			return nil, unsupported("the source has a part with no closed form yet: %s (the quadrature fallback covers the disk and the annulus so far)", source.Rest.Text())
+		}
 	}
-	p := &posed{f: source.Exact, conds: map[string]Condition{}, env: opt.Env, tol: opt.Tol, numeric: opt.NumericData}
+	if opt.NumericSource && source.IsExact() {
+		source = series.Field{Rest: series.ExprOf(source.Exact)}
+	}
+	p := &posed{f: source.Exact, rest: source.Rest, conds: map[string]Condition{}, env: opt.Env, tol: opt.Tol, numeric: opt.NumericData}
 	for _, c := range conds {
 		if _, dup := p.conds[c.Side]; dup {
 			return nil, unsupported("side %s has two conditions; give one", c.Side)

@@ -206,10 +206,13 @@ func extremes(d Domain, ev *Evaluator, env series.Env) (maxV float64, argMax [2]
 	}
 	u := func(p [2]float64) float64 { v, _, _ := ev.At(p[0], p[1]); return v }
 	maxV, minV = math.Inf(-1), math.Inf(1)
-	const nr, nt = 48, 96
+	nr, nt := 48, 96
+	if ev.quad != nil { // each value is a quadrature: a coarser sample, the refinement does the rest
+		nr, nt = 12, 24
+	}
 	for i := 0; i <= nr; i++ {
 		for j := 0; j <= nt; j++ {
-			p := [2]float64{rlo + (rhi-rlo)*float64(i)/nr, tlo + (thi-tlo)*float64(j)/nt}
+			p := [2]float64{rlo + (rhi-rlo)*float64(i)/float64(nr), tlo + (thi-tlo)*float64(j)/float64(nt)}
 			v := u(p)
 			if v > maxV {
 				maxV, argMax = v, p
@@ -221,7 +224,7 @@ func extremes(d Domain, ev *Evaluator, env series.Env) (maxV float64, argMax [2]
 	}
 	refine := func(p [2]float64, sign float64) ([2]float64, float64) {
 		best := sign * u(p)
-		dr, dt := (rhi-rlo)/nr, (thi-tlo)/nt
+		dr, dt := (rhi-rlo)/float64(nr), (thi-tlo)/float64(nt)
 		for it := 0; it < 60 && (dr > 1e-12*(rhi+1) || dt > 1e-12); it++ {
 			moved := false
 			for _, step := range [][2]float64{{dr, 0}, {-dr, 0}, {0, dt}, {0, -dt}} {

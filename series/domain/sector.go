@@ -398,13 +398,15 @@ const SumTol = 1e-12
 
 // Evaluator evaluates a solution at points in float64, summing any series to tol.
 type Evaluator struct {
-	closed series.Compiled
-	ser    *series.CompiledSeriesSum
-	tol    float64
-	max    int
-	rim    *compiledRim
-	rect   []*cart.CompiledSide
-	walls  *rectWalls // a rectangle's side data, exact on the sides themselves
+	closed  series.Compiled
+	ser     *series.CompiledSeriesSum
+	tol     float64
+	max     int
+	rim     *compiledRim
+	rect    []*cart.CompiledSide
+	walls   *rectWalls         // a rectangle's side data, exact on the sides themselves
+	quad    *ansatz.Quadrature // a numeric particular solution, evaluated beside the rest
+	dataErr float64            // what numeric traces bring to every value
 }
 
 // rectWalls holds a rectangle's Dirichlet data in the side coordinates.
@@ -452,7 +454,7 @@ func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluato
 	if err != nil {
 		return nil, err
 	}
-	e := &Evaluator{closed: c, tol: tol, max: maxTerms}
+	e := &Evaluator{closed: c, tol: tol, max: maxTerms, quad: s.Quadrature, dataErr: s.DataError}
 	if s.Rect != nil {
 		d := s.Domain.(Rect)
 		w := &rectWalls{env: env}
@@ -493,6 +495,15 @@ func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluato
 // At is u(r, θ) with an estimate of the truncation error (0 for closed forms)
 // and the number of series terms summed.
 func (e *Evaluator) At(r, theta float64) (u, errEst float64, terms int) {
+	if e.quad != nil {
+		u, errEst, terms = e.atClosedAndSeries(r, theta)
+		p, perr := e.quad.At(r, theta)
+		return u + p, errEst + perr + e.dataErr, terms
+	}
+	return e.atClosedAndSeries(r, theta)
+}
+
+func (e *Evaluator) atClosedAndSeries(r, theta float64) (u, errEst float64, terms int) {
 	if e.rect != nil {
 		u, errEst = e.atXYTail(r*math.Cos(theta), r*math.Sin(theta))
 		return u, errEst, 0
