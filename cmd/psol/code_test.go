@@ -281,3 +281,17 @@ func BenchmarkPlot(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkGaussianSource is exp(−r²) on the unit disk from source text to five evaluated points.
+func BenchmarkGaussianSource(b *testing.B) {
+	args := []string{"solve", "lap(u) = exp(-r^2)", "--disk", "1", "--bc", "u = 0"}
+	for _, r := range []string{"0", "0.2", "0.5", "0.7", "0.9"} {
+		args = append(args, "--at", "r="+r+",theta=1")
+	}
+	for i := 0; i < b.N; i++ {
+		var out bytes.Buffer
+		if code := run(args, &out, &out); code != 0 {
+			b.Fatal(out.String())
+		}
+	}
+}
