@@ -24,6 +24,8 @@ type Quadrature struct {
 	Tol     float64
 	Samples int // angular samples, fixed by Prepare
 	Modes   int // highest mode kept
+	ffts    map[int]*fourier.FFT
+	buf     []float64
 }
 
 var gl16x, gl16w = func() ([]float64, []float64) {
@@ -34,11 +36,22 @@ var gl16x, gl16w = func() ([]float64, []float64) {
 
 // ring is the Fourier coefficients of g on the circle of radius s: a[m] cos, b[m] sin.
 func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
-	x := make([]float64, n)
+	if q.ffts == nil {
+		q.ffts = map[int]*fourier.FFT{}
+	}
+	fft, ok := q.ffts[n]
+	if !ok {
+		fft = fourier.NewFFT(n)
+		q.ffts[n] = fft
+	}
+	if len(q.buf) < n {
+		q.buf = make([]float64, n)
+	}
+	x := q.buf[:n]
 	for j := range x {
 		x[j] = q.G(s, 2*math.Pi*float64(j)/float64(n))
 	}
-	c := fourier.NewFFT(n).Coefficients(nil, x)
+	c := fft.Coefficients(nil, x)
 	a, b = make([]float64, n/2), make([]float64, n/2)
 	for k := 0; k < n/2; k++ {
 		a[k] = 2 * real(c[k]) / float64(n)

@@ -494,7 +494,7 @@ func quadratureCheck(d circular, sol *Solution, env series.Env, f series.Field) 
 	}
 	u := func(x, y float64) float64 { v, _, _ := ev.At(math.Hypot(x, y), math.Atan2(y, x)); return v }
 	for k, p := range pts {
-		if k%6 != 0 { // a dozen points: each costs many quadratures
+		if k%12 != 0 { // six points: each costs many quadratures
 			continue
 		}
 		x, y := p[0]*math.Cos(p[1]), p[0]*math.Sin(p[1])
