@@ -102,11 +102,12 @@ func (q *Quadrature) Prepare(R float64) {
 // Mode is (p_m(r), p_m'(r)) for the cosine and sine parts of every kept
 // mode, by 16-point Gauss–Legendre panels on [A, r], graded geometrically
 // towards A where a disk's kernel has its logarithm. err estimates the error
-// of the returned (finest) values from three levels of refinement: with
-// e1 = |P8 − P4|, e2 = |P16 − P8| and rate ρ = e2/e1, err = e2·ρ/(1 − ρ).
+// of the returned (finest) values from three equally spaced levels, where
+// the error falls geometrically: with e1 = |P12 − P8|, e2 = |P16 − P12| and
+// rate ρ = e2/e1, err = e2·ρ/(1 − ρ).
 func (q *Quadrature) Mode(r float64) (p, dp [][2]float64, err float64) {
-	p4, d4 := q.integrate(r, 4)
-	p8, d8 := q.integrate(r, 8)
+	p4, d4 := q.integrate(r, 8)
+	p8, d8 := q.integrate(r, 12)
 	p16, d16 := q.integrate(r, 16)
 	e1, e2 := 0.0, 0.0
 	for m := range p16 {
