@@ -4,6 +4,8 @@ import (
 	"math"
 	"testing"
 
+	"gonum.org/v1/gonum/integrate/quad"
+
 	"psol/series/domain"
 )
 
@@ -68,4 +70,53 @@ func TestQuadratureAgainstExact(t *testing.T) {
 			}
 		}
 	}
+}
+
+// An off-centre Gaussian source on the unit disk, u = 0 on the rim, against
+// the Dirichlet Green's function of the disk by the method of images,
+// G(x, ξ) = (1/2π)[ln|x − ξ| − ln(|ξ|·|x − ξ/|ξ|²|)] (any text on Green's
+// functions, e.g. Strauss, Partial Differential Equations, ch. 7), integrated
+// here by Gauss–Legendre in polar coordinates about x (an independent path).
+func TestQuadratureOffCentreGaussian(t *testing.T) {
+	f := func(x, y float64) float64 { return math.Exp(-((x-0.4)*(x-0.4) + y*y) / 0.02) }
+	green := func(x0, y0 float64) float64 {
+		nodes, weights := legendre(24)
+		total := 0.0
+		const phiPanels, rhoPanels = 48, 24
+		for i := 0; i < phiPanels; i++ {
+			for a, xa := range nodes {
+				phi := 2 * math.Pi * (float64(i) + (xa+1)/2) / phiPanels
+				ex, ey := math.Cos(phi), math.Sin(phi)
+				b := x0*ex + y0*ey
+				rmax := -b + math.Sqrt(b*b-x0*x0-y0*y0+1)
+				for j := 0; j < rhoPanels; j++ {
+					lo, hi := rmax*float64(j)/rhoPanels, rmax*float64(j+1)/rhoPanels
+					for c, xc := range nodes {
+						rho := (lo+hi)/2 + (hi-lo)/2*xc
+						xi, eta := x0+rho*ex, y0+rho*ey
+						n2 := xi*xi + eta*eta
+						img := math.Hypot(math.Sqrt(n2)*x0-xi/math.Sqrt(n2), math.Sqrt(n2)*y0-eta/math.Sqrt(n2))
+						g := (math.Log(rho) - math.Log(img)) / (2 * math.Pi)
+						total += weights[a] * math.Pi / phiPanels * weights[c] * (hi - lo) / 2 * g * f(xi, eta) * rho
+					}
+				}
+			}
+		}
+		return total
+	}
+	sol := solve(t, "lap(u) = exp(-((x - 0.4)^2 + y^2)/0.02)", unitDisk, "u = 0")
+	ev := evaluator(t, sol, 1e-12)
+	for _, p := range [][2]float64{{-0.5, 0.2}, {0.1, 0.5}, {0.4, 0.05}} {
+		want := green(p[0], p[1])
+		got, est, _ := ev.At(math.Hypot(p[0], p[1]), math.Mod(math.Atan2(p[1], p[0])+2*math.Pi, 2*math.Pi))
+		if math.Abs(got-want) > 1e-7 {
+			t.Errorf("u(%v) = %.12f, images Green's function %.12f (estimate %.1g)", p, got, want, est)
+		}
+	}
+}
+
+func legendre(n int) ([]float64, []float64) {
+	x, w := make([]float64, n), make([]float64, n)
+	quad.Legendre{}.FixedLocations(x, w, -1, 1)
+	return x, w
 }
