@@ -26,6 +26,7 @@ type Quadrature struct {
 	Modes   int // highest mode kept
 	ffts    map[int]*fourier.FFT
 	buf     []float64
+	rings   map[float64][2][]float64 // rings of the current Mode call: its levels share most nodes
 }
 
 var gl16x, gl16w = func() ([]float64, []float64) {
@@ -36,6 +37,14 @@ var gl16x, gl16w = func() ([]float64, []float64) {
 
 // ring is the Fourier coefficients of g on the circle of radius s: a[m] cos, b[m] sin.
 func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
+	if c, ok := q.rings[s]; ok && len(c[0]) == n/2 {
+		return c[0], c[1]
+	}
+	defer func() {
+		if q.rings != nil {
+			q.rings[s] = [2][]float64{a, b}
+		}
+	}()
 	if q.ffts == nil {
 		q.ffts = map[int]*fourier.FFT{}
 	}
@@ -106,6 +115,8 @@ func (q *Quadrature) Prepare(R float64) {
 // the error falls geometrically: with e1 = |P12 − P8|, e2 = |P16 − P12| and
 // rate ρ = e2/e1, err = e2·ρ/(1 − ρ).
 func (q *Quadrature) Mode(r float64) (p, dp [][2]float64, err float64) {
+	q.rings = map[float64][2][]float64{}
+	defer func() { q.rings = nil }()
 	p4, d4 := q.integrate(r, 8)
 	p8, d8 := q.integrate(r, 12)
 	p16, d16 := q.integrate(r, 16)

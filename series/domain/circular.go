@@ -499,7 +499,8 @@ func quadratureCheck(d circular, sol *Solution, env series.Env, f series.Field) 
 		}
 		x, y := p[0]*math.Cos(p[1]), p[0]*math.Sin(p[1])
 		h := 1e-2 * math.Max(p[0], 0.1)
-		lap := func(h float64) float64 { return (u(x+h, y) + u(x-h, y) + u(x, y+h) + u(x, y-h) - 4*u(x, y)) / (h * h) }
+		centre := u(x, y)
+		lap := func(h float64) float64 { return (u(x+h, y) + u(x-h, y) + u(x, y+h) + u(x, y-h) - 4*centre) / (h * h) }
 		fd := (4*lap(h/2) - lap(h)) / 3
 		out.Numeric = math.Max(out.Numeric, math.Abs(fd-fc.At(p[0], p[1])))
 	}
