@@ -393,11 +393,10 @@ func (f Field) Text() string {
 	return f.expr().Text()
 }
 
-// CompiledField evaluates a field in float64.
+// CompiledField evaluates a field in float64: the expression tree is turned
+// into closures once, so evaluation looks nothing up.
 type CompiledField struct {
-	e      *Expr
-	sums   map[*Expr]indexedSum
-	pieces map[*Expr]floatPieces
+	fn func(r, theta, n float64) float64
 }
 
 // indexedSum is a compiled leaf whose coefficients may depend on a series index.
@@ -462,60 +461,71 @@ func (s indexedSum) at(r, theta, n float64) float64 {
 
 // Compile fixes parameters from env for float64 evaluation.
 func (f Field) Compile(env Env) (CompiledField, error) {
-	cf := CompiledField{e: f.expr(), sums: map[*Expr]indexedSum{}, pieces: map[*Expr]floatPieces{}}
-	var walk func(*Expr) error
-	walk = func(e *Expr) error {
-		if e.op == "pieces" {
-			p, err := Field{Pieces: e.pieces}.compilePieces(env)
-			cf.pieces[e] = p
-			return err
-		}
-		if e.op == "sum" {
-			c, err := compileIndexed(e.sum, env)
-			cf.sums[e] = c
-			return err
-		}
-		for _, a := range e.args {
-			if err := walk(a); err != nil {
-				return err
-			}
-		}
-		return nil
-	}
-	return cf, walk(cf.e)
+	fn, err := compileExpr(f.expr(), env)
+	return CompiledField{fn: fn}, err
 }
 
 // At is the field's value at (r, θ).
-func (cf CompiledField) At(r, theta float64) float64 { return cf.eval(cf.e, r, theta, math.NaN()) }
+func (cf CompiledField) At(r, theta float64) float64 { return cf.fn(r, theta, math.NaN()) }
 
 // MaxSeriesTerms caps the summation of a series read from text.
 const MaxSeriesTerms = 200000
 
-func (cf CompiledField) eval(e *Expr, r, theta, n float64) float64 {
+type evalFunc = func(r, theta, n float64) float64
+
+// binaryFloat holds the float64 form of each binary operator of a remainder.
+var binaryFloat = map[string]func(a, b float64) float64{
+	"+": func(a, b float64) float64 { return a + b },
+	"*": func(a, b float64) float64 { return a * b },
+	"/": func(a, b float64) float64 { return a / b },
+	"^": math.Pow,
+}
+
+func compileExpr(e *Expr, env Env) (evalFunc, error) {
 	switch e.op {
 	case "pieces":
-		return cf.pieces[e].at(r, theta)
+		p, err := Field{Pieces: e.pieces}.compilePieces(env)
+		return func(r, theta, _ float64) float64 { return p.at(r, theta) }, err
 	case "sum":
-		return cf.sums[e].at(r, theta, n)
-	case "+":
-		return cf.eval(e.args[0], r, theta, n) + cf.eval(e.args[1], r, theta, n)
-	case "*":
-		return cf.eval(e.args[0], r, theta, n) * cf.eval(e.args[1], r, theta, n)
-	case "/":
-		return cf.eval(e.args[0], r, theta, n) / cf.eval(e.args[1], r, theta, n)
-	case "^":
-		return math.Pow(cf.eval(e.args[0], r, theta, n), cf.eval(e.args[1], r, theta, n))
-	case "series":
-		skip := map[int]bool{}
-		for _, k := range e.ser.skip {
-			skip[k] = true
+		c, err := compileIndexed(e.sum, env)
+		if len(c.indexed) == 0 {
+			return func(r, theta, _ float64) float64 { return c.fixed.At(r, theta) }, err
 		}
+		return c.at, err
+	}
+	args := make([]evalFunc, len(e.args))
+	for i, a := range e.args {
+		fn, err := compileExpr(a, env)
+		if err != nil {
+			return nil, err
+		}
+		args[i] = fn
+	}
+	if e.op == "series" {
+		return compileSeries(e.ser, args[0]), nil
+	}
+	if op, ok := binaryFloat[e.op]; ok {
+		a, b := args[0], args[1]
+		return func(r, theta, n float64) float64 { return op(a(r, theta, n), b(r, theta, n)) }, nil
+	}
+	op, a := unaryFloat[e.op], args[0]
+	return func(r, theta, n float64) float64 { return op(a(r, theta, n)) }, nil
+}
+
+// compileSeries sums term over the index until four terms in a row are
+// below rounding, or MaxSeriesTerms.
+func compileSeries(ser *seriesNode, term evalFunc) evalFunc {
+	skip := map[int]bool{}
+	for _, k := range ser.skip {
+		skip[k] = true
+	}
+	return func(r, theta, _ float64) float64 {
 		sum, quiet := 0.0, 0
-		for k := e.ser.from; k < e.ser.from+MaxSeriesTerms; k++ {
+		for k := ser.from; k < ser.from+MaxSeriesTerms; k++ {
 			if skip[k] {
 				continue
 			}
-			t := cf.eval(e.args[0], r, theta, float64(k))
+			t := term(r, theta, float64(k))
 			sum += t
 			if math.Abs(t)*float64(k) <= 1e-15*math.Max(1, math.Abs(sum)) {
 				if quiet++; quiet >= 4 {
@@ -527,7 +537,6 @@ func (cf CompiledField) eval(e *Expr, r, theta, n float64) float64 {
 		}
 		return sum
 	}
-	return unaryFloat[e.op](cf.eval(e.args[0], r, theta, n))
 }
 
 // ExprOf is an exact sum as a remainder node, for numeric methods.
