@@ -27,6 +27,12 @@ type Quadrature struct {
 	ffts    map[int]*fourier.FFT
 	buf     []float64
 	rings   map[float64][2][]float64 // rings of the current Mode call: its levels share most nodes
+	last    *modeAt                  // the latest Mode, for several angles on one radius
+}
+
+type modeAt struct {
+	r, err float64
+	p, dp  [][2]float64
 }
 
 var gl16x, gl16w = func() ([]float64, []float64) {
@@ -86,6 +92,7 @@ func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
 
 // Prepare chooses the angular samples on rings out to R.
 func (q *Quadrature) Prepare(R float64) {
+	q.last = nil
 	for n := 32; n <= 1<<12; n *= 2 {
 		q.Samples = n
 		worst, scale, modes := 0.0, 0.0, 0
@@ -108,13 +115,17 @@ func (q *Quadrature) Prepare(R float64) {
 	}
 }
 
-// Mode is (p_m(r), p_m'(r)) for the cosine and sine parts of every kept
+// Mode is (p_m(r), p_m'(r)), slices the caller must not modify, for the cosine and sine parts of every kept
 // mode, by 16-point Gauss–Legendre panels on [A, r], graded geometrically
 // towards A where a disk's kernel has its logarithm. err estimates the error
 // of the returned (finest) values from three equally spaced levels, where
 // the error falls geometrically: with e1 = |P12 − P8|, e2 = |P16 − P12| and
 // rate ρ = e2/e1, err = e2·ρ/(1 − ρ).
 func (q *Quadrature) Mode(r float64) (p, dp [][2]float64, err float64) {
+	if q.last != nil && q.last.r == r {
+		return q.last.p, q.last.dp, q.last.err
+	}
+	defer func() { q.last = &modeAt{r, err, p, dp} }()
 	q.rings = map[float64][2][]float64{}
 	defer func() { q.rings = nil }()
 	p4, d4 := q.integrate(r, 8)

@@ -492,15 +492,21 @@ func quadratureCheck(d circular, sol *Solution, env series.Env, f series.Field) 
 	if err != nil {
 		return out
 	}
-	u := func(x, y float64) float64 { v, _, _ := ev.At(math.Hypot(x, y), math.Atan2(y, x)); return v }
+	u := func(r, theta float64) float64 { v, _, _ := ev.At(r, theta); return v }
 	for k, p := range pts {
 		if k%12 != 0 { // six points: each costs many quadratures
 			continue
 		}
-		x, y := p[0]*math.Cos(p[1]), p[0]*math.Sin(p[1])
-		h := 1e-2 * math.Max(p[0], 0.1)
-		centre := u(x, y)
-		lap := func(h float64) float64 { return (u(x+h, y) + u(x-h, y) + u(x, y+h) + u(x, y-h) - 4*centre) / (h * h) }
+		// A polar stencil: its points share five radii, and the quadrature
+		// evaluates every mode of a radius at once.
+		r, th := p[0], p[1]
+		h := 1e-2 * r
+		centre := u(r, th)
+		lap := func(h float64) float64 {
+			k := h / r
+			out, in := u(r+h, th), u(r-h, th)
+			return (out-2*centre+in)/(h*h) + (out-in)/(2*h*r) + (u(r, th+k)-2*centre+u(r, th-k))/(r*r*k*k)
+		}
 		fd := (4*lap(h/2) - lap(h)) / 3
 		out.Numeric = math.Max(out.Numeric, math.Abs(fd-fc.At(p[0], p[1])))
 	}
