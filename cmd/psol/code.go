@@ -88,55 +88,75 @@ type codeGen struct {
 	terms  int
 }
 
-func (g codeGen) comment() string {
-	if g.l.Name == "python" {
-		return "#"
-	}
-	return "//"
+// codeShape is how one language spells the function psol writes: a closed
+// part, then a loop per series with its exceptional terms.
+type codeShape struct {
+	comment string
+	header  func(params []string, closed string) string
+	loop    func(from, to int) string
+	skip    string // format: index, exceptional term
+	term    string // format: general term
+	end     string
 }
 
+var codeShapes = map[string]codeShape{
+	"go": {
+		comment: "//",
+		header: func(params []string, closed string) string {
+			args := "r, theta float64"
+			if len(params) > 0 {
+				args += ", " + strings.Join(params, ", ") + " float64"
+			}
+			return fmt.Sprintf("// It needs: import \"math\"\nfunc U(%s) float64 {\n\tu := %s\n", args, closed)
+		},
+		loop: func(from, to int) string { return fmt.Sprintf("\tfor n := %d.0; n <= %d; n++ {\n", from, to) },
+		skip: "\t\tif n == %d {\n\t\t\tu += %s\n\t\t\tcontinue\n\t\t}\n",
+		term: "\t\tu += %s\n\t}\n",
+		end:  "\treturn u\n}\n",
+	},
+	"c": {
+		comment: "//",
+		header: func(params []string, closed string) string {
+			args := []string{"double r", "double theta"}
+			for _, p := range params {
+				args = append(args, "double "+p)
+			}
+			return fmt.Sprintf("#include <math.h>\n\ndouble u(%s) {\n\tdouble u = %s;\n", strings.Join(args, ", "), closed)
+		},
+		loop: func(from, to int) string { return fmt.Sprintf("\tfor (double n = %d; n <= %d; n++) {\n", from, to) },
+		skip: "\t\tif (n == %d) { u += %s; continue; }\n",
+		term: "\t\tu += %s;\n\t}\n",
+		end:  "\treturn u;\n}\n",
+	},
+	"python": {
+		comment: "#",
+		header: func(params []string, closed string) string {
+			args := append([]string{"r", "theta"}, params...)
+			return fmt.Sprintf("import math\n\n\ndef u(%s):\n    u = %s\n", strings.Join(args, ", "), closed)
+		},
+		loop: func(from, to int) string {
+			return fmt.Sprintf("    for k in range(%d, %d):\n        n = float(k)\n", from, to+1)
+		},
+		skip: "        if k == %d:\n            u += %s\n            continue\n",
+		term: "        u += %s\n",
+		end:  "    return u\n",
+	},
+}
+
+func (g codeGen) comment() string { return codeShapes[g.l.Name].comment }
+
 func (g codeGen) write(w io.Writer) error {
-	switch g.l.Name {
-	case "go":
-		fmt.Fprintln(w, "// It needs: import \"math\"")
-		args := "r, theta float64"
-		if len(g.params) > 0 {
-			args += ", " + strings.Join(g.params, ", ") + " float64"
+	shape := codeShapes[g.l.Name]
+	var b strings.Builder
+	b.WriteString(shape.header(g.params, g.closed))
+	for _, p := range g.parts {
+		b.WriteString(shape.loop(p.Family.From, g.terms))
+		for _, k := range p.Skips() {
+			fmt.Fprintf(&b, shape.skip, k, p.SpecialCode(g.l, k))
 		}
-		fmt.Fprintf(w, "func U(%s) float64 {\n\tu := %s\n", args, g.closed)
-		for _, p := range g.parts {
-			fmt.Fprintf(w, "\tfor n := %d.0; n <= %d; n++ {\n", p.Family.From, g.terms)
-			for _, k := range p.Skips() {
-				fmt.Fprintf(w, "\t\tif n == %d {\n\t\t\tu += %s\n\t\t\tcontinue\n\t\t}\n", k, p.SpecialCode(g.l, k))
-			}
-			fmt.Fprintf(w, "\t\tu += %s\n\t}\n", p.TermCode(g.l))
-		}
-		fmt.Fprintln(w, "\treturn u\n}")
-	case "c":
-		args := []string{"double r", "double theta"}
-		for _, p := range g.params {
-			args = append(args, "double "+p)
-		}
-		fmt.Fprintf(w, "#include <math.h>\n\ndouble u(%s) {\n\tdouble u = %s;\n", strings.Join(args, ", "), g.closed)
-		for _, p := range g.parts {
-			fmt.Fprintf(w, "\tfor (double n = %d; n <= %d; n++) {\n", p.Family.From, g.terms)
-			for _, k := range p.Skips() {
-				fmt.Fprintf(w, "\t\tif (n == %d) { u += %s; continue; }\n", k, p.SpecialCode(g.l, k))
-			}
-			fmt.Fprintf(w, "\t\tu += %s;\n\t}\n", p.TermCode(g.l))
-		}
-		fmt.Fprintln(w, "\treturn u;\n}")
-	case "python":
-		args := append([]string{"r", "theta"}, g.params...)
-		fmt.Fprintf(w, "import math\n\n\ndef u(%s):\n    u = %s\n", strings.Join(args, ", "), g.closed)
-		for _, p := range g.parts {
-			fmt.Fprintf(w, "    for k in range(%d, %d):\n        n = float(k)\n", p.Family.From, g.terms+1)
-			for _, k := range p.Skips() {
-				fmt.Fprintf(w, "        if k == %d:\n            u += %s\n            continue\n", k, p.SpecialCode(g.l, k))
-			}
-			fmt.Fprintf(w, "        u += %s\n", p.TermCode(g.l))
-		}
-		fmt.Fprintln(w, "    return u")
+		fmt.Fprintf(&b, shape.term, p.TermCode(g.l))
 	}
-	return nil
+	b.WriteString(shape.end)
+	_, err := io.WriteString(w, b.String())
+	return err
 }
