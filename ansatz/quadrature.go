@@ -1,6 +1,7 @@
 package ansatz
 
 import (
+	"errors"
 	"math"
 
 	"gonum.org/v1/gonum/dsp/fourier"
@@ -8,26 +9,55 @@ import (
 )
 
 // Quadrature is a particular solution of Δu = g for a source with no closed
-// form, on a region bounded by circles about the origin with inner radius A
-// (0 for a disk). Mode by mode, with g = Σ_m g_m(r) T_m(θ) from an FFT on
-// each ring,
+// form, on a region bounded by circles about the origin: A < r < R, with
+// A = 0 for a disk or sector and R = +Inf outside a circle. With g sampled on
+// rings and transformed by FFT, g = Σ_k g_k(r) T(ν_k θ), ν_k = 2πk/Period,
+// each mode's part is the regular radial Green's formula
 //
-//	p_0(r) = ∫_A^r s ln(r/s) g_0(s) ds,
-//	p_m(r) = ∫_A^r s [(r/s)^m − (s/r)^m]/(2m) g_m(s) ds   (m ≥ 1),
+//	p_0(r) = ∫_A^r s ln(r/s) g_0(s) ds               (R finite),
+//	p_0(r) = ∫_r^∞ s ln(s/r) g_0(s) ds               (R = ∞: bounded),
+//	p_k(r) = −(1/2ν)[∫_A^r s (s/r)^ν g_k ds + ∫_r^R s (r/s)^ν g_k ds],
 //
-// which solve p” + p'/r − m²p/r² = g_m and vanish with their derivative at
-// r = A; the integrals use composite Gauss–Legendre rules, and the angular
-// samples double until the top band of every ring's spectrum is below Tol.
+// which solves p” + p'/r − ν²p/r² = g_k. The integrals run on one mesh of
+// 16-point Gauss–Legendre panels shared by every point: graded towards the
+// centre of a disk, geometric out to infinity, and bisected until each
+// panel's Legendre tail of every g_k is below Tol. The kernels separate on
+// whole panels, so a point costs its own panel only, where g_k comes from the
+// panel's nodes by barycentric interpolation. A second mesh with every panel
+// halved gives the values; their difference from the first is the estimate.
 type Quadrature struct {
-	G       func(r, theta float64) float64
-	A, R    float64
+	G      func(r, theta float64) float64
+	A, R   float64
+	Period float64 // the angular period of G; 0 means 2π (a sector passes its symmetric extension)
+	// Keep selects the modes a region admits (nil keeps all): a sector keeps
+	// the eigenfunctions of its rays, which the extension makes the only ones.
+	Keep    func(k int, sin bool) bool
 	Tol     float64
 	Samples int // angular samples, fixed by Prepare
 	Modes   int // highest mode kept
-	ffts    map[int]*fourier.FFT
-	buf     []float64
-	rings   map[float64][2][]float64 // rings of the current Mode call: its levels share most nodes
-	last    *modeAt                  // the latest Mode, for several angles on one radius
+	// Converged is false where the samples reached their cap before the top
+	// band fell below Tol; Truncation then estimates the modes beyond them.
+	Converged  bool
+	Truncation float64
+
+	coarse, fine []panel
+	dropped      float64 // a bound on the particular solution of the modes not kept
+	ffts         map[int]*fourier.FFT
+	buf          []float64
+	last         *modeAt // the latest Mode, for several angles on one radius
+}
+
+// panel is one Gauss–Legendre panel of the radial mesh with the source's
+// modes at its nodes and the separated kernels' sums over it.
+type panel struct {
+	lo, hi   float64
+	infinite bool      // [lo, ∞) by s = lo/t, t in (0, 1]
+	s, w     []float64 // nodes and weights, the Jacobian included
+	a, b     [][]float64
+	// below[k] = Σ w s (s/hi)^ν g_k and above[k] = Σ w s (lo/s)^ν g_k;
+	// for k = 0 both are Σ w s g_0, and log0 = Σ w s ln s g_0.
+	below, above [][2]float64
+	log0         float64
 }
 
 type modeAt struct {
@@ -35,22 +65,62 @@ type modeAt struct {
 	p, dp  [][2]float64
 }
 
-var gl16x, gl16w = func() ([]float64, []float64) {
-	x, w := make([]float64, 16), make([]float64, 16)
+const glN = 16
+
+var glX, glW = func() ([]float64, []float64) {
+	x, w := make([]float64, glN), make([]float64, glN)
 	quad.Legendre{}.FixedLocations(x, w, -1, 1)
 	return x, w
 }()
 
-// ring is the Fourier coefficients of g on the circle of radius s: a[m] cos, b[m] sin.
-func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
-	if c, ok := q.rings[s]; ok && len(c[0]) == n/2 {
-		return c[0], c[1]
-	}
-	defer func() {
-		if q.rings != nil {
-			q.rings[s] = [2][]float64{a, b}
+// bary are the barycentric weights of the Legendre nodes, 1/Π_{i≠j}(x_j − x_i).
+var bary = func() []float64 {
+	out := make([]float64, glN)
+	for j := range glX {
+		p := 1.0
+		for i := range glX {
+			if i != j {
+				p *= glX[j] - glX[i]
+			}
 		}
-	}()
+		out[j] = 1 / p
+	}
+	return out
+}()
+
+// tailRows are the rows of the map from node values to the Legendre
+// coefficients of degrees 14 and 15: c_j = (2j+1)/2 Σ_i w_i P_j(x_i) f(x_i).
+var tailRows = func() [2][]float64 {
+	var rows [2][]float64
+	for d := 0; d < 2; d++ {
+		j := glN - 2 + d
+		rows[d] = make([]float64, glN)
+		for i, x := range glX {
+			p0, p1 := 1.0, x
+			for n := 1; n < j; n++ {
+				p0, p1 = p1, (float64(2*n+1)*x*p1-float64(n)*p0)/float64(n+1)
+			}
+			rows[d][i] = float64(2*j+1) / 2 * glW[i] * p1
+		}
+	}
+	return rows
+}()
+
+func (q *Quadrature) period() float64 {
+	if q.Period == 0 {
+		return 2 * math.Pi
+	}
+	return q.Period
+}
+
+// omega is ν_1: ν_k = kω.
+func (q *Quadrature) omega() float64 { return 2 * math.Pi / q.period() }
+
+func (q *Quadrature) nu(k int) float64 { return float64(k) * q.omega() }
+
+// ring is the Fourier coefficients of g on the circle of radius s: a[k] cos, b[k] sin.
+func (q *Quadrature) ring(s float64) (a, b []float64) {
+	n := q.Samples
 	if q.ffts == nil {
 		q.ffts = map[int]*fourier.FFT{}
 	}
@@ -63,8 +133,9 @@ func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
 		q.buf = make([]float64, n)
 	}
 	x := q.buf[:n]
+	P := q.period()
 	for j := range x {
-		x[j] = q.G(s, 2*math.Pi*float64(j)/float64(n))
+		x[j] = q.G(s, P*float64(j)/float64(n))
 	}
 	c := fft.Coefficients(nil, x)
 	a, b = make([]float64, n/2), make([]float64, n/2)
@@ -74,81 +145,281 @@ func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
 	}
 	a[0] /= 2
 	// Below the FFT's rounding level a coefficient is noise, and the kernel's
-	// (r/s)^m would magnify it near the centre: drop it.
+	// (r/s)^ν would magnify it near the centre: drop it.
 	big := 0.0
 	for k := range a {
 		big = math.Max(big, math.Max(math.Abs(a[k]), math.Abs(b[k])))
 	}
 	for k := range a {
-		if math.Abs(a[k]) < 1e-14*big {
+		if math.Abs(a[k]) < 1e-14*big || q.Keep != nil && !q.Keep(k, false) {
 			a[k] = 0
 		}
-		if math.Abs(b[k]) < 1e-14*big {
+		if math.Abs(b[k]) < 1e-14*big || q.Keep != nil && !q.Keep(k, true) {
 			b[k] = 0
 		}
 	}
 	return a, b
 }
 
-// Prepare chooses the angular samples on rings out to R.
-func (q *Quadrature) Prepare(R float64) {
+// newPanel samples g at the panel's nodes.
+func (q *Quadrature) newPanel(lo, hi float64, infinite bool) panel {
+	p := panel{lo: lo, hi: hi, infinite: infinite, s: make([]float64, glN), w: make([]float64, glN)}
+	p.a, p.b = make([][]float64, glN), make([][]float64, glN)
+	for i, x := range glX {
+		if infinite { // s = lo/t on t in (0, 1]: ds = lo/t² dt
+			t := (x + 1) / 2
+			p.s[i], p.w[i] = lo/t, glW[i]/2*lo/(t*t)
+		} else {
+			p.s[i], p.w[i] = (lo+hi)/2+(hi-lo)/2*x, (hi-lo)/2*glW[i]
+		}
+		p.a[i], p.b[i] = q.ring(p.s[i])
+	}
+	return p
+}
+
+// sums fills the panel's separated kernel sums for modes 0..Modes.
+func (q *Quadrature) sums(p *panel) {
+	p.below, p.above, p.log0 = make([][2]float64, q.Modes+1), make([][2]float64, q.Modes+1), 0
+	for i, s := range p.s {
+		ws := p.w[i] * s
+		a, b := p.a[i], p.b[i]
+		p.below[0][0] += ws * a[0]
+		p.log0 += ws * math.Log(s) * a[0]
+		// (s/hi)^ν_k and (lo/s)^ν_k as powers of their k = 1 values.
+		xb, xa := 1.0, math.Pow(p.lo/s, q.omega())
+		if !p.infinite {
+			xb = math.Pow(s/p.hi, q.omega())
+		}
+		fb, fa := ws, ws
+		for k := 1; k <= q.Modes && k < len(a); k++ {
+			fb, fa = fb*xb, fa*xa
+			p.below[k][0] += fb * a[k]
+			p.below[k][1] += fb * b[k]
+			p.above[k][0] += fa * a[k]
+			p.above[k][1] += fa * b[k]
+		}
+	}
+	p.above[0] = p.below[0]
+}
+
+// tail is the largest Legendre coefficient of degree 14 or 15 of any mode on the panel.
+func (q *Quadrature) tail(p panel) float64 {
+	out := 0.0
+	for k := 0; k <= q.Modes && k < len(p.a[0]); k++ {
+		for _, rows := range tailRows {
+			var ca, cb float64
+			for i := range rows {
+				ca += rows[i] * p.a[i][k]
+				cb += rows[i] * p.b[i][k]
+			}
+			out = math.Max(out, math.Max(math.Abs(ca), math.Abs(cb)))
+		}
+	}
+	return out
+}
+
+func (p panel) peak() float64 {
+	out := 0.0
+	for i := range p.a {
+		for k := range p.a[i] {
+			out = math.Max(out, math.Max(math.Abs(p.a[i][k]), math.Abs(p.b[i][k])))
+		}
+	}
+	return out
+}
+
+// ErrSlowDecay is Prepare's answer outside a circle for a source that does
+// not decay faster than r^−2: no bounded particular solution exists.
+var ErrSlowDecay = errors.New("the source does not decay faster than r^-2, so its particular solution outside the circle is unbounded (its area integral diverges)")
+
+// Prepare chooses the angular samples and builds the radial mesh: the
+// samples double until the top band of the spectrum on probe rings (one in
+// each starting panel) is below Tol relative to the source's size; then each
+// panel is bisected until its Legendre tail is too.
+func (q *Quadrature) Prepare() error {
 	q.last = nil
-	for n := 32; n <= 1<<12; n *= 2 {
+	for n := 32; ; n *= 2 {
 		q.Samples = n
 		worst, scale, modes := 0.0, 0.0, 0
-		for _, frac := range []float64{0.1, 0.35, 0.6, 0.85, 1} {
-			a, b := q.ring(q.A+(R-q.A)*frac, n)
+		for _, r := range q.probes() {
+			a, b := q.ring(r)
 			for k := range a {
 				v := math.Hypot(a[k], b[k])
 				scale = math.Max(scale, v)
 				if k >= n/4 {
 					worst = math.Max(worst, v)
-				} else if v > 1e-3*q.Tol*scale {
+				}
+				if v > 0 { // ring has dropped what is below the FFT's rounding
 					modes = max(modes, k)
 				}
 			}
 		}
-		q.Modes = modes
-		if worst <= q.Tol*math.Max(scale, 1e-300) {
-			return
+		if worst > q.Tol*math.Max(scale, 1e-300) && n < 1<<12 {
+			continue
 		}
+		q.Modes = modes
+		mesh, err := q.mesh()
+		if err != nil {
+			return err
+		}
+		q.coarse = q.refine(mesh, scale)
+		q.fine = q.halve(q.coarse)
+		// Every mode the samples resolve is kept; those beyond them are about
+		// the size of the top band's (a bound on its particular solutions),
+		// and when the samples reached their cap, a tail like 1/k² from the last.
+		size := q.modeSizes(q.coarse)
+		q.dropped, q.Truncation = 0, 0
+		for k := n / 4; k < len(size); k++ {
+			q.dropped = math.Max(q.dropped, size[k])
+		}
+		if q.Converged = worst <= q.Tol*math.Max(scale, 1e-300); !q.Converged {
+			for k := len(size) - 1; k > 0; k-- {
+				if size[k] > 0 {
+					q.Truncation = size[k] * float64(k)
+					break
+				}
+			}
+			q.dropped += q.Truncation
+		}
+		return nil
 	}
 }
 
-// Mode is (p_m(r), p_m'(r)), slices the caller must not modify, for the cosine and sine parts of every kept
-// mode, by 16-point Gauss–Legendre panels on [A, r], graded geometrically
-// towards A where a disk's kernel has its logarithm. err estimates the error
-// of the returned (finest) values from three equally spaced levels, where
-// the error falls geometrically: with e1 = |P12 − P8|, e2 = |P16 − P12| and
-// rate ρ = e2/e1, err = e2·ρ/(1 − ρ).
+// probes are the radii whose rings choose the angular samples: the middle of
+// each starting panel.
+func (q *Quadrature) probes() []float64 {
+	var out []float64
+	switch {
+	case math.IsInf(q.R, 1):
+		for i := 0; i < 48; i++ {
+			out = append(out, q.A*math.Pow(2, float64(i)+0.5))
+		}
+	case q.A == 0:
+		for i := 24; i >= 0; i-- {
+			out = append(out, 0.75*q.R*math.Pow(0.5, float64(i)))
+		}
+	default:
+		for i := 0; i < 8; i++ {
+			out = append(out, q.A+(q.R-q.A)*(float64(i)+0.5)/8)
+		}
+	}
+	return out
+}
+
+// mesh is the starting mesh: halving towards a disk's centre (the log kernel
+// and r^ν), four panels across an annulus, doublings out to infinity.
+func (q *Quadrature) mesh() ([]panel, error) {
+	var mesh []panel
+	switch {
+	case math.IsInf(q.R, 1):
+		scale := 0.0
+		var sizes []float64
+		lo := q.A
+		for i := 0; i < 48; i++ {
+			p := q.newPanel(lo, 2*lo, false)
+			size := p.peak() * p.hi * p.hi // the panel's share of p is about hi² g
+			scale = math.Max(scale, size)
+			mesh, sizes = append(mesh, p), append(sizes, size)
+			lo *= 2
+			if i >= 3 && size <= 1e-3*q.Tol*scale && sizes[i-1] <= 1e-3*q.Tol*scale {
+				break
+			}
+		}
+		if n := len(sizes); n == 48 && sizes[n-1] > 0.9*sizes[n-2] {
+			return nil, ErrSlowDecay
+		}
+		mesh = append(mesh, q.newPanel(lo, math.Inf(1), true))
+	case q.A == 0:
+		edges := []float64{0}
+		for i := 24; i >= 0; i-- {
+			edges = append(edges, q.R*math.Pow(0.5, float64(i)))
+		}
+		for i := 0; i+1 < len(edges); i++ {
+			mesh = append(mesh, q.newPanel(edges[i], edges[i+1], false))
+		}
+	default:
+		for i := 0; i < 4; i++ {
+			mesh = append(mesh, q.newPanel(q.A+(q.R-q.A)*float64(i)/4, q.A+(q.R-q.A)*float64(i+1)/4, false))
+		}
+	}
+	return mesh, nil
+}
+
+// refine bisects each finite panel while its Legendre tail, weighted by its
+// share of the integrals (width × outer radius), exceeds Tol relative to the
+// source's size (scale, over the reference radius squared).
+func (q *Quadrature) refine(mesh []panel, scale float64) []panel {
+	ref := q.R
+	if math.IsInf(ref, 1) {
+		ref = q.A
+	}
+	var out []panel
+	var visit func(p panel, depth int)
+	visit = func(p panel, depth int) {
+		if !p.infinite && depth < 30 && q.tail(p)*(p.hi-p.lo)*p.hi > 0.1*q.Tol*scale*ref*ref {
+			mid := (p.lo + p.hi) / 2
+			visit(q.newPanel(p.lo, mid, false), depth+1)
+			visit(q.newPanel(mid, p.hi, false), depth+1)
+			return
+		}
+		q.sums(&p)
+		out = append(out, p)
+	}
+	for _, p := range mesh {
+		visit(p, 0)
+	}
+	return out
+}
+
+// halve is the mesh with every panel split in two (an infinite one at t = ½).
+func (q *Quadrature) halve(mesh []panel) []panel {
+	var out []panel
+	for _, p := range mesh {
+		if p.infinite {
+			out = append(out, q.newPanel(p.lo, 2*p.lo, false), q.newPanel(2*p.lo, math.Inf(1), true))
+		} else {
+			mid := (p.lo + p.hi) / 2
+			out = append(out, q.newPanel(p.lo, mid, false), q.newPanel(mid, p.hi, false))
+		}
+	}
+	for i := range out {
+		q.sums(&out[i])
+	}
+	return out
+}
+
+// modeSizes bounds each mode's particular solution: |p_k| ≤ (1/2ν_k) ∫ s |g_k| ds.
+func (q *Quadrature) modeSizes(mesh []panel) []float64 {
+	size := make([]float64, q.Samples/2)
+	for _, p := range mesh {
+		for i, s := range p.s {
+			for k := 1; k < len(p.a[i]); k++ {
+				size[k] += p.w[i] * s * math.Hypot(p.a[i][k], p.b[i][k]) / (2 * q.nu(k))
+			}
+		}
+	}
+	return size
+}
+
+// Mode is (p_k(r), p_k'(r)), slices the caller must not modify, for the
+// cosine and sine parts of every kept mode, from the halved mesh; err is the
+// largest change of a value (or of r times a derivative) from the first mesh,
+// with rounding, 1e-15 of the largest value, as the floor, plus the bound on
+// the modes not kept.
 func (q *Quadrature) Mode(r float64) (p, dp [][2]float64, err float64) {
 	if q.last != nil && q.last.r == r {
 		return q.last.p, q.last.dp, q.last.err
 	}
-	defer func() { q.last = &modeAt{r, err, p, dp} }()
-	q.rings = map[float64][2][]float64{}
-	defer func() { q.rings = nil }()
-	p4, d4 := q.integrate(r, 8)
-	p8, d8 := q.integrate(r, 12)
-	p16, d16 := q.integrate(r, 16)
-	e1, e2 := 0.0, 0.0
-	for m := range p16 {
-		for k := 0; k < 2; k++ {
-			e1 = math.Max(e1, math.Max(math.Abs(p8[m][k]-p4[m][k]), math.Abs(d8[m][k]-d4[m][k])*r))
-			e2 = math.Max(e2, math.Max(math.Abs(p16[m][k]-p8[m][k]), math.Abs(d16[m][k]-d8[m][k])*r))
+	p1, d1 := q.eval(q.coarse, r)
+	p, dp = q.eval(q.fine, r)
+	for k := range p {
+		for j := 0; j < 2; j++ {
+			err = math.Max(err, math.Max(math.Abs(p[k][j]-p1[k][j]), math.Abs(dp[k][j]-d1[k][j])*r))
 		}
 	}
-	switch rho := e2 / e1; {
-	case e1 == 0 || e2 == 0:
-		err = e2
-	case rho < 0.9:
-		err = e2 * rho / (1 - rho)
-	default: // not converging geometrically: say so by the last change itself
-		err = e2
-	}
-	// Rounding: the integrals add terms of size ∫|K g| s ds, known to ~1e-16 each.
-	err = math.Max(err, 1e-15*math.Abs(maxAbs(p16)))
-	return p16, d16, err
+	err = math.Max(err, 1e-15*maxAbs(p)) + q.dropped
+	q.last = &modeAt{r, err, p, dp}
+	return p, dp, err
 }
 
 func maxAbs(p [][2]float64) float64 {
@@ -159,70 +430,171 @@ func maxAbs(p [][2]float64) float64 {
 	return m
 }
 
-func (q *Quadrature) integrate(r float64, panels int) (p, dp [][2]float64) {
-	p = make([][2]float64, q.Modes+1)
-	dp = make([][2]float64, q.Modes+1)
-	if r <= q.A {
+// eval sums the Green's formula on a mesh: whole panels below and above r by
+// their separated sums, the panel that holds r split there.
+func (q *Quadrature) eval(mesh []panel, r float64) (p, dp [][2]float64) {
+	p, dp = make([][2]float64, q.Modes+1), make([][2]float64, q.Modes+1)
+	outside := math.IsInf(q.R, 1)
+	if r < q.A {
 		r = q.A
 	}
-	// [A, r]: panels halving towards A, where a disk's kernel has its logarithm.
-	edges := []float64{r}
-	for i := 1; i < panels; i++ {
-		edges = append(edges, q.A+(r-q.A)*math.Pow(0.5, float64(i)))
-	}
-	edges = append(edges, q.A)
-	inner := func(s, w float64, a, b []float64) {
-		for m := 0; m <= q.Modes && m < len(a); m++ {
-			var K, dK float64
-			if m == 0 { // p_0 = ∫_A^r s ln(r/s) g_0 ds
-				K, dK = math.Log(r/s), 1/r
-			} else { // p_m ⊃ −(1/2m) r^(−m) ∫_A^r s^(1+m) g_m ds
-				f := math.Pow(s/r, float64(m)) / (2 * float64(m))
-				K, dK = -f, f*float64(m)/r
+	lnr := math.Log(r)
+	for i := range mesh {
+		pn := &mesh[i]
+		switch {
+		case !pn.infinite && pn.hi <= r: // wholly below r
+			if !outside {
+				p[0][0] += lnr*pn.below[0][0] - pn.log0
+				dp[0][0] += pn.below[0][0] / r
 			}
-			p[m][0] += w * K * a[m]
-			p[m][1] += w * K * b[m]
-			dp[m][0] += w * dK * a[m]
-			dp[m][1] += w * dK * b[m]
-		}
-	}
-	outer := func(s, w float64, a, b []float64) {
-		for m := 1; m <= q.Modes && m < len(a); m++ { // p_m ⊃ −(1/2m) r^m ∫_r^R s^(1−m) g_m ds
-			f := math.Pow(r/s, float64(m)) / (2 * float64(m))
-			K, dK := -f, -f*float64(m)/r
-			p[m][0] += w * K * a[m]
-			p[m][1] += w * K * b[m]
-			dp[m][0] += w * dK * a[m]
-			dp[m][1] += w * dK * b[m]
-		}
-	}
-	rule := func(lo, hi float64, add func(s, w float64, a, b []float64)) {
-		for k, x := range gl16x {
-			s := (lo+hi)/2 + (hi-lo)/2*x
-			a, b := q.ring(s, q.Samples)
-			add(s, (hi-lo)/2*gl16w[k]*s, a, b)
-		}
-	}
-	for i := 0; i+1 < len(edges); i++ {
-		if edges[i] > edges[i+1] {
-			rule(edges[i+1], edges[i], inner)
-		}
-	}
-	if q.Modes > 0 && q.R > r {
-		for i := 0; i < panels; i++ {
-			rule(r+(q.R-r)*float64(i)/float64(panels), r+(q.R-r)*float64(i+1)/float64(panels), outer)
+			x, f := math.Pow(pn.hi/r, q.omega()), 1.0
+			for k := 1; k <= q.Modes; k++ {
+				nu := q.nu(k)
+				f *= x
+				for j := 0; j < 2; j++ {
+					p[k][j] -= f / (2 * nu) * pn.below[k][j]
+					dp[k][j] += f / (2 * r) * pn.below[k][j]
+				}
+			}
+		case pn.lo >= r || pn.infinite: // wholly above r
+			if outside {
+				p[0][0] += pn.log0 - lnr*pn.above[0][0]
+				dp[0][0] -= pn.above[0][0] / r
+			}
+			x, f := 0.0, 1.0
+			if pn.lo > 0 {
+				x = math.Pow(r/pn.lo, q.omega())
+			}
+			for k := 1; k <= q.Modes; k++ {
+				nu := q.nu(k)
+				f *= x
+				for j := 0; j < 2; j++ {
+					p[k][j] -= f / (2 * nu) * pn.above[k][j]
+					dp[k][j] -= f / (2 * r) * pn.above[k][j]
+				}
+			}
+		default:
+			q.split(pn, r, p, dp)
 		}
 	}
 	return p, dp
+}
+
+// split adds the part of the panel that holds r: Gauss–Legendre on [lo, r]
+// and [r, hi] with the modes interpolated from the panel's nodes.
+func (q *Quadrature) split(pn *panel, r float64, p, dp [][2]float64) {
+	outside := math.IsInf(q.R, 1)
+	ell := make([]float64, glN)
+	for half := 0; half < 2; half++ {
+		lo, hi := pn.lo, r
+		if half == 1 {
+			lo, hi = r, pn.hi
+		}
+		for n, x := range glX {
+			s := (lo+hi)/2 + (hi-lo)/2*x
+			ws := (hi - lo) / 2 * glW[n] * s
+			// Barycentric interpolation at the panel coordinate of s.
+			xs := (2*s - pn.lo - pn.hi) / (pn.hi - pn.lo)
+			sum, exact := 0.0, -1
+			for j, xj := range glX {
+				if xs == xj {
+					exact = j
+					break
+				}
+				ell[j] = bary[j] / (xs - xj)
+				sum += ell[j]
+			}
+			g := func(k int) (float64, float64) {
+				if exact >= 0 {
+					return pn.a[exact][k], pn.b[exact][k]
+				}
+				var ga, gb float64
+				for j := range ell {
+					ga += ell[j] * pn.a[j][k]
+					gb += ell[j] * pn.b[j][k]
+				}
+				return ga / sum, gb / sum
+			}
+			g0, _ := g(0)
+			switch {
+			case half == 0 && !outside:
+				p[0][0] += ws * math.Log(r/s) * g0
+				dp[0][0] += ws / r * g0
+			case half == 1 && outside:
+				p[0][0] += ws * math.Log(s/r) * g0
+				dp[0][0] -= ws / r * g0
+			}
+			x, xk := math.Pow(s/r, q.omega()), 1.0 // (s/r)^ν_k below r, (r/s)^ν_k above
+			if half == 1 {
+				x = math.Pow(r/s, q.omega())
+			}
+			for k := 1; k <= q.Modes; k++ {
+				nu := q.nu(k)
+				xk *= x
+				ga, gb := g(k)
+				f := xk / (2 * nu)
+				K, dK := -f, f*nu/r
+				if half == 1 {
+					dK = -dK
+				}
+				p[k][0] += ws * K * ga
+				p[k][1] += ws * K * gb
+				dp[k][0] += ws * dK * ga
+				dp[k][1] += ws * dK * gb
+			}
+		}
+	}
+}
+
+// Integrals are ∬ g dA and ∬ p dA over the region with θ0 < θ < θ1, by the
+// first mesh's rule in r and each mode's exact integral in θ; the second is
+// NaN outside a circle, where p need not be integrable.
+func (q *Quadrature) Integrals(theta0, theta1 float64) (source, particular float64) {
+	ic, is := make([]float64, q.Modes+1), make([]float64, q.Modes+1)
+	ic[0] = theta1 - theta0
+	for k := 1; k <= q.Modes; k++ {
+		nu := q.nu(k)
+		ic[k] = (math.Sin(nu*theta1) - math.Sin(nu*theta0)) / nu
+		is[k] = (math.Cos(nu*theta0) - math.Cos(nu*theta1)) / nu
+	}
+	if math.IsInf(q.R, 1) {
+		particular = math.NaN()
+	}
+	for _, pn := range q.coarse {
+		for i, s := range pn.s {
+			ws := pn.w[i] * s
+			for k := 0; k <= q.Modes && k < len(pn.a[i]); k++ {
+				source += ws * (pn.a[i][k]*ic[k] + pn.b[i][k]*is[k])
+			}
+			if !math.IsInf(q.R, 1) {
+				p, _, _ := q.Mode(s)
+				for k := range p {
+					particular += ws * (p[k][0]*ic[k] + p[k][1]*is[k])
+				}
+			}
+		}
+	}
+	return source, particular
+}
+
+// Flux is ∫ ∂p/∂r r dθ over θ0 < θ < θ1 on the circle of radius r.
+func (q *Quadrature) Flux(r, theta0, theta1 float64) float64 {
+	_, dp, _ := q.Mode(r)
+	total := dp[0][0] * (theta1 - theta0)
+	for k := 1; k < len(dp); k++ {
+		nu := q.nu(k)
+		total += dp[k][0]*(math.Sin(nu*theta1)-math.Sin(nu*theta0))/nu + dp[k][1]*(math.Cos(nu*theta0)-math.Cos(nu*theta1))/nu
+	}
+	return r * total
 }
 
 // At is the particular solution at (r, θ), with the quadrature error estimate.
 func (q *Quadrature) At(r, theta float64) (float64, float64) {
 	p, _, err := q.Mode(r)
 	v := 0.0
-	for m := range p {
-		c, s := math.Cos(float64(m)*theta), math.Sin(float64(m)*theta)
-		v += p[m][0]*c + p[m][1]*s
+	for k := range p {
+		nu := q.nu(k)
+		v += p[k][0]*math.Cos(nu*theta) + p[k][1]*math.Sin(nu*theta)
 	}
 	return v, err
 }

@@ -18,7 +18,7 @@ import (
 //	power     = primary [ ( "^" | "**" ) unary ] .
 //	primary   = number [ atom [ ( "^" | "**" ) unary ] ] | atom .
 //	atom      = lap ident | sum | ident "(" choice { "," choice } ")" | ident | "(" choice ")" .
-//	sum       = "sum" "(" ident "=" number ".." ( "inf" | number ) { "," ident "!=" number } "," choice ")" .
+//	sum       = "sum" "(" ident "=" number ".." ( "inf" | number ) { "," ident "!=" number [ ".." number ] } "," choice ")" .
 //
 // A number directly followed by an atom multiplies it ("2r", "3(x+y)",
 // "4sin(3theta)"); lap is Δ, ∇² or ∇^2.
@@ -130,7 +130,7 @@ type atom struct {
 	Group *choice  `parser:"| \"(\" @@ \")\""`
 }
 
-// sumNode is a series as psol prints it: sum(n=1..inf, n != 2, TERM).
+// sumNode is a series as psol prints it: sum(n=1..inf, n != 2, n != 4..9, TERM).
 type sumNode struct {
 	Pos   lexer.Position
 	Index string     `parser:"\"sum\" \"(\" @Ident \"=\""`
@@ -144,6 +144,7 @@ type skipped struct {
 	Pos   lexer.Position
 	Index string `parser:"@Ident \"!=\""`
 	Value string `parser:"@Number"`
+	Upto  string `parser:"( \"..\" @Number )?"` // a run of skipped n, Value..Upto
 }
 
 type call struct {

@@ -734,7 +734,18 @@ func (lw *lowerer) series(s *sumNode) (value, error) {
 		if err != nil {
 			return value{}, err
 		}
-		skip = append(skip, v)
+		upto := v
+		if k.Upto != "" {
+			if upto, err = lw.whole(k.Upto, k.Pos); err != nil {
+				return value{}, err
+			}
+			if upto < v {
+				return value{}, lw.fail(k.Pos, "a run of skipped terms goes up: n != %d..%d is empty", v, upto)
+			}
+		}
+		for n := v; n <= upto; n++ {
+			skip = append(skip, n)
+		}
 	}
 	body, err := lw.choice(s.Body)
 	if err != nil {

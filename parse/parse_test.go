@@ -61,6 +61,8 @@ func TestLowering(t *testing.T) {
 		{"1/(a+b)", "1/(a + b)"},
 		{"exp(-r^2)", "exp(-r^2)"},
 		{"1/(1+r^2)", "1/(1 + r^2)"},
+		{"sum(n=1..inf, n != 2..4, n != 7, r^n*sin(n*theta)/n)", "sum(n=1..inf, n != 2..4, n != 7, r^n*sin(n*theta)/n)"},
+		{"sum(n=1..inf, n != 2, n != 3, n != 4, r^n/n^2)", "sum(n=1..inf, n != 2..4, r^n/n^2)"},
 	}
 	for _, c := range cases {
 		f, err := Expression("test", c.in, nil)
@@ -147,6 +149,7 @@ func TestBadInput(t *testing.T) {
 		{"lap(u) = r^", 12, "unexpected end of input"},
 		{"lap(u) = 1/0", 12, "division by zero"},
 		{"lap(u) = sin(1, 2)", 10, "one argument"},
+		{"lap(u) = sum(n=1..inf, n != 5..3, r^n/n^2)", 24, "goes up"},
 		{"lap(u)*lap(u) = 1", 8, "linear"},
 	}
 	for _, c := range cases {

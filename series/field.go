@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"strings"
 )
 
 // Field is a function of the plane: an exact sum plus, where the algebra has
@@ -346,8 +347,8 @@ func (e *Expr) Text() string {
 		return "(" + piecesText(e.pieces) + ")"
 	case "series":
 		s := "sum(" + Index + "=" + fmt.Sprint(e.ser.from) + "..inf"
-		for _, k := range e.ser.skip {
-			s += fmt.Sprintf(", %s != %d", Index, k)
+		for _, run := range runs(e.ser.skip) {
+			s += ", " + Index + " != " + run
 		}
 		return s + ", " + trimParens(e.args[0].Text()) + ")"
 	case "sum":
@@ -366,6 +367,72 @@ func (e *Expr) Text() string {
 		return wrap(e.args[0]) + "^(" + trimParens(e.args[1].Text()) + ")"
 	}
 	return e.op + "(" + trimParens(e.args[0].Text()) + ")"
+}
+
+// latexFunctions are the LaTeX forms of the functions of a remainder: the
+// argument goes where %s is.
+var latexFunctions = map[string]string{
+	"sin": `\sin\left(%s\right)`, "cos": `\cos\left(%s\right)`, "tan": `\tan\left(%s\right)`,
+	"exp": `e^{%s}`, "ln": `\ln\left(%s\right)`, "log": `\ln\left(%s\right)`, "sqrt": `\sqrt{%s}`,
+	"abs": `\left|%s\right|`, "sinh": `\sinh\left(%s\right)`, "cosh": `\cosh\left(%s\right)`,
+	"tanh": `\tanh\left(%s\right)`, "atan": `\arctan\left(%s\right)`,
+}
+
+// LaTeX prints the remainder as LaTeX.
+func (e *Expr) LaTeX() string {
+	if e == nil {
+		return "0"
+	}
+	switch e.op {
+	case "pieces":
+		return piecesLaTeX(e.pieces)
+	case "series":
+		lower := Index + "=" + fmt.Sprint(e.ser.from)
+		if len(e.ser.skip) > 0 {
+			lower += `,\ ` + Index + `\ne ` + strings.ReplaceAll(strings.Join(runs(e.ser.skip), ","), "..", `,\dots,`)
+		}
+		return `\sum_{` + lower + `}^{\infty} ` + e.args[0].LaTeX()
+	case "sum":
+		if e.sum.Len() > 1 {
+			return `\left(` + e.sum.LaTeX() + `\right)`
+		}
+		return e.sum.LaTeX()
+	case "+":
+		b := e.args[1].LaTeX()
+		if strings.HasPrefix(b, "-") {
+			return e.args[0].LaTeX() + " - " + b[1:]
+		}
+		return e.args[0].LaTeX() + " + " + b
+	case "*":
+		if k, ok := e.constFactor(); ok && k.Equal(IntCoef(-1)) {
+			return "-" + wrapLaTeX(e.args[1])
+		}
+		return wrapLaTeX(e.args[0]) + ` \, ` + wrapLaTeX(e.args[1])
+	case "/":
+		return `\frac{` + e.args[0].bareLaTeX() + `}{` + e.args[1].bareLaTeX() + `}`
+	case "^":
+		return `{` + wrapLaTeX(e.args[0]) + `}^{` + e.args[1].bareLaTeX() + `}`
+	}
+	if f, ok := latexFunctions[e.op]; ok {
+		return fmt.Sprintf(f, e.args[0].bareLaTeX())
+	}
+	return `\operatorname{` + e.op + `}\left(` + e.args[0].LaTeX() + `\right)`
+}
+
+// bareLaTeX is LaTeX without the parentheses of a sum, for places that
+// delimit it already: a fraction, an exponent, a function's argument.
+func (e *Expr) bareLaTeX() string {
+	if e.op == "sum" {
+		return e.sum.LaTeX()
+	}
+	return e.LaTeX()
+}
+
+func wrapLaTeX(e *Expr) string {
+	if e.op == "+" {
+		return `\left(` + e.LaTeX() + `\right)`
+	}
+	return e.LaTeX()
 }
 
 func wrap(e *Expr) string {

@@ -116,6 +116,12 @@ func (s Sum) print(st style) string { return printTerms(s.t, st) }
 
 func (s Series) scaledText(c Coef, nu Coef, st style) string {
 	neg, body := printTerm(Term{C: c, P: new(big.Rat)}, st)
+	if nu.IsZero() { // (r/R)^0 = 1
+		if neg {
+			return "-" + body
+		}
+		return body
+	}
 	base, exp := "(r/"+wrapText(s.R.Text())+")", nu.Text()
 	if st.latex {
 		base, exp = `\left(\frac{r}{`+s.R.LaTeX()+`}\right)`, nu.LaTeX()
@@ -208,40 +214,78 @@ func (s Series) termText(ts []RadialTerm, nu Coef, st style) string {
 
 // Text prints the series in psol's syntax: sum(n=FROM..inf[, n != K ...], TERM)
 // followed by the exceptional terms.
-func (s Series) Text() string {
+func (s Series) Text() string { return s.text(textStyle) }
+
+// TextApprox is Text with rational coefficients as decimals, for numeric results.
+func (s Series) TextApprox() string { return s.text(style{mul: "*", decimal: true}) }
+
+func (s Series) text(st style) string {
 	head := "sum(" + Index + "=" + strconv.Itoa(s.Family.From) + "..inf"
-	for _, n := range s.specials() {
-		head += ", " + Index + " != " + strconv.Itoa(n)
+	for _, run := range runs(s.specials()) {
+		head += ", " + Index + " != " + run
 	}
-	return s.print(head+", ", ")", textStyle)
+	return s.print(head+", ", ")", st)
 }
 
 // LaTeX prints the series with \sum.
-func (s Series) LaTeX() string {
+func (s Series) LaTeX() string { return s.latex(latexStyle) }
+
+// LaTeXApprox is LaTeX with decimals.
+func (s Series) LaTeXApprox() string { return s.latex(style{latex: true, mul: " ", decimal: true}) }
+
+func (s Series) latex(st style) string {
 	lower := Index + "=" + strconv.Itoa(s.Family.From)
 	if len(s.Special) > 0 {
 		var ex []string
-		for _, n := range s.specials() {
-			ex = append(ex, strconv.Itoa(n))
+		for _, run := range runs(s.specials()) {
+			ex = append(ex, strings.Replace(run, "..", `,\dots,`, 1))
 		}
 		lower = Index + `\ge ` + strconv.Itoa(s.Family.From) + `,\ ` + Index + `\ne ` + strings.Join(ex, ",")
 	}
-	return s.print(`\sum_{`+lower+`}^{\infty} `, "", latexStyle)
+	return s.print(`\sum_{`+lower+`}^{\infty} `, "", st)
+}
+
+// runs writes sorted whole numbers with runs of three or more as "a..b".
+func runs(ns []int) []string {
+	var out []string
+	for i := 0; i < len(ns); {
+		j := i
+		for j+1 < len(ns) && ns[j+1] == ns[j]+1 {
+			j++
+		}
+		if j-i >= 2 {
+			out = append(out, strconv.Itoa(ns[i])+".."+strconv.Itoa(ns[j]))
+		} else {
+			for k := i; k <= j; k++ {
+				out = append(out, strconv.Itoa(ns[k]))
+			}
+		}
+		i = j + 1
+	}
+	return out
 }
 
 // print is open + general term + close, then the exceptional terms.
 func (s Series) print(open, close string, st style) string {
 	var b strings.Builder
-	b.WriteString(open + s.termText(s.General, s.Family.Nu(IndexCoef), st) + close)
+	// A zero general term (every mode exceptional or numeric) prints no sum.
+	if g := s.termText(s.General, s.Family.Nu(IndexCoef), st); g != "0" {
+		b.WriteString(open + g + close)
+	}
 	for _, n := range s.specials() {
 		t := s.termText(s.Special[n], RatCoef(s.Family.NuAt(n)), st)
 		switch {
 		case t == "0":
+		case b.Len() == 0:
+			b.WriteString(t)
 		case strings.HasPrefix(t, "-"):
 			b.WriteString(" - " + t[1:])
 		default:
 			b.WriteString(" + " + t)
 		}
+	}
+	if b.Len() == 0 {
+		return "0"
 	}
 	return b.String()
 }

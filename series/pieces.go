@@ -344,5 +344,5 @@ func (f Field) LaTeX() string {
 	case f.IsExact():
 		return f.Exact.LaTeX()
 	}
-	return `\mathrm{` + f.Text() + "}"
+	return f.expr().LaTeX()
 }

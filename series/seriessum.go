@@ -25,17 +25,12 @@ func (s SeriesSum) IsZero() bool {
 	return true
 }
 
-func (s SeriesSum) join(latex bool) string {
+func (s SeriesSum) join(print func(Series) string) string {
 	var out []string
 	for _, p := range s.Parts {
-		if p.IsZero() {
-			continue
+		if !p.IsZero() {
+			out = append(out, print(p))
 		}
-		t := p.Text()
-		if latex {
-			t = p.LaTeX()
-		}
-		out = append(out, t)
 	}
 	if len(out) == 0 {
 		return "0"
@@ -44,10 +39,16 @@ func (s SeriesSum) join(latex bool) string {
 }
 
 // Text prints the sum in psol's syntax.
-func (s SeriesSum) Text() string { return s.join(false) }
+func (s SeriesSum) Text() string { return s.join(Series.Text) }
+
+// TextApprox prints the sum with decimal coefficients, for numeric results.
+func (s SeriesSum) TextApprox() string { return s.join(Series.TextApprox) }
+
+// LaTeXApprox is TextApprox as LaTeX.
+func (s SeriesSum) LaTeXApprox() string { return s.join(Series.LaTeXApprox) }
 
 // LaTeX prints the sum as LaTeX.
-func (s SeriesSum) LaTeX() string { return s.join(true) }
+func (s SeriesSum) LaTeX() string { return s.join(Series.LaTeX) }
 
 // CompiledSeriesSum evaluates a sum of series.
 type CompiledSeriesSum struct {

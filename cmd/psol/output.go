@@ -56,7 +56,10 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	if v.Points == nil {
 		v.Points = []point{}
 	}
-	f := sol.Source
+	f := series.ExactField(sol.Source)
+	if sol.Rest != nil { // the part the quadrature took
+		f = f.Add(series.Field{Rest: sol.Rest})
+	}
 	var conds, condsTeX []string
 	for _, s := range sol.Sides {
 		conds = append(conds, s.Condition.Side+": "+domain.OperatorText(s.Condition, "u")+" = "+s.DataText)
@@ -330,6 +333,29 @@ func (v *view) approximate(sol *domain.Solution) {
 	mark := func(st *stage, text, latex string) {
 		st.Text, st.LaTeX, st.Exact = text, latex, false
 	}
+	if ps := sol.Series; ps != nil && sol.Quadrature != nil { // a sector: the numeric traces are in the modes
+		join := domain.JoinSeriesApprox
+		q := "quadrature(" + sol.Rest.Text() + ")"
+		plus := func(s string) string {
+			if s == "0" {
+				return q
+			}
+			return s + " + " + q
+		}
+		plusTeX := func(s string) string {
+			if s == "0" {
+				return `u_q`
+			}
+			return s + ` + u_q`
+		}
+		side := sol.Sides[0]
+		mark(&v.Particular, "u_p = "+plus(join(sol.Particular, ps.Particular, false)), plusTeX(join(sol.Particular, ps.Particular, true)))
+		mark(&v.Trace, traceText(side)+" ≈ "+join(side.Trace, ps.Trace, false), join(side.Trace, ps.Trace, true))
+		mark(&v.Correction, "≈ "+ps.Correction.TextApprox(), ps.Correction.LaTeXApprox())
+		mark(&v.Harmonic, "≈ "+join(sol.Harmonic, ps.Harmonic, false), join(sol.Harmonic, ps.Harmonic, true))
+		mark(&v.Solution, "u ≈ "+plus(join(sol.Particular.Add(sol.Harmonic), ps.U, false)), plusTeX(join(sol.Particular.Add(sol.Harmonic), ps.U, true)))
+		return
+	}
 	var co, coTeX []string
 	for _, s := range sol.Sides {
 		c := s.Data.Sub(s.Trace)
@@ -347,7 +373,11 @@ func (v *view) approximate(sol *domain.Solution) {
 		if sol.Particular.IsZero() {
 			text = "u_p = " + q
 		}
-		mark(&v.Particular, text, sol.Particular.LaTeX()+` + u_q`)
+		tex := sol.Particular.LaTeX() + ` + u_q`
+		if sol.Particular.IsZero() {
+			tex = `u_q`
+		}
+		mark(&v.Particular, text, tex)
 	}
 	mark(&v.Harmonic, "≈ "+sol.Harmonic.TextApprox(), sol.Harmonic.LaTeXApprox())
 	solText, solTeX := sol.U.TextApprox(), sol.U.LaTeXApprox()

@@ -137,12 +137,12 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 		return nil, unsupported("a source given piece by piece (cond ? a : b) is not supported; pieces are for boundary data")
 	case !source.IsExact():
 		switch d.(type) {
-		case Disk, Annulus: // the quadrature fallback takes the part with no closed form
+		case Rect:
+			return nil, unsupported("the source has a part with no closed form yet: %s (the quadrature fallback covers the polar regions so far)", source.Rest.Text())
+		default: // the quadrature fallback takes the part with no closed form
 			if source.Rest.HasSeries() {
 				return nil, unsupported("a source given as an infinite series is not taken by the quadrature fallback: %s", source.Rest.Text())
 			}
-		default:
-			return nil, unsupported("the source has a part with no closed form yet: %s (the quadrature fallback covers the disk and the annulus so far)", source.Rest.Text())
 		}
 	}
 	if opt.NumericSource && source.IsExact() {

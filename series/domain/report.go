@@ -131,6 +131,25 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 			return nil, err
 		}
 	}
+	if q := s.Quadrature; q != nil { // the numeric particular solution's share
+		to := 2 * math.Pi
+		if d, ok := s.Domain.(Sector); ok {
+			to, _ = d.Alpha.Float(nil)
+		}
+		g, p := q.Integrals(0, to)
+		rep.Source, rep.SourceExact = rep.Source+g, nil
+		rep.Integral, rep.IntegralExact = rep.Integral+p, nil
+		if d, ok := s.Domain.(circular); ok {
+			for _, c := range d.circles() {
+				R, err := c.radius.Float(env)
+				if err != nil {
+					return nil, err
+				}
+				rep.Flux += float64(c.outward) * q.Flux(R, 0, 2*math.Pi)
+			}
+			rep.FluxExact = nil
+		}
+	}
 	if A, err := rep.Area.Float(env); err == nil && A > 0 {
 		rep.Mean = rep.Integral / A
 	}
@@ -207,9 +226,6 @@ func extremes(d Domain, ev *Evaluator, env series.Env) (maxV float64, argMax [2]
 	u := func(p [2]float64) float64 { v, _, _ := ev.At(p[0], p[1]); return v }
 	maxV, minV = math.Inf(-1), math.Inf(1)
 	nr, nt := 48, 96
-	if ev.quad != nil { // each value is a quadrature: a coarser sample, the refinement does the rest
-		nr, nt = 12, 24
-	}
 	for i := 0; i <= nr; i++ {
 		for j := 0; j <= nt; j++ {
 			p := [2]float64{rlo + (rhi-rlo)*float64(i)/float64(nr), tlo + (thi-tlo)*float64(j)/float64(nt)}

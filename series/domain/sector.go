@@ -160,12 +160,17 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 	for _, part := range []*series.SeriesSum{&parts.Particular, &parts.Trace, &parts.Correction, &parts.Harmonic, &parts.U} {
 		*part = series.SeriesSum{Parts: []series.Series{{Family: fam, R: s.R, Special: map[int][]series.RadialTerm{}}}}
 	}
+	if p.rest != nil {
+		if err := b.quadrature(p, sol, start.dirichlet, end.dirichlet); err != nil {
+			return nil, err
+		}
+	}
 	general, err := b.mode(series.IndexCoef, 0, false)
 	if err != nil {
 		return nil, err
 	}
 	general.store(parts, -1)
-	for _, n := range b.exceptional() {
+	for _, n := range b.concrete() {
 		m, err := b.mode(series.IntCoef(int64(n)), n, true)
 		if err != nil {
 			return nil, err
@@ -185,6 +190,10 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 		sol.Sides = append(sol.Sides, Side{Condition: p.conds[name], At: "r, " + map[string]string{"start": "0", "end": s.Alpha.Text()}[name], Data: ray.Exact, DataText: ray.Text(), DataLaTeX: ray.LaTeX()})
 	}
 	sol.Checks = mergeChecks(append(b.checks(general, shift, start, end, p), closedChecks(closed, p.f.Sub(expanded), start.dirichlet, end.dirichlet, s.Alpha, p)...))
+	if sol.Quadrature != nil {
+		sol.Checks[0].Name = "lap(u_p) - f (the closed part)"
+		sol.Checks = append(sol.Checks, quadratureCheck(s, sol, p.env))
+	}
 	if nu1 := fam.NuAt(max(fam.From, 1)); nu1.Cmp(big.NewRat(1, 1)) < 0 {
 		sol.Notes = append(sol.Notes, fmt.Sprintf("the corner exponent is %s < 1: the gradient of u is unbounded at the corner r = 0", nu1.RatString()))
 	}
@@ -201,6 +210,115 @@ type sectorBuilder struct {
 	pieces []series.Piece // piecewise arc data, when given so
 	arc    circle
 	cond   Condition
+	// numeric is, per mode n, the arc operator on the quadrature particular
+	// solution of the source's part with no closed form.
+	numeric map[int]series.Coef
+}
+
+// concrete lists the modes built one by one: the exceptional n and those
+// that carry a numeric trace.
+func (b *sectorBuilder) concrete() []int {
+	out := b.exceptional()
+	seen := map[int]bool{}
+	for _, n := range out {
+		seen[n] = true
+	}
+	for n := range b.numeric {
+		if !seen[n] {
+			out = append(out, n)
+		}
+	}
+	sortInts(out)
+	return out
+}
+
+// quadrature takes the source's part with no closed form: extended to the
+// period 4α, odd about a Dirichlet ray and even about a Neumann one, its
+// Fourier modes are the rays' eigenfunctions Φ_n, and the particular solution
+// of each (ansatz.Quadrature) meets the ray conditions. Its arc traces join
+// the mode systems as decimals.
+func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) error {
+	cf, err := series.Field{Rest: p.rest}.Compile(p.env)
+	if err != nil {
+		return unsupported("the source %s needs every parameter's value (--let): %v", p.rest.Text(), err)
+	}
+	R, err := b.s.R.Float(p.env)
+	if err != nil {
+		return err
+	}
+	alpha, _ := b.s.Alpha.Float(nil)
+	s0, s1 := 1.0, 1.0
+	if startD {
+		s0 = -1
+	}
+	if endD {
+		s1 = -1
+	}
+	ext := func(r, th float64) float64 {
+		sign := 1.0
+		if th >= 2*alpha { // a reflection about each ray: a shift by 2α
+			th, sign = th-2*alpha, s0*s1
+		}
+		if th > alpha {
+			th, sign = 2*alpha-th, sign*s1
+		}
+		// On a Dirichlet ray the odd extension jumps: its mean, 0, is the value.
+		if th == 0 && startD || th == alpha && endD {
+			return 0
+		}
+		return sign * cf.At(r, th)
+	}
+	// ν_k = kπ/(2α) = ν_n for k = 2n + 2(α/π)·offset, of the family's kind.
+	twoOff := new(big.Rat).Mul(new(big.Rat).Mul(b.a, b.fam.Offset), big.NewRat(2, 1))
+	off := int(twoOff.Num().Int64()) // 0 or −1
+	index := func(k int) (int, bool) {
+		if (k-off)%2 != 0 {
+			return 0, false
+		}
+		n := (k - off) / 2
+		return n, n >= b.fam.From
+	}
+	q := &ansatz.Quadrature{G: ext, A: 0, R: R, Period: 4 * alpha, Tol: p.tol,
+		Keep: func(k int, sin bool) bool { _, ok := index(k); return ok && sin == b.fam.Sin }}
+	if err := q.Prepare(); err != nil {
+		return unsolvable("%s: %v", p.rest.Text(), err)
+	}
+	h := 0.0
+	if b.cond.Kind == Robin {
+		if h, err = b.cond.H.Float(p.env); err != nil {
+			return unsupported("the Robin coefficient needs a value for the numeric source: %v", err)
+		}
+	}
+	pm, dpm, qerr := q.Mode(R)
+	b.numeric = map[int]series.Coef{}
+	part := 0
+	if b.fam.Sin {
+		part = 1
+	}
+	for k := range pm {
+		n, ok := index(k)
+		if !ok {
+			continue
+		}
+		v := pm[k][part]
+		switch b.cond.Kind {
+		case Neumann:
+			v = dpm[k][part]
+		case Robin:
+			v = dpm[k][part] + h*pm[k][part]
+		}
+		if c := decimal(v); !c.IsZero() {
+			b.numeric[n] = c
+		}
+	}
+	sol.Quadrature, sol.Rest, sol.Numeric = q, p.rest, true
+	sol.DataError += qerr
+	note := fmt.Sprintf("the source part %s has no closed form: its particular solution is by quadrature (FFT of its extension over 4*alpha with %d samples, modes up to n = %d; Gauss–Legendre in r)", p.rest.Text(), q.Samples, (q.Modes-off)/2)
+	if !q.Converged {
+		note += fmt.Sprintf("; the ray expansion converges slowly (the source does not vanish on a Dirichlet ray, or its slope on a Neumann ray): about %.1e is neglected", q.Truncation)
+	}
+	sol.Notes = append(sol.Notes, note)
+	return nil
 }
 
 // modeResult is one mode's radial parts: particular (r^s (ln r)^i terms),
@@ -279,6 +397,9 @@ func (b *sectorBuilder) mode(nc series.Coef, n int, concrete bool) (modeResult, 
 		return res, err
 	}
 	bPart, _ := tr.Const()
+	if concrete {
+		bPart = bPart.Add(b.numeric[n])
+	}
 	// The arc operator on (r/R)^ν at r = R: 1, ν/R, or ν/R + h.
 	bScaled := series.IntCoef(1)
 	if b.cond.Kind != Dirichlet {
@@ -652,10 +773,23 @@ func JoinSeries(closed series.Sum, ser series.SeriesSum, latex bool) string {
 	if latex {
 		c, t = closed.LaTeX(), ser.LaTeX()
 	}
+	return joinPrinted(c, t, ser.IsZero(), closed.IsZero())
+}
+
+// JoinSeriesApprox is JoinSeries with decimal coefficients, for numeric results.
+func JoinSeriesApprox(closed series.Sum, ser series.SeriesSum, latex bool) string {
+	c, t := closed.TextApprox(), ser.TextApprox()
+	if latex {
+		c, t = closed.LaTeXApprox(), ser.LaTeXApprox()
+	}
+	return joinPrinted(c, t, ser.IsZero(), closed.IsZero())
+}
+
+func joinPrinted(c, t string, serZero, closedZero bool) string {
 	switch {
-	case ser.IsZero():
+	case serZero:
 		return c
-	case closed.IsZero():
+	case closedZero:
 		return t
 	case strings.HasPrefix(t, "-"):
 		return c + " - " + t[1:]
