@@ -61,8 +61,8 @@ func TestLowering(t *testing.T) {
 		{"1/(a+b)", "1/(a + b)"},
 		{"exp(-r^2)", "exp(-r^2)"},
 		{"1/(1+r^2)", "1/(1 + r^2)"},
-		{"sum(n=1..inf, n != 2..4, n != 7, r^n*sin(n*theta)/n)", "sum(n=1..inf, n != 2..4, n != 7, r^n*sin(n*theta)/n)"},
-		{"sum(n=1..inf, n != 2, n != 3, n != 4, r^n/n^2)", "sum(n=1..inf, n != 2..4, r^n/n^2)"},
+		{"sum(n=1..inf, n != 2..4, n != 7, r^n*sin(n*theta)/n)", "sum(n=1..inf, n != 2..4, n != 7, r^(n)*sin(n*theta)*1/n)"},
+		{"sum(n=1..inf, n != 2, n != 3, n != 4, r^n/n^2)", "sum(n=1..inf, n != 2..4, r^(n)*1/n^2)"},
 	}
 	for _, c := range cases {
 		f, err := Expression("test", c.in, nil)
