@@ -284,9 +284,26 @@ func BenchmarkPlot(b *testing.B) {
 
 // BenchmarkGaussianSource is exp(−r²) on the unit disk from source text to five evaluated points.
 func BenchmarkGaussianSource(b *testing.B) {
+	b.ReportAllocs()
 	args := []string{"solve", "lap(u) = exp(-r^2)", "--disk", "1", "--bc", "u = 0"}
 	for _, r := range []string{"0", "0.2", "0.5", "0.7", "0.9"} {
 		args = append(args, "--at", "r="+r+",theta=1")
+	}
+	for i := 0; i < b.N; i++ {
+		var out bytes.Buffer
+		if code := run(args, &out, &out); code != 0 {
+			b.Fatal(out.String())
+		}
+	}
+}
+
+// BenchmarkOffCentreGaussian is a sharp hot spot, exp(−|x − (0.4, 0)|²/0.02),
+// on the unit disk to 1e-9, from source text to five evaluated points.
+func BenchmarkOffCentreGaussian(b *testing.B) {
+	b.ReportAllocs()
+	args := []string{"solve", "lap(u) = exp(-((x - 0.4)^2 + y^2)/0.02)", "--disk", "1", "--bc", "u = 0", "--tol", "1e-9"}
+	for _, p := range []string{"x=0.4,y=0", "x=0.3,y=0.1", "x=-0.5,y=0.2", "x=0.1,y=0.5", "x=0.9,y=0"} {
+		args = append(args, "--at", p)
 	}
 	for i := 0; i < b.N; i++ {
 		var out bytes.Buffer
