@@ -333,6 +333,9 @@ func (v *view) approximate(sol *domain.Solution) {
 	mark := func(st *stage, text, latex string) {
 		st.Text, st.LaTeX, st.Exact = text, latex, false
 	}
+	if sol.Rect != nil { // rectStages marks its own numeric stages
+		return
+	}
 	if ps := sol.Series; ps != nil && sol.Quadrature != nil { // a sector: the numeric traces are in the modes
 		join := domain.JoinSeriesApprox
 		q := "quadrature(" + sol.Rest.Text() + ")"
@@ -405,25 +408,39 @@ func (v *view) rectStages(sol *domain.Solution) {
 		if s.Name == "left" || s.Name == "right" {
 			coord = "y"
 		}
-		tr = append(tr, s.Name+": "+s.Trace.Text())
-		co = append(co, s.Name+": "+s.Correction.Text()+" (in "+coord+")")
-		if !s.Correction.IsZero() {
-			h = append(h, s.Series.Text())
-			hTeX = append(hTeX, s.Series.LaTeX())
+		trText := s.Trace.Text()
+		if sol.Numeric {
+			trText = s.Trace.TextApprox()
+		}
+		tr = append(tr, s.Name+": "+trText)
+		co = append(co, s.Name+": "+s.CorrectionText()+" (in "+coord+")")
+		if t := s.HarmonicText(false); t != "0" {
+			h = append(h, t)
+			hTeX = append(hTeX, s.HarmonicText(true))
 		}
 	}
 	harm, harmTeX := strings.Join(h, " + "), strings.Join(hTeX, " + ")
 	if harm == "" {
 		harm, harmTeX = "0", "0"
 	}
-	v.Particular = exactStage("particular", "u_p = "+rp.Particular.Text(), sol.Particular.LaTeX(), "u_p")
+	upText, upTeX := rp.Particular.Text(), sol.Particular.LaTeX()
+	if sol.Numeric {
+		upText, upTeX = rp.Particular.TextApprox(), sol.Particular.LaTeXApprox()
+	}
+	v.Particular = exactStage("particular", "u_p = "+upText, upTeX, "u_p")
 	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(tr, "; "), "u_p|_{\\partial}")
 	v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(co, "; "), "g - u_p")
 	v.Harmonic = exactStage("harmonic", harm, harmTeX, "u_h")
-	sol0 := rp.Particular.Text()
+	sol0 := upText
 	if harm != "0" {
 		sol0 += " + " + harm
 	}
-	v.Solution = exactStage("solution", "u = "+sol0, sol.Particular.LaTeX()+" + "+harmTeX, "u")
+	v.Solution = exactStage("solution", "u = "+sol0, upTeX+" + "+harmTeX, "u")
 	v.checkScope = ""
+	if sol.Numeric { // some side series have numeric coefficients (cart.EigenSide)
+		for _, st := range []*stage{&v.Correction, &v.Harmonic, &v.Solution} {
+			st.Exact = false
+		}
+		v.checkScope = "; the numeric side series as summed"
+	}
 }

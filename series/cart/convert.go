@@ -59,3 +59,17 @@ func zPower(m int) (re, im Poly) {
 	}
 	return re, im
 }
+
+// Harmonics are the harmonic polynomials Re and Im of (x + iy)^k for
+// k = 0..degree, in that order (Im of k = 0 left out).
+func Harmonics(degree int) []Poly {
+	var out []Poly
+	for k := 0; k <= degree; k++ {
+		re, im := zPower(k)
+		out = append(out, re)
+		if k > 0 {
+			out = append(out, im)
+		}
+	}
+	return out
+}

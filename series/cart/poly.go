@@ -140,13 +140,20 @@ func (p Poly) AtY(b series.Coef) Poly {
 }
 
 // Text prints p in psol's syntax.
-func (p Poly) Text() string {
+func (p Poly) Text() string { return p.text(series.Coef.Text) }
+
+// TextApprox is Text with the coefficients as decimals, for numeric results.
+func (p Poly) TextApprox() string {
+	return p.text(func(c series.Coef) string { return series.Const(c).TextApprox() })
+}
+
+func (p Poly) text(coef func(series.Coef) string) string {
 	if p.IsZero() {
 		return "0"
 	}
 	var b strings.Builder
 	for k, t := range p.t {
-		s := t.c.Text()
+		s := coef(t.c)
 		var vars []string
 		if t.i > 0 {
 			vars = append(vars, power("x", t.i))

@@ -35,92 +35,213 @@ type RectParts struct {
 	Sides      []RectSide
 }
 
-// RectSide is one side's trace, correction and harmonic series.
+// RectSide is one side's trace, correction and harmonic series: exact
+// (Series) where the side and its neighbours take values or fluxes and the
+// correction is a polynomial, numeric (Eigen) otherwise.
 type RectSide struct {
 	Name       string
-	Data       cart.Poly // in the side's coordinate
+	Data       cart.Poly // in the side's coordinate, when a polynomial
+	DataText   string
 	Trace      cart.Poly
-	Correction cart.Poly
-	Series     cart.SideSeries
+	Correction cart.Poly // Data − Trace, when Data is a polynomial
+	Series     *cart.SideSeries
+	Eigen      *cart.EigenSide
+	data       sideData
 }
 
-// solve: u = u_p + Σ four one-side series, one per side with data. The particular solution is the
-// polynomial that vanishes on x = 0 and x = L (cart.Particular); each side's
-// correction, a polynomial in the side's coordinate, is expanded in
-// sin(nπs/ℓ) with the exact general term (series.SineCoefficient) and
-// continued across by sinh(nπd/ℓ)/sinh(nπw/ℓ), which vanishes on the other
-// three sides.
+// CorrectionText is the correction, or how it is formed from data that are
+// no polynomial (g, as given).
+func (s RectSide) CorrectionText() string {
+	if s.data.poly == nil {
+		return "g - (" + s.Trace.TextApprox() + ")"
+	}
+	if s.Eigen != nil {
+		return s.Correction.TextApprox()
+	}
+	return s.Correction.Text()
+}
+
+// HarmonicText prints the side's series (0 when it has none).
+func (s RectSide) HarmonicText(latex bool) string {
+	switch {
+	case s.Eigen != nil && s.Eigen.IsZero():
+		return "0"
+	case s.Eigen != nil && latex:
+		return s.Eigen.LaTeX()
+	case s.Eigen != nil:
+		return s.Eigen.Text()
+	case s.Series == nil || s.Correction.IsZero():
+		return "0"
+	case latex:
+		return s.Series.LaTeX()
+	}
+	return s.Series.Text()
+}
+
+// sideData is one side's data: a polynomial in the side's coordinate where
+// it is one, else a function of it.
+type sideData struct {
+	poly *cart.Poly
+	fn   func(s float64) float64
+	text string
+}
+
+func (g sideData) at(s float64, env series.Env) float64 {
+	if g.poly != nil {
+		v, _ := g.poly.Eval(s, s, env)
+		return v
+	}
+	return g.fn(s)
+}
+
+// rectGeometry is where each side lies: its coordinate's range, its
+// neighbours at s = 0 and s = ℓ, and the opposite side.
+type rectGeometry struct {
+	side             cart.Side
+	length           series.Coef
+	start, end, away string
+	point            func(s, L, H float64) (x, y float64)
+}
+
+func (d Rect) geometry(name string) rectGeometry {
+	return map[string]rectGeometry{
+		"left":   {cart.Left, d.H, "bottom", "top", "right", func(s, L, H float64) (float64, float64) { return 0, s }},
+		"right":  {cart.Right, d.H, "bottom", "top", "left", func(s, L, H float64) (float64, float64) { return L, s }},
+		"bottom": {cart.Bottom, d.L, "left", "right", "top", func(s, L, H float64) (float64, float64) { return s, 0 }},
+		"top":    {cart.Top, d.L, "left", "right", "bottom", func(s, L, H float64) (float64, float64) { return s, H }},
+	}[name]
+}
+
+// trace is the side's operator on a polynomial, in the side's coordinate:
+// u, the outward derivative, or their Robin combination.
+func (d Rect) trace(name string, cond Condition, q cart.Poly) cart.Poly {
+	zero := series.Coef{}
+	at := map[string]func(cart.Poly) cart.Poly{
+		"left": func(q cart.Poly) cart.Poly { return q.AtX(zero) }, "right": func(q cart.Poly) cart.Poly { return q.AtX(d.L) },
+		"bottom": func(q cart.Poly) cart.Poly { return q.AtY(zero) }, "top": func(q cart.Poly) cart.Poly { return q.AtY(d.H) },
+	}[name]
+	if cond.Kind == Dirichlet {
+		return at(q)
+	}
+	minus := series.IntCoef(-1)
+	normal := map[string]cart.Poly{"left": q.DX().Scale(minus), "right": q.DX(), "bottom": q.DY().Scale(minus), "top": q.DY()}[name]
+	dn := at(normal)
+	if cond.Kind == Robin {
+		return dn.Add(at(q).Scale(cond.H))
+	}
+	return dn
+}
+
+// endOf is a condition as the homogeneous end it sets for the eigenfunctions.
+func endOf(c Condition, env series.Env) cart.End {
+	switch c.Kind {
+	case Dirichlet:
+		return cart.End{Kind: cart.Value}
+	case Neumann:
+		return cart.End{Kind: cart.Flux}
+	}
+	h, _ := c.H.Float(env)
+	return cart.End{Kind: cart.Mixed, H: h}
+}
+
+// solve: u = u_p + Σ four one-side series, one per side with data. The
+// particular solution is the polynomial that vanishes on x = 0 and x = L
+// (cart.Particular); each side's correction is expanded along the side in
+// the eigenfunctions its neighbours set and continued across so that it
+// vanishes on the other three sides. Where the side and its neighbours take
+// values or fluxes and the correction is a polynomial, the series is exact
+// (sin or cos(nπs/ℓ), series.SineCoefficient, sinh/cosh across); with a
+// Robin condition or data that are no polynomial it is numeric (cart.EigenSide).
 func (d Rect) solve(p *posed) (*Solution, error) {
-	allValues, anyValues := true, false
+	allValues, anyFixing := true, false
 	for _, name := range d.Sides() {
 		c := p.conds[name]
-		if c.Kind == Robin || !c.G.IsExact() {
-			return nil, unsupported("the rectangle takes u = g or dn(u) = g on each side, g a polynomial, so far; %s has %q", name, c.Text)
-		}
 		allValues = allValues && c.Kind == Dirichlet
-		anyValues = anyValues || c.Kind == Dirichlet
+		anyFixing = anyFixing || c.Kind != Neumann
+		if c.Kind == Robin {
+			h, err := c.H.Float(p.env)
+			if err != nil {
+				return nil, unsupported("the Robin coefficient on %s needs a value (--let): %v", name, err)
+			}
+			if h < 0 {
+				return nil, unsupported("on the rectangle the Robin coefficient must be >= 0 (convection to the surroundings); %s has h = %g", name, h)
+			}
+		}
 	}
-	if !anyValues {
-		return nil, unsupported("the rectangle needs values (u = g) on at least one side so far")
+	if !anyFixing {
+		return nil, unsupported("the rectangle needs values (u = g) or a Robin condition on at least one side so far")
 	}
 	f, err := cart.FromPolar(p.f)
 	if err != nil {
 		return nil, unsupported("on the rectangle the source must be a polynomial in x and y so far, not %s", p.f.Text())
 	}
-	up := cart.Particular(f, d.L)
-	if allValues {
-		// Add the harmonic a + bx + cy + dxy that takes the corrections' corner
-		// values, so that every side's correction vanishes at its ends and its
-		// sine series converges like 1/n³ rather than 1/n (common practice).
-		if up, err = withCornerFit(up, d, p); err != nil {
-			return nil, err
+	L, errL := d.L.Float(p.env)
+	H, errH := d.H.Float(p.env)
+	data := map[string]sideData{}
+	for _, name := range d.Sides() {
+		cond := p.conds[name]
+		if cond.G.IsExact() {
+			if g, err := cart.FromPolar(cond.G.Exact); err == nil {
+				tr := d.trace(name, Condition{Kind: Dirichlet}, g)
+				data[name] = sideData{poly: &tr, text: tr.Text()}
+				continue
+			}
 		}
+		cf, err := cond.G.Compile(p.env)
+		if err == nil && (errL != nil || errH != nil) {
+			err = fmt.Errorf("the rectangle's sides need values for numeric data (--let)")
+		}
+		if err != nil {
+			return nil, unsupported("boundary data on %s: %v", name, err)
+		}
+		geo := d.geometry(name)
+		data[name] = sideData{fn: func(s float64) float64 {
+			x, y := geo.point(s, L, H)
+			return cf.At(math.Hypot(x, y), math.Atan2(y, x))
+		}, text: cond.G.Text()}
 	}
+	up := withCornerFit(cart.Particular(f, d.L), d, data, p.conds, p.env)
 	parts := &RectParts{Particular: up}
 	sol := &Solution{Domain: d, Source: p.f, Rect: parts}
 	if sol.Particular, err = toPolar(up); err != nil {
 		return nil, err
 	}
 	sol.U = sol.Particular // the closed part; the side series are evaluated beside it
-	zero := series.Coef{}
-	// Each side: where it lies, its operator (u or the outward derivative),
-	// its neighbours at s = 0 and s = ℓ, and its opposite side.
-	geometry := map[string]struct {
-		side             cart.Side
-		at               func(cart.Poly) cart.Poly
-		normal           func(cart.Poly) cart.Poly
-		length           series.Coef
-		start, end, away string
-	}{
-		"left":   {cart.Left, func(q cart.Poly) cart.Poly { return q.AtX(zero) }, func(q cart.Poly) cart.Poly { return q.DX().Scale(series.IntCoef(-1)).AtX(zero) }, d.H, "bottom", "top", "right"},
-		"right":  {cart.Right, func(q cart.Poly) cart.Poly { return q.AtX(d.L) }, func(q cart.Poly) cart.Poly { return q.DX().AtX(d.L) }, d.H, "bottom", "top", "left"},
-		"bottom": {cart.Bottom, func(q cart.Poly) cart.Poly { return q.AtY(zero) }, func(q cart.Poly) cart.Poly { return q.DY().Scale(series.IntCoef(-1)).AtY(zero) }, d.L, "left", "right", "top"},
-		"top":    {cart.Top, func(q cart.Poly) cart.Poly { return q.AtY(d.H) }, func(q cart.Poly) cart.Poly { return q.DY().AtY(d.H) }, d.L, "left", "right", "bottom"},
-	}
+	exactKind := func(name string) bool { return p.conds[name].Kind != Robin }
 	for _, name := range d.Sides() {
-		geo := geometry[name]
+		geo := d.geometry(name)
 		cond := p.conds[name]
-		g, err := cart.FromPolar(cond.G.Exact)
-		if err != nil {
-			return nil, unsupported("boundary data on %s must be a polynomial so far, not %s", name, cond.G.Text())
+		tr := d.trace(name, cond, up)
+		side := RectSide{Name: name, DataText: data[name].text, Trace: tr, data: data[name]}
+		if g := data[name].poly; g != nil && exactKind(name) && exactKind(geo.start) && exactKind(geo.end) && exactKind(geo.away) {
+			side.Data, side.Correction = *g, g.Sub(tr)
+			ser, err := sideSeries(geo.side, side.Correction, geo.length, d, p.conds[geo.start].Kind == Neumann, p.conds[geo.end].Kind == Neumann, cond.Kind == Neumann, p.conds[geo.away].Kind == Neumann)
+			if err != nil {
+				return nil, err
+			}
+			side.Series = &ser
+		} else {
+			if errL != nil || errH != nil {
+				return nil, unsupported("a Robin side or numeric data on the rectangle need its sides' values (--let)")
+			}
+			if g := data[name].poly; g != nil {
+				side.Data, side.Correction = *g, g.Sub(tr)
+			}
+			g, env := data[name], p.env
+			es := &cart.EigenSide{Side: geo.side, L: L, H: H, Start: endOf(p.conds[geo.start], env), End: endOf(p.conds[geo.end], env),
+				Opposite: endOf(p.conds[geo.away], env), Own: endOf(cond, env),
+				Data: func(s float64) float64 { v, _ := tr.Eval(s, s, env); return g.at(s, env) - v }}
+			if err := es.Prepare(); err != nil {
+				return nil, unsolvable("on %s: %v", name, err)
+			}
+			side.Eigen = es
+			sol.Numeric = true
 		}
-		data := geo.at(g)
-		tr := geo.at(up)
-		if cond.Kind == Neumann {
-			tr = geo.normal(up)
-		}
-		corr := data.Sub(tr)
-		ser, err := sideSeries(geo.side, corr, geo.length, d, p.conds[geo.start].Kind == Neumann, p.conds[geo.end].Kind == Neumann, cond.Kind == Neumann, p.conds[geo.away].Kind == Neumann)
-		if err != nil {
-			return nil, err
-		}
-		parts.Sides = append(parts.Sides, RectSide{Name: name, Data: data, Trace: tr, Correction: corr, Series: ser})
+		parts.Sides = append(parts.Sides, side)
 		where := map[string]string{"left": "0, y", "right": d.L.Text() + ", y", "bottom": "x, 0", "top": "x, " + d.H.Text()}[name]
-		sol.Sides = append(sol.Sides, Side{Condition: cond, At: where, AtLaTeX: where, DataText: data.Text(), DataLaTeX: data.Text()})
+		sol.Sides = append(sol.Sides, Side{Condition: cond, At: where, AtLaTeX: where, DataText: data[name].text, DataLaTeX: data[name].text})
 	}
-	if allValues {
-		cornerWarnings(d, p, sol)
-	}
+	cornerWarnings(d, data, sol, p.conds, p.env)
 	res := up.Laplacian().Sub(f)
 	resPolar, _ := toPolar(res)
 	sol.Checks = []Check{{Name: "lap(u) - f", Exact: true, Residual: resPolar}}
@@ -137,21 +258,6 @@ func first(cs []series.Coef) series.Coef {
 		return series.Coef{}
 	}
 	return cs[0]
-}
-
-func cornerValue(g cart.Poly, where string, d Rect) series.Coef {
-	zero := series.Coef{}
-	x, y := zero, zero
-	switch where {
-	case "(L, 0)":
-		x = d.L
-	case "(L, H)":
-		x, y = d.L, d.H
-	case "(0, H)":
-		y = d.H
-	}
-	cs, _ := g.AtX(x).AtY(y).Coefficients()
-	return first(cs)
 }
 
 // toPolar writes a polynomial in x and y as a polar sum (x = r cos θ, y = r sin θ).
@@ -197,12 +303,17 @@ func rectChecks(d Rect, sol *Solution, ev *Evaluator, env series.Env) []Check {
 			if s.Name == "left" || s.Name == "right" {
 				along = y
 			}
-			g, _ = s.Data.Eval(along, along, env)
+			g = s.data.at(along, env)
 			u := ev.atXY(x, y)
-			if sol.Sides[k0(s.Name)].Condition.Kind == Neumann { // the outward derivative, one-sided inward
+			if cond := sol.Sides[k0(s.Name)].Condition; cond.Kind != Dirichlet { // the outward derivative, one-sided inward
 				h := 1e-4 * math.Min(L, H)
-				dx, dy := map[string][2]float64{"left": {1, 0}, "right": {-1, 0}, "bottom": {0, 1}, "top": {0, -1}}[s.Name][0], map[string][2]float64{"left": {1, 0}, "right": {-1, 0}, "bottom": {0, 1}, "top": {0, -1}}[s.Name][1]
-				u = -(-3*u + 4*ev.atXY(x+h*dx, y+h*dy) - ev.atXY(x+2*h*dx, y+2*h*dy)) / (2 * h)
+				in := map[string][2]float64{"left": {1, 0}, "right": {-1, 0}, "bottom": {0, 1}, "top": {0, -1}}[s.Name]
+				dn := -(-3*u + 4*ev.atXY(x+h*in[0], y+h*in[1]) - ev.atXY(x+2*h*in[0], y+2*h*in[1])) / (2 * h)
+				if cond.Kind == Robin {
+					hr, _ := cond.H.Float(env)
+					dn += hr * u
+				}
+				u = dn
 			}
 			worst = math.Max(worst, math.Abs(u-g))
 		}
@@ -211,49 +322,107 @@ func rectChecks(d Rect, sol *Solution, ev *Evaluator, env series.Env) []Check {
 	return out
 }
 
-// withCornerFit adds to up the bilinear harmonic w with w = g − up at the
-// four corners (the mean of the two sides' values where they disagree).
-func withCornerFit(up cart.Poly, d Rect, p *posed) (cart.Poly, error) {
-	zero := series.Coef{}
-	value := func(side string, x, y series.Coef) (series.Coef, error) {
-		g, err := cart.FromPolar(p.conds[side].G.Exact)
-		if err != nil {
-			return series.Coef{}, unsupported("boundary data on %s must be a polynomial so far, not %s", side, p.conds[side].G.Text())
+// cornerData is a side's data at one end (s = 0 or ℓ) as a coefficient:
+// exact for a polynomial, a 15-digit decimal otherwise.
+func (d Rect) cornerData(name string, g sideData, atEnd bool, env series.Env) series.Coef {
+	geo := d.geometry(name)
+	if g.poly != nil {
+		s := series.Coef{}
+		if atEnd {
+			s = geo.length
 		}
-		cs, _ := g.Sub(up).AtX(x).AtY(y).Coefficients()
-		return first(cs), nil
+		cs, _ := g.poly.AtX(s).AtY(s).Coefficients() // a polynomial in x or in y
+		return first(cs)
 	}
-	corner := func(a, b string, x, y series.Coef) (series.Coef, error) {
-		va, err := value(a, x, y)
-		if err != nil {
-			return series.Coef{}, err
+	l, _ := geo.length.Float(env)
+	s := 0.0
+	if atEnd {
+		s = l
+	}
+	return decimal(g.fn(s))
+}
+
+// rectCorners are the corners with the two sides that meet there (and
+// whether the corner is at the end of each side's coordinate).
+var rectCorners = []struct {
+	a, b       string
+	aEnd, bEnd bool
+	where      string
+}{
+	{"left", "bottom", false, false, "(0, 0)"}, {"bottom", "right", true, false, "(L, 0)"},
+	{"right", "top", true, true, "(L, H)"}, {"top", "left", false, true, "(0, H)"},
+}
+
+// withCornerFit adds to up a harmonic polynomial w that makes each side's
+// correction vanish at every end where the neighbour takes values: there the
+// neighbour's eigenfunctions vanish, and a correction that does not would
+// converge like 1/n (common practice). Where two sides with values meet, w
+// takes the mean of their data. w is the first solution of the corner
+// conditions in the harmonics 1, x, y, xy, x² − y², … (up to degree 4): for
+// values on all four sides, the bilinear interpolant of the corner values.
+func withCornerFit(up cart.Poly, d Rect, data map[string]sideData, conds map[string]Condition, env series.Env) cart.Poly {
+	basis := cart.Harmonics(4)
+	var rows [][]series.Coef
+	var rhs []series.Coef
+	cornerOf := func(name string, atEnd bool) (series.Coef, series.Coef) {
+		x, y := series.Coef{}, series.Coef{}
+		switch {
+		case name == "right":
+			x = d.L
+		case name == "top":
+			y = d.H
 		}
-		vb, err := value(b, x, y)
-		return va.Add(vb).MulRat(big.NewRat(1, 2)), err
+		if atEnd {
+			if name == "left" || name == "right" {
+				y = d.H
+			} else {
+				x = d.L
+			}
+		}
+		return x, y
 	}
-	c00, err := corner("left", "bottom", zero, zero)
-	if err != nil {
-		return cart.Poly{}, err
+	// row is the side's operator on each basis function at its end, and the
+	// data less the operator on up there.
+	row := func(name string, atEnd bool, g series.Coef) ([]series.Coef, series.Coef) {
+		x, y := cornerOf(name, atEnd)
+		at := func(q cart.Poly) series.Coef {
+			cs, _ := d.trace(name, conds[name], q).AtX(x).AtY(y).Coefficients()
+			return first(cs)
+		}
+		var r []series.Coef
+		for _, b := range basis {
+			r = append(r, at(b))
+		}
+		return r, g.Sub(at(up))
 	}
-	cL0, err := corner("bottom", "right", d.L, zero)
-	if err != nil {
-		return cart.Poly{}, err
+	for _, c := range rectCorners {
+		ga, gb := d.cornerData(c.a, data[c.a], c.aEnd, env), d.cornerData(c.b, data[c.b], c.bEnd, env)
+		aD, bD := conds[c.a].Kind == Dirichlet, conds[c.b].Kind == Dirichlet
+		switch {
+		case aD && bD:
+			r, v := row(c.a, c.aEnd, ga.Add(gb).MulRat(big.NewRat(1, 2)))
+			rows, rhs = append(rows, r), append(rhs, v)
+		case aD:
+			r, v := row(c.b, c.bEnd, gb)
+			rows, rhs = append(rows, r), append(rhs, v)
+		case bD:
+			r, v := row(c.a, c.aEnd, ga)
+			rows, rhs = append(rows, r), append(rhs, v)
+		}
 	}
-	cLH, err := corner("right", "top", d.L, d.H)
-	if err != nil {
-		return cart.Poly{}, err
+	if len(rows) == 0 {
+		return up
 	}
-	c0H, err := corner("top", "left", zero, d.H)
-	if err != nil {
-		return cart.Poly{}, err
+	x, _, ok := solveLinear(rows, rhs)
+	if !ok {
+		return up
 	}
-	invL, _ := series.IntCoef(1).Div(d.L)
-	invH, _ := series.IntCoef(1).Div(d.H)
-	w := cart.Monomial(c00, 0, 0).
-		Add(cart.X.Scale(cL0.Sub(c00).Mul(invL))).
-		Add(cart.Y.Scale(c0H.Sub(c00).Mul(invH))).
-		Add(cart.X.Mul(cart.Y).Scale(cLH.Sub(cL0).Sub(c0H).Add(c00).Mul(invL).Mul(invH)))
-	return up.Add(w), nil
+	for i, b := range basis {
+		if !x[i].IsZero() {
+			up = up.Add(b.Scale(x[i]))
+		}
+	}
+	return up
 }
 
 // sideSeries expands a side's correction c(s), s ∈ [0, ℓ], in the family the
@@ -306,18 +475,20 @@ func k0(name string) int {
 	return map[string]int{"left": 0, "right": 1, "bottom": 2, "top": 3}[name]
 }
 
-// cornerWarnings names the corners where the data of adjacent sides disagree:
-// the series still converge, to the mean, but slowly there.
-func cornerWarnings(d Rect, p *posed, sol *Solution) {
-	for _, c := range []struct{ a, b, where string }{
-		{"left0", "bottom0", "(0, 0)"}, {"bottom1", "right0", "(L, 0)"}, {"right1", "top1", "(L, H)"}, {"top0", "left1", "(0, H)"},
-	} {
-		sideA, sideB := c.a[:len(c.a)-1], c.b[:len(c.b)-1]
-		ga, _ := cart.FromPolar(p.conds[sideA].G.Exact)
-		gb, _ := cart.FromPolar(p.conds[sideB].G.Exact)
-		va, vb := cornerValue(ga, c.where, d), cornerValue(gb, c.where, d)
+// cornerWarnings names the corners where the values of adjacent sides
+// disagree: the series still converge, to the mean, but slowly there.
+func cornerWarnings(d Rect, data map[string]sideData, sol *Solution, conds map[string]Condition, env series.Env) {
+	for _, c := range rectCorners {
+		if conds[c.a].Kind != Dirichlet || conds[c.b].Kind != Dirichlet {
+			continue
+		}
+		va, vb := d.cornerData(c.a, data[c.a], c.aEnd, env), d.cornerData(c.b, data[c.b], c.bEnd, env)
 		if !va.Equal(vb) {
-			sol.Notes = append(sol.Notes, fmt.Sprintf("the data disagree at the corner %s: %s gives %s, %s gives %s (a jump of %s)", c.where, sideA, va.Text(), sideB, vb.Text(), vb.Sub(va).Text()))
+			text := func(c series.Coef) string { return series.Const(c).TextApprox() }
+			if data[c.a].poly != nil && data[c.b].poly != nil {
+				text = series.Coef.Text
+			}
+			sol.Notes = append(sol.Notes, fmt.Sprintf("the data disagree at the corner %s: %s gives %s, %s gives %s (a jump of %s)", c.where, c.a, text(va), c.b, text(vb), text(vb.Sub(va))))
 		}
 	}
 }

@@ -8,7 +8,6 @@ import (
 
 	"psol/ansatz"
 	"psol/series"
-	"psol/series/cart"
 )
 
 // Sector is the region r < R, 0 < θ < Alpha, with Alpha a rational multiple of π.
@@ -524,7 +523,7 @@ type Evaluator struct {
 	tol     float64
 	max     int
 	rim     *compiledRim
-	rect    []*cart.CompiledSide
+	rect    []rectSeries
 	walls   *rectWalls         // a rectangle's side data, exact on the sides themselves
 	quad    *ansatz.Quadrature // a numeric particular solution, evaluated beside the rest
 	dataErr float64            // what numeric traces bring to every value
@@ -533,7 +532,7 @@ type Evaluator struct {
 // rectWalls holds a rectangle's Dirichlet data in the side coordinates.
 type rectWalls struct {
 	L, H                     float64
-	left, right, bottom, top *cart.Poly // nil where the side carries a flux, not a value
+	left, right, bottom, top *sideData // nil where the side carries a flux, not a value
 	env                      series.Env
 }
 
@@ -544,25 +543,30 @@ func (w *rectWalls) on(x, y float64) (float64, bool) {
 	}
 	const eps = 1e-14
 	inX, inY := x > eps*w.L && x < w.L*(1-eps), y > eps*w.H && y < w.H*(1-eps)
-	var p *cart.Poly
+	var g *sideData
 	var s float64
 	switch {
 	case math.Abs(x) <= eps*w.L && inY:
-		p, s = w.left, y
+		g, s = w.left, y
 	case math.Abs(x-w.L) <= eps*w.L && inY:
-		p, s = w.right, y
+		g, s = w.right, y
 	case math.Abs(y) <= eps*w.H && inX:
-		p, s = w.bottom, x
+		g, s = w.bottom, x
 	case math.Abs(y-w.H) <= eps*w.H && inX:
-		p, s = w.top, x
+		g, s = w.top, x
 	default:
 		return 0, false
 	}
-	if p == nil {
+	if g == nil {
 		return 0, false
 	}
-	v, err := p.Eval(s, s, w.env)
-	return v, err == nil
+	return g.at(s, w.env), true
+}
+
+// rectSeries is a rectangle's side series as evaluated: exact or numeric.
+type rectSeries interface {
+	At(x, y, tol float64, maxTerms int) (sum, tail float64)
+	Integral(tol float64, maxTerms int) float64
 }
 
 // Compile prepares the solution for evaluation with parameters from env.
@@ -586,14 +590,18 @@ func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluato
 			return nil, err
 		}
 		for _, side := range s.Rect.Sides {
-			cs, err := side.Series.Compile(env)
-			if err != nil {
-				return nil, err
+			if side.Eigen != nil {
+				e.rect = append(e.rect, side.Eigen)
+			} else {
+				cs, err := side.Series.Compile(env)
+				if err != nil {
+					return nil, err
+				}
+				e.rect = append(e.rect, cs)
 			}
-			e.rect = append(e.rect, cs)
 			if s.Sides[k0(side.Name)].Condition.Kind == Dirichlet {
-				data := side.Data
-				*map[string]**cart.Poly{"left": &w.left, "right": &w.right, "bottom": &w.bottom, "top": &w.top}[side.Name] = &data
+				data := side.data
+				*map[string]**sideData{"left": &w.left, "right": &w.right, "bottom": &w.bottom, "top": &w.top}[side.Name] = &data
 			}
 		}
 		e.walls = w

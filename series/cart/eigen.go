@@ -1,0 +1,318 @@
+package cart
+
+import (
+	"fmt"
+	"math"
+	"strings"
+)
+
+// End is a homogeneous condition at one end of a side's coordinate, or on a
+// side itself: v = 0, ∂v/∂n = 0, or ∂v/∂n + h·v = 0 (n the outward normal).
+type End struct {
+	Kind EndKind
+	H    float64 // the Robin coefficient, h ≥ 0
+}
+
+// EndKind is the kind of an End.
+type EndKind int
+
+const (
+	Value EndKind = iota // v = 0
+	Flux                 // ∂v/∂n = 0
+	Mixed                // ∂v/∂n + h·v = 0
+)
+
+// phase is δ(μ) = atan(h/μ): π/2 for a value, 0 for a flux.
+func (e End) phase(mu float64) float64 {
+	switch e.Kind {
+	case Value:
+		return math.Pi / 2
+	case Flux:
+		return 0
+	}
+	return math.Atan2(e.H, mu)
+}
+
+// EigenSide is the harmonic function on the rectangle that meets a side's
+// operator with data c(s) there and homogeneous conditions on the other
+// three sides, for any mix of values, fluxes and Robin conditions, with
+// numeric coefficients:
+//
+//	v(s, d) = Σ_n b_n X_n(s) Y_n(d),  X_n(s) = cos(μ_n s − δ_0(μ_n)),
+//
+// s along the side in [0, ℓ], d the distance from the opposite side in
+// [0, w]. The X_n are the Sturm–Liouville eigenfunctions of the neighbours'
+// conditions: X'(0) = h_0 X(0) gives δ_0 = atan(h_0/μ), and the condition at
+// s = ℓ the eigenvalue equation μℓ = δ_0(μ) + δ_1(μ) + (n − 1)π, solved by
+// bisection (its left side minus its right increases with μ). b_n =
+// ∫ c X_n ds / ∫ X_n² ds by composite Gauss–Legendre; across, Y_n solves
+// Y” = μ²Y with the opposite side's condition at d = 0 and the side's own
+// operator equal to 1 at d = w, written with decaying exponentials.
+type EigenSide struct {
+	Side       Side
+	L, H       float64
+	Start, End End // the neighbours at s = 0 and s = ℓ
+	Opposite   End
+	Own        End // the side's own operator (its H for a Robin side)
+	Data       func(s float64) float64
+	Label      string // how the data are written, for printing
+	Modes      int    // the modes computed (default 512)
+
+	mu, delta, b []float64
+	constant     bool    // a mode μ = 0 (flux at both ends)
+	b0           float64 // its coefficient
+}
+
+// ErrSingular is Prepare's answer for an operator that annihilates the
+// constant mode its data need (flux conditions all round).
+var ErrSingular = fmt.Errorf("the flux data are incompatible with the source: the correction's mean on a side with flux conditions all round must be 0")
+
+func (e *EigenSide) along() (l, w float64) {
+	if e.Side == Left || e.Side == Right {
+		return e.H, e.L
+	}
+	return e.L, e.H
+}
+
+// Prepare computes the eigenvalues and the coefficients.
+func (e *EigenSide) Prepare() error {
+	if e.Modes == 0 {
+		e.Modes = 512
+	}
+	l, _ := e.along()
+	e.constant = e.Start.Kind == Flux && e.End.Kind == Flux
+	// Gauss–Legendre nodes enough for the highest mode's oscillation.
+	x, w := legendre16()
+	panels := e.Modes/4 + 16
+	var ns, ws, cs []float64
+	for i := 0; i < panels; i++ {
+		lo, hi := l*float64(i)/float64(panels), l*float64(i+1)/float64(panels)
+		for k, xk := range x {
+			s := (lo+hi)/2 + (hi-lo)/2*xk
+			ns, ws, cs = append(ns, s), append(ws, (hi-lo)/2*w[k]), append(cs, e.Data(s))
+		}
+	}
+	if e.constant {
+		mean := 0.0
+		for i := range ns {
+			mean += ws[i] * cs[i]
+		}
+		e.b0 = mean / l
+		if e.across0(1) == 0 {
+			if math.Abs(e.b0) > 1e-12*maxAbsSlice(cs) {
+				return ErrSingular
+			}
+			e.b0 = 0
+		}
+	}
+	e.mu, e.delta, e.b = make([]float64, e.Modes), make([]float64, e.Modes), make([]float64, e.Modes)
+	for n := 1; n <= e.Modes; n++ {
+		mu := e.eigenvalue(n, l)
+		d0 := e.Start.phase(mu)
+		norm := l/2 + (math.Sin(2*(mu*l-d0))+math.Sin(2*d0))/(4*mu)
+		proj := 0.0
+		for i, s := range ns {
+			proj += ws[i] * cs[i] * math.Cos(mu*s-d0)
+		}
+		e.mu[n-1], e.delta[n-1], e.b[n-1] = mu, d0, proj/norm
+	}
+	return nil
+}
+
+func maxAbsSlice(v []float64) float64 {
+	m := 0.0
+	for _, x := range v {
+		m = math.Max(m, math.Abs(x))
+	}
+	return m
+}
+
+// eigenvalue is the n-th root of μℓ − δ_0(μ) − δ_1(μ) = (n − 1)π, with n
+// counted from the first positive root (a flux at both ends has μ = 0 apart).
+func (e *EigenSide) eigenvalue(n int, l float64) float64 {
+	k := float64(n - 1)
+	if e.constant {
+		k = float64(n)
+	}
+	f := func(mu float64) float64 { return mu*l - e.Start.phase(mu) - e.End.phase(mu) - k*math.Pi }
+	lo, hi := math.Max(k*math.Pi/l, 1e-300), (k+1)*math.Pi/l
+	for i := 0; i < 200 && hi-lo > 1e-15*hi; i++ {
+		mid := (lo + hi) / 2
+		if f(mid) < 0 {
+			lo = mid
+		} else {
+			hi = mid
+		}
+	}
+	return (lo + hi) / 2
+}
+
+// across is Y_n(d) for μ > 0: with Z(d) = P e^(μd) + M e^(−μd) meeting the
+// opposite side's condition, Y = Z/B[Z](w), B = a + b ∂_d the own operator.
+func (e *EigenSide) across(mu, d float64) float64 {
+	_, w := e.along()
+	var P, M float64
+	switch e.Opposite.Kind {
+	case Value: // sinh
+		P, M = 0.5, -0.5
+	case Flux: // cosh
+		P, M = 0.5, 0.5
+	default: // −Z'(0) + h Z(0) = 0: μ cosh + h sinh
+		P, M = (mu+e.Opposite.H)/2, (mu-e.Opposite.H)/2
+	}
+	a, b := e.own()
+	num := P + M*math.Exp(-2*mu*d)
+	den := (a+b*mu)*P + (a-b*mu)*M*math.Exp(-2*mu*w)
+	return math.Exp(mu*(d-w)) * num / den
+}
+
+// own is the own operator as a·v + b·∂v/∂n.
+func (e *EigenSide) own() (a, b float64) {
+	switch e.Own.Kind {
+	case Value:
+		return 1, 0
+	case Flux:
+		return 0, 1
+	}
+	return e.Own.H, 1
+}
+
+// across0 is the constant mode's factor: Z = 1 + h_o d (d for a value
+// opposite), over a·Z(w) + b·Z'(w); 0 when that vanishes.
+func (e *EigenSide) across0(d float64) float64 {
+	_, w := e.along()
+	z, dz := 1.0, 0.0
+	switch e.Opposite.Kind {
+	case Value:
+		z, dz = 0, 1
+	case Mixed:
+		dz = e.Opposite.H
+	}
+	a, b := e.own()
+	den := a*(z+dz*w) + b*dz
+	if den == 0 {
+		return 0
+	}
+	return (z + dz*d) / den
+}
+
+// At sums the series at (x, y) until the terms, bounded by |b_n Y_n|, stay
+// below tol·max(1, |sum|) for four in a row; tail is the last bound times n.
+func (e *EigenSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
+	s, d := e.local(x, y)
+	if e.constant {
+		sum = e.b0 * e.across0(d)
+	}
+	quiet := 0
+	tail = math.Inf(1)
+	for n := 0; n < len(e.b) && n < maxTerms; n++ {
+		term := e.b[n] * e.across(e.mu[n], d)
+		sum += term * math.Cos(e.mu[n]*s-e.delta[n])
+		tail = float64(n+1) * math.Abs(term)
+		if tail <= tol*math.Max(1, math.Abs(sum)) {
+			if quiet++; quiet >= 4 {
+				tail = 0
+				break
+			}
+		} else {
+			quiet = 0
+		}
+	}
+	if tail > 0 && len(e.b) > 0 { // the modes beyond the computed ones: about the last one's size, times n
+		tail = math.Max(tail, math.Abs(e.b[len(e.b)-1]*e.across(e.mu[len(e.b)-1], d))*float64(len(e.b)))
+	}
+	return sum, tail
+}
+
+// Integral is ∬ v over the rectangle: Σ b_n ∫X_n ds ∫Y_n dd, each factor by
+// a 16-point Gauss–Legendre rule on enough panels, plus the constant mode.
+func (e *EigenSide) Integral(tol float64, maxTerms int) float64 {
+	l, w := e.along()
+	x, wts := legendre16()
+	integrate := func(f func(float64) float64, length float64, panels int) float64 {
+		total := 0.0
+		for i := 0; i < panels; i++ {
+			lo, hi := length*float64(i)/float64(panels), length*float64(i+1)/float64(panels)
+			for k, xk := range x {
+				total += (hi - lo) / 2 * wts[k] * f((lo+hi)/2+(hi-lo)/2*xk)
+			}
+		}
+		return total
+	}
+	total := 0.0
+	if e.constant {
+		total = e.b0 * l * integrate(e.across0, w, 4)
+	}
+	for n := 0; n < len(e.b) && n < maxTerms; n++ {
+		mu, d0 := e.mu[n], e.delta[n]
+		ix := (math.Sin(mu*l-d0) + math.Sin(d0)) / mu
+		iy := integrate(func(d float64) float64 { return e.across(mu, d) }, w, 8)
+		total += e.b[n] * ix * iy
+	}
+	return total
+}
+
+// local is the point (x, y) as (s along the side, d from the opposite side).
+func (e *EigenSide) local(x, y float64) (s, d float64) {
+	_, w := e.along()
+	switch e.Side {
+	case Bottom:
+		return x, w - y
+	case Top:
+		return x, y
+	case Left:
+		return y, w - x
+	}
+	return y, x
+}
+
+// IsZero reports a series with no nonzero coefficient.
+func (e *EigenSide) IsZero() bool {
+	if e.constant && e.b0 != 0 {
+		return false
+	}
+	for _, b := range e.b {
+		if b != 0 {
+			return false
+		}
+	}
+	return true
+}
+
+// Text prints the series with its leading coefficients and eigenvalues as
+// decimals: sum(n=1..N, b_n*cos(mu_n*s - delta_n)*Y_n(d)), then the values.
+func (e *EigenSide) Text() string { return e.describe(false) }
+
+// LaTeX is Text as LaTeX.
+func (e *EigenSide) LaTeX() string { return e.describe(true) }
+
+func (e *EigenSide) describe(latex bool) string {
+	if e.IsZero() {
+		return "0"
+	}
+	sv, d := "x", "y"
+	if e.Side == Left || e.Side == Right {
+		sv, d = "y", "x"
+	}
+	_, w := e.along()
+	if e.Side == Bottom || e.Side == Left {
+		d = fmt.Sprintf("(%.12g - %s)", w, d)
+	}
+	var bs, mus []string
+	for n := 0; n < len(e.b) && n < 4; n++ {
+		bs, mus = append(bs, fmt.Sprintf("%.6g", e.b[n])), append(mus, fmt.Sprintf("%.9g", e.mu[n]))
+	}
+	head := ""
+	if e.constant && e.b0 != 0 {
+		head = fmt.Sprintf("%.6g*Y_0(%s) + ", e.b0, d)
+		if latex {
+			head = fmt.Sprintf(`%.6g\,Y_0(%s) + `, e.b0, d)
+		}
+	}
+	if latex {
+		return head + fmt.Sprintf(`\sum_{n=1}^{%d} b_n \cos\left(\mu_n %s - \delta_n\right) Y_n(%s),\ b_n \approx %s, \dots;\ \mu_n \approx %s, \dots`,
+			len(e.b), sv, d, strings.Join(bs, ", "), strings.Join(mus, ", "))
+	}
+	return head + fmt.Sprintf("sum(n=1..%d, b_n*cos(mu_n*%s - delta_n)*Y_n(%s)) with b_n ≈ %s, ...; mu_n ≈ %s, ...",
+		len(e.b), sv, d, strings.Join(bs, ", "), strings.Join(mus, ", "))
+}
