@@ -32,6 +32,16 @@ type Expr struct {
 	pieces []Piece
 }
 
+// Op is the node's operation: "sum" (a leaf: Leaf), "+", "*", "/", "^",
+// "series", "pieces", or a function name; later stages read the tree by it.
+func (e *Expr) Op() string { return e.op }
+
+// Args are the node's operands.
+func (e *Expr) Args() []*Expr { return e.args }
+
+// Leaf is the exact sum of a "sum" leaf.
+func (e *Expr) Leaf() Sum { return e.sum }
+
 // seriesNode is Σ_{n=from}^{∞} body(n), skipping the listed n.
 type seriesNode struct {
 	from int

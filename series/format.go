@@ -413,13 +413,20 @@ func printQuotient(c Coef, st style) string {
 		head = q.RatString() + "*"
 	}
 	text := printPoly(num, st)
+	sign := ""
+	if len(num.t) == 1 && strings.HasPrefix(text, "-") {
+		sign, text = "-", text[1:]
+	}
+	den := paren(factoredPoly(c.den, st), st)
 	switch {
 	case len(num.t) > 1:
 		text = paren(text, st)
+	case text == "1" && len(g.f) == 0 && !q.IsInt(): // a/b over den: a/(b*den)
+		return sign + q.Num().String() + "/(" + q.Denom().String() + "*" + den + ")"
 	case head != "" && text == "1":
 		head, text = head[:len(head)-1], ""
 	}
-	return head + text + "/" + paren(factoredPoly(c.den, st), st)
+	return sign + head + text + "/" + den
 }
 
 // factoredPoly prints p with the monomial common to its terms in front: pi*n*(n^2 - 4).

@@ -412,6 +412,9 @@ func (v *view) rectStages(sol *domain.Solution) {
 		if sol.Numeric {
 			trText = s.Trace.TextApprox()
 		}
+		if s.WaveTrace {
+			trText += " + (the waves' trace)"
+		}
 		tr = append(tr, s.Name+": "+trText)
 		co = append(co, s.Name+": "+s.CorrectionText()+" (in "+coord+")")
 		if t := s.HarmonicText(false); t != "0" {
@@ -426,6 +429,14 @@ func (v *view) rectStages(sol *domain.Solution) {
 	upText, upTeX := rp.Particular.Text(), sol.Particular.LaTeX()
 	if sol.Numeric {
 		upText, upTeX = rp.Particular.TextApprox(), sol.Particular.LaTeXApprox()
+	}
+	if len(rp.Waves) > 0 {
+		w, wTeX := rp.Waves.Text(), rp.Waves.LaTeX()
+		if rp.Particular.IsZero() {
+			upText, upTeX = w, wTeX
+		} else {
+			upText, upTeX = joinSigned(upText, w), joinSigned(upTeX, wTeX)
+		}
 	}
 	v.Particular = exactStage("particular", "u_p = "+upText, upTeX, "u_p")
 	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(tr, "; "), "u_p|_{\\partial}")
@@ -443,4 +454,12 @@ func (v *view) rectStages(sol *domain.Solution) {
 		}
 		v.checkScope = "; the numeric side series as summed"
 	}
+}
+
+// joinSigned is a + b, written a - b' where b prints with a leading minus.
+func joinSigned(a, b string) string {
+	if strings.HasPrefix(b, "-") {
+		return a + " - " + b[1:]
+	}
+	return a + " + " + b
 }

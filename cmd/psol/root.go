@@ -31,7 +31,14 @@ stage as an exact formula, and checks the result.`,
 
 // run executes psol with args and returns the exit status: 0 success,
 // 1 a well-formed problem with no solution as posed, 2 bad input.
-func run(args []string, stdout, stderr io.Writer) int {
+func run(args []string, stdout, stderr io.Writer) (status int) {
+	// A defect must not show the user a stack: say so, as one line, and fail.
+	defer func() {
+		if r := recover(); r != nil {
+			fmt.Fprintf(stderr, "psol: internal error (please report it with the command line): %v\n", r)
+			status = 3
+		}
+	}()
 	root := newRoot()
 	root.SetArgs(protectNegatives(args))
 	root.SetOut(stdout)

@@ -142,6 +142,52 @@ func (p Poly) AtY(b series.Coef) Poly {
 // Text prints p in psol's syntax.
 func (p Poly) Text() string { return p.text(series.Coef.Text) }
 
+// LaTeX prints p as LaTeX.
+func (p Poly) LaTeX() string {
+	if p.IsZero() {
+		return "0"
+	}
+	var b strings.Builder
+	for k, t := range p.t {
+		c := series.Const(t.c).LaTeX()
+		var vars string
+		if t.i > 0 {
+			vars += texPower("x", t.i)
+		}
+		if t.j > 0 {
+			vars += texPower("y", t.j)
+		}
+		body := c
+		switch {
+		case vars == "":
+		case c == "1":
+			body = vars
+		case c == "-1":
+			body = "-" + vars
+		case strings.ContainsAny(strings.TrimPrefix(c, "-"), "+-"):
+			body = `\left(` + c + `\right) ` + vars
+		default:
+			body = c + " " + vars
+		}
+		switch {
+		case k == 0:
+			b.WriteString(body)
+		case strings.HasPrefix(body, "-"):
+			b.WriteString(" - " + body[1:])
+		default:
+			b.WriteString(" + " + body)
+		}
+	}
+	return b.String()
+}
+
+func texPower(v string, n int) string {
+	if n == 1 {
+		return v
+	}
+	return fmt.Sprintf("%s^{%d}", v, n)
+}
+
 // TextApprox is Text with the coefficients as decimals, for numeric results.
 func (p Poly) TextApprox() string {
 	return p.text(func(c series.Coef) string { return series.Const(c).TextApprox() })

@@ -211,6 +211,7 @@ type CompiledSide struct {
 	from            int
 	flux, insulated bool
 	b0              float64
+	zero            bool // no term: the side's correction vanishes
 }
 
 // Compile fixes parameters for evaluation.
@@ -228,7 +229,8 @@ func (s SideSeries) Compile(env series.Env) (*CompiledSide, error) {
 	fam := s.family()
 	slope, _ := fam.Slope.Float64()
 	offset, _ := fam.Offset.Float64()
-	cs := &CompiledSide{side: s.Side, b: b, l: lf, w: wf, sin: fam.Sin, slope: slope, offset: offset, from: fam.From, flux: s.Flux, insulated: s.Insulated}
+	cs := &CompiledSide{side: s.Side, b: b, l: lf, w: wf, sin: fam.Sin, slope: slope, offset: offset, from: fam.From, flux: s.Flux, insulated: s.Insulated,
+		zero: s.B.IsZero() && (s.B0 == nil || s.B0.IsZero())}
 	if s.B0 != nil {
 		if cs.b0, err = s.B0.Float(env); err != nil {
 			return nil, err
@@ -278,6 +280,9 @@ func (c *CompiledSide) coef(n int) float64 {
 
 // At sums the series at (x, y) until n·|term bound| < tol·max(1, |sum|), at most maxTerms.
 func (c *CompiledSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
+	if c.zero {
+		return 0, 0
+	}
 	s, d := c.local(x, y)
 	quiet := 0
 	tail = math.Inf(1)
@@ -309,6 +314,9 @@ func (c *CompiledSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
 // Integral is ∬ over the rectangle: Σ b_n · ℓ(1 − (−1)^n)/(nπ) · (ℓ/(nπ)) tanh(nπw/(2ℓ)),
 // since ∫_0^w sinh(kd)/sinh(kw) dd = (cosh(kw) − 1)/(k sinh(kw)) = tanh(kw/2)/k.
 func (c *CompiledSide) Integral(tol float64, maxTerms int) float64 {
+	if c.zero {
+		return 0
+	}
 	if !c.sin || c.offset != 0 || c.flux || c.insulated {
 		return c.integralByQuadrature()
 	}

@@ -136,13 +136,9 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 	case source.IsPiecewise():
 		return nil, unsupported("a source given piece by piece (cond ? a : b) is not supported; pieces are for boundary data")
 	case !source.IsExact():
-		switch d.(type) {
-		case Rect:
-			return nil, unsupported("the source has a part with no closed form yet: %s (the quadrature fallback covers the polar regions so far)", source.Rest.Text())
-		default: // the quadrature fallback takes the part with no closed form
-			if source.Rest.HasSeries() {
-				return nil, unsupported("a source given as an infinite series is not taken by the quadrature fallback: %s", source.Rest.Text())
-			}
+		// The rectangle's wave ansatz or the quadrature fallback takes the part with no closed form.
+		if source.Rest.HasSeries() {
+			return nil, unsupported("a source given as an infinite series is not taken by the quadrature fallback: %s", source.Rest.Text())
 		}
 	}
 	if opt.NumericSource && source.IsExact() {

@@ -32,7 +32,10 @@ func (d Rect) Contains(r, theta float64, env series.Env) (bool, error) {
 // RectParts are a rectangle's stages in x and y.
 type RectParts struct {
 	Particular cart.Poly
-	Sides      []RectSide
+	Waves      cart.Waves // the particular solution's exponential and trigonometric part
+	// SourceWaves is the source's part that the waves solve.
+	SourceWaves cart.Waves
+	Sides       []RectSide
 }
 
 // RectSide is one side's trace, correction and harmonic series: exact
@@ -46,12 +49,16 @@ type RectSide struct {
 	Correction cart.Poly // Data − Trace, when Data is a polynomial
 	Series     *cart.SideSeries
 	Eigen      *cart.EigenSide
+	WaveTrace  bool // the trace has a part from the waves (numeric)
 	data       sideData
 }
 
 // CorrectionText is the correction, or how it is formed from data that are
 // no polynomial (g, as given).
 func (s RectSide) CorrectionText() string {
+	if s.WaveTrace {
+		return "g - (" + s.Trace.TextApprox() + ") - (the waves' trace)"
+	}
 	if s.data.poly == nil {
 		return "g - (" + s.Trace.TextApprox() + ")"
 	}
@@ -173,7 +180,21 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 	}
 	f, err := cart.FromPolar(p.f)
 	if err != nil {
-		return nil, unsupported("on the rectangle the source must be a polynomial in x and y so far, not %s", p.f.Text())
+		return nil, unsupported("on the rectangle the source must be a polynomial in x and y, or exponentials and trigonometric functions of them, so far; not %s", p.f.Text())
+	}
+	// The source's exponentials and trigonometric functions: the wave ansatz.
+	var waves, waveSource cart.Waves
+	if p.rest != nil {
+		src, err := cart.FromExpr(p.rest)
+		if err != nil {
+			return nil, unsupported("the source part %s has no closed form on the rectangle yet: %v", p.rest.Text(), err)
+		}
+		var poly cart.Poly
+		if waves, poly, err = src.Particular(); err != nil {
+			return nil, unsupported("the source part %s: %v", p.rest.Text(), err)
+		}
+		f = f.Add(poly)
+		waveSource = src.Add(cart.Waves{{Cos: poly.Scale(series.IntCoef(-1))}})
 	}
 	L, errL := d.L.Float(p.env)
 	H, errH := d.H.Float(p.env)
@@ -200,9 +221,18 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 			return cf.At(math.Hypot(x, y), math.Atan2(y, x))
 		}, text: cond.G.Text()}
 	}
-	up := withCornerFit(cart.Particular(f, d.L), d, data, p.conds, p.env)
-	parts := &RectParts{Particular: up}
-	sol := &Solution{Domain: d, Source: p.f, Rect: parts}
+	var wt *waveTraces
+	if len(waves) > 0 {
+		if errL != nil || errH != nil {
+			return nil, unsupported("a source with exponentials or trigonometric functions on the rectangle needs its sides' values (--let)")
+		}
+		if wt, err = newWaveTraces(waves, p.env, L, H); err != nil {
+			return nil, err
+		}
+	}
+	up := withCornerFit(cart.Particular(f, d.L), d, data, p.conds, p.env, wt)
+	parts := &RectParts{Particular: up, Waves: waves, SourceWaves: waveSource}
+	sol := &Solution{Domain: d, Source: p.f, Rect: parts, Rest: p.rest}
 	if sol.Particular, err = toPolar(up); err != nil {
 		return nil, err
 	}
@@ -213,7 +243,11 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		cond := p.conds[name]
 		tr := d.trace(name, cond, up)
 		side := RectSide{Name: name, DataText: data[name].text, Trace: tr, data: data[name]}
-		if g := data[name].poly; g != nil && exactKind(name) && exactKind(geo.start) && exactKind(geo.end) && exactKind(geo.away) {
+		waveTrace := wt.on(d, name, cond, p.env)
+		if waveTrace != nil {
+			side.WaveTrace = true
+		}
+		if g := data[name].poly; g != nil && waveTrace == nil && exactKind(name) && exactKind(geo.start) && exactKind(geo.end) && exactKind(geo.away) {
 			side.Data, side.Correction = *g, g.Sub(tr)
 			ser, err := sideSeries(geo.side, side.Correction, geo.length, d, p.conds[geo.start].Kind == Neumann, p.conds[geo.end].Kind == Neumann, cond.Kind == Neumann, p.conds[geo.away].Kind == Neumann)
 			if err != nil {
@@ -228,9 +262,29 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 				side.Data, side.Correction = *g, g.Sub(tr)
 			}
 			g, env := data[name], p.env
+			trace := func(s float64) float64 {
+				v, _ := tr.Eval(s, s, env)
+				if waveTrace != nil {
+					v += waveTrace(s)
+				}
+				return v
+			}
+			correction := func(s float64) float64 { return g.at(s, env) - trace(s) }
+			size := func(s float64) float64 { // what the correction is the difference of
+				v, _ := tr.Eval(s, s, env)
+				if waveTrace != nil {
+					v = math.Abs(v) + math.Abs(waveTrace(s))
+				}
+				return math.Abs(v) + math.Abs(g.at(s, env))
+			}
+			if negligible(correction, size, geo.length, env) { // data and trace agree: no series
+				side.Correction = cart.Poly{}
+				parts.Sides = append(parts.Sides, side)
+				sol.Sides = append(sol.Sides, Side{Condition: cond, DataText: data[name].text, DataLaTeX: data[name].text})
+				continue
+			}
 			es := &cart.EigenSide{Side: geo.side, L: L, H: H, Start: endOf(p.conds[geo.start], env), End: endOf(p.conds[geo.end], env),
-				Opposite: endOf(p.conds[geo.away], env), Own: endOf(cond, env),
-				Data: func(s float64) float64 { v, _ := tr.Eval(s, s, env); return g.at(s, env) - v }}
+				Opposite: endOf(p.conds[geo.away], env), Own: endOf(cond, env), Data: correction}
 			if err := es.Prepare(); err != nil {
 				return nil, unsolvable("on %s: %v", name, err)
 			}
@@ -245,6 +299,13 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 	res := up.Laplacian().Sub(f)
 	resPolar, _ := toPolar(res)
 	sol.Checks = []Check{{Name: "lap(u) - f", Exact: true, Residual: resPolar}}
+	if len(waves) > 0 { // Δ of the waves less the source's waves, reduced exactly
+		check := Check{Name: "lap(u_p) - f (exponential and trigonometric part)", Exact: true}
+		if left := waves.Laplacian().Add(waveSource.Scale(cart.Monomial(series.IntCoef(-1), 0, 0))); len(left) > 0 {
+			check.Exact, check.Numeric = false, math.Inf(1)
+		}
+		sol.Checks = append(sol.Checks, check)
+	}
 	sol.rectEnv = p.env
 	if ev, err := sol.Compile(p.env, p.tol, 1<<14); err == nil { // numeric parameters: sample the sides
 		ev.walls = nil // sum the series on the sides themselves: the check must not read the data back
@@ -360,7 +421,7 @@ var rectCorners = []struct {
 // takes the mean of their data. w is the first solution of the corner
 // conditions in the harmonics 1, x, y, xy, x² − y², … (up to degree 4): for
 // values on all four sides, the bilinear interpolant of the corner values.
-func withCornerFit(up cart.Poly, d Rect, data map[string]sideData, conds map[string]Condition, env series.Env) cart.Poly {
+func withCornerFit(up cart.Poly, d Rect, data map[string]sideData, conds map[string]Condition, env series.Env, wt *waveTraces) cart.Poly {
 	basis := cart.Harmonics(4)
 	var rows [][]series.Coef
 	var rhs []series.Coef
@@ -393,7 +454,16 @@ func withCornerFit(up cart.Poly, d Rect, data map[string]sideData, conds map[str
 		for _, b := range basis {
 			r = append(r, at(b))
 		}
-		return r, g.Sub(at(up))
+		v := g.Sub(at(up))
+		if tr := wt.on(d, name, conds[name], env); tr != nil {
+			l, _ := d.geometry(name).length.Float(env)
+			s := 0.0
+			if atEnd {
+				s = l
+			}
+			v = v.Sub(decimal(tr(s)))
+		}
+		return r, v
 	}
 	for _, c := range rectCorners {
 		ga, gb := d.cornerData(c.a, data[c.a], c.aEnd, env), d.cornerData(c.b, data[c.b], c.bEnd, env)
@@ -491,4 +561,70 @@ func cornerWarnings(d Rect, data map[string]sideData, sol *Solution, conds map[s
 			sol.Notes = append(sol.Notes, fmt.Sprintf("the data disagree at the corner %s: %s gives %s, %s gives %s (a jump of %s)", c.where, c.a, text(va), c.b, text(vb), text(vb.Sub(va))))
 		}
 	}
+}
+
+// waveTraces evaluates the particular solution's waves and their gradient.
+type waveTraces struct {
+	u, ux, uy *cart.CompiledWaves
+	L, H      float64
+}
+
+func newWaveTraces(w cart.Waves, env series.Env, L, H float64) (*waveTraces, error) {
+	u, err := w.Compile(env)
+	if err != nil {
+		return nil, err
+	}
+	ux, err := w.DX().Compile(env)
+	if err != nil {
+		return nil, err
+	}
+	uy, err := w.DY().Compile(env)
+	return &waveTraces{u: u, ux: ux, uy: uy, L: L, H: H}, err
+}
+
+// on is the side's operator on the waves as a function of the side's
+// coordinate, or nil where it vanishes on the side (to rounding, at many
+// points), so that the side keeps an exact series.
+func (wt *waveTraces) on(d Rect, name string, cond Condition, env series.Env) func(s float64) float64 {
+	if wt == nil {
+		return nil
+	}
+	geo := d.geometry(name)
+	normal := map[string][2]float64{"left": {-1, 0}, "right": {1, 0}, "bottom": {0, -1}, "top": {0, 1}}[name]
+	h, _ := cond.H.Float(env)
+	fn := func(s float64) float64 {
+		x, y := geo.point(s, wt.L, wt.H)
+		v := wt.u.At(x, y)
+		if cond.Kind == Dirichlet {
+			return v
+		}
+		dn := normal[0]*wt.ux.At(x, y) + normal[1]*wt.uy.At(x, y)
+		if cond.Kind == Robin {
+			dn += h * v
+		}
+		return dn
+	}
+	l, _ := geo.length.Float(env)
+	worst, scale := 0.0, 0.0
+	for k := 0; k <= 64; k++ {
+		x, y := geo.point(l*float64(k)/64, wt.L, wt.H)
+		worst = math.Max(worst, math.Abs(fn(l*float64(k)/64)))
+		scale = math.Max(scale, math.Abs(wt.u.At(x, y))+math.Hypot(wt.ux.At(x, y), wt.uy.At(x, y))*math.Max(wt.L, wt.H))
+	}
+	if worst <= 1e-14*math.Max(scale, 1e-300) {
+		return nil
+	}
+	return fn
+}
+
+// negligible reports a correction below rounding at 65 points of the side,
+// relative to the size of the terms it is the difference of.
+func negligible(correction, size func(float64) float64, length series.Coef, env series.Env) bool {
+	l, _ := length.Float(env)
+	worst, scale := 0.0, 0.0
+	for k := 0; k <= 64; k++ {
+		s := l * float64(k) / 64
+		worst, scale = math.Max(worst, math.Abs(correction(s))), math.Max(scale, size(s))
+	}
+	return worst <= 1e-13*scale
 }

@@ -8,6 +8,7 @@ import (
 
 	"psol/ansatz"
 	"psol/series"
+	"psol/series/cart"
 )
 
 // Sector is the region r < R, 0 < θ < Alpha, with Alpha a rational multiple of π.
@@ -524,9 +525,10 @@ type Evaluator struct {
 	max     int
 	rim     *compiledRim
 	rect    []rectSeries
-	walls   *rectWalls         // a rectangle's side data, exact on the sides themselves
-	quad    *ansatz.Quadrature // a numeric particular solution, evaluated beside the rest
-	dataErr float64            // what numeric traces bring to every value
+	walls   *rectWalls          // a rectangle's side data, exact on the sides themselves
+	quad    *ansatz.Quadrature  // a numeric particular solution, evaluated beside the rest
+	waves   *cart.CompiledWaves // a rectangle's exponential and trigonometric particular part
+	dataErr float64             // what numeric traces bring to every value
 }
 
 // rectWalls holds a rectangle's Dirichlet data in the side coordinates.
@@ -590,9 +592,11 @@ func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluato
 			return nil, err
 		}
 		for _, side := range s.Rect.Sides {
-			if side.Eigen != nil {
+			switch {
+			case side.Eigen != nil:
 				e.rect = append(e.rect, side.Eigen)
-			} else {
+			case side.Series == nil: // no correction on this side
+			default:
 				cs, err := side.Series.Compile(env)
 				if err != nil {
 					return nil, err
@@ -605,6 +609,11 @@ func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluato
 			}
 		}
 		e.walls = w
+		if len(s.Rect.Waves) > 0 {
+			if e.waves, err = s.Rect.Waves.Compile(env); err != nil {
+				return nil, err
+			}
+		}
 	}
 	if s.rim != nil {
 		if e.rim, err = s.rim.compile(s.Particular, env); err != nil {
@@ -866,7 +875,7 @@ func (e *Evaluator) atXYTail(x, y float64) (u, tail float64) {
 	if v, ok := e.walls.on(x, y); ok {
 		return v, 0
 	}
-	u = e.closed.At(math.Hypot(x, y), math.Atan2(y, x))
+	u = e.closed.At(math.Hypot(x, y), math.Atan2(y, x)) + e.waves.At(x, y)
 	for _, s := range e.rect {
 		v, t := s.At(x, y, e.tol, e.max)
 		u, tail = u+v, tail+t
