@@ -430,6 +430,14 @@ func (v *view) rectStages(sol *domain.Solution) {
 	if sol.Numeric {
 		upText, upTeX = rp.Particular.TextApprox(), sol.Particular.LaTeXApprox()
 	}
+	if rp.Quadrature != nil {
+		q := "quadrature(" + rp.QuadratureSource.Text() + ")"
+		if upText == "0" {
+			upText, upTeX = q, "u_q"
+		} else {
+			upText, upTeX = upText+" + "+q, upTeX+" + u_q"
+		}
+	}
 	if len(rp.Waves) > 0 {
 		w, wTeX := rp.Waves.Text(), rp.Waves.LaTeX()
 		if rp.Particular.IsZero() {

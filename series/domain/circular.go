@@ -503,7 +503,7 @@ func quadratureCheck(d Domain, sol *Solution, env series.Env) Check {
 		// A polar stencil: its points share five radii, and the quadrature
 		// evaluates every mode of a radius at once.
 		r, th := p[0], p[1]
-		h := 1e-2 * r
+		h := 3e-3 * r
 		centre := u(r, th)
 		lap := func(h float64) float64 {
 			k := h / r

@@ -53,6 +53,8 @@ type posed struct {
 	tol     float64
 	numeric bool
 	rest    *series.Expr // the source's part with no closed form, for quadrature
+	// forceQuadrature keeps rest from any ansatz (Options.NumericSource).
+	forceQuadrature bool
 }
 
 // Side is what one boundary part contributes: the condition, the particular
@@ -144,7 +146,7 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 	if opt.NumericSource && source.IsExact() {
 		source = series.Field{Rest: series.ExprOf(source.Exact)}
 	}
-	p := &posed{f: source.Exact, rest: source.Rest, conds: map[string]Condition{}, env: opt.Env, tol: opt.Tol, numeric: opt.NumericData}
+	p := &posed{f: source.Exact, rest: source.Rest, conds: map[string]Condition{}, env: opt.Env, tol: opt.Tol, numeric: opt.NumericData, forceQuadrature: opt.NumericSource}
 	for _, c := range conds {
 		if _, dup := p.conds[c.Side]; dup {
 			return nil, unsupported("side %s has two conditions; give one", c.Side)

@@ -5,6 +5,7 @@ import (
 	"math"
 	"math/big"
 
+	"psol/ansatz"
 	"psol/series"
 	"psol/series/cart"
 )
@@ -35,7 +36,11 @@ type RectParts struct {
 	Waves      cart.Waves // the particular solution's exponential and trigonometric part
 	// SourceWaves is the source's part that the waves solve.
 	SourceWaves cart.Waves
-	Sides       []RectSide
+	// Quadrature is the particular solution of QuadratureSource, the part
+	// that no ansatz closes.
+	Quadrature       *ansatz.SineQuadrature
+	QuadratureSource *series.Expr
+	Sides            []RectSide
 }
 
 // RectSide is one side's trace, correction and harmonic series: exact
@@ -183,21 +188,42 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		return nil, unsupported("on the rectangle the source must be a polynomial in x and y, or exponentials and trigonometric functions of them, so far; not %s", p.f.Text())
 	}
 	// The source's exponentials and trigonometric functions: the wave ansatz.
+	// The source's exponentials and trigonometric functions: the wave ansatz,
+	// term by term; the terms it cannot close go to the quadrature fallback.
 	var waves, waveSource cart.Waves
-	if p.rest != nil {
-		src, err := cart.FromExpr(p.rest)
-		if err != nil {
-			return nil, unsupported("the source part %s has no closed form on the rectangle yet: %v", p.rest.Text(), err)
+	var rest *series.Expr
+	for _, term := range addends(p.rest) {
+		if p.forceQuadrature {
+			rest = series.Field{Rest: rest}.Add(series.Field{Rest: term}).Rest
+			continue
 		}
+		src, err := cart.FromExpr(term)
+		var u cart.Waves
 		var poly cart.Poly
-		if waves, poly, err = src.Particular(); err != nil {
-			return nil, unsupported("the source part %s: %v", p.rest.Text(), err)
+		if err == nil {
+			u, poly, err = src.Particular()
 		}
-		f = f.Add(poly)
-		waveSource = src.Add(cart.Waves{{Cos: poly.Scale(series.IntCoef(-1))}})
+		if err != nil {
+			rest = series.Field{Rest: rest}.Add(series.Field{Rest: term}).Rest
+			continue
+		}
+		waves, f = waves.Add(u), f.Add(poly)
+		waveSource = waveSource.Add(src.Add(cart.Waves{{Cos: poly.Scale(series.IntCoef(-1))}}))
 	}
 	L, errL := d.L.Float(p.env)
 	H, errH := d.H.Float(p.env)
+	var sq *ansatz.SineQuadrature
+	if rest != nil {
+		if errL != nil || errH != nil {
+			return nil, unsupported("the source part %s needs the rectangle's sides as numbers (--let)", rest.Text())
+		}
+		cf, err := series.Field{Rest: rest}.Compile(p.env)
+		if err != nil {
+			return nil, unsupported("the source %s needs every parameter's value (--let): %v", rest.Text(), err)
+		}
+		sq = &ansatz.SineQuadrature{G: func(x, y float64) float64 { return cf.At(math.Hypot(x, y), math.Atan2(y, x)) }, L: L, H: H, Tol: p.tol}
+		sq.Prepare()
+	}
 	data := map[string]sideData{}
 	for _, name := range d.Sides() {
 		cond := p.conds[name]
@@ -222,17 +248,25 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		}, text: cond.G.Text()}
 	}
 	var wt *waveTraces
-	if len(waves) > 0 {
+	if len(waves) > 0 || sq != nil {
 		if errL != nil || errH != nil {
 			return nil, unsupported("a source with exponentials or trigonometric functions on the rectangle needs its sides' values (--let)")
 		}
-		if wt, err = newWaveTraces(waves, p.env, L, H); err != nil {
+		if wt, err = newWaveTraces(waves, sq, p.env, L, H); err != nil {
 			return nil, err
 		}
 	}
 	up := withCornerFit(cart.Particular(f, d.L), d, data, p.conds, p.env, wt)
-	parts := &RectParts{Particular: up, Waves: waves, SourceWaves: waveSource}
+	parts := &RectParts{Particular: up, Waves: waves, SourceWaves: waveSource, Quadrature: sq, QuadratureSource: rest}
 	sol := &Solution{Domain: d, Source: p.f, Rect: parts, Rest: p.rest}
+	if sq != nil {
+		sol.Numeric = true
+		note := fmt.Sprintf("the source part %s has no closed form: its particular solution is by quadrature (sine transform in x with %d samples, %d modes; Gauss–Legendre in y on %d panels)", rest.Text(), sq.Samples, sq.Modes, len(sq.Panels()))
+		if !sq.Converged {
+			note += fmt.Sprintf("; the sine series converges slowly (the source is rough in x): about %.1e is neglected", sq.Truncation)
+		}
+		sol.Notes = append(sol.Notes, note)
+	}
 	if sol.Particular, err = toPolar(up); err != nil {
 		return nil, err
 	}
@@ -305,6 +339,9 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 			check.Exact, check.Numeric = false, math.Inf(1)
 		}
 		sol.Checks = append(sol.Checks, check)
+	}
+	if sq != nil {
+		sol.Checks = append(sol.Checks, sineQuadratureCheck(sq, rest, p.env, L, H))
 	}
 	sol.rectEnv = p.env
 	if ev, err := sol.Compile(p.env, p.tol, 1<<14); err == nil { // numeric parameters: sample the sides
@@ -563,13 +600,15 @@ func cornerWarnings(d Rect, data map[string]sideData, sol *Solution, conds map[s
 	}
 }
 
-// waveTraces evaluates the particular solution's waves and their gradient.
+// waveTraces evaluates the particular solution's numeric parts — the waves
+// and the quadrature — and their gradient.
 type waveTraces struct {
-	u, ux, uy *cart.CompiledWaves
-	L, H      float64
+	wu, wx, wy *cart.CompiledWaves
+	sq         *ansatz.SineQuadrature
+	L, H       float64
 }
 
-func newWaveTraces(w cart.Waves, env series.Env, L, H float64) (*waveTraces, error) {
+func newWaveTraces(w cart.Waves, sq *ansatz.SineQuadrature, env series.Env, L, H float64) (*waveTraces, error) {
 	u, err := w.Compile(env)
 	if err != nil {
 		return nil, err
@@ -579,7 +618,25 @@ func newWaveTraces(w cart.Waves, env series.Env, L, H float64) (*waveTraces, err
 		return nil, err
 	}
 	uy, err := w.DY().Compile(env)
-	return &waveTraces{u: u, ux: ux, uy: uy, L: L, H: H}, err
+	return &waveTraces{wu: u, wx: ux, wy: uy, sq: sq, L: L, H: H}, err
+}
+
+func (wt *waveTraces) value(x, y float64) float64 {
+	v := wt.wu.At(x, y)
+	if wt.sq != nil {
+		q, _ := wt.sq.At(x, y)
+		v += q
+	}
+	return v
+}
+
+func (wt *waveTraces) grad(x, y float64) (float64, float64) {
+	gx, gy := wt.wx.At(x, y), wt.wy.At(x, y)
+	if wt.sq != nil {
+		qx, qy := wt.sq.Grad(x, y)
+		gx, gy = gx+qx, gy+qy
+	}
+	return gx, gy
 }
 
 // on is the side's operator on the waves as a function of the side's
@@ -594,11 +651,12 @@ func (wt *waveTraces) on(d Rect, name string, cond Condition, env series.Env) fu
 	h, _ := cond.H.Float(env)
 	fn := func(s float64) float64 {
 		x, y := geo.point(s, wt.L, wt.H)
-		v := wt.u.At(x, y)
+		v := wt.value(x, y)
 		if cond.Kind == Dirichlet {
 			return v
 		}
-		dn := normal[0]*wt.ux.At(x, y) + normal[1]*wt.uy.At(x, y)
+		gx, gy := wt.grad(x, y)
+		dn := normal[0]*gx + normal[1]*gy
 		if cond.Kind == Robin {
 			dn += h * v
 		}
@@ -609,7 +667,8 @@ func (wt *waveTraces) on(d Rect, name string, cond Condition, env series.Env) fu
 	for k := 0; k <= 64; k++ {
 		x, y := geo.point(l*float64(k)/64, wt.L, wt.H)
 		worst = math.Max(worst, math.Abs(fn(l*float64(k)/64)))
-		scale = math.Max(scale, math.Abs(wt.u.At(x, y))+math.Hypot(wt.ux.At(x, y), wt.uy.At(x, y))*math.Max(wt.L, wt.H))
+		gx, gy := wt.grad(x, y)
+		scale = math.Max(scale, math.Abs(wt.value(x, y))+math.Hypot(gx, gy)*math.Max(wt.L, wt.H))
 	}
 	if worst <= 1e-14*math.Max(scale, 1e-300) {
 		return nil
@@ -627,4 +686,39 @@ func negligible(correction, size func(float64) float64, length series.Coef, env 
 		worst, scale = math.Max(worst, math.Abs(correction(s))), math.Max(scale, size(s))
 	}
 	return worst <= 1e-13*scale
+}
+
+// addends are the terms of a remainder's top-level sum.
+func addends(e *series.Expr) []*series.Expr {
+	if e == nil {
+		return nil
+	}
+	if e.Op() == "+" {
+		return append(addends(e.Args()[0]), addends(e.Args()[1])...)
+	}
+	return []*series.Expr{e}
+}
+
+// sineQuadratureCheck is the largest |Δu_q − f_q| of the numeric particular
+// part at interior points, by the five-point Laplacian with one Richardson
+// step: an independent look at the quadrature.
+func sineQuadratureCheck(sq *ansatz.SineQuadrature, rest *series.Expr, env series.Env, L, H float64) Check {
+	out := Check{Name: "lap(u_q) - f_q (sampled, the numeric part)"}
+	fc, err := series.Field{Rest: rest}.Compile(env)
+	if err != nil {
+		return out
+	}
+	u := func(x, y float64) float64 { v, _ := sq.At(x, y); return v }
+	for i := 1; i <= 3; i++ {
+		for j := 1; j <= 3; j++ {
+			x, y := L*float64(i)/4, H*float64(j)/4
+			h := 3e-3 * math.Min(L, H)
+			lap := func(h float64) float64 {
+				return (u(x+h, y) + u(x-h, y) + u(x, y+h) + u(x, y-h) - 4*u(x, y)) / (h * h)
+			}
+			fd := (4*lap(h/2) - lap(h)) / 3
+			out.Numeric = math.Max(out.Numeric, math.Abs(fd-fc.At(math.Hypot(x, y), math.Atan2(y, x))))
+		}
+	}
+	return out
 }

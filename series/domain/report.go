@@ -110,6 +110,15 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 			}
 			rep.SourceExact = nil
 		}
+		if q := s.Rect.Quadrature; q != nil {
+			L, _ := d.L.Float(env)
+			H, _ := d.H.Float(env)
+			rep.Integral += integrateRect(func(x, y float64) float64 { v, _ := q.At(x, y); return v }, L, H)
+			if fc, err := (series.Field{Rest: s.Rect.QuadratureSource}).Compile(env); err == nil {
+				rep.Source += integrateRect(func(x, y float64) float64 { return fc.At(math.Hypot(x, y), math.Atan2(y, x)) }, L, H)
+			}
+			rep.SourceExact = nil
+		}
 		if rep.Flux, err = rectFlux(d, ev, env); err != nil {
 			return nil, err
 		}

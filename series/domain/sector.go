@@ -525,10 +525,11 @@ type Evaluator struct {
 	max     int
 	rim     *compiledRim
 	rect    []rectSeries
-	walls   *rectWalls          // a rectangle's side data, exact on the sides themselves
-	quad    *ansatz.Quadrature  // a numeric particular solution, evaluated beside the rest
-	waves   *cart.CompiledWaves // a rectangle's exponential and trigonometric particular part
-	dataErr float64             // what numeric traces bring to every value
+	walls   *rectWalls             // a rectangle's side data, exact on the sides themselves
+	quad    *ansatz.Quadrature     // a numeric particular solution, evaluated beside the rest
+	waves   *cart.CompiledWaves    // a rectangle's exponential and trigonometric particular part
+	sq      *ansatz.SineQuadrature // a rectangle's numeric particular part
+	dataErr float64                // what numeric traces bring to every value
 }
 
 // rectWalls holds a rectangle's Dirichlet data in the side coordinates.
@@ -614,6 +615,7 @@ func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluato
 				return nil, err
 			}
 		}
+		e.sq = s.Rect.Quadrature
 	}
 	if s.rim != nil {
 		if e.rim, err = s.rim.compile(s.Particular, env); err != nil {
@@ -876,6 +878,10 @@ func (e *Evaluator) atXYTail(x, y float64) (u, tail float64) {
 		return v, 0
 	}
 	u = e.closed.At(math.Hypot(x, y), math.Atan2(y, x)) + e.waves.At(x, y)
+	if e.sq != nil {
+		v, t := e.sq.At(x, y)
+		u, tail = u+v, tail+t
+	}
 	for _, s := range e.rect {
 		v, t := s.At(x, y, e.tol, e.max)
 		u, tail = u+v, tail+t
