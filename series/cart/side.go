@@ -279,34 +279,62 @@ func (c *CompiledSide) coef(n int) float64 {
 }
 
 // At sums the series at (x, y) until n·|term bound| < tol·max(1, |sum|), at most maxTerms.
+// The wave numbers k_n = (slope·n + offset)π/ℓ step evenly, so the across
+// factor's exponentials are running products and the sines and cosines
+// follow T_(n+1) = 2cos(Δk s)T_n − T_(n−1): a few multiplications a term.
 func (c *CompiledSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
 	if c.zero {
 		return 0, 0
 	}
 	s, d := c.local(x, y)
+	n0 := c.from
+	if n0 == 0 { // the constant mode, apart
+		sum += c.b0 * c.across(0, d)
+		n0 = 1
+	}
+	dk := c.slope * math.Pi / c.l
+	k0 := (c.slope*float64(n0) + c.offset) * math.Pi / c.l
+	// e^(−k(w−d)), e^(−2kd), e^(−2kw) at k0 and their ratios per step.
+	e, eStep := math.Exp(-k0*(c.w-d)), math.Exp(-dk*(c.w-d))
+	ed, edStep := math.Exp(-2*k0*d), math.Exp(-2*dk*d)
+	ew, ewStep := math.Exp(-2*k0*c.w), math.Exp(-2*dk*c.w)
+	trig := math.Cos
+	if c.sin {
+		trig = math.Sin
+	}
+	cur, prev, twoCos := trig(k0*s), trig((k0-dk)*s), 2*math.Cos(dk*s)
 	quiet := 0
 	tail = math.Inf(1)
-	for n := c.from; n < c.from+maxTerms; n++ {
-		k := (c.slope*float64(n) + c.offset) * math.Pi / c.l
+	k := k0
+	for n := n0; n < c.from+maxTerms; n++ {
 		b := c.coef(n)
-		if b == 0 {
-			quiet++
-			continue
-		}
-		term := b * c.across(k, d)
-		phi := math.Cos(k * s)
-		if c.sin {
-			phi = math.Sin(k * s)
-		}
-		sum += term * phi
-		tail = float64(n+1) * math.Abs(term)
-		if tail <= tol*math.Max(1, math.Abs(sum)) {
-			if quiet++; quiet >= 4 {
-				break
+		if b != 0 {
+			var across float64
+			switch sh, ch, shw, chw := 1-ed, 1+ed, 1-ew, 1+ew; {
+			case c.insulated && c.flux:
+				across = e * ch / (k * shw)
+			case c.insulated:
+				across = e * ch / chw
+			case c.flux:
+				across = e * sh / (k * chw)
+			default:
+				across = e * sh / shw
+			}
+			term := b * across
+			sum += term * cur
+			tail = float64(n+1) * math.Abs(term)
+			if tail <= tol*math.Max(1, math.Abs(sum)) {
+				if quiet++; quiet >= 4 {
+					break
+				}
+			} else {
+				quiet = 0
 			}
 		} else {
-			quiet = 0
+			quiet++
 		}
+		e, ed, ew, k = e*eStep, ed*edStep, ew*ewStep, k+dk
+		cur, prev = twoCos*cur-prev, cur
 	}
 	return sum, tail
 }

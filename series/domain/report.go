@@ -82,38 +82,27 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 		}
 	case Rect:
 		rep.Area = d.L.Mul(d.H)
-		_, v, err := sub(rectIntegral(s.Rect.Particular, d))
-		if err != nil {
+		if rep.Integral, err = s.rectAreaIntegral(ev, env, tol); err != nil {
 			return nil, err
-		}
-		rep.Integral = v
-		for _, side := range ev.rect {
-			rep.Integral += side.Integral(tol, 1<<20)
 		}
 		if f, err := cart.FromPolar(s.Source); err == nil {
 			if c, v, err := sub(rectIntegral(f, d)); err == nil {
 				rep.SourceExact, rep.Source = &c, v
 			}
 		}
-		if len(s.Rect.Waves) > 0 { // the waves' share, by a tensor Gauss–Legendre rule
+		if len(s.Rect.Waves) > 0 { // the waves' share of the source, by a tensor Gauss–Legendre rule
 			L, _ := d.L.Float(env)
 			H, _ := d.H.Float(env)
-			for _, part := range []struct {
-				w   cart.Waves
-				dst *float64
-			}{{s.Rect.Waves, &rep.Integral}, {s.Rect.SourceWaves, &rep.Source}} {
-				cw, err := part.w.Compile(env)
-				if err != nil {
-					return nil, err
-				}
-				*part.dst += integrateRect(cw.At, L, H)
+			cw, err := s.Rect.SourceWaves.Compile(env)
+			if err != nil {
+				return nil, err
 			}
+			rep.Source += integrateRect(cw.At, L, H)
 			rep.SourceExact = nil
 		}
-		if q := s.Rect.Quadrature; q != nil {
+		if s.Rect.Quadrature != nil {
 			L, _ := d.L.Float(env)
 			H, _ := d.H.Float(env)
-			rep.Integral += integrateRect(func(x, y float64) float64 { v, _ := q.At(x, y); return v }, L, H)
 			if fc, err := (series.Field{Rest: s.Rect.QuadratureSource}).Compile(env); err == nil {
 				rep.Source += integrateRect(func(x, y float64) float64 { return fc.At(math.Hypot(x, y), math.Atan2(y, x)) }, L, H)
 			}
@@ -381,4 +370,45 @@ func integrateRect(f func(x, y float64) float64, L, H float64) float64 {
 		}
 	}
 	return total * L * H / (4 * panels * panels)
+}
+
+// AreaIntegral is ∬ u dA over a rectangle: the polynomial part exactly, the
+// side series term by term, the waves and the quadrature by a tensor rule.
+func (s *Solution) AreaIntegral(env series.Env, tol float64) (float64, error) {
+	if s.Rect == nil {
+		rep, err := s.Report(env, tol)
+		if err != nil {
+			return 0, err
+		}
+		return rep.Integral, nil
+	}
+	ev, err := s.Compile(env, tol, 1<<13)
+	if err != nil {
+		return 0, err
+	}
+	return s.rectAreaIntegral(ev, env, tol)
+}
+
+func (s *Solution) rectAreaIntegral(ev *Evaluator, env series.Env, tol float64) (float64, error) {
+	d := s.Domain.(Rect)
+	c, err := rectIntegral(s.Rect.Particular, d).Subst(env)
+	if err != nil {
+		return 0, err
+	}
+	total, err := c.Float(env)
+	if err != nil {
+		return 0, err
+	}
+	for _, side := range ev.rect {
+		total += side.Integral(tol, 1<<20)
+	}
+	L, _ := d.L.Float(env)
+	H, _ := d.H.Float(env)
+	if ev.waves != nil {
+		total += integrateRect(ev.waves.At, L, H)
+	}
+	if q := s.Rect.Quadrature; q != nil {
+		total += integrateRect(func(x, y float64) float64 { v, _ := q.At(x, y); return v }, L, H)
+	}
+	return total, nil
 }
