@@ -18,11 +18,11 @@ type Lang struct {
 
 // Langs are the languages psol writes code in.
 var Langs = map[string]Lang{
-	"go": {Name: "go", Fn: map[string]string{"cos": "math.Cos", "sin": "math.Sin", "log": "math.Log", "pow": "math.Pow", "sqrt": "math.Sqrt"},
+	"go": {Name: "go", Fn: map[string]string{"cos": "math.Cos", "sin": "math.Sin", "log": "math.Log", "pow": "math.Pow", "sqrt": "math.Sqrt", "exp": "math.Exp"},
 		Pi: "math.Pi", Float: func(s string) string { return s }},
-	"c": {Name: "c", Fn: map[string]string{"cos": "cos", "sin": "sin", "log": "log", "pow": "pow", "sqrt": "sqrt"},
+	"c": {Name: "c", Fn: map[string]string{"cos": "cos", "sin": "sin", "log": "log", "pow": "pow", "sqrt": "sqrt", "exp": "exp"},
 		Pi: "M_PI", Float: func(s string) string { return s }},
-	"python": {Name: "python", Fn: map[string]string{"cos": "math.cos", "sin": "math.sin", "log": "math.log", "pow": "math.pow", "sqrt": "math.sqrt"},
+	"python": {Name: "python", Fn: map[string]string{"cos": "math.cos", "sin": "math.sin", "log": "math.log", "pow": "math.pow", "sqrt": "math.sqrt", "exp": "math.exp"},
 		Pi: "math.pi", Float: func(s string) string { return s }},
 }
 

@@ -20,7 +20,7 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 		return usagef("--lang %q: choose go, c or python", lang)
 	}
 	if sol.Rect != nil {
-		return &domain.Unsupported{Reason: "generated code for the rectangle's series is not written yet"}
+		return writeRectCode(w, l, pr, sol, terms)
 	}
 	closed := sol.U
 	var parts []series.Series
@@ -56,7 +56,7 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 		params = append(params, p)
 	}
 	sort.Strings(params)
-	g := codeGen{l: l, params: params, closed: closed.Code(l), parts: parts, terms: terms}
+	g := codeGen{l: l, vars: []string{"r", "theta"}, params: params, closed: closed.Code(l), parts: parts, terms: terms}
 	fmt.Fprintf(w, "%s psol %s: %s\n", g.comment(), version, sol.Formula(false))
 	if len(parts) > 0 {
 		fmt.Fprintf(w, "%s The series are summed to n = %d.\n", g.comment(), terms)
@@ -82,17 +82,27 @@ func substSeries(s series.Series, env series.Env) (series.Series, error) {
 
 type codeGen struct {
 	l      series.Lang
+	vars   []string // the function's coordinates: r, theta or x, y
 	params []string
 	closed string
 	parts  []series.Series
-	terms  int
+	// loops are further series as (first n, term code), and extra plain terms.
+	loops []codeLoop
+	extra []string
+	terms int
+}
+
+type codeLoop struct {
+	from int
+	term string
 }
 
 // codeShape is how one language spells the function psol writes: a closed
 // part, then a loop per series with its exceptional terms.
 type codeShape struct {
 	comment string
-	header  func(params []string, closed string) string
+	header  func(vars, params []string, closed string) string
+	add     string // format: a term added outside any loop
 	loop    func(from, to int) string
 	skip    string // format: index, exceptional term
 	term    string // format: general term
@@ -102,13 +112,11 @@ type codeShape struct {
 var codeShapes = map[string]codeShape{
 	"go": {
 		comment: "//",
-		header: func(params []string, closed string) string {
-			args := "r, theta float64"
-			if len(params) > 0 {
-				args += ", " + strings.Join(params, ", ") + " float64"
-			}
+		header: func(vars, params []string, closed string) string {
+			args := strings.Join(append(vars, params...), ", ") + " float64"
 			return fmt.Sprintf("// It needs: import \"math\"\nfunc U(%s) float64 {\n\tu := %s\n", args, closed)
 		},
+		add:  "\tu += %s\n",
 		loop: func(from, to int) string { return fmt.Sprintf("\tfor n := %d.0; n <= %d; n++ {\n", from, to) },
 		skip: "\t\tif n == %d {\n\t\t\tu += %s\n\t\t\tcontinue\n\t\t}\n",
 		term: "\t\tu += %s\n\t}\n",
@@ -116,13 +124,14 @@ var codeShapes = map[string]codeShape{
 	},
 	"c": {
 		comment: "//",
-		header: func(params []string, closed string) string {
-			args := []string{"double r", "double theta"}
-			for _, p := range params {
+		header: func(vars, params []string, closed string) string {
+			var args []string
+			for _, p := range append(vars, params...) {
 				args = append(args, "double "+p)
 			}
 			return fmt.Sprintf("#include <math.h>\n\ndouble u(%s) {\n\tdouble u = %s;\n", strings.Join(args, ", "), closed)
 		},
+		add:  "\tu += %s;\n",
 		loop: func(from, to int) string { return fmt.Sprintf("\tfor (double n = %d; n <= %d; n++) {\n", from, to) },
 		skip: "\t\tif (n == %d) { u += %s; continue; }\n",
 		term: "\t\tu += %s;\n\t}\n",
@@ -130,10 +139,11 @@ var codeShapes = map[string]codeShape{
 	},
 	"python": {
 		comment: "#",
-		header: func(params []string, closed string) string {
-			args := append([]string{"r", "theta"}, params...)
+		header: func(vars, params []string, closed string) string {
+			args := append(vars, params...)
 			return fmt.Sprintf("import math\n\n\ndef u(%s):\n    u = %s\n", strings.Join(args, ", "), closed)
 		},
+		add: "    u += %s\n",
 		loop: func(from, to int) string {
 			return fmt.Sprintf("    for k in range(%d, %d):\n        n = float(k)\n", from, to+1)
 		},
@@ -148,7 +158,10 @@ func (g codeGen) comment() string { return codeShapes[g.l.Name].comment }
 func (g codeGen) write(w io.Writer) error {
 	shape := codeShapes[g.l.Name]
 	var b strings.Builder
-	b.WriteString(shape.header(g.params, g.closed))
+	b.WriteString(shape.header(append([]string(nil), g.vars...), g.params, g.closed))
+	for _, e := range g.extra {
+		fmt.Fprintf(&b, shape.add, e)
+	}
 	for _, p := range g.parts {
 		b.WriteString(shape.loop(p.Family.From, g.terms))
 		for _, k := range p.Skips() {
@@ -156,7 +169,56 @@ func (g codeGen) write(w io.Writer) error {
 		}
 		fmt.Fprintf(&b, shape.term, p.TermCode(g.l))
 	}
+	for _, lp := range g.loops {
+		b.WriteString(shape.loop(lp.from, g.terms))
+		fmt.Fprintf(&b, shape.term, lp.term)
+	}
 	b.WriteString(shape.end)
 	_, err := io.WriteString(w, b.String())
 	return err
+}
+
+// writeRectCode emits u(x, y, parameters...) for a rectangle: the
+// polynomial and wave parts, then a loop per side series.
+func writeRectCode(w io.Writer, l series.Lang, pr *problem, sol *domain.Solution, terms int) error {
+	rp := sol.Rect
+	if rp.Quadrature != nil {
+		return &domain.Unsupported{Reason: "generated code for a source part by quadrature is not written yet"}
+	}
+	g := codeGen{l: l, vars: []string{"x", "y"}, terms: terms}
+	used := map[string]bool{}
+	closed := rp.Particular.Code(l)
+	if len(rp.Waves) > 0 {
+		closed += " + " + rp.Waves.Code(l)
+	}
+	g.closed = closed
+	for _, s := range rp.Sides {
+		switch {
+		case s.Eigen != nil:
+			return &domain.Unsupported{Reason: "generated code for numeric side series (Robin sides, data that are no polynomial) is not written yet"}
+		case s.Series == nil || s.Correction.IsZero():
+			continue
+		}
+		if c := s.Series.ConstantCode(l); c != "" {
+			g.extra = append(g.extra, c)
+		}
+		g.loops = append(g.loops, codeLoop{from: s.Series.From(), term: s.Series.TermCode(l)})
+		s.Series.B.Params(used)
+		s.Series.L.Params(used)
+		s.Series.H.Params(used)
+	}
+	for _, t := range rp.Particular.Terms() {
+		t.C.Params(used)
+	}
+	delete(used, series.Index)
+	if len(used) > 0 {
+		var names []string
+		for p := range used {
+			names = append(names, p)
+		}
+		sort.Strings(names)
+		return &domain.Unsupported{Reason: "generated code for the rectangle needs every parameter's value (--let " + strings.Join(names, "=..., ") + "=...)"}
+	}
+	fmt.Fprintf(w, "%s psol %s: u(x, y) on %s; the side series are summed to n = %d.\n", g.comment(), version, pr.domain.Describe(), terms)
+	return g.write(w)
 }

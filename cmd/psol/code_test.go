@@ -20,16 +20,19 @@ import (
 var codeCases = []struct {
 	args []string
 	env  string // parameter values as the generated function's trailing arguments
+	xy   bool   // a rectangle: the function takes x, y (codePoints read as Cartesian)
 }{
-	{[]string{"solve", "-k*lap(u) = q*(1 + x)", "--disk", "a", "--bc", "u = Ts + cos(2theta)"}, "k=2,q=3,Ts=1,a=1.5"},
-	{[]string{"solve", "lap(u) = -2", "--sector", "1,pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--terms", "400"}, ""},
-	{[]string{"solve", "lap(u) = 0", "--disk", "1", "--bc", "u = 0 < theta < pi ? 1 : 0", "--terms", "400"}, ""},
+	{[]string{"solve", "lap(u) = -1", "--rect", "1,1/2", "--bc", "left: u = 0", "--bc", "right: u = 0", "--bc", "bottom: u = 0", "--bc", "top: dn(u) = 0", "--terms", "400"}, "", true},
+	{[]string{"solve", "lap(u) = sin(pi*x)*sin(pi*y) - x*y", "--rect", "1,2", "--bc", "left: u = y", "--bc", "right: u = 0", "--bc", "bottom: u = 0", "--bc", "top: u = 2 - 2x", "--terms", "400"}, "", true},
+	{[]string{"solve", "-k*lap(u) = q*(1 + x)", "--disk", "a", "--bc", "u = Ts + cos(2theta)"}, "k=2,q=3,Ts=1,a=1.5", false},
+	{[]string{"solve", "lap(u) = -2", "--sector", "1,pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--terms", "400"}, "", false},
+	{[]string{"solve", "lap(u) = 0", "--disk", "1", "--bc", "u = 0 < theta < pi ? 1 : 0", "--terms", "400"}, "", false},
 }
 
-var codePoints = [][2]float64{{0.3, 0.4}, {0.6, 1.1}, {0.2, 1.4}}
+var codePoints = [][2]float64{{0.3, 0.4}, {0.6, 0.1}, {0.2, 0.45}} // inside every case (as r, theta or as x, y)
 
 // psolValues evaluates the same problems in-process, for comparison.
-func psolValues(t *testing.T, args []string, env string) []float64 {
+func psolValues(t *testing.T, args []string, env string, xy bool) []float64 {
 	o := &solveOptions{tol: 1e-13, terms: 1 << 20}
 	cmd := newSolveCmd()
 	if err := cmd.Flags().Parse(args[2:]); err != nil {
@@ -58,7 +61,11 @@ func psolValues(t *testing.T, args []string, env string) []float64 {
 	}
 	var out []float64
 	for _, p := range codePoints {
-		v, _, _ := ev.At(p[0], p[1])
+		r, th := p[0], p[1]
+		if xy {
+			r, th = math.Hypot(p[0], p[1]), math.Atan2(p[1], p[0])
+		}
+		v, _, _ := ev.At(r, th)
 		out = append(out, v)
 	}
 	return out
@@ -118,7 +125,7 @@ func parseOutput(t *testing.T, out []byte) []float64 {
 func TestGeneratedCode(t *testing.T) {
 	dir := t.TempDir()
 	for i, c := range codeCases {
-		want := psolValues(t, c.args, c.env)
+		want := psolValues(t, c.args, c.env, c.xy)
 		runners := map[string]func(src string) ([]byte, error){
 			"go": func(src string) ([]byte, error) {
 				var calls strings.Builder
