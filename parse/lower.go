@@ -73,6 +73,9 @@ func (lw *lowerer) choice(c *choice) (value, error) {
 		return lw.additive(c.Cond.Left)
 	}
 	lo, hi, err := lw.interval(c.Cond)
+	if errors.Is(err, errNotInterval) {
+		return lw.numericChoice(c)
+	}
 	if err != nil {
 		return value{}, err
 	}
@@ -90,6 +93,43 @@ func (lw *lowerer) choice(c *choice) (value, error) {
 	return value{f: series.Piecewise(lo, hi, a.f, b.f)}, nil
 }
 
+// errNotInterval marks a condition without θ (x < 1/2, r > 1): it is
+// evaluated numerically instead of as exact pieces in θ.
+var errNotInterval = errors.New("not an interval of theta")
+
+// numericChoice is cond ? a : b with a condition without θ (x < 1/2,
+// r > 1): a remainder evaluated in float64.
+func (lw *lowerer) numericChoice(c *choice) (value, error) {
+	sides := []*additive{c.Cond.Left}
+	var ops []string
+	for _, t := range c.Cond.Rest {
+		sides, ops = append(sides, t.Right), append(ops, t.Op)
+	}
+	var fields []series.Field
+	for _, sd := range sides {
+		v, err := lw.additive(sd)
+		if err != nil {
+			return value{}, err
+		}
+		if v.hasUnknown() {
+			return value{}, lw.fail(sd.Pos, "u may not appear in a condition")
+		}
+		fields = append(fields, v.f)
+	}
+	a, err := lw.choice(c.Then)
+	if err != nil {
+		return value{}, err
+	}
+	b, err := lw.choice(c.Else)
+	if err != nil {
+		return value{}, err
+	}
+	if a.hasUnknown() || b.hasUnknown() {
+		return value{}, lw.fail(c.Pos, "u may not appear inside cond ? a : b")
+	}
+	return value{f: series.Choose(ops, fields, a.f, b.f)}, nil
+}
+
 // interval reads a condition on θ, such as "theta < pi" or "0 < theta < pi/2",
 // as [lo·π, hi·π) within [0, 2π).
 func (lw *lowerer) interval(c *compare) (lo, hi *big.Rat, err error) {
@@ -101,6 +141,7 @@ func (lw *lowerer) interval(c *compare) (lo, hi *big.Rat, err error) {
 		sides = append(sides, t.Right)
 	}
 	at := -1 // which side is θ
+	var fail error
 	bounds := make([]*big.Rat, len(sides))
 	for i, sd := range sides {
 		v, err := lw.additive(sd)
@@ -113,17 +154,22 @@ func (lw *lowerer) interval(c *compare) (lo, hi *big.Rat, err error) {
 		}
 		k, ok := constant(v)
 		if !ok {
-			return nil, nil, lw.fail(sd.Pos, "a condition compares theta with constants")
+			fail = lw.fail(sd.Pos, "a condition compares theta with constants")
+			continue
 		}
 		q, err := k.Div(series.SymCoef(series.Pi))
 		r, isRat := q.Rat()
 		if err != nil || !isRat {
-			return nil, nil, lw.fail(sd.Pos, "break points must be rational multiples of pi")
+			fail = lw.fail(sd.Pos, "break points must be rational multiples of pi")
+			continue
 		}
 		bounds[i] = r
 	}
-	if at < 0 {
-		return nil, nil, lw.fail(c.Pos, "the condition must involve theta")
+	if at < 0 { // x < 1/2 and the like: no θ
+		return nil, nil, errNotInterval
+	}
+	if fail != nil {
+		return nil, nil, fail
 	}
 	less := func(op string) bool { return op == "<" || op == "<=" }
 	// Each comparison is between θ and a bound.

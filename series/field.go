@@ -25,11 +25,27 @@ func (f Field) IsExact() bool { return f.Rest == nil && f.Pieces == nil }
 
 // Expr is a node of a remainder: a leaf sum, or an operation on nodes.
 type Expr struct {
-	op     string // "sum", "+", "*", "/", "^", "series", or a function name
+	op     string // "sum", "+", "*", "/", "^", "series", "choose", or a function name
 	sum    Sum
 	args   []*Expr
 	ser    *seriesNode
 	pieces []Piece
+	cmp    []string // "choose": the comparisons between args[2:], a chain a < b < c
+}
+
+// Choose is "sides[0] ops[0] sides[1] ... ? then : other", evaluated in
+// float64: a condition the exact pieces in θ cannot take (x < 1/2, say).
+func Choose(ops []string, sides []Field, then, other Field) Field {
+	args := []*Expr{then.expr(), other.expr()}
+	for _, s := range sides {
+		args = append(args, s.expr())
+	}
+	return opaque(&Expr{op: "choose", args: args, cmp: ops})
+}
+
+var compareFloat = map[string]func(a, b float64) bool{
+	"<": func(a, b float64) bool { return a < b }, "<=": func(a, b float64) bool { return a <= b },
+	">": func(a, b float64) bool { return a > b }, ">=": func(a, b float64) bool { return a >= b },
 }
 
 // Op is the node's operation: "sum" (a leaf: Leaf), "+", "*", "/", "^",
@@ -361,6 +377,8 @@ func (e *Expr) Text() string {
 			s += ", " + Index + " != " + run
 		}
 		return s + ", " + trimParens(e.args[0].Text()) + ")"
+	case "choose":
+		return "(" + e.condition(false) + " ? " + trimParens(e.args[0].Text()) + " : " + trimParens(e.args[1].Text()) + ")"
 	case "sum":
 		if e.sum.Len() > 1 {
 			return "(" + e.sum.Text() + ")"
@@ -407,6 +425,8 @@ func (e *Expr) LaTeX() string {
 			return `\left(` + e.sum.LaTeX() + `\right)`
 		}
 		return e.sum.LaTeX()
+	case "choose":
+		return `\begin{cases} ` + e.args[0].bareLaTeX() + ` & ` + e.condition(true) + ` \\ ` + e.args[1].bareLaTeX() + ` & \text{otherwise} \end{cases}`
 	case "+":
 		b := e.args[1].LaTeX()
 		if strings.HasPrefix(b, "-") {
@@ -427,6 +447,25 @@ func (e *Expr) LaTeX() string {
 		return fmt.Sprintf(f, e.args[0].bareLaTeX())
 	}
 	return `\operatorname{` + e.op + `}\left(` + e.args[0].LaTeX() + `\right)`
+}
+
+// condition prints a "choose" node's comparisons.
+func (e *Expr) condition(latex bool) string {
+	tex := map[string]string{"<": "<", "<=": `\le`, ">": ">", ">=": `\ge`}
+	side := func(a *Expr) string {
+		if latex {
+			return a.bareLaTeX()
+		}
+		return trimParens(a.Text())
+	}
+	out := side(e.args[2])
+	for i, op := range e.cmp {
+		if latex {
+			op = tex[op]
+		}
+		out += " " + op + " " + side(e.args[3+i])
+	}
+	return out
 }
 
 // bareLaTeX is LaTeX without the parentheses of a sum, for places that
@@ -580,6 +619,20 @@ func compileExpr(e *Expr, env Env) (evalFunc, error) {
 	}
 	if e.op == "series" {
 		return compileSeries(e.ser, args[0]), nil
+	}
+	if e.op == "choose" {
+		then, other, sides, ops := args[0], args[1], args[2:], e.cmp
+		return func(r, theta, n float64) float64 {
+			prev := sides[0](r, theta, n)
+			for i, op := range ops {
+				next := sides[i+1](r, theta, n)
+				if !compareFloat[op](prev, next) {
+					return other(r, theta, n)
+				}
+				prev = next
+			}
+			return then(r, theta, n)
+		}, nil
 	}
 	if op, ok := binaryFloat[e.op]; ok {
 		a, b := args[0], args[1]

@@ -81,12 +81,27 @@ func (e *EigenSide) Prepare() error {
 	}
 	l, _ := e.along()
 	e.constant = e.Start.Kind == Flux && e.End.Kind == Flux
-	// Gauss–Legendre nodes enough for the highest mode's oscillation.
+	// Gauss–Legendre nodes enough for the highest mode's oscillation, with
+	// panel edges at the data's jumps (data given piece by piece).
 	x, w := legendre16()
 	panels := e.Modes/4 + 16
+	edges := []float64{0}
+	jumps := Jumps(e.Data, l)
+	for i := 1; i <= panels; i++ {
+		next := l * float64(i) / float64(panels)
+		for len(jumps) > 0 && jumps[0] < next {
+			if jumps[0] > edges[len(edges)-1] {
+				edges = append(edges, jumps[0])
+			}
+			jumps = jumps[1:]
+		}
+		if next > edges[len(edges)-1] {
+			edges = append(edges, next)
+		}
+	}
 	var ns, ws, cs []float64
-	for i := 0; i < panels; i++ {
-		lo, hi := l*float64(i)/float64(panels), l*float64(i+1)/float64(panels)
+	for i := 0; i+1 < len(edges); i++ {
+		lo, hi := edges[i], edges[i+1]
 		for k, xk := range x {
 			s := (lo+hi)/2 + (hi-lo)/2*xk
 			ns, ws, cs = append(ns, s), append(ws, (hi-lo)/2*w[k]), append(cs, e.Data(s))
@@ -117,6 +132,44 @@ func (e *EigenSide) Prepare() error {
 		e.mu[n-1], e.delta[n-1], e.b[n-1] = mu, d0, proj/norm
 	}
 	return nil
+}
+
+// Jumps locates the discontinuities of f on [0, l]: on 2048 cells, a
+// step far larger than its neighbours' is bisected to rounding.
+func Jumps(f func(float64) float64, l float64) []float64 {
+	const n = 2048
+	v := make([]float64, n+1)
+	for i := range v {
+		v[i] = f(l * float64(i) / n)
+	}
+	scale := maxAbsSlice(v)
+	var out []float64
+	for i := 0; i < n; i++ {
+		d := math.Abs(v[i+1] - v[i])
+		left, right := 0.0, 0.0
+		if i > 0 {
+			left = math.Abs(v[i] - v[i-1])
+		}
+		if i+1 < n {
+			right = math.Abs(v[i+2] - v[i+1])
+		}
+		if d <= 1e-9*scale || d <= 20*math.Max(left, right) {
+			continue
+		}
+		lo, hi := l*float64(i)/n, l*float64(i+1)/n
+		flo, fhi := v[i], v[i+1]
+		for it := 0; it < 60 && hi-lo > 1e-15*l; it++ {
+			mid := (lo + hi) / 2
+			fm := f(mid)
+			if math.Abs(fm-flo) < math.Abs(fm-fhi) {
+				lo, flo = mid, fm
+			} else {
+				hi, fhi = mid, fm
+			}
+		}
+		out = append(out, (lo+hi)/2)
+	}
+	return out
 }
 
 func maxAbsSlice(v []float64) float64 {

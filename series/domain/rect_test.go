@@ -402,3 +402,25 @@ func TestRectangleQuadrature(t *testing.T) {
 		}
 	}
 }
+
+// Side data given piece by piece in the side's coordinate (a numeric
+// condition), against the separation-of-variables series written out here
+// (any text on Laplace's equation in a rectangle): u = 1 on 0 < x < a of the
+// bottom, u = 0 elsewhere on the boundary,
+// u = Σ b_n sin(nπx/L) sinh(nπ(H − y)/L)/sinh(nπH/L), b_n = 2(1 − cos(nπa/L))/(nπ).
+func TestRectanglePiecewiseSide(t *testing.T) {
+	const L, H, a = 1.0, 0.5, 0.3
+	sol := solve(t, "lap(u) = 0", rect(t, "1", "1/2"), "left: u = 0", "right: u = 0", "bottom: u = x < 0.3 ? 1 : 0", "top: u = 0")
+	ev := evaluator(t, sol, 1e-13)
+	for _, p := range [][2]float64{{0.2, 0.1}, {0.5, 0.25}, {0.3, 0.05}, {0.8, 0.4}} {
+		want := 0.0
+		for n := 1; n < 20000; n++ {
+			k := float64(n) * math.Pi / L
+			want += 2 * (1 - math.Cos(k*a)) / (float64(n) * math.Pi) * math.Sin(k*p[0]) * math.Exp(-k*p[1]) * (1 - math.Exp(-2*k*(H-p[1]))) / (1 - math.Exp(-2*k*H))
+		}
+		got, _, _ := ev.At(math.Hypot(p[0], p[1]), math.Atan2(p[1], p[0]))
+		if math.Abs(got-want) > 1e-12 {
+			t.Errorf("u(%v) = %.14f, series %.14f", p, got, want)
+		}
+	}
+}
