@@ -131,6 +131,14 @@ func (e *EigenSide) Prepare() error {
 		}
 		e.mu[n-1], e.delta[n-1], e.b[n-1] = mu, d0, proj/norm
 	}
+	// Below the quadrature's rounding a coefficient is noise (a correction
+	// with no such mode): drop it.
+	floor := 1e-14 * maxAbsSlice(cs)
+	for n := range e.b {
+		if math.Abs(e.b[n]) < floor {
+			e.b[n] = 0
+		}
+	}
 	return nil
 }
 
@@ -355,17 +363,38 @@ func (e *EigenSide) describe(latex bool) string {
 	for n := 0; n < len(e.b) && n < 4; n++ {
 		bs, mus = append(bs, fmt.Sprintf("%.6g", e.b[n])), append(mus, fmt.Sprintf("%.9g", e.mu[n]))
 	}
+	// The constant mode is linear across: b_0 (1 + h_o d)/(a Z(w) + b Z'(w)).
 	head := ""
 	if e.constant && e.b0 != 0 {
-		head = fmt.Sprintf("%.6g*Y_0(%s) + ", e.b0, d)
-		if latex {
-			head = fmt.Sprintf(`%.6g\,Y_0(%s) + `, e.b0, d)
+		switch e.Opposite.Kind {
+		case Value:
+			head = fmt.Sprintf("%.12g*%s", e.b0*e.across0(1), d)
+		case Flux:
+			head = fmt.Sprintf("%.12g", e.b0*e.across0(0))
+		default:
+			c0 := e.b0 * e.across0(0)
+			head = fmt.Sprintf("%.12g*(1 + %.12g*%s)", c0, e.Opposite.H, d)
 		}
+		if allZero(e.b) {
+			return head
+		}
+		head += " + "
 	}
 	if latex {
 		return head + fmt.Sprintf(`\sum_{n=1}^{%d} b_n \cos\left(\mu_n %s - \delta_n\right) Y_n(%s),\ b_n \approx %s, \dots;\ \mu_n \approx %s, \dots`,
 			len(e.b), sv, d, strings.Join(bs, ", "), strings.Join(mus, ", "))
 	}
-	return head + fmt.Sprintf("sum(n=1..%d, b_n*cos(mu_n*%s - delta_n)*Y_n(%s)) with b_n ≈ %s, ...; mu_n ≈ %s, ...",
-		len(e.b), sv, d, strings.Join(bs, ", "), strings.Join(mus, ", "))
+	// Y_n is Z_n over the side's operator on it there; Z_n meets the opposite side.
+	z := map[EndKind]string{Value: "sinh(mu_n*d)", Flux: "cosh(mu_n*d)", Mixed: fmt.Sprintf("mu_n*cosh(mu_n*d) + %.12g*sinh(mu_n*d)", e.Opposite.H)}[e.Opposite.Kind]
+	return head + fmt.Sprintf("sum(n=1..%d, b_n*cos(mu_n*%s - delta_n)*Y_n(%s)) with b_n ≈ %s, ...; mu_n ≈ %s, ...; Y_n(d) = Z_n(d)/(the side's operator on Z_n at d = %.12g), Z_n(d) = %s",
+		len(e.b), sv, d, strings.Join(bs, ", "), strings.Join(mus, ", "), w, z)
+}
+
+func allZero(v []float64) bool {
+	for _, x := range v {
+		if x != 0 {
+			return false
+		}
+	}
+	return true
 }
