@@ -41,7 +41,8 @@ type SineQuadrature struct {
 	coarse, fine []sinePanel
 	dropped      float64
 	fft          *fourier.FFT
-	last         *sineAt
+	den          []float64           // 2k_m(1 − e^(−2k_m H))
+	lines        map[float64]*sineAt // lines already evaluated (a grid's rows), bounded
 }
 
 // The edge functions of a panel, by index: a_0, a_1, c_0, c_1 (values and
@@ -143,7 +144,7 @@ func (q *SineQuadrature) newPanel(lo, hi float64) sinePanel {
 // sine spectrum on probe lines, weighted by 1/m² as in v_m, is below Tol)
 // and builds the y meshes.
 func (q *SineQuadrature) Prepare() {
-	q.last = nil
+	q.lines = nil
 	var scale, worst float64
 	for n := 32; ; n *= 2 {
 		q.Samples = n
@@ -172,6 +173,11 @@ func (q *SineQuadrature) Prepare() {
 		}
 	}
 	q.Converged = worst <= q.Tol*math.Max(scale, 1e-300)
+	q.den = make([]float64, q.Modes)
+	for m := range q.den {
+		k := q.k(m + 1)
+		q.den[m] = 2 * k * -math.Expm1(-2*k*q.H)
+	}
 	var mesh []sinePanel
 	for i := 0; i < 4; i++ {
 		mesh = append(mesh, q.newPanel(q.H*float64(i)/4, q.H*float64(i+1)/4))
@@ -302,20 +308,29 @@ func (q *SineQuadrature) integrals(mesh []sinePanel, y float64, modes bool) sine
 				out.i2[j] += y*p.s0[j] - p.s1[j]
 				out.i1[j] += p.s0[j]
 			}
-			for m := 1; modes && m <= q.Modes; m++ {
-				k := q.k(m)
-				den := 2 * k * -math.Expm1(-2*k*H)
-				e := math.Exp(-k * (y - p.hi))
-				out.v[m-1] -= -math.Expm1(-2*k*(H-y)) * e / den * p.below[m-1]
-				out.dv[m-1] += k * e * (1 + math.Exp(-2*k*(H-y))) / den * p.below[m-1]
+			if !modes {
+				continue
+			}
+			// e^(−k_m(y−hi)) and e^(−2k_m(H−y)) are powers of their m = 1 values.
+			E, F := math.Exp(-q.k(1)*(y-p.hi)), math.Exp(-2*q.k(1)*(H-y))
+			e, f := 1.0, 1.0
+			for m := 1; m <= q.Modes; m++ {
+				e, f = e*E, f*F
+				k, den := q.k(m), q.den[m-1]
+				out.v[m-1] -= (1 - f) * e / den * p.below[m-1]
+				out.dv[m-1] += k * e * (1 + f) / den * p.below[m-1]
 			}
 		case p.lo >= y:
-			for m := 1; modes && m <= q.Modes; m++ {
-				k := q.k(m)
-				den := 2 * k * -math.Expm1(-2*k*H)
-				e := math.Exp(-k * (p.lo - y))
-				out.v[m-1] -= -math.Expm1(-2*k*y) * e / den * p.above[m-1]
-				out.dv[m-1] -= k * e * (1 + math.Exp(-2*k*y)) / den * p.above[m-1]
+			if !modes {
+				continue
+			}
+			E, F := math.Exp(-q.k(1)*(p.lo-y)), math.Exp(-2*q.k(1)*y)
+			e, f := 1.0, 1.0
+			for m := 1; m <= q.Modes; m++ {
+				e, f = e*E, f*F
+				k, den := q.k(m), q.den[m-1]
+				out.v[m-1] -= (1 - f) * e / den * p.above[m-1]
+				out.dv[m-1] -= k * e * (1 + f) / den * p.above[m-1]
 			}
 		default:
 			q.split(p, y, &out, modes)
@@ -328,7 +343,7 @@ func (q *SineQuadrature) integrals(mesh []sinePanel, y float64, modes bool) sine
 // with the functions interpolated from the panel's nodes.
 func (q *SineQuadrature) split(p *sinePanel, y float64, out *sineAt, modes bool) {
 	H := q.H
-	ell := make([]float64, glN)
+	ell, lw := make([]float64, glN), make([]float64, glN)
 	for half := 0; half < 2; half++ {
 		lo, hi := p.lo, y
 		if half == 1 {
@@ -367,18 +382,42 @@ func (q *SineQuadrature) split(p *sinePanel, y float64, out *sineAt, modes bool)
 					out.i1[j] += w * f
 				}
 			}
-			for m := 1; modes && m <= q.Modes; m++ {
-				k := q.k(m)
-				g := interp(func(j int) float64 { return p.g[j][m-1] })
-				den := 2 * k * -math.Expm1(-2*k*H)
-				if half == 0 { // t < y
-					e := math.Exp(-k*(y-t)) * -math.Expm1(-2*k*t)
-					out.v[m-1] -= -math.Expm1(-2*k*(H-y)) * e / den * w * g
-					out.dv[m-1] += k * e * (1 + math.Exp(-2*k*(H-y))) / den * w * g
+			if !modes {
+				continue
+			}
+			// The interpolation weights at t, normalised, for every mode.
+			for j := range lw {
+				switch {
+				case exact == j:
+					lw[j] = 1
+				case exact >= 0:
+					lw[j] = 0
+				default:
+					lw[j] = ell[j] / sum
+				}
+			}
+			// The kernel's exponentials as powers of their m = 1 values.
+			k1 := q.k(1)
+			var E, A, B float64 // e^(−k|y−t|), the t-factor's and the y-factor's exponentials
+			if half == 0 {      // t < y: (1 − e^(−2kt)) and (1 ∓ e^(−2k(H−y)))
+				E, A, B = math.Exp(-k1*(y-t)), math.Exp(-2*k1*t), math.Exp(-2*k1*(H-y))
+			} else { // t > y: (1 − e^(−2k(H−t))) and (1 ∓ e^(−2ky))
+				E, A, B = math.Exp(-k1*(t-y)), math.Exp(-2*k1*(H-t)), math.Exp(-2*k1*y)
+			}
+			e, a, b := 1.0, 1.0, 1.0
+			for m := 1; m <= q.Modes; m++ {
+				e, a, b = e*E, a*A, b*B
+				k, den := q.k(m), q.den[m-1]
+				g := 0.0
+				for j := range lw {
+					g += lw[j] * p.g[j][m-1]
+				}
+				g *= w * e * (1 - a) / den
+				out.v[m-1] -= (1 - b) * g
+				if half == 0 {
+					out.dv[m-1] += k * (1 + b) * g
 				} else {
-					e := math.Exp(-k*(t-y)) * -math.Expm1(-2*k*(H-t))
-					out.v[m-1] -= -math.Expm1(-2*k*y) * e / den * w * g
-					out.dv[m-1] -= k * e * (1 + math.Exp(-2*k*y)) / den * w * g
+					out.dv[m-1] -= k * (1 + b) * g
 				}
 			}
 		}
@@ -389,8 +428,8 @@ func (q *SineQuadrature) split(p *sinePanel, y float64, out *sineAt, modes bool)
 // modes (on y = 0, y = H, x = 0 and x = L, where sin(k_m x) v_m(y) vanishes)
 // only the edge functions.
 func (q *SineQuadrature) line(y float64, modes bool) *sineAt {
-	if q.last != nil && q.last.y == y && (q.last.v != nil || !modes) {
-		return q.last
+	if l, ok := q.lines[y]; ok && (l.v != nil || !modes) {
+		return l
 	}
 	c, f := q.integrals(q.coarse, y, modes), q.integrals(q.fine, y, modes)
 	err, big := 0.0, 0.0
@@ -401,8 +440,11 @@ func (q *SineQuadrature) line(y float64, modes bool) *sineAt {
 		err, big = math.Max(err, math.Abs(c.v[m]-f.v[m])), math.Max(big, math.Abs(f.v[m]))
 	}
 	f.err = math.Max(err, 1e-15*big) + q.dropped
-	q.last = &f
-	return q.last
+	if q.lines == nil || len(q.lines) >= 4096 {
+		q.lines = map[float64]*sineAt{}
+	}
+	q.lines[y] = &f
+	return &f
 }
 
 // edgePart is Σ_e [φ₀(A_e − E_e) + φ₁ D_e] and its gradient on a line.

@@ -55,8 +55,9 @@ type EigenSide struct {
 	Opposite   End
 	Own        End // the side's own operator (its H for a Robin side)
 	Data       func(s float64) float64
-	Label      string // how the data are written, for printing
-	Modes      int    // the modes computed (default 512)
+	Breaks     []float64 // where the data jump (panel edges go there; see Jumps)
+	Label      string    // how the data are written, for printing
+	Modes      int       // the modes computed (default 512)
 
 	mu, delta, b []float64
 	constant     bool    // a mode μ = 0 (flux at both ends)
@@ -86,7 +87,7 @@ func (e *EigenSide) Prepare() error {
 	x, w := legendre16()
 	panels := e.Modes/4 + 16
 	edges := []float64{0}
-	jumps := Jumps(e.Data, l)
+	jumps := append([]float64(nil), e.Breaks...)
 	for i := 1; i <= panels; i++ {
 		next := l * float64(i) / float64(panels)
 		for len(jumps) > 0 && jumps[0] < next {

@@ -319,6 +319,10 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 			}
 			es := &cart.EigenSide{Side: geo.side, L: L, H: H, Start: endOf(p.conds[geo.start], env), End: endOf(p.conds[geo.end], env),
 				Opposite: endOf(p.conds[geo.away], env), Own: endOf(cond, env), Data: correction}
+			if g.fn != nil { // data that are no polynomial may come piece by piece
+				l, _ := geo.length.Float(env)
+				es.Breaks = cart.Jumps(g.fn, l)
+			}
 			if err := es.Prepare(); err != nil {
 				return nil, unsolvable("on %s: %v", name, err)
 			}
