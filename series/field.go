@@ -385,6 +385,9 @@ func (e *Expr) Text() string {
 		}
 		return e.sum.Text()
 	case "+":
+		if b := e.args[1].Text(); strings.HasPrefix(b, "-") {
+			return e.args[0].Text() + " - " + b[1:]
+		}
 		return e.args[0].Text() + " + " + e.args[1].Text()
 	case "*", "/":
 		if k, ok := e.constFactor(); ok && k.Equal(IntCoef(-1)) {

@@ -402,21 +402,23 @@ func sidePrefix(sol *domain.Solution, s domain.Side) string {
 // solution, each side's trace and correction, and a series per side.
 func (v *view) rectStages(sol *domain.Solution) {
 	rp := sol.Rect
-	var tr, co, h, hTeX []string
+	var tr, co, h, hTeX, trTeX, coTeX []string
 	for _, s := range rp.Sides {
 		coord := "x"
 		if s.Name == "left" || s.Name == "right" {
 			coord = "y"
 		}
-		trText := s.Trace.Text()
+		trText, trLaTeX := s.Trace.Text(), s.Trace.LaTeX()
 		if sol.Numeric {
-			trText = s.Trace.TextApprox()
+			trText, trLaTeX = s.Trace.TextApprox(), s.Trace.LaTeXApprox()
 		}
 		if s.WaveTrace {
-			trText += " + (the waves' trace)"
+			trText, trLaTeX = trText+" + (the waves' trace)", trLaTeX+` + u_w`
 		}
 		tr = append(tr, s.Name+": "+trText)
+		trTeX = append(trTeX, `\text{`+s.Name+`: } `+trLaTeX)
 		co = append(co, s.Name+": "+s.CorrectionText()+" (in "+coord+")")
+		coTeX = append(coTeX, `\text{`+s.Name+`: } `+s.CorrectionLaTeX())
 		if t := s.HarmonicText(false); t != "0" {
 			h = append(h, t)
 			hTeX = append(hTeX, s.HarmonicText(true))
@@ -426,9 +428,9 @@ func (v *view) rectStages(sol *domain.Solution) {
 	if harm == "" {
 		harm, harmTeX = "0", "0"
 	}
-	upText, upTeX := rp.Particular.Text(), sol.Particular.LaTeX()
+	upText, upTeX := rp.Particular.Text(), rp.Particular.LaTeX()
 	if sol.Numeric {
-		upText, upTeX = rp.Particular.TextApprox(), sol.Particular.LaTeXApprox()
+		upText, upTeX = rp.Particular.TextApprox(), rp.Particular.LaTeXApprox()
 	}
 	if rp.Quadrature != nil {
 		q := "quadrature(" + rp.QuadratureSource.Text() + ")"
@@ -447,8 +449,8 @@ func (v *view) rectStages(sol *domain.Solution) {
 		}
 	}
 	v.Particular = exactStage("particular", "u_p = "+upText, upTeX, "u_p")
-	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(tr, "; "), "u_p|_{\\partial}")
-	v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(co, "; "), "g - u_p")
+	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(trTeX, `,\ `), "u_p|_{\\partial}")
+	v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(coTeX, `,\ `), "g - u_p")
 	v.Harmonic = exactStage("harmonic", harm, harmTeX, "u_h")
 	sol0 := upText
 	if harm != "0" {

@@ -7,6 +7,8 @@ import (
 
 	"psol/ansatz"
 	"psol/parse"
+	"psol/series"
+	"psol/series/cart"
 	"psol/series/domain"
 )
 
@@ -45,18 +47,46 @@ func (o *particularOptions) run(w io.Writer, source string) error {
 	if err != nil {
 		return err
 	}
+	// A remainder of exponentials and sines of x and y: the Cartesian wave ansatz.
+	var waves, waveSource cart.Waves
+	exact := f.Exact
 	if !f.IsExact() {
-		return &domain.Unsupported{Reason: "the source has a part with no closed form yet: " + f.Rest.Text()}
+		src, err := cart.FromExpr(f.Rest)
+		var poly cart.Poly
+		if err == nil {
+			waves, poly, err = src.Particular()
+		}
+		if err != nil {
+			return &domain.Unsupported{Reason: "the source part " + f.Rest.Text() + " has no closed form (" + err.Error() + "); psol solve takes it by quadrature on a given region"}
+		}
+		exact = exact.Add(poly.Polar())
+		waveSource = src.Add(cart.Waves{{Cos: poly.Scale(series.IntCoef(-1))}})
 	}
-	up, steps, err := ansatz.Particular(f.Exact)
+	up, steps, err := ansatz.Particular(exact)
 	if err != nil {
 		return err
 	}
 	v := &view{Warnings: []string{}, Points: []point{}, showSteps: o.steps}
-	v.Problem = exactStage("problem", "lap(u) = "+f.Exact.Text(), `\Delta u = `+f.Exact.LaTeX(), "")
-	v.Particular = exactStage("particular", "u_p = "+up.Text(), up.LaTeX(), "u_p")
-	res := up.Laplacian().Sub(f.Exact)
+	v.Problem = exactStage("problem", "lap(u) = "+f.Text(), `\Delta u = `+f.LaTeX(), "")
+	upText, upTeX := up.Text(), up.LaTeX()
+	if len(waves) > 0 {
+		if up.IsZero() {
+			upText, upTeX = waves.Text(), waves.LaTeX()
+		} else {
+			upText, upTeX = joinSigned(upText, waves.Text()), joinSigned(upTeX, waves.LaTeX())
+		}
+	}
+	v.Particular = exactStage("particular", "u_p = "+upText, upTeX, "u_p")
+	res := up.Laplacian().Sub(exact)
 	v.Checks = []checkOut{{Name: "lap(u_p) - f", Exact: true, Formula: res.Text(), Residual: residualSize(res, env)}}
+	if len(waves) > 0 { // Δ of the waves less their source, reduced exactly
+		left := waves.Laplacian().Add(waveSource.Scale(cart.Monomial(series.IntCoef(-1), 0, 0)))
+		c := checkOut{Name: "lap(u_p) - f (exponential and trigonometric part)", Exact: true, Formula: left.Text()}
+		if len(left) > 0 {
+			c.Residual = 1
+		}
+		v.Checks = append(v.Checks, c)
+	}
 	for _, st := range steps {
 		v.Steps = append(v.Steps, st.Source.Text()+" -> "+st.Result.Text()+" ("+st.Rule+")")
 	}

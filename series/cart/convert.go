@@ -73,3 +73,21 @@ func Harmonics(degree int) []Poly {
 	}
 	return out
 }
+
+// Polar writes p as a polar sum (x = r cos θ, y = r sin θ).
+func (p Poly) Polar() series.Sum {
+	x := series.R.Mul(series.Trig(1, false))
+	y := series.R.Mul(series.Trig(1, true))
+	var out series.Sum
+	for _, t := range p.Terms() {
+		term := series.Const(t.C)
+		for k := 0; k < t.I; k++ {
+			term = term.Mul(x)
+		}
+		for k := 0; k < t.J; k++ {
+			term = term.Mul(y)
+		}
+		out = out.Add(term)
+	}
+	return out
+}

@@ -376,6 +376,9 @@ func (e *EigenSide) describe(latex bool) string {
 			c0 := e.b0 * e.across0(0)
 			head = fmt.Sprintf("%.12g*(1 + %.12g*%s)", c0, e.Opposite.H, d)
 		}
+		if latex {
+			head = strings.ReplaceAll(head, "*", " ")
+		}
 		if allZero(e.b) {
 			return head
 		}

@@ -144,12 +144,21 @@ func (p Poly) Text() string { return p.text(series.Coef.Text) }
 
 // LaTeX prints p as LaTeX.
 func (p Poly) LaTeX() string {
+	return p.latex(func(c series.Coef) string { return series.Const(c).LaTeX() })
+}
+
+// LaTeXApprox is LaTeX with decimal coefficients, for numeric results.
+func (p Poly) LaTeXApprox() string {
+	return p.latex(func(c series.Coef) string { return series.Const(c).LaTeXApprox() })
+}
+
+func (p Poly) latex(coef func(series.Coef) string) string {
 	if p.IsZero() {
 		return "0"
 	}
 	var b strings.Builder
 	for k, t := range p.t {
-		c := series.Const(t.c).LaTeX()
+		c := coef(t.c)
 		var vars string
 		if t.i > 0 {
 			vars += texPower("x", t.i)

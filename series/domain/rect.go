@@ -73,6 +73,19 @@ func (s RectSide) CorrectionText() string {
 	return s.Correction.Text()
 }
 
+// CorrectionLaTeX is CorrectionText as LaTeX.
+func (s RectSide) CorrectionLaTeX() string {
+	switch {
+	case s.WaveTrace:
+		return `g - \left(` + s.Trace.LaTeXApprox() + `\right) - u_w`
+	case s.data.poly == nil:
+		return `g - \left(` + s.Trace.LaTeXApprox() + `\right)`
+	case s.Eigen != nil:
+		return s.Correction.LaTeXApprox()
+	}
+	return s.Correction.LaTeX()
+}
+
 // HarmonicText prints the side's series (0 when it has none).
 func (s RectSide) HarmonicText(latex bool) string {
 	switch {
@@ -362,23 +375,8 @@ func first(cs []series.Coef) series.Coef {
 	return cs[0]
 }
 
-// toPolar writes a polynomial in x and y as a polar sum (x = r cos θ, y = r sin θ).
-func toPolar(p cart.Poly) (series.Sum, error) {
-	x := series.R.Mul(series.Trig(1, false))
-	y := series.R.Mul(series.Trig(1, true))
-	var out series.Sum
-	for _, t := range p.Terms() {
-		term := series.Const(t.C)
-		for k := 0; k < t.I; k++ {
-			term = term.Mul(x)
-		}
-		for k := 0; k < t.J; k++ {
-			term = term.Mul(y)
-		}
-		out = out.Add(term)
-	}
-	return out, nil
-}
+// toPolar writes a polynomial in x and y as a polar sum.
+func toPolar(p cart.Poly) (series.Sum, error) { return p.Polar(), nil }
 
 // rectCheck samples the boundary: u − g on each side, away from the corners,
 // with the series summed to tol (the sine series converge there pointwise).
