@@ -88,6 +88,26 @@ var bary = func() []float64 {
 	return out
 }()
 
+// lagrange fills ell with the weights that interpolate, from the values at
+// the Legendre nodes, the value at x in [−1, 1] (barycentric form).
+func lagrange(x float64, ell []float64) {
+	sum := 0.0
+	for j, xj := range glX {
+		if x == xj {
+			for i := range ell {
+				ell[i] = 0
+			}
+			ell[j] = 1
+			return
+		}
+		ell[j] = bary[j] / (x - xj)
+		sum += ell[j]
+	}
+	for j := range ell {
+		ell[j] /= sum
+	}
+}
+
 // tailRows are the rows of the map from node values to the Legendre
 // coefficients of degrees 14 and 15: c_j = (2j+1)/2 Σ_i w_i P_j(x_i) f(x_i).
 var tailRows = func() [2][]float64 {
@@ -493,27 +513,13 @@ func (q *Quadrature) split(pn *panel, r float64, p, dp [][2]float64) {
 		for n, x := range glX {
 			s := (lo+hi)/2 + (hi-lo)/2*x
 			ws := (hi - lo) / 2 * glW[n] * s
-			// Barycentric interpolation at the panel coordinate of s.
-			xs := (2*s - pn.lo - pn.hi) / (pn.hi - pn.lo)
-			sum, exact := 0.0, -1
-			for j, xj := range glX {
-				if xs == xj {
-					exact = j
-					break
+			lagrange((2*s-pn.lo-pn.hi)/(pn.hi-pn.lo), ell)
+			g := func(k int) (ga, gb float64) {
+				for j, l := range ell {
+					ga += l * pn.a[j][k]
+					gb += l * pn.b[j][k]
 				}
-				ell[j] = bary[j] / (xs - xj)
-				sum += ell[j]
-			}
-			g := func(k int) (float64, float64) {
-				if exact >= 0 {
-					return pn.a[exact][k], pn.b[exact][k]
-				}
-				var ga, gb float64
-				for j := range ell {
-					ga += ell[j] * pn.a[j][k]
-					gb += ell[j] * pn.b[j][k]
-				}
-				return ga / sum, gb / sum
+				return ga, gb
 			}
 			g0, _ := g(0)
 			switch {

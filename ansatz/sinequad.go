@@ -343,7 +343,7 @@ func (q *SineQuadrature) integrals(mesh []sinePanel, y float64, modes bool) sine
 // with the functions interpolated from the panel's nodes.
 func (q *SineQuadrature) split(p *sinePanel, y float64, out *sineAt, modes bool) {
 	H := q.H
-	ell, lw := make([]float64, glN), make([]float64, glN)
+	lw := make([]float64, glN)
 	for half := 0; half < 2; half++ {
 		lo, hi := p.lo, y
 		if half == 1 {
@@ -355,25 +355,13 @@ func (q *SineQuadrature) split(p *sinePanel, y float64, out *sineAt, modes bool)
 		for n, x := range glX {
 			t := (lo+hi)/2 + (hi-lo)/2*x
 			w := (hi - lo) / 2 * glW[n]
-			xs := (2*t - p.lo - p.hi) / (p.hi - p.lo)
-			sum, exact := 0.0, -1
-			for j, xj := range glX {
-				if xs == xj {
-					exact = j
-					break
-				}
-				ell[j] = bary[j] / (xs - xj)
-				sum += ell[j]
-			}
+			lagrange((2*t-p.lo-p.hi)/(p.hi-p.lo), lw)
 			interp := func(f func(j int) float64) float64 {
-				if exact >= 0 {
-					return f(exact)
-				}
 				v := 0.0
-				for j := range ell {
-					v += ell[j] * f(j)
+				for j, l := range lw {
+					v += l * f(j)
 				}
-				return v / sum
+				return v
 			}
 			if half == 0 {
 				for j := range p.f {
@@ -384,17 +372,6 @@ func (q *SineQuadrature) split(p *sinePanel, y float64, out *sineAt, modes bool)
 			}
 			if !modes {
 				continue
-			}
-			// The interpolation weights at t, normalised, for every mode.
-			for j := range lw {
-				switch {
-				case exact == j:
-					lw[j] = 1
-				case exact >= 0:
-					lw[j] = 0
-				default:
-					lw[j] = ell[j] / sum
-				}
 			}
 			// The kernel's exponentials as powers of their m = 1 values.
 			k1 := q.k(1)

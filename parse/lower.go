@@ -73,10 +73,8 @@ func (lw *lowerer) choice(c *choice) (value, error) {
 		return lw.additive(c.Cond.Left)
 	}
 	lo, hi, err := lw.interval(c.Cond)
-	if errors.Is(err, errNotInterval) {
-		return lw.numericChoice(c)
-	}
-	if err != nil {
+	numeric := errors.Is(err, errNotInterval)
+	if err != nil && !numeric {
 		return value{}, err
 	}
 	a, err := lw.choice(c.Then)
@@ -90,6 +88,9 @@ func (lw *lowerer) choice(c *choice) (value, error) {
 	if a.hasUnknown() || b.hasUnknown() {
 		return value{}, lw.fail(c.Pos, "u may not appear inside cond ? a : b")
 	}
+	if numeric {
+		return lw.numericChoice(c, a, b)
+	}
 	return value{f: series.Piecewise(lo, hi, a.f, b.f)}, nil
 }
 
@@ -99,7 +100,7 @@ var errNotInterval = errors.New("not an interval of theta")
 
 // numericChoice is cond ? a : b with a condition without θ (x < 1/2,
 // r > 1): a remainder evaluated in float64.
-func (lw *lowerer) numericChoice(c *choice) (value, error) {
+func (lw *lowerer) numericChoice(c *choice, a, b value) (value, error) {
 	sides := []*additive{c.Cond.Left}
 	var ops []string
 	for _, t := range c.Cond.Rest {
@@ -115,17 +116,6 @@ func (lw *lowerer) numericChoice(c *choice) (value, error) {
 			return value{}, lw.fail(sd.Pos, "u may not appear in a condition")
 		}
 		fields = append(fields, v.f)
-	}
-	a, err := lw.choice(c.Then)
-	if err != nil {
-		return value{}, err
-	}
-	b, err := lw.choice(c.Else)
-	if err != nil {
-		return value{}, err
-	}
-	if a.hasUnknown() || b.hasUnknown() {
-		return value{}, lw.fail(c.Pos, "u may not appear inside cond ? a : b")
 	}
 	return value{f: series.Choose(ops, fields, a.f, b.f)}, nil
 }

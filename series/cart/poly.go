@@ -140,93 +140,72 @@ func (p Poly) AtY(b series.Coef) Poly {
 }
 
 // Text prints p in psol's syntax.
-func (p Poly) Text() string { return p.text(series.Coef.Text) }
+func (p Poly) Text() string { return p.print(textPoly(series.Coef.Text)) }
+
+// TextApprox is Text with the coefficients as decimals, for numeric results.
+func (p Poly) TextApprox() string {
+	return p.print(textPoly(func(c series.Coef) string { return series.Const(c).TextApprox() }))
+}
 
 // LaTeX prints p as LaTeX.
 func (p Poly) LaTeX() string {
-	return p.latex(func(c series.Coef) string { return series.Const(c).LaTeX() })
+	return p.print(latexPoly(func(c series.Coef) string { return series.Const(c).LaTeX() }))
 }
 
 // LaTeXApprox is LaTeX with decimal coefficients, for numeric results.
 func (p Poly) LaTeXApprox() string {
-	return p.latex(func(c series.Coef) string { return series.Const(c).LaTeXApprox() })
+	return p.print(latexPoly(func(c series.Coef) string { return series.Const(c).LaTeXApprox() }))
 }
 
-func (p Poly) latex(coef func(series.Coef) string) string {
+// polyStyle is how a polynomial prints: coefficients, powers, the product
+// sign and the brackets around a coefficient that is a sum.
+type polyStyle struct {
+	coef        func(series.Coef) string
+	power       string // format: variable, exponent
+	mul         string
+	open, close string
+}
+
+func textPoly(coef func(series.Coef) string) polyStyle {
+	return polyStyle{coef: coef, power: "%s^%d", mul: "*", open: "(", close: ")*"}
+}
+
+func latexPoly(coef func(series.Coef) string) polyStyle {
+	return polyStyle{coef: coef, power: "%s^{%d}", mul: " ", open: `\left(`, close: `\right) `}
+}
+
+func (p Poly) print(st polyStyle) string {
 	if p.IsZero() {
 		return "0"
 	}
-	var b strings.Builder
-	for k, t := range p.t {
-		c := coef(t.c)
-		var vars string
-		if t.i > 0 {
-			vars += texPower("x", t.i)
+	pow := func(v string, n int) string {
+		if n == 1 {
+			return v
 		}
-		if t.j > 0 {
-			vars += texPower("y", t.j)
-		}
-		body := c
-		switch {
-		case vars == "":
-		case c == "1":
-			body = vars
-		case c == "-1":
-			body = "-" + vars
-		case strings.ContainsAny(strings.TrimPrefix(c, "-"), "+-"):
-			body = `\left(` + c + `\right) ` + vars
-		default:
-			body = c + " " + vars
-		}
-		switch {
-		case k == 0:
-			b.WriteString(body)
-		case strings.HasPrefix(body, "-"):
-			b.WriteString(" - " + body[1:])
-		default:
-			b.WriteString(" + " + body)
-		}
-	}
-	return b.String()
-}
-
-func texPower(v string, n int) string {
-	if n == 1 {
-		return v
-	}
-	return fmt.Sprintf("%s^{%d}", v, n)
-}
-
-// TextApprox is Text with the coefficients as decimals, for numeric results.
-func (p Poly) TextApprox() string {
-	return p.text(func(c series.Coef) string { return series.Const(c).TextApprox() })
-}
-
-func (p Poly) text(coef func(series.Coef) string) string {
-	if p.IsZero() {
-		return "0"
+		return fmt.Sprintf(st.power, v, n)
 	}
 	var b strings.Builder
 	for k, t := range p.t {
-		s := coef(t.c)
+		c := st.coef(t.c)
 		var vars []string
 		if t.i > 0 {
-			vars = append(vars, power("x", t.i))
+			vars = append(vars, pow("x", t.i))
 		}
 		if t.j > 0 {
-			vars = append(vars, power("y", t.j))
+			vars = append(vars, pow("y", t.j))
 		}
-		body := s
+		v := strings.Join(vars, st.mul)
+		body := c
 		switch {
-		case len(vars) == 0:
-		case s == "1":
-			body = strings.Join(vars, "*")
-		case s == "-1":
-			body = "-" + strings.Join(vars, "*")
-		case strings.ContainsAny(s[1:], " +-"):
-			body = "(" + s + ")*" + strings.Join(vars, "*")
+		case v == "":
+		case c == "1":
+			body = v
+		case c == "-1":
+			body = "-" + v
+		case strings.ContainsAny(strings.TrimPrefix(c, "-"), "+-"):
+			body = st.open + c + st.close + v
 		default:
-			body = s + "*" + strings.Join(vars, "*")
+			body = c + st.mul + v
 		}
 		switch {
 		case k == 0:
@@ -238,13 +217,6 @@ func (p Poly) text(coef func(series.Coef) string) string {
 		}
 	}
 	return b.String()
-}
-
-func power(v string, n int) string {
-	if n == 1 {
-		return v
-	}
-	return fmt.Sprintf("%s^%d", v, n)
 }
 
 // Eval is p at (x, y) with parameters from env.
