@@ -319,3 +319,20 @@ func BenchmarkOffCentreGaussian(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkRectangleBump is a Gaussian bump on the rectangle (the sine-transform
+// quadrature and four numeric side series), from source text to five points.
+func BenchmarkRectangleBump(b *testing.B) {
+	b.ReportAllocs()
+	args := []string{"solve", "lap(u) = -exp(-((x-0.5)^2 + (y-0.3)^2)/0.05)", "--rect", "1,1/2",
+		"--bc", "left: u = 0", "--bc", "right: u = 0", "--bc", "bottom: u = 0", "--bc", "top: u = 0"}
+	for _, p := range []string{"x=0.5,y=0.3", "x=0.1,y=0.1", "x=0.9,y=0.4", "x=0.3,y=0.25", "x=0.7,y=0.05"} {
+		args = append(args, "--at", p)
+	}
+	for i := 0; i < b.N; i++ {
+		var out bytes.Buffer
+		if code := run(args, &out, &out); code != 0 {
+			b.Fatal(out.String())
+		}
+	}
+}
