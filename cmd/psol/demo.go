@@ -65,6 +65,24 @@ var scenarios = []scenario{
 		args: []string{"solve", "lap(u) = -1", "--rect", "0.3,0.15", "--bc", "left: u = 0", "--bc", "right: u = 0", "--bc", "bottom: u = 0", "--bc", "top: u = 0", "--quantity", "flow"},
 	},
 	{
+		name:  "fin",
+		title: "Rectangular cooling fin",
+		meaning: "A fin 50 mm long and 10 mm thick, its base held at 100 C, loses heat from its faces and tip to\n" +
+			"air at 20 C: lap(u) = 0, u = 100 at the base, dn(u) + (h/k)u = (h/k)*20 elsewhere with h/k = 25 1/m.\n" +
+			"The faces are convective (Robin) sides: their series use numeric eigenvalues.",
+		args: []string{"solve", "lap(u) = 0", "--rect", "0.05,0.01", "--bc", "left: u = 100", "--bc", "right: dn(u) + 25*u = 500",
+			"--bc", "bottom: dn(u) + 25*u = 500", "--bc", "top: dn(u) + 25*u = 500", "--at", "x=0.05,y=0.005", "--at", "x=0.025,y=0.005"},
+	},
+	{
+		name:  "laser",
+		title: "Off-centre laser spot on a cooled disk",
+		meaning: "A copper disk of radius 30 mm (k = 400 W/(m K)) absorbs a laser beam 10 mm off its centre,\n" +
+			"q = 5e8 exp(-|x - x0|^2/w) W/m^3 with w = 2e-5 m^2, its rim held at 20 C. The Gaussian has no\n" +
+			"closed-form particular solution: psol takes it by quadrature and states the error.",
+		args: []string{"solve", "-k*lap(u) = q*exp(-((x-0.01)^2 + y^2)/w)", "--disk", "0.03", "--bc", "u = 20", "--let", "k=400,q=5e8,w=2e-5",
+			"--at", "x=0.01,y=0", "--at", "x=-0.01,y=0", "--report"},
+	},
+	{
 		name:  "plate",
 		title: "Charged disk with a non-uniform charge",
 		meaning: "A thin disk of unit radius carries charge density growing to one side, lap(u) = -(1 + x),\n" +

@@ -274,3 +274,21 @@ func TestQuadratureReport(t *testing.T) {
 		}
 	}
 }
+
+// Green's second identity with w = (1 − r²)/4 (Δw = −1, w = 0 on the rim):
+// for u = 0 on the unit disk, ∬u dA = −∬ w f dA. For the Gaussian
+// f = exp(−|x − x0|²/s), whose mass outside the disk is below 1e-15 here,
+// ∬f = πs and the mean of |x|² under it is |x0|² + s, so
+// ∬u dA = −πs(1 − |x0|² − s)/4 (common practice: the identity and the
+// Gaussian's moments).
+func TestQuadratureGreenIdentity(t *testing.T) {
+	const s = 0.01
+	sol := solve(t, "lap(u) = exp(-((x - 0.4)^2 + y^2)/0.01)", unitDisk, "u = 0")
+	rep, err := sol.Report(nil, 1e-12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if want := -math.Pi * s * (1 - 0.16 - s) / 4; math.Abs(rep.Integral-want) > 1e-12 {
+		t.Errorf("area integral %.15f, Green's identity %.15f", rep.Integral, want)
+	}
+}
