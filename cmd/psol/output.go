@@ -462,6 +462,9 @@ func (v *view) rectStages(sol *domain.Solution) {
 		for _, st := range []*stage{&v.Correction, &v.Harmonic, &v.Solution} {
 			st.Exact = false
 		}
+		if rp.ParticularNumeric {
+			v.Particular.Exact, v.Trace.Exact = false, false
+		}
 		v.checkScope = "; the numeric side series as summed"
 	}
 }

@@ -40,7 +40,10 @@ type RectParts struct {
 	// that no ansatz closes.
 	Quadrature       *ansatz.SineQuadrature
 	QuadratureSource *series.Expr
-	Sides            []RectSide
+	// ParticularNumeric marks a particular solution with decimal
+	// coefficients (a corner fit to numeric data) or a numeric part.
+	ParticularNumeric bool
+	Sides             []RectSide
 }
 
 // RectSide is one side's trace, correction and harmonic series: exact
@@ -270,7 +273,10 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		}
 	}
 	up := withCornerFit(cart.Particular(f, d.L), d, data, p.conds, p.env, wt)
-	parts := &RectParts{Particular: up, Waves: waves, SourceWaves: waveSource, Quadrature: sq, QuadratureSource: rest}
+	parts := &RectParts{Particular: up, Waves: waves, SourceWaves: waveSource, Quadrature: sq, QuadratureSource: rest, ParticularNumeric: wt != nil}
+	for _, g := range data {
+		parts.ParticularNumeric = parts.ParticularNumeric || g.poly == nil // the corner fit takes decimals of such data
+	}
 	sol := &Solution{Domain: d, Source: p.f, Rect: parts, Rest: p.rest}
 	if sq != nil {
 		sol.Numeric = true
