@@ -47,7 +47,7 @@ func (s SideSeries) TermCode(l series.Lang) string {
 	length, width := s.along()
 	ell, w := length.Code(l, "n"), width.Code(l, "n")
 	k := fmt.Sprintf("((%s*n + %s)*%s/%s)", series.RatCoef(fam.Slope).Code(l, "n"), series.RatCoef(fam.Offset).Code(l, "n"), l.Pi, ell)
-	sv, d := s.codeCoords(w)
+	sv, d := s.Side.coords(w)
 	exp := l.Fn["exp"]
 	e := fmt.Sprintf("%s(-%s*(%s - %s))", exp, k, w, d)
 	ed, ew := fmt.Sprintf("%s(-2.0*%s*%s)", exp, k, d), fmt.Sprintf("%s(-2.0*%s*%s)", exp, k, w)
@@ -76,7 +76,7 @@ func (s SideSeries) ConstantCode(l series.Lang) string {
 	}
 	_, width := s.along()
 	w := width.Code(l, "n")
-	_, d := s.codeCoords(w)
+	_, d := s.Side.coords(w)
 	across := d + "/" + w
 	switch {
 	case s.Insulated:
@@ -93,17 +93,4 @@ func (s SideSeries) From() int {
 		return 1
 	}
 	return s.family().From
-}
-
-// codeCoords are the along and across coordinates as code.
-func (s SideSeries) codeCoords(w string) (along, across string) {
-	switch s.Side {
-	case Bottom:
-		return "x", "(" + w + " - y)"
-	case Top:
-		return "x", "y"
-	case Left:
-		return "y", "(" + w + " - x)"
-	}
-	return "y", "x"
 }

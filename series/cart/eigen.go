@@ -352,14 +352,8 @@ func (e *EigenSide) describe(latex bool) string {
 	if e.IsZero() {
 		return "0"
 	}
-	sv, d := "x", "y"
-	if e.Side == Left || e.Side == Right {
-		sv, d = "y", "x"
-	}
 	_, w := e.along()
-	if e.Side == Bottom || e.Side == Left {
-		d = fmt.Sprintf("(%.12g - %s)", w, d)
-	}
+	sv, d := e.Side.coords(fmt.Sprintf("%.12g", w))
 	var bs, mus []string
 	for n := 0; n < len(e.b) && n < 4; n++ {
 		bs, mus = append(bs, fmt.Sprintf("%.6g", e.b[n])), append(mus, fmt.Sprintf("%.9g", e.mu[n]))

@@ -142,17 +142,21 @@ func (s SideSeries) constantAcross(latex bool) string {
 // coords names the along and the across coordinate (distance from the opposite side).
 func (s SideSeries) coords(latex bool) (along, across string) {
 	_, w := s.along()
-	wt := w.Text()
 	if latex {
-		wt = w.LaTeX()
+		return s.Side.coords(w.LaTeX())
 	}
-	switch s.Side {
+	return s.Side.coords(w.Text())
+}
+
+// coords are the side's along and across coordinates, the width written w.
+func (s Side) coords(w string) (along, across string) {
+	switch s {
 	case Bottom:
-		return "x", "(" + wt + " - y)"
+		return "x", "(" + w + " - y)"
 	case Top:
 		return "x", "y"
 	case Left:
-		return "y", "(" + wt + " - x)"
+		return "y", "(" + w + " - x)"
 	}
 	return "y", "x"
 }
