@@ -181,10 +181,9 @@ func endOf(c Condition, env series.Env) cart.End {
 // (sin or cos(nπs/ℓ), series.SineCoefficient, sinh/cosh across); with a
 // Robin condition or data that are no polynomial it is numeric (cart.EigenSide).
 func (d Rect) solve(p *posed) (*Solution, error) {
-	allValues, anyFixing := true, false
+	anyFixing := false
 	for _, name := range d.Sides() {
 		c := p.conds[name]
-		allValues = allValues && c.Kind == Dirichlet
 		anyFixing = anyFixing || c.Kind != Neumann
 		if c.Kind == Robin {
 			h, err := c.H.Float(p.env)
@@ -203,7 +202,6 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 	if err != nil {
 		return nil, unsupported("on the rectangle the source must be a polynomial in x and y, or exponentials and trigonometric functions of them, so far; not %s", p.f.Text())
 	}
-	// The source's exponentials and trigonometric functions: the wave ansatz.
 	// The source's exponentials and trigonometric functions: the wave ansatz,
 	// term by term; the terms it cannot close go to the quadrature fallback.
 	var waves, waveSource cart.Waves
@@ -263,12 +261,12 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 			return cf.At(math.Hypot(x, y), math.Atan2(y, x))
 		}, text: cond.G.Text()}
 	}
-	var wt *waveTraces
+	var wt *numericPart
 	if len(waves) > 0 || sq != nil {
 		if errL != nil || errH != nil {
 			return nil, unsupported("a source with exponentials or trigonometric functions on the rectangle needs its sides' values (--let)")
 		}
-		if wt, err = newWaveTraces(waves, sq, p.env, L, H); err != nil {
+		if wt, err = newNumericPart(waves, sq, p.env, L, H); err != nil {
 			return nil, err
 		}
 	}
@@ -482,7 +480,7 @@ var rectCorners = []struct {
 // takes the mean of their data. w is the first solution of the corner
 // conditions in the harmonics 1, x, y, xy, x² − y², … (up to degree 4): for
 // values on all four sides, the bilinear interpolant of the corner values.
-func withCornerFit(up cart.Poly, d Rect, data map[string]sideData, conds map[string]Condition, env series.Env, wt *waveTraces) cart.Poly {
+func withCornerFit(up cart.Poly, d Rect, data map[string]sideData, conds map[string]Condition, env series.Env, wt *numericPart) cart.Poly {
 	basis := cart.Harmonics(4)
 	var rows [][]series.Coef
 	var rhs []series.Coef
@@ -624,15 +622,15 @@ func cornerWarnings(d Rect, data map[string]sideData, sol *Solution, conds map[s
 	}
 }
 
-// waveTraces evaluates the particular solution's numeric parts — the waves
-// and the quadrature — and their gradient.
-type waveTraces struct {
+// numericPart evaluates the particular solution's parts other than its
+// polynomial — the waves and the quadrature — and their gradient, for traces.
+type numericPart struct {
 	wu, wx, wy *cart.CompiledWaves
 	sq         *ansatz.SineQuadrature
 	L, H       float64
 }
 
-func newWaveTraces(w cart.Waves, sq *ansatz.SineQuadrature, env series.Env, L, H float64) (*waveTraces, error) {
+func newNumericPart(w cart.Waves, sq *ansatz.SineQuadrature, env series.Env, L, H float64) (*numericPart, error) {
 	u, err := w.Compile(env)
 	if err != nil {
 		return nil, err
@@ -642,10 +640,10 @@ func newWaveTraces(w cart.Waves, sq *ansatz.SineQuadrature, env series.Env, L, H
 		return nil, err
 	}
 	uy, err := w.DY().Compile(env)
-	return &waveTraces{wu: u, wx: ux, wy: uy, sq: sq, L: L, H: H}, err
+	return &numericPart{wu: u, wx: ux, wy: uy, sq: sq, L: L, H: H}, err
 }
 
-func (wt *waveTraces) value(x, y float64) float64 {
+func (wt *numericPart) value(x, y float64) float64 {
 	v := wt.wu.At(x, y)
 	if wt.sq != nil {
 		q, _ := wt.sq.At(x, y)
@@ -654,7 +652,7 @@ func (wt *waveTraces) value(x, y float64) float64 {
 	return v
 }
 
-func (wt *waveTraces) grad(x, y float64) (float64, float64) {
+func (wt *numericPart) grad(x, y float64) (float64, float64) {
 	gx, gy := wt.wx.At(x, y), wt.wy.At(x, y)
 	if wt.sq != nil {
 		qx, qy := wt.sq.Grad(x, y)
@@ -666,7 +664,7 @@ func (wt *waveTraces) grad(x, y float64) (float64, float64) {
 // on is the side's operator on the waves as a function of the side's
 // coordinate, or nil where it vanishes on the side (to rounding, at many
 // points), so that the side keeps an exact series.
-func (wt *waveTraces) on(d Rect, name string, cond Condition, env series.Env) func(s float64) float64 {
+func (wt *numericPart) on(d Rect, name string, cond Condition, env series.Env) func(s float64) float64 {
 	if wt == nil {
 		return nil
 	}
