@@ -676,15 +676,20 @@ func compileSeries(ser *seriesNode, term evalFunc) evalFunc {
 func ExprOf(s Sum) *Expr { return &Expr{op: "sum", sum: s} }
 
 // HasSeries reports a remainder that contains a series (slow to evaluate).
-func (e *Expr) HasSeries() bool {
+func (e *Expr) HasSeries() bool { return e.has("series") }
+
+// HasChoice reports a remainder that contains a numeric choice (cond ? a : b).
+func (e *Expr) HasChoice() bool { return e.has("choose") }
+
+func (e *Expr) has(op string) bool {
 	if e == nil {
 		return false
 	}
-	if e.op == "series" {
+	if e.op == op {
 		return true
 	}
 	for _, a := range e.args {
-		if a.HasSeries() {
+		if a.has(op) {
 			return true
 		}
 	}

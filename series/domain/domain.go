@@ -135,7 +135,7 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 		opt.Tol = SumTol
 	}
 	switch {
-	case source.IsPiecewise():
+	case source.IsPiecewise() || source.Rest.HasChoice():
 		return nil, unsupported("a source given piece by piece (cond ? a : b) is not supported; pieces are for boundary data")
 	case !source.IsExact():
 		// The rectangle's wave ansatz or the quadrature fallback takes the part with no closed form.
