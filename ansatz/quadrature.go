@@ -232,10 +232,23 @@ func (q *Quadrature) tail(p panel) float64 {
 				ca += rows[i] * p.a[i][k]
 				cb += rows[i] * p.b[i][k]
 			}
-			out = math.Max(out, math.Max(math.Abs(ca), math.Abs(cb)))
+			out = math.Max(out, math.Max(math.Abs(ca), math.Abs(cb))*q.weight(k))
 		}
 	}
 	return out
+}
+
+// radialTol is the target of the radial meshes: Tol, but never looser than
+// 1e-10, since Gauss–Legendre panels cost little more there, and a mesh
+// much coarser than its halving would make the estimate (their difference)
+// far larger than the error of the values returned (the halved mesh's).
+func radialTol(tol float64) float64 { return math.Min(tol, 1e-10) }
+
+// weight is how mode k's source carries into p, relative to mode 0's:
+// about 4/(ν_k² + 4) (p_k ≈ −r² g_k/ν² for large ν, r² g_0/4 for mode 0).
+func (q *Quadrature) weight(k int) float64 {
+	nu := q.nu(k)
+	return 4 / (nu*nu + 4)
 }
 
 func (p panel) peak() float64 {
@@ -261,21 +274,29 @@ func (q *Quadrature) Prepare() error {
 	for n := 32; ; n *= 2 {
 		q.Samples = n
 		worst, scale, modes := 0.0, 0.0, 0
+		// What matters is each mode's share of p (weight): its source over ν².
+		var sizes []float64
 		for _, r := range q.probes() {
 			a, b := q.ring(r)
 			for k := range a {
-				v := math.Hypot(a[k], b[k])
+				v := math.Hypot(a[k], b[k]) * q.weight(k)
 				scale = math.Max(scale, v)
 				if k >= n/4 {
 					worst = math.Max(worst, v)
 				}
-				if v > 0 { // ring has dropped what is below the FFT's rounding
-					modes = max(modes, k)
+				for len(sizes) <= k {
+					sizes = append(sizes, 0)
 				}
+				sizes[k] = math.Max(sizes[k], v)
 			}
 		}
 		if worst > q.Tol*math.Max(scale, 1e-300) && n < 1<<12 {
 			continue
+		}
+		for k, v := range sizes { // every mode above rounding's reach
+			if v > 1e-16*scale {
+				modes = k
+			}
 		}
 		q.Modes = modes
 		mesh, err := q.mesh()
@@ -284,12 +305,13 @@ func (q *Quadrature) Prepare() error {
 		}
 		q.coarse = q.refine(mesh, scale)
 		q.fine = q.halve(q.coarse)
-		// Every mode the samples resolve is kept; those beyond them are about
-		// the size of the top band's (a bound on its particular solutions),
-		// and when the samples reached their cap, a tail like 1/k² from the last.
+		// The modes left out: those not kept, and beyond the samples about
+		// the size of the last ones computed (bounds on their particular
+		// solutions); when the samples reached their cap, a tail like 1/k²
+		// from the last.
 		size := q.modeSizes(q.coarse)
-		q.dropped, q.Truncation = 0, 0
-		for k := n / 4; k < len(size); k++ {
+		q.dropped, q.Truncation = math.Max(size[len(size)-1], size[len(size)-2]), 0 // two: a sector keeps every other mode
+		for k := q.Modes + 1; k < len(size); k++ {
 			q.dropped = math.Max(q.dropped, size[k])
 		}
 		if q.Converged = worst <= q.Tol*math.Max(scale, 1e-300); !q.Converged {
@@ -374,9 +396,11 @@ func (q *Quadrature) refine(mesh []panel, scale float64) []panel {
 		ref = q.A
 	}
 	var out []panel
+	budget := 400 // bisections; past it the halved mesh's estimate tells what is left
 	var visit func(p panel, depth int)
 	visit = func(p panel, depth int) {
-		if !p.infinite && depth < 30 && q.tail(p)*(p.hi-p.lo)*p.hi > 0.1*q.Tol*scale*ref*ref {
+		if !p.infinite && depth < 30 && budget > 0 && q.tail(p)*(p.hi-p.lo)*p.hi > 0.1*radialTol(q.Tol)*scale*ref*ref {
+			budget--
 			mid := (p.lo + p.hi) / 2
 			visit(q.newPanel(p.lo, mid, false), depth+1)
 			visit(q.newPanel(mid, p.hi, false), depth+1)
@@ -408,14 +432,25 @@ func (q *Quadrature) halve(mesh []panel) []panel {
 	return out
 }
 
-// modeSizes bounds each mode's particular solution: |p_k| ≤ (1/2ν_k) ∫ s |g_k| ds.
+// modeSizes bounds each mode's particular solution: |p_k| ≤ (1/2ν_k) ∫ s |g_k| ds,
+// or the sharper bound below.
 func (q *Quadrature) modeSizes(mesh []panel) []float64 {
 	size := make([]float64, q.Samples/2)
+	peak := make([]float64, q.Samples/2)
 	for _, p := range mesh {
 		for i, s := range p.s {
 			for k := 1; k < len(p.a[i]); k++ {
-				size[k] += p.w[i] * s * math.Hypot(p.a[i][k], p.b[i][k]) / (2 * q.nu(k))
+				g := math.Hypot(p.a[i][k], p.b[i][k])
+				size[k] += p.w[i] * s * g / (2 * q.nu(k))
+				peak[k] = math.Max(peak[k], g)
 			}
+		}
+	}
+	// Inside a circle of radius R and for ν > 2 the kernel's integrals are
+	// at most r²/(ν + 2) and r²/(ν − 2): |p_k| ≤ max|g_k| R²/(ν² − 4), sharper.
+	for k := range size {
+		if nu := q.nu(k); nu > 2 && !math.IsInf(q.R, 1) {
+			size[k] = math.Min(size[k], peak[k]*q.R*q.R/(nu*nu-4))
 		}
 	}
 	return size
