@@ -222,9 +222,11 @@ func (q *SineQuadrature) Prepare() {
 
 func (q *SineQuadrature) refine(mesh []sinePanel, scale float64) []sinePanel {
 	var out []sinePanel
+	budget := 400 // bisections; past it the halved mesh's estimate tells what is left
 	var visit func(p sinePanel, depth int)
 	visit = func(p sinePanel, depth int) {
-		if depth < 20 && q.tail(p)*(p.hi-p.lo) > 0.1*radialTol(q.Tol)*scale*q.H {
+		if depth < 20 && budget > 0 && q.tail(p)*(p.hi-p.lo) > 0.1*radialTol(q.Tol)*scale*q.H {
+			budget--
 			mid := (p.lo + p.hi) / 2
 			visit(q.newPanel(p.lo, mid), depth+1)
 			visit(q.newPanel(mid, p.hi), depth+1)
