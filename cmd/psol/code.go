@@ -22,6 +22,9 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 	if sol.Rect != nil {
 		return writeRectCode(w, l, pr, sol, terms)
 	}
+	if sol.Quadrature != nil { // the numeric particular part has no formula to write
+		return &domain.Unsupported{Reason: "generated code for a source part by quadrature is not written yet"}
+	}
 	closed := sol.U
 	var parts []series.Series
 	if sol.Series != nil {
