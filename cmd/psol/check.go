@@ -94,7 +94,7 @@ func (o *checkOptions) run(w io.Writer, equation string) error {
 		rep.Checks = append(rep.Checks, res)
 	}
 	// Where psol solves the problem in closed form, say how far off the claim is.
-	if sol, err := pr.solve(); err == nil && sol.Series == nil && !sol.Numeric && claim.IsExact() && sol.Free == "" {
+	if sol, err := pr.solve(); err == nil && sol.IsClosed() && claim.IsExact() && sol.Free == "" {
 		if d := claim.Exact.Sub(sol.U); !d.IsZero() {
 			rep.OffBy = d.Text()
 		}

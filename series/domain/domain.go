@@ -197,6 +197,25 @@ func freeName(used map[string]bool) string {
 	return "C_free"
 }
 
+// IsClosed reports a solution whose U is the whole answer: no series, no
+// numeric part, and on a rectangle no side series or waves.
+func (s *Solution) IsClosed() bool {
+	if s.Series != nil || s.Numeric || s.Quadrature != nil {
+		return false
+	}
+	if s.Rect != nil {
+		if len(s.Rect.Waves) > 0 || s.Rect.Quadrature != nil {
+			return false
+		}
+		for _, side := range s.Rect.Sides {
+			if side.Eigen != nil || side.Series != nil && !side.Correction.IsZero() {
+				return false
+			}
+		}
+	}
+	return true
+}
+
 // Pin gives the free additive constant its value.
 func (s *Solution) Pin(v series.Coef) error {
 	env := series.Env{s.Free: v}
