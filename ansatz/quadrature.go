@@ -493,6 +493,7 @@ func (q *Quadrature) eval(mesh []panel, r float64) (p, dp [][2]float64) {
 	if r < q.A {
 		r = q.A
 	}
+
 	lnr := math.Log(r)
 	for i := range mesh {
 		pn := &mesh[i]
@@ -525,7 +526,9 @@ func (q *Quadrature) eval(mesh []panel, r float64) (p, dp [][2]float64) {
 				f *= x
 				for j := 0; j < 2; j++ {
 					p[k][j] -= f / (2 * nu) * pn.above[k][j]
-					dp[k][j] -= f / (2 * r) * pn.above[k][j]
+					if r > 0 { // at the centre p_k' is a limit the values do not need
+						dp[k][j] -= f / (2 * r) * pn.above[k][j]
+					}
 				}
 			}
 		default:

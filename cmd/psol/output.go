@@ -4,6 +4,7 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"math"
 	"strconv"
 	"strings"
 
@@ -198,7 +199,11 @@ func renderText(w io.Writer, v *view) error {
 	if r := v.Report; r != nil {
 		line(w, "report", fmt.Sprintf("max u = %.12g at r = %.6g, theta = %.6g", r.Max, r.ArgMax[0], r.ArgMax[1]))
 		line(w, "report", fmt.Sprintf("min u = %.12g at r = %.6g, theta = %.6g", r.Min, r.ArgMin[0], r.ArgMin[1]))
-		line(w, "report", "area integral of u = "+figure(r.IntegralText, r.Integral)+fmt.Sprintf(", mean u = %.12g", r.Mean))
+		if r.Integral == nil {
+			line(w, "report", "area integral of u: not finite over the unbounded region")
+		} else {
+			line(w, "report", "area integral of u = "+figure(r.IntegralText, *r.Integral)+fmt.Sprintf(", mean u = %.12g", *r.Mean))
+		}
 		line(w, "report", "net outward flux = "+figure(r.FluxText, r.Flux)+", source integral = "+figure(r.SourceText, r.SourceIntegral)+
 			fmt.Sprintf(" (divergence theorem: difference %.2g)", r.Flux-r.SourceIntegral))
 		if r.Note != "" {
@@ -220,9 +225,9 @@ type reportOut struct {
 	Min            float64    `json:"min"`
 	ArgMax         [2]float64 `json:"argmax"`
 	ArgMin         [2]float64 `json:"argmin"`
-	Integral       float64    `json:"integral"`
+	Integral       *float64   `json:"integral"` // null where it is not finite (outside a circle)
 	IntegralText   string     `json:"integral_exact,omitempty"`
-	Mean           float64    `json:"mean"`
+	Mean           *float64   `json:"mean"`
 	Flux           float64    `json:"flux"`
 	FluxText       string     `json:"flux_exact,omitempty"`
 	SourceIntegral float64    `json:"source_integral"`
@@ -237,8 +242,14 @@ func newReportOut(r *domain.Report) *reportOut {
 		}
 		return c.Text()
 	}
-	return &reportOut{Max: r.Max, Min: r.Min, ArgMax: r.ArgMax, ArgMin: r.ArgMin, Integral: r.Integral, IntegralText: text(r.IntegralExact),
-		Mean: r.Mean, Flux: r.Flux, FluxText: text(r.FluxExact), SourceIntegral: r.Source, SourceText: text(r.SourceExact), Note: r.Bounded}
+	finite := func(v float64) *float64 {
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return nil
+		}
+		return &v
+	}
+	return &reportOut{Max: r.Max, Min: r.Min, ArgMax: r.ArgMax, ArgMin: r.ArgMin, Integral: finite(r.Integral), IntegralText: text(r.IntegralExact),
+		Mean: finite(r.Mean), Flux: r.Flux, FluxText: text(r.FluxExact), SourceIntegral: r.Source, SourceText: text(r.SourceExact), Note: r.Bounded}
 }
 
 // figure prints an exact value with its decimal, or the decimal alone.

@@ -51,6 +51,7 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 		}
 		if out == nil {
 			rep.Bounded = "the region is unbounded: extremes are over R <= r <= 10R, and u has no finite area integral unless it decays"
+			rep.Integral, rep.Mean = math.NaN(), math.NaN() // unless the integral below converges
 		}
 		if c, err := s.U.AreaIntegral(in, out); err == nil { // series modes n ≥ 1 integrate to zero
 			c, v, err := sub(c)
