@@ -273,14 +273,13 @@ func (e *EigenSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
 		tail = float64(n+1) * math.Abs(term)
 		if tail <= tol*math.Max(1, math.Abs(sum)) {
 			if quiet++; quiet >= 4 {
-				tail = 0
 				break
 			}
 		} else {
 			quiet = 0
 		}
 	}
-	if tail > 0 && len(e.b) > 0 { // the modes beyond the computed ones: about the last one's size, times n
+	if len(e.b) > 0 { // the modes beyond the computed ones: about the last one's size, times n
 		tail = math.Max(tail, math.Abs(e.b[len(e.b)-1]*e.across(e.mu[len(e.b)-1], d))*float64(len(e.b)))
 	}
 	return sum, tail
