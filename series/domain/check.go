@@ -209,7 +209,11 @@ func numericLaplacianResidual(d Domain, f, claim series.Field, env series.Env) (
 	return out, nil
 }
 
-func numericSideResidual(d Domain, side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
+// sampledSideResidual is a side's largest |B[claim] − g| at 48 points,
+// B the condition's operator: point(u, k) gives the k-th point (r, θ) and
+// the claim's outward normal derivative there.
+func sampledSideResidual(side string, cond Condition, claim series.Field, env series.Env,
+	point func(u series.CompiledField, k int) (r, th, dn float64, err error)) (ClaimCheck, error) {
 	u, err := claim.Compile(env)
 	if err != nil {
 		return ClaimCheck{}, err
@@ -225,50 +229,49 @@ func numericSideResidual(d Domain, side string, cond Condition, claim series.Fie
 		}
 	}
 	out := ClaimCheck{Name: OperatorText(cond, "u") + " - g", Side: side}
-	c, isCircle, at := boundaryOf(d, side)
 	for k := 0; k < 48; k++ {
-		var r, th, dn float64
-		const eps = 1e-5
+		r, th, dn, err := point(u, k)
+		if err != nil {
+			return ClaimCheck{}, err
+		}
+		v := u.At(r, th)
+		lhs := map[Kind]float64{Dirichlet: v, Neumann: dn, Robin: dn + h*v}[cond.Kind]
+		if res := math.Abs(lhs - g.At(r, th)); res > out.Max || math.IsNaN(res) || k == 0 {
+			out.Max, out.Where = res, [2]float64{r, th}
+		}
+	}
+	return out, nil
+}
+
+// numericSideResidual samples a circle (or arc) or a sector's ray.
+func numericSideResidual(d Domain, side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
+	c, isCircle, at := boundaryOf(d, side)
+	const eps = 1e-5
+	return sampledSideResidual(side, cond, claim, env, func(u series.CompiledField, k int) (r, th, dn float64, err error) {
 		if isCircle {
 			R, err := c.radius.Float(env)
 			if err != nil {
-				return ClaimCheck{}, err
+				return 0, 0, 0, err
 			}
 			r, th = R, 2*math.Pi*(float64(k)+0.5)/48
 			if s, ok := d.(Sector); ok {
 				a, _ := s.Alpha.Float(nil)
 				th = a * (float64(k) + 0.5) / 48
 			}
-			dn = float64(c.outward) * (u.At(r+eps, th) - u.At(r-eps, th)) / (2 * eps)
-		} else {
-			s := d.(Sector)
-			R, err := s.R.Float(env)
-			if err != nil {
-				return ClaimCheck{}, err
-			}
-			th, _ = at.Float(nil)
-			r = R * (float64(k) + 0.5) / 48
-			sign := -1.0
-			if th > 0 {
-				sign = 1
-			}
-			dn = sign * (u.At(r, th+eps) - u.At(r, th-eps)) / (2 * eps * r)
+			return r, th, float64(c.outward) * (u.At(r+eps, th) - u.At(r-eps, th)) / (2 * eps), nil
 		}
-		v := u.At(r, th)
-		var lhs float64
-		switch cond.Kind {
-		case Dirichlet:
-			lhs = v
-		case Neumann:
-			lhs = dn
-		default:
-			lhs = dn + h*v
+		R, err := d.(Sector).R.Float(env)
+		if err != nil {
+			return 0, 0, 0, err
 		}
-		if res := math.Abs(lhs - g.At(r, th)); res > out.Max || math.IsNaN(res) || k == 0 {
-			out.Max, out.Where = res, [2]float64{r, th}
+		th, _ = at.Float(nil)
+		r = R * (float64(k) + 0.5) / 48
+		sign := -1.0
+		if th > 0 {
+			sign = 1
 		}
-	}
-	return out, nil
+		return r, th, sign * (u.At(r, th+eps) - u.At(r, th-eps)) / (2 * eps * r), nil
+	})
 }
 
 // Describe is a check in words for output.
@@ -296,14 +299,6 @@ func (d Rect) sideResidual(side string, cond Condition, claim series.Field, env 
 			return ClaimCheck{Name: name, Side: side, Exact: true, Residual: res.Polar()}, nil
 		}
 	}
-	u, err := claim.Compile(env)
-	if err != nil {
-		return ClaimCheck{}, err
-	}
-	g, err := cond.G.Compile(env)
-	if err != nil {
-		return ClaimCheck{}, err
-	}
 	L, err := d.L.Float(env)
 	if err != nil {
 		return ClaimCheck{}, err
@@ -312,26 +307,14 @@ func (d Rect) sideResidual(side string, cond Condition, claim series.Field, env 
 	if err != nil {
 		return ClaimCheck{}, err
 	}
-	h := 0.0
-	if cond.Kind == Robin {
-		if h, err = cond.H.Float(env); err != nil {
-			return ClaimCheck{}, err
-		}
-	}
-	at := func(f series.CompiledField, x, y float64) float64 { return f.At(math.Hypot(x, y), math.Atan2(y, x)) }
 	geo := d.geometry(side)
 	normal := map[string][2]float64{"left": {-1, 0}, "right": {1, 0}, "bottom": {0, -1}, "top": {0, 1}}[side]
 	l, _ := geo.length.Float(env)
 	eps := 1e-5 * math.Max(L, H)
-	out := ClaimCheck{Name: name, Side: side}
-	for k := 0; k < 48; k++ {
+	return sampledSideResidual(side, cond, claim, env, func(u series.CompiledField, k int) (r, th, dn float64, err error) {
 		x, y := geo.point(l*(float64(k)+0.5)/48, L, H)
-		v := at(u, x, y)
-		dn := (at(u, x+eps*normal[0], y+eps*normal[1]) - at(u, x-eps*normal[0], y-eps*normal[1])) / (2 * eps)
-		lhs := map[Kind]float64{Dirichlet: v, Neumann: dn, Robin: dn + h*v}[cond.Kind]
-		if res := math.Abs(lhs - at(g, x, y)); res > out.Max || math.IsNaN(res) || k == 0 {
-			out.Max, out.Where = res, [2]float64{math.Hypot(x, y), math.Atan2(y, x)}
-		}
-	}
-	return out, nil
+		at := func(x, y float64) float64 { return u.At(math.Hypot(x, y), math.Atan2(y, x)) }
+		dn = (at(x+eps*normal[0], y+eps*normal[1]) - at(x-eps*normal[0], y-eps*normal[1])) / (2 * eps)
+		return math.Hypot(x, y), math.Atan2(y, x), dn, nil
+	})
 }
