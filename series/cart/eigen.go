@@ -265,18 +265,14 @@ func (e *EigenSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
 	if e.constant {
 		sum = e.b0 * e.across0(d)
 	}
-	quiet := 0
+	stop := stopRule{runs: 4}
 	tail = math.Inf(1)
 	for n := 0; n < len(e.b) && n < maxTerms; n++ {
 		term := e.b[n] * e.across(e.mu[n], d)
 		sum += term * math.Cos(e.mu[n]*s-e.delta[n])
 		tail = float64(n+1) * math.Abs(term)
-		if tail <= tol*math.Max(1, math.Abs(sum)) {
-			if quiet++; quiet >= 4 {
-				break
-			}
-		} else {
-			quiet = 0
+		if stop.small(tail, sum, tol) {
+			break
 		}
 	}
 	if len(e.b) > 0 { // the modes beyond the computed ones: about the last one's size, times n

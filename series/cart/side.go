@@ -307,7 +307,7 @@ func (c *CompiledSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
 		trig = math.Sin
 	}
 	cur, prev, twoCos := trig(k0*s), trig((k0-dk)*s), 2*math.Cos(dk*s)
-	quiet := 0
+	stop := stopRule{runs: 4}
 	tail = math.Inf(1)
 	k := k0
 	for n := n0; n < c.from+maxTerms; n++ {
@@ -327,15 +327,11 @@ func (c *CompiledSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
 			term := b * across
 			sum += term * cur
 			tail = float64(n+1) * math.Abs(term)
-			if tail <= tol*math.Max(1, math.Abs(sum)) {
-				if quiet++; quiet >= 4 {
-					break
-				}
-			} else {
-				quiet = 0
+			if stop.small(tail, sum, tol) {
+				break
 			}
 		} else {
-			quiet++
+			stop.quiet++
 		}
 		e, ed, ew, k = e*eStep, ed*edStep, ew*ewStep, k+dk
 		cur, prev = twoCos*cur-prev, cur
@@ -352,18 +348,14 @@ func (c *CompiledSide) Integral(tol float64, maxTerms int) float64 {
 	if !c.sin || c.offset != 0 || c.flux || c.insulated {
 		return c.integralByQuadrature()
 	}
-	sum, quiet := 0.0, 0
+	sum, stop := 0.0, stopRule{runs: 8} // even n give 0: ask for a longer run of small terms
 	for n := 1; n <= maxTerms; n++ {
 		k := float64(n) * math.Pi / c.l
 		odd := 1 - math.Pow(-1, float64(n))
 		term := c.coef(n) * odd / k * math.Tanh(k*c.w/2) / k
 		sum += term
-		if math.Abs(term)*float64(n) < tol*math.Max(1, math.Abs(sum)) { // even n give 0: ask for a run of small terms
-			if quiet++; quiet >= 8 {
-				break
-			}
-		} else {
-			quiet = 0
+		if stop.small(math.Abs(term)*float64(n), sum, tol) {
+			break
 		}
 	}
 	return sum
@@ -430,4 +422,17 @@ func (s SideSeries) acrossFunctions(prefix string) (num, den string) {
 		num, den = "sinh", "cosh"
 	}
 	return prefix + num, prefix + den
+}
+
+// stopRule ends a series sum once runs terms in a row have a bound below
+// tol·max(1, |sum|): one term can be small by accident (a zero of sin nπ/2).
+type stopRule struct{ runs, quiet int }
+
+func (r *stopRule) small(bound, sum, tol float64) bool {
+	if bound > tol*math.Max(1, math.Abs(sum)) {
+		r.quiet = 0
+		return false
+	}
+	r.quiet++
+	return r.quiet >= r.runs
 }
