@@ -429,7 +429,13 @@ func (s SideSeries) acrossFunctions(prefix string) (num, den string) {
 type stopRule struct{ runs, quiet int }
 
 func (r *stopRule) small(bound, sum, tol float64) bool {
-	if bound > tol*math.Max(1, math.Abs(sum)) {
+	if sum < 0 { // |sum|, kept simple enough to inline in the hot loops
+		sum = -sum
+	}
+	if sum < 1 {
+		sum = 1
+	}
+	if !(bound <= tol*sum) { // NaN is never small
 		r.quiet = 0
 		return false
 	}
