@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math/big"
 	"sort"
+	"strconv"
 	"strings"
 
 	"github.com/alecthomas/participle/v2"
@@ -16,10 +17,11 @@ import (
 
 // Limits that keep exact arithmetic bounded; DEVELOPERS.md documents them.
 const (
-	MaxDecimalExponent = 1000 // |e| in a literal such as 2e5
-	MaxExponent        = 1000 // |numerator| and denominator of a power's exponent
-	MaxSumPower        = 64   // whole power of an expression with several terms
-	MaxSize            = 5000 // monomials in an intermediate result
+	MaxDecimalExponent = 1000  // |e| in a literal such as 2e5
+	MaxExponent        = 1000  // |numerator| and denominator of a power's exponent
+	MaxSumPower        = 64    // whole power of an expression that expands: several terms, or a trigonometric factor such as x = r·cos θ
+	MaxSize            = 5000  // monomials in an intermediate result
+	MaxBits            = 16384 // bits of any numerator or denominator in an intermediate result (about 4900 digits)
 )
 
 // value is what lowering makes of a node: an affine form
@@ -204,6 +206,7 @@ func (lw *lowerer) additive(a *additive) (value, error) {
 	if err != nil {
 		return value{}, err
 	}
+	terms := []value{v}
 	for _, t := range a.Rest {
 		w, err := lw.product(t.Right)
 		if err != nil {
@@ -212,9 +215,19 @@ func (lw *lowerer) additive(a *additive) (value, error) {
 		if t.Op == "-" {
 			w = w.scale(series.IntCoef(-1))
 		}
-		v = v.add(w)
+		terms = append(terms, w)
 	}
-	return v, nil
+	return total(terms), nil
+}
+
+// total adds the terms pairwise, so that a long printed sum read back costs
+// n log n merges rather than n².
+func total(terms []value) value {
+	if len(terms) == 1 {
+		return terms[0]
+	}
+	half := len(terms) / 2
+	return total(terms[:half]).add(total(terms[half:]))
 }
 
 func (lw *lowerer) product(p *product) (value, error) {
@@ -267,6 +280,9 @@ func (lw *lowerer) mul(v value, vpos lexer.Position, w value, wpos lexer.Positio
 	}
 	if v.f.Exact.Size()*w.f.Exact.Size() > MaxSize {
 		return value{}, lw.fail(wpos, "the expanded expression would exceed %d terms", MaxSize)
+	}
+	if v.f.Exact.Bits()+w.f.Exact.Bits() > MaxBits {
+		return value{}, lw.fail(wpos, "a number in the product would exceed %d bits", MaxBits)
 	}
 	return value{f: v.f.Mul(w.f)}, nil
 }
@@ -345,10 +361,14 @@ func (lw *lowerer) raise(v value, vpos lexer.Position, exp *unary) (value, error
 	if new(big.Int).Abs(q.Num()).Cmp(big.NewInt(MaxExponent)) > 0 || q.Denom().Cmp(big.NewInt(MaxExponent)) > 0 {
 		return value{}, lw.fail(exp.Pos, "exponent %s is beyond the bound %d on its numerator and denominator", q.RatString(), MaxExponent)
 	}
-	if q.IsInt() && q.Num().Int64() > MaxSumPower && v.f.Exact.Size() > 1 {
-		return value{}, lw.fail(exp.Pos, "a power of a sum is limited to %d", MaxSumPower)
+	expands := v.f.Exact.Size() > 1 || v.f.Exact.MaxMode() > 0
+	if q.IsInt() && new(big.Int).Abs(q.Num()).Int64() > MaxSumPower && expands {
+		return value{}, lw.fail(exp.Pos, "a whole power of an expression that expands (a sum, x or y, a cosine) takes an exponent of at most ±%d", MaxSumPower)
 	}
-	if q.IsInt() && q.Sign() > 0 && v.f.IsExact() && v.f.Exact.Size() > 1 {
+	if q.IsInt() && int64(v.f.Exact.Bits())*new(big.Int).Abs(q.Num()).Int64() > MaxBits {
+		return value{}, lw.fail(exp.Pos, "a number in this power would exceed %d bits", MaxBits)
+	}
+	if q.IsInt() && q.Sign() > 0 && v.f.IsExact() && expands {
 		// Expand step by step so that a blow-up is caught before it happens.
 		acc := v
 		for i := int64(1); i < q.Num().Int64(); i++ {
@@ -389,8 +409,9 @@ func (lw *lowerer) primary(p *primary) (value, error) {
 
 func (lw *lowerer) number(text string, pos lexer.Position) (*big.Rat, error) {
 	if i := strings.IndexAny(text, "eE"); i >= 0 {
-		var e int
-		if _, err := fmt.Sscan(text[i+1:], &e); err != nil || e > MaxDecimalExponent || e < -MaxDecimalExponent {
+		// Decimal, as big.Rat reads it: fmt.Sscan would take 0700800 for octal.
+		e, err := strconv.Atoi(text[i+1:])
+		if err != nil || e > MaxDecimalExponent || e < -MaxDecimalExponent {
 			return nil, lw.fail(pos, "the exponent of %s is beyond ±%d", text, MaxDecimalExponent)
 		}
 	}

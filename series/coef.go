@@ -233,6 +233,13 @@ func (c Coef) Pow(q *big.Rat) (Coef, error) {
 	if x, ok := c.Rat(); ok && q.IsInt() && (x.Sign() != 0 || q.Sign() > 0) {
 		return RatCoef(ratPowInt(x, q.Num().Int64())), nil // the common case: a numeric radius
 	}
+	if c.den.IsZero() && c.num.isMonomial() {
+		p, err := c.num.PowRat(q)
+		if err != nil {
+			return Coef{}, err
+		}
+		return Coef{num: p}, nil
+	}
 	if q.IsInt() {
 		n := q.Num().Int64()
 		if n < 0 {

@@ -169,7 +169,7 @@ var (
 
 // PowRat is p^q for a single-term p; q fractional needs a positive coefficient.
 func (p Poly) PowRat(q *big.Rat) (Poly, error) {
-	if q.IsInt() && q.Sign() >= 0 {
+	if q.IsInt() && q.Sign() >= 0 && !p.isMonomial() {
 		n := q.Num().Int64()
 		out := RatPoly(one)
 		for i := int64(0); i < n; i++ {

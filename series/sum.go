@@ -213,6 +213,16 @@ func (t Term) isConst() bool { return t.power().Sign() == 0 && t.L == 0 && t.K =
 // Pow is s^q: a whole power of any sum, or any rational power of a single
 // term with no logarithm, angle or trigonometric factor.
 func (s Sum) Pow(q *big.Rat) (Sum, error) {
+	if q.IsInt() && q.Sign() >= 0 && len(s.t) == 1 && s.t[0].M == 0 {
+		// One term without a cosine: multiply the exponents.
+		t := s.t[0]
+		c, err := t.C.Pow(q)
+		if err != nil {
+			return Sum{}, err
+		}
+		n := int(q.Num().Int64())
+		return NewSum(Term{C: c, P: new(big.Rat).Mul(t.power(), q), L: t.L * n, K: t.K * n}), nil
+	}
 	if q.IsInt() && q.Sign() >= 0 {
 		n := q.Num().Int64()
 		out := Const(IntCoef(1))
@@ -272,6 +282,20 @@ func (s Sum) MaxMode() int {
 		}
 	}
 	return m
+}
+
+// Bits is the bit length of the largest numerator or denominator among s's
+// coefficients: a bound on the cost of its arithmetic, as Size bounds the count.
+func (s Sum) Bits() int {
+	n := 0
+	for _, t := range s.t {
+		for _, p := range []Poly{t.C.num, t.C.den} {
+			for _, pt := range p.t {
+				n = max(n, pt.c.Num().BitLen(), pt.c.Denom().BitLen())
+			}
+		}
+	}
+	return n
 }
 
 // Size counts the monomials of s, coefficients included: a bound on the work of a product.
