@@ -284,7 +284,16 @@ func (lw *lowerer) mul(v value, vpos lexer.Position, w value, wpos lexer.Positio
 	if v.f.Exact.Bits()+w.f.Exact.Bits() > MaxBits {
 		return value{}, lw.fail(wpos, "a number in the product would exceed %d bits", MaxBits)
 	}
-	return value{f: v.f.Mul(w.f)}, nil
+	return lw.printable(value{f: v.f.Mul(w.f)}, wpos)
+}
+
+// printable refuses a result with an exponent beyond the bound on those
+// written in the input, so that everything printed reads back.
+func (lw *lowerer) printable(v value, pos lexer.Position) (value, error) {
+	if v.f.Exact.MaxExponent() > MaxExponent {
+		return value{}, lw.fail(pos, "an exponent in the result would exceed the bound %d", MaxExponent)
+	}
+	return v, nil
 }
 
 func unknownName(v value) string {
@@ -382,7 +391,7 @@ func (lw *lowerer) raise(v value, vpos lexer.Position, exp *unary) (value, error
 	if err != nil {
 		return value{}, lw.fail(vpos, "%v", err)
 	}
-	return value{f: f}, nil
+	return lw.printable(value{f: f}, exp.Pos)
 }
 
 func (lw *lowerer) primary(p *primary) (value, error) {

@@ -142,8 +142,10 @@ func TestBadInput(t *testing.T) {
 		{"lap(u) = (1+r)^65", 16, "power of an expression that expands"},
 		{"lap(u) = x^270", 12, "power of an expression that expands"}, // x = r·cos θ expands into 136 modes
 		{"lap(u) = (1+a)^-80", 16, "power of an expression that expands"},
-		{"lap(u) = ((2^1000)^1000)^10", 20, "exceed 16384 bits"}, // once ran out of memory under the fuzzer
-		{"lap(u) = 1E0700800", 10, "beyond"},                     // a leading 0 is decimal, not octal
+		{"lap(u) = ((2^1000)^1000)^10", 20, "exceed 16384 bits"},          // once ran out of memory under the fuzzer
+		{"lap(u) = (a^70)^20", 17, "exponent in the result would exceed"}, // a^1400 would not read back
+		{"lap(u) = r^999*r^2", 16, "exponent in the result would exceed"},
+		{"lap(u) = 1E0700800", 10, "beyond"}, // a leading 0 is decimal, not octal
 		{"lap(v) = 1", 5, "applies to u only"},
 		{"lap(u) = 1e5000", 10, "beyond"},
 		{"lap(u) = 2 $ 3", 12, "unexpected"},

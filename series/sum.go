@@ -298,6 +298,40 @@ func (s Sum) Bits() int {
 	return n
 }
 
+// MaxExponent is the largest |numerator| or denominator among the exponents
+// s prints: of r, ln r and θ, and of the atoms in its coefficients.
+func (s Sum) MaxExponent() int64 {
+	var n int64
+	grow := func(q *big.Rat) {
+		for _, z := range []*big.Int{q.Num(), q.Denom()} {
+			if z.BitLen() > 62 {
+				n = 1 << 62
+				return
+			}
+			n = max(n, abs64(z.Int64()))
+		}
+	}
+	for _, t := range s.t {
+		grow(t.power())
+		n = max(n, int64(t.L), int64(t.K))
+		for _, p := range []Poly{t.C.num, t.C.den} {
+			for _, pt := range p.t {
+				for _, f := range pt.m.f {
+					grow(f.exp)
+				}
+			}
+		}
+	}
+	return n
+}
+
+func abs64(z int64) int64 {
+	if z < 0 {
+		return -z
+	}
+	return z
+}
+
 // Size counts the monomials of s, coefficients included: a bound on the work of a product.
 func (s Sum) Size() int {
 	n := 0
