@@ -197,8 +197,8 @@ func renderText(w io.Writer, v *view) error {
 		line(w, "point", at)
 	}
 	if r := v.Report; r != nil {
-		line(w, "report", fmt.Sprintf("max u = %.12g at r = %.6g, theta = %.6g", r.Max, r.ArgMax[0], r.ArgMax[1]))
-		line(w, "report", fmt.Sprintf("min u = %.12g at r = %.6g, theta = %.6g", r.Min, r.ArgMin[0], r.ArgMin[1]))
+		line(w, "report", fmt.Sprintf("max u = %.12g at %s", r.Max, where(r.ArgMax)))
+		line(w, "report", fmt.Sprintf("min u = %.12g at %s", r.Min, where(r.ArgMin)))
 		if r.Integral == nil {
 			line(w, "report", "area integral of u: not finite over the unbounded region")
 		} else {
@@ -401,6 +401,18 @@ func (v *view) approximate(sol *domain.Solution) {
 	mark(&v.Solution, "u ≈ "+solText, solTeX)
 }
 
+// where is a polar point, with its Cartesian coordinates beside.
+func where(p [2]float64) string {
+	x, y := p[0]*math.Cos(p[1]), p[0]*math.Sin(p[1])
+	snap := func(v float64) float64 { // the rounding of cos(π/2), and no −0
+		if math.Abs(v) < 1e-12*p[0] {
+			return 0
+		}
+		return v
+	}
+	return fmt.Sprintf("r = %.6g, theta = %.6g (x = %.6g, y = %.6g)", p[0], p[1], snap(x), snap(y))
+}
+
 // sidePrefix names the side in a stage line where the region has several.
 func sidePrefix(sol *domain.Solution, s domain.Side) string {
 	if len(sol.Sides) > 1 {
@@ -423,8 +435,11 @@ func (v *view) rectStages(sol *domain.Solution) {
 		if sol.Numeric {
 			trText, trLaTeX = s.Trace.TextApprox(), s.Trace.LaTeXApprox()
 		}
-		if s.WaveTrace {
-			trText, trLaTeX = trText+" + (the waves' trace)", trLaTeX+` + u_w`
+		switch {
+		case s.NumericTrace != "" && s.Trace.IsZero():
+			trText, trLaTeX = "("+s.NumericTrace+")", s.NumericTraceLaTeX
+		case s.NumericTrace != "":
+			trText, trLaTeX = trText+" + ("+s.NumericTrace+")", trLaTeX+` + `+s.NumericTraceLaTeX
 		}
 		tr = append(tr, s.Name+": "+trText)
 		trTeX = append(trTeX, `\text{`+s.Name+`: } `+trLaTeX)

@@ -28,7 +28,7 @@ func quantity(name string, pr *problem, rep *domain.Report) ([]string, error) {
 	case "torsion":
 		out = append(out, fmt.Sprintf("torsion constant J = 2 * area integral of u = %.12g (u the stress function of lap(u) = -2, zero on the outer boundary)", 2*rep.Integral))
 	case "peak":
-		out = append(out, fmt.Sprintf("peak u = %.12g at r = %.6g, theta = %.6g", rep.Max, rep.ArgMax[0], rep.ArgMax[1]))
+		out = append(out, fmt.Sprintf("peak u = %.12g at %s", rep.Max, where(rep.ArgMax)))
 	default:
 		return nil, usagef("--quantity %q: choose flow, torsion or peak", name)
 	}

@@ -57,15 +57,21 @@ type RectSide struct {
 	Correction cart.Poly // Data − Trace, when Data is a polynomial
 	Series     *cart.SideSeries
 	Eigen      *cart.EigenSide
-	WaveTrace  bool // the trace has a part from the waves (numeric)
+	// NumericTrace names the trace's part from the waves or the quadrature
+	// (numeric, so not in Trace), "" when there is none; NumericTraceLaTeX
+	// is its symbol.
+	NumericTrace, NumericTraceLaTeX string
 	data       sideData
 }
 
 // CorrectionText is the correction, or how it is formed from data that are
 // no polynomial (g, as given).
 func (s RectSide) CorrectionText() string {
-	if s.WaveTrace {
-		return "g - (" + s.Trace.TextApprox() + ") - (the waves' trace)"
+	if s.NumericTrace != "" {
+		if s.Trace.IsZero() {
+			return "g - (" + s.NumericTrace + ")"
+		}
+		return "g - (" + s.Trace.TextApprox() + ") - (" + s.NumericTrace + ")"
 	}
 	if s.data.poly == nil {
 		return "g - (" + s.Trace.TextApprox() + ")"
@@ -79,8 +85,10 @@ func (s RectSide) CorrectionText() string {
 // CorrectionLaTeX is CorrectionText as LaTeX.
 func (s RectSide) CorrectionLaTeX() string {
 	switch {
-	case s.WaveTrace:
-		return `g - \left(` + s.Trace.LaTeXApprox() + `\right) - u_w`
+	case s.NumericTrace != "" && s.Trace.IsZero():
+		return `g - ` + s.NumericTraceLaTeX
+	case s.NumericTrace != "":
+		return `g - \left(` + s.Trace.LaTeXApprox() + `\right) - ` + s.NumericTraceLaTeX
 	case s.data.poly == nil:
 		return `g - \left(` + s.Trace.LaTeXApprox() + `\right)`
 	case s.Eigen != nil:
@@ -296,7 +304,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		side := RectSide{Name: name, DataText: data[name].text, Trace: tr, data: data[name]}
 		waveTrace := wt.on(d, name, cond, p.env)
 		if waveTrace != nil {
-			side.WaveTrace = true
+			side.NumericTrace, side.NumericTraceLaTeX = numericTraceName(len(waves) > 0, sq != nil)
 		}
 		if g := data[name].poly; g != nil && waveTrace == nil && exactKind(name) && exactKind(geo.start) && exactKind(geo.end) && exactKind(geo.away) {
 			side.Data, side.Correction = *g, g.Sub(tr)
@@ -546,12 +554,43 @@ func withCornerFit(up cart.Poly, d Rect, data map[string]sideData, conds map[str
 	if !ok {
 		return up
 	}
+	noise := 0.0 // with numeric traces, a term far below the corner data is their rounding
+	if wt != nil {
+		for _, v := range rhs {
+			f, _ := v.Float(env)
+			noise = max(noise, 1e-13*math.Abs(f))
+		}
+	}
 	for i, b := range basis {
-		if !x[i].IsZero() {
+		if !x[i].IsZero() && (noise == 0 || cornerSup(b.Scale(x[i]), d, env) > noise) {
 			up = up.Add(b.Scale(x[i]))
 		}
 	}
 	return up
+}
+
+// numericTraceName names the traces of the particular solution's numeric
+// parts, in text and LaTeX.
+func numericTraceName(waves, quadrature bool) (string, string) {
+	switch {
+	case waves && quadrature:
+		return "the traces of the waves and the quadrature", `u_w + u_q`
+	case quadrature:
+		return "the quadrature's trace", `u_q`
+	}
+	return "the waves' trace", `u_w`
+}
+
+// cornerSup is the largest |q| at the rectangle's corners.
+func cornerSup(q cart.Poly, d Rect, env series.Env) float64 {
+	L, _ := d.L.Float(env)
+	H, _ := d.H.Float(env)
+	sup := 0.0
+	for _, c := range [][2]float64{{0, 0}, {L, 0}, {0, H}, {L, H}} {
+		v, _ := q.Eval(c[0], c[1], env)
+		sup = max(sup, math.Abs(v))
+	}
+	return sup
 }
 
 // sideSeries expands a side's correction c(s), s ∈ [0, ℓ], in the family the
