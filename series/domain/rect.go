@@ -61,7 +61,7 @@ type RectSide struct {
 	// (numeric, so not in Trace), "" when there is none; NumericTraceLaTeX
 	// is its symbol.
 	NumericTrace, NumericTraceLaTeX string
-	data       sideData
+	data                            sideData
 }
 
 // CorrectionText is the correction, or how it is formed from data that are
