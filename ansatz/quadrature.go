@@ -39,6 +39,15 @@ type Quadrature struct {
 	// band fell below Tol; Truncation then estimates the modes beyond them.
 	Converged  bool
 	Truncation float64
+	// ArcValues says the circle r = R takes values: a sector's modes beyond
+	// the samples are then missing from its harmonic part too, which cancels
+	// them there, and the tail at a point is of p_k(r) − p_k(R)(r/R)^ν.
+	ArcValues bool
+	atR       [][2]float64
+	// Lift, when set, is a closed part of the particular solution whose
+	// Laplacian the caller has taken out of G (a sector's RayLift): At and
+	// Integrals add it; Mode is the quadrature's own part without it.
+	Lift *RayLift
 
 	coarse, fine []panel
 	dropped      float64 // a bound on the particular solution of the modes not kept
@@ -61,8 +70,9 @@ type panel struct {
 }
 
 type modeAt struct {
-	r, err float64
-	p, dp  [][2]float64
+	r, err, slopeErr float64 // the meshes' estimates, with the modes not kept
+	tail, slopeTail  float64 // a sector's modes beyond the samples, here
+	p, dp            [][2]float64
 }
 
 const glN = 16
@@ -310,7 +320,8 @@ func (q *Quadrature) Prepare() error {
 		// solutions); when the samples reached their cap, a tail like 1/k²
 		// from the last.
 		size := q.modeSizes(q.coarse)
-		q.dropped, q.Truncation = math.Max(size[len(size)-1], size[len(size)-2]), 0 // two: a sector keeps every other mode
+		// Two: a sector keeps every other mode.
+		q.dropped, q.Truncation = math.Max(size[len(size)-1], size[len(size)-2]), 0
 		for k := q.Modes + 1; k < len(size); k++ {
 			q.dropped = math.Max(q.dropped, size[k])
 		}
@@ -325,6 +336,35 @@ func (q *Quadrature) Prepare() error {
 		}
 		return nil
 	}
+}
+
+// tailSum bounds Σ_{k>K} s_k for the modes beyond the samples (and what
+// they alias onto those kept), from the decay of the computed sizes s_k,
+// k ≤ K: an algebraic decay k^−p, measured between the top two octaves,
+// sums to about K·s_K/(p − 1), twice for aliasing; a decay slower than k^−1.5
+// is taken as k^−1.5. Band maxima, since a sector keeps every other mode.
+// Below 64 modes the samples stopped early because the spectrum ended.
+func tailSum(size []float64) float64 {
+	K := len(size) - 1
+	if K < 64 { // too few modes to see a decay: the samples resolved them all
+		return 0
+	}
+	band := func(lo, hi int) float64 {
+		m := 0.0
+		for k := lo; k <= hi && k <= K; k++ {
+			m = math.Max(m, size[k])
+		}
+		return m
+	}
+	top, below := band(K/2, K), band(K/4, K/2-1)
+	if top == 0 {
+		return 0
+	}
+	p := 1.5
+	if below > 0 {
+		p = math.Max(p, math.Log2(below/top))
+	}
+	return 2 * top * math.Pow(2, -p) * float64(K) / (p - 1)
 }
 
 // probes are the radii whose rings choose the angular samples: the middle of
@@ -458,23 +498,68 @@ func (q *Quadrature) modeSizes(mesh []panel) []float64 {
 
 // Mode is (p_k(r), p_k'(r)), slices the caller must not modify, for the
 // cosine and sine parts of every kept mode, from the halved mesh; err is the
-// largest change of a value (or of r times a derivative) from the first mesh,
-// with rounding, 1e-15 of the largest value, as the floor, plus the bound on
-// the modes not kept.
+// largest change of a value from the first mesh, with rounding, 1e-15 of the
+// largest value, as the floor, plus the bound on the modes not kept.
 func (q *Quadrature) Mode(r float64) (p, dp [][2]float64, err float64) {
+	m := q.mode(r)
+	return m.p, m.dp, m.err + m.tail
+}
+
+// TraceError is the estimate of the modes on a boundary circle of radius r
+// as data for the harmonic part: of p_k(r), or with slope of
+// r·p_k'(r)/max(ν_k, 1) (an error δ in the slope of mode k moves the
+// harmonic part by about δ·r/ν_k). A sector's tail is left out, since its
+// modes are missing from the harmonic part too.
+func (q *Quadrature) TraceError(r float64, slope bool) float64 {
+	m := q.mode(r)
+	if slope {
+		return math.Max(m.err, m.slopeErr)
+	}
+	return m.err
+}
+
+func (q *Quadrature) mode(r float64) *modeAt {
 	if q.last != nil && q.last.r == r {
-		return q.last.p, q.last.dp, q.last.err
+		return q.last
 	}
 	p1, d1 := q.eval(q.coarse, r)
-	p, dp = q.eval(q.fine, r)
+	p, dp := q.eval(q.fine, r)
+	var errV, errD float64
+	diffV, diffD := make([]float64, len(p)), make([]float64, len(p))
 	for k := range p {
 		for j := 0; j < 2; j++ {
-			err = math.Max(err, math.Max(math.Abs(p[k][j]-p1[k][j]), math.Abs(dp[k][j]-d1[k][j])*r))
+			diffV[k] = math.Max(diffV[k], math.Abs(p[k][j]-p1[k][j]))
+			diffD[k] = math.Max(diffD[k], math.Abs(dp[k][j]-d1[k][j])*r/math.Max(q.nu(k), 1))
 		}
+		errV, errD = math.Max(errV, diffV[k]), math.Max(errD, diffD[k])
 	}
-	err = math.Max(err, 1e-15*maxAbs(p)) + q.dropped
-	q.last = &modeAt{r, err, p, dp}
-	return p, dp, err
+	floor := 1e-15 * maxAbs(p)
+	var tailV, tailD float64
+	if q.Keep != nil {
+		// A sector's extension decays algebraically (what its lift leaves at
+		// the rays): the modes beyond are summed as a tail, at this radius.
+		// Modes at rounding's reach are no tail.
+		sv, sd := make([]float64, len(p)), make([]float64, len(p))
+		if q.ArcValues && q.atR == nil {
+			q.atR, _ = q.eval(q.fine, q.R)
+		}
+		for k := range p {
+			c, s := p[k][0], p[k][1]
+			if q.ArcValues && k < len(q.atR) {
+				f := math.Pow(r/q.R, q.nu(k))
+				c, s = c-f*q.atR[k][0], s-f*q.atR[k][1]
+			}
+			if v := math.Hypot(c, s); v > floor/10 {
+				sv[k] = v
+			}
+			if d := r * math.Hypot(dp[k][0], dp[k][1]) / math.Max(q.nu(k), 1); d > floor/10 {
+				sd[k] = d
+			}
+		}
+		tailV, tailD = tailSum(sv), tailSum(sd)
+	}
+	q.last = &modeAt{r, math.Max(errV, floor) + q.dropped, math.Max(errD, floor) + q.dropped, tailV, tailD, p, dp}
+	return q.last
 }
 
 func maxAbs(p [][2]float64) float64 {
@@ -592,7 +677,8 @@ func (q *Quadrature) split(pn *panel, r float64, p, dp [][2]float64) {
 
 // Integrals are ∬ g dA and ∬ p dA over the region with θ0 < θ < θ1, by the
 // first mesh's rule in r and each mode's exact integral in θ; the second is
-// NaN outside a circle, where p need not be integrable.
+// NaN outside a circle, where p need not be integrable. A Lift adds its
+// share over its sector.
 func (q *Quadrature) Integrals(theta0, theta1 float64) (source, particular float64) {
 	ic, is := make([]float64, q.Modes+1), make([]float64, q.Modes+1)
 	ic[0] = theta1 - theta0
@@ -618,6 +704,10 @@ func (q *Quadrature) Integrals(theta0, theta1 float64) (source, particular float
 			}
 		}
 	}
+	if q.Lift != nil { // a sector's, with θ0 = 0
+		g, p := q.Lift.Integrals(theta1)
+		source, particular = source+g, particular+p
+	}
 	return source, particular
 }
 
@@ -639,6 +729,9 @@ func (q *Quadrature) At(r, theta float64) (float64, float64) {
 	for k := range p {
 		nu := q.nu(k)
 		v += p[k][0]*math.Cos(nu*theta) + p[k][1]*math.Sin(nu*theta)
+	}
+	if q.Lift != nil {
+		v += q.Lift.Value(r, theta)
 	}
 	return v, err
 }

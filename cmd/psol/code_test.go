@@ -320,6 +320,23 @@ func BenchmarkOffCentreGaussian(b *testing.B) {
 	}
 }
 
+// BenchmarkSectorRayLift is a source that does not vanish on the Dirichlet
+// rays of a quarter disk with a convective arc (the quadrature's ray lift),
+// from source text to five evaluated points.
+func BenchmarkSectorRayLift(b *testing.B) {
+	b.ReportAllocs()
+	args := []string{"solve", "lap(u) = -1/(1 + r^2)", "--sector", "1,pi/2", "--bc", "arc: dn(u) + 2u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0"}
+	for _, p := range []string{"r=0.1,theta=0.1", "r=0.3,theta=0.7", "r=0.5,theta=0.785", "r=0.7,theta=1.2", "r=0.9,theta=0.4"} {
+		args = append(args, "--at", p)
+	}
+	for i := 0; i < b.N; i++ {
+		var out bytes.Buffer
+		if code := run(args, &out, &out); code != 0 {
+			b.Fatal(out.String())
+		}
+	}
+}
+
 // BenchmarkRectangleBump is a Gaussian bump on the rectangle (the sine-transform
 // quadrature and four numeric side series), from source text to five points.
 func BenchmarkRectangleBump(b *testing.B) {

@@ -874,8 +874,9 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		if err != nil {
 			return err
 		}
-		pm, dpm, qerr := q.Mode(r)
+		pm, dpm, _ := q.Mode(r)
 		cond := p.conds[c.name]
+		qerr := q.TraceError(r, cond.Kind != Dirichlet)
 		h := 0.0
 		if cond.Kind == Robin {
 			if h, err = cond.H.Float(p.env); err != nil {

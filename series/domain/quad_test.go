@@ -49,22 +49,40 @@ func TestQuadratureAgainstExact(t *testing.T) {
 		eq  string
 		d   domain.Domain
 		bcs []string
+		// 0: 1e-12. Negative: |tol|, and the estimate may be 1000 times
+		// the error, not 100: near the arc the bound on the modes beyond the
+		// samples (ansatz.tailSum) is conservative.
+		tol float64
 	}{
-		{"lap(u) = r^2*sin(5theta)", unitDisk, []string{"u = 0"}},
-		{"lap(u) = ln(r) + x^2*y", annulus(t, "1/2", "1"), []string{"inner: u = 0", "outer: dn(u) + 2u = cos(theta)"}},
-		{"lap(u) = x^2*y - exp(0)", domain.Disk{R: coef(t, "3/2")}, []string{"dn(u) + u = sin(theta)"}},
-		{"lap(u) = r^(-4) + cos(2theta)/r^5 + x*y/r^6", domain.Outside{R: coef(t, "1/2")}, []string{"dn(u) + 2u = cos(theta)"}},
-		{"lap(u) = (1 + x)/r^5", domain.Outside{R: coef(t, "1/2")}, []string{"u = sin(theta)"}},
-		{"lap(u) = x*y", domain.Sector{R: coef(t, "1"), Alpha: coef(t, "pi/2")}, []string{"arc: dn(u) + 3u = cos(theta)", "start: u = 1", "end: u = 1"}},
-		{"lap(u) = y^2 + 1", domain.Sector{R: coef(t, "1"), Alpha: coef(t, "pi/2")}, []string{"arc: u = sin(2theta)", "start: dn(u) = 0", "end: dn(u) = 0"}},
-		{"lap(u) = x*y^2", domain.Sector{R: coef(t, "1"), Alpha: coef(t, "pi")}, []string{"arc: u = 0", "start: dn(u) = 0", "end: u = 0"}},
+		{"lap(u) = r^2*sin(5theta)", unitDisk, []string{"u = 0"}, 0},
+		{"lap(u) = ln(r) + x^2*y", annulus(t, "1/2", "1"), []string{"inner: u = 0", "outer: dn(u) + 2u = cos(theta)"}, 0},
+		{"lap(u) = x^2*y - exp(0)", domain.Disk{R: coef(t, "3/2")}, []string{"dn(u) + u = sin(theta)"}, 0},
+		{"lap(u) = r^(-4) + cos(2theta)/r^5 + x*y/r^6", domain.Outside{R: coef(t, "1/2")}, []string{"dn(u) + 2u = cos(theta)"}, 0},
+		{"lap(u) = (1 + x)/r^5", domain.Outside{R: coef(t, "1/2")}, []string{"u = sin(theta)"}, 0},
+		{"lap(u) = x*y", domain.Sector{R: coef(t, "1"), Alpha: coef(t, "pi/2")}, []string{"arc: dn(u) + 3u = cos(theta)", "start: u = 1", "end: u = 1"}, 0},
+		{"lap(u) = y^2 + 1", domain.Sector{R: coef(t, "1"), Alpha: coef(t, "pi/2")}, []string{"arc: u = sin(2theta)", "start: dn(u) = 0", "end: dn(u) = 0"}, 0},
+		{"lap(u) = x*y^2", domain.Sector{R: coef(t, "1"), Alpha: coef(t, "pi")}, []string{"arc: u = 0", "start: dn(u) = 0", "end: u = 0"}, 0},
+		// Sources that do not vanish on a Dirichlet ray, where the quadrature
+		// takes the ray values (and slopes on a Neumann ray) out first
+		// (RayLift); beside a Neumann ray to a few 1e-12.
+		{"lap(u) = 1 + x", domain.Sector{R: coef(t, "1"), Alpha: coef(t, "pi/2")}, []string{"arc: dn(u) + 2u = 0", "start: u = 0", "end: u = 0"}, 0},
+		{"lap(u) = x^2 + y", domain.Sector{R: coef(t, "1"), Alpha: coef(t, "3*pi/4")}, []string{"arc: u = cos(theta)", "start: u = 0", "end: dn(u) = 0"}, -1e-11},
+		{"lap(u) = 2 - y", domain.Sector{R: coef(t, "3/2"), Alpha: coef(t, "2*pi/3")}, []string{"arc: dn(u) = 1", "start: dn(u) = 0", "end: u = 1/2"}, 1e-11},
 	} {
 		exact := evaluator(t, solve(t, c.eq, c.d, c.bcs...), 1e-13)
 		numeric := evaluator(t, solveWith(t, c.eq, c.d, domain.Options{NumericSource: true}, c.bcs...), 1e-13)
 		for _, p := range [][2]float64{{0.6, 0.3}, {0.8, 1.1}, {0.95, 1.5}} {
 			a, _, _ := exact.At(p[0], p[1])
 			b, est, _ := numeric.At(p[0], p[1])
-			if math.Abs(a-b) > 1e-12 {
+			tol, over := c.tol, 1.0
+			switch {
+			case tol == 0:
+				tol = 1e-12
+			case tol < 0:
+				tol, over = -tol, 10
+			}
+			// The exact path is summed to 1e-13: that is the reference's own error.
+			if math.Abs(a-b) > tol || !honest(est/over, math.Abs(a-b), 1e-13) {
 				t.Errorf("%s at %v: exact %.14f, quadrature %.14f (estimate %.1g)", c.eq, p, a, b, est)
 			}
 		}

@@ -184,7 +184,7 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 		m.store(parts, n)
 	}
 	sol.Series = parts
-	sol.Sides = []Side{{Condition: arcCond, At: s.R.Text() + ", theta", AtLaTeX: "r=" + s.R.LaTeX(), Data: g, Trace: bu, DataText: gf.Text(), DataLaTeX: gf.LaTeX()}}
+	sol.Sides = []Side{{Condition: arcCond, At: s.R.Text() + ", theta", AtLaTeX: "r=" + s.R.LaTeX(), Data: g, Trace: bu.Add(b.liftArc), DataText: gf.Text(), DataLaTeX: gf.LaTeX()}}
 	for _, name := range []string{"start", "end"} {
 		ray := p.conds[name].G
 		sol.Sides = append(sol.Sides, Side{Condition: p.conds[name], At: "r, " + map[string]string{"start": "0", "end": s.Alpha.Text()}[name], Data: ray.Exact, DataText: ray.Text(), DataLaTeX: ray.LaTeX()})
@@ -211,8 +211,11 @@ type sectorBuilder struct {
 	arc    circle
 	cond   Condition
 	// numeric is, per mode n, the arc operator on the quadrature particular
-	// solution of the source's part with no closed form.
-	numeric map[int]series.Coef
+	// solution of the source's part with no closed form; liftArc is that on
+	// the quadrature's closed part (its RayLift), which joins the arc data.
+	numeric   map[int]series.Coef
+	liftArc   series.Sum
+	liftPolys [][]series.Coef // the θ-polynomial of each RayLift term, exact
 }
 
 // concrete lists the modes built one by one: the exceptional n and those
@@ -254,6 +257,11 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 	if endD {
 		s1 = -1
 	}
+	// Take the source's values on Dirichlet rays and slopes on Neumann rays
+	// out first (RayLift): otherwise its extension jumps or kinks there and
+	// its modes fall like 1/k or 1/k².
+	lift := b.rayLift(cf.At, R, alpha, startD, endD, p.tol)
+	src := func(r, th float64) float64 { return cf.At(r, th) - lift.Lap(r, th) }
 	ext := func(r, th float64) float64 {
 		sign := 1.0
 		if th >= 2*alpha { // a reflection about each ray: a shift by 2α
@@ -266,7 +274,7 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 		if th == 0 && startD || th == alpha && endD {
 			return 0
 		}
-		return sign * cf.At(r, th)
+		return sign * src(r, th)
 	}
 	// ν_k = kπ/(2α) = ν_n for k = 2n + 2(α/π)·offset, of the family's kind.
 	twoOff := new(big.Rat).Mul(new(big.Rat).Mul(b.a, b.fam.Offset), big.NewRat(2, 1))
@@ -278,7 +286,7 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 		n := (k - off) / 2
 		return n, n >= b.fam.From
 	}
-	q := &ansatz.Quadrature{G: ext, A: 0, R: R, Period: 4 * alpha, Tol: p.tol,
+	q := &ansatz.Quadrature{G: ext, A: 0, R: R, Period: 4 * alpha, Tol: p.tol, Lift: lift, ArcValues: b.cond.Kind == Dirichlet,
 		Keep: func(k int, sin bool) bool { _, ok := index(k); return ok && sin == b.fam.Sin }}
 	if err := q.Prepare(); err != nil {
 		return unsolvable("%s: %v", p.rest.Text(), err)
@@ -289,8 +297,17 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 			return unsupported("the Robin coefficient needs a value for the numeric source: %v", err)
 		}
 	}
-	pm, dpm, qerr := q.Mode(R)
+	if lift != nil {
+		b.liftArc = b.liftTrace(lift, R, h)
+		b.data = b.data.Sub(b.liftArc)
+		if b.pieces != nil {
+			b.pieces = series.Field{Pieces: b.pieces}.Add(series.ExactField(b.liftArc.Neg())).Pieces
+		}
+	}
+	pm, dpm, _ := q.Mode(R)
+	qerr := q.TraceError(R, b.cond.Kind != Dirichlet)
 	b.numeric = map[int]series.Coef{}
+	noise := 0.0
 	part := 0
 	if b.fam.Sin {
 		part = 1
@@ -307,18 +324,189 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 		case Robin:
 			v = dpm[k][part] + h*pm[k][part]
 		}
+		// A trace far below its own error estimate is noise of a mode the
+		// symmetry empties: leave it out (and count it) rather than build
+		// the mode for it.
+		if math.Abs(v) < 1e-3*qerr {
+			noise += math.Abs(v)
+			continue
+		}
 		if c := decimal(v); !c.IsZero() {
 			b.numeric[n] = c
 		}
 	}
 	sol.Quadrature, sol.Rest, sol.Numeric = q, p.rest, true
-	sol.DataError += qerr
+	sol.DataError += qerr + noise
 	note := fmt.Sprintf("the source part %s has no closed form: its particular solution is by quadrature (FFT of its extension over 4*alpha with %d samples, modes up to n = %d; Gauss–Legendre in r)", p.rest.Text(), q.Samples, (q.Modes-off)/2)
 	if !q.Converged {
 		note += fmt.Sprintf("; the ray expansion converges slowly (the source does not vanish on a Dirichlet ray, or its slope on a Neumann ray): about %.1e is neglected", q.Truncation)
 	}
 	sol.Notes = append(sol.Notes, note)
 	return nil
+}
+
+// rayLift builds the quadrature's RayLift, which leaves f − Δv smooth
+// across each ray in the extension (ansatz.RayLift). Per Dirichlet ray j it
+// has a term r²G_j(r)·a_j(θ), G_j the source along the ray, with a_j” = 1 on
+// ray j and 0 on the other ray, and, when both rays are Dirichlet, a term
+// r²W_j(r)·B_j(θ), W_j the second θ-derivative there of what remains, with
+// B_j” = a_j. Per Neumann ray j it
+// has a term r²S_j(r)·c_j(θ), S_j the θ-derivative of the source there, with
+// c_j”' = 1 on ray j. Each polynomial vanishes on the Dirichlet rays and is
+// flat on the Neumann ones, and none disturbs the other ray's conditions
+// (liftAngles). Derivatives of the source are central differences with one
+// Richardson step; the polynomials are kept exact for the arc data.
+func (b *sectorBuilder) rayLift(f func(r, th float64) float64, R, alpha float64, startD, endD bool, tol float64) *ansatz.RayLift {
+	lift := &ansatz.RayLift{R: R}
+	float := func(p []series.Coef) []float64 {
+		out := make([]float64, len(p))
+		for i, c := range p {
+			out[i], _ = c.Float(nil)
+		}
+		return out
+	}
+	// A term below 1e-13 of the source's size, or below the rounding of its
+	// differences (about 10ε/d^m), is noise: a source that vanishes on its
+	// Dirichlet rays needs no lift there.
+	size := 0.0
+	for i := 0; i <= 16; i++ {
+		for j := 0; j <= 8; j++ {
+			if v := math.Abs(f(R*float64(i)/16, alpha*float64(j)/8)); !math.IsNaN(v) && !math.IsInf(v, 0) {
+				size = math.Max(size, v)
+			}
+		}
+	}
+	d := 1e-2 * math.Min(1, alpha)
+	floor := func(m int) float64 { return size * math.Max(1e-13, 10*2.2e-16/math.Pow(d, float64(m))) }
+	derivative := func(m int, r, th float64) float64 { // ∂^m f/∂θ^m, m = 0, 1, 2
+		diff := func(d float64) float64 {
+			if m == 1 {
+				return (f(r, th+d) - f(r, th-d)) / (2 * d)
+			}
+			return (f(r, th+d) - 2*f(r, th) + f(r, th-d)) / (d * d)
+		}
+		if m == 0 {
+			return f(r, th)
+		}
+		return (4*diff(d/2) - diff(d)) / 3
+	}
+	fit := func(m int, th float64, poly []series.Coef) bool {
+		g := func(r float64) float64 { return derivative(m, r, th) - lift.LapD(r, th, m) }
+		fitTol := tol
+		if m > 0 { // differences carry about 1e-10 of noise: fit no finer
+			fitTol = math.Max(tol, 1e-8)
+		}
+		n := len(lift.Terms)
+		if !lift.Fit(g, float(poly), fitTol, floor(m)) {
+			return false
+		}
+		if len(lift.Terms) > n {
+			b.liftPolys = append(b.liftPolys, poly)
+		}
+		return true
+	}
+	rays := []struct {
+		dirichlet bool
+		th        float64
+	}{{startD, 0}, {endD, alpha}}
+	first, second := liftAngles(b.s.Alpha, startD, endD)
+	for j, ray := range rays {
+		m := 0
+		if !ray.dirichlet {
+			m = 1
+		}
+		if !fit(m, ray.th, first[j]) {
+			return lift // the source is not finite along a ray: what is fitted stands
+		}
+	}
+	for j, ray := range rays {
+		if !startD || !endD { // beside a Neumann ray B_j is large (5α⁴/24), and so is what remains
+			break
+		}
+		if !fit(2, ray.th, second[j]) {
+			return lift
+		}
+	}
+	return lift
+}
+
+// liftAngles are rayLift's exact θ-polynomials, coefficients of θ^i, for
+// the start and end rays: first[j] is a_j (Dirichlet ray) or c_j (Neumann
+// ray), second[j] is B_j (Dirichlet rays only). Each is the double integral
+// of a base — a_j” 1 on ray j, 0 or flat on the other; c_j” with slope 1 on
+// ray j, 0 or flat on the other, of mean 0 between two Neumann rays — with
+// the constants that make it vanish on Dirichlet rays and flat on Neumann ones.
+// rayLift uses second only between two Dirichlet rays.
+func liftAngles(alpha series.Coef, startD, endD bool) (first, second [2][]series.Coef) {
+	inv, _ := series.IntCoef(1).Div(alpha)
+	one, zero := series.IntCoef(1), series.Coef{}
+	third, sixth, half := big.NewRat(1, 3), big.NewRat(1, 6), big.NewRat(1, 2)
+	var base [2][]series.Coef
+	switch {
+	case startD && endD:
+		base = [2][]series.Coef{{one, inv.Neg()}, {zero, inv}}
+	case startD:
+		base = [2][]series.Coef{{one}, {zero, one}}
+	case endD:
+		base = [2][]series.Coef{{alpha.Neg(), one}, {one}}
+	default:
+		base = [2][]series.Coef{{alpha.MulRat(third).Neg(), one, inv.MulRat(half).Neg()}, {alpha.MulRat(sixth).Neg(), zero, inv.MulRat(half)}}
+	}
+	twice := func(p []series.Coef) []series.Coef {
+		out := make([]series.Coef, len(p)+2)
+		for i, c := range p {
+			out[i+2] = c.MulRat(big.NewRat(1, int64((i+1)*(i+2))))
+		}
+		pw := []series.Coef{one}
+		for len(pw) < len(out) {
+			pw = append(pw, pw[len(pw)-1].Mul(alpha))
+		}
+		value, slope := series.Coef{}, series.Coef{} // at θ = α
+		for i, c := range out {
+			value = value.Add(c.Mul(pw[i]))
+			if i > 0 {
+				slope = slope.Add(c.Mul(pw[i-1]).MulRat(big.NewRat(int64(i), 1)))
+			}
+		}
+		switch {
+		case startD && endD: // q(0) = q(α) = 0
+			c1, _ := value.Div(alpha)
+			out[1] = c1.Neg()
+		case startD: // q(0) = 0, q'(α) = 0
+			out[1] = slope.Neg()
+		case endD: // q'(0) = 0, q(α) = 0
+			out[0] = value.Neg()
+		} // two Neumann rays: q'(0) = 0, and q'(α) = 0 by the base's mean 0
+		return out
+	}
+	for j := range base {
+		first[j] = twice(base[j])
+		second[j] = twice(first[j])
+	}
+	return first, second
+}
+
+// liftTrace is the arc operator on the quadrature's RayLift, Σ_t c_t·A_t(θ),
+// in decimals: the modes take its projection by their general term like any
+// arc data.
+func (b *sectorBuilder) liftTrace(lift *ansatz.RayLift, R, h float64) series.Sum {
+	var out series.Sum
+	for i, poly := range b.liftPolys {
+		v, dv := lift.Radial(i, R)
+		c := v
+		switch b.cond.Kind {
+		case Neumann:
+			c = dv
+		case Robin:
+			c = dv + h*v
+		}
+		for k, a := range poly {
+			if af, _ := a.Float(nil); af != 0 {
+				out = out.Add(series.NewSum(series.Term{C: decimal(c * af), K: k}))
+			}
+		}
+	}
+	return out
 }
 
 // modeResult is one mode's radial parts: particular (r^s (ln r)^i terms),

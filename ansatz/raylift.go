@@ -1,0 +1,254 @@
+package ansatz
+
+import (
+	"math"
+
+	"gonum.org/v1/gonum/integrate/quad"
+)
+
+// RayLift is a closed part v = r²·Σ_j G_j(r)·A_j(θ) of a sector's particular
+// solution, with G_j Chebyshev interpolants in r and A_j polynomials in θ,
+// whose Laplacian
+//
+//	Δv = Σ_j [(4G_j + 5rG_j' + r²G_j”)·A_j(θ) + G_j·A_j”(θ)]
+//
+// a caller takes out of the source before the quadrature. A sector chooses
+// the terms so that f − Δv and its second θ-derivative vanish on the
+// Dirichlet rays while v meets the ray conditions: the odd extension of
+// f − Δv is then smooth to third order there, and its modes fall like k⁻⁵
+// where the source's own fall like k⁻¹ (common practice: subtract the
+// singular part before a Fourier expansion).
+type RayLift struct {
+	R     float64
+	Terms []LiftTerm
+
+	at    float64 // the radius of the cached radial factors
+	cache []radialFactors
+}
+
+// LiftTerm is one r²·G(r)·A(θ) of a RayLift.
+type LiftTerm struct {
+	A      []float64 // A(θ) = Σ A[i]·θ^i
+	cheb   []float64 // G on [0, R], in Chebyshev polynomials of 2r/R − 1
+	d1, d2 []float64 // G' and G”
+	a2     []float64 // A”
+}
+
+type radialFactors struct{ g, lap float64 } // G and 4G + 5rG' + r²G”
+
+// Fit appends the term r²·G(r)·A(θ) with G the Chebyshev interpolant of g
+// on [0, R], its degree doubled (16 to 128) until the top coefficients fall
+// below tol of their total, and the coefficients below that dropped from the
+// top: G” multiplies a coefficient of degree k by about k⁴, so noise in g
+// must not reach the high degrees. A fit short of that still helps, since what it
+// misses stays in f − Δv for the quadrature. A g whose coefficients sum
+// to no more than floor adds nothing; one that is not finite somewhere on
+// [0, R] adds nothing and reports false.
+func (l *RayLift) Fit(g func(r float64) float64, A []float64, tol, floor float64) bool {
+	var c []float64
+	for n := 16; n <= 128; n *= 2 {
+		c = chebFit(g, l.R, n)
+		for _, x := range c {
+			if math.IsNaN(x) || math.IsInf(x, 0) {
+				return false
+			}
+		}
+		if chebConverged(c, tol) {
+			c = chebChop(c, tol)
+			break
+		}
+	}
+	total := 0.0
+	for _, x := range c {
+		total += math.Abs(x)
+	}
+	if total <= floor { // g is 0 there: nothing to take out
+		return true
+	}
+	t := LiftTerm{A: A, cheb: c, a2: polyDeriv(A, 2)}
+	t.d1 = chebDerivative(c, l.R)
+	t.d2 = chebDerivative(t.d1, l.R)
+	l.Terms = append(l.Terms, t)
+	l.cache = nil
+	return true
+}
+
+// RadialLap is term i's 4G + 5rG' + r²G”, the factor of A in its Laplacian.
+func (l *RayLift) RadialLap(i int, r float64) float64 {
+	return l.factors(r)[i].lap
+}
+
+func (l *RayLift) factors(r float64) []radialFactors {
+	if l.cache != nil && l.at == r {
+		return l.cache
+	}
+	out := make([]radialFactors, len(l.Terms))
+	for i, t := range l.Terms {
+		g := chebAt(t.cheb, r, l.R)
+		out[i] = radialFactors{g, 4*g + 5*r*chebAt(t.d1, r, l.R) + r*r*chebAt(t.d2, r, l.R)}
+	}
+	l.at, l.cache = r, out
+	return out
+}
+
+// Value is v(r, θ).
+func (l *RayLift) Value(r, theta float64) float64 {
+	v := 0.0
+	for i, f := range l.factors(r) {
+		v += r * r * f.g * polyAt(l.Terms[i].A, theta)
+	}
+	return v
+}
+
+// Lap is Δv(r, θ), from the interpolants' own derivatives, so that it is
+// the Laplacian of Value to rounding.
+func (l *RayLift) Lap(r, theta float64) float64 {
+	out := 0.0
+	for i, f := range l.factors(r) {
+		t := l.Terms[i]
+		out += f.lap*polyAt(t.A, theta) + f.g*polyAt(t.a2, theta)
+	}
+	return out
+}
+
+// LapD is ∂^mΔv/∂θ^m(r, θ).
+func (l *RayLift) LapD(r, theta float64, m int) float64 {
+	out := 0.0
+	for i, f := range l.factors(r) {
+		t := l.Terms[i]
+		out += f.lap*polyAt(polyDeriv(t.A, m), theta) + f.g*polyAt(polyDeriv(t.A, m+2), theta)
+	}
+	return out
+}
+
+// Radial is term i's r²G(r) and its r-derivative 2rG + r²G': the factors of
+// A in v and ∂v/∂r.
+func (l *RayLift) Radial(i int, r float64) (v, dv float64) {
+	t := l.Terms[i]
+	g, g1 := chebAt(t.cheb, r, l.R), chebAt(t.d1, r, l.R)
+	return r * r * g, 2*r*g + r*r*g1
+}
+
+// Integrals are ∬Δv dA and ∬v dA over r < R, 0 < θ < alpha: the radial
+// factors by a Gauss–Legendre rule exact for the interpolants' degree, the
+// polynomials in θ exactly.
+func (l *RayLift) Integrals(alpha float64) (source, particular float64) {
+	for _, t := range l.Terms {
+		n := len(t.cheb) + 4
+		x, w := make([]float64, n), make([]float64, n)
+		quad.Legendre{}.FixedLocations(x, w, 0, l.R)
+		intA, intA2 := polyIntegral(t.A, alpha), polyIntegral(t.a2, alpha)
+		for i, r := range x {
+			g := chebAt(t.cheb, r, l.R)
+			lap := 4*g + 5*r*chebAt(t.d1, r, l.R) + r*r*chebAt(t.d2, r, l.R)
+			source += w[i] * r * (lap*intA + g*intA2)
+			particular += w[i] * r * r * r * g * intA
+		}
+	}
+	return source, particular
+}
+
+func polyAt(a []float64, x float64) float64 {
+	v := 0.0
+	for i := len(a) - 1; i >= 0; i-- {
+		v = v*x + a[i]
+	}
+	return v
+}
+
+// polyDeriv is the m-th derivative of Σ a_i x^i.
+func polyDeriv(a []float64, m int) []float64 {
+	for ; m > 0 && len(a) > 0; m-- {
+		d := make([]float64, len(a)-1)
+		for i := range d {
+			d[i] = float64(i+1) * a[i+1]
+		}
+		a = d
+	}
+	return a
+}
+
+// polyIntegral is ∫₀^x Σ a_i t^i dt.
+func polyIntegral(a []float64, x float64) float64 {
+	v := 0.0
+	for i := len(a) - 1; i >= 0; i-- {
+		v = v*x + a[i]/float64(i+1)
+	}
+	return v * x
+}
+
+// chebFit is the interpolant of f at the n + 1 Chebyshev extreme points of
+// [0, R], as coefficients of T_k(2r/R − 1).
+func chebFit(f func(float64) float64, R float64, n int) []float64 {
+	v := make([]float64, n+1)
+	for i := range v {
+		v[i] = f(R * (1 + math.Cos(math.Pi*float64(i)/float64(n))) / 2)
+	}
+	c := make([]float64, n+1)
+	for k := range c {
+		s := 0.0
+		for i, vi := range v {
+			w := 1.0
+			if i == 0 || i == n {
+				w = 0.5
+			}
+			s += w * vi * math.Cos(math.Pi*float64(k*i%(2*n))/float64(n))
+		}
+		c[k] = 2 * s / float64(n)
+	}
+	c[0] /= 2
+	c[n] /= 2
+	return c
+}
+
+// chebConverged reports the last three coefficients below tol of the sum of
+// all magnitudes.
+func chebConverged(c []float64, tol float64) bool {
+	total, top := 0.0, 0.0
+	for k, x := range c {
+		total += math.Abs(x)
+		if k >= len(c)-3 {
+			top = math.Max(top, math.Abs(x))
+		}
+	}
+	return top <= tol*total
+}
+
+// chebChop drops the trailing coefficients below tol of the total.
+func chebChop(c []float64, tol float64) []float64 {
+	total := 0.0
+	for _, x := range c {
+		total += math.Abs(x)
+	}
+	n := len(c)
+	for n > 1 && math.Abs(c[n-1]) <= tol*total {
+		n--
+	}
+	return c[:n]
+}
+
+// chebDerivative is d/dr of Σ c_k T_k(2r/R − 1), by the recurrence
+// c'_{k−1} = c'_{k+1} + 2k·c_k, scaled by 2/R.
+func chebDerivative(c []float64, R float64) []float64 {
+	n := len(c) - 1
+	d := make([]float64, len(c)+1)
+	for k := n; k >= 1; k-- {
+		d[k-1] = d[k+1] + 2*float64(k)*c[k]
+	}
+	d[0] /= 2
+	out := d[:len(c)]
+	for k := range out {
+		out[k] *= 2 / R
+	}
+	return out
+}
+
+// chebAt is Σ c_k T_k(t) by Clenshaw's recurrence, t = 2r/R − 1.
+func chebAt(c []float64, r, R float64) float64 {
+	t := 2*r/R - 1
+	var b1, b2 float64
+	for k := len(c) - 1; k >= 1; k-- {
+		b1, b2 = 2*t*b1-b2+c[k], b1
+	}
+	return t*b1 - b2 + c[0]
+}
