@@ -265,10 +265,8 @@ func TestFailedRunKeepsFiles(t *testing.T) {
 	}
 }
 
-// BenchmarkGrid evaluates a 50-term series (the sector's) on a 500×500 grid.
-func BenchmarkGrid(b *testing.B) {
-	path := filepath.Join(b.TempDir(), "g.csv")
-	args := []string{"solve", "lap(u) = -2", "--sector", "1,3*pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--grid", "500", "--csv", path, "--terms", "50"}
+// benchRun runs the command b.N times, failing on a non-zero exit.
+func benchRun(b *testing.B, args []string) {
 	for i := 0; i < b.N; i++ {
 		var out bytes.Buffer
 		if code := run(args, &out, &out); code != 0 {
@@ -277,16 +275,18 @@ func BenchmarkGrid(b *testing.B) {
 	}
 }
 
+// BenchmarkGrid evaluates a 50-term series (the sector's) on a 500×500 grid.
+func BenchmarkGrid(b *testing.B) {
+	path := filepath.Join(b.TempDir(), "g.csv")
+	args := []string{"solve", "lap(u) = -2", "--sector", "1,3*pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--grid", "500", "--csv", path, "--terms", "50"}
+	benchRun(b, args)
+}
+
 // BenchmarkPlot draws the PNG of the same solution.
 func BenchmarkPlot(b *testing.B) {
 	path := filepath.Join(b.TempDir(), "u.png")
 	args := []string{"solve", "lap(u) = -2", "--sector", "1,3*pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--plot", path, "--terms", "50"}
-	for i := 0; i < b.N; i++ {
-		var out bytes.Buffer
-		if code := run(args, &out, &out); code != 0 {
-			b.Fatal(out.String())
-		}
-	}
+	benchRun(b, args)
 }
 
 // BenchmarkGaussianSource is exp(−r²) on the unit disk from source text to five evaluated points.
@@ -296,12 +296,7 @@ func BenchmarkGaussianSource(b *testing.B) {
 	for _, r := range []string{"0", "0.2", "0.5", "0.7", "0.9"} {
 		args = append(args, "--at", "r="+r+",theta=1")
 	}
-	for i := 0; i < b.N; i++ {
-		var out bytes.Buffer
-		if code := run(args, &out, &out); code != 0 {
-			b.Fatal(out.String())
-		}
-	}
+	benchRun(b, args)
 }
 
 // BenchmarkOffCentreGaussian is a sharp hot spot, exp(−|x − (0.4, 0)|²/0.02),
@@ -312,12 +307,7 @@ func BenchmarkOffCentreGaussian(b *testing.B) {
 	for _, p := range []string{"x=0.4,y=0", "x=0.3,y=0.1", "x=-0.5,y=0.2", "x=0.1,y=0.5", "x=0.9,y=0"} {
 		args = append(args, "--at", p)
 	}
-	for i := 0; i < b.N; i++ {
-		var out bytes.Buffer
-		if code := run(args, &out, &out); code != 0 {
-			b.Fatal(out.String())
-		}
-	}
+	benchRun(b, args)
 }
 
 // BenchmarkSectorRayLift is a source that does not vanish on the Dirichlet
@@ -329,12 +319,7 @@ func BenchmarkSectorRayLift(b *testing.B) {
 	for _, p := range []string{"r=0.1,theta=0.1", "r=0.3,theta=0.7", "r=0.5,theta=0.785", "r=0.7,theta=1.2", "r=0.9,theta=0.4"} {
 		args = append(args, "--at", p)
 	}
-	for i := 0; i < b.N; i++ {
-		var out bytes.Buffer
-		if code := run(args, &out, &out); code != 0 {
-			b.Fatal(out.String())
-		}
-	}
+	benchRun(b, args)
 }
 
 // BenchmarkRectangleBump is a Gaussian bump on the rectangle (the sine-transform
@@ -346,10 +331,5 @@ func BenchmarkRectangleBump(b *testing.B) {
 	for _, p := range []string{"x=0.5,y=0.3", "x=0.1,y=0.1", "x=0.9,y=0.4", "x=0.3,y=0.25", "x=0.7,y=0.05"} {
 		args = append(args, "--at", p)
 	}
-	for i := 0; i < b.N; i++ {
-		var out bytes.Buffer
-		if code := run(args, &out, &out); code != 0 {
-			b.Fatal(out.String())
-		}
-	}
+	benchRun(b, args)
 }
