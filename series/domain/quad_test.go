@@ -310,3 +310,27 @@ func TestQuadratureGreenIdentity(t *testing.T) {
 		t.Errorf("area integral %.15f, Green's identity %.15f", rep.Integral, want)
 	}
 }
+
+// Grid carries the numeric particular part as At does (it once left it out).
+func TestQuadratureGrid(t *testing.T) {
+	for _, c := range []struct {
+		eq  string
+		d   domain.Domain
+		bcs []string
+	}{
+		{"lap(u) = exp(-((x - 0.4)^2 + y^2)/0.02)", unitDisk, []string{"u = 0"}},
+		{"lap(u) = -1/(1 + r^2)", domain.Sector{R: coef(t, "1"), Alpha: coef(t, "pi/2")}, []string{"arc: dn(u) + 2u = 0", "start: u = 0", "end: u = 0"}},
+	} {
+		sol := solve(t, c.eq, c.d, c.bcs...)
+		ev := evaluator(t, sol, 1e-12)
+		rs, ths := []float64{0, 0.2, 0.45, 0.99}, []float64{0.1, 0.7, 1.3}
+		u, _ := ev.Grid(rs, ths)
+		for i, r := range rs {
+			for j, th := range ths {
+				if want, _, _ := ev.At(r, th); math.Abs(u[i][j]-want) > 1e-13 {
+					t.Errorf("%s: Grid at (%g, %g) = %.15g, At = %.15g", c.eq, r, th, u[i][j], want)
+				}
+			}
+		}
+	}
+}

@@ -1025,8 +1025,9 @@ func mergeChecks(cs []Check) []Check {
 }
 
 // Grid evaluates u on the tensor grid rs × thetas, returning values and an
-// error estimate per point; radii next to a Dirichlet circle take the
-// Poisson integral point by point.
+// error estimate per point (without DataError, which At adds and a caller of
+// Grid adds once); radii next to a Dirichlet circle take the Poisson
+// integral point by point.
 func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
 	u = make([][]float64, len(rs))
 	errs = make([][]float64, len(rs))
@@ -1039,12 +1040,13 @@ func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
 	for i, r := range rs {
 		if e.ser != nil && (r == 0 || e.rim != nil && e.rim.near(r)) {
 			for j, th := range thetas {
-				u[i][j], errs[i][j], _ = e.At(r, th)
+				u[i][j], errs[i][j], _ = e.atClosedAndSeries(r, th)
 			}
 			continue
 		}
 		far, farRows = append(far, r), append(farRows, i)
 	}
+
 	rows := make([][]float64, len(far))
 	for k, i := range farRows {
 		rows[k] = u[i]
@@ -1054,6 +1056,17 @@ func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
 		for k, t := range e.ser.Grid(far, thetas, rows, e.tol, e.max) {
 			for j := range thetas {
 				errs[farRows[k]][j] = t
+			}
+		}
+	}
+	// The numeric particular part, a radius at a time (its modes are per
+	// radius); the data's share of the error is the caller's.
+	if e.quad != nil {
+		for i, r := range rs {
+			for j, th := range thetas {
+				p, perr := e.quad.At(r, th)
+				u[i][j] += p
+				errs[i][j] += perr
 			}
 		}
 	}
