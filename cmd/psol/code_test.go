@@ -14,6 +14,10 @@ import (
 	"strings"
 	"testing"
 
+	"gonum.org/v1/plot/vg/draw"
+
+	"psol/parse"
+	"psol/series"
 	"psol/series/domain"
 )
 
@@ -332,4 +336,75 @@ func BenchmarkRectangleBump(b *testing.B) {
 		args = append(args, "--at", p)
 	}
 	benchRun(b, args)
+}
+
+// A plot of a solution with a numeric part: the title names the whole
+// source, and the rings it is sampled on give the values At gives (to the
+// bilinear interpolation's h², common practice).
+func TestPlotQuadrature(t *testing.T) {
+	path := filepath.Join(t.TempDir(), "q.svg")
+	args := []string{"solve", "lap(u) = exp(-r^2)", "--disk", "1", "--bc", "u = 0", "--plot", path}
+	var out, errb bytes.Buffer
+	if code := run(args, &out, &errb); code != 0 {
+		t.Fatal(errb.String())
+	}
+	data, err := os.ReadFile(path)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !strings.Contains(string(data), "exp(-r^2)") {
+		t.Error("the title does not name the source exp(-r^2)")
+	}
+	disk := domain.Disk{R: series.IntCoef(1)}
+	src, err := parse.Equation("lap(u) = exp(-r^2)", nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	cond, err := parse.Condition("u = 0", disk.Sides(), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sol, err := domain.SolveWith(disk, src, []domain.Condition{cond}, domain.Options{Tol: 1e-12})
+	if err != nil {
+		t.Fatal(err)
+	}
+	ev, err := sol.Compile(nil, 1e-12, 1<<12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	at := polarSampler(ev, 0, 1, 320, 640)
+	for _, p := range [][2]float64{{0.1, 0.3}, {0.5, 2}, {0.93, 5.5}, {1, 0}} {
+		want, _, _ := ev.At(p[0], p[1])
+		if got := at(p[0], p[1]); math.Abs(got-want) > 1e-5*0.1 {
+			t.Errorf("sampler at %v: %.9g, At %.9g", p, got, want)
+		}
+	}
+}
+
+// Marching squares on z = x² + y²: the level 1/4 lies on the circle of
+// radius 1/2, to the grid's resolution; cells with a NaN corner draw nothing.
+func TestIsolines(t *testing.T) {
+	const n = 81
+	f := &field{x0: -1, y0: -1, dx: 2.0 / (n - 1), dy: 2.0 / (n - 1), nx: n, ny: n, z: make([]float64, n*n)}
+	for r := 0; r < n; r++ {
+		for c := 0; c < n; c++ {
+			x, y := f.X(c), f.Y(r)
+			f.z[r*n+c] = x*x + y*y
+			if x > 0.8 {
+				f.z[r*n+c] = math.NaN()
+			}
+		}
+	}
+	l := newIsolines(f, []float64{0.25, 0.81}, draw.LineStyle{})
+	if len(l.segs) < 50 {
+		t.Fatalf("%d segments", len(l.segs))
+	}
+	for _, s := range l.segs {
+		for _, p := range [][2]float64{{s[0], s[1]}, {s[2], s[3]}} {
+			rad := math.Hypot(p[0], p[1])
+			if math.Abs(rad-0.5) > 2e-3 && math.Abs(rad-0.9) > 2e-3 || p[0] > 0.8 {
+				t.Errorf("a point of a level line at %v (radius %.4f)", p, rad)
+			}
+		}
+	}
 }

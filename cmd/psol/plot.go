@@ -98,6 +98,50 @@ func bounds(d domain.Domain, env series.Env) (x0, x1, y0, y1 float64, edges []pl
 	return 0, 0, 0, 0, nil, fmt.Errorf("no plot for this region")
 }
 
+// radialRange is the region's range of radii.
+func radialRange(d domain.Domain, env series.Env) (lo, hi float64, err error) {
+	switch d := d.(type) {
+	case domain.Disk:
+		hi, err = d.R.Float(env)
+	case domain.Sector:
+		hi, err = d.R.Float(env)
+	case domain.Annulus:
+		if lo, err = d.R1.Float(env); err == nil {
+			hi, err = d.R2.Float(env)
+		}
+	case domain.Outside:
+		lo, err = d.R.Float(env)
+		hi = math.Inf(1)
+	default:
+		err = fmt.Errorf("no polar range for this region")
+	}
+	return lo, hi, err
+}
+
+// polarSampler evaluates u on nr + 1 rings from rlo to rhi, nt angles each
+// (Grid, which takes a ring's modes once), and returns its bilinear
+// interpolant in r (clamped to the rings) and θ (periodic): plenty for a
+// picture of a solution whose numeric part costs a set of modes per radius.
+func polarSampler(ev *domain.Evaluator, rlo, rhi float64, nr, nt int) func(r, th float64) float64 {
+	rs, ths := make([]float64, nr+1), make([]float64, nt)
+	for i := range rs {
+		rs[i] = rlo + (rhi-rlo)*float64(i)/float64(nr)
+	}
+	for j := range ths {
+		ths[j] = 2 * math.Pi * float64(j) / float64(nt)
+	}
+	u, _ := ev.Grid(rs, ths)
+	return func(r, th float64) float64 {
+		a := math.Max(0, math.Min((r-rlo)/(rhi-rlo)*float64(nr), float64(nr)-1e-9))
+		b := th / (2 * math.Pi) * float64(nt)
+		i, j := int(a), int(b)
+		a, b = a-float64(i), b-float64(j)
+		j %= nt
+		j1 := (j + 1) % nt
+		return (1-a)*((1-b)*u[i][j]+b*u[i][j1]) + a*((1-b)*u[i+1][j]+b*u[i+1][j1])
+	}
+}
+
 // plotSolution draws a filled map of u over the true domain, labelled
 // contour lines, the boundary, a colour bar, axes and a title.
 func plotSolution(w io.Writer, format string, title string, sol *domain.Solution, env series.Env, tol float64) error {
@@ -111,6 +155,17 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 	}
 	const n = 160
 	f := &field{x0: x0, y0: y0, dx: (x1 - x0) / (n - 1), dy: (y1 - y0) / (n - 1), nx: n, ny: n, z: make([]float64, n*n), min: math.Inf(1), max: math.Inf(-1)}
+	at := func(r, th float64) float64 { u, _, _ := ev.At(r, th); return u }
+	if sol.Quadrature != nil { // its modes are per radius: sample rings, interpolate
+		rlo, rhi, err := radialRange(sol.Domain, env)
+		if err != nil {
+			return usagef("--plot: %v", err)
+		}
+		if math.IsInf(rhi, 1) { // outside a circle: out to the picture's corner
+			rhi = math.Hypot(math.Max(-x0, x1), math.Max(-y0, y1))
+		}
+		at = polarSampler(ev, rlo, rhi, 2*n, 4*n)
+	}
 	for r := 0; r < n; r++ {
 		for c := 0; c < n; c++ {
 			x, y := f.X(c), f.Y(r)
@@ -120,7 +175,7 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 			}
 			v := math.NaN()
 			if in, _ := sol.Domain.Contains(rad, th, env); in {
-				v, _, _ = ev.At(rad, th)
+				v = at(rad, th)
 				f.min, f.max = math.Min(f.min, v), math.Max(f.max, v)
 			}
 			f.z[r*n+c] = v
@@ -138,16 +193,14 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 	p.Y.Label.Text = "y"
 	heat := plotter.NewHeatMap(f, cm.Palette(255))
 	heat.NaN = color.Transparent
+	heat.Rasterized = true // one image, without seams between the cells
 	heat.Min, heat.Max = f.min, f.max
 	p.Add(heat)
 	var levels []float64
 	for i := 1; i <= 8; i++ {
 		levels = append(levels, f.min+(f.max-f.min)*float64(i)/9)
 	}
-	ink := palette.Palette(plainPalette{color.NRGBA{A: 200}})
-	contours := plotter.NewContour(f, levels, ink)
-	contours.LineStyles[0].Width = vg.Points(0.6)
-	p.Add(contours)
+	p.Add(newIsolines(f, levels, draw.LineStyle{Color: color.NRGBA{A: 200}, Width: vg.Points(0.6)}))
 	if labels := contourLabels(f, levels); labels != nil {
 		p.Add(labels)
 	}

@@ -89,7 +89,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		if err != nil {
 			return err
 		}
-		title := "lap(u) = " + sol.Source.Text() + " on " + pr.domain.Describe()
+		title := "lap(u) = " + pr.source.Text() + " on " + pr.domain.Describe()
 		if err := writeAtomically(o.plot, func(w io.Writer) error { return plotSolution(w, format, title, sol, pr.env, o.tol) }); err != nil {
 			return err
 		}
