@@ -725,10 +725,16 @@ func (q *Quadrature) Flux(r, theta0, theta1 float64) float64 {
 // At is the particular solution at (r, θ), with the quadrature error estimate.
 func (q *Quadrature) At(r, theta float64) (float64, float64) {
 	p, _, err := q.Mode(r)
-	v := 0.0
+	// cos kωθ and sin kωθ by the rotation (c, s) ← (c·c₁ − s·s₁, s·c₁ + c·s₁),
+	// exact to rounding; restarted from the functions every 64 modes.
+	c1, s1 := math.Cos(q.omega()*theta), math.Sin(q.omega()*theta)
+	v, c, sn := 0.0, 1.0, 0.0
 	for k := range p {
-		nu := q.nu(k)
-		v += p[k][0]*math.Cos(nu*theta) + p[k][1]*math.Sin(nu*theta)
+		if k%64 == 0 {
+			c, sn = math.Cos(q.nu(k)*theta), math.Sin(q.nu(k)*theta)
+		}
+		v += p[k][0]*c + p[k][1]*sn
+		c, sn = c*c1-sn*s1, sn*c1+c*s1
 	}
 	if q.Lift != nil {
 		v += q.Lift.Value(r, theta)

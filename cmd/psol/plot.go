@@ -164,7 +164,7 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 		if math.IsInf(rhi, 1) { // outside a circle: out to the picture's corner
 			rhi = math.Hypot(math.Max(-x0, x1), math.Max(-y0, y1))
 		}
-		at = polarSampler(ev, rlo, rhi, 2*n, 4*n)
+		at = polarSampler(ev, rlo, rhi, n, 2*n)
 	}
 	for r := 0; r < n; r++ {
 		for c := 0; c < n; c++ {
