@@ -223,6 +223,10 @@ func printMonomialTerm(t pterm, vars []string, st style) (bool, string) {
 	if st.decimal && !q.IsInt() {
 		text := new(big.Float).SetRat(new(big.Rat).Abs(q)).Text('g', 12)
 		d, ok := new(big.Rat).SetString(text)
+		if m, e, sci := strings.Cut(text, "e"); sci && st.latex { // 9.7e-13 as 9.7 \cdot 10^{-13}
+			exp, _ := strconv.Atoi(e)
+			text = m + ` \cdot 10^{` + strconv.Itoa(exp) + `}`
+		}
 		if ok && d.IsInt() {
 			num, den = d.Num(), big.NewInt(1)
 		} else {
