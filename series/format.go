@@ -213,6 +213,17 @@ func printPoly(p Poly, st style) string {
 	return b.String()
 }
 
+// LaTeXNumber is a decimal as LaTeX: 9.7e-13 as 9.7 \cdot 10^{-13}; any
+// other text as it is.
+func LaTeXNumber(text string) string {
+	m, e, sci := strings.Cut(text, "e")
+	exp, err := strconv.Atoi(e)
+	if !sci || err != nil {
+		return text
+	}
+	return m + ` \cdot 10^{` + strconv.Itoa(exp) + `}`
+}
+
 // printMonomialTerm prints q·Π atoms·vars: in text as q*atoms*vars/atoms,
 // in LaTeX as \frac{q_num atoms}{q_den atoms} vars.
 func printMonomialTerm(t pterm, vars []string, st style) (bool, string) {
@@ -223,9 +234,8 @@ func printMonomialTerm(t pterm, vars []string, st style) (bool, string) {
 	if st.decimal && !q.IsInt() {
 		text := new(big.Float).SetRat(new(big.Rat).Abs(q)).Text('g', 12)
 		d, ok := new(big.Rat).SetString(text)
-		if m, e, sci := strings.Cut(text, "e"); sci && st.latex { // 9.7e-13 as 9.7 \cdot 10^{-13}
-			exp, _ := strconv.Atoi(e)
-			text = m + ` \cdot 10^{` + strconv.Itoa(exp) + `}`
+		if st.latex {
+			text = LaTeXNumber(text)
 		}
 		if ok && d.IsInt() {
 			num, den = d.Num(), big.NewInt(1)

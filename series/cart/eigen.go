@@ -4,6 +4,8 @@ import (
 	"fmt"
 	"math"
 	"strings"
+
+	"psol/series"
 )
 
 // End is a homogeneous condition at one end of a side's coordinate, or on a
@@ -374,6 +376,12 @@ func (e *EigenSide) describe(latex bool) string {
 		head += " + "
 	}
 	if latex {
+		for i := range bs {
+			bs[i] = series.LaTeXNumber(bs[i])
+		}
+		for i := range mus {
+			mus[i] = series.LaTeXNumber(mus[i])
+		}
 		return head + fmt.Sprintf(`\sum_{n=1}^{%d} b_n \cos\left(\mu_n %s - \delta_n\right) Y_n(%s),\ b_n \approx %s, \dots;\ \mu_n \approx %s, \dots`,
 			len(e.b), sv, d, strings.Join(bs, ", "), strings.Join(mus, ", "))
 	}
