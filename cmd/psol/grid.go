@@ -13,24 +13,36 @@ import (
 	"psol/series/domain"
 )
 
+// radialRange is the region's range of radii.
+func radialRange(d domain.Domain, env series.Env) (lo, hi float64, err error) {
+	switch d := d.(type) {
+	case domain.Disk:
+		hi, err = d.R.Float(env)
+	case domain.Sector:
+		hi, err = d.R.Float(env)
+	case domain.Annulus:
+		if lo, err = d.R1.Float(env); err == nil {
+			hi, err = d.R2.Float(env)
+		}
+	case domain.Outside:
+		lo, err = d.R.Float(env)
+		hi = math.Inf(1)
+	default:
+		err = fmt.Errorf("no polar range for this region")
+	}
+	return lo, hi, err
+}
+
 // gridAxes is an N×N polar grid over the closed region: r from the inner
 // to the outer bound (10R outside a circle), θ over the full turn or the sector.
 func gridAxes(d domain.Domain, n int, env series.Env) (rs, ths []float64, err error) {
-	var rlo, rhi, thi float64 = 0, 1, 2 * math.Pi
-	full := true
-	switch d := d.(type) {
-	case domain.Disk:
-		rhi, err = d.R.Float(env)
-	case domain.Annulus:
-		if rlo, err = d.R1.Float(env); err == nil {
-			rhi, err = d.R2.Float(env)
-		}
-	case domain.Outside:
-		rlo, err = d.R.Float(env)
+	rlo, rhi, err := radialRange(d, env)
+	if math.IsInf(rhi, 1) { // outside a circle: out to ten radii
 		rhi = 10 * rlo
-	case domain.Sector:
-		rhi, err = d.R.Float(env)
-		thi, _ = d.Alpha.Float(nil)
+	}
+	thi, full := 2*math.Pi, true
+	if s, ok := d.(domain.Sector); ok {
+		thi, _ = s.Alpha.Float(nil)
 		full = false
 	}
 	for i := 0; i < n; i++ {

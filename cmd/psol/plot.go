@@ -98,26 +98,6 @@ func bounds(d domain.Domain, env series.Env) (x0, x1, y0, y1 float64, edges []pl
 	return 0, 0, 0, 0, nil, fmt.Errorf("no plot for this region")
 }
 
-// radialRange is the region's range of radii.
-func radialRange(d domain.Domain, env series.Env) (lo, hi float64, err error) {
-	switch d := d.(type) {
-	case domain.Disk:
-		hi, err = d.R.Float(env)
-	case domain.Sector:
-		hi, err = d.R.Float(env)
-	case domain.Annulus:
-		if lo, err = d.R1.Float(env); err == nil {
-			hi, err = d.R2.Float(env)
-		}
-	case domain.Outside:
-		lo, err = d.R.Float(env)
-		hi = math.Inf(1)
-	default:
-		err = fmt.Errorf("no polar range for this region")
-	}
-	return lo, hi, err
-}
-
 // polarSampler evaluates u on nr + 1 rings from rlo to rhi, nt angles each
 // (Grid, which takes a ring's modes once), and returns its bilinear
 // interpolant in r (clamped to the rings) and θ (periodic): plenty for a
