@@ -39,11 +39,6 @@ type Quadrature struct {
 	// band fell below Tol; Truncation then estimates the modes beyond them.
 	Converged  bool
 	Truncation float64
-	// ArcValues says the circle r = R takes values: a sector's modes beyond
-	// the samples are then missing from its harmonic part too, which cancels
-	// them there, and the tail at a point is of p_k(r) − p_k(R)(r/R)^ν.
-	ArcValues bool
-	atR       [][2]float64
 	// Lift, when set, is a closed part of the particular solution whose
 	// Laplacian the caller has taken out of G (a sector's RayLift): At and
 	// Integrals add it; Mode is the quadrature's own part without it.
@@ -71,7 +66,7 @@ type panel struct {
 
 type modeAt struct {
 	r, err, slopeErr float64 // the meshes' estimates, with the modes not kept
-	tail, slopeTail  float64 // a sector's modes beyond the samples, here
+	tail             float64 // a sector's modes beyond the samples, here
 	p, dp            [][2]float64
 }
 
@@ -525,40 +520,27 @@ func (q *Quadrature) mode(r float64) *modeAt {
 	p1, d1 := q.eval(q.coarse, r)
 	p, dp := q.eval(q.fine, r)
 	var errV, errD float64
-	diffV, diffD := make([]float64, len(p)), make([]float64, len(p))
 	for k := range p {
 		for j := 0; j < 2; j++ {
-			diffV[k] = math.Max(diffV[k], math.Abs(p[k][j]-p1[k][j]))
-			diffD[k] = math.Max(diffD[k], math.Abs(dp[k][j]-d1[k][j])*r/math.Max(q.nu(k), 1))
+			errV = math.Max(errV, math.Abs(p[k][j]-p1[k][j]))
+			errD = math.Max(errD, math.Abs(dp[k][j]-d1[k][j])*r/math.Max(q.nu(k), 1))
 		}
-		errV, errD = math.Max(errV, diffV[k]), math.Max(errD, diffD[k])
 	}
 	floor := 1e-15 * maxAbs(p)
-	var tailV, tailD float64
+	tail := 0.0
 	if q.Keep != nil {
 		// A sector's extension decays algebraically (what its lift leaves at
 		// the rays): the modes beyond are summed as a tail, at this radius.
 		// Modes at rounding's reach are no tail.
-		sv, sd := make([]float64, len(p)), make([]float64, len(p))
-		if q.ArcValues && q.atR == nil {
-			q.atR, _ = q.eval(q.fine, q.R)
-		}
+		size := make([]float64, len(p))
 		for k := range p {
-			c, s := p[k][0], p[k][1]
-			if q.ArcValues && k < len(q.atR) {
-				f := math.Pow(r/q.R, q.nu(k))
-				c, s = c-f*q.atR[k][0], s-f*q.atR[k][1]
-			}
-			if v := math.Hypot(c, s); v > floor/10 {
-				sv[k] = v
-			}
-			if d := r * math.Hypot(dp[k][0], dp[k][1]) / math.Max(q.nu(k), 1); d > floor/10 {
-				sd[k] = d
+			if v := math.Hypot(p[k][0], p[k][1]); v > floor/10 {
+				size[k] = v
 			}
 		}
-		tailV, tailD = tailSum(sv), tailSum(sd)
+		tail = tailSum(size)
 	}
-	q.last = &modeAt{r, math.Max(errV, floor) + q.dropped, math.Max(errD, floor) + q.dropped, tailV, tailD, p, dp}
+	q.last = &modeAt{r, math.Max(errV, floor) + q.dropped, math.Max(errD, floor) + q.dropped, tail, p, dp}
 	return q.last
 }
 
