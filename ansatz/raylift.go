@@ -13,11 +13,12 @@ import (
 //	Δv = Σ_j [(4G_j + 5rG_j' + r²G_j”)·A_j(θ) + G_j·A_j”(θ)]
 //
 // a caller takes out of the source before the quadrature. A sector chooses
-// the terms so that f − Δv and its second θ-derivative vanish on the
-// Dirichlet rays while v meets the ray conditions: the odd extension of
-// f − Δv is then smooth to third order there, and its modes fall like k⁻⁵
-// where the source's own fall like k⁻¹ (common practice: subtract the
-// singular part before a Fourier expansion).
+// the terms so that f − Δv vanishes on its Dirichlet rays (with its second
+// θ-derivative, between two of them) and its slope vanishes on a Neumann
+// ray, while v meets the ray conditions: the extension of f − Δv is then
+// smooth to higher order there, and its modes fall like k⁻⁵ between two
+// Dirichlet rays where the source's own fall like k⁻¹ (common practice:
+// subtract the singular part before a Fourier expansion).
 type RayLift struct {
 	R     float64
 	Terms []LiftTerm

@@ -215,7 +215,7 @@ type sectorBuilder struct {
 	// the quadrature's closed part (its RayLift), which joins the arc data.
 	numeric   map[int]series.Coef
 	liftArc   series.Sum
-	liftPolys [][]series.Coef // the θ-polynomial of each RayLift term, exact
+	liftPolys [][]series.Coef // the θ-polynomial of each RayLift term (liftAngles)
 }
 
 // concrete lists the modes built one by one: the exceptional n and those
@@ -350,12 +350,11 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 // has a term r²G_j(r)·a_j(θ), G_j the source along the ray, with a_j” = 1 on
 // ray j and 0 on the other ray, and, when both rays are Dirichlet, a term
 // r²W_j(r)·B_j(θ), W_j the second θ-derivative there of what remains, with
-// B_j” = a_j. Per Neumann ray j it
-// has a term r²S_j(r)·c_j(θ), S_j the θ-derivative of the source there, with
-// c_j”' = 1 on ray j. Each polynomial vanishes on the Dirichlet rays and is
-// flat on the Neumann ones, and none disturbs the other ray's conditions
-// (liftAngles). Derivatives of the source are central differences with one
-// Richardson step; the polynomials are kept exact for the arc data.
+// B_j” = a_j. Per Neumann ray j it has a term r²S_j(r)·c_j(θ), S_j the
+// θ-derivative of the source there, with c_j”' = 1 on ray j. Each polynomial
+// vanishes on the Dirichlet rays and is flat on the Neumann ones, and none
+// disturbs the other ray's conditions (liftAngles). Derivatives of the
+// source are central differences with one Richardson step.
 func (b *sectorBuilder) rayLift(f func(r, th float64) float64, R, alpha float64, startD, endD bool, tol float64) *ansatz.RayLift {
 	lift := &ansatz.RayLift{R: R}
 	float := func(p []series.Coef) []float64 {
