@@ -48,7 +48,7 @@ type Quadrature struct {
 	dropped      float64 // a bound on the particular solution of the modes not kept
 	ffts         map[int]*fourier.FFT
 	buf          []float64
-	last         *modeAt // the latest Mode, for several angles on one radius
+	recent       []*modeAt // the latest Modes, newest last: a stencil or a ring revisits a few radii
 }
 
 // panel is one Gauss–Legendre panel of the radial mesh with the source's
@@ -275,7 +275,7 @@ var ErrSlowDecay = errors.New("the source does not decay faster than r^-2, so it
 // each starting panel) is below Tol relative to the source's size; then each
 // panel is bisected until its Legendre tail is too.
 func (q *Quadrature) Prepare() error {
-	q.last = nil
+	q.recent = nil
 	for n := 32; ; n *= 2 {
 		q.Samples = n
 		worst, scale, modes := 0.0, 0.0, 0
@@ -514,8 +514,10 @@ func (q *Quadrature) TraceError(r float64, slope bool) float64 {
 }
 
 func (q *Quadrature) mode(r float64) *modeAt {
-	if q.last != nil && q.last.r == r {
-		return q.last
+	for _, m := range q.recent {
+		if m.r == r {
+			return m
+		}
 	}
 	p1, d1 := q.eval(q.coarse, r)
 	p, dp := q.eval(q.fine, r)
@@ -540,8 +542,12 @@ func (q *Quadrature) mode(r float64) *modeAt {
 		}
 		tail = tailSum(size)
 	}
-	q.last = &modeAt{r, math.Max(errV, floor) + q.dropped, math.Max(errD, floor) + q.dropped, tail, p, dp}
-	return q.last
+	m := &modeAt{r, math.Max(errV, floor) + q.dropped, math.Max(errD, floor) + q.dropped, tail, p, dp}
+	if len(q.recent) == 8 {
+		q.recent = q.recent[1:]
+	}
+	q.recent = append(q.recent, m)
+	return m
 }
 
 func maxAbs(p [][2]float64) float64 {
