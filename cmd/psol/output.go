@@ -403,14 +403,8 @@ func (v *view) approximate(sol *domain.Solution) {
 
 // where is a polar point, with its Cartesian coordinates beside.
 func where(p [2]float64) string {
-	x, y := p[0]*math.Cos(p[1]), p[0]*math.Sin(p[1])
-	snap := func(v float64) float64 { // the rounding of cos(π/2), and no −0
-		if math.Abs(v) < 1e-12*p[0] {
-			return 0
-		}
-		return v
-	}
-	return fmt.Sprintf("r = %.6g, theta = %.6g (x = %.6g, y = %.6g)", p[0], p[1], snap(x), snap(y))
+	x, y := domain.Cartesian(p[0], p[1])
+	return fmt.Sprintf("r = %.6g, theta = %.6g (x = %.6g, y = %.6g)", p[0], p[1], x, y)
 }
 
 // sidePrefix names the side in a stage line where the region has several.

@@ -283,7 +283,20 @@ func (c ClaimCheck) Describe() string {
 	if c.Exact {
 		return fmt.Sprintf("%s = %s%s (exact)", c.Name, c.Residual.Text(), where)
 	}
-	return fmt.Sprintf("%s: largest residual %.3g%s at r = %.4g, theta = %.4g (numeric)", c.Name, c.Max, where, c.Where[0], c.Where[1])
+	x, y := Cartesian(c.Where[0], c.Where[1])
+	return fmt.Sprintf("%s: largest residual %.3g%s at r = %.4g, theta = %.4g (x = %.4g, y = %.4g) (numeric)", c.Name, c.Max, where, c.Where[0], c.Where[1], x, y)
+}
+
+// Cartesian is the point (r cos θ, r sin θ) for printing: a coordinate at
+// the rounding of cos(π/2), or −0, is 0.
+func Cartesian(r, theta float64) (x, y float64) {
+	snap := func(v float64) float64 {
+		if math.Abs(v) < 1e-12*r {
+			return 0
+		}
+		return v
+	}
+	return snap(r * math.Cos(theta)), snap(r * math.Sin(theta))
 }
 
 // sideResidual is a rectangle side's residual for a claim: exact for
