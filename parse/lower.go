@@ -657,17 +657,29 @@ func contains(list []string, s string) bool {
 	return false
 }
 
-// Expression reads a formula in r, θ, x, y and parameters, with no unknown.
+// Expression reads a formula in r, θ, x, y and parameters, with no unknown;
+// "u = formula" is taken as the formula.
 func Expression(label, text string, env series.Env) (series.Field, error) {
 	lw := &lowerer{label: label, input: text, env: env}
 	st, err := lw.statement()
 	if err != nil {
 		return series.Field{}, err
 	}
-	if st.Side != nil || st.Eq != nil {
-		return series.Field{}, lw.fail(st.Pos, "expected a formula, not an equation")
+	body := st.Left
+	if st.Side == nil && st.Eq != nil {
+		left, err := lw.choice(st.Left)
+		if err != nil {
+			return series.Field{}, err
+		}
+		if !left.lap.IsZero() || !left.dn.IsZero() || !left.u.Equal(series.IntCoef(1)) || !left.f.IsExact() || !left.f.Exact.IsZero() {
+			return series.Field{}, lw.fail(st.Pos, "expected a formula, or u = formula")
+		}
+		body = st.Eq.Right
 	}
-	v, err := lw.choice(st.Left)
+	if st.Side != nil {
+		return series.Field{}, lw.fail(st.Pos, "expected a formula, not a boundary condition")
+	}
+	v, err := lw.choice(body)
 	if err != nil {
 		return series.Field{}, err
 	}

@@ -254,3 +254,23 @@ func BenchmarkEquation(b *testing.B) {
 		})
 	}
 }
+
+// A claim may be written u = formula; other equations are refused with the column.
+func TestExpressionEquation(t *testing.T) {
+	a, err := Expression("claim", "u = x^2 - y", nil)
+	b, err2 := Expression("claim", "x^2 - y", nil)
+	if err != nil || err2 != nil || !a.Exact.Equal(b.Exact) {
+		t.Errorf("u = x^2 - y read as %v (%v), want %v", a.Text(), err, b.Text())
+	}
+	for _, c := range []struct{ in, msg string }{
+		{"2u = x", "expected a formula, or u = formula"},
+		{"u + 1 = x", "expected a formula, or u = formula"},
+		{"lap(u) = x", "expected a formula, or u = formula"},
+		{"rim: u = 1", "not a boundary condition"},
+		{"u = u", "without u"},
+	} {
+		if _, err := Expression("claim", c.in, nil); err == nil || !strings.Contains(err.Error(), c.msg) {
+			t.Errorf("%q: %v, want %q", c.in, err, c.msg)
+		}
+	}
+}

@@ -31,7 +31,7 @@ func newCheckCmd() *cobra.Command {
 	}
 	f := cmd.Flags()
 	o.bind(f)
-	f.StringVar(&o.claim, "claim", "", "the claimed solution u, a formula in r, theta, x, y and parameters")
+	f.StringVar(&o.claim, "claim", "", "the claimed solution u, a formula in r, theta, x, y and parameters (or u = formula)")
 	f.StringVar(&o.format, "format", "text", "output format: text or json")
 	return cmd
 }
