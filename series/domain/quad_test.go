@@ -334,3 +334,22 @@ func TestQuadratureGrid(t *testing.T) {
 		}
 	}
 }
+
+// Piecewise arc data beside a numeric source on a sector: by linearity the
+// sum of the two problems solved apart (the ray lift's arc trace once joined
+// both the pieces and the plain data, and counted twice).
+func TestQuadratureSectorPiecewiseArc(t *testing.T) {
+	quarter := domain.Sector{R: coef(t, "1"), Alpha: coef(t, "pi/2")}
+	rays := []string{"start: u = 0", "end: u = 0"}
+	both := evaluator(t, solve(t, "lap(u) = -2/(1 + r^2)", quarter, append(rays, "arc: u = theta < pi/4 ? 1 : 0")...), 1e-13)
+	data := evaluator(t, solve(t, "lap(u) = 0", quarter, append(rays, "arc: u = theta < pi/4 ? 1 : 0")...), 1e-13)
+	source := evaluator(t, solve(t, "lap(u) = -2/(1 + r^2)", quarter, append(rays, "arc: u = 0")...), 1e-13)
+	for _, p := range [][2]float64{{0.5, 0.5}, {0.8, 1.2}, {0.3, 0.1}} {
+		a, _, _ := both.At(p[0], p[1])
+		b, _, _ := data.At(p[0], p[1])
+		c, _, _ := source.At(p[0], p[1])
+		if math.Abs(a-b-c) > 1e-12 {
+			t.Errorf("at %v: %.15f, the parts apart %.15f", p, a, b+c)
+		}
+	}
+}

@@ -299,9 +299,10 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 	}
 	if lift != nil {
 		b.liftArc = b.liftTrace(lift, R, h)
-		b.data = b.data.Sub(b.liftArc)
-		if b.pieces != nil {
+		if b.pieces != nil { // the arc data are in the pieces then, and b.data is 0
 			b.pieces = series.Field{Pieces: b.pieces}.Add(series.ExactField(b.liftArc.Neg())).Pieces
+		} else {
+			b.data = b.data.Sub(b.liftArc)
 		}
 	}
 	pm, dpm, _ := q.Mode(R)
