@@ -616,7 +616,13 @@ func (b *sectorBuilder) mode(nc series.Coef, n int, concrete bool) (modeResult, 
 	if bScaled.IsZero() {
 		if !corr.IsZero() {
 			if b.cond.Kind == Neumann {
-				return res, unsolvable("the Neumann data is incompatible with the source: mode %d of the arc correction is %s, not 0 (the net flux must equal the source integral)", n, corr.Text())
+				text := corr.Text()
+				if b.numeric != nil { // decimals from the quadrature: as a decimal
+					if v, err := corr.Float(b.env); err == nil {
+						text = fmt.Sprintf("%.12g", v)
+					}
+				}
+				return res, unsolvable("the Neumann data is incompatible with the source: mode %d of the arc correction is %s, not 0 (the net flux must equal the source integral)", n, text)
 			}
 			return res, unsolvable("the Robin condition on the arc is singular for mode n = %d (nu/R + h = 0), and the correction has a component there", n)
 		}
