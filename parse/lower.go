@@ -11,8 +11,8 @@ import (
 	"github.com/alecthomas/participle/v2"
 	"github.com/alecthomas/participle/v2/lexer"
 
+	"psol/domain"
 	"psol/series"
-	"psol/series/domain"
 )
 
 // Limits that keep exact arithmetic bounded; DEVELOPERS.md documents them.

@@ -9,8 +9,8 @@ import (
 	"strings"
 	"testing"
 
+	"psol/domain"
 	"psol/series"
-	"psol/series/domain"
 )
 
 var update = flag.Bool("update", false, "rewrite golden files")

@@ -7,8 +7,8 @@ import (
 
 	"github.com/spf13/cobra"
 
+	"psol/domain"
 	"psol/parse"
-	"psol/series/domain"
 )
 
 type checkOptions struct {

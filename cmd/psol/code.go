@@ -6,8 +6,8 @@ import (
 	"sort"
 	"strings"
 
+	"psol/domain"
 	"psol/series"
-	"psol/series/domain"
 )
 
 // codeTerms is the series truncation in generated code unless --terms says otherwise.

@@ -16,9 +16,9 @@ import (
 
 	"gonum.org/v1/plot/vg/draw"
 
+	"psol/domain"
 	"psol/parse"
 	"psol/series"
-	"psol/series/domain"
 )
 
 var codeCases = []struct {

@@ -9,8 +9,8 @@ import (
 	"path/filepath"
 	"strconv"
 
+	"psol/domain"
 	"psol/series"
-	"psol/series/domain"
 )
 
 // radialRange is the region's range of radii.

@@ -8,8 +8,8 @@ import (
 	"strconv"
 	"strings"
 
+	"psol/domain"
 	"psol/series"
-	"psol/series/domain"
 )
 
 // stage is one printed formula.

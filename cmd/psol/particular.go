@@ -6,10 +6,10 @@ import (
 	"github.com/spf13/cobra"
 
 	"psol/ansatz"
+	"psol/domain"
 	"psol/parse"
 	"psol/series"
 	"psol/series/cart"
-	"psol/series/domain"
 )
 
 type particularOptions struct {

@@ -17,8 +17,8 @@ import (
 	"gonum.org/v1/plot/vg/vgimg"
 	"gonum.org/v1/plot/vg/vgsvg"
 
+	"psol/domain"
 	"psol/series"
-	"psol/series/domain"
 )
 
 // plotPalette is psol's own ramp, from deep blue-green through olive to a

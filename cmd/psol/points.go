@@ -3,9 +3,9 @@ package main
 import (
 	"math"
 
+	"psol/domain"
 	"psol/parse"
 	"psol/series"
-	"psol/series/domain"
 )
 
 // point is one --at evaluation.

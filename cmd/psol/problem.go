@@ -8,9 +8,9 @@ import (
 
 	"github.com/spf13/pflag"
 
+	"psol/domain"
 	"psol/parse"
 	"psol/series"
-	"psol/series/domain"
 )
 
 // problemFlags are the flags that pose a problem, shared by solve and check.

@@ -4,7 +4,7 @@ import (
 	"fmt"
 	"math"
 
-	"psol/series/domain"
+	"psol/domain"
 )
 
 // quantity computes a named figure from the report. Each preset states its

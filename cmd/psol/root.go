@@ -8,8 +8,8 @@ import (
 	"github.com/spf13/cobra"
 
 	"psol/ansatz"
+	"psol/domain"
 	"psol/parse"
-	"psol/series/domain"
 )
 
 const version = "0.1.0"

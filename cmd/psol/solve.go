@@ -5,7 +5,7 @@ import (
 
 	"github.com/spf13/cobra"
 
-	"psol/series/domain"
+	"psol/domain"
 )
 
 type solveOptions struct {

@@ -5,7 +5,7 @@ import (
 	"math/rand"
 	"testing"
 
-	"psol/series/domain"
+	"psol/domain"
 )
 
 func rect(t testing.TB, l, h string) domain.Rect { return domain.Rect{L: coef(t, l), H: coef(t, h)} }

@@ -1,9 +1,10 @@
-package cart
+package domain
 
 import (
 	"fmt"
 	"math"
 	"math/big"
+	"strings"
 	"sync"
 
 	"gonum.org/v1/gonum/integrate/quad"
@@ -24,11 +25,11 @@ func legendre16() ([]float64, []float64) {
 	return lgX, lgW
 }
 
-// Side is one side of the rectangle [0, L] × [0, H].
-type Side int
+// Wall is one side of the rectangle [0, L] × [0, H], by position.
+type Wall int
 
 const (
-	Left   Side = iota // x = 0
+	Left   Wall = iota // x = 0
 	Right              // x = L
 	Bottom             // y = 0
 	Top                // y = H
@@ -36,7 +37,7 @@ const (
 
 var sideNames = [...]string{"left", "right", "bottom", "top"}
 
-func (s Side) String() string { return sideNames[s] }
+func (s Wall) String() string { return sideNames[s] }
 
 // SideSeries is the harmonic function that equals Σ b_n sin(nπs/ℓ) on one
 // side and vanishes on the other three (Dirichlet): along the side the
@@ -47,7 +48,7 @@ func (s Side) String() string { return sideNames[s] }
 // is evaluated as e^(−nπ(w−d)/ℓ)(1 − e^(−2nπd/ℓ))/(1 − e^(−2nπw/ℓ)), which
 // neither overflows nor loses digits for large n.
 type SideSeries struct {
-	Side Side
+	Wall Wall
 	B    series.Coef // b_n, general in n
 	L, H series.Coef
 	// Fam is the along-side family Φ_n(s) = sin/cos(ν_n π s/ℓ), set by the
@@ -75,7 +76,7 @@ func (s SideSeries) family() series.Family {
 
 // along is the side's length ℓ and the width w across.
 func (s SideSeries) along() (l, w series.Coef) {
-	if s.Side == Left || s.Side == Right {
+	if s.Wall == Left || s.Wall == Right {
 		return s.H, s.L
 	}
 	return s.L, s.H
@@ -87,7 +88,7 @@ func (s SideSeries) Text() string {
 	lt, wt := paren(l.Text()), paren(w.Text())
 	sv, d := s.coords(false)
 	b := series.Const(s.B).Text()
-	if len(b) > 1 && (containsAny(b[1:], " ") || containsAny(b, "/")) {
+	if len(b) > 1 && (strings.ContainsAny(b[1:], " ") || strings.ContainsAny(b, "/")) {
 		b = "(" + b + ")"
 	}
 	over := "/" + lt
@@ -96,7 +97,7 @@ func (s SideSeries) Text() string {
 	}
 	fam := s.family()
 	nu := fam.Nu(series.IndexCoef).Text()
-	if containsAny(nu, " ") {
+	if strings.ContainsAny(nu, " ") {
 		nu = "(" + nu + ")"
 	}
 	k := nu + "*pi"
@@ -143,13 +144,13 @@ func (s SideSeries) constantAcross(latex bool) string {
 func (s SideSeries) coords(latex bool) (along, across string) {
 	_, w := s.along()
 	if latex {
-		return s.Side.coords(w.LaTeX())
+		return s.Wall.coords(w.LaTeX())
 	}
-	return s.Side.coords(w.Text())
+	return s.Wall.coords(w.Text())
 }
 
 // coords are the side's along and across coordinates, the width written w.
-func (s Side) coords(w string) (along, across string) {
+func (s Wall) coords(w string) (along, across string) {
 	switch s {
 	case Bottom:
 		return "x", "(" + w + " - y)"
@@ -186,27 +187,9 @@ func (s SideSeries) LaTeX() string {
 	return head + `\sum_{n=` + fmt.Sprint(from) + `}^{\infty} \left(` + series.Const(s.B).LaTeX() + `\right) ` + phi + `\left(` + k + " " + sv + `\right) \frac{` + num + `\left(` + k + " " + d + `\right)}{` + denom + `}`
 }
 
-func paren(s string) string {
-	if containsAny(s, " +-*/") {
-		return "(" + s + ")"
-	}
-	return s
-}
-
-func containsAny(s, chars string) bool {
-	for _, c := range s {
-		for _, d := range chars {
-			if c == d {
-				return true
-			}
-		}
-	}
-	return false
-}
-
 // CompiledSide evaluates a side series.
 type CompiledSide struct {
-	side            Side
+	side            Wall
 	b               func(n float64) float64
 	l, w            float64
 	bs              []float64 // cached b_n
@@ -233,7 +216,7 @@ func (s SideSeries) Compile(env series.Env) (*CompiledSide, error) {
 	fam := s.family()
 	slope, _ := fam.Slope.Float64()
 	offset, _ := fam.Offset.Float64()
-	cs := &CompiledSide{side: s.Side, b: b, l: lf, w: wf, sin: fam.Sin, slope: slope, offset: offset, from: fam.From, flux: s.Flux, insulated: s.Insulated,
+	cs := &CompiledSide{side: s.Wall, b: b, l: lf, w: wf, sin: fam.Sin, slope: slope, offset: offset, from: fam.From, flux: s.Flux, insulated: s.Insulated,
 		zero: s.B.IsZero() && (s.B0 == nil || s.B0.IsZero())}
 	if s.B0 != nil {
 		if cs.b0, err = s.B0.Float(env); err != nil {

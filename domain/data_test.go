@@ -8,9 +8,9 @@ import (
 
 	"gonum.org/v1/gonum/integrate/quad"
 
+	"psol/domain"
 	"psol/parse"
 	"psol/series"
-	"psol/series/domain"
 )
 
 func solveWith(t testing.TB, equation string, d domain.Domain, opt domain.Options, bcs ...string) *domain.Solution {

@@ -7,8 +7,8 @@ import (
 
 	"gonum.org/v1/gonum/integrate/quad"
 
+	"psol/domain"
 	"psol/series"
-	"psol/series/domain"
 )
 
 // e1 is the exponential integral E₁(x) = −γ − ln x − Σ_{k≥1} (−x)^k/(k·k!)

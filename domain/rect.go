@@ -55,8 +55,8 @@ type RectSide struct {
 	DataText   string
 	Trace      cart.Poly
 	Correction cart.Poly // Data − Trace, when Data is a polynomial
-	Series     *cart.SideSeries
-	Eigen      *cart.EigenSide
+	Series     *SideSeries
+	Eigen      *EigenSide
 	// NumericTrace names the trace's part from the waves or the quadrature
 	// (numeric, so not in Trace), "" when there is none; NumericTraceLaTeX
 	// is its symbol.
@@ -133,7 +133,7 @@ func (g sideData) at(s float64, env series.Env) float64 {
 // rectGeometry is where each side lies: its coordinate's range, its
 // neighbours at s = 0 and s = ℓ, and the opposite side.
 type rectGeometry struct {
-	side             cart.Side
+	side             Wall
 	length           series.Coef
 	start, end, away string
 	point            func(s, L, H float64) (x, y float64)
@@ -141,10 +141,10 @@ type rectGeometry struct {
 
 func (d Rect) geometry(name string) rectGeometry {
 	return map[string]rectGeometry{
-		"left":   {cart.Left, d.H, "bottom", "top", "right", func(s, L, H float64) (float64, float64) { return 0, s }},
-		"right":  {cart.Right, d.H, "bottom", "top", "left", func(s, L, H float64) (float64, float64) { return L, s }},
-		"bottom": {cart.Bottom, d.L, "left", "right", "top", func(s, L, H float64) (float64, float64) { return s, 0 }},
-		"top":    {cart.Top, d.L, "left", "right", "bottom", func(s, L, H float64) (float64, float64) { return s, H }},
+		"left":   {Left, d.H, "bottom", "top", "right", func(s, L, H float64) (float64, float64) { return 0, s }},
+		"right":  {Right, d.H, "bottom", "top", "left", func(s, L, H float64) (float64, float64) { return L, s }},
+		"bottom": {Bottom, d.L, "left", "right", "top", func(s, L, H float64) (float64, float64) { return s, 0 }},
+		"top":    {Top, d.L, "left", "right", "bottom", func(s, L, H float64) (float64, float64) { return s, H }},
 	}[name]
 }
 
@@ -169,15 +169,15 @@ func (d Rect) trace(name string, cond Condition, q cart.Poly) cart.Poly {
 }
 
 // endOf is a condition as the homogeneous end it sets for the eigenfunctions.
-func endOf(c Condition, env series.Env) cart.End {
+func endOf(c Condition, env series.Env) End {
 	switch c.Kind {
 	case Dirichlet:
-		return cart.End{Kind: cart.Value}
+		return End{Kind: Dirichlet}
 	case Neumann:
-		return cart.End{Kind: cart.Flux}
+		return End{Kind: Neumann}
 	}
 	h, _ := c.H.Float(env)
-	return cart.End{Kind: cart.Mixed, H: h}
+	return End{Kind: Robin, H: h}
 }
 
 // solve: u = u_p + Σ four one-side series, one per side with data. The
@@ -187,7 +187,7 @@ func endOf(c Condition, env series.Env) cart.End {
 // vanishes on the other three sides. Where the side and its neighbours take
 // values or fluxes and the correction is a polynomial, the series is exact
 // (sin or cos(nπs/ℓ), series.SineCoefficient, sinh/cosh across); with a
-// Robin condition or data that are no polynomial it is numeric (cart.EigenSide).
+// Robin condition or data that are no polynomial it is numeric (EigenSide).
 func (d Rect) solve(p *posed) (*Solution, error) {
 	anyFixing := false
 	for _, name := range d.Sides() {
@@ -342,11 +342,11 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 				sol.Sides = append(sol.Sides, Side{Condition: cond, DataText: data[name].text, DataLaTeX: data[name].text})
 				continue
 			}
-			es := &cart.EigenSide{Side: geo.side, L: L, H: H, Start: endOf(p.conds[geo.start], env), End: endOf(p.conds[geo.end], env),
+			es := &EigenSide{Wall: geo.side, L: L, H: H, Start: endOf(p.conds[geo.start], env), End: endOf(p.conds[geo.end], env),
 				Opposite: endOf(p.conds[geo.away], env), Own: endOf(cond, env), Data: correction}
 			if g.fn != nil { // data that are no polynomial may come piece by piece
 				l, _ := geo.length.Float(env)
-				es.Breaks = cart.Jumps(g.fn, l)
+				es.Breaks = Jumps(g.fn, l)
 			}
 			if err := es.Prepare(); err != nil {
 				return nil, unsolvable("on %s: %v", name, err)
@@ -404,7 +404,7 @@ func rectChecks(d Rect, sol *Solution, ev *Evaluator, env series.Env) []Check {
 			if s.Name == "left" || s.Name == "right" {
 				l = H
 			}
-			for _, j := range cart.Jumps(s.data.fn, l) {
+			for _, j := range Jumps(s.data.fn, l) {
 				jumps = append(jumps, j/l)
 			}
 		}
@@ -597,7 +597,7 @@ func cornerSup(q cart.Poly, d Rect, env series.Env) float64 {
 // neighbours set (values: sine ends; insulated: cosine ends), through θ = πs/ℓ
 // so that series.ProjectPieces gives the exact general term; the constant
 // mode of a cosine family is computed apart.
-func sideSeries(side cart.Side, corr cart.Poly, length series.Coef, d Rect, startN, endN, flux, insulated bool) (cart.SideSeries, error) {
+func sideSeries(side Wall, corr cart.Poly, length series.Coef, d Rect, startN, endN, flux, insulated bool) (SideSeries, error) {
 	fam := series.Family{Sin: !startN, Slope: big.NewRat(1, 1), Offset: new(big.Rat), From: 1}
 	switch {
 	case startN && endN:
@@ -607,11 +607,11 @@ func sideSeries(side cart.Side, corr cart.Poly, length series.Coef, d Rect, star
 	}
 	cs, ok := corr.Coefficients()
 	if !ok {
-		return cart.SideSeries{}, unsupported("the data on side %v depend on both x and y", side)
+		return SideSeries{}, unsupported("the data on side %v depend on both x and y", side)
 	}
 	scale, err := length.Div(series.SymCoef(series.Pi)) // s = (ℓ/π) θ
 	if err != nil {
-		return cart.SideSeries{}, err
+		return SideSeries{}, err
 	}
 	var theta series.Sum
 	for k, c := range cs {
@@ -621,18 +621,18 @@ func sideSeries(side cart.Side, corr cart.Poly, length series.Coef, d Rect, star
 	pieces := []series.Piece{{From: big.NewRat(0, 1), To: big.NewRat(1, 1), Value: series.ExactField(theta)}}
 	b, err := series.ProjectPieces(pieces, fam, big.NewRat(1, 1), 0, false)
 	if err != nil {
-		return cart.SideSeries{}, err
+		return SideSeries{}, err
 	}
-	ser := cart.SideSeries{Side: side, B: b, L: d.L, H: d.H, Fam: fam, Flux: flux, Insulated: insulated}
+	ser := SideSeries{Wall: side, B: b, L: d.L, H: d.H, Fam: fam, Flux: flux, Insulated: insulated}
 	if fam.From == 0 {
 		b0, err := series.ProjectPieces(pieces, fam, big.NewRat(1, 1), 0, true)
 		if err != nil {
-			return cart.SideSeries{}, err
+			return SideSeries{}, err
 		}
 		if flux && insulated && !b0.IsZero() {
-			return cart.SideSeries{}, unsolvable("the flux data are incompatible with the source: the mean of the correction on side %v is %s, not 0", side, b0.Text())
+			return SideSeries{}, unsolvable("the flux data are incompatible with the source: the mean of the correction on side %v is %s, not 0", side, b0.Text())
 		}
-		// The constant mode's factor across is 1, d or d/w (see cart.SideSeries): scale to the operator.
+		// The constant mode's factor across is 1, d or d/w (see SideSeries): scale to the operator.
 		ser.B0 = &b0
 	}
 	return ser, nil

@@ -1,4 +1,4 @@
-package cart
+package domain
 
 import (
 	"fmt"
@@ -11,25 +11,16 @@ import (
 // End is a homogeneous condition at one end of a side's coordinate, or on a
 // side itself: v = 0, ∂v/∂n = 0, or ∂v/∂n + h·v = 0 (n the outward normal).
 type End struct {
-	Kind EndKind
+	Kind Kind    // Dirichlet: v = 0; Neumann: ∂v/∂n = 0; Robin: ∂v/∂n + h·v = 0
 	H    float64 // the Robin coefficient, h ≥ 0
 }
-
-// EndKind is the kind of an End.
-type EndKind int
-
-const (
-	Value EndKind = iota // v = 0
-	Flux                 // ∂v/∂n = 0
-	Mixed                // ∂v/∂n + h·v = 0
-)
 
 // phase is δ(μ) = atan(h/μ): π/2 for a value, 0 for a flux.
 func (e End) phase(mu float64) float64 {
 	switch e.Kind {
-	case Value:
+	case Dirichlet:
 		return math.Pi / 2
-	case Flux:
+	case Neumann:
 		return 0
 	}
 	return math.Atan2(e.H, mu)
@@ -51,7 +42,7 @@ func (e End) phase(mu float64) float64 {
 // Y” = μ²Y with the opposite side's condition at d = 0 and the side's own
 // operator equal to 1 at d = w, written with decaying exponentials.
 type EigenSide struct {
-	Side       Side
+	Wall       Wall
 	L, H       float64
 	Start, End End // the neighbours at s = 0 and s = ℓ
 	Opposite   End
@@ -71,7 +62,7 @@ type EigenSide struct {
 var ErrSingular = fmt.Errorf("the flux data are incompatible with the source: the correction's mean on a side with flux conditions all round must be 0")
 
 func (e *EigenSide) along() (l, w float64) {
-	if e.Side == Left || e.Side == Right {
+	if e.Wall == Left || e.Wall == Right {
 		return e.H, e.L
 	}
 	return e.L, e.H
@@ -83,7 +74,7 @@ func (e *EigenSide) Prepare() error {
 		e.Modes = 512
 	}
 	l, _ := e.along()
-	e.constant = e.Start.Kind == Flux && e.End.Kind == Flux
+	e.constant = e.Start.Kind == Neumann && e.End.Kind == Neumann
 	// Gauss–Legendre nodes enough for the highest mode's oscillation, with
 	// panel edges at the data's jumps (data given piece by piece).
 	x, w := legendre16()
@@ -217,9 +208,9 @@ func (e *EigenSide) across(mu, d float64) float64 {
 	_, w := e.along()
 	var P, M float64
 	switch e.Opposite.Kind {
-	case Value: // sinh
+	case Dirichlet: // sinh
 		P, M = 0.5, -0.5
-	case Flux: // cosh
+	case Neumann: // cosh
 		P, M = 0.5, 0.5
 	default: // −Z'(0) + h Z(0) = 0: μ cosh + h sinh
 		P, M = (mu+e.Opposite.H)/2, (mu-e.Opposite.H)/2
@@ -233,9 +224,9 @@ func (e *EigenSide) across(mu, d float64) float64 {
 // own is the own operator as a·v + b·∂v/∂n.
 func (e *EigenSide) own() (a, b float64) {
 	switch e.Own.Kind {
-	case Value:
+	case Dirichlet:
 		return 1, 0
-	case Flux:
+	case Neumann:
 		return 0, 1
 	}
 	return e.Own.H, 1
@@ -247,9 +238,9 @@ func (e *EigenSide) across0(d float64) float64 {
 	_, w := e.along()
 	z, dz := 1.0, 0.0
 	switch e.Opposite.Kind {
-	case Value:
+	case Dirichlet:
 		z, dz = 0, 1
-	case Mixed:
+	case Robin:
 		dz = e.Opposite.H
 	}
 	a, b := e.own()
@@ -314,7 +305,7 @@ func (e *EigenSide) Integral(tol float64, maxTerms int) float64 {
 // local is the point (x, y) as (s along the side, d from the opposite side).
 func (e *EigenSide) local(x, y float64) (s, d float64) {
 	_, w := e.along()
-	switch e.Side {
+	switch e.Wall {
 	case Bottom:
 		return x, w - y
 	case Top:
@@ -350,7 +341,7 @@ func (e *EigenSide) describe(latex bool) string {
 		return "0"
 	}
 	_, w := e.along()
-	sv, d := e.Side.coords(fmt.Sprintf("%.12g", w))
+	sv, d := e.Wall.coords(fmt.Sprintf("%.12g", w))
 	var bs, mus []string
 	for n := 0; n < len(e.b) && n < 4; n++ {
 		bs, mus = append(bs, fmt.Sprintf("%.6g", e.b[n])), append(mus, fmt.Sprintf("%.9g", e.mu[n]))
@@ -359,9 +350,9 @@ func (e *EigenSide) describe(latex bool) string {
 	head := ""
 	if e.constant && e.b0 != 0 {
 		switch e.Opposite.Kind {
-		case Value:
+		case Dirichlet:
 			head = fmt.Sprintf("%.12g*%s", e.b0*e.across0(1), d)
-		case Flux:
+		case Neumann:
 			head = fmt.Sprintf("%.12g", e.b0*e.across0(0))
 		default:
 			c0 := e.b0 * e.across0(0)
@@ -370,7 +361,7 @@ func (e *EigenSide) describe(latex bool) string {
 		if latex {
 			head = strings.ReplaceAll(head, "*", " ")
 		}
-		if allZero(e.b) {
+		if allZeroFloats(e.b) {
 			return head
 		}
 		head += " + "
@@ -386,12 +377,12 @@ func (e *EigenSide) describe(latex bool) string {
 			len(e.b), sv, d, strings.Join(bs, ", "), strings.Join(mus, ", "))
 	}
 	// Y_n is Z_n over the side's operator on it there; Z_n meets the opposite side.
-	z := map[EndKind]string{Value: "sinh(mu_n*d)", Flux: "cosh(mu_n*d)", Mixed: fmt.Sprintf("mu_n*cosh(mu_n*d) + %.12g*sinh(mu_n*d)", e.Opposite.H)}[e.Opposite.Kind]
+	z := map[Kind]string{Dirichlet: "sinh(mu_n*d)", Neumann: "cosh(mu_n*d)", Robin: fmt.Sprintf("mu_n*cosh(mu_n*d) + %.12g*sinh(mu_n*d)", e.Opposite.H)}[e.Opposite.Kind]
 	return head + fmt.Sprintf("sum(n=1..%d, b_n*cos(mu_n*%s - delta_n)*Y_n(%s)) with b_n ≈ %s, ...; mu_n ≈ %s, ...; Y_n(d) = Z_n(d)/(the side's operator on Z_n at d = %.12g), Z_n(d) = %s",
 		len(e.b), sv, d, strings.Join(bs, ", "), strings.Join(mus, ", "), w, z)
 }
 
-func allZero(v []float64) bool {
+func allZeroFloats(v []float64) bool {
 	for _, x := range v {
 		if x != 0 {
 			return false

@@ -7,9 +7,9 @@ import (
 	"strings"
 	"testing"
 
+	"psol/domain"
 	"psol/parse"
 	"psol/series"
-	"psol/series/domain"
 )
 
 // solveDisk poses and solves a disk problem the way the CLI does.

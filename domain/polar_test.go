@@ -7,9 +7,9 @@ import (
 	"strings"
 	"testing"
 
+	"psol/domain"
 	"psol/parse"
 	"psol/series"
-	"psol/series/domain"
 )
 
 func annulus(t testing.TB, r1, r2 string) domain.Annulus {
