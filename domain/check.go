@@ -51,7 +51,7 @@ func CheckClaim(d Domain, f series.Field, conds []Condition, claim series.Field,
 		if !ok {
 			return nil, &MissingSides{[]string{side}}
 		}
-		c, err := sideResidual(d, side, cond, claim, env)
+		c, err := d.claimSide(side, cond, claim, env)
 		if err != nil {
 			return nil, err
 		}
@@ -60,33 +60,29 @@ func CheckClaim(d Domain, f series.Field, conds []Condition, claim series.Field,
 	return out, nil
 }
 
-// boundaryOf finds a side's circle, or reports a ray (θ = at).
-func boundaryOf(d Domain, side string) (circle, bool, series.Coef) {
-	switch d := d.(type) {
-	case circular:
-		for _, c := range d.circles() {
-			if c.name == side {
-				return c, true, series.Coef{}
-			}
+// polarSided is a region whose sides are circles about the origin (arcs)
+// and rays from it; boundary finds a side's circle, or reports a ray θ = at.
+type polarSided interface {
+	Domain
+	boundary(side string) (c circle, isCircle bool, at series.Coef)
+}
+
+// circleNamed is the circle of a region bounded by circles.
+func circleNamed(d circular, side string) (circle, bool, series.Coef) {
+	for _, c := range d.circles() {
+		if c.name == side {
+			return c, true, series.Coef{}
 		}
-	case Sector:
-		switch side {
-		case "arc":
-			return circle{"arc", d.R, 1}, true, series.Coef{}
-		case "end":
-			return circle{}, false, d.Alpha
-		}
-		return circle{}, false, series.Coef{}
 	}
 	return circle{}, false, series.Coef{}
 }
 
-func sideResidual(d Domain, side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
-	if r, ok := d.(Rect); ok {
-		return r.sideResidual(side, cond, claim, env)
-	}
+// polarClaimSide is a claim's residual on a circle or a ray: exact for
+// closed forms (the condition's operator on the claim, in r and θ), else
+// sampled at 48 points.
+func polarClaimSide(d polarSided, side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
 	name := OperatorText(cond, "u") + " - g"
-	c, isCircle, at := boundaryOf(d, side)
+	c, isCircle, at := d.boundary(side)
 	if isCircle && claim.IsExact() && cond.G.IsExact() {
 		b, err := c.apply(cond, claim.Exact)
 		if err == nil {
@@ -126,58 +122,17 @@ func sideResidual(d Domain, side string, cond Condition, claim series.Field, env
 
 func ratOf(n int64) *big.Rat { return big.NewRat(n, 1) }
 
-// samplePoints are interior points of the region for numeric checks.
-func samplePoints(d Domain, env series.Env) ([][2]float64, error) {
+// ringSamples are 72 points on six rings, radius(i) for i = 1..6, at
+// angles span·(j + offset)/12 for j = 0..11: interior points of a polar
+// region for numeric checks, off the rays and the axes.
+func ringSamples(radius func(i int) float64, span, offset float64) [][2]float64 {
 	var pts [][2]float64
 	for i := 1; i <= 6; i++ {
 		for j := 0; j < 12; j++ {
-			var r, th float64
-			switch d := d.(type) {
-			case Disk:
-				R, err := d.R.Float(env)
-				if err != nil {
-					return nil, err
-				}
-				r, th = R*float64(i)/7.5, 2*math.Pi*(float64(j)+0.3)/12
-			case Annulus:
-				a, err := d.R1.Float(env)
-				if err != nil {
-					return nil, err
-				}
-				b, err := d.R2.Float(env)
-				if err != nil {
-					return nil, err
-				}
-				r, th = a+(b-a)*float64(i)/7, 2*math.Pi*(float64(j)+0.3)/12
-			case Outside:
-				R, err := d.R.Float(env)
-				if err != nil {
-					return nil, err
-				}
-				r, th = R*(1+float64(i)/3), 2*math.Pi*(float64(j)+0.3)/12
-			case Sector:
-				R, err := d.R.Float(env)
-				if err != nil {
-					return nil, err
-				}
-				a, _ := d.Alpha.Float(nil)
-				r, th = R*float64(i)/7.5, a*(float64(j)+0.5)/12
-			case Rect:
-				L, err := d.L.Float(env)
-				if err != nil {
-					return nil, err
-				}
-				H, err := d.H.Float(env)
-				if err != nil {
-					return nil, err
-				}
-				x, y := L*float64(i)/7, H*(float64(j)+0.5)/12
-				r, th = math.Hypot(x, y), math.Atan2(y, x)
-			}
-			pts = append(pts, [2]float64{r, th})
+			pts = append(pts, [2]float64{radius(i), span * (float64(j) + offset) / 12})
 		}
 	}
-	return pts, nil
+	return pts
 }
 
 func numericLaplacianResidual(d Domain, f, claim series.Field, env series.Env) (ClaimCheck, error) {
@@ -189,7 +144,7 @@ func numericLaplacianResidual(d Domain, f, claim series.Field, env series.Env) (
 	if err != nil {
 		return ClaimCheck{}, err
 	}
-	pts, err := samplePoints(d, env)
+	pts, err := d.samples(env)
 	if err != nil {
 		return ClaimCheck{}, err
 	}
@@ -243,9 +198,15 @@ func sampledSideResidual(side string, cond Condition, claim series.Field, env se
 	return out, nil
 }
 
-// numericSideResidual samples a circle (or arc) or a sector's ray.
-func numericSideResidual(d Domain, side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
-	c, isCircle, at := boundaryOf(d, side)
+// numericSideResidual samples a circle (or arc) at 48 angles across the
+// region's span, or a ray at 48 radii.
+func numericSideResidual(d polarSided, side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
+	c, isCircle, at := d.boundary(side)
+	shape, err := d.Shape(env)
+	if err != nil {
+		return ClaimCheck{}, err
+	}
+	box := shape.Polar
 	const eps = 1e-5
 	return sampledSideResidual(side, cond, claim, env, func(u series.CompiledField, k int) (r, th, dn float64, err error) {
 		if isCircle {
@@ -253,19 +214,11 @@ func numericSideResidual(d Domain, side string, cond Condition, claim series.Fie
 			if err != nil {
 				return 0, 0, 0, err
 			}
-			r, th = R, 2*math.Pi*(float64(k)+0.5)/48
-			if s, ok := d.(Sector); ok {
-				a, _ := s.Alpha.Float(nil)
-				th = a * (float64(k) + 0.5) / 48
-			}
+			r, th = R, box.Span*(float64(k)+0.5)/48
 			return r, th, float64(c.outward) * (u.At(r+eps, th) - u.At(r-eps, th)) / (2 * eps), nil
 		}
-		R, err := d.(Sector).R.Float(env)
-		if err != nil {
-			return 0, 0, 0, err
-		}
 		th, _ = at.Float(nil)
-		r = R * (float64(k) + 0.5) / 48
+		r = box.RMax * (float64(k) + 0.5) / 48
 		sign := -1.0
 		if th > 0 {
 			sign = 1
@@ -299,10 +252,10 @@ func Cartesian(r, theta float64) (x, y float64) {
 	return snap(r * math.Cos(theta)), snap(r * math.Sin(theta))
 }
 
-// sideResidual is a rectangle side's residual for a claim: exact for
+// claimSide is a rectangle side's residual for a claim: exact for
 // polynomial claims and data (the side's operator on both, in the side's
 // coordinate), else sampled at 48 points with central differences across.
-func (d Rect) sideResidual(side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
+func (d Rect) claimSide(side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
 	name := OperatorText(cond, "u") + " - g"
 	if claim.IsExact() && cond.G.IsExact() {
 		q, errQ := cart.FromPolar(claim.Exact)

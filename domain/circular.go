@@ -59,109 +59,6 @@ func rInt(n int) series.Sum { return rPow(big.NewRat(int64(n), 1)) }
 
 var lnR = series.NewSum(series.Term{C: series.IntCoef(1), L: 1})
 
-// Disk is the region r < R.
-type Disk struct{ R series.Coef }
-
-func (Disk) Sides() []string { return []string{"rim"} }
-
-func (d Disk) Describe() string { return "the disk r < " + d.R.Text() }
-
-func (d Disk) Contains(r, _ float64, env series.Env) (bool, error) {
-	R, err := d.R.Float(env)
-	return r <= R*(1+1e-12), err
-}
-
-func (d Disk) circles() []circle { return []circle{{"rim", d.R, 1}} }
-
-// basis: r^n, bounded at the centre.
-func (Disk) basis(n int) []series.Sum { return []series.Sum{rInt(n)} }
-
-func (d Disk) bounds() (*series.Coef, *series.Coef) { return nil, &d.R }
-
-// admit refuses sources whose area integral diverges at the origin:
-// ∬ r^k dA = 2π∫ r^(k+1) dr diverges for k ≤ −2.
-func (Disk) admit(f, _ series.Sum) error {
-	for _, t := range f.Terms() {
-		if t.P.Cmp(big.NewRat(-2, 1)) <= 0 {
-			return unsolvable("the source term %s is not integrable near r = 0 (r^k with k <= -2), so the disk problem has no solution", series.NewSum(t).Text())
-		}
-	}
-	return nil
-}
-
-func (d Disk) solve(p *posed) (*Solution, error) { return solveCircular(d, p) }
-
-// Annulus is the region R1 < r < R2.
-type Annulus struct{ R1, R2 series.Coef }
-
-func (Annulus) Sides() []string { return []string{"inner", "outer"} }
-
-func (a Annulus) Describe() string {
-	return "the annulus " + a.R1.Text() + " < r < " + a.R2.Text()
-}
-
-func (a Annulus) Contains(r, _ float64, env series.Env) (bool, error) {
-	r1, err := a.R1.Float(env)
-	if err != nil {
-		return false, err
-	}
-	r2, err := a.R2.Float(env)
-	return r >= r1*(1-1e-12) && r <= r2*(1+1e-12), err
-}
-
-func (a Annulus) circles() []circle {
-	return []circle{{"inner", a.R1, -1}, {"outer", a.R2, 1}}
-}
-
-// basis: 1 and ln r for n = 0; r^n and r^−n otherwise.
-func (Annulus) basis(n int) []series.Sum {
-	if n == 0 {
-		return []series.Sum{rInt(0), lnR}
-	}
-	return []series.Sum{rInt(n), rInt(-n)}
-}
-
-func (a Annulus) bounds() (*series.Coef, *series.Coef) { return &a.R1, &a.R2 }
-
-func (Annulus) admit(_, _ series.Sum) error { return nil }
-
-func (a Annulus) solve(p *posed) (*Solution, error) { return solveCircular(a, p) }
-
-// Outside is the region r > R, with u bounded as r → ∞.
-type Outside struct{ R series.Coef }
-
-func (Outside) Sides() []string { return []string{"rim"} }
-
-func (o Outside) Describe() string {
-	return "the region r > " + o.R.Text() + " (u bounded at infinity)"
-}
-
-func (o Outside) Contains(r, _ float64, env series.Env) (bool, error) {
-	R, err := o.R.Float(env)
-	return r >= R*(1-1e-12), err
-}
-
-func (o Outside) circles() []circle { return []circle{{"rim", o.R, -1}} }
-
-// basis: 1 for n = 0 (ln r is unbounded), r^−n otherwise.
-func (Outside) basis(n int) []series.Sum { return []series.Sum{rInt(-n)} }
-
-func (o Outside) bounds() (*series.Coef, *series.Coef) { return &o.R, nil }
-
-// admit refuses a particular solution that grows: r^s (ln r)^i with s > 0,
-// or s = 0 and i > 0. No harmonic r^(±n) T(nθ) can cancel such a term, so no
-// bounded solution exists.
-func (Outside) admit(f, up series.Sum) error {
-	for _, t := range up.Terms() {
-		if s := t.P.Sign(); s > 0 || s == 0 && t.L > 0 {
-			return unsolvable("outside a circle the solution must stay bounded, but the source %s forces a term %s that grows without bound as r -> infinity", f.Text(), series.NewSum(t).Text())
-		}
-	}
-	return nil
-}
-
-func (o Outside) solve(p *posed) (*Solution, error) { return solveCircular(o, p) }
-
 // solveCircular is the pipeline for regions bounded by circles: the
 // particular solution, each circle's trace and correction, and per angular
 // mode an exact square system for the coefficients of the radial basis.
@@ -525,7 +422,7 @@ func quadratureCheck(d Domain, sol *Solution, env series.Env) Check {
 	if err != nil {
 		return out
 	}
-	pts, err := samplePoints(d, env)
+	pts, err := d.samples(env)
 	if err != nil {
 		return out
 	}

@@ -41,8 +41,18 @@ type Domain interface {
 	Describe() string
 	// Contains reports whether the point (r, θ) lies in the closed region.
 	Contains(r, theta float64, env series.Env) (bool, error)
+	// Shape is the region's geometry with the parameters' values: sides,
+	// area, bounding box, and its (r, θ) box where it is one.
+	Shape(env series.Env) (Shape, error)
 	// solve assembles the solution; each region family has its own method.
 	solve(p *posed) (*Solution, error)
+	// figures fills the region's share of a report: the area, the integrals
+	// of u and of the source, the net outward flux, and the extremes.
+	figures(s *Solution, ev *Evaluator, rep *Report, env series.Env, tol float64) error
+	// claimSide is a claimed solution's residual under one side's condition.
+	claimSide(side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error)
+	// samples are interior points (r, θ) for numeric checks.
+	samples(env series.Env) ([][2]float64, error)
 }
 
 // posed is a problem after the checks every region shares.
@@ -92,13 +102,17 @@ type Solution struct {
 	FreeMean   series.Coef // the value of Free that makes u's mean on the first boundary circle zero
 	Checks     []Check
 	Series     *SeriesParts // the infinite-series stages, where the region needs them
-	Rect       *RectParts   // a rectangle's stages in x and y
-	rectEnv    series.Env
-	Rules      []ansatz.Step // how each source term was solved
-	Steps      []string      // how the harmonic part was found, beyond the per-mode records
-	modes      []modeRecord
-	Notes      []string
-	rim        *rimData // Dirichlet data on a single circle, for the Poisson integral near it
+	// RaysByShift marks a solution whose sides after the first are rays met
+	// by the eigenfunctions and the harmonic shift w (Harmonic): they carry
+	// no trace or correction of their own, and the correction is g − w − trace.
+	RaysByShift bool
+	Rect        *RectParts // a rectangle's stages in x and y
+	rectEnv     series.Env
+	Rules       []ansatz.Step // how each source term was solved
+	Steps       []string      // how the harmonic part was found, beyond the per-mode records
+	modes       []modeRecord
+	Notes       []string
+	rim         *rimData // Dirichlet data on a single circle, for the Poisson integral near it
 	// Quadrature is the particular solution of the source's part with no
 	// closed form, and Rest that part.
 	Quadrature *ansatz.Quadrature

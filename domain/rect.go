@@ -783,3 +783,70 @@ func sineQuadratureCheck(sq *ansatz.SineQuadrature, rest *series.Expr, env serie
 	}
 	return out
 }
+
+// figures: the area integral from the particular polynomial's exact
+// integral, the side series and the numeric parts; the source's integral and
+// the flux through the four sides; extremes on a Cartesian sample.
+func (d Rect) figures(s *Solution, ev *Evaluator, rep *Report, env series.Env, tol float64) error {
+	sub := func(c series.Coef) (series.Coef, float64, error) { return sub(c, env) }
+	var err error
+	rep.Area = d.L.Mul(d.H)
+	if rep.Integral, err = s.rectAreaIntegral(ev, env, tol); err != nil {
+		return err
+	}
+	if f, err := cart.FromPolar(s.Source); err == nil {
+		if c, v, err := sub(rectIntegral(f, d)); err == nil {
+			rep.SourceExact, rep.Source = &c, v
+		}
+	}
+	if len(s.Rect.Waves) > 0 { // the waves' share of the source, by a tensor Gauss–Legendre rule
+		L, _ := d.L.Float(env)
+		H, _ := d.H.Float(env)
+		cw, err := s.Rect.SourceWaves.Compile(env)
+		if err != nil {
+			return err
+		}
+		rep.Source += integrateRect(cw.At, L, H)
+		rep.SourceExact = nil
+	}
+	if s.Rect.Quadrature != nil {
+		L, _ := d.L.Float(env)
+		H, _ := d.H.Float(env)
+		if fc, err := (series.Field{Rest: s.Rect.QuadratureSource}).Compile(env); err == nil {
+			rep.Source += integrateRect(func(x, y float64) float64 { return fc.At(math.Hypot(x, y), math.Atan2(y, x)) }, L, H)
+		}
+		rep.SourceExact = nil
+	}
+	if rep.Flux, err = rectFlux(d, ev, env); err != nil {
+		return err
+	}
+	rep.Max, rep.ArgMax, rep.Min, rep.ArgMin, err = rectExtremes(d, ev, env)
+	return err
+}
+
+// Shape: the four sides, each with the region on its left.
+func (d Rect) Shape(env series.Env) (Shape, error) {
+	v, err := floats(env, d.L, d.H)
+	if err != nil {
+		return Shape{}, err
+	}
+	L, H := v[0], v[1]
+	return Shape{Sides: []SidePath{segmentPath("left", 0, H, 0, 0), segmentPath("right", L, 0, L, H),
+		segmentPath("bottom", 0, 0, L, 0), segmentPath("top", L, H, 0, H)}, Area: L * H, Box: Box{0, L, 0, H}}, nil
+}
+
+// samples are 72 interior points on six vertical lines.
+func (d Rect) samples(env series.Env) ([][2]float64, error) {
+	v, err := floats(env, d.L, d.H)
+	if err != nil {
+		return nil, err
+	}
+	var pts [][2]float64
+	for i := 1; i <= 6; i++ {
+		for j := 0; j < 12; j++ {
+			x, y := v[0]*float64(i)/7, v[1]*(float64(j)+0.5)/12
+			pts = append(pts, [2]float64{math.Hypot(x, y), math.Atan2(y, x)})
+		}
+	}
+	return pts, nil
+}

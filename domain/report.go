@@ -35,144 +35,80 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 		return nil, err
 	}
 	rep := &Report{}
-	sub := func(c series.Coef) (series.Coef, float64, error) {
-		c, err := c.Subst(env)
-		if err != nil {
-			return c, 0, err
-		}
-		v, err := c.Float(env)
-		return c, v, err
-	}
-	switch d := s.Domain.(type) {
-	case circular:
-		in, out := d.bounds()
-		if area, err := areaOf(in, out); err == nil {
-			rep.Area = area
-		}
-		if out == nil {
-			rep.Bounded = "the region is unbounded: extremes are over R <= r <= 10R, and u has no finite area integral unless it decays"
-			rep.Integral, rep.Mean = math.NaN(), math.NaN() // unless the integral below converges
-		}
-		if c, err := s.U.AreaIntegral(in, out); err == nil { // series modes n ≥ 1 integrate to zero
-			c, v, err := sub(c)
-			if err == nil {
-				rep.IntegralExact, rep.Integral = &c, v
-			}
-		}
-		flux := series.Coef{}
-		for _, c := range d.circles() {
-			dn, err := c.apply(Condition{Kind: Neumann}, s.U)
-			if err != nil {
-				return nil, err
-			}
-			k := series.Coef{}
-			for _, t := range dn.Terms() {
-				if t.M == 0 && t.K == 0 {
-					k = t.C
-				}
-			}
-			flux = flux.Add(k.Mul(c.radius).Mul(series.SymCoef(series.Pi)).MulRat(ratOf(2)))
-		}
-		if c, v, err := sub(flux); err == nil {
-			rep.FluxExact, rep.Flux = &c, v
-		}
-		if c, err := s.Source.AreaIntegral(in, out); err == nil {
-			if c, v, err := sub(c); err == nil {
-				rep.SourceExact, rep.Source = &c, v
-			}
-		}
-	case Rect:
-		rep.Area = d.L.Mul(d.H)
-		if rep.Integral, err = s.rectAreaIntegral(ev, env, tol); err != nil {
-			return nil, err
-		}
-		if f, err := cart.FromPolar(s.Source); err == nil {
-			if c, v, err := sub(rectIntegral(f, d)); err == nil {
-				rep.SourceExact, rep.Source = &c, v
-			}
-		}
-		if len(s.Rect.Waves) > 0 { // the waves' share of the source, by a tensor Gauss–Legendre rule
-			L, _ := d.L.Float(env)
-			H, _ := d.H.Float(env)
-			cw, err := s.Rect.SourceWaves.Compile(env)
-			if err != nil {
-				return nil, err
-			}
-			rep.Source += integrateRect(cw.At, L, H)
-			rep.SourceExact = nil
-		}
-		if s.Rect.Quadrature != nil {
-			L, _ := d.L.Float(env)
-			H, _ := d.H.Float(env)
-			if fc, err := (series.Field{Rest: s.Rect.QuadratureSource}).Compile(env); err == nil {
-				rep.Source += integrateRect(func(x, y float64) float64 { return fc.At(math.Hypot(x, y), math.Atan2(y, x)) }, L, H)
-			}
-			rep.SourceExact = nil
-		}
-		if rep.Flux, err = rectFlux(d, ev, env); err != nil {
-			return nil, err
-		}
-	case Sector:
-		rep.Area = d.R.Mul(d.R).Mul(d.Alpha).MulRat(big.NewRat(1, 2))
-		a, _ := AlphaOverPi(d.Alpha)
-		closed, err := s.Particular.Add(s.Harmonic).SectorIntegral(d.R, d.Alpha)
-		if err == nil {
-			c, v, err := sub(closed)
-			if err == nil {
-				rep.Integral = v
-				if s.Series != nil && !s.Series.U.IsZero() {
-					for _, p := range s.Series.U.Parts {
-						is, err := p.SectorIntegral(a)
-						if err == nil {
-							sum, err := is.Float(env, tol, 1<<22)
-							if err == nil {
-								rep.Integral += sum.Value
-							}
-						}
-					}
-				} else {
-					rep.IntegralExact = &c
-				}
-			}
-		}
-		if c, err := s.Source.SectorIntegral(d.R, d.Alpha); err == nil {
-			if c, v, err := sub(c); err == nil {
-				rep.SourceExact, rep.Source = &c, v
-			}
-		}
-		rep.Flux, err = sectorFlux(d, ev, env)
-		if err != nil {
-			return nil, err
-		}
-	}
-	if q := s.Quadrature; q != nil { // the numeric particular solution's share
-		to := 2 * math.Pi
-		if d, ok := s.Domain.(Sector); ok {
-			to, _ = d.Alpha.Float(nil)
-		}
-		g, p := q.Integrals(0, to)
-		rep.Source, rep.SourceExact = rep.Source+g, nil
-		rep.Integral, rep.IntegralExact = rep.Integral+p, nil
-		if d, ok := s.Domain.(circular); ok {
-			for _, c := range d.circles() {
-				R, err := c.radius.Float(env)
-				if err != nil {
-					return nil, err
-				}
-				rep.Flux += float64(c.outward) * q.Flux(R, 0, 2*math.Pi)
-			}
-			rep.FluxExact = nil
-		}
+	if err := s.Domain.figures(s, ev, rep, env, tol); err != nil {
+		return nil, err
 	}
 	if A, err := rep.Area.Float(env); err == nil && A > 0 {
 		rep.Mean = rep.Integral / A
 	}
-	if d, ok := s.Domain.(Rect); ok {
-		rep.Max, rep.ArgMax, rep.Min, rep.ArgMin, err = rectExtremes(d, ev, env)
-		return rep, err
+	return rep, nil
+}
+
+// sub substitutes the parameters' values in an exact figure and evaluates it.
+func sub(c series.Coef, env series.Env) (series.Coef, float64, error) {
+	c, err := c.Subst(env)
+	if err != nil {
+		return c, 0, err
 	}
-	rep.Max, rep.ArgMax, rep.Min, rep.ArgMin, err = extremes(s.Domain, ev, env)
-	return rep, err
+	v, err := c.Float(env)
+	return c, v, err
+}
+
+// circularFigures is the report of a region bounded by circles: exact area,
+// integrals and flux for closed forms, the quadrature's share, and extremes
+// over the polar box.
+func circularFigures(d circular, s *Solution, ev *Evaluator, rep *Report, env series.Env) error {
+	sub := func(c series.Coef) (series.Coef, float64, error) { return sub(c, env) }
+	in, out := d.bounds()
+	if area, err := areaOf(in, out); err == nil {
+		rep.Area = area
+	}
+	if out == nil {
+		rep.Bounded = "the region is unbounded: extremes are over R <= r <= 10R, and u has no finite area integral unless it decays"
+		rep.Integral, rep.Mean = math.NaN(), math.NaN() // unless the integral below converges
+	}
+	if c, err := s.U.AreaIntegral(in, out); err == nil { // series modes n ≥ 1 integrate to zero
+		c, v, err := sub(c)
+		if err == nil {
+			rep.IntegralExact, rep.Integral = &c, v
+		}
+	}
+	flux := series.Coef{}
+	for _, c := range d.circles() {
+		dn, err := c.apply(Condition{Kind: Neumann}, s.U)
+		if err != nil {
+			return err
+		}
+		k := series.Coef{}
+		for _, t := range dn.Terms() {
+			if t.M == 0 && t.K == 0 {
+				k = t.C
+			}
+		}
+		flux = flux.Add(k.Mul(c.radius).Mul(series.SymCoef(series.Pi)).MulRat(ratOf(2)))
+	}
+	if c, v, err := sub(flux); err == nil {
+		rep.FluxExact, rep.Flux = &c, v
+	}
+	if c, err := s.Source.AreaIntegral(in, out); err == nil {
+		if c, v, err := sub(c); err == nil {
+			rep.SourceExact, rep.Source = &c, v
+		}
+	}
+	if q := s.Quadrature; q != nil { // the numeric particular solution's share
+		g, p := q.Integrals(0, 2*math.Pi)
+		rep.Source, rep.SourceExact = rep.Source+g, nil
+		rep.Integral, rep.IntegralExact = rep.Integral+p, nil
+		for _, c := range d.circles() {
+			R, err := c.radius.Float(env)
+			if err != nil {
+				return err
+			}
+			rep.Flux += float64(c.outward) * q.Flux(R, 0, 2*math.Pi)
+		}
+		rep.FluxExact = nil
+	}
+	return polarExtremes(d, ev, rep, env)
 }
 
 func areaOf(in, out *series.Coef) (series.Coef, error) {
@@ -218,27 +154,20 @@ func sectorFlux(d Sector, ev *Evaluator, env series.Env) (float64, error) {
 	return total, nil
 }
 
+// polarExtremes fills the report's extremes over a region that is a polar box.
+func polarExtremes(d Domain, ev *Evaluator, rep *Report, env series.Env) (err error) {
+	rep.Max, rep.ArgMax, rep.Min, rep.ArgMin, err = extremes(d, ev, env)
+	return err
+}
+
 // extremes samples the closed region densely, then refines the best points
 // by a shrinking pattern search that stays inside the region.
 func extremes(d Domain, ev *Evaluator, env series.Env) (maxV float64, argMax [2]float64, minV float64, argMin [2]float64, err error) {
-	var rlo, rhi, tlo, thi float64 = 0, 1, 0, 2 * math.Pi
-	switch d := d.(type) {
-	case Disk:
-		rhi, err = d.R.Float(env)
-	case Annulus:
-		if rlo, err = d.R1.Float(env); err == nil {
-			rhi, err = d.R2.Float(env)
-		}
-	case Outside:
-		rlo, err = d.R.Float(env)
-		rhi = 10 * rlo
-	case Sector:
-		rhi, err = d.R.Float(env)
-		thi, _ = d.Alpha.Float(nil)
-	}
+	shape, err := d.Shape(env)
 	if err != nil {
 		return
 	}
+	rlo, rhi, tlo, thi := shape.Polar.RMin, shape.Polar.Reach(), 0.0, shape.Polar.Span
 	u := func(p [2]float64) float64 { v, _, _ := ev.At(p[0], p[1]); return v }
 	maxV, minV = math.Inf(-1), math.Inf(1)
 	nr, nt := 48, 96

@@ -155,7 +155,7 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 		b.pieces = gf.Add(series.ExactField(bw.Add(bu).Neg())).Pieces
 		b.data = series.Sum{}
 	}
-	sol := &Solution{Domain: s, Source: p.f, Particular: closed, Harmonic: shift}
+	sol := &Solution{Domain: s, Source: p.f, Particular: closed, Harmonic: shift, RaysByShift: true}
 	parts := &SeriesParts{}
 	for _, part := range []*series.SeriesSum{&parts.Particular, &parts.Trace, &parts.Correction, &parts.Harmonic, &parts.U} {
 		*part = series.SeriesSum{Parts: []series.Series{{Family: fam, R: s.R, Special: map[int][]series.RadialTerm{}}}}
@@ -1112,3 +1112,94 @@ func (e *Evaluator) atXYTail(x, y float64) (u, tail float64) {
 }
 
 func (e *Evaluator) atXY(x, y float64) float64 { u, _ := e.atXYTail(x, y); return u }
+
+// figures: the closed parts' integrals exactly over the sector, the
+// series' term by term, the quadrature's share, the flux through arc and rays
+// by panels, and extremes over the polar box.
+func (d Sector) figures(s *Solution, ev *Evaluator, rep *Report, env series.Env, tol float64) error {
+	sub := func(c series.Coef) (series.Coef, float64, error) { return sub(c, env) }
+	rep.Area = d.R.Mul(d.R).Mul(d.Alpha).MulRat(big.NewRat(1, 2))
+	a, _ := AlphaOverPi(d.Alpha)
+	closed, err := s.Particular.Add(s.Harmonic).SectorIntegral(d.R, d.Alpha)
+	if err == nil {
+		c, v, err := sub(closed)
+		if err == nil {
+			rep.Integral = v
+			if s.Series != nil && !s.Series.U.IsZero() {
+				for _, p := range s.Series.U.Parts {
+					is, err := p.SectorIntegral(a)
+					if err == nil {
+						sum, err := is.Float(env, tol, 1<<22)
+						if err == nil {
+							rep.Integral += sum.Value
+						}
+					}
+				}
+			} else {
+				rep.IntegralExact = &c
+			}
+		}
+	}
+	if c, err := s.Source.SectorIntegral(d.R, d.Alpha); err == nil {
+		if c, v, err := sub(c); err == nil {
+			rep.SourceExact, rep.Source = &c, v
+		}
+	}
+	rep.Flux, err = sectorFlux(d, ev, env)
+	if err != nil {
+		return err
+	}
+	if q := s.Quadrature; q != nil { // the numeric particular solution's share
+		to, _ := d.Alpha.Float(nil)
+		g, p := q.Integrals(0, to)
+		rep.Source, rep.SourceExact = rep.Source+g, nil
+		rep.Integral, rep.IntegralExact = rep.Integral+p, nil
+	}
+	return polarExtremes(d, ev, rep, env)
+}
+
+// Shape: the arc, then the ray θ = 0 (outward normal −y), then the ray θ = α.
+func (d Sector) Shape(env series.Env) (Shape, error) {
+	v, err := floats(env, d.R)
+	if err != nil {
+		return Shape{}, err
+	}
+	R := v[0]
+	a, _ := d.Alpha.Float(nil)
+	box := Box{}
+	for i := 0; i <= 200; i++ { // the arc's extent, with the centre
+		t := a * float64(i) / 200
+		x, y := R*math.Cos(t), R*math.Sin(t)
+		box = Box{math.Min(box.X0, x), math.Max(box.X1, x), math.Min(box.Y0, y), math.Max(box.Y1, y)}
+	}
+	ca, sa := math.Cos(a), math.Sin(a)
+	return Shape{
+		Sides: []SidePath{arcPath("arc", R, 0, a, 1), segmentPath("start", 0, 0, R, 0), segmentPath("end", R*ca, R*sa, 0, 0)},
+		Area:  a * R * R / 2, Box: box, Polar: &PolarBox{RMax: R, Span: a},
+	}, nil
+}
+
+// samples are 72 interior points on six arcs, off the rays.
+func (d Sector) samples(env series.Env) ([][2]float64, error) {
+	v, err := floats(env, d.R)
+	if err != nil {
+		return nil, err
+	}
+	a, _ := d.Alpha.Float(nil)
+	return ringSamples(func(i int) float64 { return v[0] * float64(i) / 7.5 }, a, 0.5), nil
+}
+
+func (d Sector) claimSide(side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
+	return polarClaimSide(d, side, cond, claim, env)
+}
+
+// boundary: the arc is a circle; "start" and "end" are the rays θ = 0 and θ = α.
+func (d Sector) boundary(side string) (circle, bool, series.Coef) {
+	switch side {
+	case "arc":
+		return circle{"arc", d.R, 1}, true, series.Coef{}
+	case "end":
+		return circle{}, false, d.Alpha
+	}
+	return circle{}, false, series.Coef{}
+}

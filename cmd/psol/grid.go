@@ -13,47 +13,31 @@ import (
 	"psol/series"
 )
 
-// radialRange is the region's range of radii.
-func radialRange(d domain.Domain, env series.Env) (lo, hi float64, err error) {
-	switch d := d.(type) {
-	case domain.Disk:
-		hi, err = d.R.Float(env)
-	case domain.Sector:
-		hi, err = d.R.Float(env)
-	case domain.Annulus:
-		if lo, err = d.R1.Float(env); err == nil {
-			hi, err = d.R2.Float(env)
-		}
-	case domain.Outside:
-		lo, err = d.R.Float(env)
-		hi = math.Inf(1)
-	default:
-		err = fmt.Errorf("no polar range for this region")
+// polarBox is the region as a box in (r, θ); a region that is none has no polar grid.
+func polarBox(d domain.Domain, env series.Env) (*domain.PolarBox, error) {
+	shape, err := d.Shape(env)
+	if err != nil {
+		return nil, err
 	}
-	return lo, hi, err
+	if shape.Polar == nil {
+		return nil, fmt.Errorf("no polar range for this region")
+	}
+	return shape.Polar, nil
 }
 
 // gridAxes is an N×N polar grid over the closed region: r from the inner
 // to the outer bound (10R outside a circle), θ over the full turn or the sector.
-func gridAxes(d domain.Domain, n int, env series.Env) (rs, ths []float64, err error) {
-	rlo, rhi, err := radialRange(d, env)
-	if math.IsInf(rhi, 1) { // outside a circle: out to ten radii
-		rhi = 10 * rlo
-	}
-	thi, full := 2*math.Pi, true
-	if s, ok := d.(domain.Sector); ok {
-		thi, _ = s.Alpha.Float(nil)
-		full = false
-	}
+func gridAxes(box *domain.PolarBox, n int) (rs, ths []float64) {
+	rlo, rhi := box.RMin, box.Reach()
 	for i := 0; i < n; i++ {
 		rs = append(rs, rlo+(rhi-rlo)*float64(i)/float64(n-1))
-		if full {
-			ths = append(ths, thi*float64(i)/float64(n))
+		if box.FullTurn {
+			ths = append(ths, box.Span*float64(i)/float64(n))
 		} else {
-			ths = append(ths, thi*float64(i)/float64(n-1))
+			ths = append(ths, box.Span*float64(i)/float64(n-1))
 		}
 	}
-	return rs, ths, err
+	return rs, ths
 }
 
 // writeAtomically writes through a temporary file in the target's folder and
@@ -86,13 +70,14 @@ func writeGrid(path string, sol *domain.Solution, env series.Env, n int, tol flo
 	if err != nil {
 		return usagef("--grid: %v", err)
 	}
-	if d, ok := sol.Domain.(domain.Rect); ok {
-		return writeRectGrid(path, d, ev, env, n)
-	}
-	rs, ths, err := gridAxes(sol.Domain, n, env)
+	shape, err := sol.Domain.Shape(env)
 	if err != nil {
 		return usagef("--grid: %v", err)
 	}
+	if shape.Polar == nil {
+		return writeCartesianGrid(path, shape.Box, ev, n)
+	}
+	rs, ths := gridAxes(shape.Polar, n)
 	u, errs := ev.Grid(rs, ths)
 	return writeAtomically(path, func(w io.Writer) error {
 		fmt.Fprintln(w, "r,theta,x,y,u,error")
@@ -135,22 +120,14 @@ func terminal(w io.Writer) bool {
 	return err == nil && st.Mode()&os.ModeCharDevice != 0
 }
 
-// writeRectGrid writes u on an N×N Cartesian grid over the rectangle: x,y,u,error.
-func writeRectGrid(path string, d domain.Rect, ev *domain.Evaluator, env series.Env, n int) error {
-	L, err := d.L.Float(env)
-	if err != nil {
-		return usagef("--grid: %v", err)
-	}
-	H, err := d.H.Float(env)
-	if err != nil {
-		return usagef("--grid: %v", err)
-	}
+// writeCartesianGrid writes u on an N×N Cartesian grid over the region's box: x,y,u,error.
+func writeCartesianGrid(path string, box domain.Box, ev *domain.Evaluator, n int) error {
 	return writeAtomically(path, func(w io.Writer) error {
 		fmt.Fprintln(w, "x,y,u,error")
 		var line []byte
 		for i := 0; i < n; i++ {
 			for j := 0; j < n; j++ {
-				x, y := L*float64(i)/float64(n-1), H*float64(j)/float64(n-1)
+				x, y := box.X0+(box.X1-box.X0)*float64(i)/float64(n-1), box.Y0+(box.Y1-box.Y0)*float64(j)/float64(n-1)
 				u, e, _ := ev.At(math.Hypot(x, y), math.Atan2(y, x))
 				line = line[:0]
 				for k, v := range [4]float64{x, y, u, e} {

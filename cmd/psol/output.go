@@ -79,7 +79,7 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 		coTeX = append(coTeX, series.JoinLaTeX(s.Data, s.Trace.Neg()))
 	}
 	side := sol.Sides[0]
-	if _, ok := sol.Domain.(domain.Sector); ok { // rays carry no trace: their data is met by the eigenfunctions and the shift
+	if sol.RaysByShift { // rays carry no trace: their data is met by the eigenfunctions and the shift
 		tr, trTeX, co, coTeX = tr[:1], trTeX[:1], co[:1], coTeX[:1]
 	}
 	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(trTeX, ", "), traceTeX(side))
@@ -319,10 +319,10 @@ func (v *view) seriesStages(sol *domain.Solution, ps *domain.SeriesParts) {
 	up, upSer := sol.Particular, ps.Particular
 	h, hSer := sol.Harmonic, ps.Harmonic
 	v.Particular = exactStage("particular", "u_p = "+join(up, upSer, false), join(up, upSer, true), "u_p")
-	if _, ok := sol.Domain.(domain.Sector); ok {
+	if sol.RaysByShift {
 		v.Trace = exactStage("trace", traceText(side)+" = "+join(side.Trace, ps.Trace, false), join(side.Trace, ps.Trace, true), traceTeX(side))
 	}
-	if _, ok := sol.Domain.(domain.Sector); ok {
+	if sol.RaysByShift {
 		v.Steps = append(v.Steps, "the rays' values are carried by the harmonic shift w = "+h.Text()+"; the modes vanish on the rays")
 		v.Correction = exactStage("correction", ps.Correction.Text(), ps.Correction.LaTeX(), `g - w - `+traceTeX(side))
 	} else {

@@ -51,51 +51,22 @@ func (f *field) Y(r int) float64    { return f.y0 + f.dy*float64(r) }
 func (f *field) Min() float64       { return f.min }
 func (f *field) Max() float64       { return f.max }
 
-// bounds is the region's bounding box and its boundary as polylines.
+// bounds is the region's bounding box (a window around an unbounded one)
+// and its sides as polylines.
 func bounds(d domain.Domain, env series.Env) (x0, x1, y0, y1 float64, edges []plotter.XYs, err error) {
-	circle := func(R, from, to float64) plotter.XYs {
-		var xy plotter.XYs
-		for i := 0; i <= 200; i++ {
-			t := from + (to-from)*float64(i)/200
-			xy = append(xy, plotter.XY{X: R * math.Cos(t), Y: R * math.Sin(t)})
-		}
-		return xy
+	shape, err := d.Shape(env)
+	if err != nil {
+		return 0, 0, 0, 0, nil, err
 	}
-	switch d := d.(type) {
-	case domain.Disk:
-		R, e := d.R.Float(env)
-		return -R, R, -R, R, []plotter.XYs{circle(R, 0, 2*math.Pi)}, e
-	case domain.Annulus:
-		a, e := d.R1.Float(env)
-		if e != nil {
-			return 0, 0, 0, 0, nil, e
+	for _, line := range shape.Outline(200) {
+		xy := make(plotter.XYs, len(line))
+		for i, p := range line {
+			xy[i] = plotter.XY{X: p[0], Y: p[1]}
 		}
-		b, e := d.R2.Float(env)
-		return -b, b, -b, b, []plotter.XYs{circle(a, 0, 2*math.Pi), circle(b, 0, 2*math.Pi)}, e
-	case domain.Outside:
-		R, e := d.R.Float(env)
-		return -3 * R, 3 * R, -3 * R, 3 * R, []plotter.XYs{circle(R, 0, 2*math.Pi)}, e
-	case domain.Rect:
-		L, e := d.L.Float(env)
-		if e != nil {
-			return 0, 0, 0, 0, nil, e
-		}
-		H, e := d.H.Float(env)
-		box := plotter.XYs{{X: 0, Y: 0}, {X: L, Y: 0}, {X: L, Y: H}, {X: 0, Y: H}, {X: 0, Y: 0}}
-		return 0, L, 0, H, []plotter.XYs{box}, e
-	case domain.Sector:
-		R, e := d.R.Float(env)
-		a, _ := d.Alpha.Float(nil)
-		arc := circle(R, 0, a)
-		edge := append(plotter.XYs{{X: 0, Y: 0}}, arc...)
-		edge = append(edge, plotter.XY{X: 0, Y: 0})
-		x0, x1, y0, y1 = 0, 0, 0, 0
-		for _, p := range edge {
-			x0, x1, y0, y1 = math.Min(x0, p.X), math.Max(x1, p.X), math.Min(y0, p.Y), math.Max(y1, p.Y)
-		}
-		return x0, x1, y0, y1, []plotter.XYs{edge}, e
+		edges = append(edges, xy)
 	}
-	return 0, 0, 0, 0, nil, fmt.Errorf("no plot for this region")
+	b := shape.Box
+	return b.X0, b.X1, b.Y0, b.Y1, edges, nil
 }
 
 // polarSampler evaluates u on nr + 1 rings from rlo to rhi, nt angles each
@@ -137,10 +108,11 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 	f := &field{x0: x0, y0: y0, dx: (x1 - x0) / (n - 1), dy: (y1 - y0) / (n - 1), nx: n, ny: n, z: make([]float64, n*n), min: math.Inf(1), max: math.Inf(-1)}
 	at := func(r, th float64) float64 { u, _, _ := ev.At(r, th); return u }
 	if sol.Quadrature != nil { // its modes are per radius: sample rings, interpolate
-		rlo, rhi, err := radialRange(sol.Domain, env)
+		box, err := polarBox(sol.Domain, env)
 		if err != nil {
 			return usagef("--plot: %v", err)
 		}
+		rlo, rhi := box.RMin, box.RMax
 		if math.IsInf(rhi, 1) { // outside a circle: out to the picture's corner
 			rhi = math.Hypot(math.Max(-x0, x1), math.Max(-y0, y1))
 		}

@@ -37,22 +37,9 @@ func quantity(name string, pr *problem, rep *domain.Report) ([]string, error) {
 
 // areaPerimeter is the region's area and wetted perimeter, numerically.
 func areaPerimeter(pr *problem) (float64, float64, bool) {
-	switch d := pr.domain.(type) {
-	case domain.Disk:
-		R, err := d.R.Float(pr.env)
-		return math.Pi * R * R, 2 * math.Pi * R, err == nil
-	case domain.Annulus:
-		a, err1 := d.R1.Float(pr.env)
-		b, err2 := d.R2.Float(pr.env)
-		return math.Pi * (b*b - a*a), 2 * math.Pi * (a + b), err1 == nil && err2 == nil
-	case domain.Rect:
-		L, err1 := d.L.Float(pr.env)
-		H, err2 := d.H.Float(pr.env)
-		return L * H, 2 * (L + H), err1 == nil && err2 == nil
-	case domain.Sector:
-		R, err := d.R.Float(pr.env)
-		al, _ := d.Alpha.Float(nil)
-		return al * R * R / 2, al*R + 2*R, err == nil
+	shape, err := pr.domain.Shape(pr.env)
+	if err != nil {
+		return 0, 0, false
 	}
-	return 0, 0, false
+	return shape.Area, shape.Perimeter(), !math.IsInf(shape.Area, 1) // an unbounded region is no duct
 }
