@@ -2,6 +2,8 @@ package ansatz
 
 import (
 	"math"
+	"math/big"
+	"psol/series"
 
 	"gonum.org/v1/gonum/integrate/quad"
 )
@@ -252,4 +254,146 @@ func chebAt(c []float64, r, R float64) float64 {
 		b1, b2 = 2*t*b1-b2+c[k], b1
 	}
 	return t*b1 - b2 + c[0]
+}
+
+// LiftRays builds a sector's RayLift for the source f on 0 < θ < sectorAngle,
+// r < R, which leaves f − Δv smooth across each ray in the extension; angles
+// are the exact θ-polynomials A_j of its terms, in order, for the arc trace. Per Dirichlet ray j it
+// has a term r²G_j(r)·a_j(θ), G_j the source along the ray, with a_j” = 1 on
+// ray j and 0 on the other ray, and, when both rays are Dirichlet, a term
+// r²W_j(r)·B_j(θ), W_j the second θ-derivative there of what remains, with
+// B_j” = a_j. Per Neumann ray j it has a term r²S_j(r)·c_j(θ), S_j the
+// θ-derivative of the source there, with c_j”' = 1 on ray j. Each polynomial
+// vanishes on the Dirichlet rays and is flat on the Neumann ones, and none
+// disturbs the other ray's conditions (liftAngles). Derivatives of the
+// source are central differences with one Richardson step.
+func LiftRays(f func(r, th float64) float64, R float64, sectorAngle series.Coef, startD, endD bool, tol float64) (lift *RayLift, angles [][]series.Coef) {
+	lift = &RayLift{R: R}
+	alpha, _ := sectorAngle.Float(nil)
+	float := func(p []series.Coef) []float64 {
+		out := make([]float64, len(p))
+		for i, c := range p {
+			out[i], _ = c.Float(nil)
+		}
+		return out
+	}
+	// A term below 1e-13 of the source's size, or below the rounding of its
+	// differences (about 10ε/d^m), is noise: a source that vanishes on its
+	// Dirichlet rays needs no lift there.
+	size := 0.0
+	for i := 0; i <= 16; i++ {
+		for j := 0; j <= 8; j++ {
+			if v := math.Abs(f(R*float64(i)/16, alpha*float64(j)/8)); !math.IsNaN(v) && !math.IsInf(v, 0) {
+				size = math.Max(size, v)
+			}
+		}
+	}
+	d := 1e-2 * math.Min(1, alpha)
+	floor := func(m int) float64 { return size * math.Max(1e-13, 10*2.2e-16/math.Pow(d, float64(m))) }
+	derivative := func(m int, r, th float64) float64 { // ∂^m f/∂θ^m, m = 0, 1, 2
+		diff := func(d float64) float64 {
+			if m == 1 {
+				return (f(r, th+d) - f(r, th-d)) / (2 * d)
+			}
+			return (f(r, th+d) - 2*f(r, th) + f(r, th-d)) / (d * d)
+		}
+		if m == 0 {
+			return f(r, th)
+		}
+		return (4*diff(d/2) - diff(d)) / 3
+	}
+	fit := func(m int, th float64, poly []series.Coef) bool {
+		g := func(r float64) float64 { return derivative(m, r, th) - lift.LapD(r, th, m) }
+		fitTol := tol
+		if m > 0 { // differences carry about 1e-10 of noise: fit no finer
+			fitTol = math.Max(tol, 1e-8)
+		}
+		n := len(lift.Terms)
+		if !lift.Fit(g, float(poly), fitTol, floor(m)) {
+			return false
+		}
+		if len(lift.Terms) > n {
+			angles = append(angles, poly)
+		}
+		return true
+	}
+	rays := []struct {
+		dirichlet bool
+		th        float64
+	}{{startD, 0}, {endD, alpha}}
+	first, second := liftAngles(sectorAngle, startD, endD)
+	for j, ray := range rays {
+		m := 0
+		if !ray.dirichlet {
+			m = 1
+		}
+		if !fit(m, ray.th, first[j]) {
+			return lift, angles // the source is not finite along a ray: what is fitted stands
+		}
+	}
+	for j, ray := range rays {
+		if !startD || !endD { // beside a Neumann ray B_j is large (5α⁴/24), and so is what remains
+			break
+		}
+		if !fit(2, ray.th, second[j]) {
+			return lift, angles
+		}
+	}
+	return lift, angles
+}
+
+// liftAngles are LiftRays' exact θ-polynomials, coefficients of θ^i, for
+// the start and end rays: first[j] is a_j (Dirichlet ray) or c_j (Neumann
+// ray), second[j] is B_j (Dirichlet rays only). Each is the double integral
+// of a base — a_j” 1 on ray j, 0 or flat on the other; c_j” with slope 1 on
+// ray j, 0 or flat on the other, of mean 0 between two Neumann rays — with
+// the constants that make it vanish on Dirichlet rays and flat on Neumann ones.
+// LiftRays uses second only between two Dirichlet rays.
+func liftAngles(alpha series.Coef, startD, endD bool) (first, second [2][]series.Coef) {
+	inv, _ := series.IntCoef(1).Div(alpha)
+	one, zero := series.IntCoef(1), series.Coef{}
+	third, sixth, half := big.NewRat(1, 3), big.NewRat(1, 6), big.NewRat(1, 2)
+	var base [2][]series.Coef
+	switch {
+	case startD && endD:
+		base = [2][]series.Coef{{one, inv.Neg()}, {zero, inv}}
+	case startD:
+		base = [2][]series.Coef{{one}, {zero, one}}
+	case endD:
+		base = [2][]series.Coef{{alpha.Neg(), one}, {one}}
+	default:
+		base = [2][]series.Coef{{alpha.MulRat(third).Neg(), one, inv.MulRat(half).Neg()}, {alpha.MulRat(sixth).Neg(), zero, inv.MulRat(half)}}
+	}
+	twice := func(p []series.Coef) []series.Coef {
+		out := make([]series.Coef, len(p)+2)
+		for i, c := range p {
+			out[i+2] = c.MulRat(big.NewRat(1, int64((i+1)*(i+2))))
+		}
+		pw := []series.Coef{one}
+		for len(pw) < len(out) {
+			pw = append(pw, pw[len(pw)-1].Mul(alpha))
+		}
+		value, slope := series.Coef{}, series.Coef{} // at θ = α
+		for i, c := range out {
+			value = value.Add(c.Mul(pw[i]))
+			if i > 0 {
+				slope = slope.Add(c.Mul(pw[i-1]).MulRat(big.NewRat(int64(i), 1)))
+			}
+		}
+		switch {
+		case startD && endD: // q(0) = q(α) = 0
+			c1, _ := value.Div(alpha)
+			out[1] = c1.Neg()
+		case startD: // q(0) = 0, q'(α) = 0
+			out[1] = slope.Neg()
+		case endD: // q'(0) = 0, q(α) = 0
+			out[0] = value.Neg()
+		} // two Neumann rays: q'(0) = 0, and q'(α) = 0 by the base's mean 0
+		return out
+	}
+	for j := range base {
+		first[j] = twice(base[j])
+		second[j] = twice(first[j])
+	}
+	return first, second
 }

@@ -4,11 +4,9 @@ import (
 	"fmt"
 	"math"
 	"math/big"
-	"strings"
 
 	"psol/ansatz"
 	"psol/series"
-	"psol/series/cart"
 )
 
 // Sector is the region r < R, 0 < θ < Alpha, with Alpha a rational multiple of π.
@@ -218,7 +216,7 @@ type sectorBuilder struct {
 	gap       float64 // what numericGap let pass, for the error estimate
 	env       series.Env
 	liftArc   series.Sum
-	liftPolys [][]series.Coef // the θ-polynomial of each RayLift term (liftAngles)
+	liftPolys [][]series.Coef // the θ-polynomial of each RayLift term (ansatz.LiftRays)
 }
 
 // concrete lists the modes built one by one: the exceptional n and those
@@ -263,7 +261,8 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 	// Take the source's values on Dirichlet rays and slopes on Neumann rays
 	// out first (RayLift): otherwise its extension jumps or kinks there and
 	// its modes fall like 1/k or 1/k².
-	lift := b.rayLift(cf.At, R, alpha, startD, endD, p.tol)
+	lift, angles := ansatz.LiftRays(cf.At, R, b.s.Alpha, startD, endD, p.tol)
+	b.liftPolys = angles
 	src := func(r, th float64) float64 { return cf.At(r, th) - lift.Lap(r, th) }
 	ext := func(r, th float64) float64 {
 		sign := 1.0
@@ -347,146 +346,6 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 	}
 	sol.Notes = append(sol.Notes, note)
 	return nil
-}
-
-// rayLift builds the quadrature's RayLift, which leaves f − Δv smooth
-// across each ray in the extension (ansatz.RayLift). Per Dirichlet ray j it
-// has a term r²G_j(r)·a_j(θ), G_j the source along the ray, with a_j” = 1 on
-// ray j and 0 on the other ray, and, when both rays are Dirichlet, a term
-// r²W_j(r)·B_j(θ), W_j the second θ-derivative there of what remains, with
-// B_j” = a_j. Per Neumann ray j it has a term r²S_j(r)·c_j(θ), S_j the
-// θ-derivative of the source there, with c_j”' = 1 on ray j. Each polynomial
-// vanishes on the Dirichlet rays and is flat on the Neumann ones, and none
-// disturbs the other ray's conditions (liftAngles). Derivatives of the
-// source are central differences with one Richardson step.
-func (b *sectorBuilder) rayLift(f func(r, th float64) float64, R, alpha float64, startD, endD bool, tol float64) *ansatz.RayLift {
-	lift := &ansatz.RayLift{R: R}
-	float := func(p []series.Coef) []float64 {
-		out := make([]float64, len(p))
-		for i, c := range p {
-			out[i], _ = c.Float(nil)
-		}
-		return out
-	}
-	// A term below 1e-13 of the source's size, or below the rounding of its
-	// differences (about 10ε/d^m), is noise: a source that vanishes on its
-	// Dirichlet rays needs no lift there.
-	size := 0.0
-	for i := 0; i <= 16; i++ {
-		for j := 0; j <= 8; j++ {
-			if v := math.Abs(f(R*float64(i)/16, alpha*float64(j)/8)); !math.IsNaN(v) && !math.IsInf(v, 0) {
-				size = math.Max(size, v)
-			}
-		}
-	}
-	d := 1e-2 * math.Min(1, alpha)
-	floor := func(m int) float64 { return size * math.Max(1e-13, 10*2.2e-16/math.Pow(d, float64(m))) }
-	derivative := func(m int, r, th float64) float64 { // ∂^m f/∂θ^m, m = 0, 1, 2
-		diff := func(d float64) float64 {
-			if m == 1 {
-				return (f(r, th+d) - f(r, th-d)) / (2 * d)
-			}
-			return (f(r, th+d) - 2*f(r, th) + f(r, th-d)) / (d * d)
-		}
-		if m == 0 {
-			return f(r, th)
-		}
-		return (4*diff(d/2) - diff(d)) / 3
-	}
-	fit := func(m int, th float64, poly []series.Coef) bool {
-		g := func(r float64) float64 { return derivative(m, r, th) - lift.LapD(r, th, m) }
-		fitTol := tol
-		if m > 0 { // differences carry about 1e-10 of noise: fit no finer
-			fitTol = math.Max(tol, 1e-8)
-		}
-		n := len(lift.Terms)
-		if !lift.Fit(g, float(poly), fitTol, floor(m)) {
-			return false
-		}
-		if len(lift.Terms) > n {
-			b.liftPolys = append(b.liftPolys, poly)
-		}
-		return true
-	}
-	rays := []struct {
-		dirichlet bool
-		th        float64
-	}{{startD, 0}, {endD, alpha}}
-	first, second := liftAngles(b.s.Alpha, startD, endD)
-	for j, ray := range rays {
-		m := 0
-		if !ray.dirichlet {
-			m = 1
-		}
-		if !fit(m, ray.th, first[j]) {
-			return lift // the source is not finite along a ray: what is fitted stands
-		}
-	}
-	for j, ray := range rays {
-		if !startD || !endD { // beside a Neumann ray B_j is large (5α⁴/24), and so is what remains
-			break
-		}
-		if !fit(2, ray.th, second[j]) {
-			return lift
-		}
-	}
-	return lift
-}
-
-// liftAngles are rayLift's exact θ-polynomials, coefficients of θ^i, for
-// the start and end rays: first[j] is a_j (Dirichlet ray) or c_j (Neumann
-// ray), second[j] is B_j (Dirichlet rays only). Each is the double integral
-// of a base — a_j” 1 on ray j, 0 or flat on the other; c_j” with slope 1 on
-// ray j, 0 or flat on the other, of mean 0 between two Neumann rays — with
-// the constants that make it vanish on Dirichlet rays and flat on Neumann ones.
-// rayLift uses second only between two Dirichlet rays.
-func liftAngles(alpha series.Coef, startD, endD bool) (first, second [2][]series.Coef) {
-	inv, _ := series.IntCoef(1).Div(alpha)
-	one, zero := series.IntCoef(1), series.Coef{}
-	third, sixth, half := big.NewRat(1, 3), big.NewRat(1, 6), big.NewRat(1, 2)
-	var base [2][]series.Coef
-	switch {
-	case startD && endD:
-		base = [2][]series.Coef{{one, inv.Neg()}, {zero, inv}}
-	case startD:
-		base = [2][]series.Coef{{one}, {zero, one}}
-	case endD:
-		base = [2][]series.Coef{{alpha.Neg(), one}, {one}}
-	default:
-		base = [2][]series.Coef{{alpha.MulRat(third).Neg(), one, inv.MulRat(half).Neg()}, {alpha.MulRat(sixth).Neg(), zero, inv.MulRat(half)}}
-	}
-	twice := func(p []series.Coef) []series.Coef {
-		out := make([]series.Coef, len(p)+2)
-		for i, c := range p {
-			out[i+2] = c.MulRat(big.NewRat(1, int64((i+1)*(i+2))))
-		}
-		pw := []series.Coef{one}
-		for len(pw) < len(out) {
-			pw = append(pw, pw[len(pw)-1].Mul(alpha))
-		}
-		value, slope := series.Coef{}, series.Coef{} // at θ = α
-		for i, c := range out {
-			value = value.Add(c.Mul(pw[i]))
-			if i > 0 {
-				slope = slope.Add(c.Mul(pw[i-1]).MulRat(big.NewRat(int64(i), 1)))
-			}
-		}
-		switch {
-		case startD && endD: // q(0) = q(α) = 0
-			c1, _ := value.Div(alpha)
-			out[1] = c1.Neg()
-		case startD: // q(0) = 0, q'(α) = 0
-			out[1] = slope.Neg()
-		case endD: // q'(0) = 0, q(α) = 0
-			out[0] = value.Neg()
-		} // two Neumann rays: q'(0) = 0, and q'(α) = 0 by the base's mean 0
-		return out
-	}
-	for j := range base {
-		first[j] = twice(base[j])
-		second[j] = twice(first[j])
-	}
-	return first, second
 }
 
 // liftTrace is the arc operator on the quadrature's RayLift, Σ_t c_t·A_t(θ),
@@ -723,154 +582,6 @@ func (b *sectorBuilder) checks(general modeResult, shift series.Sum, start, end 
 	return checks
 }
 
-// SumTol is the series truncation used where no tolerance is given.
-const SumTol = 1e-12
-
-// Evaluator evaluates a solution at points in float64, summing any series to tol.
-type Evaluator struct {
-	closed  series.Compiled
-	ser     *series.CompiledSeriesSum
-	tol     float64
-	max     int
-	rim     *compiledRim
-	rect    []rectSeries
-	walls   *rectWalls             // a rectangle's side data, exact on the sides themselves
-	quad    *ansatz.Quadrature     // a numeric particular solution, evaluated beside the rest
-	waves   *cart.CompiledWaves    // a rectangle's exponential and trigonometric particular part
-	sq      *ansatz.SineQuadrature // a rectangle's numeric particular part
-	dataErr float64                // what numeric traces bring to every value
-}
-
-// rectWalls holds a rectangle's Dirichlet data in the side coordinates.
-type rectWalls struct {
-	L, H                     float64
-	left, right, bottom, top *sideData // nil where the side carries a flux, not a value
-	env                      series.Env
-}
-
-// on is u on a side (not a corner) of the rectangle, where it is the data.
-func (w *rectWalls) on(x, y float64) (float64, bool) {
-	if w == nil {
-		return 0, false
-	}
-	const eps = 1e-14
-	inX, inY := x > eps*w.L && x < w.L*(1-eps), y > eps*w.H && y < w.H*(1-eps)
-	var g *sideData
-	var s float64
-	switch {
-	case math.Abs(x) <= eps*w.L && inY:
-		g, s = w.left, y
-	case math.Abs(x-w.L) <= eps*w.L && inY:
-		g, s = w.right, y
-	case math.Abs(y) <= eps*w.H && inX:
-		g, s = w.bottom, x
-	case math.Abs(y-w.H) <= eps*w.H && inX:
-		g, s = w.top, x
-	default:
-		return 0, false
-	}
-	if g == nil {
-		return 0, false
-	}
-	return g.at(s, w.env), true
-}
-
-// rectSeries is a rectangle's side series as evaluated: exact or numeric.
-type rectSeries interface {
-	At(x, y, tol float64, maxTerms int) (sum, tail float64)
-	Integral(tol float64, maxTerms int) float64
-}
-
-// Compile prepares the solution for evaluation with parameters from env.
-func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluator, error) {
-	u := s.U
-	if s.Series != nil {
-		u = s.Particular.Add(s.Harmonic) // the closed parts: ray-adapted particular and ray shift
-	}
-	c, err := u.Compile(env)
-	if err != nil {
-		return nil, err
-	}
-	e := &Evaluator{closed: c, tol: tol, max: maxTerms, quad: s.Quadrature, dataErr: s.DataError}
-	if s.Rect != nil {
-		d := s.Domain.(Rect)
-		w := &rectWalls{env: env}
-		if w.L, err = d.L.Float(env); err != nil {
-			return nil, err
-		}
-		if w.H, err = d.H.Float(env); err != nil {
-			return nil, err
-		}
-		for _, side := range s.Rect.Sides {
-			switch {
-			case side.Eigen != nil:
-				e.rect = append(e.rect, side.Eigen)
-			case side.Series == nil: // no correction on this side
-			default:
-				cs, err := side.Series.Compile(env)
-				if err != nil {
-					return nil, err
-				}
-				e.rect = append(e.rect, cs)
-			}
-			if s.Sides[k0(side.Name)].Condition.Kind == Dirichlet {
-				data := side.data
-				*map[string]**sideData{"left": &w.left, "right": &w.right, "bottom": &w.bottom, "top": &w.top}[side.Name] = &data
-			}
-		}
-		e.walls = w
-		if len(s.Rect.Waves) > 0 {
-			if e.waves, err = s.Rect.Waves.Compile(env); err != nil {
-				return nil, err
-			}
-		}
-		e.sq = s.Rect.Quadrature
-	}
-	if s.rim != nil {
-		if e.rim, err = s.rim.compile(s.Particular, env); err != nil {
-			return nil, err
-		}
-	}
-	if s.Series != nil {
-		cs, err := s.Series.U.Compile(env)
-		if err != nil {
-			return nil, err
-		}
-		e.ser = &cs
-	}
-	return e, nil
-}
-
-// At is u(r, θ) with an estimate of the truncation error (0 for closed forms)
-// and the number of series terms summed.
-func (e *Evaluator) At(r, theta float64) (u, errEst float64, terms int) {
-	if e.quad != nil {
-		u, errEst, terms = e.atClosedAndSeries(r, theta)
-		p, perr := e.quad.At(r, theta)
-		return u + p, errEst + perr + e.dataErr, terms
-	}
-	return e.atClosedAndSeries(r, theta)
-}
-
-func (e *Evaluator) atClosedAndSeries(r, theta float64) (u, errEst float64, terms int) {
-	if e.rect != nil {
-		u, errEst = e.atXYTail(r*math.Cos(theta), r*math.Sin(theta))
-		return u, errEst, 0
-	}
-	u = e.closed.At(r, theta)
-	if e.ser == nil {
-		return u, 0, 0
-	}
-	if r == 0 {
-		r = math.SmallestNonzeroFloat64
-	}
-	if e.rim != nil && e.rim.near(r) {
-		return e.rim.at(r, theta), e.tol, 0
-	}
-	s := e.ser.At(r, theta, e.tol, e.max)
-	return u + s.Value, s.Tail, s.Terms
-}
-
 // rayAdapted is a closed-form particular solution of Δu = c r^k T(mθ),
 // s = k + 2 a whole number, that satisfies the homogeneous ray conditions
 // (F = 0 on a Dirichlet ray, F′ = 0 on a Neumann ray):
@@ -984,47 +695,6 @@ func closedChecks(u, f series.Sum, startD, endD bool, alpha series.Coef, p *pose
 	return checks
 }
 
-// Formula is u in psol's syntax (or LaTeX): the closed parts, then any series.
-func (s *Solution) Formula(latex bool) string {
-	if s.Series == nil {
-		if latex {
-			return series.JoinLaTeX(s.Particular, s.Harmonic)
-		}
-		return series.JoinText(s.Particular, s.Harmonic)
-	}
-	return JoinSeries(s.Particular.Add(s.Harmonic), s.Series.U, latex)
-}
-
-// JoinSeries prints closed + ser, leaving out a part that is zero.
-func JoinSeries(closed series.Sum, ser series.SeriesSum, latex bool) string {
-	c, t := closed.Text(), ser.Text()
-	if latex {
-		c, t = closed.LaTeX(), ser.LaTeX()
-	}
-	return joinPrinted(c, t, ser.IsZero(), closed.IsZero())
-}
-
-// JoinSeriesApprox is JoinSeries with decimal coefficients, for numeric results.
-func JoinSeriesApprox(closed series.Sum, ser series.SeriesSum, latex bool) string {
-	c, t := closed.TextApprox(), ser.TextApprox()
-	if latex {
-		c, t = closed.LaTeXApprox(), ser.LaTeXApprox()
-	}
-	return joinPrinted(c, t, ser.IsZero(), closed.IsZero())
-}
-
-func joinPrinted(c, t string, serZero, closedZero bool) string {
-	switch {
-	case serZero:
-		return c
-	case closedZero:
-		return t
-	case strings.HasPrefix(t, "-"):
-		return c + " - " + t[1:]
-	}
-	return c + " + " + t
-}
-
 // mergeChecks adds up the residuals of checks with the same name and side:
 // a sector's closed part and its series are verified separately.
 func mergeChecks(cs []Check) []Check {
@@ -1044,74 +714,6 @@ func mergeChecks(cs []Check) []Check {
 	}
 	return out
 }
-
-// Grid evaluates u on the tensor grid rs × thetas, returning values and an
-// error estimate per point (without DataError, which At adds and a caller of
-// Grid adds once); radii next to a Dirichlet circle take the Poisson
-// integral point by point.
-func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
-	u = make([][]float64, len(rs))
-	errs = make([][]float64, len(rs))
-	for i := range rs {
-		u[i] = make([]float64, len(thetas))
-		errs[i] = make([]float64, len(thetas))
-	}
-	var far []float64
-	var farRows []int
-	for i, r := range rs {
-		if e.ser != nil && (r == 0 || e.rim != nil && e.rim.near(r)) {
-			for j, th := range thetas {
-				u[i][j], errs[i][j], _ = e.atClosedAndSeries(r, th)
-			}
-			continue
-		}
-		far, farRows = append(far, r), append(farRows, i)
-	}
-
-	rows := make([][]float64, len(far))
-	for k, i := range farRows {
-		rows[k] = u[i]
-	}
-	e.closed.Grid(far, thetas, rows)
-	if e.ser != nil {
-		for k, t := range e.ser.Grid(far, thetas, rows, e.tol, e.max) {
-			for j := range thetas {
-				errs[farRows[k]][j] = t
-			}
-		}
-	}
-	// The numeric particular part, a radius at a time (its modes are per
-	// radius); the data's share of the error is the caller's.
-	if e.quad != nil {
-		for i, r := range rs {
-			for j, th := range thetas {
-				p, perr := e.quad.At(r, th)
-				u[i][j] += p
-				errs[i][j] += perr
-			}
-		}
-	}
-	return u, errs
-}
-
-// atXYTail is a rectangle's u(x, y) with the summed tail estimates.
-func (e *Evaluator) atXYTail(x, y float64) (u, tail float64) {
-	if v, ok := e.walls.on(x, y); ok {
-		return v, 0
-	}
-	u = e.closed.At(math.Hypot(x, y), math.Atan2(y, x)) + e.waves.At(x, y)
-	if e.sq != nil {
-		v, t := e.sq.At(x, y)
-		u, tail = u+v, tail+t
-	}
-	for _, s := range e.rect {
-		v, t := s.At(x, y, e.tol, e.max)
-		u, tail = u+v, tail+t
-	}
-	return u, tail
-}
-
-func (e *Evaluator) atXY(x, y float64) float64 { u, _ := e.atXYTail(x, y); return u }
 
 // figures: the closed parts' integrals exactly over the sector, the
 // series' term by term, the quadrature's share, the flux through arc and rays

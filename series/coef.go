@@ -527,3 +527,40 @@ func Positive(c Coef) bool {
 	}
 	return false
 }
+
+// Index is the name of a series' summation index; psol reserves it.
+const Index = "n"
+
+// IndexCoef is the index n as a coefficient, for general terms.
+var IndexCoef = SymCoef(Param(Index))
+
+// SignCoef is (−1)^n.
+var SignCoef = SymCoef(SignOf(Index))
+
+// unitCircle is (cos c, sin c) for c = 0 or c = qπ with 12q whole.
+func unitCircle(c Coef) (Coef, Coef, bool) {
+	if c.IsZero() {
+		return IntCoef(1), Coef{}, true
+	}
+	piInv, _ := IntCoef(1).Div(SymCoef(Pi))
+	q, ok := c.Mul(piInv).Rat()
+	if !ok {
+		return Coef{}, Coef{}, false
+	}
+	twelfths := new(big.Rat).Mul(q, big.NewRat(12, 1))
+	if !twelfths.IsInt() {
+		return Coef{}, Coef{}, false
+	}
+	k := new(big.Int).Mod(twelfths.Num(), big.NewInt(24)).Int64()
+	v, ok := cos12[k%24]
+	if !ok {
+		return Coef{}, Coef{}, false
+	}
+	s, ok := cos12[(k+18)%24] // sin x = cos(x − π/2)
+	if !ok {
+		return Coef{}, Coef{}, false
+	}
+	return v, s, true
+}
+
+func ratFloat(q *big.Rat) float64 { f, _ := q.Float64(); return f }

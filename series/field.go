@@ -292,32 +292,6 @@ func angleOf(s Sum) (m int, c Coef, ok bool) {
 	return m, c, true
 }
 
-// unitCircle is (cos c, sin c) for c = 0 or c = qπ with 12q whole.
-func unitCircle(c Coef) (Coef, Coef, bool) {
-	if c.IsZero() {
-		return IntCoef(1), Coef{}, true
-	}
-	piInv, _ := IntCoef(1).Div(SymCoef(Pi))
-	q, ok := c.Mul(piInv).Rat()
-	if !ok {
-		return Coef{}, Coef{}, false
-	}
-	twelfths := new(big.Rat).Mul(q, big.NewRat(12, 1))
-	if !twelfths.IsInt() {
-		return Coef{}, Coef{}, false
-	}
-	k := new(big.Int).Mod(twelfths.Num(), big.NewInt(24)).Int64()
-	v, ok := cos12[k%24]
-	if !ok {
-		return Coef{}, Coef{}, false
-	}
-	s, ok := cos12[(k+18)%24] // sin x = cos(x − π/2)
-	if !ok {
-		return Coef{}, Coef{}, false
-	}
-	return v, s, true
-}
-
 // cos12 holds cos(kπ/12), every value a sum of rationals times 1, √2, √3 and √6.
 var cos12 = func() map[int64]Coef {
 	half := big.NewRat(1, 2)

@@ -334,8 +334,6 @@ func absPieces(s Sum) (Field, bool) {
 
 func (t Term) isConstExceptAngle() bool { return t.power().Sign() == 0 && t.L == 0 && t.M == 0 }
 
-func ratFloat(q *big.Rat) float64 { f, _ := q.Float64(); return f }
-
 // LaTeX prints the field as LaTeX where it can, pieces as a cases block.
 func (f Field) LaTeX() string {
 	switch {

@@ -1,0 +1,224 @@
+package domain
+
+import (
+	"math"
+	"psol/ansatz"
+	"psol/series"
+	"psol/series/cart"
+)
+
+// SumTol is the series truncation used where no tolerance is given.
+const SumTol = 1e-12
+
+// Evaluator evaluates a solution at points in float64, summing any series to tol.
+type Evaluator struct {
+	closed  series.Compiled
+	ser     *series.CompiledSeriesSum
+	tol     float64
+	max     int
+	rim     *compiledRim
+	rect    []rectSeries
+	walls   *rectWalls             // a rectangle's side data, exact on the sides themselves
+	quad    *ansatz.Quadrature     // a numeric particular solution, evaluated beside the rest
+	waves   *cart.CompiledWaves    // a rectangle's exponential and trigonometric particular part
+	sq      *ansatz.SineQuadrature // a rectangle's numeric particular part
+	dataErr float64                // what numeric traces bring to every value
+}
+
+// rectWalls holds a rectangle's Dirichlet data in the side coordinates.
+type rectWalls struct {
+	L, H                     float64
+	left, right, bottom, top *sideData // nil where the side carries a flux, not a value
+	env                      series.Env
+}
+
+// on is u on a side (not a corner) of the rectangle, where it is the data.
+func (w *rectWalls) on(x, y float64) (float64, bool) {
+	if w == nil {
+		return 0, false
+	}
+	const eps = 1e-14
+	inX, inY := x > eps*w.L && x < w.L*(1-eps), y > eps*w.H && y < w.H*(1-eps)
+	var g *sideData
+	var s float64
+	switch {
+	case math.Abs(x) <= eps*w.L && inY:
+		g, s = w.left, y
+	case math.Abs(x-w.L) <= eps*w.L && inY:
+		g, s = w.right, y
+	case math.Abs(y) <= eps*w.H && inX:
+		g, s = w.bottom, x
+	case math.Abs(y-w.H) <= eps*w.H && inX:
+		g, s = w.top, x
+	default:
+		return 0, false
+	}
+	if g == nil {
+		return 0, false
+	}
+	return g.at(s, w.env), true
+}
+
+// rectSeries is a rectangle's side series as evaluated: exact or numeric.
+type rectSeries interface {
+	At(x, y, tol float64, maxTerms int) (sum, tail float64)
+	Integral(tol float64, maxTerms int) float64
+}
+
+// Compile prepares the solution for evaluation with parameters from env.
+func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluator, error) {
+	u := s.U
+	if s.Series != nil {
+		u = s.Particular.Add(s.Harmonic) // the closed parts: ray-adapted particular and ray shift
+	}
+	c, err := u.Compile(env)
+	if err != nil {
+		return nil, err
+	}
+	e := &Evaluator{closed: c, tol: tol, max: maxTerms, quad: s.Quadrature, dataErr: s.DataError}
+	if s.Rect != nil {
+		d := s.Domain.(Rect)
+		w := &rectWalls{env: env}
+		if w.L, err = d.L.Float(env); err != nil {
+			return nil, err
+		}
+		if w.H, err = d.H.Float(env); err != nil {
+			return nil, err
+		}
+		for _, side := range s.Rect.Sides {
+			switch {
+			case side.Eigen != nil:
+				e.rect = append(e.rect, side.Eigen)
+			case side.Series == nil: // no correction on this side
+			default:
+				cs, err := side.Series.Compile(env)
+				if err != nil {
+					return nil, err
+				}
+				e.rect = append(e.rect, cs)
+			}
+			if s.Sides[k0(side.Name)].Condition.Kind == Dirichlet {
+				data := side.data
+				*map[string]**sideData{"left": &w.left, "right": &w.right, "bottom": &w.bottom, "top": &w.top}[side.Name] = &data
+			}
+		}
+		e.walls = w
+		if len(s.Rect.Waves) > 0 {
+			if e.waves, err = s.Rect.Waves.Compile(env); err != nil {
+				return nil, err
+			}
+		}
+		e.sq = s.Rect.Quadrature
+	}
+	if s.rim != nil {
+		if e.rim, err = s.rim.compile(s.Particular, env); err != nil {
+			return nil, err
+		}
+	}
+	if s.Series != nil {
+		cs, err := s.Series.U.Compile(env)
+		if err != nil {
+			return nil, err
+		}
+		e.ser = &cs
+	}
+	return e, nil
+}
+
+// At is u(r, θ) with an estimate of the truncation error (0 for closed forms)
+// and the number of series terms summed.
+func (e *Evaluator) At(r, theta float64) (u, errEst float64, terms int) {
+	if e.quad != nil {
+		u, errEst, terms = e.atClosedAndSeries(r, theta)
+		p, perr := e.quad.At(r, theta)
+		return u + p, errEst + perr + e.dataErr, terms
+	}
+	return e.atClosedAndSeries(r, theta)
+}
+
+func (e *Evaluator) atClosedAndSeries(r, theta float64) (u, errEst float64, terms int) {
+	if e.rect != nil {
+		u, errEst = e.atXYTail(r*math.Cos(theta), r*math.Sin(theta))
+		return u, errEst, 0
+	}
+	u = e.closed.At(r, theta)
+	if e.ser == nil {
+		return u, 0, 0
+	}
+	if r == 0 {
+		r = math.SmallestNonzeroFloat64
+	}
+	if e.rim != nil && e.rim.near(r) {
+		return e.rim.at(r, theta), e.tol, 0
+	}
+	s := e.ser.At(r, theta, e.tol, e.max)
+	return u + s.Value, s.Tail, s.Terms
+}
+
+// Grid evaluates u on the tensor grid rs × thetas, returning values and an
+// error estimate per point (without DataError, which At adds and a caller of
+// Grid adds once); radii next to a Dirichlet circle take the Poisson
+// integral point by point.
+func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
+	u = make([][]float64, len(rs))
+	errs = make([][]float64, len(rs))
+	for i := range rs {
+		u[i] = make([]float64, len(thetas))
+		errs[i] = make([]float64, len(thetas))
+	}
+	var far []float64
+	var farRows []int
+	for i, r := range rs {
+		if e.ser != nil && (r == 0 || e.rim != nil && e.rim.near(r)) {
+			for j, th := range thetas {
+				u[i][j], errs[i][j], _ = e.atClosedAndSeries(r, th)
+			}
+			continue
+		}
+		far, farRows = append(far, r), append(farRows, i)
+	}
+
+	rows := make([][]float64, len(far))
+	for k, i := range farRows {
+		rows[k] = u[i]
+	}
+	e.closed.Grid(far, thetas, rows)
+	if e.ser != nil {
+		for k, t := range e.ser.Grid(far, thetas, rows, e.tol, e.max) {
+			for j := range thetas {
+				errs[farRows[k]][j] = t
+			}
+		}
+	}
+	// The numeric particular part, a radius at a time (its modes are per
+	// radius); the data's share of the error is the caller's.
+	if e.quad != nil {
+		for i, r := range rs {
+			for j, th := range thetas {
+				p, perr := e.quad.At(r, th)
+				u[i][j] += p
+				errs[i][j] += perr
+			}
+		}
+	}
+	return u, errs
+}
+
+// atXYTail is a rectangle's u(x, y) with the summed tail estimates.
+func (e *Evaluator) atXYTail(x, y float64) (u, tail float64) {
+	if v, ok := e.walls.on(x, y); ok {
+		return v, 0
+	}
+	u = e.closed.At(math.Hypot(x, y), math.Atan2(y, x)) + e.waves.At(x, y)
+	if e.sq != nil {
+		v, t := e.sq.At(x, y)
+		u, tail = u+v, tail+t
+	}
+	for _, s := range e.rect {
+		v, t := s.At(x, y, e.tol, e.max)
+		u, tail = u+v, tail+t
+	}
+	return u, tail
+}
+
+func (e *Evaluator) atXY(x, y float64) float64 { u, _ := e.atXYTail(x, y); return u }

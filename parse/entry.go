@@ -1,0 +1,262 @@
+package parse
+
+import (
+	"errors"
+	"fmt"
+	"psol/domain"
+	"psol/series"
+	"strings"
+
+	"github.com/alecthomas/participle/v2/lexer"
+)
+
+// Equation reads "c*lap(u) = f", or a bare source f, as the source of Δu = f.
+func Equation(text string, env series.Env) (series.Field, error) {
+	lw := &lowerer{label: "equation", input: text, env: env}
+	st, err := lw.statement()
+	if err != nil {
+		return series.Field{}, err
+	}
+	if st.Side != nil {
+		return series.Field{}, lw.fail(st.Side.Pos, "a side name belongs in --bc, not in the equation")
+	}
+	v, err := lw.choice(st.Left)
+	if err != nil {
+		return series.Field{}, err
+	}
+	if st.Eq == nil {
+		if v.hasUnknown() {
+			return series.Field{}, lw.fail(st.Pos, "write the equation with an = sign: lap(u) = f")
+		}
+		return v.f, nil
+	}
+	w, err := lw.choice(st.Eq.Right)
+	if err != nil {
+		return series.Field{}, err
+	}
+	v = v.add(w.scale(series.IntCoef(-1)))
+	if !v.dn.IsZero() {
+		return series.Field{}, lw.fail(st.Pos, "dn(u) belongs in boundary conditions, not in the equation")
+	}
+	if !v.u.IsZero() {
+		return series.Field{}, lw.fail(st.Pos, "u appears outside lap(u); psol solves Poisson's equation lap(u) = f only")
+	}
+	if v.lap.IsZero() {
+		return series.Field{}, lw.fail(st.Pos, "missing lap(u): write the equation as c*lap(u) = f")
+	}
+	// lap·Δu + f = 0  ⇒  Δu = −f/lap.
+	inv, err := series.IntCoef(-1).Div(v.lap)
+	if err != nil {
+		return series.Field{}, lw.fail(st.Pos, "%v", err)
+	}
+	return v.f.Scale(inv), nil
+}
+
+func (lw *lowerer) statement() (*statement, error) {
+	if strings.TrimSpace(lw.input) == "" {
+		return nil, &Error{Label: lw.label, Input: lw.input, Msg: "empty input"}
+	}
+	st, err := statementParser.ParseString("", lw.input)
+	if err != nil {
+		return nil, lw.wrapParse(err)
+	}
+	return st, nil
+}
+
+// Condition reads "[SIDE:] CONDITION" for a domain with the given sides; a
+// domain with one side lets SIDE be omitted.
+func Condition(text string, sides []string, env series.Env) (domain.Condition, error) {
+	lw := &lowerer{label: "--bc", input: text, env: env}
+	st, err := lw.statement()
+	if err != nil {
+		return domain.Condition{}, err
+	}
+	cond := domain.Condition{Text: text}
+	switch {
+	case st.Side != nil:
+		if !contains(sides, st.Side.Name) {
+			return domain.Condition{}, lw.fail(st.Side.Pos, "this domain has no side %q (its sides: %s)", st.Side.Name, strings.Join(sides, ", "))
+		}
+		cond.Side = st.Side.Name
+	case len(sides) == 1:
+		cond.Side = sides[0]
+	default:
+		return domain.Condition{}, lw.fail(st.Pos, "name the side first, one of: %s (as in %q)", strings.Join(sides, ", "), sides[0]+": u = 0")
+	}
+	if st.Eq == nil {
+		return domain.Condition{}, lw.fail(st.Left.Pos, "a condition needs an = sign, as in u = g or dn(u) = g")
+	}
+	v, err := lw.choice(st.Left)
+	if err != nil {
+		return domain.Condition{}, err
+	}
+	w, err := lw.choice(st.Eq.Right)
+	if err != nil {
+		return domain.Condition{}, err
+	}
+	v = v.add(w.scale(series.IntCoef(-1)))
+	if !v.lap.IsZero() {
+		return domain.Condition{}, lw.fail(st.Pos, "lap(u) belongs in the equation, not in a boundary condition")
+	}
+	// dn·∂u/∂n + u·u + f = 0.
+	lead := v.dn
+	switch {
+	case !v.dn.IsZero() && v.u.IsZero():
+		cond.Kind = domain.Neumann
+	case !v.dn.IsZero():
+		cond.Kind = domain.Robin
+		cond.H, _ = v.u.Div(v.dn)
+	case !v.u.IsZero():
+		cond.Kind = domain.Dirichlet
+		lead = v.u
+	default:
+		return domain.Condition{}, lw.fail(st.Pos, "a condition must involve u or dn(u)")
+	}
+	inv, _ := series.IntCoef(-1).Div(lead)
+	cond.G = v.f.Scale(inv)
+	return cond, nil
+}
+
+func contains(list []string, s string) bool {
+	for _, x := range list {
+		if x == s {
+			return true
+		}
+	}
+	return false
+}
+
+// Expression reads a formula in r, θ, x, y and parameters, with no unknown;
+// "u = formula" is taken as the formula.
+func Expression(label, text string, env series.Env) (series.Field, error) {
+	lw := &lowerer{label: label, input: text, env: env}
+	st, err := lw.statement()
+	if err != nil {
+		return series.Field{}, err
+	}
+	body := st.Left
+	if st.Side == nil && st.Eq != nil {
+		left, err := lw.choice(st.Left)
+		if err != nil {
+			return series.Field{}, err
+		}
+		if !left.lap.IsZero() || !left.dn.IsZero() || !left.u.Equal(series.IntCoef(1)) || !left.f.IsExact() || !left.f.Exact.IsZero() {
+			return series.Field{}, lw.fail(st.Pos, "expected a formula, or u = formula")
+		}
+		body = st.Eq.Right
+	}
+	if st.Side != nil {
+		return series.Field{}, lw.fail(st.Pos, "expected a formula, not a boundary condition")
+	}
+	v, err := lw.choice(body)
+	if err != nil {
+		return series.Field{}, err
+	}
+	if v.hasUnknown() {
+		return series.Field{}, lw.fail(st.Pos, "expected a formula without u")
+	}
+	return v.f, nil
+}
+
+// Binding is one name = value pair of --let or --at.
+type Binding struct {
+	Name  string
+	Value series.Coef
+}
+
+// Bindings reads "a=0.05,q=2e5": names bound to exact constants.
+func Bindings(label, text string, env series.Env) ([]Binding, error) {
+	lw := &lowerer{label: label, input: text, env: env}
+	if strings.TrimSpace(text) == "" {
+		return nil, &Error{Label: label, Input: text, Msg: "empty input"}
+	}
+	bs, err := bindingsParser.ParseString("", text)
+	if err != nil {
+		return nil, lw.wrapParse(err)
+	}
+	var out []Binding
+	seen := map[string]bool{}
+	for _, b := range bs.List {
+		if seen[b.Name] {
+			return nil, lw.fail(b.Pos, "%s is given twice", b.Name)
+		}
+		seen[b.Name] = true
+		v, err := lw.choice(b.Value)
+		if err != nil {
+			return nil, err
+		}
+		c, ok := constant(v)
+		if !ok {
+			return nil, lw.fail(b.Value.Pos, "the value of %s must be a constant", b.Name)
+		}
+		out = append(out, Binding{b.Name, c})
+	}
+	return out, nil
+}
+
+// Lengths reads n comma-separated positive sizes such as "2", "a" or "pi/3".
+func Lengths(label, text string, n int, env series.Env) ([]series.Coef, error) {
+	lw := &lowerer{label: label, input: text, env: env}
+	parts := strings.Split(text, ",")
+	if len(parts) != n {
+		return nil, &Error{Label: label, Input: text, Offset: len(text), Msg: fmt.Sprintf("expected %d comma-separated values, found %d", n, len(parts))}
+	}
+	var out []series.Coef
+	off := 0
+	for _, p := range parts {
+		f, err := Expression(label, p, env)
+		if err != nil {
+			var pe *Error
+			if errors.As(err, &pe) {
+				pe.Input, pe.Offset = text, pe.Offset+off
+			}
+			return nil, err
+		}
+		c, ok := constant(value{f: f})
+		if !ok {
+			return nil, lw.fail(lexer.Position{Offset: off}, "a size must be a constant")
+		}
+		if !series.Positive(c) {
+			lead := off + len(p) - len(strings.TrimLeft(p, " "))
+			return nil, lw.fail(lexer.Position{Offset: lead}, "a size must be positive, not %s", c.Text())
+		}
+		out = append(out, c)
+		off += len(p) + 1
+	}
+	return out, nil
+}
+
+// Fix reads "u(R0, THETA0) = V": a value of u at a point given in polar
+// coordinates, used to pin a free additive constant.
+func Fix(text string, env series.Env) (r, theta, v series.Coef, err error) {
+	lw := &lowerer{label: "--fix", input: text, env: env}
+	st, err := lw.statement()
+	if err != nil {
+		return
+	}
+	at := st.Left.Cond.Left.Left.Left
+	var c *call
+	if st.Left.Then == nil && len(st.Left.Cond.Rest) == 0 && len(st.Left.Cond.Left.Rest) == 0 && len(st.Left.Cond.Left.Left.Rest) == 0 &&
+		at.Power != nil && at.Power.Exp == nil && at.Power.Base.Atom != nil {
+		c = at.Power.Base.Atom.Call
+	}
+	if st.Side != nil || st.Eq == nil || c == nil || c.Name != "u" || len(c.Args) != 2 {
+		err = lw.fail(st.Pos, `write the pinned value as u(r, theta) = v, e.g. "u(0, 0) = 0"`)
+		return
+	}
+	var vals [3]series.Coef
+	for i, node := range []*choice{c.Args[0], c.Args[1], st.Eq.Right} {
+		val, e := lw.choice(node)
+		if e != nil {
+			err = e
+			return
+		}
+		k, ok := constant(val)
+		if !ok {
+			err = lw.fail(node.Pos, "expected a constant")
+			return
+		}
+		vals[i] = k
+	}
+	return vals[0], vals[1], vals[2], nil
+}
