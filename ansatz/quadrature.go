@@ -5,7 +5,6 @@ import (
 	"math"
 
 	"gonum.org/v1/gonum/dsp/fourier"
-	"gonum.org/v1/gonum/integrate/quad"
 )
 
 // Quadrature is a particular solution of Δu = g for a source with no closed
@@ -70,13 +69,8 @@ type modeAt struct {
 	p, dp            [][2]float64
 }
 
-const glN = 16
-
-var glX, glW = func() ([]float64, []float64) {
-	x, w := make([]float64, glN), make([]float64, glN)
-	quad.Legendre{}.FixedLocations(x, w, -1, 1)
-	return x, w
-}()
+// glX and glW are the shared rule (gauss.go) under the names this file's formulas use.
+var glX, glW = GaussX, GaussW
 
 // bary are the barycentric weights of the Legendre nodes, 1/Π_{i≠j}(x_j − x_i).
 var bary = func() []float64 {

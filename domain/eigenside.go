@@ -77,7 +77,7 @@ func (e *EigenSide) Prepare() error {
 	e.constant = e.Start.Kind == Neumann && e.End.Kind == Neumann
 	// Gauss–Legendre nodes enough for the highest mode's oscillation, with
 	// panel edges at the data's jumps (data given piece by piece).
-	x, w := legendre16()
+	x, w := legendreX, legendreW
 	panels := e.Modes/4 + 16
 	edges := []float64{0}
 	jumps := append([]float64(nil), e.Breaks...)
@@ -278,7 +278,7 @@ func (e *EigenSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
 // a 16-point Gauss–Legendre rule on enough panels, plus the constant mode.
 func (e *EigenSide) Integral(tol float64, maxTerms int) float64 {
 	l, w := e.along()
-	x, wts := legendre16()
+	x, wts := legendreX, legendreW
 	integrate := func(f func(float64) float64, length float64, panels int) float64 {
 		total := 0.0
 		for i := 0; i < panels; i++ {

@@ -4,8 +4,7 @@ import (
 	"math"
 	"sort"
 
-	"gonum.org/v1/gonum/integrate/quad"
-
+	"psol/ansatz"
 	"psol/series"
 )
 
@@ -31,12 +30,8 @@ type compiledRim struct {
 	breaks  []float64
 }
 
-// legendreX and legendreW are the 16-point Gauss–Legendre rule on [−1, 1], from gonum.
-var legendreX, legendreW = func() ([]float64, []float64) {
-	x, w := make([]float64, 16), make([]float64, 16)
-	quad.Legendre{}.FixedLocations(x, w, -1, 1)
-	return x, w
-}()
+// legendreX and legendreW are the 16-point Gauss–Legendre rule on [−1, 1] (ansatz.GaussX, GaussW).
+var legendreX, legendreW = ansatz.GaussX, ansatz.GaussW
 
 // nearRim is the ρ above which the Poisson integral replaces the series.
 const nearRim = 0.9

@@ -5,25 +5,10 @@ import (
 	"math"
 	"math/big"
 	"strings"
-	"sync"
 
-	"gonum.org/v1/gonum/integrate/quad"
-
+	"psol/ansatz"
 	"psol/series"
 )
-
-var (
-	lgOnce   sync.Once
-	lgX, lgW []float64
-)
-
-func legendre16() ([]float64, []float64) {
-	lgOnce.Do(func() {
-		lgX, lgW = make([]float64, 16), make([]float64, 16)
-		quad.Legendre{}.FixedLocations(lgX, lgW, -1, 1)
-	})
-	return lgX, lgW
-}
 
 // Wall is one side of the rectangle [0, L] × [0, H], by position.
 type Wall int
@@ -347,23 +332,11 @@ func (c *CompiledSide) Integral(tol float64, maxTerms int) float64 {
 // integralByQuadrature is the series' area integral by a tensor Gauss–Legendre
 // rule on 16×16 panels, for the families without a closed form here.
 func (c *CompiledSide) integralByQuadrature() float64 {
-	x, wts := legendre16()
-	total := 0.0
-	const panels = 16
-	for i := 0; i < panels; i++ {
-		for j := 0; j < panels; j++ {
-			for a, xa := range x {
-				for b, xb := range x {
-					s := c.l * (float64(i) + (xa+1)/2) / panels
-					d := c.w * (float64(j) + (xb+1)/2) / panels
-					px, py := c.point(s, d)
-					v, _ := c.At(px, py, 1e-13, 1<<14)
-					total += wts[a] * wts[b] * v
-				}
-			}
-		}
-	}
-	return total * c.l * c.w / (4 * panels * panels)
+	return ansatz.TensorIntegral(func(s, d float64) float64 {
+		px, py := c.point(s, d)
+		v, _ := c.At(px, py, 1e-13, 1<<14)
+		return v
+	}, c.l, c.w, 16)
 }
 
 // local is the point (x, y) as (s along the side, d from the opposite side).

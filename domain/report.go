@@ -4,6 +4,7 @@ import (
 	"math"
 	"math/big"
 
+	"psol/ansatz"
 	"psol/series"
 	"psol/series/cart"
 )
@@ -285,20 +286,7 @@ func rectIntegral(p cart.Poly, d Rect) series.Coef {
 
 // integrateRect is ∬ f over [0, L] × [0, H] by 16-point Gauss–Legendre on 12 × 12 panels.
 func integrateRect(f func(x, y float64) float64, L, H float64) float64 {
-	const panels = 12
-	total := 0.0
-	for i := 0; i < panels; i++ {
-		for j := 0; j < panels; j++ {
-			for a, xa := range legendreX {
-				for b, xb := range legendreX {
-					x := L * (float64(i) + (xa+1)/2) / panels
-					y := H * (float64(j) + (xb+1)/2) / panels
-					total += legendreW[a] * legendreW[b] * f(x, y)
-				}
-			}
-		}
-	}
-	return total * L * H / (4 * panels * panels)
+	return ansatz.TensorIntegral(f, L, H, 12)
 }
 
 // AreaIntegral is ∬ u dA over a rectangle: the polynomial part exactly, the
