@@ -212,26 +212,9 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 	}
 	// The source's exponentials and trigonometric functions: the wave ansatz,
 	// term by term; the terms it cannot close go to the quadrature fallback.
-	var waves, waveSource cart.Waves
-	var rest *series.Expr
-	for _, term := range addends(p.rest) {
-		if p.forceQuadrature {
-			rest = series.Field{Rest: rest}.Add(series.Field{Rest: term}).Rest
-			continue
-		}
-		src, err := cart.FromExpr(term)
-		var u cart.Waves
-		var poly cart.Poly
-		if err == nil {
-			u, poly, err = src.Particular()
-		}
-		if err != nil {
-			rest = series.Field{Rest: rest}.Add(series.Field{Rest: term}).Rest
-			continue
-		}
-		waves, f = waves.Add(u), f.Add(poly)
-		waveSource = waveSource.Add(src.Add(cart.Waves{{Cos: poly.Scale(series.IntCoef(-1))}}))
-	}
+	split := ansatz.SplitWaves(p.rest, p.forceQuadrature)
+	waves, waveSource, rest := split.Waves, split.Source, split.Rest
+	f = f.Add(split.Poly)
 	L, errL := d.L.Float(p.env)
 	H, errH := d.H.Float(p.env)
 	var sq *ansatz.SineQuadrature
@@ -364,7 +347,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 	sol.Checks = []Check{{Name: "lap(u) - f", Exact: true, Residual: resPolar}}
 	if len(waves) > 0 { // Δ of the waves less the source's waves, reduced exactly
 		check := Check{Name: "lap(u_p) - f (exponential and trigonometric part)", Exact: true}
-		if left := waves.Laplacian().Add(waveSource.Scale(cart.Monomial(series.IntCoef(-1), 0, 0))); len(left) > 0 {
+		if len(split.Residual()) > 0 {
 			check.Exact, check.Numeric = false, math.Inf(1)
 		}
 		sol.Checks = append(sol.Checks, check)
@@ -747,17 +730,6 @@ func negligible(correction, size func(float64) float64, length series.Coef, env 
 		worst, scale = math.Max(worst, math.Abs(correction(s))), math.Max(scale, size(s))
 	}
 	return worst <= 1e-13*scale
-}
-
-// addends are the terms of a remainder's top-level sum.
-func addends(e *series.Expr) []*series.Expr {
-	if e == nil {
-		return nil
-	}
-	if e.Op() == "+" {
-		return append(addends(e.Args()[0]), addends(e.Args()[1])...)
-	}
-	return []*series.Expr{e}
 }
 
 // sineQuadratureCheck is the largest |Δu_q − f_q| of the numeric particular

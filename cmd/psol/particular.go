@@ -8,8 +8,6 @@ import (
 	"psol/ansatz"
 	"psol/domain"
 	"psol/parse"
-	"psol/series"
-	"psol/series/cart"
 )
 
 type particularOptions struct {
@@ -48,20 +46,12 @@ func (o *particularOptions) run(w io.Writer, source string) error {
 		return err
 	}
 	// A remainder of exponentials and sines of x and y: the Cartesian wave ansatz.
-	var waves, waveSource cart.Waves
-	exact := f.Exact
-	if !f.IsExact() {
-		src, err := cart.FromExpr(f.Rest)
-		var poly cart.Poly
-		if err == nil {
-			waves, poly, err = src.Particular()
-		}
-		if err != nil {
-			return &domain.Unsupported{Reason: "the source part " + f.Rest.Text() + " has no closed form (" + err.Error() + "); psol solve takes it by quadrature on a given region"}
-		}
-		exact = exact.Add(poly.Polar())
-		waveSource = src.Add(cart.Waves{{Cos: poly.Scale(series.IntCoef(-1))}})
+	split := ansatz.SplitWaves(f.Rest, false)
+	if split.Rest != nil {
+		return &domain.Unsupported{Reason: "the source part " + split.Rest.Text() + " has no closed form (" + split.Err.Error() + "); psol solve takes it by quadrature on a given region"}
 	}
+	waves := split.Waves
+	exact := f.Exact.Add(split.Poly.Polar())
 	up, steps, err := ansatz.Particular(exact)
 	if err != nil {
 		return err
@@ -80,7 +70,7 @@ func (o *particularOptions) run(w io.Writer, source string) error {
 	res := up.Laplacian().Sub(exact)
 	v.Checks = []checkOut{{Name: "lap(u_p) - f", Exact: true, Formula: res.Text(), Residual: residualSize(res, env)}}
 	if len(waves) > 0 { // Δ of the waves less their source, reduced exactly
-		left := waves.Laplacian().Add(waveSource.Scale(cart.Monomial(series.IntCoef(-1), 0, 0)))
+		left := split.Residual()
 		c := checkOut{Name: "lap(u_p) - f (exponential and trigonometric part)", Exact: true, Formula: left.Text()}
 		if len(left) > 0 {
 			c.Residual = 1
