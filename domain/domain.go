@@ -102,6 +102,9 @@ type Solution struct {
 	FreeMean   series.Coef // the value of Free that makes u's mean on the first boundary circle zero
 	Checks     []Check
 	Series     *SeriesParts // the infinite-series stages, where the region needs them
+	// Options are those the solution was solved with; evaluation, grids,
+	// pictures and reports take the parameters and the tolerance from here.
+	Options Options
 	// RaysByShift marks a solution whose sides after the first are rays met
 	// by the eigenfunctions and the harmonic shift w (Harmonic): they carry
 	// no trace or correction of their own, and the correction is g − w − trace.
@@ -132,21 +135,13 @@ func Solve(d Domain, source series.Field, conds []Condition) (*Solution, error) 
 	return SolveWith(d, source, conds, Options{})
 }
 
-// Options are what numeric fallbacks need.
-type Options struct {
-	Env series.Env // parameter values
-	Tol float64    // numeric target (default SumTol)
-	// NumericData forces the FFT path for boundary data, even where exact
-	// coefficients exist (for comparing the two).
-	NumericData bool
-	// NumericSource sends the whole source to the quadrature fallback (for comparing the two).
-	NumericSource bool
-}
-
 // SolveWith is Solve with options for the numeric fallbacks.
 func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*Solution, error) {
 	if opt.Tol == 0 {
 		opt.Tol = SumTol
+	}
+	if opt.Terms == 0 {
+		opt.Terms = PointTerms
 	}
 	switch {
 	case source.IsPiecewise() || source.Rest.HasChoice():
@@ -176,7 +171,11 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 	if len(missing) > 0 {
 		return nil, &MissingSides{missing}
 	}
-	return d.solve(p)
+	sol, err := d.solve(p)
+	if sol != nil {
+		sol.Options = opt
+	}
+	return sol, err
 }
 
 // OperatorText names the condition's operator applied to a function, e.g. "dn(u_p) + h*u_p".

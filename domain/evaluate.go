@@ -7,9 +7,6 @@ import (
 	"psol/series/cart"
 )
 
-// SumTol is the series truncation used where no tolerance is given.
-const SumTol = 1e-12
-
 // Evaluator evaluates a solution at points in float64, summing any series to tol.
 type Evaluator struct {
 	closed  series.Compiled

@@ -170,14 +170,8 @@ func (d Rect) trace(name string, cond Condition, q cart.Poly) cart.Poly {
 
 // endOf is a condition as the homogeneous end it sets for the eigenfunctions.
 func endOf(c Condition, env series.Env) End {
-	switch c.Kind {
-	case Dirichlet:
-		return End{Kind: Dirichlet}
-	case Neumann:
-		return End{Kind: Neumann}
-	}
-	h, _ := c.H.Float(env)
-	return End{Kind: Robin, H: h}
+	h, _ := c.H.Float(env) // 0 for values and fluxes
+	return End{Kind: c.Kind, H: h}
 }
 
 // solve: u = u_p + Σ four one-side series, one per side with data. The
@@ -356,7 +350,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		sol.Checks = append(sol.Checks, sineQuadratureCheck(sq, rest, p.env, L, H))
 	}
 	sol.rectEnv = p.env
-	if ev, err := sol.Compile(p.env, p.tol, 1<<14); err == nil { // numeric parameters: sample the sides
+	if ev, err := sol.Compile(p.env, p.tol, CheckTerms); err == nil { // numeric parameters: sample the sides
 		ev.walls = nil // sum the series on the sides themselves: the check must not read the data back
 		sol.Checks = append(sol.Checks, rectChecks(d, sol, ev, p.env)...)
 	}

@@ -334,7 +334,7 @@ func (c *CompiledSide) Integral(tol float64, maxTerms int) float64 {
 func (c *CompiledSide) integralByQuadrature() float64 {
 	return ansatz.TensorIntegral(func(s, d float64) float64 {
 		px, py := c.point(s, d)
-		v, _ := c.At(px, py, 1e-13, 1<<14)
+		v, _ := c.At(px, py, 1e-13, CheckTerms)
 		return v
 	}, c.l, c.w, 16)
 }

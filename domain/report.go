@@ -31,7 +31,7 @@ type Report struct {
 func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 	// Thousands of evaluations, some on the boundary where a series converges
 	// slowly: cap the terms (extremes need no more than a few digits there).
-	ev, err := s.Compile(env, tol, 1<<13)
+	ev, err := s.Compile(env, tol, ReportTerms)
 	if err != nil {
 		return nil, err
 	}
@@ -299,7 +299,7 @@ func (s *Solution) AreaIntegral(env series.Env, tol float64) (float64, error) {
 		}
 		return rep.Integral, nil
 	}
-	ev, err := s.Compile(env, tol, 1<<13)
+	ev, err := s.Compile(env, tol, ReportTerms)
 	if err != nil {
 		return 0, err
 	}

@@ -65,8 +65,9 @@ func writeAtomically(path string, fill func(io.Writer) error) error {
 }
 
 // writeGrid evaluates u on the grid and writes CSV: r,theta,x,y,u,error.
-func writeGrid(path string, sol *domain.Solution, env series.Env, n int, tol float64, terms int, progress io.Writer) error {
-	ev, err := sol.Compile(env, tol, terms)
+func writeGrid(path string, sol *domain.Solution, n int, progress io.Writer) error {
+	env := sol.Options.Env
+	ev, err := sol.Evaluator(sol.Options.Terms)
 	if err != nil {
 		return usagef("--grid: %v", err)
 	}

@@ -95,12 +95,13 @@ func polarSampler(ev *domain.Evaluator, rlo, rhi float64, nr, nt int) func(r, th
 
 // plotSolution draws a filled map of u over the true domain, labelled
 // contour lines, the boundary, a colour bar, axes and a title.
-func plotSolution(w io.Writer, format string, title string, sol *domain.Solution, env series.Env, tol float64) error {
+func plotSolution(w io.Writer, format string, title string, sol *domain.Solution) error {
+	env := sol.Options.Env
 	x0, x1, y0, y1, edges, err := bounds(sol.Domain, env)
 	if err != nil {
 		return usagef("--plot: %v", err)
 	}
-	ev, err := sol.Compile(env, tol, 1<<12)
+	ev, err := sol.Evaluator(domain.PictureTerms)
 	if err != nil {
 		return usagef("--plot: %v", err)
 	}

@@ -62,12 +62,13 @@ func readPoint(text string, env series.Env) (point, error) {
 	return p, nil
 }
 
-// evaluate fills u at each point, summing series to tol.
-func evaluate(sol *domain.Solution, env series.Env, pts []point, tol float64, maxTerms int) error {
+// evaluate fills u at each point, summing series to the solution's tolerance.
+func evaluate(sol *domain.Solution, pts []point) error {
+	env := sol.Options.Env
 	if len(pts) == 0 {
 		return nil
 	}
-	ev, err := sol.Compile(env, tol, maxTerms)
+	ev, err := sol.Evaluator(sol.Options.Terms)
 	if err != nil {
 		return usagef("--at: %v", err)
 	}

@@ -67,6 +67,7 @@ type problem struct {
 	equation string
 	fix      string
 	tol      float64
+	terms    int // the cap on series terms at points and on grids
 	env      series.Env
 	domain   domain.Domain
 	source   series.Field
@@ -146,7 +147,7 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 
 // solve assembles the solution, pinning a free constant by --fix.
 func (pr *problem) solve() (*domain.Solution, error) {
-	sol, err := domain.SolveWith(pr.domain, pr.source, pr.conds, domain.Options{Env: pr.env, Tol: pr.tol})
+	sol, err := domain.SolveWith(pr.domain, pr.source, pr.conds, domain.Options{Env: pr.env, Tol: pr.tol, Terms: pr.terms})
 	var ms *domain.MissingSides
 	if errors.As(err, &ms) {
 		return nil, usagef("no boundary condition for side %s; add --bc \"%s: u = ...\"", strings.Join(ms.Sides, ", "), ms.Sides[0])

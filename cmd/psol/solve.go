@@ -62,7 +62,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	if err != nil {
 		return err
 	}
-	pr.tol = o.tol
+	pr.tol, pr.terms = o.tol, o.terms
 	if (o.grid > 0) != (o.csv != "") {
 		return usagef("--grid N and --csv FILE go together")
 	}
@@ -81,7 +81,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	if err != nil {
 		return err
 	}
-	if err := evaluate(sol, pr.env, pts, o.tol, o.terms); err != nil {
+	if err := evaluate(sol, pts); err != nil {
 		return err
 	}
 	if o.plot != "" {
@@ -90,7 +90,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 			return err
 		}
 		title := "lap(u) = " + pr.source.Text() + " on " + pr.domain.Describe()
-		if err := writeAtomically(o.plot, func(w io.Writer) error { return plotSolution(w, format, title, sol, pr.env, o.tol) }); err != nil {
+		if err := writeAtomically(o.plot, func(w io.Writer) error { return plotSolution(w, format, title, sol) }); err != nil {
 			return err
 		}
 	}
@@ -99,7 +99,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		if terminal(o.stderr) {
 			progress = o.stderr
 		}
-		if err := writeGrid(o.csv, sol, pr.env, o.grid, o.tol, o.terms, progress); err != nil {
+		if err := writeGrid(o.csv, sol, o.grid, progress); err != nil {
 			return err
 		}
 	}
@@ -112,7 +112,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	}
 	v := newView(pr, sol, pts, o.steps)
 	if o.report || o.quantity != "" {
-		rep, err := sol.Report(pr.env, o.tol)
+		rep, err := sol.Figures()
 		if err != nil {
 			return usagef("--report: %v", err)
 		}
