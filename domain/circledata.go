@@ -27,11 +27,11 @@ func circleData(d circular, c circle, cond Condition, gf series.Field, tr series
 	// The numeric fallback: sample the data on the circle.
 	cf, err := gf.Compile(p.env)
 	if err != nil {
-		return series.Sum{}, unsupported("boundary data on %s: %v (numeric data needs every parameter's value: --let)", c.name, err)
+		return series.Sum{}, unsupported("boundary data on %s: %w (numeric data needs every parameter's value: --let)", c.name, err)
 	}
 	R, err := c.radius.Float(p.env)
 	if err != nil {
-		return series.Sum{}, unsupported("boundary data on %s: %v", c.name, err)
+		return series.Sum{}, unsupported("boundary data on %s: %w", c.name, err)
 	}
 	// Between two circles the modes grow like (R2/R1)^n in the exact algebra's
 	// r^n, r^−n form; fewer samples keep them representable.
@@ -71,11 +71,11 @@ func seriesData(d circular, c circle, cond Condition, data series.Field, fc seri
 		if !ok {
 			a, err := series.Coefficient(fc.A, n)
 			if err != nil {
-				return series.Sum{}, unsupported("%v", err)
+				return series.Sum{}, unsupported("%w", err)
 			}
 			b, err := series.Coefficient(fc.B, n)
 			if err != nil {
-				return series.Sum{}, unsupported("%v", err)
+				return series.Sum{}, unsupported("%w", err)
 			}
 			ab = [2]series.Coef{a, b}
 		}

@@ -15,7 +15,7 @@ import (
 func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string]series.Sum) error {
 	cf, err := series.Field{Rest: p.rest}.Compile(p.env)
 	if err != nil {
-		return unsupported("the source %s needs every parameter's value (--let): %v", p.rest.Text(), err)
+		return unsupported("the source %s needs every parameter's value (--let): %w", p.rest.Text(), err)
 	}
 	in, out := d.bounds()
 	a := 0.0
@@ -32,7 +32,7 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 	}
 	q := &ansatz.Quadrature{G: cf.At, A: a, R: R, Tol: p.tol}
 	if err := q.Prepare(); err != nil {
-		return unsolvable("%s: %v", p.rest.Text(), err)
+		return unsolvable("%s: %w", p.rest.Text(), err)
 	}
 	sol.Quadrature, sol.Rest, sol.Numeric = q, p.rest, true
 	for _, c := range d.circles() {
@@ -46,7 +46,7 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		h := 0.0
 		if cond.Kind == Robin {
 			if h, err = cond.H.Float(p.env); err != nil {
-				return unsupported("the Robin coefficient needs a value for the numeric source: %v", err)
+				return unsupported("the Robin coefficient needs a value for the numeric source: %w", err)
 			}
 		}
 		var terms []series.Term

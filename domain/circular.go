@@ -77,11 +77,11 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 		cond := p.conds[c.name]
 		gf, err := cond.G.TraceField(c.radius)
 		if err != nil {
-			return nil, unsupported("boundary data on %s: %v", c.name, err)
+			return nil, unsupported("boundary data on %s: %w", c.name, err)
 		}
 		tr, err := c.apply(cond, up)
 		if err != nil {
-			return nil, unsupported("trace on %s: %v", c.name, err)
+			return nil, unsupported("trace on %s: %w", c.name, err)
 		}
 		traced[c.name], traces[c.name] = gf, tr
 	}

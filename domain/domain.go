@@ -1,6 +1,7 @@
 package domain
 
 import (
+	"errors"
 	"fmt"
 	"strings"
 
@@ -9,21 +10,35 @@ import (
 )
 
 // Unsolvable reports a well-formed problem that has no solution as posed.
-type Unsolvable struct{ Reason string }
+type Unsolvable struct {
+	Reason string
+	cause  error // the error the reason wraps (%w), if any
+}
 
 func (e *Unsolvable) Error() string { return e.Reason }
 
+// Unwrap is the cause, so that callers can test its kind with errors.As.
+func (e *Unsolvable) Unwrap() error { return e.cause }
+
 func unsolvable(format string, args ...any) error {
-	return &Unsolvable{fmt.Sprintf(format, args...)}
+	err := fmt.Errorf(format, args...)
+	return &Unsolvable{err.Error(), errors.Unwrap(err)}
 }
 
 // Unsupported reports a problem psol cannot yet put in closed form.
-type Unsupported struct{ Reason string }
+type Unsupported struct {
+	Reason string
+	cause  error // the error the reason wraps (%w), if any
+}
 
 func (e *Unsupported) Error() string { return e.Reason }
 
+// Unwrap is the cause, so that callers can test its kind with errors.As.
+func (e *Unsupported) Unwrap() error { return e.cause }
+
 func unsupported(format string, args ...any) error {
-	return &Unsupported{fmt.Sprintf(format, args...)}
+	err := fmt.Errorf(format, args...)
+	return &Unsupported{err.Error(), errors.Unwrap(err)}
 }
 
 // MissingSides reports sides that have no condition.

@@ -190,7 +190,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		if c.Kind == Robin {
 			h, err := c.H.Float(p.env)
 			if err != nil {
-				return nil, unsupported("the Robin coefficient on %s needs a value (--let): %v", name, err)
+				return nil, unsupported("the Robin coefficient on %s needs a value (--let): %w", name, err)
 			}
 			if h < 0 {
 				return nil, unsupported("on the rectangle the Robin coefficient must be >= 0 (convection to the surroundings); %s has h = %g", name, h)
@@ -218,7 +218,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		}
 		cf, err := series.Field{Rest: rest}.Compile(p.env)
 		if err != nil {
-			return nil, unsupported("the source %s needs every parameter's value (--let): %v", rest.Text(), err)
+			return nil, unsupported("the source %s needs every parameter's value (--let): %w", rest.Text(), err)
 		}
 		sq = &ansatz.SineQuadrature{G: func(x, y float64) float64 { return cf.At(math.Hypot(x, y), math.Atan2(y, x)) }, L: L, H: H, Tol: p.tol}
 		sq.Prepare()
@@ -238,7 +238,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 			err = fmt.Errorf("the rectangle's sides need values for numeric data (--let)")
 		}
 		if err != nil {
-			return nil, unsupported("boundary data on %s: %v", name, err)
+			return nil, unsupported("boundary data on %s: %w", name, err)
 		}
 		geo := d.geometry(name)
 		data[name] = sideData{fn: func(s float64) float64 {
@@ -326,7 +326,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 				es.Breaks = Jumps(g.fn, l)
 			}
 			if err := es.Prepare(); err != nil {
-				return nil, unsolvable("on %s: %v", name, err)
+				return nil, unsolvable("on %s: %w", name, err)
 			}
 			side.Eigen = es
 			sol.Numeric = true

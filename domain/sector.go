@@ -121,7 +121,7 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 	arcCond := p.conds["arc"]
 	gf, err := arcCond.G.TraceField(s.R)
 	if err != nil {
-		return nil, unsupported("boundary data on arc: %v", err)
+		return nil, unsupported("boundary data on arc: %w", err)
 	}
 	if !gf.IsExact() && !(gf.IsPiecewise() && gf.ExactPieces()) {
 		return nil, unsupported("boundary data on a sector's arc must be exact (sums of powers of theta times cos(m*theta) and sin(m*theta), or pieces of them), not %s", gf.Text())
@@ -244,7 +244,7 @@ func (b *sectorBuilder) concrete() []int {
 func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) error {
 	cf, err := series.Field{Rest: p.rest}.Compile(p.env)
 	if err != nil {
-		return unsupported("the source %s needs every parameter's value (--let): %v", p.rest.Text(), err)
+		return unsupported("the source %s needs every parameter's value (--let): %w", p.rest.Text(), err)
 	}
 	R, err := b.s.R.Float(p.env)
 	if err != nil {
@@ -291,12 +291,12 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 	q := &ansatz.Quadrature{G: ext, A: 0, R: R, Period: 4 * alpha, Tol: p.tol, Lift: lift,
 		Keep: func(k int, sin bool) bool { _, ok := index(k); return ok && sin == b.fam.Sin }}
 	if err := q.Prepare(); err != nil {
-		return unsolvable("%s: %v", p.rest.Text(), err)
+		return unsolvable("%s: %w", p.rest.Text(), err)
 	}
 	h := 0.0
 	if b.cond.Kind == Robin {
 		if h, err = b.cond.H.Float(p.env); err != nil {
-			return unsupported("the Robin coefficient needs a value for the numeric source: %v", err)
+			return unsupported("the Robin coefficient needs a value for the numeric source: %w", err)
 		}
 	}
 	if lift != nil {
@@ -414,7 +414,7 @@ func (b *sectorBuilder) mode(nc series.Coef, n int, concrete bool) (modeResult, 
 	for _, t := range b.f.Terms() {
 		beta, err := series.Project(t.K, t.M, t.Sin, b.fam, b.a, n, concrete)
 		if err != nil {
-			return res, unsupported("%v", err)
+			return res, unsupported("%w", err)
 		}
 		c := t.C.Mul(beta)
 		if c.IsZero() {
@@ -431,14 +431,14 @@ func (b *sectorBuilder) mode(nc series.Coef, n int, concrete bool) (modeResult, 
 	if b.pieces != nil {
 		gp, err := series.ProjectPieces(b.pieces, b.fam, b.a, n, concrete)
 		if err != nil {
-			return res, unsupported("%v", err)
+			return res, unsupported("%w", err)
 		}
 		gamma = gp
 	}
 	for _, t := range b.data.Terms() {
 		beta, err := series.Project(t.K, t.M, t.Sin, b.fam, b.a, n, concrete)
 		if err != nil {
-			return res, unsupported("%v", err)
+			return res, unsupported("%w", err)
 		}
 		gamma = gamma.Add(t.C.Mul(beta))
 	}
