@@ -273,9 +273,9 @@ func (d Rect) claimSide(side string, cond Condition, claim series.Field, env ser
 	if err != nil {
 		return ClaimCheck{}, err
 	}
-	geo := d.geometry(side)
-	normal := map[string][2]float64{"left": {-1, 0}, "right": {1, 0}, "bottom": {0, -1}, "top": {0, 1}}[side]
-	l, _ := geo.length.Float(env)
+	geo := edgeNamed(side)
+	normal := geo.normal
+	l := geo.lengthFloat(L, H)
 	eps := 1e-5 * math.Max(L, H)
 	return sampledSideResidual(side, cond, claim, env, func(u series.CompiledField, k int) (r, th, dn float64, err error) {
 		x, y := geo.point(l*(float64(k)+0.5)/48, L, H)

@@ -115,7 +115,7 @@ func seriesData(d circular, c circle, cond Condition, data series.Field, fc seri
 	}
 	if cond.Kind == Dirichlet {
 		ss.Jumps = jumps
-		sol.rim = &rimData{data: data, trace: tr, radius: c.radius, inverse: inverse}
+		sol.stages = append(sol.stages, &rimData{data: data, trace: tr, radius: c.radius, inverse: inverse})
 	}
 	sol.Series = &SeriesParts{
 		Correction: series.SeriesSum{Parts: corr},

@@ -124,13 +124,14 @@ type Solution struct {
 	// by the eigenfunctions and the harmonic shift w (Harmonic): they carry
 	// no trace or correction of their own, and the correction is g − w − trace.
 	RaysByShift bool
-	Rect        *RectParts // a rectangle's stages in x and y
-	rectEnv     series.Env
-	Rules       []ansatz.Step // how each source term was solved
-	Steps       []string      // how the harmonic part was found, beyond the per-mode records
-	modes       []modeRecord
-	Notes       []string
-	rim         *rimData // Dirichlet data on a single circle, for the Poisson integral near it
+	// Rect is a rectangle's stages in x and y, for printing; its evaluation
+	// is one of the stages.
+	Rect   *RectParts
+	stages []stage       // region parts that evaluation attaches (see Compile)
+	Rules  []ansatz.Step // how each source term was solved
+	Steps  []string      // how the harmonic part was found, beyond the per-mode records
+	modes  []modeRecord
+	Notes  []string
 	// Quadrature is the particular solution of the source's part with no
 	// closed form, and Rest that part.
 	Quadrature *ansatz.Quadrature

@@ -56,6 +56,14 @@ func (w *rectWalls) on(x, y float64) (float64, bool) {
 	return g.at(s, w.env), true
 }
 
+// stage is a region's part of a solution that evaluation needs beyond the
+// closed form and the polar series: a rectangle's side series and walls, or
+// a circle's data for the Poisson integral near it. A region's solve adds
+// its stages; Compile attaches each to the Evaluator.
+type stage interface {
+	attach(e *Evaluator, s *Solution, env series.Env) error
+}
+
 // rectSeries is a rectangle's side series as evaluated: exact or numeric.
 type rectSeries interface {
 	At(x, y, tol float64, maxTerms int) (sum, tail float64)
@@ -73,42 +81,8 @@ func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluato
 		return nil, err
 	}
 	e := &Evaluator{closed: c, tol: tol, max: maxTerms, quad: s.Quadrature, dataErr: s.DataError}
-	if s.Rect != nil {
-		d := s.Domain.(Rect)
-		w := &rectWalls{env: env}
-		if w.L, err = d.L.Float(env); err != nil {
-			return nil, err
-		}
-		if w.H, err = d.H.Float(env); err != nil {
-			return nil, err
-		}
-		for _, side := range s.Rect.Sides {
-			switch {
-			case side.Eigen != nil:
-				e.rect = append(e.rect, side.Eigen)
-			case side.Series == nil: // no correction on this side
-			default:
-				cs, err := side.Series.Compile(env)
-				if err != nil {
-					return nil, err
-				}
-				e.rect = append(e.rect, cs)
-			}
-			if s.Sides[k0(side.Name)].Condition.Kind == Dirichlet {
-				data := side.data
-				*map[string]**sideData{"left": &w.left, "right": &w.right, "bottom": &w.bottom, "top": &w.top}[side.Name] = &data
-			}
-		}
-		e.walls = w
-		if len(s.Rect.Waves) > 0 {
-			if e.waves, err = s.Rect.Waves.Compile(env); err != nil {
-				return nil, err
-			}
-		}
-		e.sq = s.Rect.Quadrature
-	}
-	if s.rim != nil {
-		if e.rim, err = s.rim.compile(s.Particular, env); err != nil {
+	for _, st := range s.stages {
+		if err := st.attach(e, s, env); err != nil {
 			return nil, err
 		}
 	}
@@ -219,3 +193,42 @@ func (e *Evaluator) atXYTail(x, y float64) (u, tail float64) {
 }
 
 func (e *Evaluator) atXY(x, y float64) float64 { u, _ := e.atXYTail(x, y); return u }
+
+// attach gives the evaluator the rectangle's side series, its waves and
+// numeric particular part, and its Dirichlet data to read on the sides.
+func (rp *RectParts) attach(e *Evaluator, s *Solution, env series.Env) error {
+	w := &rectWalls{env: env}
+	var err error
+	if w.L, err = rp.d.L.Float(env); err != nil {
+		return err
+	}
+	if w.H, err = rp.d.H.Float(env); err != nil {
+		return err
+	}
+	walls := [...]**sideData{&w.left, &w.right, &w.bottom, &w.top}
+	for _, side := range rp.Sides {
+		switch {
+		case side.Eigen != nil:
+			e.rect = append(e.rect, side.Eigen)
+		case side.Series == nil: // no correction on this side
+		default:
+			cs, err := side.Series.Compile(env)
+			if err != nil {
+				return err
+			}
+			e.rect = append(e.rect, cs)
+		}
+		if k := k0(side.Name); s.Sides[k].Condition.Kind == Dirichlet {
+			data := side.data
+			*walls[k] = &data
+		}
+	}
+	e.walls = w
+	if len(rp.Waves) > 0 {
+		if e.waves, err = rp.Waves.Compile(env); err != nil {
+			return err
+		}
+	}
+	e.sq = rp.Quadrature
+	return nil
+}

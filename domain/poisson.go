@@ -103,3 +103,11 @@ func (c *compiledRim) at(r, theta float64) float64 {
 	}
 	return c.up.At(r, theta) + total/(2*math.Pi)
 }
+
+// attach gives the evaluator the circle's data, for the Poisson integral at
+// radii next to the circle, where the series converges too slowly.
+func (d *rimData) attach(e *Evaluator, s *Solution, env series.Env) error {
+	var err error
+	e.rim, err = d.compile(s.Particular, env)
+	return err
+}

@@ -44,6 +44,7 @@ type RectParts struct {
 	// coefficients (a corner fit to numeric data) or a numeric part.
 	ParticularNumeric bool
 	Sides             []RectSide
+	d                 Rect // the region, for evaluation and integrals
 }
 
 // RectSide is one side's trace, correction and harmonic series: exact
@@ -130,40 +131,16 @@ func (g sideData) at(s float64, env series.Env) float64 {
 	return g.fn(s)
 }
 
-// rectGeometry is where each side lies: its coordinate's range, its
-// neighbours at s = 0 and s = ℓ, and the opposite side.
-type rectGeometry struct {
-	side             Wall
-	length           series.Coef
-	start, end, away string
-	point            func(s, L, H float64) (x, y float64)
-}
-
-func (d Rect) geometry(name string) rectGeometry {
-	return map[string]rectGeometry{
-		"left":   {Left, d.H, "bottom", "top", "right", func(s, L, H float64) (float64, float64) { return 0, s }},
-		"right":  {Right, d.H, "bottom", "top", "left", func(s, L, H float64) (float64, float64) { return L, s }},
-		"bottom": {Bottom, d.L, "left", "right", "top", func(s, L, H float64) (float64, float64) { return s, 0 }},
-		"top":    {Top, d.L, "left", "right", "bottom", func(s, L, H float64) (float64, float64) { return s, H }},
-	}[name]
-}
-
 // trace is the side's operator on a polynomial, in the side's coordinate:
 // u, the outward derivative, or their Robin combination.
 func (d Rect) trace(name string, cond Condition, q cart.Poly) cart.Poly {
-	zero := series.Coef{}
-	at := map[string]func(cart.Poly) cart.Poly{
-		"left": func(q cart.Poly) cart.Poly { return q.AtX(zero) }, "right": func(q cart.Poly) cart.Poly { return q.AtX(d.L) },
-		"bottom": func(q cart.Poly) cart.Poly { return q.AtY(zero) }, "top": func(q cart.Poly) cart.Poly { return q.AtY(d.H) },
-	}[name]
+	e := edgeNamed(name)
 	if cond.Kind == Dirichlet {
-		return at(q)
+		return e.restrict(d, q)
 	}
-	minus := series.IntCoef(-1)
-	normal := map[string]cart.Poly{"left": q.DX().Scale(minus), "right": q.DX(), "bottom": q.DY().Scale(minus), "top": q.DY()}[name]
-	dn := at(normal)
+	dn := e.restrict(d, e.outward(q))
 	if cond.Kind == Robin {
-		return dn.Add(at(q).Scale(cond.H))
+		return dn.Add(e.restrict(d, q).Scale(cond.H))
 	}
 	return dn
 }
@@ -240,7 +217,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		if err != nil {
 			return nil, unsupported("boundary data on %s: %w", name, err)
 		}
-		geo := d.geometry(name)
+		geo := edgeNamed(name)
 		data[name] = sideData{fn: func(s float64) float64 {
 			x, y := geo.point(s, L, H)
 			return cf.At(math.Hypot(x, y), math.Atan2(y, x))
@@ -256,11 +233,11 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		}
 	}
 	up := withCornerFit(cart.Particular(f, d.L), d, data, p.conds, p.env, wt)
-	parts := &RectParts{Particular: up, Waves: waves, SourceWaves: waveSource, Quadrature: sq, QuadratureSource: rest, ParticularNumeric: wt != nil}
+	parts := &RectParts{Particular: up, Waves: waves, SourceWaves: waveSource, Quadrature: sq, QuadratureSource: rest, ParticularNumeric: wt != nil, d: d}
 	for _, g := range data {
 		parts.ParticularNumeric = parts.ParticularNumeric || g.poly == nil // the corner fit takes decimals of such data
 	}
-	sol := &Solution{Domain: d, Source: p.f, Rect: parts, Rest: p.rest}
+	sol := &Solution{Domain: d, Source: p.f, Rect: parts, Rest: p.rest, stages: []stage{parts}}
 	if sq != nil {
 		sol.Numeric = true
 		note := fmt.Sprintf("the source part %s has no closed form: its particular solution is by quadrature (sine transform in x with %d samples, %d modes; Gauss–Legendre in y on %d panels)", rest.Text(), sq.Samples, sq.Modes, len(sq.Panels()))
@@ -275,7 +252,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 	sol.U = sol.Particular // the closed part; the side series are evaluated beside it
 	exactKind := func(name string) bool { return p.conds[name].Kind != Robin }
 	for _, name := range d.Sides() {
-		geo := d.geometry(name)
+		geo := edgeNamed(name)
 		cond := p.conds[name]
 		tr := d.trace(name, cond, up)
 		side := RectSide{Name: name, DataText: data[name].text, Trace: tr, data: data[name]}
@@ -285,7 +262,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		}
 		if g := data[name].poly; g != nil && waveTrace == nil && exactKind(name) && exactKind(geo.start) && exactKind(geo.end) && exactKind(geo.away) {
 			side.Data, side.Correction = *g, g.Sub(tr)
-			ser, err := sideSeries(geo.side, side.Correction, geo.length, d, p.conds[geo.start].Kind == Neumann, p.conds[geo.end].Kind == Neumann, cond.Kind == Neumann, p.conds[geo.away].Kind == Neumann)
+			ser, err := sideSeries(geo.wall, side.Correction, geo.length(d), d, p.conds[geo.start].Kind == Neumann, p.conds[geo.end].Kind == Neumann, cond.Kind == Neumann, p.conds[geo.away].Kind == Neumann)
 			if err != nil {
 				return nil, err
 			}
@@ -313,16 +290,16 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 				}
 				return math.Abs(v) + math.Abs(g.at(s, env))
 			}
-			if negligible(correction, size, geo.length, env) { // data and trace agree: no series
+			if negligible(correction, size, geo.length(d), env) { // data and trace agree: no series
 				side.Correction = cart.Poly{}
 				parts.Sides = append(parts.Sides, side)
 				sol.Sides = append(sol.Sides, Side{Condition: cond, DataText: data[name].text, DataLaTeX: data[name].text})
 				continue
 			}
-			es := &EigenSide{Wall: geo.side, L: L, H: H, Start: endOf(p.conds[geo.start], env), End: endOf(p.conds[geo.end], env),
+			es := &EigenSide{Wall: geo.wall, L: L, H: H, Start: endOf(p.conds[geo.start], env), End: endOf(p.conds[geo.end], env),
 				Opposite: endOf(p.conds[geo.away], env), Own: endOf(cond, env), Data: correction}
 			if g.fn != nil { // data that are no polynomial may come piece by piece
-				l, _ := geo.length.Float(env)
+				l, _ := geo.length(d).Float(env)
 				es.Breaks = Jumps(g.fn, l)
 			}
 			if err := es.Prepare(); err != nil {
@@ -332,7 +309,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 			sol.Numeric = true
 		}
 		parts.Sides = append(parts.Sides, side)
-		where := map[string]string{"left": "0, y", "right": d.L.Text() + ", y", "bottom": "x, 0", "top": "x, " + d.H.Text()}[name]
+		where := edgeNamed(name).where(d)
 		sol.Sides = append(sol.Sides, Side{Condition: cond, At: where, AtLaTeX: where, DataText: data[name].text, DataLaTeX: data[name].text})
 	}
 	cornerWarnings(d, data, sol, p.conds, p.env)
@@ -349,7 +326,6 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 	if sq != nil {
 		sol.Checks = append(sol.Checks, sineQuadratureCheck(sq, rest, p.env, L, H))
 	}
-	sol.rectEnv = p.env
 	if ev, err := sol.Compile(p.env, p.tol, CheckTerms); err == nil { // numeric parameters: sample the sides
 		ev.walls = nil // sum the series on the sides themselves: the check must not read the data back
 		sol.Checks = append(sol.Checks, rectChecks(d, sol, ev, p.env)...)
@@ -374,13 +350,12 @@ func rectChecks(d Rect, sol *Solution, ev *Evaluator, env series.Env) []Check {
 	H, _ := d.H.Float(env)
 	var out []Check
 	for _, s := range sol.Rect.Sides {
+		edge := edgeNamed(s.Name)
+		l := edge.lengthFloat(L, H)
+		cond := sol.Sides[edge.index()].Condition
 		worst := 0.0
 		var jumps []float64 // where data given piece by piece jump, the series takes the mean: skip
 		if s.data.fn != nil {
-			l := L
-			if s.Name == "left" || s.Name == "right" {
-				l = H
-			}
 			for _, j := range Jumps(s.data.fn, l) {
 				jumps = append(jumps, j/l)
 			}
@@ -393,26 +368,12 @@ func rectChecks(d Rect, sol *Solution, ev *Evaluator, env series.Env) []Check {
 					continue samples
 				}
 			}
-			var x, y, g float64
-			switch s.Name {
-			case "left":
-				x, y = 0, t*H
-			case "right":
-				x, y = L, t*H
-			case "bottom":
-				x, y = t*L, 0
-			case "top":
-				x, y = t*L, H
-			}
-			along := x
-			if s.Name == "left" || s.Name == "right" {
-				along = y
-			}
-			g = s.data.at(along, env)
+			x, y := edge.point(t*l, L, H)
+			g := s.data.at(t*l, env)
 			u := ev.atXY(x, y)
-			if cond := sol.Sides[k0(s.Name)].Condition; cond.Kind != Dirichlet { // the outward derivative, one-sided inward
+			if cond.Kind != Dirichlet { // the outward derivative, one-sided inward
 				h := 1e-4 * math.Min(L, H)
-				in := map[string][2]float64{"left": {1, 0}, "right": {-1, 0}, "bottom": {0, 1}, "top": {0, -1}}[s.Name]
+				in := [2]float64{-edge.normal[0], -edge.normal[1]}
 				dn := -(-3*u + 4*ev.atXY(x+h*in[0], y+h*in[1]) - ev.atXY(x+2*h*in[0], y+2*h*in[1])) / (2 * h)
 				if cond.Kind == Robin {
 					hr, _ := cond.H.Float(env)
@@ -422,7 +383,7 @@ func rectChecks(d Rect, sol *Solution, ev *Evaluator, env series.Env) []Check {
 			}
 			worst = math.Max(worst, math.Abs(u-g))
 		}
-		out = append(out, Check{Name: OperatorText(sol.Sides[k0(s.Name)].Condition, "u") + " - g", Side: s.Name, Numeric: worst})
+		out = append(out, Check{Name: OperatorText(cond, "u") + " - g", Side: s.Name, Numeric: worst})
 	}
 	return out
 }
@@ -430,16 +391,16 @@ func rectChecks(d Rect, sol *Solution, ev *Evaluator, env series.Env) []Check {
 // cornerData is a side's data at one end (s = 0 or ℓ) as a coefficient:
 // exact for a polynomial, a 15-digit decimal otherwise.
 func (d Rect) cornerData(name string, g sideData, atEnd bool, env series.Env) series.Coef {
-	geo := d.geometry(name)
+	geo := edgeNamed(name)
 	if g.poly != nil {
 		s := series.Coef{}
 		if atEnd {
-			s = geo.length
+			s = geo.length(d)
 		}
 		cs, _ := g.poly.AtX(s).AtY(s).Coefficients() // a polynomial in x or in y
 		return first(cs)
 	}
-	l, _ := geo.length.Float(env)
+	l, _ := geo.length(d).Float(env)
 	s := 0.0
 	if atEnd {
 		s = l
@@ -470,21 +431,7 @@ func withCornerFit(up cart.Poly, d Rect, data map[string]sideData, conds map[str
 	var rows [][]series.Coef
 	var rhs []series.Coef
 	cornerOf := func(name string, atEnd bool) (series.Coef, series.Coef) {
-		x, y := series.Coef{}, series.Coef{}
-		switch {
-		case name == "right":
-			x = d.L
-		case name == "top":
-			y = d.H
-		}
-		if atEnd {
-			if name == "left" || name == "right" {
-				y = d.H
-			} else {
-				x = d.L
-			}
-		}
-		return x, y
+		return edgeNamed(name).corner(d, atEnd)
 	}
 	// row is the side's operator on each basis function at its end, and the
 	// data less the operator on up there.
@@ -500,7 +447,7 @@ func withCornerFit(up cart.Poly, d Rect, data map[string]sideData, conds map[str
 		}
 		v := g.Sub(at(up))
 		if tr := wt.on(d, name, conds[name], env); tr != nil {
-			l, _ := d.geometry(name).length.Float(env)
+			l, _ := edgeNamed(name).length(d).Float(env)
 			s := 0.0
 			if atEnd {
 				s = l
@@ -616,9 +563,7 @@ func sideSeries(side Wall, corr cart.Poly, length series.Coef, d Rect, startN, e
 }
 
 // k0 is the index of a side in Sides().
-func k0(name string) int {
-	return map[string]int{"left": 0, "right": 1, "bottom": 2, "top": 3}[name]
-}
+func k0(name string) int { return edgeNamed(name).index() }
 
 // cornerWarnings names the corners where the values of adjacent sides
 // disagree: the series still converge, to the mean, but slowly there.
@@ -684,8 +629,8 @@ func (wt *numericPart) on(d Rect, name string, cond Condition, env series.Env) f
 	if wt == nil {
 		return nil
 	}
-	geo := d.geometry(name)
-	normal := map[string][2]float64{"left": {-1, 0}, "right": {1, 0}, "bottom": {0, -1}, "top": {0, 1}}[name]
+	geo := edgeNamed(name)
+	normal := geo.normal
 	h, _ := cond.H.Float(env)
 	fn := func(s float64) float64 {
 		x, y := geo.point(s, wt.L, wt.H)
@@ -700,7 +645,7 @@ func (wt *numericPart) on(d Rect, name string, cond Condition, env series.Env) f
 		}
 		return dn
 	}
-	l, _ := geo.length.Float(env)
+	l, _ := geo.length(d).Float(env)
 	worst, scale := 0.0, 0.0
 	for k := 0; k <= 64; k++ {
 		x, y := geo.point(l*float64(k)/64, wt.L, wt.H)
@@ -757,7 +702,7 @@ func (d Rect) figures(s *Solution, ev *Evaluator, rep *Report, env series.Env, t
 	sub := func(c series.Coef) (series.Coef, float64, error) { return sub(c, env) }
 	var err error
 	rep.Area = d.L.Mul(d.H)
-	if rep.Integral, err = s.rectAreaIntegral(ev, env, tol); err != nil {
+	if rep.Integral, err = s.Rect.areaIntegral(ev, env, tol); err != nil {
 		return err
 	}
 	if f, err := cart.FromPolar(s.Source); err == nil {

@@ -303,12 +303,12 @@ func (s *Solution) AreaIntegral(env series.Env, tol float64) (float64, error) {
 	if err != nil {
 		return 0, err
 	}
-	return s.rectAreaIntegral(ev, env, tol)
+	return s.Rect.areaIntegral(ev, env, tol)
 }
 
-func (s *Solution) rectAreaIntegral(ev *Evaluator, env series.Env, tol float64) (float64, error) {
-	d := s.Domain.(Rect)
-	c, err := rectIntegral(s.Rect.Particular, d).Subst(env)
+func (rp *RectParts) areaIntegral(ev *Evaluator, env series.Env, tol float64) (float64, error) {
+	d := rp.d
+	c, err := rectIntegral(rp.Particular, d).Subst(env)
 	if err != nil {
 		return 0, err
 	}
@@ -324,7 +324,7 @@ func (s *Solution) rectAreaIntegral(ev *Evaluator, env series.Env, tol float64) 
 	if ev.waves != nil {
 		total += integrateRect(ev.waves.At, L, H)
 	}
-	if q := s.Rect.Quadrature; q != nil {
+	if q := rp.Quadrature; q != nil {
 		total += integrateRect(func(x, y float64) float64 { v, _ := q.At(x, y); return v }, L, H)
 	}
 	return total, nil
