@@ -3,7 +3,6 @@ package series
 import (
 	"errors"
 	"math/big"
-	"sort"
 )
 
 // Poly is a Laurent polynomial with rational coefficients in the atoms:
@@ -50,21 +49,10 @@ func (p Poly) Rat() (*big.Rat, bool) {
 
 // canonical sorts accumulated terms, merges equal monomials and drops zeros.
 func canonical(ts []pterm) Poly {
-	sort.SliceStable(ts, func(i, j int) bool { return monoLess(ts[i].m, ts[j].m) })
-	out := ts[:0]
-	for _, t := range ts {
-		if n := len(out); n > 0 && out[n-1].m.key == t.m.key {
-			out[n-1].c = new(big.Rat).Add(out[n-1].c, t.c)
-			continue
-		}
-		out = append(out, t)
-	}
-	kept := out[:0]
-	for _, t := range out {
-		if t.c.Sign() != 0 {
-			kept = append(kept, t)
-		}
-	}
+	kept := Canonical(ts, func(a, b pterm) bool { return monoLess(a.m, b.m) },
+		func(a, b pterm) bool { return a.m.key == b.m.key },
+		func(a, b pterm) pterm { return pterm{a.m, new(big.Rat).Add(a.c, b.c)} },
+		func(t pterm) bool { return t.c.Sign() == 0 })
 	if len(kept) == 0 {
 		return Poly{}
 	}

@@ -3,7 +3,6 @@ package series
 import (
 	"fmt"
 	"math/big"
-	"sort"
 )
 
 // Term is C · r^P · (ln r)^L · θ^K · cos(Mθ), or sin(Mθ) when Sin.
@@ -84,21 +83,9 @@ func NewSum(terms ...Term) Sum {
 		t.P = t.power()
 		out = append(out, t)
 	}
-	sort.SliceStable(out, func(i, j int) bool { return termLess(out[i], out[j]) })
-	merged := out[:0]
-	for _, t := range out {
-		if n := len(merged); n > 0 && merged[n-1].sameShape(t) {
-			merged[n-1].C = merged[n-1].C.Add(t.C)
-			continue
-		}
-		merged = append(merged, t)
-	}
-	kept := merged[:0]
-	for _, t := range merged {
-		if !t.C.IsZero() {
-			kept = append(kept, t)
-		}
-	}
+	kept := Canonical(out, termLess, Term.sameShape,
+		func(a, b Term) Term { a.C = a.C.Add(b.C); return a },
+		func(t Term) bool { return t.C.IsZero() })
 	return Sum{kept}
 }
 

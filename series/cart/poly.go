@@ -3,7 +3,6 @@ package cart
 import (
 	"fmt"
 	"math/big"
-	"sort"
 	"strings"
 
 	"psol/series"
@@ -31,28 +30,18 @@ var (
 )
 
 func newPoly(ts []term) Poly {
-	sort.SliceStable(ts, func(a, b int) bool {
-		da, db := ts[a].i+ts[a].j, ts[b].i+ts[b].j
-		if da != db {
-			return da < db
-		}
-		return ts[a].i > ts[b].i
-	})
-	var out []term
-	for _, t := range ts {
-		if n := len(out); n > 0 && out[n-1].i == t.i && out[n-1].j == t.j {
-			out[n-1].c = out[n-1].c.Add(t.c)
-			continue
-		}
-		out = append(out, t)
+	return Poly{series.Canonical(ts, termLess,
+		func(a, b term) bool { return a.i == b.i && a.j == b.j },
+		func(a, b term) term { a.c = a.c.Add(b.c); return a },
+		func(t term) bool { return t.c.IsZero() })}
+}
+
+// termLess orders by total degree, then by falling power of x.
+func termLess(a, b term) bool {
+	if da, db := a.i+a.j, b.i+b.j; da != db {
+		return da < db
 	}
-	kept := out[:0]
-	for _, t := range out {
-		if !t.c.IsZero() {
-			kept = append(kept, t)
-		}
-	}
-	return Poly{kept}
+	return a.i > b.i
 }
 
 func (p Poly) IsZero() bool { return len(p.t) == 0 }

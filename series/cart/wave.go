@@ -60,24 +60,17 @@ func sign(c series.Coef) int {
 
 // Add merges the waves of s and t.
 func (s Waves) Add(t Waves) Waves {
-	var out Waves
-	index := map[string]int{}
-	for _, w := range append(append(Waves(nil), s...), t...) {
-		w = w.canonical()
-		if i, ok := index[w.key()]; ok {
-			out[i].Cos, out[i].Sin = out[i].Cos.Add(w.Cos), out[i].Sin.Add(w.Sin)
-			continue
-		}
-		index[w.key()] = len(out)
-		out = append(out, w)
+	all := make(Waves, 0, len(s)+len(t))
+	for _, w := range s {
+		all = append(all, w.canonical())
 	}
-	kept := out[:0]
-	for _, w := range out {
-		if !w.Cos.IsZero() || !w.Sin.IsZero() {
-			kept = append(kept, w)
-		}
+	for _, w := range t {
+		all = append(all, w.canonical())
 	}
-	return kept
+	return series.Canonical(all, nil,
+		func(a, b Wave) bool { return a.key() == b.key() },
+		func(a, b Wave) Wave { a.Cos, a.Sin = a.Cos.Add(b.Cos), a.Sin.Add(b.Sin); return a },
+		func(w Wave) bool { return w.Cos.IsZero() && w.Sin.IsZero() })
 }
 
 // Scale multiplies every wave by the polynomial q.
