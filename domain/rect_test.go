@@ -3,6 +3,7 @@ package domain_test
 import (
 	"math"
 	"math/rand"
+	"strconv"
 	"testing"
 
 	"psol/domain"
@@ -138,20 +139,26 @@ func BenchmarkSquareDuct(b *testing.B) {
 	}
 }
 
-// BenchmarkRectPoints evaluates the square duct at 10⁴ points.
+// BenchmarkRectPoints evaluates the duct of aspect L:1 at 10⁴ points, per
+// aspect (the side series converge more slowly as the rectangle lengthens).
 func BenchmarkRectPoints(b *testing.B) {
-	sol := solve(b, "lap(u) = -1", rect(b, "1", "1"), zeroWalls...)
-	ev, err := sol.Compile(nil, 1e-12, 1<<16)
-	if err != nil {
-		b.Fatal(err)
-	}
-	b.ReportAllocs()
-	b.ResetTimer()
-	for i := 0; i < b.N; i++ {
-		for k := 0; k < 10000; k++ {
-			x, y := float64(k%100)/99, float64(k/100)/99
-			ev.At(math.Hypot(x, y), math.Atan2(y, x))
-		}
+	for _, L := range []string{"1", "4", "16"} {
+		b.Run("L="+L, func(b *testing.B) {
+			sol := solve(b, "lap(u) = -1", rect(b, L, "1"), zeroWalls...)
+			ev, err := sol.Compile(nil, 1e-12, 1<<16)
+			if err != nil {
+				b.Fatal(err)
+			}
+			l, _ := strconv.ParseFloat(L, 64)
+			b.ReportAllocs()
+			b.ResetTimer()
+			for i := 0; i < b.N; i++ {
+				for k := 0; k < 10000; k++ {
+					x, y := l*float64(k%100)/99, float64(k/100)/99
+					ev.At(math.Hypot(x, y), math.Atan2(y, x))
+				}
+			}
+		})
 	}
 }
 

@@ -268,69 +268,6 @@ func BenchmarkDiscontinuousSummation(b *testing.B) {
 	}
 }
 
-// Report figures: Hagen–Poiseuille flow rate Q = πGa⁴/(8μ) (Bird, Stewart &
-// Lightfoot, Transport Phenomena, §2.3) exactly, and the divergence theorem
-// ∮ ∂u/∂n ds = ∬ f dA on every kind of region.
-func TestReport(t *testing.T) {
-	sol := solve(t, "mu*lap(u) = -G", domain.Disk{R: coef(t, "a")}, "u = 0")
-	env := series.Env{"G": series.IntCoef(3), "mu": series.FracCoef(1, 2), "a": series.FracCoef(1, 5)}
-	rep, err := sol.Report(env, 1e-12)
-	if err != nil {
-		t.Fatal(err)
-	}
-	if want := math.Pi * 3 * math.Pow(0.2, 4) / (8 * 0.5); rep.IntegralExact == nil || math.Abs(rep.Integral-want) > 1e-15 {
-		t.Errorf("Q = %v, want %v", rep.Integral, want)
-	}
-	if want := 3 * 0.04 / (4 * 0.5); math.Abs(rep.Max-want) > 1e-12 || rep.ArgMax[0] > 1e-9 {
-		t.Errorf("max %v at %v, want %v at the axis", rep.Max, rep.ArgMax, want)
-	}
-	cases := []struct {
-		eq  string
-		d   domain.Domain
-		bcs []string
-		tol float64
-	}{
-		{"lap(u) = 1 + x*y", unitDisk, []string{"dn(u) + 2u = cos(theta)"}, 1e-14},
-		{"lap(u) = 2 - ln(r)", annulus(t, "1/2", "2"), []string{"inner: u = 1", "outer: dn(u) = sin(theta)"}, 1e-13},
-		{"lap(u) = r^(-4)", domain.Outside{R: coef(t, "1")}, []string{"u = 1 + cos(theta)"}, 1e-13},
-		{"lap(u) = -2", sector(t, "1", "pi/2"), []string{"arc: u = 0", "start: u = 0", "end: u = 0"}, 1e-6},
-		{"lap(u) = 1", unitDisk, []string{"u = 0 < theta < pi ? 1 : 0"}, 1e-14},
-	}
-	for _, c := range cases {
-		rep, err := solve(t, c.eq, c.d, c.bcs...).Report(nil, 1e-12)
-		if err != nil {
-			t.Fatal(err)
-		}
-		if math.Abs(rep.Flux-rep.Source) > c.tol*math.Max(1, math.Abs(rep.Source)) {
-			t.Errorf("%s on %s: flux %.15g, source integral %.15g", c.eq, c.d.Describe(), rep.Flux, rep.Source)
-		}
-	}
-}
-
-// Piecewise data on a sector's arc: the semicircle with u = 1 on the arc for
-// θ < π/2 and 0 elsewhere on its boundary is, by odd reflection across the
-// diameter (common practice), the disk with data 1, 0, −1, 0 on the quarters;
-// its Poisson integral by quadrature is the independent value.
-func TestSectorPiecewiseArc(t *testing.T) {
-	sol := solve(t, "lap(u) = 0", sector(t, "1", "pi"), "arc: u = theta < pi/2 ? 1 : 0", "start: u = 0", "end: u = 0")
-	ev := evaluator(t, sol, 1e-13)
-	odd := func(th float64) float64 {
-		switch {
-		case th < math.Pi/2:
-			return 1
-		case th >= 3*math.Pi/2:
-			return -1
-		}
-		return 0
-	}
-	for _, p := range [][2]float64{{0.3, 0.5}, {0.5, 1}, {0.8, 2.5}, {0.9, 1.4}} {
-		got, _, _ := ev.At(p[0], p[1])
-		if want := poisson(odd, p[0], p[1]); math.Abs(got-want) > 1e-10 {
-			t.Errorf("u(%v) = %.13f, Poisson quadrature of the reflection %.13f", p, got, want)
-		}
-	}
-}
-
 // Exact piecewise data on an annulus: the printed series is harmonic (finite
 // differences at interior points) and takes the data on both circles.
 func TestAnnulusPiecewise(t *testing.T) {
@@ -353,49 +290,5 @@ func TestAnnulusPiecewise(t *testing.T) {
 		if want := math.Abs(math.Sin(th)); math.Abs(got-want) > 1e-5 {
 			t.Errorf("inner value at θ = %g: %.8f, want %.8f", th, got, want)
 		}
-	}
-}
-
-// The tensor-grid evaluation agrees with point-by-point evaluation, for a
-// closed form, a sector series, and jump data with rows next to the rim.
-func TestGridMatchesPoints(t *testing.T) {
-	for _, sol := range []*domain.Solution{
-		solve(t, "lap(u) = x*y - ln(r)", annulus(t, "1/2", "2"), "inner: dn(u) + 3u = cos(theta)", "outer: u = x"),
-		solve(t, "lap(u) = -2", sector(t, "1", "3*pi/2"), "arc: u = 0", "start: u = 0", "end: u = 1"),
-		solve(t, "lap(u) = 1", unitDisk, "u = 0 < theta < pi ? theta : 0"),
-	} {
-		ev := evaluator(t, sol, 1e-13)
-		rs := []float64{0.55, 0.7, 0.93, 0.999}
-		ths := []float64{0.1, 1, 2.5, 4.6}
-		if _, ok := sol.Domain.(domain.Sector); ok {
-			ths = []float64{0.1, 1, 2.5, 4.6 * 0.95}
-		}
-		grid, _ := ev.Grid(rs, ths)
-		for i, r := range rs {
-			for j, th := range ths {
-				want, _, _ := ev.At(r, th)
-				if math.Abs(grid[i][j]-want) > 1e-11*math.Max(1, math.Abs(want)) {
-					t.Errorf("%s at (%g, %g): grid %.14g, point %.14g", sol.Domain.Describe(), r, th, grid[i][j], want)
-				}
-			}
-		}
-	}
-}
-
-// BenchmarkGridEval evaluates the sector series on a 500×500 grid, no output.
-func BenchmarkGridEval(b *testing.B) {
-	sol := solve(b, "lap(u) = -2", sector(b, "1", "3*pi/2"), "arc: u = 0", "start: u = 0", "end: u = 0")
-	ev, err := sol.Compile(nil, 1e-12, 50)
-	if err != nil {
-		b.Fatal(err)
-	}
-	rs, ths := make([]float64, 500), make([]float64, 500)
-	for i := range rs {
-		rs[i], ths[i] = float64(i)/499, 3*math.Pi/2*float64(i)/499
-	}
-	b.ReportAllocs()
-	b.ResetTimer()
-	for i := 0; i < b.N; i++ {
-		ev.Grid(rs, ths)
 	}
 }
