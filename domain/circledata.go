@@ -27,7 +27,7 @@ func circleData(d circular, c circle, cond Condition, gf series.Field, tr series
 	// The numeric fallback: sample the data on the circle.
 	cf, err := gf.Compile(p.env)
 	if err != nil {
-		return series.Sum{}, unsupported("boundary data on %s: %w (numeric data needs every parameter's value: --let)", c.name, err)
+		return series.Sum{}, unsupported("boundary data on %s need every parameter's value: %w", c.name, err)
 	}
 	R, err := c.radius.Float(p.env)
 	if err != nil {

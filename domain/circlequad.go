@@ -15,7 +15,7 @@ import (
 func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string]series.Sum) error {
 	cf, err := series.Field{Rest: p.rest}.Compile(p.env)
 	if err != nil {
-		return unsupported("the source %s needs every parameter's value (--let): %w", p.rest.Text(), err)
+		return unsupported("the source %s needs every parameter's value: %w", p.rest.Text(), err)
 	}
 	in, out := d.bounds()
 	a := 0.0

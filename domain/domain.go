@@ -45,7 +45,7 @@ func unsupported(format string, args ...any) error {
 type MissingSides struct{ Sides []string }
 
 func (e *MissingSides) Error() string {
-	return fmt.Sprintf("no boundary condition for %s; give one --bc per side", strings.Join(e.Sides, ", "))
+	return fmt.Sprintf("no boundary condition for %s; every side needs one", strings.Join(e.Sides, ", "))
 }
 
 // Domain is a region psol solves on.

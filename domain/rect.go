@@ -1,6 +1,7 @@
 package domain
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"math/big"
@@ -167,7 +168,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		if c.Kind == Robin {
 			h, err := c.H.Float(p.env)
 			if err != nil {
-				return nil, unsupported("the Robin coefficient on %s needs a value (--let): %w", name, err)
+				return nil, unsupported("the Robin coefficient on %s needs a value: %w", name, err)
 			}
 			if h < 0 {
 				return nil, unsupported("on the rectangle the Robin coefficient must be >= 0 (convection to the surroundings); %s has h = %g", name, h)
@@ -191,11 +192,11 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 	var sq *ansatz.SineQuadrature
 	if rest != nil {
 		if errL != nil || errH != nil {
-			return nil, unsupported("the source part %s needs the rectangle's sides as numbers (--let)", rest.Text())
+			return nil, unsupported("the source part %s needs the rectangle's sides as numbers: %w", rest.Text(), errors.Join(errL, errH))
 		}
 		cf, err := series.Field{Rest: rest}.Compile(p.env)
 		if err != nil {
-			return nil, unsupported("the source %s needs every parameter's value (--let): %w", rest.Text(), err)
+			return nil, unsupported("the source %s needs every parameter's value: %w", rest.Text(), err)
 		}
 		sq = &ansatz.SineQuadrature{G: func(x, y float64) float64 { return cf.At(math.Hypot(x, y), math.Atan2(y, x)) }, L: L, H: H, Tol: p.tol}
 		sq.Prepare()
@@ -212,7 +213,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		}
 		cf, err := cond.G.Compile(p.env)
 		if err == nil && (errL != nil || errH != nil) {
-			err = fmt.Errorf("the rectangle's sides need values for numeric data (--let)")
+			err = fmt.Errorf("the rectangle's sides need values for numeric data: %w", errors.Join(errL, errH))
 		}
 		if err != nil {
 			return nil, unsupported("boundary data on %s: %w", name, err)
@@ -226,7 +227,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 	var wt *numericPart
 	if len(waves) > 0 || sq != nil {
 		if errL != nil || errH != nil {
-			return nil, unsupported("a source with exponentials or trigonometric functions on the rectangle needs its sides' values (--let)")
+			return nil, unsupported("a source with exponentials or trigonometric functions on the rectangle needs its sides' values: %w", errors.Join(errL, errH))
 		}
 		if wt, err = newNumericPart(waves, sq, p.env, L, H); err != nil {
 			return nil, err
@@ -269,7 +270,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 			side.Series = &ser
 		} else {
 			if errL != nil || errH != nil {
-				return nil, unsupported("a Robin side or numeric data on the rectangle need its sides' values (--let)")
+				return nil, unsupported("a Robin side or numeric data on the rectangle need its sides' values: %w", errors.Join(errL, errH))
 			}
 			if g := data[name].poly; g != nil {
 				side.Data, side.Correction = *g, g.Sub(tr)

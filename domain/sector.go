@@ -244,7 +244,7 @@ func (b *sectorBuilder) concrete() []int {
 func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) error {
 	cf, err := series.Field{Rest: p.rest}.Compile(p.env)
 	if err != nil {
-		return unsupported("the source %s needs every parameter's value (--let): %w", p.rest.Text(), err)
+		return unsupported("the source %s needs every parameter's value: %w", p.rest.Text(), err)
 	}
 	R, err := b.s.R.Float(p.env)
 	if err != nil {

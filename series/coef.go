@@ -313,12 +313,11 @@ func (c Coef) Params(into map[string]bool) {
 	}
 }
 
-// ErrUnbound reports a parameter with no value in a numeric evaluation.
+// ErrUnbound reports a parameter with no value in a numeric evaluation. Its
+// message names no way to give one: that is the caller's (the CLI adds its flag).
 type ErrUnbound struct{ Name string }
 
-func (e ErrUnbound) Error() string {
-	return fmt.Sprintf("parameter %s has no value (give it with --let %s=...)", e.Name, e.Name)
-}
+func (e ErrUnbound) Error() string { return fmt.Sprintf("parameter %s has no value", e.Name) }
 
 // Env gives parameters values.
 type Env map[string]Coef

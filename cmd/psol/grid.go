@@ -69,11 +69,11 @@ func writeGrid(path string, sol *domain.Solution, n int, progress io.Writer) err
 	env := sol.Options.Env
 	ev, err := sol.Evaluator(sol.Options.Terms)
 	if err != nil {
-		return usagef("--grid: %v", err)
+		return usagef("--grid: %w", err)
 	}
 	shape, err := sol.Domain.Shape(env)
 	if err != nil {
-		return usagef("--grid: %v", err)
+		return usagef("--grid: %w", err)
 	}
 	if shape.Polar == nil {
 		return writeCartesianGrid(path, shape.Box, ev, n)

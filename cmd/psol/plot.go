@@ -99,11 +99,11 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 	env := sol.Options.Env
 	x0, x1, y0, y1, edges, err := bounds(sol.Domain, env)
 	if err != nil {
-		return usagef("--plot: %v", err)
+		return usagef("--plot: %w", err)
 	}
 	ev, err := sol.Evaluator(domain.PictureTerms)
 	if err != nil {
-		return usagef("--plot: %v", err)
+		return usagef("--plot: %w", err)
 	}
 	const n = 160
 	f := &field{x0: x0, y0: y0, dx: (x1 - x0) / (n - 1), dy: (y1 - y0) / (n - 1), nx: n, ny: n, z: make([]float64, n*n), min: math.Inf(1), max: math.Inf(-1)}
@@ -111,7 +111,7 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 	if sol.Quadrature != nil { // its modes are per radius: sample rings, interpolate
 		box, err := polarBox(sol.Domain, env)
 		if err != nil {
-			return usagef("--plot: %v", err)
+			return usagef("--plot: %w", err)
 		}
 		rlo, rhi := box.RMin, box.RMax
 		if math.IsInf(rhi, 1) { // outside a circle: out to the picture's corner

@@ -30,7 +30,7 @@ func readPoint(text string, env series.Env) (point, error) {
 	for _, b := range bs {
 		v, err := b.Value.Float(env)
 		if err != nil {
-			return point{}, usagef("--at %s: %v", text, err)
+			return point{}, usagef("--at %s: %w", text, err)
 		}
 		name := b.Name
 		if name == "θ" {
@@ -70,12 +70,12 @@ func evaluate(sol *domain.Solution, pts []point) error {
 	}
 	ev, err := sol.Evaluator(sol.Options.Terms)
 	if err != nil {
-		return usagef("--at: %v", err)
+		return usagef("--at: %w", err)
 	}
 	for i := range pts {
 		in, err := sol.Domain.Contains(pts[i].R, pts[i].Theta, env)
 		if err != nil {
-			return usagef("--at: %v", err)
+			return usagef("--at: %w", err)
 		}
 		if !in {
 			return &parse.Error{Label: "--at", Input: pts[i].Input, Msg: "the point lies outside " + sol.Domain.Describe()}

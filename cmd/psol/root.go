@@ -10,6 +10,7 @@ import (
 	"psol/ansatz"
 	"psol/domain"
 	"psol/parse"
+	"psol/series"
 )
 
 const version = "0.1.0"
@@ -47,8 +48,19 @@ func run(args []string, stdout, stderr io.Writer) (status int) {
 	if err == nil {
 		return 0
 	}
-	fmt.Fprintln(stderr, "psol: "+err.Error())
+	fmt.Fprintln(stderr, "psol: "+errorText(err))
 	return exitStatus(err)
+}
+
+// errorText is the error as psol prints it: the library's message, plus the
+// flag that supplies what it says is missing (the library names no flags).
+func errorText(err error) string {
+	msg := err.Error()
+	var unbound series.ErrUnbound
+	if errors.As(err, &unbound) {
+		msg += fmt.Sprintf(" (give it with --let %s=...)", unbound.Name)
+	}
+	return msg
 }
 
 // protectNegatives keeps arguments such as "-k*lap(u) = q" or "-1" from
@@ -66,11 +78,18 @@ func protectNegatives(args []string) []string {
 }
 
 // usageError marks bad input found outside the parser (flags, missing sides).
-type usageError struct{ msg string }
+type usageError struct {
+	msg   string
+	cause error // what the message wraps (%w), if anything
+}
 
 func (e *usageError) Error() string { return e.msg }
+func (e *usageError) Unwrap() error { return e.cause }
 
-func usagef(format string, args ...any) error { return &usageError{fmt.Sprintf(format, args...)} }
+func usagef(format string, args ...any) error {
+	err := fmt.Errorf(format, args...)
+	return &usageError{err.Error(), errors.Unwrap(err)}
+}
 
 func exitStatus(err error) int {
 	var (

@@ -114,7 +114,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	if o.report || o.quantity != "" {
 		rep, err := sol.Figures()
 		if err != nil {
-			return usagef("--report: %v", err)
+			return usagef("--report: %w", err)
 		}
 		if o.report {
 			v.Report = newReportOut(rep)
