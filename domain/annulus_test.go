@@ -168,3 +168,47 @@ func benchSolve(b *testing.B, equation string, d domain.Domain, bcs ...string) {
 func BenchmarkSolveAnnulus(b *testing.B) {
 	benchSolve(b, "lap(u) = -1 + x*y", annulus(b, "1/2", "2"), "inner: dn(u) + 3u = cos(theta)", "outer: u = x")
 }
+
+// A floating inner circle: u is one unknown constant there, found from the
+// net flux through it. Outside checks:
+//   - hollow shaft (Timoshenko & Goodier, multiply connected sections): the
+//     hole's stress-function value is (b² − a²)/2 when ∮ ∂φ/∂n ds = 2·(hole
+//     area) with the region's outward normal (single-valued warping), and
+//     J = 2∬φ dA + 2φ_hole·πa² = π(b⁴ − a⁴)/2;
+//   - a conductor of radius a carrying charge q per unit length inside a
+//     grounded sleeve of radius b (Griffiths, the coaxial line): its potential
+//     is (q/2πε) ln(b/a), the flux through it (region's normal) q/ε.
+func TestFloatingCircle(t *testing.T) {
+	cases := []struct {
+		name, eq, inner, want string
+		a, b                  string
+	}{
+		{"hollow shaft", "lap(u) = -2", "inner: u = const, flux = 2*pi*a^2", "(b^2 - a^2)/2", "a", "b"},
+		{"hollow shaft, numbers", "lap(u) = -2", "inner: u = const, flux = 2*pi*(1/50)^2", "(1/40)^2/2 - (1/50)^2/2", "1/50", "1/40"},
+		{"floating conductor", "eps*lap(u) = 0", "inner: u = const, flux = q/eps", "q/(2*pi*eps)*ln(b/a)", "a", "b"},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			sol := solve(t, c.eq, annulus(t, c.a, c.b), c.inner, "outer: u = 0")
+			assertChecks(t, sol)
+			got, ok := sol.Floating["inner"]
+			if !ok {
+				t.Fatalf("no floating value; notes %v", sol.Notes)
+			}
+			if want := coef(t, c.want); !got.Equal(want) {
+				t.Errorf("u on inner = %s, want %s", got.Text(), want.Text())
+			}
+		})
+	}
+	// The hollow shaft's J from the field and the found hole value.
+	sol := solve(t, "lap(u) = -2", annulus(t, "a", "b"), "inner: u = const, flux = 2*pi*a^2", "outer: u = 0")
+	a, b := coef(t, "a"), coef(t, "b")
+	area, err := sol.U.AreaIntegral(&a, &b)
+	if err != nil {
+		t.Fatal(err)
+	}
+	j := area.Add(sol.Floating["inner"].Mul(coef(t, "pi*a^2"))).MulRat(big.NewRat(2, 1))
+	if want := coef(t, "pi*(b^4 - a^4)/2"); !j.Equal(want) {
+		t.Errorf("J = %s, want %s", j.Text(), want.Text())
+	}
+}

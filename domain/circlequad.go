@@ -42,7 +42,7 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		}
 		pm, dpm, _ := q.Mode(r)
 		cond := p.conds[c.name]
-		qerr := q.TraceError(r, cond.Kind != Dirichlet)
+		qerr := q.TraceError(r, cond.Kind == Neumann || cond.Kind == Robin || cond.Kind == Floating)
 		h := 0.0
 		if cond.Kind == Robin {
 			if h, err = cond.H.Float(p.env); err != nil {
@@ -53,10 +53,10 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		for m := range pm {
 			for k := 0; k < 2; k++ {
 				v := pm[m][k]
-				switch cond.Kind {
-				case Neumann:
+				switch {
+				case cond.Kind == Floating && m == 0, cond.Kind == Neumann:
 					v = float64(c.outward) * dpm[m][k]
-				case Robin:
+				case cond.Kind == Robin:
 					v = float64(c.outward)*dpm[m][k] + h*pm[m][k]
 				}
 				if m == 0 && k == 1 {

@@ -18,10 +18,30 @@ type circle struct {
 	outward int64
 }
 
-// apply is the condition's operator on s at this circle: u, ∂u/∂n or ∂u/∂n + h·u.
+// apply is the condition's operator on s at this circle: u, ∂u/∂n or
+// ∂u/∂n + h·u. A floating side's operator is, mode by mode, ∂u/∂n on the
+// mean (mode 0: its data are the flux over the circumference) and u on
+// every other mode (whose data are 0: u is one constant there); being
+// diagonal in the modes, the mode systems take it as they take the others.
 func (c circle) apply(cond Condition, s series.Sum) (series.Sum, error) {
-	if cond.Kind == Dirichlet {
+	switch cond.Kind {
+	case Dirichlet:
 		return s.Trace(c.radius)
+	case Floating:
+		var mean, rest []series.Term
+		for _, t := range s.Terms() {
+			if t.M == 0 {
+				mean = append(mean, t)
+			} else {
+				rest = append(rest, t)
+			}
+		}
+		dn, err := c.apply(Condition{Kind: Neumann}, series.NewSum(mean...))
+		if err != nil {
+			return series.Sum{}, err
+		}
+		v, err := series.NewSum(rest...).Trace(c.radius)
+		return dn.Add(v), err
 	}
 	dn, err := s.DR().Trace(c.radius)
 	if err != nil {
@@ -79,6 +99,11 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 		if err != nil {
 			return nil, unsupported("boundary data on %s: %w", c.name, err)
 		}
+		if cond.Kind == Floating { // the net flux, spread evenly over the circumference 2πR
+			if gf, err = fluxDensity(cond, c); err != nil {
+				return nil, err
+			}
+		}
 		tr, err := c.apply(cond, up)
 		if err != nil {
 			return nil, unsupported("trace on %s: %w", c.name, err)
@@ -113,6 +138,18 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 		return nil, err
 	}
 	sol.U = up.Add(sol.Harmonic)
+	for _, c := range d.circles() {
+		if p.conds[c.name].Kind != Floating {
+			continue
+		}
+		if v, err := sol.U.Trace(c.radius); err == nil {
+			if sol.Floating == nil {
+				sol.Floating = map[string]series.Coef{}
+			}
+			sol.Floating[c.name] = coefOf(v, mode{})
+			sol.Notes = append(sol.Notes, fmt.Sprintf("u on %s is the constant %s, found from its net outward flux %s (the mean of dn(u) on it is that over its length)", c.name, coefOf(v, mode{}).Text(), p.conds[c.name].G.Text()))
+		}
+	}
 	if sol.Free != "" {
 		c0 := d.circles()[0]
 		u0, err := sol.U.Subst(series.Env{sol.Free: {}})
@@ -182,12 +219,13 @@ func harmonicModes(d circular, p *posed, sol *Solution, data map[string]series.S
 		b := make([]series.Coef, len(circles))
 		for i, c := range circles {
 			for _, fn := range basis {
-				v, err := c.apply(p.conds[c.name], fn)
+				// The operator on the mode's function, fn·T(nθ): a floating
+				// side's operator differs between mode 0 and the others.
+				v, err := c.apply(p.conds[c.name], fn.Mul(m.trig()))
 				if err != nil {
 					return err
 				}
-				k, _ := v.Const()
-				a[i] = append(a[i], k)
+				a[i] = append(a[i], coefOf(v, m))
 			}
 			b[i] = coefOf(data[c.name], m)
 		}
@@ -292,7 +330,7 @@ func numericGap(b []series.Coef, scale float64, env series.Env) (float64, bool) 
 func singular(d circular, p *posed, sol *Solution, m mode) error {
 	allNeumann := true
 	for _, c := range p.conds {
-		allNeumann = allNeumann && c.Kind == Neumann
+		allNeumann = allNeumann && (c.Kind == Neumann || c.Kind == Floating)
 	}
 	if m.n == 0 && allNeumann {
 		// ∮ ∂u/∂n ds = ∬ f dA (the divergence theorem) is what mode 0 asks.
@@ -406,4 +444,21 @@ func paren(s string) string {
 		return "(" + s + ")"
 	}
 	return s
+}
+
+// fluxDensity is a floating side's data as the mode systems take them: the
+// net flux g over the circumference, g/(2πR), in mode 0.
+func fluxDensity(cond Condition, c circle) (series.Field, error) {
+	if !cond.G.IsExact() || cond.G.Exact.HasAngle() {
+		return series.Field{}, unsupported("the net flux through %s must be one constant, not %s", c.name, cond.G.Text())
+	}
+	q, ok := cond.G.Exact.Const()
+	if !ok {
+		return series.Field{}, unsupported("the net flux through %s must be one constant, not %s", c.name, cond.G.Text())
+	}
+	g, err := q.Div(c.radius.Mul(series.SymCoef(series.Pi)).MulRat(big.NewRat(2, 1)))
+	if err != nil {
+		return series.Field{}, unsupported("the net flux through %s: %w", c.name, err)
+	}
+	return series.Field{Exact: series.Const(g)}, nil
 }

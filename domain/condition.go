@@ -9,9 +9,15 @@ const (
 	Dirichlet Kind = iota // u = g
 	Neumann               // ∂u/∂n = g
 	Robin                 // ∂u/∂n + h·u = g
+	// Floating: u takes one unknown constant value on the side, and the net
+	// outward flux ∮ ∂u/∂n ds through it is g (a constant). A hole's boundary
+	// in torsion (the value follows from single-valued warping), a floating
+	// conductor carrying a given charge, a well screen at one unknown head
+	// with a given discharge.
+	Floating
 )
 
-var kindNames = [...]string{"Dirichlet", "Neumann", "Robin"}
+var kindNames = [...]string{"Dirichlet", "Neumann", "Robin", "floating"}
 
 func (k Kind) String() string { return kindNames[k] }
 

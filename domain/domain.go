@@ -113,10 +113,12 @@ type Solution struct {
 	Sides      []Side
 	Harmonic   series.Sum
 	U          series.Sum
-	Free       string      // the name of a free additive constant in U, if any
-	FreeMean   series.Coef // the value of Free that makes u's mean on the first boundary circle zero
-	Checks     []Check
-	Series     *SeriesParts // the infinite-series stages, where the region needs them
+	Free       string // the name of a free additive constant in U, if any
+	// Floating are the constant values u takes on its floating sides, by side.
+	Floating map[string]series.Coef
+	FreeMean series.Coef // the value of Free that makes u's mean on the first boundary circle zero
+	Checks   []Check
+	Series   *SeriesParts // the infinite-series stages, where the region needs them
 	// Options are those the solution was solved with; evaluation, grids,
 	// pictures and reports take the parameters and the tolerance from here.
 	Options Options
@@ -178,6 +180,13 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 		}
 		p.conds[c.Side] = c
 	}
+	if _, circles := d.(circular); !circles {
+		for _, c := range conds {
+			if c.Kind == Floating {
+				return nil, unsupported("a side at one unknown constant value (u = const, flux = ...) is supported on circles for now (the annulus, the disk, outside a circle), not on %s", d.Describe())
+			}
+		}
+	}
 	var missing []string
 	for _, s := range d.Sides() {
 		if _, ok := p.conds[s]; !ok {
@@ -201,6 +210,8 @@ func OperatorText(cond Condition, fn string) string {
 		return "dn(" + fn + ")"
 	case Robin:
 		return "dn(" + fn + ") + " + factorText(cond.H) + fn
+	case Floating: // its data are the net flux over the circumference, in mode 0
+		return "mean dn(" + fn + ")"
 	}
 	return fn
 }

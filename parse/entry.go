@@ -60,13 +60,64 @@ func (lw *lowerer) statement() (*statement, error) {
 	if err != nil {
 		return nil, lw.wrapParse(err)
 	}
+	if st.Also != nil && !lw.clauses {
+		return nil, lw.fail(st.Also.Pos, "a second clause after a comma belongs only in a boundary condition at one unknown value: u = const, flux = Q")
+	}
 	return st, nil
+}
+
+// floating reads the condition "u = const, flux = Q": u takes one unknown
+// constant value on the side, and Q is the net outward flux ∮ ∂u/∂n ds
+// through it. ok is false when the statement is not of that form.
+func (lw *lowerer) floating(st *statement, cond domain.Condition) (domain.Condition, bool, error) {
+	constant := st.Eq != nil && bareName(st.Eq.Right) == "const"
+	if st.Also == nil && !constant {
+		return cond, false, nil
+	}
+	switch {
+	case bareName(st.Left) != "u":
+		return cond, true, lw.fail(st.Left.Pos, "a side at one unknown value is written u = const, flux = Q")
+	case !constant:
+		return cond, true, lw.fail(st.Also.Pos, "a second clause belongs only in u = const, flux = Q")
+	case st.Also == nil:
+		return cond, true, lw.fail(st.Eq.Right.Pos, "u = const needs the net flux through the side: u = const, flux = Q")
+	case st.Also.Name != "flux":
+		return cond, true, lw.fail(st.Also.Pos, "expected flux = Q, the net outward flux through the side, not %s", st.Also.Name)
+	}
+	q, err := lw.choice(st.Also.Value)
+	if err != nil {
+		return cond, true, err
+	}
+	if q.hasUnknown() || !q.f.IsExact() || q.f.Exact.HasAngle() {
+		return cond, true, lw.fail(st.Also.Value.Pos, "the net flux is one number or constant expression, not a function on the side")
+	}
+	if _, ok := q.f.Exact.Const(); !ok {
+		return cond, true, lw.fail(st.Also.Value.Pos, "the net flux is one number or constant expression, not a function of r, x or y")
+	}
+	cond.Kind, cond.G = domain.Floating, q.f
+	return cond, true, nil
+}
+
+// bareName is the identifier a formula consists of, or "".
+func bareName(c *choice) string {
+	if c == nil || c.Then != nil || len(c.Cond.Rest) > 0 {
+		return ""
+	}
+	a := c.Cond.Left
+	if len(a.Rest) > 0 || len(a.Left.Rest) > 0 {
+		return ""
+	}
+	u := a.Left.Left
+	if u.Power == nil || u.Power.Exp != nil || u.Power.Base.Atom == nil || u.Power.Base.Atom.Name == nil {
+		return ""
+	}
+	return *u.Power.Base.Atom.Name
 }
 
 // Condition reads "[SIDE:] CONDITION" for a domain with the given sides; a
 // domain with one side lets SIDE be omitted.
 func Condition(text string, sides []string, env series.Env) (domain.Condition, error) {
-	lw := &lowerer{label: "--bc", input: text, env: env}
+	lw := &lowerer{label: "--bc", input: text, env: env, clauses: true}
 	st, err := lw.statement()
 	if err != nil {
 		return domain.Condition{}, err
@@ -82,6 +133,9 @@ func Condition(text string, sides []string, env series.Env) (domain.Condition, e
 		cond.Side = sides[0]
 	default:
 		return domain.Condition{}, lw.fail(st.Pos, "name the side first, one of: %s (as in %q)", strings.Join(sides, ", "), sides[0]+": u = 0")
+	}
+	if c, ok, err := lw.floating(st, cond); ok || err != nil {
+		return c, err
 	}
 	if st.Eq == nil {
 		return domain.Condition{}, lw.fail(st.Left.Pos, "a condition needs an = sign, as in u = g or dn(u) = g")

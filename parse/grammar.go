@@ -7,7 +7,7 @@ import (
 
 // The grammar, in EBNF:
 //
-//	statement = [ ident ":" ] choice [ "=" choice ] .
+//	statement = [ ident ":" ] choice [ "=" choice ] [ "," binding ] .
 //	bindings  = binding { "," binding } .
 //	binding   = ident "=" choice .
 //	choice    = compare [ "?" choice ":" choice ] .
@@ -28,6 +28,8 @@ type statement struct {
 	Side *sideName `parser:"( @@ \":\" )?"`
 	Left *choice   `parser:"@@"`
 	Eq   *eqTail   `parser:"@@?"`
+	// Also is a second clause of a condition, as in "u = const, flux = 2".
+	Also *binding `parser:"( \",\" @@ )?"`
 }
 
 type sideName struct {

@@ -19,6 +19,7 @@ import (
 type lowerer struct {
 	label, input string
 	env          series.Env
+	clauses      bool // a second clause ("u = const, flux = Q") is allowed: conditions only
 }
 
 func (lw *lowerer) fail(pos lexer.Position, format string, args ...any) error {
