@@ -71,3 +71,11 @@ func (a Annulus) claimSide(side string, cond Condition, claim series.Field, env 
 }
 
 func (a Annulus) boundary(side string) (circle, bool, series.Coef) { return circleNamed(a, side) }
+
+func (a Annulus) Measures() Measures {
+	return Measures{Area: discArea(a.R2).Sub(discArea(a.R1)),
+		Lengths: map[string]series.Coef{"inner": circleLength(a.R1), "outer": circleLength(a.R2)},
+		Holes:   map[string]series.Coef{"inner": discArea(a.R1)}}
+}
+
+func (a Annulus) integral(u series.Sum) (series.Coef, error) { return circularIntegral(a, u) }

@@ -68,3 +68,9 @@ func (d Disk) claimSide(side string, cond Condition, claim series.Field, env ser
 }
 
 func (d Disk) boundary(side string) (circle, bool, series.Coef) { return circleNamed(d, side) }
+
+func (d Disk) Measures() Measures {
+	return Measures{Area: discArea(d.R), Lengths: map[string]series.Coef{"rim": circleLength(d.R)}}
+}
+
+func (d Disk) integral(u series.Sum) (series.Coef, error) { return circularIntegral(d, u) }

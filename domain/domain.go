@@ -56,6 +56,10 @@ type Domain interface {
 	Describe() string
 	// Contains reports whether the point (r, θ) lies in the closed region.
 	Contains(r, theta float64, env series.Env) (bool, error)
+	// Measures are the region's exact area, side lengths and holes.
+	Measures() Measures
+	// integral is the exact area integral of a closed field over the region.
+	integral(u series.Sum) (series.Coef, error)
 	// Shape is the region's geometry with the parameters' values: sides,
 	// area, bounding box, and its (r, θ) box where it is one.
 	Shape(env series.Env) (Shape, error)

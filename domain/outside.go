@@ -71,3 +71,12 @@ func (o Outside) claimSide(side string, cond Condition, claim series.Field, env 
 }
 
 func (o Outside) boundary(side string) (circle, bool, series.Coef) { return circleNamed(o, side) }
+
+// Outside a circle the rim encloses the disk, which is not part of the
+// region: a hole of an unbounded region.
+func (o Outside) Measures() Measures {
+	return Measures{Unbounded: true, Lengths: map[string]series.Coef{"rim": circleLength(o.R)},
+		Holes: map[string]series.Coef{"rim": discArea(o.R)}}
+}
+
+func (o Outside) integral(u series.Sum) (series.Coef, error) { return circularIntegral(o, u) }

@@ -729,9 +729,6 @@ func (d Rect) figures(s *Solution, ev *Evaluator, rep *Report, env series.Env, t
 		}
 		rep.SourceExact = nil
 	}
-	if rep.Flux, err = rectFlux(d, ev, env); err != nil {
-		return err
-	}
 	rep.Max, rep.ArgMax, rep.Min, rep.ArgMin, err = rectExtremes(d, ev, env)
 	return err
 }
@@ -761,4 +758,17 @@ func (d Rect) samples(env series.Env) ([][2]float64, error) {
 		}
 	}
 	return pts, nil
+}
+
+func (d Rect) Measures() Measures {
+	return Measures{Area: d.L.Mul(d.H), Lengths: map[string]series.Coef{"left": d.H, "right": d.H, "bottom": d.L, "top": d.L}}
+}
+
+// integral: a closed field on the rectangle is a polynomial in x and y.
+func (d Rect) integral(u series.Sum) (series.Coef, error) {
+	p, err := cart.FromPolar(u)
+	if err != nil {
+		return series.Coef{}, err
+	}
+	return rectIntegral(p, d), nil
 }

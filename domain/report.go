@@ -1,7 +1,9 @@
 package domain
 
 import (
+	"errors"
 	"math"
+	"sort"
 	"math/big"
 
 	"psol/ansatz"
@@ -24,6 +26,15 @@ type Report struct {
 	Source         float64
 	SourceExact    *series.Coef
 	Bounded        string // a note where the region is unbounded
+	// Sides is the outward flux through each side, in the order of Sides().
+	Sides []SideFlux
+	// Gradient is the largest |∇u| and where; nil in a symbolic report.
+	Gradient *GradientPeak
+	// Symbolic marks a report with parameters left without values: only
+	// the exact figures are filled (the numbers are NaN), and Open names
+	// what the numbers would need.
+	Symbolic bool
+	Open     []string
 }
 
 // Report computes the figures. Extremes come from a dense sample refined by a
@@ -32,6 +43,10 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 	// Thousands of evaluations, some on the boundary where a series converges
 	// slowly: cap the terms (extremes need no more than a few digits there).
 	ev, err := s.Compile(env, tol, ReportTerms)
+	var unbound series.ErrUnbound
+	if errors.As(err, &unbound) && s.IsClosed() {
+		return s.symbolicReport(unbound.Name)
+	}
 	if err != nil {
 		return nil, err
 	}
@@ -42,6 +57,30 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 	if A, err := rep.Area.Float(env); err == nil && A > 0 {
 		rep.Mean = rep.Integral / A
 	}
+	shape, err := s.Domain.Shape(env)
+	if err != nil {
+		return nil, err
+	}
+	if rep.Sides == nil { // regions with no exact side fluxes: by panels
+		rep.Sides = sideFluxes(shape, ev)
+		rep.Flux, rep.FluxExact = 0, nil
+		for _, f := range rep.Sides {
+			rep.Flux += f.Value
+		}
+	}
+	inside := func(x, y float64) bool {
+		th := math.Atan2(y, x)
+		if th < 0 {
+			th += 2 * math.Pi
+		}
+		ok, err := s.Domain.Contains(math.Hypot(x, y), th, env)
+		return ok && err == nil
+	}
+	if _, constant := s.constantSource(); constant {
+		inside = nil // the peak of |∇u| is on the boundary
+	}
+	g := gradientPeak(shape, ev, inside)
+	rep.Gradient = &g
 	return rep, nil
 }
 
@@ -76,17 +115,16 @@ func circularFigures(d circular, s *Solution, ev *Evaluator, rep *Report, env se
 	}
 	flux := series.Coef{}
 	for _, c := range d.circles() {
-		dn, err := c.apply(Condition{Kind: Neumann}, s.U)
+		k, err := circleFlux(c, s.U)
 		if err != nil {
 			return err
 		}
-		k := series.Coef{}
-		for _, t := range dn.Terms() {
-			if t.M == 0 && t.K == 0 {
-				k = t.C
-			}
+		flux = flux.Add(k)
+		side := SideFlux{Side: c.name}
+		if k, v, err := sub(k); err == nil {
+			side.Exact, side.Value = &k, v
 		}
-		flux = flux.Add(k.Mul(c.radius).Mul(series.SymCoef(series.Pi)).MulRat(ratOf(2)))
+		rep.Sides = append(rep.Sides, side)
 	}
 	if c, v, err := sub(flux); err == nil {
 		rep.FluxExact, rep.Flux = &c, v
@@ -105,7 +143,14 @@ func circularFigures(d circular, s *Solution, ev *Evaluator, rep *Report, env se
 			if err != nil {
 				return err
 			}
-			rep.Flux += float64(c.outward) * q.Flux(R, 0, 2*math.Pi)
+			qf := float64(c.outward) * q.Flux(R, 0, 2*math.Pi)
+			rep.Flux += qf
+			for i := range rep.Sides {
+				if rep.Sides[i].Side == c.name {
+					rep.Sides[i].Value += qf
+					rep.Sides[i].Exact = nil
+				}
+			}
 		}
 		rep.FluxExact = nil
 	}
@@ -117,42 +162,11 @@ func areaOf(in, out *series.Coef) (series.Coef, error) {
 	return one.AreaIntegral(in, out)
 }
 
-// sectorFlux is ∮ ∂u/∂n ds over arc and rays by Gauss–Legendre panels, with
-// central differences for the normal derivative.
 // inward is f′(0) by the one-sided third-order difference
 // (−11f(0) + 18f(h) − 9f(2h) + 2f(3h))/(6h), error h³f⁗/4 (common practice):
 // with h about ε^(1/4) of the scale, truncation and rounding both near 1e-12.
 func inward(f func(float64) float64, h float64) float64 {
 	return (-11*f(0) + 18*f(h) - 9*f(2*h) + 2*f(3*h)) / (6 * h)
-}
-
-func sectorFlux(d Sector, ev *Evaluator, env series.Env) (float64, error) {
-	R, err := d.R.Float(env)
-	if err != nil {
-		return 0, err
-	}
-	alpha, _ := d.Alpha.Float(nil)
-	u := func(r, th float64) float64 { v, _, _ := ev.At(r, th); return v }
-	const h = 1e-4
-	total := 0.0
-	for i := 0; i < 16; i++ {
-		a, b := alpha*float64(i)/16, alpha*float64(i+1)/16
-		for k, x := range legendreX {
-			th := (a+b)/2 + (b-a)/2*x
-			dn := -inward(func(s float64) float64 { return u(R-s, th) }, h*R)
-			total += (b - a) / 2 * legendreW[k] * R * dn
-		}
-	}
-	for i := 0; i < 16; i++ {
-		a, b := R*float64(i)/16, R*float64(i+1)/16
-		for k, x := range legendreX {
-			r := (a+b)/2 + (b-a)/2*x
-			start := -inward(func(s float64) float64 { return u(r, s) }, h) / r
-			end := -inward(func(s float64) float64 { return u(r, alpha-s) }, h) / r
-			total += (b - a) / 2 * legendreW[k] * (start + end)
-		}
-	}
-	return total, nil
 }
 
 // polarExtremes fills the report's extremes over a region that is a polar box.
@@ -213,35 +227,6 @@ func extremes(d Domain, ev *Evaluator, env series.Env) (maxV float64, argMax [2]
 		argMin[1] = 0
 	}
 	return
-}
-
-// rectFlux is ∮ ∂u/∂n ds over the four sides, by Gauss–Legendre panels and
-// one-sided differences inward.
-func rectFlux(d Rect, ev *Evaluator, env series.Env) (float64, error) {
-	L, err := d.L.Float(env)
-	if err != nil {
-		return 0, err
-	}
-	H, err := d.H.Float(env)
-	if err != nil {
-		return 0, err
-	}
-	u := ev.atXY
-	total := 0.0
-	side := func(length float64, dn func(s float64) float64) {
-		for i := 0; i < 16; i++ {
-			a, b := length*float64(i)/16, length*float64(i+1)/16
-			for k, x := range legendreX {
-				total += (b - a) / 2 * legendreW[k] * dn((a+b)/2+(b-a)/2*x)
-			}
-		}
-	}
-	h := 1e-4 * math.Min(L, H)
-	side(L, func(x float64) float64 { return -inward(func(t float64) float64 { return u(x, t) }, h) })   // bottom: −∂u/∂y
-	side(L, func(x float64) float64 { return -inward(func(t float64) float64 { return u(x, H-t) }, h) }) // top: ∂u/∂y
-	side(H, func(y float64) float64 { return -inward(func(t float64) float64 { return u(t, y) }, h) })   // left: −∂u/∂x
-	side(H, func(y float64) float64 { return -inward(func(t float64) float64 { return u(L-t, y) }, h) }) // right: ∂u/∂x
-	return total, nil
 }
 
 // rectExtremes samples the rectangle densely; the location is given in polar
@@ -328,4 +313,81 @@ func (rp *RectParts) areaIntegral(ev *Evaluator, env series.Env, tol float64) (f
 		total += integrateRect(func(x, y float64) float64 { v, _ := q.At(x, y); return v }, L, H)
 	}
 	return total, nil
+}
+
+// circleFlux is the exact outward flux of u through a circle: 2πR times the
+// mean of ∂u/∂n there (modes n ≥ 1 integrate to zero).
+func circleFlux(c circle, u series.Sum) (series.Coef, error) {
+	dn, err := c.apply(Condition{Kind: Neumann}, u)
+	if err != nil {
+		return series.Coef{}, err
+	}
+	k := series.Coef{}
+	for _, t := range dn.Terms() {
+		if t.M == 0 && t.K == 0 {
+			k = t.C
+		}
+	}
+	return k.Mul(circleLength(c.radius)), nil
+}
+
+// symbolicReport is the report of a closed solution whose parameters have no
+// values: the exact area, integrals and side fluxes, with the parameters as
+// symbols (J = πa⁴/2), and NaN where a figure needs numbers (the extremes).
+func (s *Solution) symbolicReport(open string) (*Report, error) {
+	m := s.Domain.Measures()
+	nan := math.NaN()
+	rep := &Report{Symbolic: true, Open: s.openParams(open), Area: m.Area, Max: nan, Min: nan, Integral: nan, Mean: nan, Flux: nan, Source: nan}
+	if m.Unbounded {
+		rep.Bounded = "the region is unbounded"
+		return rep, nil
+	}
+	if c, err := s.Domain.integral(s.U); err == nil {
+		rep.IntegralExact = &c
+	}
+	if c, err := s.Domain.integral(s.Source); err == nil {
+		rep.SourceExact = &c
+		// The divergence theorem: the net outward flux is the source integral.
+		rep.FluxExact = &c
+	}
+	if d, ok := s.Domain.(circular); ok {
+		for _, c := range d.circles() {
+			side := SideFlux{Side: c.name, Value: nan}
+			if k, err := circleFlux(c, s.U); err == nil {
+				side.Exact = &k
+			}
+			rep.Sides = append(rep.Sides, side)
+		}
+	}
+	return rep, nil
+}
+
+// circularIntegral is ∬u dA between a circular region's bounds.
+func circularIntegral(d circular, u series.Sum) (series.Coef, error) {
+	in, out := d.bounds()
+	return u.AreaIntegral(in, out)
+}
+
+// openParams are the parameters of the solution and its region that have no
+// value, sorted (first, the one an evaluation stopped at, if it is not there).
+func (s *Solution) openParams(first string) []string {
+	used := map[string]bool{}
+	s.U.Params(used)
+	s.Source.Params(used)
+	m := s.Domain.Measures()
+	m.Area.Params(used)
+	for _, l := range m.Lengths {
+		l.Params(used)
+	}
+	var out []string
+	for name := range used {
+		if _, ok := s.Options.Env[name]; !ok {
+			out = append(out, name)
+		}
+	}
+	sort.Strings(out)
+	if len(out) == 0 {
+		out = []string{first}
+	}
+	return out
 }

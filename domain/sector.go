@@ -747,10 +747,6 @@ func (d Sector) figures(s *Solution, ev *Evaluator, rep *Report, env series.Env,
 			rep.SourceExact, rep.Source = &c, v
 		}
 	}
-	rep.Flux, err = sectorFlux(d, ev, env)
-	if err != nil {
-		return err
-	}
 	if q := s.Quadrature; q != nil { // the numeric particular solution's share
 		to, _ := d.Alpha.Float(nil)
 		g, p := q.Integrals(0, to)
@@ -805,3 +801,10 @@ func (d Sector) boundary(side string) (circle, bool, series.Coef) {
 	}
 	return circle{}, false, series.Coef{}
 }
+
+func (d Sector) Measures() Measures {
+	return Measures{Area: d.R.Mul(d.R).Mul(d.Alpha).MulRat(big.NewRat(1, 2)),
+		Lengths: map[string]series.Coef{"arc": d.R.Mul(d.Alpha), "start": d.R, "end": d.R}}
+}
+
+func (d Sector) integral(u series.Sum) (series.Coef, error) { return u.SectorIntegral(d.R, d.Alpha) }

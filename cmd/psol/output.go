@@ -31,19 +31,20 @@ type checkOut struct {
 
 // view is everything a renderer prints, computed once.
 type view struct {
-	Problem    stage      `json:"problem"`
-	Particular stage      `json:"particular"`
-	Trace      stage      `json:"trace"`
-	Correction stage      `json:"correction"`
-	Harmonic   stage      `json:"harmonic"`
-	Solution   stage      `json:"solution"`
-	Checks     []checkOut `json:"checks"`
-	Points     []point    `json:"points"`
-	Steps      []string   `json:"steps,omitempty"`
-	Report     *reportOut `json:"report,omitempty"`
-	ClosedForm *stage     `json:"closed_form,omitempty"`
-	Quantities []string   `json:"quantities,omitempty"`
-	Warnings   []string   `json:"warnings"`
+	Problem    stage       `json:"problem"`
+	Particular stage       `json:"particular"`
+	Trace      stage       `json:"trace"`
+	Correction stage       `json:"correction"`
+	Harmonic   stage       `json:"harmonic"`
+	Solution   stage       `json:"solution"`
+	Checks     []checkOut  `json:"checks"`
+	Points     []point     `json:"points"`
+	Steps      []string    `json:"steps,omitempty"`
+	Report     *reportOut  `json:"report,omitempty"`
+	ClosedForm *stage      `json:"closed_form,omitempty"`
+	Quantities []figureOut `json:"quantities,omitempty"`
+	Caution    string      `json:"caution,omitempty"`
+	Warnings   []string    `json:"warnings"`
 	showSteps  bool
 	checkScope string // how far an exact check reaches, for series
 }
@@ -197,21 +198,46 @@ func renderText(w io.Writer, v *view) error {
 		line(w, "point", at)
 	}
 	if r := v.Report; r != nil {
-		line(w, "report", fmt.Sprintf("max u = %.12g at %s", r.Max, where(r.ArgMax)))
-		line(w, "report", fmt.Sprintf("min u = %.12g at %s", r.Min, where(r.ArgMin)))
-		if r.Integral == nil {
-			line(w, "report", "area integral of u: not finite over the unbounded region")
-		} else {
-			line(w, "report", "area integral of u = "+figure(r.IntegralText, *r.Integral)+fmt.Sprintf(", mean u = %.12g", *r.Mean))
+		if r.Max != nil {
+			line(w, "report", fmt.Sprintf("max u = %.12g at %s", *r.Max, where(r.ArgMax)))
+			line(w, "report", fmt.Sprintf("min u = %.12g at %s", *r.Min, where(r.ArgMin)))
 		}
-		line(w, "report", "net outward flux = "+figure(r.FluxText, r.Flux)+", source integral = "+figure(r.SourceText, r.SourceIntegral)+
-			fmt.Sprintf(" (divergence theorem: difference %.2g)", r.Flux-r.SourceIntegral))
+		switch {
+		case r.Integral != nil:
+			line(w, "report", "area integral of u = "+figure(r.IntegralText, *r.Integral)+fmt.Sprintf(", mean u = %.12g", *r.Mean))
+		case r.IntegralText != "":
+			line(w, "report", "area integral of u = "+r.IntegralText+", area = "+r.AreaText)
+		default:
+			line(w, "report", "area integral of u: not finite over the unbounded region")
+		}
+		var sides []string
+		for _, f := range r.Sides {
+			sides = append(sides, f.Side+" "+figureOrExact(f.Text, f.Flux))
+		}
+		if len(sides) > 1 {
+			line(w, "report", "outward flux through each side: "+strings.Join(sides, "; "))
+		}
+		if r.Flux != nil {
+			line(w, "report", "net outward flux = "+figure(r.FluxText, *r.Flux)+", source integral = "+figure(r.SourceText, *r.SourceIntegral)+
+				fmt.Sprintf(" (divergence theorem: difference %.2g)", *r.Flux-*r.SourceIntegral))
+		} else if r.FluxText != "" {
+			line(w, "report", "net outward flux = source integral = "+r.FluxText+" (divergence theorem)")
+		}
+		if g := r.Gradient; g != nil {
+			line(w, "report", fmt.Sprintf("largest |grad u| = %.10g at x = %.6g, y = %.6g", g.Value, g.At[0], g.At[1])+g.note)
+		}
 		if r.Note != "" {
 			line(w, "report", r.Note)
 		}
 	}
 	for _, q := range v.Quantities {
-		line(w, "figure", q)
+		line(w, "figure", q.text())
+		for _, warn := range q.Warnings {
+			line(w, "figure", "  caution: "+warn)
+		}
+	}
+	if v.Caution != "" {
+		line(w, "figure", v.Caution)
 	}
 	for _, s := range v.Warnings {
 		line(w, "note", s)
@@ -219,37 +245,80 @@ func renderText(w io.Writer, v *view) error {
 	return nil
 }
 
-// reportOut is the JSON form of a report: the SPEC keys, with exact forms beside.
+// reportOut is the JSON form of a report: the SPEC keys, with exact forms
+// beside; a number that needs parameter values is null.
 type reportOut struct {
-	Max            float64    `json:"max"`
-	Min            float64    `json:"min"`
-	ArgMax         [2]float64 `json:"argmax"`
-	ArgMin         [2]float64 `json:"argmin"`
-	Integral       *float64   `json:"integral"` // null where it is not finite (outside a circle)
-	IntegralText   string     `json:"integral_exact,omitempty"`
-	Mean           *float64   `json:"mean"`
-	Flux           float64    `json:"flux"`
-	FluxText       string     `json:"flux_exact,omitempty"`
-	SourceIntegral float64    `json:"source_integral"`
-	SourceText     string     `json:"source_integral_exact,omitempty"`
-	Note           string     `json:"note,omitempty"`
+	Max            *float64     `json:"max"`
+	Min            *float64     `json:"min"`
+	ArgMax         [2]float64   `json:"argmax"`
+	ArgMin         [2]float64   `json:"argmin"`
+	Integral       *float64     `json:"integral"` // null where it is not finite (outside a circle)
+	IntegralText   string       `json:"integral_exact,omitempty"`
+	AreaText       string       `json:"area_exact,omitempty"`
+	Mean           *float64     `json:"mean"`
+	Flux           *float64     `json:"flux"`
+	FluxText       string       `json:"flux_exact,omitempty"`
+	SourceIntegral *float64     `json:"source_integral"`
+	SourceText     string       `json:"source_integral_exact,omitempty"`
+	Sides          []sideOut    `json:"side_flux"`
+	Gradient       *gradientOut `json:"max_gradient,omitempty"`
+	Note           string       `json:"note,omitempty"`
+}
+
+// sideOut is the outward flux through one side.
+type sideOut struct {
+	Side string   `json:"side"`
+	Flux *float64 `json:"flux"`
+	Text string   `json:"exact,omitempty"`
+}
+
+// gradientOut is the largest |∇u| and where (x, y).
+type gradientOut struct {
+	Value  float64    `json:"value"`
+	At     [2]float64 `json:"at"`
+	Corner bool       `json:"at_reentrant_corner,omitempty"`
+	note   string
+}
+
+func finite(v float64) *float64 {
+	if math.IsNaN(v) || math.IsInf(v, 0) {
+		return nil
+	}
+	return &v
+}
+
+func exactText(c *series.Coef) string {
+	if c == nil {
+		return ""
+	}
+	return c.Text()
 }
 
 func newReportOut(r *domain.Report) *reportOut {
-	text := func(c *series.Coef) string {
-		if c == nil {
-			return ""
-		}
-		return c.Text()
+	out := &reportOut{Max: finite(r.Max), Min: finite(r.Min), ArgMax: r.ArgMax, ArgMin: r.ArgMin, Integral: finite(r.Integral), IntegralText: exactText(r.IntegralExact),
+		Mean: finite(r.Mean), Flux: finite(r.Flux), FluxText: exactText(r.FluxExact), SourceIntegral: finite(r.Source), SourceText: exactText(r.SourceExact), Note: r.Bounded,
+		Sides: []sideOut{}}
+	if r.Symbolic {
+		out.AreaText = r.Area.Text()
 	}
-	finite := func(v float64) *float64 {
-		if math.IsNaN(v) || math.IsInf(v, 0) {
-			return nil
-		}
-		return &v
+	for _, f := range r.Sides {
+		out.Sides = append(out.Sides, sideOut{Side: f.Side, Flux: finite(f.Value), Text: exactText(f.Exact)})
 	}
-	return &reportOut{Max: r.Max, Min: r.Min, ArgMax: r.ArgMax, ArgMin: r.ArgMin, Integral: finite(r.Integral), IntegralText: text(r.IntegralExact),
-		Mean: finite(r.Mean), Flux: r.Flux, FluxText: text(r.FluxExact), SourceIntegral: r.Source, SourceText: text(r.SourceExact), Note: r.Bounded}
+	if g := r.Gradient; g != nil && !math.IsNaN(g.Value) {
+		out.Gradient = &gradientOut{Value: g.Value, At: g.At, Corner: g.Corner}
+		if g.Corner {
+			out.Gradient.note = " (at a re-entrant corner, where |grad u| is unbounded in general: the value is where sampling stopped)"
+		}
+	}
+	return out
+}
+
+// figureOrExact is a figure, or its exact form alone where it needs values.
+func figureOrExact(exact string, v *float64) string {
+	if v == nil {
+		return exact
+	}
+	return figure(exact, *v)
 }
 
 // figure prints an exact value with its decimal, or the decimal alone.

@@ -3,43 +3,84 @@ package main
 import (
 	"fmt"
 	"math"
+	"strings"
 
 	"psol/domain"
 )
 
-// quantity computes a named figure from the report. Each preset states its
-// physical reading and the usual caution:
-//
-//	flow:    Δu = −G/μ with u = 0 on the walls: u is the axial velocity,
-//	         Q = ∬u dA the flow rate, ū = Q/A, and for Δu = −1 the Fanning
-//	         product fRe = D_h²/(2ū) with D_h = 4A/P.
-//	torsion: Δφ = −2 with φ = 0 on the outer boundary: J = 2∬φ dA
-//	         (Saint-Venant; a hole needs its own constant φ on its boundary).
-//	peak:    the largest value of u and where it is (a peak temperature, say).
-func quantity(name string, pr *problem, rep *domain.Report) ([]string, error) {
-	var out []string
-	switch name {
-	case "flow":
-		out = append(out, fmt.Sprintf("flow rate Q = area integral of u = %.12g", rep.Integral), fmt.Sprintf("mean velocity = Q/A = %.12g", rep.Mean))
-		if a, p, ok := areaPerimeter(pr); ok && rep.Mean != 0 {
-			dh := 4 * a / p
-			out = append(out, fmt.Sprintf("hydraulic diameter D_h = 4A/P = %.12g; for lap(u) = -1, fRe = D_h^2/(2*mean) = %.12g", dh, dh*dh/(2*rep.Mean)))
-		}
-	case "torsion":
-		out = append(out, fmt.Sprintf("torsion constant J = 2 * area integral of u = %.12g (u the stress function of lap(u) = -2, zero on the outer boundary)", 2*rep.Integral))
-	case "peak":
-		out = append(out, fmt.Sprintf("peak u = %.12g at %s", rep.Max, where(rep.ArgMax)))
-	default:
-		return nil, usagef("--quantity %q: choose flow, torsion or peak", name)
-	}
-	return append(out, caution), nil
+// figureOut is one figure as JSON gives it: a number a script can read, the
+// exact form where there is one, and what it means (no prose to parse).
+type figureOut struct {
+	Name        string      `json:"name"`
+	Value       *float64    `json:"value"` // null where it needs parameter values
+	Exact       string      `json:"exact,omitempty"`
+	Description string      `json:"description"`
+	At          *[2]float64 `json:"at,omitempty"` // (x, y) for a peak
+	Warnings    []string    `json:"warnings,omitempty"`
 }
 
-// areaPerimeter is the region's area and wetted perimeter, numerically.
-func areaPerimeter(pr *problem) (float64, float64, bool) {
-	shape, err := pr.domain.Shape(pr.env)
-	if err != nil {
-		return 0, 0, false
+// quantities computes each named preset's figures (domain.Quantities holds
+// the definitions), in the order asked.
+func quantities(names []string, sol *domain.Solution, rep *domain.Report) ([]figureOut, error) {
+	var out []figureOut
+	seen := map[string]bool{}
+	for _, name := range names {
+		for _, n := range strings.Split(name, ",") {
+			n = strings.TrimSpace(n)
+			if seen[n] {
+				continue
+			}
+			seen[n] = true
+			if !known(n) {
+				return nil, usagef("--quantity %q: choose %s", n, strings.Join(domain.QuantityNames(), ", "))
+			}
+			figs, err := sol.Quantity(n, rep)
+			if err != nil {
+				return nil, err
+			}
+			for _, f := range figs {
+				out = append(out, newFigureOut(f))
+			}
+		}
 	}
-	return shape.Area, shape.Perimeter(), !math.IsInf(shape.Area, 1) // an unbounded region is no duct
+	return out, nil
+}
+
+func known(name string) bool {
+	for _, n := range domain.QuantityNames() {
+		if n == name {
+			return true
+		}
+	}
+	return false
+}
+
+func newFigureOut(f domain.Figure) figureOut {
+	out := figureOut{Name: f.Name, Description: f.Description, At: f.At, Warnings: f.Warnings}
+	if !math.IsNaN(f.Value) && !math.IsInf(f.Value, 0) {
+		v := f.Value
+		out.Value = &v
+	}
+	if f.Exact != nil {
+		out.Exact = f.Exact.Text()
+	}
+	return out
+}
+
+// text is the figure's line: name = exact = decimal, then its meaning.
+func (f figureOut) text() string {
+	var value string
+	switch {
+	case f.Value == nil && f.Exact != "":
+		value = f.Exact
+	case f.Value == nil:
+		value = "(needs parameter values)"
+	default:
+		value = figure(f.Exact, *f.Value)
+	}
+	s := f.Name + " = " + value
+	if f.At != nil {
+		s += fmt.Sprintf(" at x = %.6g, y = %.6g", f.At[0], f.At[1])
+	}
+	return s + " (" + f.Description + ")"
 }

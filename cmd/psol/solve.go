@@ -1,7 +1,9 @@
 package main
 
 import (
+	"fmt"
 	"io"
+	"strings"
 
 	"github.com/spf13/cobra"
 
@@ -21,7 +23,7 @@ type solveOptions struct {
 	csv      string
 	stderr   io.Writer
 	plot     string
-	quantity string
+	quantity []string
 }
 
 func newSolveCmd() *cobra.Command {
@@ -44,7 +46,7 @@ func newSolveCmd() *cobra.Command {
 	f.Float64Var(&o.tol, "tol", domain.SumTol, "numeric target for summed series")
 	f.IntVar(&o.grid, "grid", 0, "with --csv: evaluate u on an N x N grid over the domain")
 	f.StringVar(&o.csv, "csv", "", "with --grid: the CSV file to write (replaced only when the run succeeds)")
-	f.StringVar(&o.quantity, "quantity", "", "a named engineering figure: flow (duct flow rate, mean and fRe), torsion (torsion constant), peak (largest value)")
+	f.StringArrayVar(&o.quantity, "quantity", nil, quantityHelp())
 	f.StringVar(&o.plot, "plot", "", "draw u over the domain to FILE.png or FILE.svg")
 	f.StringVar(&o.lang, "lang", "go", "language of --format code: go, c or python")
 	f.BoolVar(&o.report, "report", false, "add max, min, area integral, mean and the flux balance")
@@ -111,7 +113,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		return writeCode(w, o.lang, pr, sol, terms)
 	}
 	v := newView(pr, sol, pts, o.steps)
-	if o.report || o.quantity != "" {
+	if o.report || len(o.quantity) > 0 {
 		rep, err := sol.Figures()
 		if err != nil {
 			return usagef("--report: %w", err)
@@ -119,12 +121,14 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		if o.report {
 			v.Report = newReportOut(rep)
 		}
-		if o.quantity != "" {
-			q, err := quantity(o.quantity, pr, rep)
-			if err != nil {
+		if len(o.quantity) > 0 {
+			if v.Quantities, err = quantities(o.quantity, sol, rep); err != nil {
 				return err
 			}
-			v.Quantities = q
+			v.Caution = caution
+		}
+		if rep.Symbolic {
+			v.Warnings = append(v.Warnings, fmt.Sprintf("the figures are exact, with %s as symbols; numbers and peaks need values (--let %s=...)", strings.Join(rep.Open, ", "), strings.Join(rep.Open, "=...,")))
 		}
 	}
 	if err := v.failedCheck(); err != nil {
@@ -132,4 +136,13 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		return err
 	}
 	return render(w, v)
+}
+
+// quantityHelp lists the presets from the library's table.
+func quantityHelp() string {
+	var parts []string
+	for _, q := range domain.Quantities {
+		parts = append(parts, q.Name+" ("+q.Help+")")
+	}
+	return "figures of a trade, repeatable or comma-separated: " + strings.Join(parts, "; ")
 }
