@@ -29,10 +29,17 @@ func TestReadmeExamples(t *testing.T) {
 		if i := strings.LastIndex(got, "exit "); i >= 0 && strings.HasSuffix(got, "\n") && !strings.Contains(got[i:len(got)-1], "\n") {
 			got = got[:i] // a shell shows no exit line
 		}
-		if got != want {
-			t.Errorf("README example %s\n--- got\n%s--- README\n%s", cmdLine, got, want)
+		if got != want && *update {
+			blocks[i] = "\n" + cmdLine + "\n" + got
+		} else if got != want {
+			t.Errorf("README example %s\n--- got\n%s--- README\n%s (go test ./cmd/psol -update rewrites it)", cmdLine, got, want)
 		}
 		n++
+	}
+	if *update {
+		if err := os.WriteFile("../../README.md", []byte(strings.Join(blocks, "```")), 0o644); err != nil {
+			t.Fatal(err)
+		}
 	}
 	if n < 4 {
 		t.Errorf("found %d README examples, want at least 4", n)
