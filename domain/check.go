@@ -15,8 +15,11 @@ type ClaimCheck struct {
 	Side     string // "" for the equation
 	Exact    bool
 	Residual series.Sum // exact residual (when Exact)
-	Max      float64    // largest numeric residual (when not Exact)
+	Max      float64    // largest numeric residual; for an exact one, its largest size on samples (NaN where parameters have no values)
 	Where    [2]float64 // (r, θ) of the largest numeric residual
+	// Text is the exact residual in the region's own coordinates (x and y
+	// on the rectangle), as Describe prints it.
+	Text string
 }
 
 // Holds reports a vanishing residual: exactly zero, or numerically below tol.
@@ -57,7 +60,62 @@ func CheckClaim(d Domain, f series.Field, conds []Condition, claim series.Field,
 		}
 		out = append(out, c)
 	}
+	shape, shapeErr := d.Shape(env)
+	pts, ptsErr := d.samples(env)
+	for i := range out {
+		c := &out[i]
+		if !c.Exact {
+			continue
+		}
+		c.Text = FieldText(d, c.Residual)
+		c.Max = math.NaN()
+		comp, err := c.Residual.Compile(env)
+		if err != nil {
+			continue
+		}
+		var at [][2]float64 // where the residual's size is sampled: the side, or inside
+		if c.Side == "" && ptsErr == nil {
+			at = pts
+		}
+		for _, sp := range shape.Sides {
+			if sp.Name == c.Side && c.Side != "" && shapeErr == nil {
+				for k := 0; k <= 64; k++ {
+					x, y, _, _ := sp.At(float64(k) / 64)
+					at = append(at, [2]float64{math.Hypot(x, y), math.Atan2(y, x)})
+				}
+			}
+		}
+		if k, constant := c.Residual.Const(); constant {
+			if v, err := k.Float(env); err == nil {
+				c.Max = math.Abs(v)
+			}
+			continue
+		}
+		if len(at) == 0 {
+			continue // no samples without the region's values: the size is unknown
+		}
+		c.Max = 0
+		for _, p := range at {
+			if v := math.Abs(comp.At(p[0], p[1])); v > c.Max {
+				c.Max, c.Where = v, p
+			}
+		}
+	}
 	return out, nil
+}
+
+// xyRegion is a region whose fields print in x and y (the rectangle).
+type xyRegion interface{ printsInXY() bool }
+
+// FieldText is a closed field as the region writes it: in x and y on the
+// rectangle, in r and θ elsewhere.
+func FieldText(d Domain, s series.Sum) string {
+	if xy, ok := d.(xyRegion); ok && xy.printsInXY() {
+		if p, err := cart.FromPolar(s); err == nil {
+			return p.Text()
+		}
+	}
+	return s.Text()
 }
 
 // polarSided is a region whose sides are circles about the origin (arcs)
@@ -234,7 +292,11 @@ func (c ClaimCheck) Describe() string {
 		where = " on " + c.Side
 	}
 	if c.Exact {
-		return fmt.Sprintf("%s = %s%s (exact)", c.Name, c.Residual.Text(), where)
+		text := c.Text
+		if text == "" {
+			text = c.Residual.Text()
+		}
+		return fmt.Sprintf("%s = %s%s (exact)", c.Name, text, where)
 	}
 	x, y := Cartesian(c.Where[0], c.Where[1])
 	return fmt.Sprintf("%s: largest residual %.3g%s at r = %.4g, theta = %.4g (x = %.4g, y = %.4g) (numeric)", c.Name, c.Max, where, c.Where[0], c.Where[1], x, y)

@@ -772,3 +772,5 @@ func (d Rect) integral(u series.Sum) (series.Coef, error) {
 	}
 	return rectIntegral(p, d), nil
 }
+
+func (Rect) printsInXY() bool { return true }

@@ -114,8 +114,9 @@ func bareName(c *choice) string {
 	return *u.Power.Base.Atom.Name
 }
 
-// Condition reads "[SIDE:] CONDITION" for a domain with the given sides; a
-// domain with one side lets SIDE be omitted.
+// Condition reads "[SIDE:] CONDITION" for a domain with the given sides.
+// Without SIDE, the condition's Side is the domain's only side, or "" on a
+// domain with several: the caller applies it to every side not named.
 func Condition(text string, sides []string, env series.Env) (domain.Condition, error) {
 	lw := &lowerer{label: "--bc", input: text, env: env, clauses: true}
 	st, err := lw.statement()
@@ -132,7 +133,8 @@ func Condition(text string, sides []string, env series.Env) (domain.Condition, e
 	case len(sides) == 1:
 		cond.Side = sides[0]
 	default:
-		return domain.Condition{}, lw.fail(st.Pos, "name the side first, one of: %s (as in %q)", strings.Join(sides, ", "), sides[0]+": u = 0")
+		// No side named on a region with several: the caller applies it to
+		// every side that has no condition of its own (Side stays "").
 	}
 	if c, ok, err := lw.floating(st, cond); ok || err != nil {
 		return c, err

@@ -3,6 +3,7 @@ package main
 import (
 	"encoding/json"
 	"io"
+	"math"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -46,13 +47,13 @@ type claimReport struct {
 }
 
 type claimResult struct {
-	Name     string  `json:"name"`
-	Side     string  `json:"side,omitempty"`
-	Exact    bool    `json:"exact"`
-	Holds    bool    `json:"holds"`
-	Formula  string  `json:"formula,omitempty"`
-	Residual float64 `json:"residual"`
-	Text     string  `json:"text"`
+	Name     string   `json:"name"`
+	Side     string   `json:"side,omitempty"`
+	Exact    bool     `json:"exact"`
+	Holds    bool     `json:"holds"`
+	Formula  string   `json:"formula,omitempty"`
+	Residual *float64 `json:"residual"` // null where parameters have no values
+	Text     string   `json:"text"`
 }
 
 func (o *checkOptions) run(w io.Writer, equation string) error {
@@ -78,13 +79,18 @@ func (o *checkOptions) run(w io.Writer, equation string) error {
 		return err
 	}
 	rep := claimReport{Claim: claim.Text(), Holds: true, Exact: true}
+	if claim.IsExact() {
+		rep.Claim = domain.FieldText(pr.domain, claim.Exact)
+	}
 	var failed []string
 	for _, c := range checks {
 		res := claimResult{Name: c.Name, Side: c.Side, Exact: c.Exact, Holds: c.Holds(numericCheckTol), Text: c.Describe()}
+		if !math.IsNaN(c.Max) {
+			res.Residual = &c.Max // the residual's largest size (sampled where it is exact)
+		}
 		if c.Exact {
-			res.Formula = c.Residual.Text()
+			res.Formula = c.Text
 		} else {
-			res.Residual = c.Max
 			rep.Exact = false
 		}
 		if !res.Holds {
@@ -96,7 +102,7 @@ func (o *checkOptions) run(w io.Writer, equation string) error {
 	// Where psol solves the problem in closed form, say how far off the claim is.
 	if sol, err := pr.solve(); err == nil && sol.IsClosed() && claim.IsExact() && sol.Free == "" {
 		if d := claim.Exact.Sub(sol.U); !d.IsZero() {
-			rep.OffBy = d.Text()
+			rep.OffBy = domain.FieldText(pr.domain, d)
 		}
 	}
 	rep.Verdict = "the claim holds"

@@ -64,6 +64,11 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	}
 	var conds, condsTeX []string
 	for _, s := range sol.Sides {
+		if s.Condition.Kind == domain.Floating { // as the user gave it: one unknown value, a net flux
+			conds = append(conds, s.Condition.Side+": u = const, flux = "+s.Condition.G.Text())
+			condsTeX = append(condsTeX, `u = \text{const},\ \oint \partial_n u\,ds = `+s.Condition.G.LaTeX()+`\ \text{on `+s.Condition.Side+"}")
+			continue
+		}
 		conds = append(conds, s.Condition.Side+": "+domain.OperatorText(s.Condition, "u")+" = "+s.DataText)
 		condsTeX = append(condsTeX, operatorTeX(s.Condition, "u")+" = "+s.DataLaTeX+`\ \text{on `+s.Condition.Side+"}")
 	}
@@ -147,6 +152,8 @@ func operatorTeX(c domain.Condition, fn string) string {
 		return `\partial_n ` + fn
 	case domain.Robin:
 		return `\partial_n ` + fn + " + " + c.H.LaTeX() + " " + fn
+	case domain.Floating:
+		return `\overline{\partial_n ` + fn + `}`
 	}
 	return fn
 }

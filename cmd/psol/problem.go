@@ -57,7 +57,7 @@ func (p *problemFlags) bind(f *pflag.FlagSet) {
 	for _, k := range regionKinds {
 		p.regions[k.flag] = f.String(k.flag, "", k.usage)
 	}
-	f.StringArrayVar(&p.bcs, "bc", nil, `boundary condition "[SIDE:] u = g", "dn(u) = g" or "dn(u) + h*u = g" (repeatable)`)
+	f.StringArrayVar(&p.bcs, "bc", nil, `boundary condition "[SIDE:] u = g", "dn(u) = g", "dn(u) + h*u = g" or "u = const, flux = Q" (one unknown value with net outward flux Q; circles); one per side, repeatable; one without SIDE applies to every side not named`)
 	f.StringArrayVar(&p.lets, "let", nil, `parameter values "a=0.05,q=2e5" (repeatable)`)
 	f.StringVar(&p.fix, "fix", "", `pin the free constant of a pure Neumann problem: "u(R0, THETA0) = V" (polar point)`)
 }
@@ -135,14 +135,46 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 	if pr.source, err = parse.Equation(equation, env); err != nil {
 		return nil, err
 	}
-	for _, bc := range p.bcs {
-		c, err := parse.Condition(bc, pr.domain.Sides(), env)
+	if pr.conds, err = conditions(p.bcs, pr.domain.Sides(), env); err != nil {
+		return nil, err
+	}
+	return pr, nil
+}
+
+// conditions lowers the --bc flags: one per side, and at most one without a
+// side name, which applies to every side no other --bc names.
+func conditions(bcs []string, sides []string, env series.Env) ([]domain.Condition, error) {
+	var conds []domain.Condition
+	var general *domain.Condition
+	given := map[string]string{}
+	for _, bc := range bcs {
+		c, err := parse.Condition(bc, sides, env)
 		if err != nil {
 			return nil, err
 		}
-		pr.conds = append(pr.conds, c)
+		lead := len(bc) - len(strings.TrimLeft(bc, " "))
+		switch prev, dup := given[c.Side]; {
+		case c.Side == "" && general != nil:
+			return nil, &parse.Error{Label: "--bc", Input: bc, Offset: lead, Msg: fmt.Sprintf("a second --bc with no side name (the first: %q); name the side, one of: %s", general.Text, strings.Join(sides, ", "))}
+		case c.Side == "":
+			general = &c
+			continue
+		case dup:
+			return nil, &parse.Error{Label: "--bc", Input: bc, Offset: lead, Msg: fmt.Sprintf("side %s already has a condition (%q); give one per side", c.Side, prev)}
+		}
+		given[c.Side] = bc
+		conds = append(conds, c)
 	}
-	return pr, nil
+	if general != nil {
+		for _, side := range sides {
+			if _, ok := given[side]; !ok {
+				c := *general
+				c.Side = side
+				conds = append(conds, c)
+			}
+		}
+	}
+	return conds, nil
 }
 
 // solve assembles the solution, pinning a free constant by --fix.
