@@ -4,6 +4,7 @@ import (
 	"math"
 	"math/rand"
 	"psol/domain"
+	"psol/series"
 	"strings"
 	"testing"
 )
@@ -84,4 +85,53 @@ func TestPolarFiniteDifference(t *testing.T) {
 			t.Errorf("Robin residual at θ = %.1f: %g vs %g", th, got, want)
 		}
 	}
+}
+
+// TestFreeConstantMeans: the free constant of a pure Neumann problem makes
+// the mean of u on the first side zero over every term (closed, series and
+// quadrature), and FreeValue pins it through all of them. Outside checks:
+// closed forms worked by hand (common practice: integrate the radial ODE).
+func TestFreeConstantMeans(t *testing.T) {
+	// Δu = 1/(1 + r²) on the unit disk, ∂u/∂r = ln 2/2: u′ = ln(1 + r²)/(2r), and
+	// mean zero on the rim means u(1) = 0, so u(1/2) = −∫_{1/2}^1 ln(1 + s²)/(2s) ds.
+	sol := solveWith(t, "lap(u) = 1/(1 + x^2 + y^2)", domain.Disk{R: coef(t, "1")}, domain.Options{}, "dn(u) = ln(2)/2")
+	ev, err := sol.Compile(series.Env{sol.Free: sol.FreeMean}, 1e-12, domain.PointTerms)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if u, _, _ := ev.At(0.5, 0); !approx(u, -0.146641683934672, 1e-9) {
+		t.Errorf("disk with quadrature: u(1/2) = %.15g, want -0.146641683934672 (the radial integral, by midpoint rule to 1e-10)", u)
+	}
+	// Δu = 2xy on the quarter disk with Neumann data cos 2θ + 1/(2π) on the arc:
+	// the arc mean of the printed solution with C = −1/(8π) is zero.
+	sol = solve(t, "lap(u) = 2*x*y", sector(t, "1", "pi/2"), "arc: dn(u) = cos(2*theta) + 1/(2*pi)", "start: dn(u) = 0", "end: dn(u) = 0")
+	if !sol.FreeMean.Equal(coef(t, "-1/(8*pi)")) {
+		t.Errorf("sector free mean %s, want -1/(8*pi)", sol.FreeMean.Text())
+	}
+	// Outside r = 1/2 with Δu = 1/(1 + r²)² and ∂u/∂n = 4/5: u = ¼ ln((1 + r²)/r²) + C;
+	// u(1, 0) = 0 pins C = −¼ ln 2, so u(0.8, 1) = 0.0619590409761.
+	f, conds, err := pose("lap(u) = 1/(1 + x^2 + y^2)^2", domain.Outside{R: coef(t, "1/2")}, []string{"dn(u) = 4/5"}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	sol, err = domain.SolveWith(domain.Outside{R: coef(t, "1/2")}, f, conds, domain.Options{Tol: 1e-12})
+	if err != nil {
+		t.Fatal(err)
+	}
+	c, err := sol.FreeValue(coef(t, "1"), series.Coef{}, series.Coef{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	ev, err = sol.Compile(series.Env{sol.Free: c}, 1e-12, domain.PointTerms)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if u, _, _ := ev.At(0.8, 1); !approx(u, 0.25*math.Log((1+0.64)/0.64)-0.25*math.Log(2), 1e-9) {
+		t.Errorf("outside, pinned: u(0.8, 1) = %.13g, want 0.0619590409761", u)
+	}
+}
+
+// approx is |got − want| ≤ tol·max(1, |want|).
+func approx(got, want, tol float64) bool {
+	return math.Abs(got-want) <= tol*math.Max(1, math.Abs(want))
 }

@@ -260,6 +260,50 @@ func (s *Solution) IsClosed() bool {
 	return true
 }
 
+// FreeValue is the value of the free additive constant that makes u(r, θ) = v:
+// exact where the solution is closed, else from the evaluated solution
+// (series, quadrature and all) as a 15-digit decimal.
+func (s *Solution) FreeValue(r, theta, v series.Coef) (series.Coef, error) {
+	if s.Free == "" {
+		return series.Coef{}, fmt.Errorf("the solution has no free constant")
+	}
+	zero := series.Env{s.Free: {}}
+	if s.IsClosed() {
+		at, err := s.U.Subst(zero)
+		if err != nil {
+			return series.Coef{}, err
+		}
+		u0, err := at.At(r, theta)
+		if err != nil {
+			return series.Coef{}, err
+		}
+		return v.Sub(u0), nil
+	}
+	env := series.Env{}
+	for k, c := range s.Options.Env {
+		env[k] = c
+	}
+	env[s.Free] = series.Coef{}
+	ev, err := s.Compile(env, s.Options.Tol, CheckTerms)
+	if err != nil {
+		return series.Coef{}, err
+	}
+	rf, err := r.Float(env)
+	if err != nil {
+		return series.Coef{}, err
+	}
+	tf, err := theta.Float(env)
+	if err != nil {
+		return series.Coef{}, err
+	}
+	vf, err := v.Float(env)
+	if err != nil {
+		return series.Coef{}, err
+	}
+	u0, _, _ := ev.At(rf, tf)
+	return decimal(vf - u0), nil
+}
+
 // Pin gives the free additive constant its value.
 func (s *Solution) Pin(v series.Coef) error {
 	env := series.Env{s.Free: v}

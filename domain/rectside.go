@@ -103,6 +103,9 @@ func (s SideSeries) Text() string {
 			head = "(" + s.B0.Text() + ")*" + s.constantAcross(false) + " + "
 		}
 	}
+	if s.B.IsZero() && head != "" { // the constant mode alone
+		return strings.TrimSuffix(head, " + ")
+	}
 	return head + "sum(n=" + fmt.Sprint(from) + "..inf, " + b + "*" + phi + "(" + k + "*" + sv + over + ")*" + num + "(" + k + "*" + d + over + ")/" + denom + ")"
 }
 
@@ -169,6 +172,9 @@ func (s SideSeries) LaTeX() string {
 			head = `\left(` + s.B0.LaTeX() + `\right) ` + s.constantAcross(true) + " + "
 		}
 	}
+	if s.B.IsZero() && head != "" {
+		return strings.TrimSuffix(head, " + ")
+	}
 	return head + `\sum_{n=` + fmt.Sprint(from) + `}^{\infty} \left(` + series.Const(s.B).LaTeX() + `\right) ` + phi + `\left(` + k + " " + sv + `\right) \frac{` + num + `\left(` + k + " " + d + `\right)}{` + denom + `}`
 }
 
@@ -184,6 +190,7 @@ type CompiledSide struct {
 	flux, insulated bool
 	b0              float64
 	zero            bool // no term: the side's correction vanishes
+	constantOnly    bool // the constant mode alone: the general term is 0
 }
 
 // Compile fixes parameters for evaluation.
@@ -202,7 +209,7 @@ func (s SideSeries) Compile(env series.Env) (*CompiledSide, error) {
 	slope, _ := fam.Slope.Float64()
 	offset, _ := fam.Offset.Float64()
 	cs := &CompiledSide{side: s.Wall, b: b, l: lf, w: wf, sin: fam.Sin, slope: slope, offset: offset, from: fam.From, flux: s.Flux, insulated: s.Insulated,
-		zero: s.B.IsZero() && (s.B0 == nil || s.B0.IsZero())}
+		zero: s.B.IsZero() && (s.B0 == nil || s.B0.IsZero()), constantOnly: s.B.IsZero()}
 	if s.B0 != nil {
 		if cs.b0, err = s.B0.Float(env); err != nil {
 			return nil, err
@@ -277,6 +284,9 @@ func (c *CompiledSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
 	cur, prev, twoCos := trig(k0*s), trig((k0-dk)*s), 2*math.Cos(dk*s)
 	stop := stopRule{runs: 4}
 	tail = math.Inf(1)
+	if c.constantOnly { // no general term: the constant mode is the whole series
+		return sum, 0
+	}
 	k := k0
 	for n := n0; n < c.from+maxTerms; n++ {
 		b := c.coef(n)

@@ -182,6 +182,9 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 		m.store(parts, n)
 	}
 	sol.Series = parts
+	if sol.Free != "" {
+		sol.FreeMean = sectorFreeMean(s, sol, p)
+	}
 	sol.DataError += b.gap
 	sol.Sides = []Side{{Condition: arcCond, At: s.R.Text() + ", theta", AtLaTeX: "r=" + s.R.LaTeX(), Data: g, Trace: bu.Add(b.liftArc), DataText: gf.Text(), DataLaTeX: gf.LaTeX()}}
 	for _, name := range []string{"start", "end"} {
@@ -808,3 +811,50 @@ func (d Sector) Measures() Measures {
 }
 
 func (d Sector) integral(u series.Sum) (series.Coef, error) { return u.SectorIntegral(d.R, d.Alpha) }
+
+// sectorFreeMean is the value of the free constant that makes u's mean on
+// the arc zero: the closed parts' mean exactly (∫₀^α of their trace), the
+// series' and the quadrature's by Gauss–Legendre panels where parameters
+// have values (the eigenfunctions of mode n ≥ 1 have mean zero, but the
+// exceptional modes and a numeric part need not).
+func sectorFreeMean(d Sector, sol *Solution, p *posed) series.Coef {
+	closed := sol.Particular.Add(sol.Harmonic)
+	zero := series.Env{sol.Free: {}}
+	mean := series.Coef{}
+	if tr, err := closed.Trace(d.R); err == nil {
+		if tr, err = tr.Subst(zero); err == nil {
+			if in, err := tr.AngleIntegral(d.Alpha); err == nil {
+				if m, err := in.Div(d.Alpha); err == nil {
+					mean = m
+				}
+			}
+		}
+	}
+	env := series.Env{sol.Free: {}}
+	for k, v := range p.env {
+		env[k] = v
+	}
+	cs, err := sol.Series.U.Compile(env)
+	R, errR := d.R.Float(env)
+	alpha, errA := d.Alpha.Float(env)
+	if err != nil || errR != nil || errA != nil {
+		return mean.Neg()
+	}
+	rest := 0.0
+	for i := 0; i < 16; i++ {
+		a, b := alpha*float64(i)/16, alpha*float64(i+1)/16
+		for k, x := range legendreX {
+			th := (a+b)/2 + (b-a)/2*x
+			v := cs.At(R, th, 1e-14, CheckTerms).Value
+			if sol.Quadrature != nil {
+				q, _ := sol.Quadrature.At(R, th)
+				v += q
+			}
+			rest += (b - a) / 2 * legendreW[k] * v
+		}
+	}
+	if rest /= alpha; math.Abs(rest) > 1e-14 {
+		mean = mean.Add(decimal(rest))
+	}
+	return mean.Neg()
+}

@@ -281,7 +281,7 @@ func angleOf(s Sum) (m int, c Coef, ok bool) {
 			c = t.C
 		case t.K == 1 && t.M == 0 && t.L == 0 && t.power().Sign() == 0:
 			q, isRat := t.C.Rat()
-			if !isRat || !q.IsInt() || !q.Num().IsInt64() || q.Num().Int64() > 1<<20 || q.Num().Int64() < -(1<<20) {
+			if !isRat || !q.IsInt() || !q.Num().IsInt64() || q.Num().Int64() > 1<<40 || q.Num().Int64() < -(1<<40) {
 				return 0, Coef{}, false
 			}
 			m = int(q.Num().Int64())

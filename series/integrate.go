@@ -118,3 +118,24 @@ func (s Sum) SectorIntegral(radius, alpha Coef) (Coef, error) {
 	}
 	return total, nil
 }
+
+// AngleIntegral is ∫₀^α s dθ for a function of θ alone (a Trace): per term
+// ∫₀^α θ^k T(mθ) dθ, exactly where cos(mα) and sin(mα) are exact.
+func (s Sum) AngleIntegral(alpha Coef) (Coef, error) {
+	total := Coef{}
+	for _, t := range s.t {
+		if t.power().Sign() != 0 || t.L != 0 {
+			return Coef{}, errors.New("AngleIntegral takes a function of theta alone")
+		}
+		cs, sn, ok := unitCircle(alpha.MulRat(big.NewRat(int64(t.M), 1)))
+		if !ok {
+			return Coef{}, ErrAngle
+		}
+		ang, err := thetaMoment(t.K, t.Sin, IntCoef(int64(t.M)), alpha, cs, sn)
+		if err != nil {
+			return Coef{}, err
+		}
+		total = total.Add(t.C.Mul(ang))
+	}
+	return total, nil
+}

@@ -165,7 +165,7 @@ func traceTeX(s domain.Side) string {
 func (v *view) failedCheck() error {
 	for _, c := range v.Checks {
 		if c.Exact && c.Formula != "0" {
-			return fmt.Errorf("internal check failed: %s = %s", c.Name, c.Formula)
+			return &internalError{fmt.Sprintf("internal check failed: %s = %s (please report it with the command line)", c.Name, c.Formula)}
 		}
 	}
 	return nil

@@ -194,8 +194,12 @@ func (pr *problem) solve() (*domain.Solution, error) {
 		return sol, nil
 	}
 	if pr.fix == "" {
+		mean := sol.FreeMean.Text()
+		if sol.Numeric { // a decimal from numeric parts
+			mean = series.Const(sol.FreeMean).TextApprox()
+		}
 		sol.Notes = append(sol.Notes, fmt.Sprintf("%s = %s makes the mean of u on %s zero; numeric values use it (--fix \"u(r, theta) = v\" pins %s instead)",
-			sol.Free, sol.FreeMean.Text(), pr.domain.Sides()[0], sol.Free))
+			sol.Free, mean, pr.domain.Sides()[0], sol.Free))
 		pr.env[sol.Free] = sol.FreeMean
 		return sol, nil
 	}
@@ -203,13 +207,14 @@ func (pr *problem) solve() (*domain.Solution, error) {
 	if err != nil {
 		return nil, err
 	}
-	at, err := sol.U.Subst(series.Env{sol.Free: {}})
+	c, err := sol.FreeValue(r, th, v)
 	if err == nil {
-		var u0 series.Coef
-		if u0, err = at.At(r, th); err == nil {
-			c := v.Sub(u0)
+		if sol.IsClosed() {
 			sol.Notes = append(sol.Notes, fmt.Sprintf("%s = %s from --fix %s", sol.Free, c.Text(), pr.fix))
 			err = sol.Pin(c)
+		} else { // the series and the quadrature keep the symbol: numeric values take it from here
+			sol.Notes = append(sol.Notes, fmt.Sprintf("%s = %s from --fix %s (numeric values use it)", sol.Free, series.Const(c).TextApprox(), pr.fix))
+			pr.env[sol.Free] = c
 		}
 	}
 	if err != nil {

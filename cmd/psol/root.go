@@ -98,6 +98,10 @@ func exitStatus(err error) int {
 		noRule      *ansatz.NoRule
 		claimFailed *claimError
 	)
+	var internal *internalError
+	if errors.As(err, &internal) {
+		return 3
+	}
 	switch {
 	case errors.As(err, &unsolvable), errors.As(err, &unsupported), errors.As(err, &noRule), errors.As(err, &claimFailed):
 		return 1
@@ -110,6 +114,11 @@ func exitStatus(err error) int {
 	}
 	return 2 // cobra's own errors are about flags and arguments
 }
+
+// internalError is psol failing its own verification: a defect, exit 3.
+type internalError struct{ msg string }
+
+func (e *internalError) Error() string { return e.msg }
 
 // claimError is a failed verification (for psol check).
 type claimError struct{ msg string }
