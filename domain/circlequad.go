@@ -68,7 +68,7 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		traces[c.name] = traces[c.name].Add(series.NewSum(terms...))
 		sol.DataError += qerr
 	}
-	sol.Notes = append(sol.Notes, fmt.Sprintf("the source part %s has no closed form: its particular solution is by quadrature (FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r)", p.rest.Text(), q.Samples, q.Modes))
+	sol.Notes = append(sol.Notes, fmt.Sprintf("psol has no closed-form rule for the source part %s: its particular solution is by quadrature (FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r)", p.rest.Text(), q.Samples, q.Modes))
 	return nil
 }
 

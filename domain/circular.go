@@ -232,7 +232,7 @@ func harmonicModes(d circular, p *posed, sol *Solution, data map[string]series.S
 			}
 			b[i] = coefOf(data[c.name], m)
 		}
-		x, free, ok := solveLinear(a, b)
+		x, free, ok := series.SolveLinear(a, b)
 		if !ok && sol.Quadrature != nil {
 			// Data and a source integral by quadrature can agree only in
 			// decimals: a mismatch at that level is the quadrature's, not
@@ -247,7 +247,7 @@ func harmonicModes(d circular, p *posed, sol *Solution, data map[string]series.S
 			}
 			if gap, small := numericGap(b, scale, p.env); small {
 				b = make([]series.Coef, len(b))
-				x, free, ok = solveLinear(a, b)
+				x, free, ok = series.SolveLinear(a, b)
 				sol.DataError += gap
 			}
 		}

@@ -241,7 +241,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 	sol := &Solution{Domain: d, Source: p.f, Rect: parts, Rest: p.rest, stages: []stage{parts}}
 	if sq != nil {
 		sol.Numeric = true
-		note := fmt.Sprintf("the source part %s has no closed form: its particular solution is by quadrature (sine transform in x with %d samples, %d modes; Gauss–Legendre in y on %d panels)", rest.Text(), sq.Samples, sq.Modes, len(sq.Panels()))
+		note := fmt.Sprintf("psol has no closed-form rule for the source part %s: its particular solution is by quadrature (sine transform in x with %d samples, %d modes; Gauss–Legendre in y on %d panels)", rest.Text(), sq.Samples, sq.Modes, len(sq.Panels()))
 		if !sq.Converged {
 			note += fmt.Sprintf("; the sine series converges slowly (the source is rough in x): about %.1e is neglected", sq.Truncation)
 		}
@@ -475,7 +475,7 @@ func withCornerFit(up cart.Poly, d Rect, data map[string]sideData, conds map[str
 	if len(rows) == 0 {
 		return up
 	}
-	x, _, ok := solveLinear(rows, rhs)
+	x, _, ok := series.SolveLinear(rows, rhs)
 	if !ok {
 		return up
 	}

@@ -343,7 +343,7 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 	}
 	sol.Quadrature, sol.Rest, sol.Numeric = q, p.rest, true
 	sol.DataError += qerr + noise
-	note := fmt.Sprintf("the source part %s has no closed form: its particular solution is by quadrature (FFT of its extension over 4*alpha with %d samples, modes up to n = %d; Gauss–Legendre in r)", p.rest.Text(), q.Samples, (q.Modes-off)/2)
+	note := fmt.Sprintf("psol has no closed-form rule for the source part %s: its particular solution is by quadrature (FFT of its extension over 4*alpha with %d samples, modes up to n = %d; Gauss–Legendre in r)", p.rest.Text(), q.Samples, (q.Modes-off)/2)
 	if !q.Converged {
 		note += fmt.Sprintf("; the ray expansion converges slowly (the source does not vanish on a Dirichlet ray, or its slope on a Neumann ray): about %.1e is neglected", q.Truncation)
 	}
@@ -646,7 +646,7 @@ func rayAdapted(t series.Term, startD, endD bool, alpha series.Coef, fam series.
 		}
 		m, rhs = append(m, r), append(rhs, v.Neg())
 	}
-	x, _, ok := solveLinear(m, rhs)
+	x, _, ok := series.SolveLinear(m, rhs)
 	if !ok {
 		return series.Sum{}, false
 	}

@@ -48,7 +48,7 @@ func (o *particularOptions) run(w io.Writer, source string) error {
 	// A remainder of exponentials and sines of x and y: the Cartesian wave ansatz.
 	split := ansatz.SplitWaves(f.Rest, false)
 	if split.Rest != nil {
-		return &domain.Unsupported{Reason: "the source part " + split.Rest.Text() + " has no closed form (" + split.Err.Error() + "); psol solve takes it by quadrature on a given region"}
+		return &domain.Unsupported{Reason: "psol has no closed-form rule for the source part " + split.Rest.Text() + " (" + split.Err.Error() + "); psol solve takes it by quadrature on a given region"}
 	}
 	waves := split.Waves
 	exact := f.Exact.Add(split.Poly.Polar())

@@ -75,6 +75,15 @@ func (p Poly) Mul(q Poly) Poly {
 // Equal reports p = q.
 func (p Poly) Equal(q Poly) bool { return p.Sub(q).IsZero() }
 
+// Degree is the largest i + j of a term; −1 for the zero polynomial.
+func (p Poly) Degree() int {
+	d := -1
+	for _, t := range p.t {
+		d = max(d, t.i+t.j)
+	}
+	return d
+}
+
 // DX and DY are the partial derivatives.
 func (p Poly) DX() Poly {
 	var out []term

@@ -132,7 +132,7 @@ func (s Waves) Laplacian() Waves {
 
 // ErrResonant is Particular's answer for a wave that is itself harmonic
 // times a polynomial (α² + β² = γ² + δ² and αγ + βδ = 0, as e^x cos y).
-var ErrResonant = errors.New("the source is a harmonic exponential times a polynomial (as exp(x)*cos(y)): the wave ansatz does not close")
+var ErrResonant = errors.New("the source is a harmonic exponential times a polynomial (as exp(x)*cos(y)), and the raised-degree ansatz found no solution")
 
 // Particular solves Δu = w for a wave with a frequency or an exponent: u is
 // e^E[cos φ A + sin φ B] with
@@ -146,8 +146,8 @@ func (w Wave) Particular() (Wave, error) {
 	k := w.Alpha.Mul(w.Alpha).Add(w.Beta.Mul(w.Beta)).Sub(w.Gamma.Mul(w.Gamma)).Sub(w.Delta.Mul(w.Delta))
 	m := w.Alpha.Mul(w.Gamma).Add(w.Beta.Mul(w.Delta)).MulRat(big.NewRat(2, 1))
 	det := k.Mul(k).Add(m.Mul(m))
-	if det.IsZero() {
-		return Wave{}, ErrResonant
+	if det.IsZero() { // a harmonic wave: the polynomials go one degree up
+		return resonantParticular(w)
 	}
 	inv, err := series.IntCoef(1).Div(det)
 	if err != nil {

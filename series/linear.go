@@ -1,16 +1,14 @@
-package domain
+package series
 
-import "psol/series"
-
-// solveLinear solves the square system a·x = b exactly by Gaussian
+// SolveLinear solves the square system a·x = b exactly by Gaussian
 // elimination. A column with no pivot is a free unknown, set to 0 and
 // listed; ok is false when the system is inconsistent.
-func solveLinear(a [][]series.Coef, b []series.Coef) (x []series.Coef, free []int, ok bool) {
+func SolveLinear(a [][]Coef, b []Coef) (x []Coef, free []int, ok bool) {
 	n := len(a[0])
 	rows := len(a)
-	m := make([][]series.Coef, rows)
+	m := make([][]Coef, rows)
 	for i := range a {
-		m[i] = append(append([]series.Coef(nil), a[i]...), b[i])
+		m[i] = append(append([]Coef(nil), a[i]...), b[i])
 	}
 	pivotCol := make([]int, 0, n)
 	r := 0
@@ -47,7 +45,7 @@ func solveLinear(a [][]series.Coef, b []series.Coef) (x []series.Coef, free []in
 			return nil, nil, false
 		}
 	}
-	x = make([]series.Coef, n)
+	x = make([]Coef, n)
 	for i, c := range pivotCol {
 		x[c], _ = m[i][n].Div(m[i][c])
 	}
