@@ -17,6 +17,9 @@ func Equation(text string, env series.Env) (series.Field, error) {
 	if err != nil {
 		return series.Field{}, err
 	}
+	if lw.unknown, err = lw.unknownOf(st); err != nil {
+		return series.Field{}, err
+	}
 	if st.Side != nil {
 		return series.Field{}, lw.fail(st.Side.Pos, "a side name belongs in --bc, not in the equation")
 	}
@@ -39,7 +42,7 @@ func Equation(text string, env series.Env) (series.Field, error) {
 		return series.Field{}, lw.fail(st.Pos, "dn(u) belongs in boundary conditions, not in the equation")
 	}
 	if !v.u.IsZero() {
-		return series.Field{}, lw.fail(st.Pos, "u appears outside lap(u); psol solves Poisson's equation lap(u) = f only")
+		return series.Field{}, lw.fail(st.Pos, "%s appears outside lap(%s); psol solves Poisson's equation lap(u) = f only", lw.unk(), lw.unk())
 	}
 	if v.lap.IsZero() {
 		return series.Field{}, lw.fail(st.Pos, "missing lap(u): write the equation as c*lap(u) = f")
@@ -75,7 +78,7 @@ func (lw *lowerer) floating(st *statement, cond domain.Condition) (domain.Condit
 		return cond, false, nil
 	}
 	switch {
-	case bareName(st.Left) != "u":
+	case bareName(st.Left) != lw.unk():
 		return cond, true, lw.fail(st.Left.Pos, "a side at one unknown value is written u = const, flux = Q")
 	case !constant:
 		return cond, true, lw.fail(st.Also.Pos, "a second clause belongs only in u = const, flux = Q")
@@ -114,11 +117,117 @@ func bareName(c *choice) string {
 	return *u.Power.Base.Atom.Name
 }
 
+// Unknown is the name of the equation's unknown: the argument of its lap
+// (lap(T), ΔT), or u. Conditions, claims and --fix take it from here.
+func Unknown(equation string) string {
+	lw := &lowerer{label: "equation", input: equation}
+	st, err := lw.statement()
+	if err != nil {
+		return "u"
+	}
+	name, err := lw.unknownOf(st)
+	if err != nil {
+		return "u"
+	}
+	return name
+}
+
+// unknownOf finds the first lap(NAME) or ΔNAME; a name that is a variable,
+// a function or a reserved word cannot be the unknown.
+func (lw *lowerer) unknownOf(st *statement) (string, error) {
+	var found *atom
+	var walk func(c *choice)
+	walkAtom := func(a *atom) {
+		switch {
+		case a == nil || found != nil:
+		case a.Lap != nil:
+			found = a
+		case a.Call != nil && a.Call.Name == "lap" && len(a.Call.Args) == 1 && bareName(a.Call.Args[0]) != "":
+			found = a
+		case a.Call != nil:
+			for _, arg := range a.Call.Args {
+				walk(arg)
+			}
+		case a.Group != nil:
+			walk(a.Group)
+		}
+	}
+	var walkUnary func(u *unary)
+	walkUnary = func(u *unary) {
+		for ; u != nil && u.Inner != nil; u = u.Inner {
+		}
+		if u == nil || u.Power == nil {
+			return
+		}
+		if pr := u.Power.Base; pr.Atom != nil {
+			walkAtom(pr.Atom)
+		} else if pr.Times != nil {
+			walkAtom(pr.Times.Atom)
+		}
+	}
+	walk = func(c *choice) {
+		if c == nil || found != nil {
+			return
+		}
+		for _, a := range append([]*additive{c.Cond.Left}, restAdditives(c.Cond)...) {
+			for _, p := range append([]*product{a.Left}, restProducts(a)...) {
+				walkUnary(p.Left)
+				for _, m := range p.Rest {
+					walkUnary(m.Right)
+				}
+			}
+		}
+		walk(c.Then)
+		walk(c.Else)
+	}
+	walk(st.Left)
+	if st.Eq != nil {
+		walk(st.Eq.Right)
+	}
+	if found == nil {
+		return "u", nil
+	}
+	name := found.LapOf
+	if found.Call != nil {
+		name = bareName(found.Call.Args[0])
+	}
+	_, variable := variables[name]
+	_, word := reserved[name]
+	if variable || word || series.IsFunction(name) || name == "const" || name == "flux" {
+		return "", lw.fail(found.Pos, "%s cannot be the unknown: it is a coordinate, a function or a reserved word", name)
+	}
+	if _, given := lw.env[name]; given {
+		return "", lw.fail(found.Pos, "%s is the unknown here, and --let gives it a value", name)
+	}
+	return name, nil
+}
+
+func restAdditives(c *compare) []*additive {
+	var out []*additive
+	for _, t := range c.Rest {
+		out = append(out, t.Right)
+	}
+	return out
+}
+
+func restProducts(a *additive) []*product {
+	var out []*product
+	for _, t := range a.Rest {
+		out = append(out, t.Right)
+	}
+	return out
+}
+
 // Condition reads "[SIDE:] CONDITION" for a domain with the given sides.
 // Without SIDE, the condition's Side is the domain's only side, or "" on a
 // domain with several: the caller applies it to every side not named.
 func Condition(text string, sides []string, env series.Env) (domain.Condition, error) {
-	lw := &lowerer{label: "--bc", input: text, env: env, clauses: true}
+	return ConditionIn("u", text, sides, env)
+}
+
+// ConditionIn is Condition for an unknown with another name (see Unknown).
+func ConditionIn(unknown, text string, sides []string, env series.Env) (domain.Condition, error) {
+	lw := &lowerer{label: "--bc", input: text, env: env, clauses: true, unknown: unknown}
 	st, err := lw.statement()
 	if err != nil {
 		return domain.Condition{}, err
@@ -140,7 +249,7 @@ func Condition(text string, sides []string, env series.Env) (domain.Condition, e
 		return c, err
 	}
 	if st.Eq == nil {
-		return domain.Condition{}, lw.fail(st.Left.Pos, "a condition needs an = sign, as in u = g or dn(u) = g")
+		return domain.Condition{}, lw.fail(st.Left.Pos, "a condition needs an = sign, as in %s = g or dn(%s) = g", lw.unk(), lw.unk())
 	}
 	v, err := lw.choice(st.Left)
 	if err != nil {
@@ -152,7 +261,7 @@ func Condition(text string, sides []string, env series.Env) (domain.Condition, e
 	}
 	v = v.add(w.scale(series.IntCoef(-1)))
 	if !v.lap.IsZero() {
-		return domain.Condition{}, lw.fail(st.Pos, "lap(u) belongs in the equation, not in a boundary condition")
+		return domain.Condition{}, lw.fail(st.Pos, "lap(%s) belongs in the equation, not in a boundary condition", lw.unk())
 	}
 	// dn·∂u/∂n + u·u + f = 0.
 	lead := v.dn
@@ -166,7 +275,7 @@ func Condition(text string, sides []string, env series.Env) (domain.Condition, e
 		cond.Kind = domain.Dirichlet
 		lead = v.u
 	default:
-		return domain.Condition{}, lw.fail(st.Pos, "a condition must involve u or dn(u)")
+		return domain.Condition{}, lw.fail(st.Pos, "a condition must involve %s or dn(%s)", lw.unk(), lw.unk())
 	}
 	inv, _ := series.IntCoef(-1).Div(lead)
 	cond.G = v.f.Scale(inv)
@@ -185,7 +294,12 @@ func contains(list []string, s string) bool {
 // Expression reads a formula in r, θ, x, y and parameters, with no unknown;
 // "u = formula" is taken as the formula.
 func Expression(label, text string, env series.Env) (series.Field, error) {
-	lw := &lowerer{label: label, input: text, env: env}
+	return ExpressionIn("u", label, text, env)
+}
+
+// ExpressionIn is Expression for an unknown with another name (see Unknown).
+func ExpressionIn(unknown, label, text string, env series.Env) (series.Field, error) {
+	lw := &lowerer{label: label, input: text, env: env, unknown: unknown}
 	st, err := lw.statement()
 	if err != nil {
 		return series.Field{}, err
@@ -285,7 +399,12 @@ func Lengths(label, text string, n int, env series.Env) ([]series.Coef, error) {
 // Fix reads "u(R0, THETA0) = V": a value of u at a point given in polar
 // coordinates, used to pin a free additive constant.
 func Fix(text string, env series.Env) (r, theta, v series.Coef, err error) {
-	lw := &lowerer{label: "--fix", input: text, env: env}
+	return FixIn("u", text, env)
+}
+
+// FixIn is Fix for an unknown with another name (see Unknown).
+func FixIn(unknown, text string, env series.Env) (r, theta, v series.Coef, err error) {
+	lw := &lowerer{label: "--fix", input: text, env: env, unknown: unknown}
 	st, err := lw.statement()
 	if err != nil {
 		return
@@ -296,7 +415,7 @@ func Fix(text string, env series.Env) (r, theta, v series.Coef, err error) {
 		at.Power != nil && at.Power.Exp == nil && at.Power.Base.Atom != nil {
 		c = at.Power.Base.Atom.Call
 	}
-	if st.Side != nil || st.Eq == nil || c == nil || c.Name != "u" || len(c.Args) != 2 {
+	if st.Side != nil || st.Eq == nil || c == nil || c.Name != lw.unk() || len(c.Args) != 2 {
 		err = lw.fail(st.Pos, `write the pinned value as u(r, theta) = v, e.g. "u(0, 0) = 0"`)
 		return
 	}

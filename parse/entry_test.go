@@ -146,7 +146,8 @@ func TestBadInput(t *testing.T) {
 		{"lap(u) = (a^70)^20", 17, "exponent in the result would exceed"}, // a^1400 would not read back
 		{"lap(u) = r^999*r^2", 16, "exponent in the result would exceed"},
 		{"lap(u) = 1E0700800", 10, "beyond"}, // a leading 0 is decimal, not octal
-		{"lap(v) = 1", 5, "applies to u only"},
+		{"lap(v) = dn(u)", 13, "applies to the unknown v only"},
+		{"lap(theta) = 1", 1, "cannot be the unknown"},
 		{"lap(u) = 1e5000", 10, "beyond"},
 		{"lap(u) = 2 $ 3", 12, "unexpected"},
 		{"lap(u) = theta < x ? 1 : 0", 18, "compares theta with constants"},

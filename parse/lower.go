@@ -20,6 +20,15 @@ type lowerer struct {
 	label, input string
 	env          series.Env
 	clauses      bool // a second clause ("u = const, flux = Q") is allowed: conditions only
+	unknown      string // the unknown's name, "u" unless the equation names another (lap(T))
+}
+
+// unk is the unknown's name.
+func (lw *lowerer) unk() string {
+	if lw.unknown == "" {
+		return "u"
+	}
+	return lw.unknown
 }
 
 func (lw *lowerer) fail(pos lexer.Position, format string, args ...any) error {
@@ -61,7 +70,7 @@ func (lw *lowerer) choice(c *choice) (value, error) {
 		return value{}, err
 	}
 	if a.hasUnknown() || b.hasUnknown() {
-		return value{}, lw.fail(c.Pos, "u may not appear inside cond ? a : b")
+		return value{}, lw.fail(c.Pos, "%s may not appear inside cond ? a : b", lw.unk())
 	}
 	if numeric {
 		return lw.numericChoice(c, a, b)
@@ -88,7 +97,7 @@ func (lw *lowerer) numericChoice(c *choice, a, b value) (value, error) {
 			return value{}, err
 		}
 		if v.hasUnknown() {
-			return value{}, lw.fail(sd.Pos, "u may not appear in a condition")
+			return value{}, lw.fail(sd.Pos, "%s may not appear in a condition", lw.unk())
 		}
 		fields = append(fields, v.f)
 	}
@@ -219,17 +228,17 @@ func (lw *lowerer) product(p *product) (value, error) {
 func (lw *lowerer) mul(v value, vpos lexer.Position, w value, wpos lexer.Position) (value, error) {
 	switch {
 	case v.hasUnknown() && w.hasUnknown():
-		return value{}, lw.fail(wpos, "u appears in a product with itself; the problem must be linear")
+		return value{}, lw.fail(wpos, "%s appears in a product with itself; the problem must be linear", lw.unk())
 	case v.hasUnknown():
 		c, ok := constant(w)
 		if !ok {
-			return value{}, lw.fail(wpos, "the factor of %s must be a constant", unknownName(v))
+			return value{}, lw.fail(wpos, "the factor of %s must be a constant", lw.unknownName(v))
 		}
 		return v.scale(c), nil
 	case w.hasUnknown():
 		c, ok := constant(v)
 		if !ok {
-			return value{}, lw.fail(vpos, "the factor of %s must be a constant", unknownName(w))
+			return value{}, lw.fail(vpos, "the factor of %s must be a constant", lw.unknownName(w))
 		}
 		return w.scale(c), nil
 	}
@@ -251,24 +260,24 @@ func (lw *lowerer) printable(v value, pos lexer.Position) (value, error) {
 	return v, nil
 }
 
-func unknownName(v value) string {
+func (lw *lowerer) unknownName(v value) string {
 	switch {
 	case !v.lap.IsZero():
-		return "lap(u)"
+		return "lap(" + lw.unk() + ")"
 	case !v.dn.IsZero():
-		return "dn(u)"
+		return "dn(" + lw.unk() + ")"
 	}
-	return "u"
+	return lw.unk()
 }
 
 func (lw *lowerer) div(v, w value, wpos lexer.Position) (value, error) {
 	if w.hasUnknown() {
-		return value{}, lw.fail(wpos, "cannot divide by %s", unknownName(w))
+		return value{}, lw.fail(wpos, "cannot divide by %s", lw.unknownName(w))
 	}
 	if v.hasUnknown() {
 		c, ok := constant(w)
 		if !ok {
-			return value{}, lw.fail(wpos, "the factor of %s must be a constant", unknownName(v))
+			return value{}, lw.fail(wpos, "the factor of %s must be a constant", lw.unknownName(v))
 		}
 		inv, err := series.IntCoef(1).Div(c)
 		if err != nil {
@@ -308,7 +317,7 @@ func (lw *lowerer) raise(v value, vpos lexer.Position, exp *unary) (value, error
 		return value{}, err
 	}
 	if v.hasUnknown() || e.hasUnknown() {
-		return value{}, lw.fail(vpos, "u may not be raised to a power; the problem must be linear")
+		return value{}, lw.fail(vpos, "%s may not be raised to a power; the problem must be linear", lw.unk())
 	}
 	c, ok := constant(e)
 	q, isRat := c.Rat()
@@ -413,8 +422,8 @@ func (lw *lowerer) atom(a *atom) (value, error) {
 	case a.Group != nil:
 		return lw.choice(a.Group)
 	case a.Lap != nil:
-		if a.LapOf != "u" {
-			return value{}, lw.fail(a.Pos, "%s applies to u only", *a.Lap)
+		if a.LapOf != lw.unk() {
+			return value{}, lw.fail(a.Pos, "%s applies to the unknown %s only", *a.Lap, lw.unk())
 		}
 		return value{lap: series.IntCoef(1)}, nil
 	case a.Call != nil:
@@ -426,7 +435,7 @@ func (lw *lowerer) atom(a *atom) (value, error) {
 	if s, ok := variables[name]; ok {
 		return value{f: series.ExactField(s)}, nil
 	}
-	if name == "u" {
+	if name == lw.unk() {
 		return value{u: series.IntCoef(1)}, nil
 	}
 	if msg, ok := reserved[name]; ok {
@@ -448,8 +457,8 @@ func (lw *lowerer) call(c *call) (value, error) {
 	arg := c.Args[0]
 	switch c.Name {
 	case "lap", "dn":
-		if !isU(arg) {
-			return value{}, lw.fail(arg.Pos, "%s applies to u only", c.Name)
+		if bareName(arg) != lw.unk() {
+			return value{}, lw.fail(arg.Pos, "%s applies to the unknown %s only", c.Name, lw.unk())
 		}
 		if c.Name == "lap" {
 			return value{lap: series.IntCoef(1)}, nil
@@ -464,7 +473,7 @@ func (lw *lowerer) call(c *call) (value, error) {
 		return value{}, err
 	}
 	if v.hasUnknown() {
-		return value{}, lw.fail(arg.Pos, "u may not appear inside %s(...); the problem must be linear", c.Name)
+		return value{}, lw.fail(arg.Pos, "%s may not appear inside %s(...); the problem must be linear", lw.unk(), c.Name)
 	}
 	f, err := series.Apply(c.Name, v.f)
 	if err != nil {
@@ -484,17 +493,6 @@ func knownFunctions() []string {
 	return names
 }
 
-func isU(c *choice) bool {
-	if c.Then != nil || len(c.Cond.Rest) > 0 || len(c.Cond.Left.Rest) > 0 {
-		return false
-	}
-	p := c.Cond.Left.Left
-	if len(p.Rest) > 0 || p.Left.Power == nil || p.Left.Power.Exp != nil {
-		return false
-	}
-	at := p.Left.Power.Base.Atom
-	return at != nil && at.Name != nil && *at.Name == "u"
-}
 
 func (lw *lowerer) series(s *sumNode) (value, error) {
 	if s.Index != series.Index {
@@ -534,7 +532,7 @@ func (lw *lowerer) series(s *sumNode) (value, error) {
 		return value{}, err
 	}
 	if body.hasUnknown() {
-		return value{}, lw.fail(s.Body.Pos, "u may not appear inside a sum")
+		return value{}, lw.fail(s.Body.Pos, "%s may not appear inside a sum", lw.unk())
 	}
 	return value{f: series.SeriesField(from, skip, body.f)}, nil
 }

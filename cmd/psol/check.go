@@ -67,7 +67,7 @@ func (o *checkOptions) run(w io.Writer, equation string) error {
 	if err != nil {
 		return err
 	}
-	claim, err := parse.Expression("--claim", o.claim, pr.env)
+	claim, err := parse.ExpressionIn(pr.unknown, "--claim", o.claim, pr.env)
 	if err != nil {
 		return err
 	}

@@ -58,6 +58,9 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	if v.Points == nil {
 		v.Points = []point{}
 	}
+	if pr.unknown != "" && pr.unknown != "u" {
+		v.Warnings = append(v.Warnings, "the output writes the unknown "+pr.unknown+" as u (and its particular part as u_p)")
+	}
 	f := series.ExactField(sol.Source)
 	if sol.Rest != nil { // the part the quadrature took
 		f = f.Add(series.Field{Rest: sol.Rest})

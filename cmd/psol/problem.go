@@ -4,6 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"math/big"
+	"regexp"
+	"sort"
 	"strings"
 
 	"github.com/spf13/pflag"
@@ -65,6 +67,8 @@ func (p *problemFlags) bind(f *pflag.FlagSet) {
 // problem is a posed problem, lowered to series values.
 type problem struct {
 	equation string
+	unknown  string   // the unknown's name in the input (u unless the equation says lap(T))
+	inputs   []string // the texts that may name parameters: equation, region, conditions, --fix, --let
 	fix      string
 	tol      float64
 	terms    int // the cap on series terms at points and on grids
@@ -108,6 +112,7 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 		return nil, err
 	}
 	pr := &problem{equation: equation, env: env, fix: p.fix}
+	pr.inputs = append(append(append([]string{equation, p.fix}, p.bcs...), p.lets...), p.regionTexts()...)
 	var chosen []string
 	for _, k := range regionKinds {
 		text := *p.regions[k.flag]
@@ -135,7 +140,8 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 	if pr.source, err = parse.Equation(equation, env); err != nil {
 		return nil, err
 	}
-	if pr.conds, err = conditions(p.bcs, pr.domain.Sides(), env); err != nil {
+	pr.unknown = parse.Unknown(equation)
+	if pr.conds, err = conditions(pr.unknown, p.bcs, pr.domain.Sides(), env); err != nil {
 		return nil, err
 	}
 	return pr, nil
@@ -143,12 +149,12 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 
 // conditions lowers the --bc flags: one per side, and at most one without a
 // side name, which applies to every side no other --bc names.
-func conditions(bcs []string, sides []string, env series.Env) ([]domain.Condition, error) {
+func conditions(unknown string, bcs []string, sides []string, env series.Env) ([]domain.Condition, error) {
 	var conds []domain.Condition
 	var general *domain.Condition
 	given := map[string]string{}
 	for _, bc := range bcs {
-		c, err := parse.Condition(bc, sides, env)
+		c, err := parse.ConditionIn(unknown, bc, sides, env)
 		if err != nil {
 			return nil, err
 		}
@@ -203,7 +209,7 @@ func (pr *problem) solve() (*domain.Solution, error) {
 		pr.env[sol.Free] = sol.FreeMean
 		return sol, nil
 	}
-	r, th, v, err := parse.Fix(pr.fix, pr.env)
+	r, th, v, err := parse.FixIn(pr.unknown, pr.fix, pr.env)
 	if err != nil {
 		return nil, err
 	}
@@ -221,4 +227,33 @@ func (pr *problem) solve() (*domain.Solution, error) {
 		return nil, &parse.Error{Label: "--fix", Input: pr.fix, Msg: err.Error()}
 	}
 	return sol, nil
+}
+
+func (p *problemFlags) regionTexts() []string {
+	var out []string
+	for _, k := range regionKinds {
+		out = append(out, *p.regions[k.flag])
+	}
+	return out
+}
+
+var identifier = regexp.MustCompile(`[\p{L}_][\p{L}\p{N}_]*`)
+
+// unusedLets are the --let names that no input text mentions (besides their
+// own binding), e.g. a misspelt parameter: they are likely a mistake.
+func (pr *problem) unusedLets(more ...string) []string {
+	count := map[string]int{}
+	for _, text := range append(append([]string(nil), pr.inputs...), more...) {
+		for _, id := range identifier.FindAllString(text, -1) {
+			count[id]++
+		}
+	}
+	var out []string
+	for name := range pr.env {
+		if count[name] <= 1 { // its own "name=value" only
+			out = append(out, name)
+		}
+	}
+	sort.Strings(out)
+	return out
 }

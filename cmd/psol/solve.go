@@ -113,6 +113,9 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		return writeCode(w, o.lang, pr, sol, terms)
 	}
 	v := newView(pr, sol, pts, o.steps)
+	for _, name := range pr.unusedLets(o.at...) {
+		v.Warnings = append(v.Warnings, fmt.Sprintf("--let %s: the problem never uses %s (a misspelt name?)", name, name))
+	}
 	if o.report || len(o.quantity) > 0 {
 		rep, err := sol.Figures()
 		if err != nil {
