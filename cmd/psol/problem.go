@@ -69,6 +69,7 @@ type problem struct {
 	equation string
 	unknown  string   // the unknown's name in the input (u unless the equation says lap(T))
 	inputs   []string // the texts that may name parameters: equation, region, conditions, --fix, --let
+	lets     []string // the names --let gives (the solve may add a free constant to env)
 	fix      string
 	tol      float64
 	terms    int // the cap on series terms at points and on grids
@@ -113,6 +114,9 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 	}
 	pr := &problem{equation: equation, env: env, fix: p.fix}
 	pr.inputs = append(append(append([]string{equation, p.fix}, p.bcs...), p.lets...), p.regionTexts()...)
+	for name := range env {
+		pr.lets = append(pr.lets, name)
+	}
 	var chosen []string
 	for _, k := range regionKinds {
 		text := *p.regions[k.flag]
@@ -249,7 +253,7 @@ func (pr *problem) unusedLets(more ...string) []string {
 		}
 	}
 	var out []string
-	for name := range pr.env {
+	for _, name := range pr.lets {
 		if count[name] <= 1 { // its own "name=value" only
 			out = append(out, name)
 		}
