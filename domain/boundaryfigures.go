@@ -90,13 +90,16 @@ func gradientPeak(shape Shape, ev *Evaluator, inside func(x, y float64) bool) Gr
 		return math.Hypot(dn, dt), [2]float64{px, py}
 	}
 	best := GradientPeak{Value: -1}
+	// better asks for a real gain: values equal to rounding (a circle's rim
+	// in a symmetric problem) keep the first point, on every CPU.
+	better := func(g float64) bool { return g > best.Value+1e-11*math.Abs(best.Value) }
 	var bestSide, bestT = -1, 0.0
 	const n = 128
 	for k, side := range shape.Sides {
 		margin := 4 * h / math.Max(side.Length, h)
 		for j := 0; j < n; j++ {
 			t := margin + (1-2*margin)*(float64(j)+0.5)/n
-			if g, p := onSide(side, t); g > best.Value {
+			if g, p := onSide(side, t); better(g) {
 				best, bestSide, bestT = GradientPeak{Value: g, At: p}, k, t
 			}
 		}
@@ -110,7 +113,7 @@ func gradientPeak(shape Shape, ev *Evaluator, inside func(x, y float64) bool) Gr
 				continue
 			}
 			gx, gy := (u(x+h, y)-u(x-h, y))/(2*h), (u(x, y+h)-u(x, y-h))/(2*h)
-			if g := math.Hypot(gx, gy); g > best.Value {
+			if g := math.Hypot(gx, gy); better(g) {
 				best, bestSide = GradientPeak{Value: g, At: [2]float64{x, y}}, -1
 			}
 		}
@@ -125,7 +128,7 @@ func gradientPeak(shape Shape, ev *Evaluator, inside func(x, y float64) bool) Gr
 				if t < margin || t > 1-margin {
 					continue
 				}
-				if g, p := onSide(side, t); g > best.Value {
+				if g, p := onSide(side, t); better(g) {
 					best.Value, best.At, bestT, moved = g, p, t, true
 				}
 			}

@@ -19,6 +19,9 @@ type Figure struct {
 	Description string       // the definition and its reading, one line
 	At          *[2]float64  // (x, y) where a peak is attained
 	Warnings    []string     // what the figure assumes that the problem does not give
+	// Digits are the significant digits the value carries, where fewer than
+	// printing's 12 (a figure from finite differences); 0 means 12.
+	Digits int
 }
 
 // Quantity is a set of figures of one trade, computed from a solution and
@@ -270,7 +273,7 @@ func torsionFigures(s *Solution, rep *Report) ([]Figure, error) {
 		sv, err := series.IntCoef(-2).Div(c)
 		if err == nil {
 			if k, err := sv.Float(s.Options.Env); err == nil {
-				tau := Figure{Name: "tau_max", Value: k * g.Value, At: &g.At,
+				tau := Figure{Name: "tau_max", Value: k * g.Value, At: &g.At, Digits: 9,
 					Description: "peak shear stress over G*theta: the largest |grad u| for lap(u) = -2 (on the boundary, where the stress function is steepest)"}
 				if g.Corner {
 					tau.Warnings = append(tau.Warnings, "the largest value is at a re-entrant corner, where the stress is unbounded in this model: the figure is where sampling stopped")

@@ -234,7 +234,7 @@ func renderText(w io.Writer, v *view) error {
 			line(w, "report", "net outward flux = source integral = "+r.FluxText+" (divergence theorem)")
 		}
 		if g := r.Gradient; g != nil {
-			line(w, "report", fmt.Sprintf("largest |grad u| = %.10g at x = %.6g, y = %.6g", g.Value, g.At[0], g.At[1])+g.note)
+			line(w, "report", fmt.Sprintf("largest |grad u| = %.9g at x = %.6g, y = %.6g", g.Value, g.At[0], g.At[1])+g.note)
 		}
 		if r.Note != "" {
 			line(w, "report", r.Note)

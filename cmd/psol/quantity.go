@@ -17,6 +17,7 @@ type figureOut struct {
 	Description string      `json:"description"`
 	At          *[2]float64 `json:"at,omitempty"` // (x, y) for a peak
 	Warnings    []string    `json:"warnings,omitempty"`
+	digits      int
 }
 
 // quantities computes each named preset's figures (domain.Quantities holds
@@ -56,7 +57,7 @@ func known(name string) bool {
 }
 
 func newFigureOut(f domain.Figure) figureOut {
-	out := figureOut{Name: f.Name, Description: f.Description, At: f.At, Warnings: f.Warnings}
+	out := figureOut{Name: f.Name, Description: f.Description, At: f.At, Warnings: f.Warnings, digits: f.Digits}
 	if !math.IsNaN(f.Value) && !math.IsInf(f.Value, 0) {
 		v := f.Value
 		out.Value = &v
@@ -75,6 +76,8 @@ func (f figureOut) text() string {
 		value = f.Exact
 	case f.Value == nil:
 		value = "(needs parameter values)"
+	case f.digits > 0 && f.Exact == "":
+		value = fmt.Sprintf("%.*g", f.digits, *f.Value)
 	default:
 		value = figure(f.Exact, *f.Value)
 	}
