@@ -104,8 +104,25 @@ func CheckClaim(d Domain, f series.Field, conds []Condition, claim series.Field,
 	return out, nil
 }
 
-// xyRegion is a region whose fields print in x and y (the rectangle).
-type xyRegion interface{ printsInXY() bool }
+// xyRegion is a region whose fields print, and whose points are tested, in
+// x and y (the rectangle).
+type xyRegion interface {
+	printsInXY() bool
+	containsXY(x, y float64, env series.Env) (bool, error)
+}
+
+// ContainsXY reports whether the point (x, y) lies in the closed region: in
+// x and y where the region is Cartesian, through r and θ ∈ [0, 2π) otherwise.
+func ContainsXY(d Domain, x, y float64, env series.Env) (bool, error) {
+	if xy, ok := d.(xyRegion); ok {
+		return xy.containsXY(x, y, env)
+	}
+	th := math.Atan2(y, x)
+	if th < 0 {
+		th += 2 * math.Pi
+	}
+	return d.Contains(math.Hypot(x, y), th, env)
+}
 
 // FieldText is a closed field as the region writes it: in x and y on the
 // rectangle, in r and θ elsewhere.

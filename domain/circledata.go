@@ -40,6 +40,15 @@ func circleData(d circular, c circle, cond Condition, gf series.Field, tr series
 		samples = 512
 	}
 	nf := series.FourierFFTUpTo(func(th float64) float64 { return cf.At(R, th) }, p.tol, samples)
+	if nf.NonFinite {
+		return series.Sum{}, unsolvable("boundary data on %s are not a finite number at theta = %.6g (undefined there, or beyond float64's range)", c.name, nf.At)
+	}
+	if !nf.Met && nf.Tail > 0.5*nf.Peak {
+		return series.Sum{}, unsolvable("boundary data on %s are too rough for %d samples: the neglected part of their Fourier series (about %.1e) is comparable with the data themselves (up to %.1e), so no answer would be worth printing (give the data as exact modes or pieces, or smoother)", c.name, nf.Samples, nf.Tail, nf.Peak)
+	}
+	if nf.Aliased {
+		return series.Sum{}, unsolvable("boundary data on %s vary faster in theta than %d samples resolve: between the samples the data differ from every band-limited fit, so any answer would be aliased (give the data as exact modes, or smoother)", c.name, nf.Samples)
+	}
 	sol.Numeric = true
 	sol.DataError += nf.Tail
 	sol.Notes = append(sol.Notes, fmt.Sprintf("boundary data on %s: %s", c.name, nf.Describe()))

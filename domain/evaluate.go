@@ -10,6 +10,7 @@ import (
 // Evaluator evaluates a solution at points in float64, summing any series to tol.
 type Evaluator struct {
 	closed  series.Compiled
+	xy      *cart.CompiledPoly // a rectangle's closed part, evaluated in x and y
 	ser     *series.CompiledSeriesSum
 	tol     float64
 	max     int
@@ -180,7 +181,11 @@ func (e *Evaluator) atXYTail(x, y float64) (u, tail float64) {
 	if v, ok := e.walls.on(x, y); ok {
 		return v, 0
 	}
-	u = e.closed.At(math.Hypot(x, y), math.Atan2(y, x)) + e.waves.At(x, y)
+	if e.xy != nil {
+		u = e.xy.At(x, y) + e.waves.At(x, y)
+	} else {
+		u = e.closed.At(math.Hypot(x, y), math.Atan2(y, x)) + e.waves.At(x, y)
+	}
 	if e.sq != nil {
 		v, t := e.sq.At(x, y)
 		u, tail = u+v, tail+t
@@ -230,5 +235,21 @@ func (rp *RectParts) attach(e *Evaluator, s *Solution, env series.Env) error {
 		}
 	}
 	e.sq = rp.Quadrature
-	return nil
+	e.xy, err = rp.Particular.Compile(env)
+	return err
+}
+
+// AtXY is u(x, y) with its error estimate and the series terms summed: a
+// rectangle evaluates in x and y throughout (accurate at any size and
+// aspect), other regions through r and θ ∈ [0, 2π).
+func (e *Evaluator) AtXY(x, y float64) (u, errEst float64, terms int) {
+	if e.walls != nil {
+		u, tail := e.atXYTail(x, y)
+		return u, tail + e.dataErr, 0
+	}
+	th := math.Atan2(y, x)
+	if th < 0 {
+		th += 2 * math.Pi
+	}
+	return e.At(math.Hypot(x, y), th)
 }

@@ -31,6 +31,18 @@ func (d Rect) Contains(r, theta float64, env series.Env) (bool, error) {
 	return x >= -eps*L && x <= L*(1+eps) && y >= -eps*H && y <= H*(1+eps), err
 }
 
+// containsXY is Contains for a point given in x and y, with no trip through
+// polar coordinates (which loses the short coordinate of a long rectangle).
+func (d Rect) containsXY(x, y float64, env series.Env) (bool, error) {
+	v, err := floats(env, d.L, d.H)
+	if err != nil {
+		return false, err
+	}
+	L, H := v[0], v[1]
+	const eps = 1e-12
+	return x >= -eps*L && x <= L*(1+eps) && y >= -eps*H && y <= H*(1+eps), nil
+}
+
 // RectParts are a rectangle's stages in x and y.
 type RectParts struct {
 	Particular cart.Poly
@@ -233,7 +245,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 			return nil, err
 		}
 	}
-	up := withCornerFit(cart.Particular(f, d.L), d, data, p.conds, p.env, wt)
+	up := withCornerFit(d.particular(f, p.env), d, data, p.conds, p.env, wt)
 	parts := &RectParts{Particular: up, Waves: waves, SourceWaves: waveSource, Quadrature: sq, QuadratureSource: rest, ParticularNumeric: wt != nil, d: d}
 	for _, g := range data {
 		parts.ParticularNumeric = parts.ParticularNumeric || g.poly == nil // the corner fit takes decimals of such data
@@ -774,3 +786,18 @@ func (d Rect) integral(u series.Sum) (series.Coef, error) {
 }
 
 func (Rect) printsInXY() bool { return true }
+
+// particular is the polynomial particular solution, vanishing on the two
+// long sides when the side lengths are known (on x = 0 and x = L otherwise):
+// the side series that correct it then sit on the short sides, where their
+// terms decay like e^(−nπ·distance/short side), and stay accurate at any
+// aspect ratio (across the long side they would need ~L/H terms and cancel
+// a particular solution of size L²).
+func (d Rect) particular(f cart.Poly, env series.Env) cart.Poly {
+	L, errL := d.L.Float(env)
+	H, errH := d.H.Float(env)
+	if errL == nil && errH == nil && L > H {
+		return cart.ParticularAlongY(f, d.H)
+	}
+	return cart.Particular(f, d.L)
+}

@@ -228,7 +228,8 @@ func TestRoundTrip(t *testing.T) {
 }
 
 func FuzzParse(f *testing.F) {
-	for _, s := range []string{"lap(u) = 6r*sin(theta)", "x^2*y", "-k*lap(u) = q", "dn(u) + h*u = g", "rim: u = 4sin(3theta)", "(a+b)^3/(1+r^2)", "theta < pi ? 1 : 0", "2e5*exp(-r^2)", "∇²u = 1"} {
+	for _, s := range []string{"lap(u) = 6r*sin(theta)", "x^2*y", "-k*lap(u) = q", "dn(u) + h*u = g", "rim: u = 4sin(3theta)", "(a+b)^3/(1+r^2)", "theta < pi ? 1 : 0", "2e5*exp(-r^2)", "∇²u = 1",
+		"inner: u = const, flux = 2*pi*a^2", "lap(T) = -q/k", "ΔT = x", "u(0, pi/2) = 1"} {
 		f.Add(s)
 	}
 	f.Fuzz(func(t *testing.T, in string) {
@@ -239,6 +240,8 @@ func FuzzParse(f *testing.F) {
 			}
 		}
 		_, _ = Condition(in, []string{"rim"}, series.Env{"a": series.IntCoef(2)})
+		_, _ = ConditionIn(Unknown(in), in, []string{"inner", "outer"}, nil)
+		_, _, _, _ = Fix(in, nil)
 		_, _ = Bindings("fuzz", in, nil)
 	})
 }

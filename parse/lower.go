@@ -438,6 +438,9 @@ func (lw *lowerer) atom(a *atom) (value, error) {
 	if name == lw.unk() {
 		return value{u: series.IntCoef(1)}, nil
 	}
+	if name == "u" { // the output's name for the unknown, whatever the input calls it
+		return value{}, lw.fail(a.Pos, "u cannot be a parameter: psol writes the unknown (here %s) as u", lw.unk())
+	}
 	if msg, ok := reserved[name]; ok {
 		return value{}, lw.fail(a.Pos, "%s", msg)
 	}

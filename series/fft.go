@@ -16,6 +16,16 @@ type NumericFourier struct {
 	Modes   int     // the highest mode kept
 	Tail    float64 // an estimate of the neglected part's size: Σ |dropped coefficients|
 	Met     bool    // whether the tail fell below the tolerance
+	// Aliased marks data whose spectrum looked resolved on the samples but
+	// whose values between them disagree with the kept modes: content above
+	// the band folded onto lower modes. The coefficients are then not the data's.
+	Aliased bool
+	// NonFinite marks data that are NaN or infinite at the angle At: the
+	// data are undefined there, or beyond float64's range.
+	NonFinite bool
+	At        float64
+	// Peak is the largest |sample| of the data.
+	Peak float64
 }
 
 // MaxSamples bounds the FFT size.
@@ -34,7 +44,15 @@ func FourierFFTUpTo(g func(theta float64) float64, tol float64, maxSamples int) 
 	for n := 64; n <= maxSamples; n *= 2 {
 		x := make([]float64, n)
 		for j := range x {
-			x[j] = g(2 * math.Pi * float64(j) / float64(n))
+			th := 2 * math.Pi * float64(j) / float64(n)
+			if x[j] = g(th); math.IsNaN(x[j]) || math.IsInf(x[j], 0) {
+				out.NonFinite, out.At = true, th
+				return out
+			}
+		}
+		peak := 0.0
+		for _, v := range x {
+			peak = math.Max(peak, math.Abs(v))
 		}
 		c := fourier.NewFFT(n).Coefficients(nil, x)
 		half := n / 2
@@ -67,9 +85,15 @@ func FourierFFTUpTo(g func(theta float64) float64, tol float64, maxSamples int) 
 				terms = append(terms, Term{C: decimalCoef(c), M: k, Sin: i == 1})
 			}
 		}
-		out = NumericFourier{Sum: NewSum(terms...), Samples: n, Modes: out.Modes, Tail: tail, Met: top <= tol*math.Max(scale, 1e-300)}
+		out = NumericFourier{Sum: NewSum(terms...), Samples: n, Modes: out.Modes, Tail: tail, Met: top <= tol*math.Max(scale, 1e-300), Peak: peak}
 		if out.Met {
-			break
+			// A converged-looking spectrum may be aliased (cos(2^41 θ) sampled
+			// at 64 points is 1): compare with the data between the samples.
+			out.Aliased = offGridMismatch(g, a, b, keep) > 1e-3*scale+1e3*tol*scale
+			if !out.Aliased {
+				break
+			}
+			out.Met = false
 		}
 	}
 	return out
@@ -101,4 +125,21 @@ func (s Sum) TextApprox() string {
 // LaTeXApprox is TextApprox as LaTeX.
 func (s Sum) LaTeXApprox() string {
 	return printTerms(s.t, style{latex: true, mul: " ", decimal: true})
+}
+
+// offGridMismatch is the largest |g(θ) − Σ_{k<keep} a_k cos kθ + b_k sin kθ|
+// over 17 angles that no power-of-two grid hits (the golden-ratio sequence):
+// an aliasing check that needs no more samples than the FFT's.
+func offGridMismatch(g func(theta float64) float64, a, b []float64, keep int) float64 {
+	worst := 0.0
+	const phi = 0.6180339887498949
+	for j := 1; j <= 17; j++ {
+		th := 2 * math.Pi * math.Mod(float64(j)*phi, 1)
+		v := 0.0
+		for k := 0; k < keep && k < len(a); k++ {
+			v += a[k]*math.Cos(float64(k)*th) + b[k]*math.Sin(float64(k)*th)
+		}
+		worst = math.Max(worst, math.Abs(g(th)-v))
+	}
+	return worst
 }

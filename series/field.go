@@ -181,9 +181,21 @@ func (f Field) Pow(q *big.Rat) (Field, error) {
 // unaryFloat holds the float64 form of each function a remainder may contain.
 var unaryFloat = map[string]func(float64) float64{
 	"sin": math.Sin, "cos": math.Cos, "tan": math.Tan, "exp": math.Exp,
-	"ln": math.Log, "log": math.Log, "sqrt": math.Sqrt, "abs": math.Abs,
+	"ln": func(x float64) float64 { return math.Log(nonNegative(x)) }, "log": func(x float64) float64 { return math.Log(nonNegative(x)) },
+	"sqrt": func(x float64) float64 { return math.Sqrt(nonNegative(x)) }, "abs": math.Abs,
 	"sinh": math.Sinh, "cosh": math.Cosh, "tanh": math.Tanh,
 	"atan": math.Atan, // for closed forms such as the Poisson integral of a step
+}
+
+// nonNegative takes a rounding-level negative argument to 0: a piece of
+// abs(f) is ±f, nonnegative exactly but not always in float64 at its end
+// (sin(3θ) at θ = π/3 is −1e-16), and sqrt or log of it must not be NaN.
+// A negative beyond rounding stays negative: a domain error is reported.
+func nonNegative(x float64) float64 {
+	if x < 0 && x > -1e-13 {
+		return 0
+	}
+	return x
 }
 
 // IsFunction reports whether name is a function psol knows.
@@ -571,7 +583,12 @@ var binaryFloat = map[string]func(a, b float64) float64{
 	"+": func(a, b float64) float64 { return a + b },
 	"*": func(a, b float64) float64 { return a * b },
 	"/": func(a, b float64) float64 { return a / b },
-	"^": math.Pow,
+	"^": func(a, b float64) float64 {
+		if b != math.Trunc(b) { // a fractional power: as sqrt, of a rounding-level negative
+			a = nonNegative(a)
+		}
+		return math.Pow(a, b)
+	},
 }
 
 func compileExpr(e *Expr, env Env) (evalFunc, error) {

@@ -202,8 +202,11 @@ func renderText(w io.Writer, v *view) error {
 	line(w, "check", checkSummary(v.Checks)+v.checkScope)
 	for _, p := range v.Points {
 		at := fmt.Sprintf("r = %.10g, theta = %.10g (x = %.10g, y = %.10g): u = %.12g", p.R, p.Theta, p.X, p.Y, p.U)
-		if p.Terms > 0 {
+		switch {
+		case p.Terms > 0:
 			at += fmt.Sprintf(" (series summed to n = %d, tail estimate %.1e)", p.Terms, p.Error)
+		case p.Error > 1e-10*math.Max(1, math.Abs(p.U)): // numeric parts: the estimate matters
+			at += fmt.Sprintf(" (error estimate %.1e)", p.Error)
 		}
 		line(w, "point", at)
 	}

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"fmt"
 	"math"
 
 	"psol/domain"
@@ -18,6 +19,7 @@ type point struct {
 	Error float64 `json:"error"`           // truncation estimate; 0 for closed forms
 	Terms int     `json:"terms,omitempty"` // series terms summed
 	Input string  `json:"input"`
+	inXY  bool    // given as x and y: evaluated in them
 }
 
 // readPoint reads "r=…,theta=…" or "x=…,y=…".
@@ -31,6 +33,9 @@ func readPoint(text string, env series.Env) (point, error) {
 		v, err := b.Value.Float(env)
 		if err != nil {
 			return point{}, usagef("--at %s: %w", text, err)
+		}
+		if math.IsNaN(v) || math.IsInf(v, 0) {
+			return point{}, &parse.Error{Label: "--at", Input: text, Msg: fmt.Sprintf("%s is beyond float64's range", b.Name)}
 		}
 		name := b.Name
 		if name == "θ" {
@@ -48,7 +53,7 @@ func readPoint(text string, env series.Env) (point, error) {
 		p.R, p.Theta = vals["r"], vals["theta"]
 		p.X, p.Y = p.R*math.Cos(p.Theta), p.R*math.Sin(p.Theta)
 	case len(vals) == 2 && hasX && hasY:
-		p.X, p.Y = vals["x"], vals["y"]
+		p.X, p.Y, p.inXY = vals["x"], vals["y"], true
 		p.R, p.Theta = math.Hypot(p.X, p.Y), math.Atan2(p.Y, p.X)
 		if p.Theta < 0 {
 			p.Theta += 2 * math.Pi
@@ -73,15 +78,27 @@ func evaluate(sol *domain.Solution, pts []point) error {
 		return usagef("--at: %w", err)
 	}
 	for i := range pts {
-		in, err := sol.Domain.Contains(pts[i].R, pts[i].Theta, env)
+		var in bool
+		if pts[i].inXY {
+			in, err = domain.ContainsXY(sol.Domain, pts[i].X, pts[i].Y, env)
+		} else {
+			in, err = sol.Domain.Contains(pts[i].R, pts[i].Theta, env)
+		}
 		if err != nil {
 			return usagef("--at: %w", err)
 		}
 		if !in {
 			return &parse.Error{Label: "--at", Input: pts[i].Input, Msg: "the point lies outside " + sol.Domain.Describe()}
 		}
-		pts[i].U, pts[i].Error, pts[i].Terms = ev.At(pts[i].R, pts[i].Theta)
+		if pts[i].inXY {
+			pts[i].U, pts[i].Error, pts[i].Terms = ev.AtXY(pts[i].X, pts[i].Y)
+		} else {
+			pts[i].U, pts[i].Error, pts[i].Terms = ev.At(pts[i].R, pts[i].Theta)
+		}
 		pts[i].Error += sol.DataError // the maximum principle bounds the data's error inside
+		if math.IsNaN(pts[i].U) || math.IsInf(pts[i].U, 0) || math.IsNaN(pts[i].Error) || math.IsInf(pts[i].Error, 0) {
+			return &domain.Unsolvable{Reason: fmt.Sprintf("u at %s is not a finite number (u = %g, error %g): the solution there is beyond float64's range, or the source or data are undefined in the region; the exact form, where printed, still holds", pts[i].Input, pts[i].U, pts[i].Error)}
+		}
 	}
 	return nil
 }

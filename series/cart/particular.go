@@ -33,3 +33,11 @@ func vanishAtEnds(F Poly, L series.Coef) Poly {
 	inv, _ := series.IntCoef(1).Div(L)
 	return F.Sub(f0).Sub(X.Mul(fL.Sub(f0)).Scale(inv))
 }
+
+// ParticularAlongY is Particular with the roles of x and y exchanged: u_p
+// vanishes on y = 0 and y = H. A long rectangle takes its particular
+// solution across its short side, so that the side series left to correct
+// it live on the short sides and decay fast along the long one.
+func ParticularAlongY(f Poly, H series.Coef) Poly {
+	return Particular(f.SwapXY(), H).SwapXY()
+}

@@ -75,6 +75,15 @@ func (p Poly) Mul(q Poly) Poly {
 // Equal reports p = q.
 func (p Poly) Equal(q Poly) bool { return p.Sub(q).IsZero() }
 
+// SwapXY is p with x and y exchanged.
+func (p Poly) SwapXY() Poly {
+	ts := make([]term, len(p.t))
+	for k, t := range p.t {
+		ts[k] = term{t.j, t.i, t.c}
+	}
+	return newPoly(ts)
+}
+
 // Degree is the largest i + j of a term; −1 for the zero polynomial.
 func (p Poly) Degree() int {
 	d := -1
@@ -215,6 +224,41 @@ func (p Poly) print(st polyStyle) string {
 		}
 	}
 	return b.String()
+}
+
+// CompiledPoly evaluates a polynomial in float64, in x and y (never through
+// r and θ, which lose every digit far from the origin).
+type CompiledPoly struct {
+	c    []float64
+	i, j []int
+}
+
+// Compile fixes the parameters' values.
+func (p Poly) Compile(env series.Env) (*CompiledPoly, error) {
+	out := &CompiledPoly{}
+	for _, t := range p.t {
+		c, err := t.c.Float(env)
+		if err != nil {
+			return nil, err
+		}
+		out.c, out.i, out.j = append(out.c, c), append(out.i, t.i), append(out.j, t.j)
+	}
+	return out, nil
+}
+
+// At is the polynomial at (x, y).
+func (c *CompiledPoly) At(x, y float64) float64 {
+	sum := 0.0
+	for k, v := range c.c {
+		for n := 0; n < c.i[k]; n++ {
+			v *= x
+		}
+		for n := 0; n < c.j[k]; n++ {
+			v *= y
+		}
+		sum += v
+	}
+	return sum
 }
 
 // Eval is p at (x, y) with parameters from env.
