@@ -44,6 +44,9 @@ const (
 	PictureTerms = 1 << 12 // a picture resolves about three digits
 	ReportTerms  = 1 << 13 // extremes and integrals sample thousands of points: a few digits at the boundary
 	CheckTerms   = 1 << 14 // sampled side checks of numeric parameters
+	// MaxTerms bounds what a user may ask for (--terms): a series that needs
+	// more at a point is reported with its tail, not summed for minutes.
+	MaxTerms = 1 << 22
 )
 
 // Evaluator compiles the solution with its own parameters and tolerance,

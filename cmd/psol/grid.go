@@ -1,12 +1,10 @@
 package main
 
 import (
-	"bufio"
 	"fmt"
 	"io"
 	"math"
 	"os"
-	"path/filepath"
 	"strconv"
 
 	"psol/domain"
@@ -40,32 +38,8 @@ func gridAxes(box *domain.PolarBox, n int) (rs, ths []float64) {
 	return rs, ths
 }
 
-// writeAtomically writes through a temporary file in the target's folder and
-// renames it into place only when fill succeeds, so a failed run never
-// truncates an existing file.
-func writeAtomically(path string, fill func(io.Writer) error) error {
-	tmp, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp*")
-	if err != nil {
-		return err
-	}
-	defer os.Remove(tmp.Name()) // a no-op after the rename
-	bw := bufio.NewWriter(tmp)
-	if err := fill(bw); err != nil {
-		tmp.Close()
-		return err
-	}
-	if err := bw.Flush(); err != nil {
-		tmp.Close()
-		return err
-	}
-	if err := tmp.Close(); err != nil {
-		return err
-	}
-	return os.Rename(tmp.Name(), path)
-}
-
 // writeGrid evaluates u on the grid and writes CSV: r,theta,x,y,u,error.
-func writeGrid(path string, sol *domain.Solution, n int, progress io.Writer) error {
+func writeGrid(files *stagedFiles, path string, sol *domain.Solution, n int, progress io.Writer) error {
 	env := sol.Options.Env
 	ev, err := sol.Evaluator(sol.Options.Terms)
 	if err != nil {
@@ -76,11 +50,11 @@ func writeGrid(path string, sol *domain.Solution, n int, progress io.Writer) err
 		return usagef("--grid: %w", err)
 	}
 	if shape.Polar == nil {
-		return writeCartesianGrid(path, shape.Box, ev, n)
+		return writeCartesianGrid(files, path, shape.Box, ev, n)
 	}
 	rs, ths := gridAxes(shape.Polar, n)
 	u, errs := ev.Grid(rs, ths)
-	return writeAtomically(path, func(w io.Writer) error {
+	return files.stage(path, func(w io.Writer) error {
 		fmt.Fprintln(w, "r,theta,x,y,u,error")
 		var line []byte
 		for i, r := range rs {
@@ -122,14 +96,14 @@ func terminal(w io.Writer) bool {
 }
 
 // writeCartesianGrid writes u on an N×N Cartesian grid over the region's box: x,y,u,error.
-func writeCartesianGrid(path string, box domain.Box, ev *domain.Evaluator, n int) error {
-	return writeAtomically(path, func(w io.Writer) error {
+func writeCartesianGrid(files *stagedFiles, path string, box domain.Box, ev *domain.Evaluator, n int) error {
+	return files.stage(path, func(w io.Writer) error {
 		fmt.Fprintln(w, "x,y,u,error")
 		var line []byte
 		for i := 0; i < n; i++ {
 			for j := 0; j < n; j++ {
 				x, y := box.X0+(box.X1-box.X0)*float64(i)/float64(n-1), box.Y0+(box.Y1-box.Y0)*float64(j)/float64(n-1)
-				u, e, _ := ev.At(math.Hypot(x, y), math.Atan2(y, x))
+				u, e, _ := ev.AtXY(x, y)
 				line = line[:0]
 				for k, v := range [4]float64{x, y, u, e} {
 					if k > 0 {

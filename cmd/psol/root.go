@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"strings"
 
 	"github.com/spf13/cobra"
 
@@ -63,19 +64,25 @@ func errorText(err error) string {
 	return msg
 }
 
-// protectNegatives keeps arguments such as "-k*lap(u) = q" or "-1" from
-// being read as flags: psol has no one-letter flags but -h, so a leading
-// space (which the parser ignores) marks them as values.
+// protectNegatives keeps arguments such as "-k*lap(u) = q" from being read
+// as flags: psol has no one-letter flags but -h, so a leading space (which
+// the parser ignores) marks them as values. A value right after a flag that
+// takes one ("--tol -1") is the flag's already, and stays as it is, so that
+// the flag's own check can name the allowed range.
 func protectNegatives(args []string) []string {
 	out := make([]string, len(args))
 	for i, a := range args {
-		if len(a) > 1 && a[0] == '-' && a[1] != '-' && a != "-h" {
+		afterFlag := i > 0 && strings.HasPrefix(args[i-1], "--") && !strings.Contains(args[i-1], "=") && !boolFlags[strings.TrimPrefix(args[i-1], "--")]
+		if len(a) > 1 && a[0] == '-' && a[1] != '-' && a != "-h" && !afterFlag {
 			a = " " + a
 		}
 		out[i] = a
 	}
 	return out
 }
+
+// boolFlags are the flags that take no value.
+var boolFlags = map[string]bool{"report": true, "steps": true, "help": true}
 
 // usageError marks bad input found outside the parser (flags, missing sides).
 type usageError struct {
@@ -101,6 +108,10 @@ func exitStatus(err error) int {
 	var internal *internalError
 	if errors.As(err, &internal) {
 		return 3
+	}
+	var output *outputError
+	if errors.As(err, &output) {
+		return 4
 	}
 	switch {
 	case errors.As(err, &unsolvable), errors.As(err, &unsupported), errors.As(err, &noRule), errors.As(err, &claimFailed):

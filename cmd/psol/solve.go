@@ -1,6 +1,7 @@
 package main
 
 import (
+	"bytes"
 	"fmt"
 	"io"
 	"strings"
@@ -8,6 +9,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"psol/domain"
+	"psol/series"
 )
 
 type solveOptions struct {
@@ -24,6 +26,8 @@ type solveOptions struct {
 	stderr   io.Writer
 	plot     string
 	quantity []string
+	// set records flags given explicitly (even as an empty string).
+	gridSet, csvSet, plotSet bool
 }
 
 func newSolveCmd() *cobra.Command {
@@ -36,6 +40,8 @@ func newSolveCmd() *cobra.Command {
 		Args: cobra.ExactArgs(1),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			o.stderr = cmd.ErrOrStderr()
+			f := cmd.Flags()
+			o.gridSet, o.csvSet, o.plotSet = f.Changed("grid"), f.Changed("csv"), f.Changed("plot")
 			return o.run(cmd.OutOrStdout(), args[0])
 		},
 	}
@@ -60,17 +66,14 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	if !ok && o.format != "code" {
 		return usagef("--format %q: choose text, latex, json or code", o.format)
 	}
+	if err := o.validate(); err != nil {
+		return err
+	}
 	pr, err := o.pose(equation)
 	if err != nil {
 		return err
 	}
 	pr.tol, pr.terms = o.tol, o.terms
-	if (o.grid > 0) != (o.csv != "") {
-		return usagef("--grid N and --csv FILE go together")
-	}
-	if o.grid == 1 || o.grid > 4000 {
-		return usagef("--grid %d: choose 2 to 4000 points a side", o.grid)
-	}
 	var pts []point
 	for _, a := range o.at {
 		p, err := readPoint(a, pr.env)
@@ -86,13 +89,14 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	if err := evaluate(sol, pts); err != nil {
 		return err
 	}
+	// Every output is made before any reaches its place: the files are
+	// staged, stdout is buffered, and both are committed only on success.
+	files := &stagedFiles{}
+	defer files.abort()
 	if o.plot != "" {
-		format, err := plotFormat(o.plot)
-		if err != nil {
-			return err
-		}
+		format, _ := plotFormat(o.plot)
 		title := "lap(u) = " + pr.source.Text() + " on " + pr.domain.Describe()
-		if err := writeAtomically(o.plot, func(w io.Writer) error { return plotSolution(w, format, title, sol) }); err != nil {
+		if err := files.stage(o.plot, func(w io.Writer) error { return plotSolution(w, format, title, sol) }); err != nil {
 			return err
 		}
 	}
@@ -101,16 +105,20 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		if terminal(o.stderr) {
 			progress = o.stderr
 		}
-		if err := writeGrid(o.csv, sol, o.grid, progress); err != nil {
+		if err := writeGrid(files, o.csv, sol, o.grid, progress); err != nil {
 			return err
 		}
 	}
+	var out bytes.Buffer
 	if o.format == "code" {
 		terms := codeTerms
 		if o.terms != 100000 {
 			terms = o.terms
 		}
-		return writeCode(w, o.lang, pr, sol, terms)
+		if err := writeCode(&out, o.lang, pr, sol, terms); err != nil {
+			return err
+		}
+		return finish(w, &out, files, nil)
 	}
 	v := newView(pr, sol, pts, o.steps)
 	for _, name := range pr.unusedLets(o.at...) {
@@ -134,11 +142,64 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 			v.Warnings = append(v.Warnings, fmt.Sprintf("the figures are exact, with %s as symbols; numbers and peaks need values (--let %s=...)", strings.Join(rep.Open, ", "), strings.Join(rep.Open, "=...,")))
 		}
 	}
-	if err := v.failedCheck(); err != nil {
-		render(w, v)
+	if err := render(&out, v); err != nil {
+		return &outputError{err}
+	}
+	if err := v.failedCheck(); err != nil { // show what was computed, keep the files as they were
+		files.abort()
+		return finish(w, &out, files, err)
+	}
+	return finish(w, &out, files, nil)
+}
+
+// finish commits the staged files, then writes the buffered output; a
+// write that fails (a full disk) is an output error, exit 4. failure, if
+// set, is the run's own error, returned after the output is shown.
+func finish(w io.Writer, out *bytes.Buffer, files *stagedFiles, failure error) error {
+	if err := files.commit(); err != nil {
 		return err
 	}
-	return render(w, v)
+	if _, err := w.Write(out.Bytes()); err != nil {
+		return &outputError{fmt.Errorf("cannot write the output: %w", err)}
+	}
+	return failure
+}
+
+// validate checks every flag's value before any work: a bad one is bad
+// input (exit 2) and must not cost a solve or touch a file.
+func (o *solveOptions) validate() error {
+	switch {
+	case (o.grid != 0 || o.gridSet) != (o.csv != "" || o.csvSet):
+		return usagef("--grid N and --csv FILE go together")
+	case o.gridSet && (o.grid < 2 || o.grid > 4000):
+		return usagef("--grid %d: choose 2 to 4000 points a side", o.grid)
+	case o.csvSet && o.csv == "":
+		return usagef("--csv needs a file name")
+	case o.plotSet && o.plot == "":
+		return usagef("--plot needs a file name ending in .png or .svg")
+	case !(o.tol > 0 && o.tol < 1):
+		return usagef("--tol %g: choose a tolerance between 0 and 1 (exclusive), e.g. 1e-12", o.tol)
+	case o.terms < 1 || o.terms > domain.MaxTerms:
+		return usagef("--terms %d: choose 1 to %d series terms", o.terms, domain.MaxTerms)
+	}
+	if o.plot != "" {
+		if _, err := plotFormat(o.plot); err != nil {
+			return err
+		}
+	}
+	if o.format == "code" {
+		if _, ok := series.Langs[o.lang]; !ok {
+			return usagef("--lang %q: choose go, c or python", o.lang)
+		}
+	}
+	for _, q := range o.quantity {
+		for _, n := range strings.Split(q, ",") {
+			if !known(strings.TrimSpace(n)) {
+				return usagef("--quantity %q: choose %s", strings.TrimSpace(n), strings.Join(domain.QuantityNames(), ", "))
+			}
+		}
+	}
+	return nil
 }
 
 // quantityHelp lists the presets from the library's table.
