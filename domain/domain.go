@@ -184,6 +184,11 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 		}
 		p.conds[c.Side] = c
 	}
+	for _, c := range conds {
+		if fieldHasSeries(c.G) {
+			return nil, unsupported("boundary data on %s given as an infinite series are not sampled (each of thousands of samples would sum the series, and the sum's tail would go unmeasured): give the data in closed form, or as a finite sum of modes", c.Side)
+		}
+	}
 	if _, circles := d.(circular); !circles {
 		for _, c := range conds {
 			if c.Kind == Floating {
@@ -323,4 +328,18 @@ func (s *Solution) StepLines() []string {
 		lines = append(lines, modeStep(r.m, r.basis, r.x))
 	}
 	return lines
+}
+
+// fieldHasSeries reports an infinite series anywhere in a field's
+// remainder or pieces.
+func fieldHasSeries(f series.Field) bool {
+	if f.Rest != nil && f.Rest.HasSeries() {
+		return true
+	}
+	for _, p := range f.Pieces {
+		if fieldHasSeries(p.Value) {
+			return true
+		}
+	}
+	return false
 }

@@ -59,6 +59,9 @@ func (lw *lowerer) statement() (*statement, error) {
 	if strings.TrimSpace(lw.input) == "" {
 		return nil, &Error{Label: lw.label, Input: lw.input, Msg: "empty input"}
 	}
+	if len(lw.input) > MaxInput {
+		return nil, &Error{Label: lw.label, Input: lw.input[:64] + "…", Offset: 64, Msg: fmt.Sprintf("the input is %d characters long; psol reads at most %d", len(lw.input), MaxInput)}
+	}
 	st, err := statementParser.ParseString("", lw.input)
 	if err != nil {
 		return nil, lw.wrapParse(err)

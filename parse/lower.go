@@ -20,6 +20,7 @@ type lowerer struct {
 	label, input string
 	env          series.Env
 	clauses      bool // a second clause ("u = const, flux = Q") is allowed: conditions only
+	work         int  // term products done so far (see MaxWork)
 	unknown      string // the unknown's name, "u" unless the equation names another (lap(T))
 }
 
@@ -244,6 +245,9 @@ func (lw *lowerer) mul(v value, vpos lexer.Position, w value, wpos lexer.Positio
 	}
 	if v.f.Exact.Size()*w.f.Exact.Size() > MaxSize {
 		return value{}, lw.fail(wpos, "the expanded expression would exceed %d terms", MaxSize)
+	}
+	if lw.work += v.f.Exact.Size() * w.f.Exact.Size(); lw.work > MaxWork {
+		return value{}, lw.fail(wpos, "expanding the expression would take more than %d term products (the work budget); write repeated factors as a power", MaxWork)
 	}
 	if v.f.Exact.Bits()+w.f.Exact.Bits() > MaxBits {
 		return value{}, lw.fail(wpos, "a number in the product would exceed %d bits", MaxBits)

@@ -2,6 +2,7 @@ package series
 
 import (
 	"errors"
+	"fmt"
 	"math"
 	"math/big"
 	"sort"
@@ -105,15 +106,47 @@ func liftPieces(f, g Field, op func(a, b Field) (Field, error)) (Field, error) {
 
 // mapPieces applies a unary operation piece by piece.
 func mapPieces(f Field, op func(Field) (Field, error)) (Field, error) {
-	out := make([]Piece, len(f.Pieces))
-	for i, p := range f.Pieces {
+	out := make([]Piece, 0, len(f.Pieces))
+	for _, p := range f.Pieces {
 		v, err := op(p.Value)
 		if err != nil {
 			return Field{}, err
 		}
-		out[i] = Piece{p.From, p.To, v}
+		if !v.IsPiecewise() {
+			out = append(out, Piece{p.From, p.To, v})
+			continue
+		}
+		// op split the piece again (abs of a piece): keep the sub-pieces'
+		// parts inside this piece, so that pieces stay one level deep and
+		// their number grows with the breaks, not exponentially with nesting.
+		for _, q := range v.Pieces {
+			from, to := maxRat(p.From, q.From), minRat(p.To, q.To)
+			if from.Cmp(to) < 0 {
+				out = append(out, Piece{from, to, q.Value})
+			}
+		}
+	}
+	if len(out) > MaxPieces {
+		return Field{}, fmt.Errorf("the expression splits into more than %d pieces in theta", MaxPieces)
 	}
 	return Field{Pieces: merge(out)}, nil
+}
+
+// MaxPieces bounds the pieces in θ of one field: a work budget.
+const MaxPieces = 1024
+
+func maxRat(a, b *big.Rat) *big.Rat {
+	if a.Cmp(b) >= 0 {
+		return a
+	}
+	return b
+}
+
+func minRat(a, b *big.Rat) *big.Rat {
+	if a.Cmp(b) <= 0 {
+		return a
+	}
+	return b
 }
 
 // IsPiecewise reports a field given by pieces in θ.

@@ -45,6 +45,9 @@ func (o *particularOptions) run(w io.Writer, source string) error {
 	if err != nil {
 		return err
 	}
+	if f.IsPiecewise() || f.Rest.HasChoice() { // abs(x) is r*abs(cos(theta)): pieces in theta
+		return &domain.Unsupported{Reason: "psol has no closed-form rule for the source " + f.Text() + ", which is given piece by piece in theta (abs and cond ? a : b split it); psol solve takes it by quadrature on a given region"}
+	}
 	// A remainder of exponentials and sines of x and y: the Cartesian wave ansatz.
 	split := ansatz.SplitWaves(f.Rest, false)
 	if split.Rest != nil {

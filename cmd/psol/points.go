@@ -96,6 +96,9 @@ func evaluate(sol *domain.Solution, pts []point) error {
 			pts[i].U, pts[i].Error, pts[i].Terms = ev.At(pts[i].R, pts[i].Theta)
 		}
 		pts[i].Error += sol.DataError // the maximum principle bounds the data's error inside
+		if e := pts[i].Error; e > 0.5*math.Abs(pts[i].U) && e > 1e-6 { // an estimate the size of the value: no answer
+			return &domain.Unsolvable{Reason: fmt.Sprintf("at %s psol finds u = %.6g but cannot vouch for it: the error estimate %.2g is not small against it (a source or data singular, or too rough, for the numeric parts); psol prints no value it cannot stand behind", pts[i].Input, pts[i].U, e)}
+		}
 		if math.IsNaN(pts[i].U) || math.IsInf(pts[i].U, 0) || math.IsNaN(pts[i].Error) || math.IsInf(pts[i].Error, 0) {
 			return &domain.Unsolvable{Reason: fmt.Sprintf("u at %s is not a finite number (u = %g, error %g): the solution there is beyond float64's range, or the source or data are undefined in the region; the exact form, where printed, still holds", pts[i].Input, pts[i].U, pts[i].Error)}
 		}
