@@ -278,3 +278,22 @@ func TestExpressionEquation(t *testing.T) {
 		}
 	}
 }
+
+// The caret falls under the offending character on a terminal: control
+// characters are shown one cell wide, wide characters take two cells.
+func TestCaretColumns(t *testing.T) {
+	for _, c := range []struct{ in, quoted, caret string }{
+		{"lap(u)\t= 1 $", "lap(u)→= 1 $", "           ^"},
+		{"lap(u) = 數 + $", "lap(u) = 數 + $", "              ^"},
+		{"lap(u) = 1\n$", "lap(u) = 1↵$", "           ^"},
+	} {
+		_, err := Equation(c.in, nil)
+		if err == nil {
+			t.Fatalf("%q parsed", c.in)
+		}
+		lines := strings.Split(err.Error(), "\n")
+		if len(lines) != 3 || lines[1] != "    "+c.quoted || lines[2] != "    "+c.caret {
+			t.Errorf("%q:\n%s\nwant the quote %q and the caret %q", c.in, err, c.quoted, c.caret)
+		}
+	}
+}

@@ -45,6 +45,8 @@ func (lw *lowerer) wrapParse(err error) error {
 		if strings.Contains(msg, "invalid input text") {
 			msg = "unexpected character"
 		}
+		// The grammar's node names mean nothing to a user.
+		msg = strings.NewReplacer(`expected Choice ")"`, `expected an expression or ")"`, "expected Choice", "expected an expression", "Choice", "an expression").Replace(msg)
 		return &Error{Label: lw.label, Input: lw.input, Offset: pe.Position().Offset, Msg: msg}
 	}
 	return &Error{Label: lw.label, Input: lw.input, Msg: err.Error()}
