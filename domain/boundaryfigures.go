@@ -45,13 +45,14 @@ func sideFluxes(shape Shape, ev *Evaluator) []SideFlux {
 	u := pointValue(ev)
 	h := shape.step()
 	var out []SideFlux
+	panels := 16
 	for _, side := range shape.Sides {
 		total := 0.0
-		for i := 0; i < 16; i++ {
-			a, b := float64(i)/16, float64(i+1)/16
+		for i := 0; i < panels; i++ {
+			a, b := float64(i)/float64(panels), float64(i+1)/float64(panels)
 			for k, x := range legendreX {
 				px, py, nx, ny := side.At((a+b)/2 + (b-a)/2*x)
-				dn := -inward(func(s float64) float64 { return u(px-s*nx, py-s*ny) }, h)
+				dn := -inward(inwardLine(shape, ev, u, px, py, nx, ny), h)
 				total += (b - a) / 2 * legendreW[k] * side.Length * dn
 			}
 		}
@@ -82,7 +83,7 @@ func gradientPeak(shape Shape, ev *Evaluator, inside func(x, y float64) bool) Gr
 	h := shape.step()
 	onSide := func(side SidePath, t float64) (float64, [2]float64) {
 		px, py, nx, ny := side.At(t)
-		dn := -inward(func(s float64) float64 { return u(px-s*nx, py-s*ny) }, h)
+		dn := -inward(inwardLine(shape, ev, u, px, py, nx, ny), h)
 		// Along the side, one step inward keeps both points in the region.
 		qx, qy := px-h*nx, py-h*ny
 		tx, ty := -ny, nx
@@ -94,34 +95,59 @@ func gradientPeak(shape Shape, ev *Evaluator, inside func(x, y float64) bool) Gr
 	// in a symmetric problem) keep the first point, on every CPU.
 	better := func(g float64) bool { return g > best.Value+1e-11*math.Abs(best.Value) }
 	var bestSide, bestT = -1, 0.0
-	const n = 128
+	n := 128
+	if ev.costly() {
+		n = 16 // a radius costs a mode sum; the refinement finds the peak between samples
+	}
 	for k, side := range shape.Sides {
 		margin := 4 * h / math.Max(side.Length, h)
 		for j := 0; j < n; j++ {
-			t := margin + (1-2*margin)*(float64(j)+0.5)/n
+			t := margin + (1-2*margin)*(float64(j)+0.5)/float64(n)
 			if g, p := onSide(side, t); better(g) {
 				best, bestSide, bestT = GradientPeak{Value: g, At: p}, k, t
 			}
 		}
 	}
-	// Inside, on a 64 × 64 grid over the box, points whose stencil is inside.
-	box := shape.Box
-	for i := 1; i < 64 && inside != nil; i++ {
-		for j := 1; j < 64; j++ {
-			x, y := box.X0+(box.X1-box.X0)*float64(i)/64, box.Y0+(box.Y1-box.Y0)*float64(j)/64
-			if !inside(x+h, y) || !inside(x-h, y) || !inside(x, y+h) || !inside(x, y-h) {
-				continue
+	// Inside: a polar region on rings (their points share radii, which a
+	// numeric particular solution evaluates once a radius), a rectangle on
+	// a 64 × 64 grid; points whose stencil is inside.
+	if p := shape.Polar; p != nil && inside != nil && ev.walls == nil {
+		at := func(r, th float64) float64 { v, _, _ := ev.At(r, th); return v }
+		rmax := p.Reach()
+		for i := 0; i < 24; i++ {
+			r := p.RMin + (rmax-p.RMin)*(float64(i)+0.5)/24
+			k := h / r
+			for j := 0; j < 48; j++ {
+				th := p.Span * (float64(j) + 0.5) / 48
+				if !p.FullTurn && (th-k < 0 || th+k > p.Span) || r-h < p.RMin || r+h > rmax {
+					continue
+				}
+				gr := (at(r+h, th) - at(r-h, th)) / (2 * h)
+				gt := (at(r, th+k) - at(r, th-k)) / (2 * h)
+				if g := math.Hypot(gr, gt); better(g) {
+					best, bestSide = GradientPeak{Value: g, At: [2]float64{r * math.Cos(th), r * math.Sin(th)}}, -1
+				}
 			}
-			gx, gy := (u(x+h, y)-u(x-h, y))/(2*h), (u(x, y+h)-u(x, y-h))/(2*h)
-			if g := math.Hypot(gx, gy); better(g) {
-				best, bestSide = GradientPeak{Value: g, At: [2]float64{x, y}}, -1
+		}
+	} else if inside != nil {
+		box := shape.Box
+		for i := 1; i < 64; i++ {
+			for j := 1; j < 64; j++ {
+				x, y := box.X0+(box.X1-box.X0)*float64(i)/64, box.Y0+(box.Y1-box.Y0)*float64(j)/64
+				if !inside(x+h, y) || !inside(x-h, y) || !inside(x, y+h) || !inside(x, y-h) {
+					continue
+				}
+				gx, gy := (u(x+h, y)-u(x-h, y))/(2*h), (u(x, y+h)-u(x, y-h))/(2*h)
+				if g := math.Hypot(gx, gy); better(g) {
+					best, bestSide = GradientPeak{Value: g, At: [2]float64{x, y}}, -1
+				}
 			}
 		}
 	}
 	if bestSide >= 0 { // refine along the side
 		side := shape.Sides[bestSide]
 		margin := 4 * h / math.Max(side.Length, h)
-		dt := 1.0 / n
+		dt := 1.0 / float64(n)
 		for it := 0; it < 40 && dt > 1e-10; it++ {
 			moved := false
 			for _, t := range []float64{bestT - dt, bestT + dt} {
@@ -137,7 +163,7 @@ func gradientPeak(shape Shape, ev *Evaluator, inside func(x, y float64) bool) Gr
 			}
 		}
 	}
-	best.Corner = nearReentrantCorner(shape, best.At, 4/float64(n))
+	best.Corner = nearReentrantCorner(shape, best.At, 4/128.0)
 	return best
 }
 
@@ -159,4 +185,37 @@ func nearReentrantCorner(shape Shape, p [2]float64, frac float64) bool {
 		}
 	}
 	return false
+}
+
+// costly reports an evaluator with a numeric particular solution, whose
+// every new radius (or ordinate) costs a sum over its modes and panels.
+func (e *Evaluator) costly() bool { return e.quad != nil || e.sq != nil }
+
+// inwardLine is u at distance s inward from the boundary point p along the
+// normal. In a polar region it steps in r and θ (s·n_r, s·n_θ/r), so that
+// the points off a ray share its radius, and those off an arc share theirs:
+// a numeric particular solution then computes one radius, not one a point.
+// The path differs from the straight normal by O(s²), which the one-sided
+// difference (exact for quadratics) does not see.
+func inwardLine(shape Shape, ev *Evaluator, u func(x, y float64) float64, px, py, nx, ny float64) func(s float64) float64 {
+	if shape.Polar == nil || ev.walls != nil {
+		return func(s float64) float64 { return u(px-s*nx, py-s*ny) }
+	}
+	r := math.Hypot(px, py)
+	if r < 100*shape.step() { // near the centre the angular step s/r is not small: go straight
+		return func(s float64) float64 { return u(px-s*nx, py-s*ny) }
+	}
+	th := math.Atan2(py, px)
+	if th < 0 {
+		th += 2 * math.Pi
+	}
+	if shape.Polar.Span < 2*math.Pi && th > shape.Polar.Span+1e-12 {
+		th -= 2 * math.Pi // a ray at θ = 0 reached from below
+	}
+	nr := nx*math.Cos(th) + ny*math.Sin(th)
+	nt := -nx*math.Sin(th) + ny*math.Cos(th)
+	return func(s float64) float64 {
+		v, _, _ := ev.At(r-s*nr, th-s*nt/r)
+		return v
+	}
 }

@@ -3,6 +3,7 @@ package domain
 import (
 	"errors"
 	"fmt"
+	"math"
 	"strings"
 
 	"psol/ansatz"
@@ -205,11 +206,51 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 	if len(missing) > 0 {
 		return nil, &MissingSides{missing}
 	}
+	if err := finiteSource(d, source, opt.Env); err != nil {
+		return nil, err
+	}
 	sol, err := d.solve(p)
 	if sol != nil {
 		sol.Options = opt
 	}
 	return sol, err
+}
+
+// finiteSource refuses a source that is not a finite number somewhere in
+// the region (sqrt(x) on a disk, exp(1000*x)), sampled at the check points
+// and along the sides before any quadrature is spent on it.
+func finiteSource(d Domain, source series.Field, env series.Env) error {
+	if source.Rest == nil {
+		return nil
+	}
+	f, err := source.Compile(env)
+	if err != nil {
+		return nil // parameters without values: the solve says so
+	}
+	pts, err := d.samples(env)
+	if err != nil {
+		return nil
+	}
+	if shape, err := d.Shape(env); err == nil {
+		for _, side := range shape.Sides {
+			for k := 0; k <= 32; k++ {
+				x, y, nx, ny := side.At(float64(k) / 32)
+				x, y = x-1e-9*nx, y-1e-9*ny // just inside
+				th := math.Atan2(y, x)
+				if th < 0 {
+					th += 2 * math.Pi
+				}
+				pts = append(pts, [2]float64{math.Hypot(x, y), th})
+			}
+		}
+	}
+	for _, p := range pts {
+		if v := f.At(p[0], p[1]); math.IsNaN(v) || math.IsInf(v, 0) {
+			x, y := Cartesian(p[0], p[1])
+			return unsolvable("the source %s is not a finite number at (x, y) = (%.4g, %.4g), inside the region: it is undefined there, or beyond float64's range", source.Text(), x, y)
+		}
+	}
+	return nil
 }
 
 // OperatorText names the condition's operator applied to a function, e.g. "dn(u_p) + h*u_p".

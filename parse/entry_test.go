@@ -233,16 +233,38 @@ func FuzzParse(f *testing.F) {
 		f.Add(s)
 	}
 	f.Fuzz(func(t *testing.T, in string) {
-		if fld, err := Equation(in, nil); err == nil && fld.IsExact() {
+		if fld, err := Equation(in, nil); err == nil && fld.IsExact() && len(fld.Text()) <= MaxInput {
 			back, err := Expression("fuzz", fld.Text(), nil)
 			if err != nil || !back.Exact.Equal(fld.Exact) {
 				t.Fatalf("%q printed as %q, which parses back as %v (%v)", in, fld.Text(), back.Text(), err)
 			}
 		}
-		_, _ = Condition(in, []string{"rim"}, series.Env{"a": series.IntCoef(2)})
-		_, _ = ConditionIn(Unknown(in), in, []string{"inner", "outer"}, nil)
-		_, _, _, _ = Fix(in, nil)
-		_, _ = Bindings("fuzz", in, nil)
+		// Every refusal is a positioned parse error whose offset lies in the input.
+		positioned := func(what string, err error) {
+			if err == nil {
+				return
+			}
+			var pe *Error
+			if !errors.As(err, &pe) {
+				t.Fatalf("%s(%q): %v is not a parse error", what, in, err)
+			}
+			if pe.Offset < 0 || pe.Offset > len(pe.Input) {
+				t.Fatalf("%s(%q): offset %d outside the input", what, in, pe.Offset)
+			}
+			_ = pe.Error() // the caret line must not panic on any input
+		}
+		_, err := Condition(in, []string{"rim"}, series.Env{"a": series.IntCoef(2)})
+		positioned("Condition", err)
+		_, err = ConditionIn(Unknown(in), in, []string{"inner", "outer"}, nil)
+		positioned("ConditionIn", err)
+		_, _, _, err = Fix(in, nil)
+		positioned("Fix", err)
+		_, err = Bindings("fuzz", in, nil)
+		positioned("Bindings", err)
+		_, err = Lengths("--rect", in, 2, nil)
+		positioned("Lengths", err)
+		_, err = ExpressionIn("T", "--claim", in, nil)
+		positioned("Expression", err)
 	})
 }
 

@@ -12,5 +12,5 @@ const (
 	// that keeps every input answered or refused in well under a second.
 	MaxWork = 20000
 	// MaxInput bounds one statement's length in bytes.
-	MaxInput = 4096
+	MaxInput = 1 << 16
 )

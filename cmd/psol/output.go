@@ -165,6 +165,35 @@ func traceTeX(s domain.Side) string {
 	return operatorTeX(s.Condition, "u_p") + `\big|_{` + s.AtLaTeX + "}"
 }
 
+// finite refuses a view with a number that is not finite (a check
+// residual, a figure of the report): psol prints no NaN or Inf as an answer.
+func (v *view) finite() error {
+	bad := func(x float64) bool { return math.IsNaN(x) || math.IsInf(x, 0) }
+	for _, c := range v.Checks {
+		if bad(c.Residual) {
+			return &domain.Unsolvable{Reason: fmt.Sprintf("the check %s on %s is not a finite number: the solution exceeds float64's range there, or the data or source are undefined; psol gives no answer it cannot check", c.Name, orEquation(c.Side))}
+		}
+	}
+	if r := v.Report; r != nil {
+		if g := r.Gradient; g != nil && bad(g.Value) {
+			return &domain.Unsolvable{Reason: "the largest |grad u| is not a finite number: the solution exceeds float64's range in the region"}
+		}
+		for _, p := range []*float64{r.Max, r.Min, r.Flux, r.SourceIntegral} {
+			if p != nil && bad(*p) {
+				return &domain.Unsolvable{Reason: "a figure of the report is not a finite number: the solution exceeds float64's range in the region"}
+			}
+		}
+	}
+	return nil
+}
+
+func orEquation(side string) string {
+	if side == "" {
+		return "the region"
+	}
+	return side
+}
+
 func (v *view) failedCheck() error {
 	for _, c := range v.Checks {
 		if c.Exact && c.Formula != "0" {

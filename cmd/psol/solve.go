@@ -142,6 +142,9 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 			v.Warnings = append(v.Warnings, fmt.Sprintf("the figures are exact, with %s as symbols; numbers and peaks need values (--let %s=...)", strings.Join(rep.Open, ", "), strings.Join(rep.Open, "=...,")))
 		}
 	}
+	if err := v.finite(); err != nil {
+		return err
+	}
 	if err := render(&out, v); err != nil {
 		return &outputError{err}
 	}
