@@ -262,6 +262,10 @@ func (p panel) peak() float64 {
 
 // ErrSlowDecay is Prepare's answer outside a circle for a source that does
 // not decay faster than r^−2: no bounded particular solution exists.
+// ErrAliased reports a source that varies faster in θ than the largest
+// sampling resolves: its coefficients would be another function's.
+var ErrAliased = errors.New("the source varies faster in theta than 4096 samples resolve: between the samples it differs from every band-limited fit, so the quadrature would be aliased")
+
 var ErrSlowDecay = errors.New("the source does not decay faster than r^-2, so its particular solution outside the circle is unbounded (its area integral diverges)")
 
 // Prepare chooses the angular samples and builds the radial mesh: the
@@ -275,8 +279,12 @@ func (q *Quadrature) Prepare() error {
 		worst, scale, modes := 0.0, 0.0, 0
 		// What matters is each mode's share of p (weight): its source over ν².
 		var sizes []float64
+		aliased := false
 		for _, r := range q.probes() {
 			a, b := q.ring(r)
+			if !aliased && q.offGrid(r, a, b) {
+				aliased = true
+			}
 			for k := range a {
 				v := math.Hypot(a[k], b[k]) * q.weight(k)
 				scale = math.Max(scale, v)
@@ -289,8 +297,16 @@ func (q *Quadrature) Prepare() error {
 				sizes[k] = math.Max(sizes[k], v)
 			}
 		}
-		if worst > q.Tol*math.Max(scale, 1e-300) && n < 1<<12 {
+		// Aliasing matters where the spectrum looks resolved: between the
+		// samples the source then differs from what the modes say. (A source
+		// whose spectrum has not converged, such as an extension with a jump,
+		// is refined and estimated as before.)
+		resolved := worst <= q.Tol*math.Max(scale, 1e-300)
+		if (!resolved || aliased) && n < 1<<12 {
 			continue
+		}
+		if resolved && aliased {
+			return ErrAliased
 		}
 		for k, v := range sizes { // every mode above rounding's reach
 			if v > 1e-16*scale {
@@ -722,4 +738,25 @@ func (q *Quadrature) At(r, theta float64) (float64, float64) {
 		v += q.Lift.Value(r, theta)
 	}
 	return v, err
+}
+
+// offGrid reports a ring whose coefficients a, b (of the period P) disagree
+// with the source between the samples, at 13 angles no power-of-two grid
+// hits: content above the band folded onto lower modes (aliasing).
+func (q *Quadrature) offGrid(r float64, a, b []float64) bool {
+	const phi = 0.6180339887498949
+	P := q.period()
+	w := 2 * math.Pi / P
+	size, worst := 0.0, 0.0
+	for j := 1; j <= 13; j++ {
+		th := P * math.Mod(float64(j)*phi, 1)
+		v := 0.0
+		for k := range a {
+			v += a[k]*math.Cos(float64(k)*w*th) + b[k]*math.Sin(float64(k)*w*th)
+		}
+		g := q.G(r, th)
+		size = math.Max(size, math.Abs(g))
+		worst = math.Max(worst, math.Abs(g-v))
+	}
+	return worst > 1e-6*math.Max(size, 1e-300) && worst > 1e3*q.Tol*size
 }

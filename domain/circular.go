@@ -165,7 +165,11 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 	sol.Checks = verifyCircular(d, sol, p.conds)
 	if sol.Quadrature != nil {
 		sol.Checks[0].Name = "lap(u_p) - f (the closed part)"
-		sol.Checks = append(sol.Checks, quadratureCheck(d, sol, p.env))
+		qc := quadratureCheck(d, sol, p.env)
+		if qc.failed() {
+			return nil, unsolvable("psol's own check of the quadrature fails: lap(u_q) - f_q reaches %.2g where the source is about %.2g; the source %s is too rough, or varies too fast, for the sampling (psol prints no answer it cannot check)", qc.Numeric, qc.scale, p.rest.Text())
+		}
+		sol.Checks = append(sol.Checks, qc)
 		numericResiduals(d, sol, p.env)
 	}
 	for i := range sol.Checks {
@@ -430,10 +434,18 @@ func quadratureCheck(d Domain, sol *Solution, env series.Env) Check {
 			return (out-2*centre+in)/(h*h) + (out-in)/(2*h*r) + (u(r, th+k)-2*centre+u(r, th-k))/(r*r*k*k)
 		}
 		fd := (4*lap(h/2) - lap(h)) / 3
-		out.Numeric = math.Max(out.Numeric, math.Abs(fd-fc.At(p[0], p[1])))
+		f := fc.At(p[0], p[1])
+		out.Numeric = math.Max(out.Numeric, math.Abs(fd-f))
+		out.scale = math.Max(out.scale, math.Abs(f))
 	}
 	return out
 }
+
+// failed reports a sampled check of a numeric part whose residual is not
+// small against what it checks (a thousandth of the source's size): the
+// numeric part is wrong (a source rougher than its sampling can see), and
+// no answer built on it may be printed.
+func (c Check) failed() bool { return !c.Exact && c.scale > 0 && c.Numeric > 1e-3*c.scale }
 
 func (s *Solution) addSeriesResidual(side string, r series.Coef) {
 	if s.seriesResidual == nil {

@@ -108,6 +108,7 @@ type Check struct {
 	Exact    bool
 	Residual series.Sum
 	Numeric  float64 // the largest residual on a check grid, when not exact
+	scale    float64 // the size of what a sampled check compares (for failed)
 }
 
 // Solution is the assembled answer with its stages.

@@ -94,7 +94,7 @@ func TestFlagRanges(t *testing.T) {
 		{[]string{"--tol=-1"}, "--tol -1: choose"},
 		{[]string{"--terms", "0"}, "--terms 0: choose 1 to"},
 		{[]string{"--terms=-1"}, "--terms -1: choose 1 to"},
-		{[]string{"--grid=-5", "--csv", "a.csv"}, "--grid -5: choose 2 to 4000"},
+		{[]string{"--grid=-5", "--csv", "a.csv"}, "--grid -5: choose 2 to 2000"},
 		{[]string{"--plot", ""}, "--plot needs a file name"},
 		{[]string{"--csv", "", "--grid", "5"}, "--csv needs a file name"},
 	} {

@@ -50,7 +50,7 @@ func newSolveCmd() *cobra.Command {
 	f.BoolVar(&o.steps, "steps", false, "show how each stage was found")
 	f.StringVar(&o.format, "format", "text", "output format: text, latex, json or code")
 	f.Float64Var(&o.tol, "tol", domain.SumTol, "numeric target for summed series")
-	f.IntVar(&o.grid, "grid", 0, "with --csv: evaluate u on an N x N grid over the domain")
+	f.IntVar(&o.grid, "grid", 0, "with --csv: evaluate u on an N x N grid over the domain (N at most 2000: about 320 MB of CSV)")
 	f.StringVar(&o.csv, "csv", "", "with --grid: the CSV file to write (replaced only when the run succeeds)")
 	f.StringArrayVar(&o.quantity, "quantity", nil, quantityHelp())
 	f.StringVar(&o.plot, "plot", "", "draw u over the domain to FILE.png or FILE.svg")
@@ -168,14 +168,18 @@ func finish(w io.Writer, out *bytes.Buffer, files *stagedFiles, failure error) e
 	return failure
 }
 
+// maxGrid bounds --grid: 2000² points, about 320 MB of CSV and some
+// seconds of evaluation; beyond it a file is rarely what is wanted.
+const maxGrid = 2000
+
 // validate checks every flag's value before any work: a bad one is bad
 // input (exit 2) and must not cost a solve or touch a file.
 func (o *solveOptions) validate() error {
 	switch {
 	case (o.grid != 0 || o.gridSet) != (o.csv != "" || o.csvSet):
 		return usagef("--grid N and --csv FILE go together")
-	case o.gridSet && (o.grid < 2 || o.grid > 4000):
-		return usagef("--grid %d: choose 2 to 4000 points a side", o.grid)
+	case o.gridSet && (o.grid < 2 || o.grid > maxGrid):
+		return usagef("--grid %d: choose 2 to %d points a side (%d² points make about %d MB of CSV)", o.grid, maxGrid, maxGrid, maxGrid*maxGrid*80/1000000)
 	case o.csvSet && o.csv == "":
 		return usagef("--csv needs a file name")
 	case o.plotSet && o.plot == "":
