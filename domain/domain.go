@@ -109,7 +109,14 @@ type Check struct {
 	Residual series.Sum
 	Numeric  float64 // the largest residual on a check grid, when not exact
 	scale    float64 // the size of what a sampled check compares (for failed)
+	// independentFailed marks the independent check failing: psol's own
+	// solution does not meet its conditions (a defect of psol's).
+	independentFailed bool
 }
+
+// Failed reports a check that shows psol's solution wrong: the independent
+// check of the conditions.
+func (c Check) Failed() bool { return c.independentFailed }
 
 // Solution is the assembled answer with its stages.
 type Solution struct {
@@ -124,7 +131,11 @@ type Solution struct {
 	Floating map[string]series.Coef
 	FreeMean series.Coef // the value of Free that makes u's mean on the first boundary circle zero
 	Checks   []Check
-	Series   *SeriesParts // the infinite-series stages, where the region needs them
+	// Independent is the check of the conditions by a path that shares no
+	// code with the solve (see verifyIndependently); nil where parameters
+	// have no values.
+	Independent *Check
+	Series      *SeriesParts // the infinite-series stages, where the region needs them
 	// Options are those the solution was solved with; evaluation, grids,
 	// pictures and reports take the parameters and the tolerance from here.
 	Options Options
@@ -213,6 +224,9 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 	sol, err := d.solve(p)
 	if sol != nil {
 		sol.Options = opt
+		if c, ok := sol.independentCheck(); ok {
+			sol.Independent = &c
+		}
 	}
 	return sol, err
 }

@@ -47,6 +47,10 @@ type view struct {
 	Warnings   []string    `json:"warnings"`
 	showSteps  bool
 	checkScope string // how far an exact check reaches, for series
+	// Independent is the check of every side's condition from the evaluated
+	// solution, by code the solve does not use; nil without parameter values.
+	Independent       *checkOut `json:"independent_check,omitempty"`
+	independentFailed bool
 }
 
 func exactStage(label, text, latex, tex string) stage {
@@ -125,6 +129,10 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	if sol.Rect != nil {
 		v.rectStages(sol)
 	}
+	if c := sol.Independent; c != nil {
+		v.Independent = &checkOut{Name: c.Name, Side: c.Side, Residual: c.Numeric}
+		v.independentFailed = c.Failed()
+	}
 	for _, st := range sol.Rules {
 		v.Steps = append(v.Steps, fmt.Sprintf("ansatz %s -> %s (%s)", st.Source.Text(), st.Result.Text(), st.Rule))
 	}
@@ -194,7 +202,22 @@ func orEquation(side string) string {
 	return side
 }
 
+// independentText is the check line's note of the independent check: its
+// verdict only (a residual at rounding level differs between CPUs).
+func (v *view) independentText() string {
+	switch {
+	case v.Independent == nil:
+		return ""
+	case v.independentFailed:
+		return "; " + v.Independent.Name
+	}
+	return "; every side's condition verified independently"
+}
+
 func (v *view) failedCheck() error {
+	if v.independentFailed {
+		return &internalError{v.Independent.Name + " (a defect of psol's: please report it with the command line)"}
+	}
 	for _, c := range v.Checks {
 		if c.Exact && c.Formula != "0" {
 			return &internalError{fmt.Sprintf("internal check failed: %s = %s (please report it with the command line)", c.Name, c.Formula)}
@@ -228,7 +251,7 @@ func renderText(w io.Writer, v *view) error {
 	if v.ClosedForm != nil {
 		line(w, "closed form", v.ClosedForm.Text)
 	}
-	line(w, "check", checkSummary(v.Checks)+v.checkScope)
+	line(w, "check", checkSummary(v.Checks)+v.checkScope+v.independentText())
 	for _, p := range v.Points {
 		at := fmt.Sprintf("r = %.10g, theta = %.10g (x = %.10g, y = %.10g): u = %.12g", p.R, p.Theta, p.X, p.Y, p.U)
 		switch {
