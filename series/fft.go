@@ -119,12 +119,36 @@ func (nf NumericFourier) Describe() string {
 
 // TextApprox prints s with its coefficients as decimals, for numeric results.
 func (s Sum) TextApprox() string {
-	return printTerms(s.t, style{latex: false, mul: "*", decimal: true})
+	return printTerms(s.visible(), style{latex: false, mul: "*", decimal: true})
 }
 
 // LaTeXApprox is TextApprox as LaTeX.
 func (s Sum) LaTeXApprox() string {
-	return printTerms(s.t, style{latex: true, mul: " ", decimal: true})
+	return printTerms(s.visible(), style{latex: true, mul: " ", decimal: true})
+}
+
+// visible are the terms a decimal print shows: those above 1e-10 of the
+// largest coefficient. Below, a numeric coefficient is rounding noise, which
+// changes from one CPU to the next; printing it would claim digits psol
+// does not have (the terms still count in every evaluation).
+func (s Sum) visible() []Term {
+	big := 0.0
+	size := make([]float64, len(s.t))
+	for i, t := range s.t {
+		v, err := t.C.Float(nil)
+		if err != nil {
+			return s.t // parameters: no floor
+		}
+		size[i] = math.Abs(v)
+		big = math.Max(big, size[i])
+	}
+	out := make([]Term, 0, len(s.t))
+	for i, t := range s.t {
+		if size[i] >= 1e-10*big {
+			out = append(out, t)
+		}
+	}
+	return out
 }
 
 // offGridMismatch is the largest |g(θ) − Σ_{k<keep} a_k cos kθ + b_k sin kθ|

@@ -2,6 +2,7 @@ package series
 
 import (
 	"fmt"
+	"math"
 	"math/big"
 	"strconv"
 	"strings"
@@ -197,7 +198,11 @@ func (s Series) print(open, close string, st style) string {
 	if g := s.termText(s.General, s.Family.Nu(IndexCoef), st); g != "0" {
 		b.WriteString(open + g + close)
 	}
+	floor := s.specialFloor(st)
 	for _, n := range s.specials() {
+		if floor > 0 && specialSize(s.Special[n]) < floor {
+			continue // rounding noise of a numeric mode: see Sum.visible
+		}
 		t := s.termText(s.Special[n], RatCoef(s.Family.NuAt(n)), st)
 		switch {
 		case t == "0":
@@ -234,4 +239,36 @@ func topLevelSum(s string) bool {
 		}
 	}
 	return false
+}
+
+// specialFloor is, for a decimal print, 1e-10 of the largest exceptional
+// term's coefficient: smaller ones are rounding noise of numeric modes and
+// are not printed (they still count in every evaluation). 0 prints all.
+func (s Series) specialFloor(st style) float64 {
+	if !st.decimal {
+		return 0
+	}
+	big := 0.0
+	for _, ts := range s.Special {
+		v := specialSize(ts)
+		if math.IsNaN(v) {
+			return 0 // parameters: no floor
+		}
+		big = math.Max(big, v)
+	}
+	return 1e-10 * big
+}
+
+// specialSize is the largest |coefficient| of a mode's radial terms (NaN
+// where one has parameters).
+func specialSize(ts []RadialTerm) float64 {
+	size := 0.0
+	for _, t := range ts {
+		v, err := t.C.Float(nil)
+		if err != nil {
+			return math.NaN()
+		}
+		size = math.Max(size, math.Abs(v))
+	}
+	return size
 }
