@@ -61,6 +61,11 @@ func solve(t testing.TB, equation string, d domain.Domain, bcs ...string) *domai
 	if err != nil {
 		t.Fatalf("%s on %s: %v", equation, d.Describe(), err)
 	}
+	// Every solve in the tests passes the independent check of its
+	// conditions (evaluated solution, geometric normals, differences).
+	if c := sol.Independent; c != nil && c.Failed() {
+		t.Fatalf("%s on %s: %s", equation, d.Describe(), c.Name)
+	}
 	return sol
 }
 
