@@ -35,17 +35,29 @@ func torsionConstant(t *testing.T, alpha string) float64 {
 	return 2 * (sum.Value + c)
 }
 
-// Saint-Venant torsion of sector-shaped bars of radius a: the semicircle has
-// J = (π/2 − 4/π)a⁴ = 0.29756a⁴ in closed form, the quarter circle
-// J = 0.082328a⁴ from its exact series (Timoshenko & Goodier, Theory of
-// Elasticity, torsion of a circular-sector bar; their table rounds these to
-// 0.296 and 0.0825, and the test uses the exact values).
+// Saint-Venant torsion of sector-shaped bars of radius a. Timoshenko &
+// Goodier (Theory of Elasticity, torsion of a circular-sector bar) tabulate
+// k with J = k·a⁴: 0.296 for the semicircle and 0.0825 for the quarter
+// circle (as recalled from memory; the table's own values, not roundings
+// of those below). The test uses the values derived exactly: for the
+// semicircle J = (π/2 − 4/π)a⁴ = 0.29756a⁴ in closed form (common
+// practice), for the quarter circle J = 0.082328a⁴ by summing the exact
+// series; each within 1% of the table's.
 func TestSectorTorsion(t *testing.T) {
 	if j, want := torsionConstant(t, "pi"), math.Pi/2-4/math.Pi; math.Abs(j-want) > 1e-10 {
 		t.Errorf("semicircle: J = %.12f a^4, want %.12f", j, want)
 	}
 	if j := torsionConstant(t, "pi/2"); math.Abs(j-0.082328) > 1e-6 {
 		t.Errorf("quarter circle: J = %.8f a^4, want 0.082328", j)
+	}
+	// The table's values, to their printed precision.
+	for _, c := range []struct {
+		alpha string
+		k     float64
+	}{{"pi", 0.296}, {"pi/2", 0.0825}} {
+		if j := torsionConstant(t, c.alpha); math.Abs(j-c.k) > 0.01*c.k {
+			t.Errorf("sector %s: J = %.5f a^4, the table's %g", c.alpha, j, c.k)
+		}
 	}
 }
 
