@@ -19,8 +19,8 @@ import (
 type lowerer struct {
 	label, input string
 	env          series.Env
-	clauses      bool // a second clause ("u = const, flux = Q") is allowed: conditions only
-	work         int  // term products done so far (see MaxWork)
+	clauses      bool   // a second clause ("u = const, flux = Q") is allowed: conditions only
+	work         int    // term products done so far (see MaxWork)
 	unknown      string // the unknown's name, "u" unless the equation names another (lap(T))
 }
 
@@ -155,13 +155,13 @@ func (lw *lowerer) interval(c *compare) (lo, hi *big.Rat, err error) {
 		left, right := i, i+1
 		switch {
 		case left == at && less(t.Op): // θ < c
-			hi = minRat(hi, bounds[right])
+			hi = series.MinRat(hi, bounds[right])
 		case left == at: // θ > c
-			lo = maxRat(lo, bounds[right])
+			lo = series.MaxRat(lo, bounds[right])
 		case right == at && less(t.Op): // c < θ
-			lo = maxRat(lo, bounds[left])
+			lo = series.MaxRat(lo, bounds[left])
 		case right == at: // c > θ
-			hi = minRat(hi, bounds[left])
+			hi = series.MinRat(hi, bounds[left])
 		default:
 			return nil, nil, lw.fail(t.Pos, "each comparison must involve theta")
 		}
@@ -170,20 +170,6 @@ func (lw *lowerer) interval(c *compare) (lo, hi *big.Rat, err error) {
 		return nil, nil, lw.fail(c.Pos, "the condition holds nowhere in 0 <= theta < 2*pi")
 	}
 	return lo, hi, nil
-}
-
-func maxRat(a, b *big.Rat) *big.Rat {
-	if a.Cmp(b) >= 0 {
-		return a
-	}
-	return b
-}
-
-func minRat(a, b *big.Rat) *big.Rat {
-	if a.Cmp(b) <= 0 {
-		return a
-	}
-	return b
 }
 
 func (lw *lowerer) additive(a *additive) (value, error) {
@@ -501,7 +487,6 @@ func knownFunctions() []string {
 	sort.Strings(names)
 	return names
 }
-
 
 func (lw *lowerer) series(s *sumNode) (value, error) {
 	if s.Index != series.Index {

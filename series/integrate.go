@@ -106,11 +106,7 @@ func (s Sum) SectorIntegral(radius, alpha Coef) (Coef, error) {
 		if err != nil {
 			return Coef{}, err
 		}
-		cs, sn, ok := unitCircle(alpha.MulRat(big.NewRat(int64(t.M), 1)))
-		if !ok {
-			return Coef{}, ErrAngle
-		}
-		ang, err := thetaMoment(t.K, t.Sin, IntCoef(int64(t.M)), alpha, cs, sn)
+		ang, err := t.angleMoment(alpha)
 		if err != nil {
 			return Coef{}, err
 		}
@@ -127,15 +123,20 @@ func (s Sum) AngleIntegral(alpha Coef) (Coef, error) {
 		if t.power().Sign() != 0 || t.L != 0 {
 			return Coef{}, errors.New("AngleIntegral takes a function of theta alone")
 		}
-		cs, sn, ok := unitCircle(alpha.MulRat(big.NewRat(int64(t.M), 1)))
-		if !ok {
-			return Coef{}, ErrAngle
-		}
-		ang, err := thetaMoment(t.K, t.Sin, IntCoef(int64(t.M)), alpha, cs, sn)
+		ang, err := t.angleMoment(alpha)
 		if err != nil {
 			return Coef{}, err
 		}
 		total = total.Add(t.C.Mul(ang))
 	}
 	return total, nil
+}
+
+// angleMoment is ∫₀^α θ^k T(mθ) dθ for the term's angular factor.
+func (t Term) angleMoment(alpha Coef) (Coef, error) {
+	cs, sn, ok := unitCircle(alpha.MulRat(big.NewRat(int64(t.M), 1)))
+	if !ok {
+		return Coef{}, ErrAngle
+	}
+	return thetaMoment(t.K, t.Sin, IntCoef(int64(t.M)), alpha, cs, sn)
 }

@@ -120,7 +120,7 @@ func mapPieces(f Field, op func(Field) (Field, error)) (Field, error) {
 		// parts inside this piece, so that pieces stay one level deep and
 		// their number grows with the breaks, not exponentially with nesting.
 		for _, q := range v.Pieces {
-			from, to := maxRat(p.From, q.From), minRat(p.To, q.To)
+			from, to := MaxRat(p.From, q.From), MinRat(p.To, q.To)
 			if from.Cmp(to) < 0 {
 				out = append(out, Piece{from, to, q.Value})
 			}
@@ -135,14 +135,16 @@ func mapPieces(f Field, op func(Field) (Field, error)) (Field, error) {
 // MaxPieces bounds the pieces in θ of one field: a work budget.
 const MaxPieces = 1024
 
-func maxRat(a, b *big.Rat) *big.Rat {
+// MaxRat and MinRat are the larger and the smaller of two rationals (the
+// argument itself, not a copy).
+func MaxRat(a, b *big.Rat) *big.Rat {
 	if a.Cmp(b) >= 0 {
 		return a
 	}
 	return b
 }
 
-func minRat(a, b *big.Rat) *big.Rat {
+func MinRat(a, b *big.Rat) *big.Rat {
 	if a.Cmp(b) <= 0 {
 		return a
 	}
