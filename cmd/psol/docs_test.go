@@ -1,9 +1,11 @@
 package main
 
 import (
+	"bytes"
 	"os"
 	"os/exec"
 	"path/filepath"
+	"regexp"
 	"strings"
 	"testing"
 )
@@ -81,5 +83,23 @@ func TestLaTeXCompiles(t *testing.T) {
 	cmd.Dir = dir
 	if out, err := cmd.CombinedOutput(); err != nil {
 		t.Fatalf("pdflatex: %v\n%s\n%s", err, out, doc)
+	}
+}
+
+// Every flag that --help lists is documented in the README.
+func TestReadmeDocumentsEveryFlag(t *testing.T) {
+	data, err := os.ReadFile("../../README.md")
+	if err != nil {
+		t.Fatal(err)
+	}
+	flag := regexp.MustCompile(`--[a-z]+`)
+	for _, cmd := range []string{"solve", "check", "particular", "demo"} {
+		var out bytes.Buffer
+		run([]string{cmd, "--help"}, &out, &out)
+		for _, f := range flag.FindAllString(out.String(), -1) {
+			if f != "--help" && !strings.Contains(string(data), "`"+f) {
+				t.Errorf("psol %s --help lists %s, which the README does not document", cmd, f)
+			}
+		}
 	}
 }

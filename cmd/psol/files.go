@@ -25,10 +25,13 @@ func (e *outputError) Unwrap() error { return e.err }
 // file behind.
 type stagedFiles struct {
 	staged []stagedFile
+	// Written lists what commit put in place, for the report on stderr.
+	Written []string
 }
 
 type stagedFile struct {
 	target string // where the content goes (a symlink's target resolved)
+	path   string // as the user gave it
 	tmp    string
 }
 
@@ -70,7 +73,7 @@ func (s *stagedFiles) stage(path string, fill func(io.Writer) error) error {
 		return &outputError{fmt.Errorf("cannot write %s: %w", path, errors.Unwrap(err))}
 	}
 	track(tmp.Name(), true)
-	s.staged = append(s.staged, stagedFile{target: target, tmp: tmp.Name()})
+	s.staged = append(s.staged, stagedFile{target: target, path: path, tmp: tmp.Name()})
 	bw := bufio.NewWriter(tmp)
 	err = fill(bw)
 	if err == nil {
@@ -87,6 +90,10 @@ func (s *stagedFiles) stage(path string, fill func(io.Writer) error) error {
 // umask's); anything else (a device, a pipe) is written through.
 func (s *stagedFiles) commit() error {
 	for _, f := range s.staged {
+		size := int64(-1)
+		if st, err := os.Stat(f.tmp); err == nil {
+			size = st.Size()
+		}
 		info, err := os.Stat(f.target)
 		switch {
 		case err == nil && !info.Mode().IsRegular():
@@ -106,6 +113,7 @@ func (s *stagedFiles) commit() error {
 			s.abort()
 			return &outputError{fmt.Errorf("cannot write %s: %w", f.target, unwrapPath(err))}
 		}
+		s.Written = append(s.Written, fmt.Sprintf("wrote %s (%s)", f.path, byteSize(size)))
 	}
 	s.staged = nil
 	return nil
@@ -149,4 +157,17 @@ func unwrapPath(err error) error {
 		return le.Err
 	}
 	return err
+}
+
+// byteSize is a file size for people: 812 bytes, 14.2 kB, 3.1 MB.
+func byteSize(n int64) string {
+	switch {
+	case n < 0:
+		return "size unknown"
+	case n < 1000:
+		return fmt.Sprintf("%d bytes", n)
+	case n < 1000000:
+		return fmt.Sprintf("%.1f kB", float64(n)/1e3)
+	}
+	return fmt.Sprintf("%.1f MB", float64(n)/1e6)
 }

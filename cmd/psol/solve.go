@@ -118,7 +118,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		if err := writeCode(&out, o.lang, pr, sol, terms); err != nil {
 			return err
 		}
-		return finish(w, &out, files, nil)
+		return o.finish(w, &out, files, nil)
 	}
 	v := newView(pr, sol, pts, o.steps)
 	for _, name := range pr.unusedLets(o.at...) {
@@ -150,17 +150,20 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	}
 	if err := v.failedCheck(); err != nil { // show what was computed, keep the files as they were
 		files.abort()
-		return finish(w, &out, files, err)
+		return o.finish(w, &out, files, err)
 	}
-	return finish(w, &out, files, nil)
+	return o.finish(w, &out, files, nil)
 }
 
 // finish commits the staged files, then writes the buffered output; a
 // write that fails (a full disk) is an output error, exit 4. failure, if
 // set, is the run's own error, returned after the output is shown.
-func finish(w io.Writer, out *bytes.Buffer, files *stagedFiles, failure error) error {
+func (o *solveOptions) finish(w io.Writer, out *bytes.Buffer, files *stagedFiles, failure error) error {
 	if err := files.commit(); err != nil {
 		return err
+	}
+	for _, line := range files.Written { // stderr: stdout stays the answer alone
+		fmt.Fprintln(o.stderr, "psol: "+line)
 	}
 	if _, err := w.Write(out.Bytes()); err != nil {
 		return &outputError{fmt.Errorf("cannot write the output: %w", err)}
