@@ -21,7 +21,7 @@ var Langs = map[string]Lang{
 	"go": {Name: "go", Fn: map[string]string{"cos": "math.Cos", "sin": "math.Sin", "log": "math.Log", "pow": "math.Pow", "sqrt": "math.Sqrt", "exp": "math.Exp"},
 		Pi: "math.Pi", Float: func(s string) string { return s }},
 	"c": {Name: "c", Fn: map[string]string{"cos": "cos", "sin": "sin", "log": "log", "pow": "pow", "sqrt": "sqrt", "exp": "exp"},
-		Pi: "M_PI", Float: func(s string) string { return s }},
+		Pi: "3.141592653589793", Float: func(s string) string { return s }}, // M_PI is not in C99
 	"python": {Name: "python", Fn: map[string]string{"cos": "math.cos", "sin": "math.sin", "log": "math.log", "pow": "math.pow", "sqrt": "math.sqrt", "exp": "math.exp"},
 		Pi: "math.pi", Float: func(s string) string { return s }},
 }

@@ -141,6 +141,9 @@ func TestGeneratedCode(t *testing.T) {
 				if err := os.WriteFile(path, []byte(prog), 0o644); err != nil {
 					return nil, err
 				}
+				if out, err := exec.Command("go", "vet", path).CombinedOutput(); err != nil {
+					return out, err
+				}
 				return exec.Command("go", "run", path).CombinedOutput()
 			},
 			"c": func(src string) ([]byte, error) {
@@ -157,7 +160,7 @@ func TestGeneratedCode(t *testing.T) {
 					return nil, err
 				}
 				bin := filepath.Join(dir, fmt.Sprintf("u%d", i))
-				if out, err := exec.Command("gcc", "-O1", "-o", bin, path, "-lm").CombinedOutput(); err != nil {
+				if out, err := exec.Command("gcc", "-std=c99", "-Wall", "-Werror", "-O1", "-o", bin, path, "-lm").CombinedOutput(); err != nil {
 					return out, err
 				}
 				return exec.Command(bin).CombinedOutput()
@@ -170,7 +173,7 @@ func TestGeneratedCode(t *testing.T) {
 				for _, p := range codePoints {
 					fmt.Fprintf(&calls, "print(repr(u(%v, %v%s)))\n", p[0], p[1], callArgs(c.env))
 				}
-				return exec.Command("python3", "-c", src+"\n"+calls.String()).CombinedOutput()
+				return exec.Command("python3", "-W", "error", "-c", src+"\n"+calls.String()).CombinedOutput()
 			},
 		}
 		// One subtest per language, in a fixed order: a missing tool skips
