@@ -156,12 +156,20 @@ func (s SideSeries) LaTeX() string {
 	sv, d := s.coords(true)
 	fam := s.family()
 	k := `\frac{` + fam.Nu(series.IndexCoef).LaTeX() + ` \pi}{` + l.LaTeX() + `}`
+	if l.Equal(series.IntCoef(1)) { // no \frac{…}{1}
+		k = fam.Nu(series.IndexCoef).LaTeX() + ` \pi`
+	}
+	// w = 1 multiplies nothing: kπ·1 prints as kπ.
+	wTeX := " " + w.LaTeX()
+	if w.Equal(series.IntCoef(1)) {
+		wTeX = ""
+	}
 	phi := `\sin`
 	if !fam.Sin {
 		phi = `\cos`
 	}
 	num, den := s.acrossFunctions(`\`)
-	denom := den + `\left(` + k + " " + w.LaTeX() + `\right)`
+	denom := den + `\left(` + k + wTeX + `\right)`
 	if s.Flux {
 		denom = k + " " + denom
 	}
