@@ -24,21 +24,22 @@ var scenarios = []scenario{
 		meaning: "A copper conductor of radius 5 mm carries current that generates q = 2e7 W/m^3 of heat;\n" +
 			"k = 400 W/(m K) and the surface is held at 40 C. u is the temperature in C, r in metres.\n" +
 			"The peak is at the axis: 40 + q a^2/(4k).",
-		args: []string{"solve", "-400*lap(u) = 2e7", "--disk", "0.005", "--bc", "u = 40", "--at", "r=0,theta=0", "--at", "r=0.0025,theta=0"},
+		args: []string{"solve", "-400*lap(u) = 2e7", "--disk", "0.005", "--bc", "u = 40", "--at", "r=0.0025,theta=0", "--quantity", "peak"},
 	},
 	{
 		name:  "shaft",
 		title: "Twisted round shaft (Prandtl stress function)",
 		meaning: "Saint-Venant torsion of a round shaft of radius a: the stress function satisfies lap(u) = -2\n" +
 			"with u = 0 on the rim; the torsion constant is J = 2 * (area integral of u) = pi a^4/2.",
-		args: []string{"solve", "lap(u) = -2", "--disk", "a", "--bc", "u = 0", "--format", "text"},
+		args: []string{"solve", "lap(u) = -2", "--disk", "a", "--bc", "u = 0", "--quantity", "torsion"},
 	},
 	{
 		name:  "drum",
 		title: "Pressurised drum skin on a warped frame",
 		meaning: "A membrane with tension T = 50 N/m under pressure p = 300 Pa, stretched over a circular frame\n" +
-			"of radius 0.2 m whose rim is warped by 2 mm in a saddle shape: T lap(w) = -p, w = 0.002 cos(2 theta).",
-		args: []string{"solve", "50*lap(u) = -300", "--disk", "0.2", "--bc", "u = 0.002*cos(2theta)", "--at", "x=0.1,y=0"},
+			"of radius 0.2 m whose rim is warped by 2 mm in a saddle shape: T lap(w) = -p, w = 0.002 cos(2 theta).\n" +
+			"The figure of interest is the sag at the centre, 0.06 m (p a^2/(4T)).",
+		args: []string{"solve", "50*lap(u) = -300", "--disk", "0.2", "--bc", "u = 0.002*cos(2theta)", "--at", "x=0,y=0", "--at", "x=0.1,y=0"},
 	},
 	{
 		name:  "sleeve",
@@ -54,7 +55,7 @@ var scenarios = []scenario{
 		meaning: "A bar whose section is three quarters of a disk of radius 1 (a 270 degree sector), twisted:\n" +
 			"the stress function has lap(u) = -2 and u = 0 on the boundary. The corner exponent 2/3 < 1\n" +
 			"says the shear stress is unbounded at the re-entrant corner: real parts need a fillet.",
-		args: []string{"solve", "lap(u) = -2", "--sector", "1,3*pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--at", "r=0.5,theta=3*pi/4"},
+		args: []string{"solve", "lap(u) = -2", "--sector", "1,3*pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--at", "r=0.5,theta=3*pi/4", "--quantity", "torsion"},
 	},
 	{
 		name:  "duct",
@@ -71,7 +72,7 @@ var scenarios = []scenario{
 			"air at 20 C: lap(u) = 0, u = 100 at the base, dn(u) + (h/k)u = (h/k)*20 elsewhere with h/k = 25 1/m.\n" +
 			"The faces are convective (Robin) sides: their series use numeric eigenvalues.",
 		args: []string{"solve", "lap(u) = 0", "--rect", "0.05,0.01", "--bc", "left: u = 100", "--bc", "right: dn(u) + 25*u = 500",
-			"--bc", "bottom: dn(u) + 25*u = 500", "--bc", "top: dn(u) + 25*u = 500", "--at", "x=0.05,y=0.005", "--at", "x=0.025,y=0.005"},
+			"--bc", "bottom: dn(u) + 25*u = 500", "--bc", "top: dn(u) + 25*u = 500", "--at", "x=0.05,y=0.005", "--at", "x=0.025,y=0.005", "--report"},
 	},
 	{
 		name:  "laser",
@@ -92,7 +93,8 @@ var scenarios = []scenario{
 }
 
 func newDemoCmd() *cobra.Command {
-	return &cobra.Command{
+	var format string
+	cmd := &cobra.Command{
 		Use:   "demo [NAME]",
 		Short: "Run the embedded scenarios (all, or the one named)",
 		Long:  "Scenarios: " + strings.Join(scenarioNames(), ", "),
@@ -110,9 +112,16 @@ func newDemoCmd() *cobra.Command {
 					return usagef("no demo named %q (there are: %s)", args[0], strings.Join(scenarioNames(), ", "))
 				}
 			}
-			return runDemos(cmd.OutOrStdout(), list)
+			if format != "text" {
+				if _, ok := renderers[format]; !ok {
+					return usagef("--format %q: choose text, latex or json", format)
+				}
+			}
+			return runDemos(cmd.OutOrStdout(), list, format)
 		},
 	}
+	cmd.Flags().StringVar(&format, "format", "text", "output format of each scenario: text, latex or json")
+	return cmd
 }
 
 func scenarioNames() []string {
@@ -124,8 +133,11 @@ func scenarioNames() []string {
 	return names
 }
 
-func runDemos(w io.Writer, list []scenario) error {
+func runDemos(w io.Writer, list []scenario, format string) error {
 	for i, s := range list {
+		if format != "text" {
+			s.args = append(append([]string(nil), s.args...), "--format", format)
+		}
 		if i > 0 {
 			fmt.Fprintln(w)
 		}
