@@ -234,10 +234,11 @@ func printMonomialTerm(t pterm, vars []string, st style) (bool, string) {
 	if st.decimal && !q.IsInt() {
 		text := new(big.Float).SetRat(new(big.Rat).Abs(q)).Text('g', 12)
 		d, ok := new(big.Rat).SetString(text)
+		whole := ok && d.IsInt() && !strings.ContainsAny(text, "eE") // 6.8e+25 stays a decimal
 		if st.latex {
 			text = LaTeXNumber(text)
 		}
-		if ok && d.IsInt() {
+		if whole {
 			num, den = d.Num(), big.NewInt(1)
 		} else {
 			parts := []string{text}
