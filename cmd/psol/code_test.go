@@ -220,6 +220,14 @@ func TestPlotFiles(t *testing.T) {
 			if b.Dx() < 400 || b.Dy() < 300 {
 				t.Errorf("PNG is %v", b)
 			}
+			// The colour bar lies inside the canvas: the last columns are background.
+			for x := b.Max.X - 8; x < b.Max.X; x++ {
+				for y := b.Min.Y; y < b.Max.Y; y++ {
+					if r, g, bl, _ := img.At(x, y).RGBA(); r < 0xf000 || g < 0xf000 || bl < 0xf000 {
+						t.Fatalf("PNG column %d is drawn on at y = %d: the colour bar runs off the canvas", x, y)
+					}
+				}
+			}
 			colours := map[color.Color]bool{}
 			for y := b.Min.Y; y < b.Max.Y; y += 7 {
 				for x := b.Min.X; x < b.Max.X; x += 7 {

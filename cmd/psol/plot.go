@@ -174,15 +174,7 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 		x0, x1 = c-h/2, c+h/2
 	}
 	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = x0, x1, y0, y1
-	bar := plot.New()
-	bar.HideY()
-	bar.X.Label.Text = "u"
 	cb := &plotter.ColorBar{ColorMap: cm, Vertical: true}
-	bar.Add(cb)
-	bar.HideX()
-	bar.Y.Padding = 0
-	bar.HideAxes()
-	bar.Y.Tick.Marker = plot.DefaultTicks{}
 	bar2 := plot.New()
 	bar2.Add(cb)
 	bar2.HideX()
@@ -198,7 +190,8 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 	}
 	dc := draw.New(canvas)
 	main := draw.Crop(dc, 0, -1.4*vg.Inch, 0, 0)
-	side := draw.Crop(dc, width-1.3*vg.Inch, 0, 0.45*vg.Inch, -0.6*vg.Inch)
+	// The colour bar sits inside the canvas, with a margin on the right.
+	side := draw.Crop(dc, width-1.45*vg.Inch, -0.3*vg.Inch, 0.45*vg.Inch, -0.6*vg.Inch)
 	p.Draw(main)
 	bar2.Draw(side)
 	_, err = canvas.WriteTo(w)
