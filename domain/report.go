@@ -3,8 +3,8 @@ package domain
 import (
 	"errors"
 	"math"
-	"sort"
 	"math/big"
+	"sort"
 
 	"psol/ansatz"
 	"psol/series"

@@ -95,7 +95,7 @@ func evaluate(sol *domain.Solution, pts []point) error {
 		} else {
 			pts[i].U, pts[i].Error, pts[i].Terms = ev.At(pts[i].R, pts[i].Theta)
 		}
-		pts[i].Error += sol.DataError // the maximum principle bounds the data's error inside
+		pts[i].Error += sol.DataError                                  // the maximum principle bounds the data's error inside
 		if e := pts[i].Error; e > 0.5*math.Abs(pts[i].U) && e > 1e-6 { // an estimate the size of the value: no answer
 			return &domain.Unsolvable{Reason: fmt.Sprintf("at %s psol finds u = %.6g but cannot vouch for it: the error estimate %.2g is not small against it (a source or data singular, or too rough, for the numeric parts); psol prints no value it cannot stand behind", pts[i].Input, pts[i].U, e)}
 		}

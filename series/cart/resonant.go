@@ -53,7 +53,7 @@ func resonantParticular(w Wave) (Wave, error) {
 		p := Monomial(series.IntCoef(1), m[0], m[1])
 		lp := d1(p).Add(p.Laplacian())
 		put(k, lp, d2(p).Scale(series.IntCoef(-1))) // A's monomial: (d₁ + Δ)p in the cos row, −d₂p in the sin row
-		put(n+k, d2(p), lp)                        // B's monomial: d₂p in the cos row, (d₁ + Δ)p in the sin row
+		put(n+k, d2(p), lp)                         // B's monomial: d₂p in the cos row, (d₁ + Δ)p in the sin row
 	}
 	rhs := make([]series.Coef, 2*n)
 	for _, t := range w.Cos.Terms() {
