@@ -165,9 +165,9 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 	sol.Checks = verifyCircular(d, sol, p.conds)
 	if sol.Quadrature != nil {
 		sol.Checks[0].Name = "lap(u_p) - f (the closed part)"
-		qc := quadratureCheck(d, sol, p.env)
-		if qc.failed() {
-			return nil, unsolvable("psol's own check of the quadrature fails: lap(u_q) - f_q reaches %.2g where the source is about %.2g; the source %s is too rough, or varies too fast, for the sampling (psol prints no answer it cannot check)", qc.Numeric, qc.scale, p.rest.Text())
+		qc, err := checkedQuadrature(d, sol, p)
+		if err != nil {
+			return nil, err
 		}
 		sol.Checks = append(sol.Checks, qc)
 		numericResiduals(d, sol, p.env)
@@ -439,6 +439,16 @@ func quadratureCheck(d Domain, sol *Solution, env series.Env) Check {
 		out.scale = math.Max(out.scale, math.Abs(f))
 	}
 	return out
+}
+
+// checkedQuadrature is the quadrature's sampled check, or the refusal when
+// it fails: psol prints no answer built on a numeric part it cannot check.
+func checkedQuadrature(d Domain, sol *Solution, p *posed) (Check, error) {
+	qc := quadratureCheck(d, sol, p.env)
+	if qc.failed() {
+		return qc, unsolvable("psol's own check of the quadrature fails: lap(u_q) - f_q reaches %.2g where the source is about %.2g; the source %s is too rough, or varies too fast, for the sampling (psol prints no answer it cannot check)", qc.Numeric, qc.scale, p.rest.Text())
+	}
+	return qc, nil
 }
 
 // failed reports a sampled check of a numeric part whose residual is not

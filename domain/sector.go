@@ -194,9 +194,9 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 	sol.Checks = mergeChecks(append(b.checks(general, shift, start, end, p), closedChecks(closed, p.f.Sub(expanded), start.dirichlet, end.dirichlet, s.Alpha, p)...))
 	if sol.Quadrature != nil {
 		sol.Checks[0].Name = "lap(u_p) - f (the closed part)"
-		qc := quadratureCheck(s, sol, p.env)
-		if qc.failed() {
-			return nil, unsolvable("psol's own check of the quadrature fails: lap(u_q) - f_q reaches %.2g where the source is about %.2g; the source %s is too rough, or varies too fast, for the sampling (psol prints no answer it cannot check)", qc.Numeric, qc.scale, p.rest.Text())
+		qc, err := checkedQuadrature(s, sol, p)
+		if err != nil {
+			return nil, err
 		}
 		sol.Checks = append(sol.Checks, qc)
 	}
