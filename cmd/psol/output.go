@@ -306,7 +306,11 @@ func renderText(w io.Writer, v *view) error {
 		}
 	}
 	if v.Caution != "" {
-		line(w, "figure", v.Caution)
+		label := "figure"
+		if len(v.Quantities) == 0 {
+			label = "report"
+		}
+		line(w, label, v.Caution)
 	}
 	for _, s := range v.Warnings {
 		line(w, "note", s)

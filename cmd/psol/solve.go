@@ -131,6 +131,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		}
 		if o.report {
 			v.Report = newReportOut(rep)
+			v.Caution = caution // figures a design may use
 		}
 		if len(o.quantity) > 0 {
 			if v.Quantities, err = quantities(o.quantity, sol, rep); err != nil {
