@@ -62,7 +62,7 @@ func (lw *lowerer) statement() (*statement, error) {
 	if len(lw.input) > MaxInput {
 		return nil, &Error{Label: lw.label, Input: lw.input[:64] + "…", Offset: 64, Msg: fmt.Sprintf("the input is %d characters long; psol reads at most %d", len(lw.input), MaxInput)}
 	}
-	st, err := statementParser.ParseString("", lw.input)
+	st, err := statementParser().ParseString("", lw.input)
 	if err != nil {
 		return nil, lw.wrapParse(err)
 	}
@@ -343,7 +343,7 @@ func Bindings(label, text string, env series.Env) ([]Binding, error) {
 	if strings.TrimSpace(text) == "" {
 		return nil, &Error{Label: label, Input: text, Msg: "empty input"}
 	}
-	bs, err := bindingsParser.ParseString("", text)
+	bs, err := bindingsParser().ParseString("", text)
 	if err != nil {
 		return nil, lw.wrapParse(err)
 	}

@@ -1,6 +1,8 @@
 package parse
 
 import (
+	"sync"
+
 	"github.com/alecthomas/participle/v2"
 	"github.com/alecthomas/participle/v2/lexer"
 )
@@ -155,21 +157,29 @@ type call struct {
 	Args []*choice `parser:"@@ ( \",\" @@ )* \")\""`
 }
 
-var tokens = lexer.MustSimple([]lexer.SimpleRule{
-	{Name: "Space", Pattern: `\s+`},
-	{Name: "Lap", Pattern: `Δ|∇²|∇\^2`},
-	{Name: "Number", Pattern: `(\d+\.\d+|\d+|\.\d+)([eE][-+]?\d+)?`},
-	{Name: "Ident", Pattern: `[\p{L}_][\p{L}\p{N}_]*`},
-	{Name: "Punct", Pattern: `\*\*|<=|>=|!=|\.\.|[-+*/^()=?:<>,]`},
+// tokens is the lexer, built on first use with the parsers.
+var tokens = sync.OnceValue(func() *lexer.StatefulDefinition {
+	return lexer.MustSimple([]lexer.SimpleRule{
+		{Name: "Space", Pattern: `\s+`},
+		{Name: "Lap", Pattern: `Δ|∇²|∇\^2`},
+		{Name: "Number", Pattern: `(\d+\.\d+|\d+|\.\d+)([eE][-+]?\d+)?`},
+		{Name: "Ident", Pattern: `[\p{L}_][\p{L}\p{N}_]*`},
+		{Name: "Punct", Pattern: `\*\*|<=|>=|!=|\.\.|[-+*/^()=?:<>,]`},
+	})
 })
 
-// The parsers are built once.
+// The parsers are built once, on first use: a run that reads no input
+// (psol version, --help) does not pay the few milliseconds of building them.
 var (
-	statementParser = participle.MustBuild[statement](
-		participle.Lexer(tokens), participle.Elide("Space"), participle.UseLookahead(2))
-	bindingsParser = participle.MustBuild[bindings](
-		participle.Lexer(tokens), participle.Elide("Space"), participle.UseLookahead(2))
+	statementParser = sync.OnceValue(func() *participle.Parser[statement] {
+		return participle.MustBuild[statement](
+			participle.Lexer(tokens()), participle.Elide("Space"), participle.UseLookahead(2))
+	})
+	bindingsParser = sync.OnceValue(func() *participle.Parser[bindings] {
+		return participle.MustBuild[bindings](
+			participle.Lexer(tokens()), participle.Elide("Space"), participle.UseLookahead(2))
+	})
 )
 
 // Grammar is the EBNF participle derives from the node types, for the golden test.
-func Grammar() string { return statementParser.String() }
+func Grammar() string { return statementParser().String() }

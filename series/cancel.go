@@ -3,6 +3,7 @@ package series
 import (
 	"math"
 	"math/big"
+	"sync"
 )
 
 // Cancellation of common linear factors n − k between the numerator and the
@@ -68,8 +69,8 @@ func divideRoot(cs []Poly, kr *big.Rat) ([]Poly, bool) {
 }
 
 // rootCandidates are the k tried: p/q with q dividing 12 (the denominators
-// a sector's ν_n can have) and |k| ≤ 24.
-var rootCandidates = func() []*big.Rat {
+// a sector's ν_n can have) and |k| ≤ 24. Built on first use.
+var rootCandidates = sync.OnceValue(func() []*big.Rat {
 	seen := map[string]bool{}
 	var out []*big.Rat
 	for _, q := range []int64{1, 2, 3, 4, 6, 12} {
@@ -82,7 +83,7 @@ var rootCandidates = func() []*big.Rat {
 		}
 	}
 	return out
-}()
+})
 
 // cancelIndexRoots removes the factors n − k that num and den share.
 func cancelIndexRoots(num, den Poly) (Poly, Poly) {
@@ -93,7 +94,7 @@ func cancelIndexRoots(num, den Poly) (Poly, Poly) {
 	}
 	changed := false
 	df, nf := probe(dc), probe(nc)
-	for _, k := range rootCandidates {
+	for _, k := range rootCandidates() {
 		if kf, _ := k.Float64(); !nearRoot(df, kf) || !nearRoot(nf, kf) {
 			continue // the exact division below is costly; a float probe rules most k out
 		}

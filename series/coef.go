@@ -551,11 +551,11 @@ func unitCircle(c Coef) (Coef, Coef, bool) {
 		return Coef{}, Coef{}, false
 	}
 	k := new(big.Int).Mod(twelfths.Num(), big.NewInt(24)).Int64()
-	v, ok := cos12[k%24]
+	v, ok := cos12()[k%24]
 	if !ok {
 		return Coef{}, Coef{}, false
 	}
-	s, ok := cos12[(k+18)%24] // sin x = cos(x − π/2)
+	s, ok := cos12()[(k+18)%24] // sin x = cos(x − π/2)
 	if !ok {
 		return Coef{}, Coef{}, false
 	}

@@ -6,6 +6,7 @@ import (
 	"math"
 	"math/big"
 	"strings"
+	"sync"
 )
 
 // Field is a function of the plane: an exact sum plus, where the algebra has
@@ -305,7 +306,7 @@ func angleOf(s Sum) (m int, c Coef, ok bool) {
 }
 
 // cos12 holds cos(kπ/12), every value a sum of rationals times 1, √2, √3 and √6.
-var cos12 = func() map[int64]Coef {
+var cos12 = sync.OnceValue(func() map[int64]Coef {
 	half := big.NewRat(1, 2)
 	r2, _ := IntCoef(2).Pow(half)
 	r3, _ := IntCoef(3).Pow(half)
@@ -326,7 +327,7 @@ var cos12 = func() map[int64]Coef {
 		out[(12+k)%24] = v.Neg() // cos(π + x) = −cos x
 	}
 	return out
-}()
+})
 
 // SeriesField is the series Σ_{n ≥ from, n ∉ skip} body: a remainder that
 // evaluates by summing until the terms fall below 1e-15 of the sum.
