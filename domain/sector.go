@@ -322,21 +322,32 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 	if b.fam.Sin {
 		part = 1
 	}
+	traceOf := func(k int) float64 {
+		switch b.cond.Kind {
+		case Neumann:
+			return dpm[k][part]
+		case Robin:
+			return dpm[k][part] + h*pm[k][part]
+		}
+		return pm[k][part]
+	}
+	scale := 0.0
+	for k := range pm {
+		scale = math.Max(scale, math.Abs(traceOf(k)))
+	}
 	for k := range pm {
 		n, ok := index(k)
 		if !ok {
 			continue
 		}
-		v := pm[k][part]
-		switch b.cond.Kind {
-		case Neumann:
-			v = dpm[k][part]
-		case Robin:
-			v = dpm[k][part] + h*pm[k][part]
-		}
+		v := traceOf(k)
 		// A trace far below its own error estimate is noise of a mode the
-		// symmetry empties: leave it out (and count it) rather than build
-		// the mode for it.
+		// symmetry empties, and one at rounding's level of the largest is
+		// noise too (below 1e-11 of it, it comes and goes between CPUs): leave it out (and
+		// count it) rather than build the mode for it.
+		if math.Abs(v) < 1e-11*scale {
+			continue // rounding: already within the estimate
+		}
 		if math.Abs(v) < 1e-3*qerr {
 			noise += math.Abs(v)
 			continue
