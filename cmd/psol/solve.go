@@ -95,7 +95,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	defer files.abort()
 	if o.plot != "" {
 		format, _ := plotFormat(o.plot)
-		title := "lap(u) = " + pr.source.Text() + " on " + pr.domain.Describe()
+		title := plotTitle(pr)
 		if err := files.stage(o.plot, func(w io.Writer) error { return plotSolution(w, format, title, sol) }); err != nil {
 			return err
 		}
@@ -220,4 +220,18 @@ func quantityHelp() string {
 		parts = append(parts, q.Name+" ("+q.Help+")")
 	}
 	return "figures of a trade, repeatable or comma-separated: " + strings.Join(parts, "; ")
+}
+
+// plotTitle is the problem as the user wrote it: the equation, the region,
+// and the conditions (each once: one given for every side shows once).
+func plotTitle(pr *problem) string {
+	seen := map[string]bool{}
+	var conds []string
+	for _, c := range pr.conds {
+		if !seen[c.Text] {
+			seen[c.Text] = true
+			conds = append(conds, strings.TrimSpace(c.Text))
+		}
+	}
+	return strings.TrimSpace(pr.equation) + " on " + pr.domain.Describe() + "\n" + strings.Join(conds, "; ")
 }
