@@ -154,9 +154,6 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 		levels = append(levels, f.min+(f.max-f.min)*float64(i)/9)
 	}
 	p.Add(newIsolines(f, levels, draw.LineStyle{Color: color.NRGBA{A: 200}, Width: vg.Points(0.6)}))
-	if labels := contourLabels(f, levels); labels != nil {
-		p.Add(labels)
-	}
 	for _, e := range edges {
 		l, err := plotter.NewLine(e)
 		if err != nil {
@@ -174,6 +171,10 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 		x0, x1 = c-h/2, c+h/2
 	}
 	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = x0, x1, y0, y1
+	// Labels last: their boxes depend on the window's size in data units.
+	if labels := contourLabels(f, levels, x1-x0, y1-y0); labels != nil {
+		p.Add(labels)
+	}
 	cb := &plotter.ColorBar{ColorMap: cm, Vertical: true}
 	bar2 := plot.New()
 	bar2.Add(cb)
@@ -205,21 +206,56 @@ func (p plainPalette) Colors() []color.Color { return p }
 
 // contourLabels puts each level's value beside a grid point where u is
 // closest to it, away from the others.
-func contourLabels(f *field, levels []float64) *plotter.Labels {
+func contourLabels(f *field, levels []float64, winW, winH float64) *plotter.Labels {
 	var xys plotter.XYs
 	var texts []string
+	// A label's box in cells: about six characters wide and one line tall
+	// on the 160-point field (a 10 pt font on a map about 5 inches wide).
+	// The text starts at its point and runs right and up from it: about
+	// 0.45 in by 0.17 in on a map about 5.3 in by 4.6 in (a 10 pt font),
+	// in cells of the field, which covers only part of the window.
+	bw := max(int(math.Ceil(0.45/5.3*winW/f.dx)), 2)
+	bh := max(int(math.Ceil(0.17/4.6*winH/f.dy)), 1)
+	inside := func(c, r int) bool {
+		for _, d := range [][2]int{{0, 0}, {bw, 0}, {0, bh}, {bw, bh}, {bw / 2, bh / 2}, {-1, -1}, {bw + 1, bh + 1}} {
+			cc, rr := c+d[0], r+d[1]
+			if cc < 0 || rr < 0 || cc >= f.nx || rr >= f.ny || math.IsNaN(f.Z(cc, rr)) {
+				return false
+			}
+		}
+		return true
+	}
+	var placed [][2]int
+	clear := func(c, r int) bool {
+		for _, p := range placed {
+			if abs(c-p[0]) < bw+2 && abs(r-p[1]) < bh+2 {
+				return false
+			}
+		}
+		return true
+	}
+	span := f.max - f.min
 	for _, lv := range levels {
+		// Candidates: points on the level (to a hundredth of the range),
+		// whole box inside the region; the first clear of the labels placed.
 		best, bc, br := math.Inf(1), -1, -1
-		for r := f.ny / 5; r < 4*f.ny/5; r += 3 {
-			for c := 0; c < f.nx; c += 3 {
-				if z := f.Z(c, r); !math.IsNaN(z) && math.Abs(z-lv) < best {
-					best, bc, br = math.Abs(z-lv), c, r
+		for r := f.ny / 8; r < 7*f.ny/8; r += 2 {
+			for c := 0; c < f.nx; c += 2 {
+				z := f.Z(c, r)
+				if math.IsNaN(z) || math.Abs(z-lv) > 0.01*span || !inside(c, r) || !clear(c, r) {
+					continue
+				}
+				// Prefer the middle of the map: labels at the edges crowd the boundary.
+				d := math.Abs(z-lv)/span + 0.001*math.Hypot(float64(c-f.nx/2), float64(r-f.ny/2))
+				if d < best {
+					best, bc, br = d, c, r
 				}
 			}
 		}
 		if bc < 0 {
-			continue
+			continue // no clear place: drop the label rather than overlap
 		}
+		placed = append(placed, [2]int{bc, br})
 		xys = append(xys, plotter.XY{X: f.X(bc), Y: f.Y(br)})
 		texts = append(texts, fmt.Sprintf("%.3g", lv))
 	}
@@ -231,6 +267,13 @@ func contourLabels(f *field, levels []float64) *plotter.Labels {
 		return nil
 	}
 	return l
+}
+
+func abs(n int) int {
+	if n < 0 {
+		return -n
+	}
+	return n
 }
 
 // plotFormat picks PNG or SVG from the file name.
