@@ -33,6 +33,10 @@ type Quadrature struct {
 	Keep    func(k int, sin bool) bool
 	Tol     float64
 	Samples int // angular samples, fixed by Prepare
+	// MaxSamples caps the angular samples (0: 4096). Below the default it
+	// coarsens the quadrature on purpose: the tests use it to make the
+	// errors large enough for the estimate's honesty to be tested.
+	MaxSamples int
 	Modes   int // highest mode kept
 	// Converged is false where the samples reached their cap before the top
 	// band fell below Tol; Truncation then estimates the modes beyond them.
@@ -274,7 +278,7 @@ var ErrSlowDecay = errors.New("the source does not decay faster than r^-2, so it
 // panel is bisected until its Legendre tail is too.
 func (q *Quadrature) Prepare() error {
 	q.recent = nil
-	for n := 32; ; n *= 2 {
+	for n := min(32, q.maxSamples()); ; n *= 2 {
 		q.Samples = n
 		worst, scale, modes := 0.0, 0.0, 0
 		// What matters is each mode's share of p (weight): its source over ν².
@@ -302,7 +306,7 @@ func (q *Quadrature) Prepare() error {
 		// whose spectrum has not converged, such as an extension with a jump,
 		// is refined and estimated as before.)
 		resolved := worst <= q.Tol*math.Max(scale, 1e-300)
-		if (!resolved || aliased) && n < 1<<12 {
+		if (!resolved || aliased) && n < q.maxSamples() {
 			continue
 		}
 		if resolved && aliased {
@@ -759,4 +763,11 @@ func (q *Quadrature) offGrid(r float64, a, b []float64) bool {
 		worst = math.Max(worst, math.Abs(g-v))
 	}
 	return worst > 1e-6*math.Max(size, 1e-300) && worst > 1e3*q.Tol*size
+}
+
+func (q *Quadrature) maxSamples() int {
+	if q.MaxSamples > 0 {
+		return q.MaxSamples
+	}
+	return 1 << 12
 }

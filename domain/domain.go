@@ -85,6 +85,7 @@ type posed struct {
 	rest    *series.Expr // the source's part with no closed form, for quadrature
 	// forceQuadrature keeps rest from any ansatz (Options.NumericSource).
 	forceQuadrature bool
+	quadSamples     int // Options.QuadratureSamples
 }
 
 // Side is what one boundary part contributes: the condition, the particular
@@ -190,7 +191,7 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 	if opt.NumericSource && source.IsExact() {
 		source = series.Field{Rest: series.ExprOf(source.Exact)}
 	}
-	p := &posed{f: source.Exact, rest: source.Rest, conds: map[string]Condition{}, env: opt.Env, tol: opt.Tol, numeric: opt.NumericData, forceQuadrature: opt.NumericSource}
+	p := &posed{f: source.Exact, rest: source.Rest, conds: map[string]Condition{}, env: opt.Env, tol: opt.Tol, numeric: opt.NumericData, forceQuadrature: opt.NumericSource, quadSamples: opt.QuadratureSamples}
 	for _, c := range conds {
 		if _, dup := p.conds[c.Side]; dup {
 			return nil, unsupported("side %s has two conditions; give one", c.Side)

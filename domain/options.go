@@ -32,6 +32,10 @@ type Options struct {
 	NumericData bool
 	// NumericSource sends the whole source to the quadrature fallback (for comparing the two).
 	NumericSource bool
+	// QuadratureSamples caps the quadrature's angular samples (0: its own
+	// default). Below it, the quadrature is coarse on purpose: a test hook
+	// for the honesty of its error estimate where the errors are large.
+	QuadratureSamples int
 }
 
 // SumTol is the series truncation used where no tolerance is given.
