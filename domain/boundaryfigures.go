@@ -70,6 +70,9 @@ type GradientPeak struct {
 	// Corner is set where the largest value sits at a re-entrant corner,
 	// where |∇u| is unbounded in general: Value is then where sampling stopped.
 	Corner bool
+	// Exact marks a value from the exact derivatives of a closed solution
+	// (at the location found by sampling), not from differences.
+	Exact bool
 }
 
 // gradientPeak samples |∇u| on the sides (the normal derivative one-sided

@@ -273,7 +273,11 @@ func torsionFigures(s *Solution, rep *Report) ([]Figure, error) {
 		sv, err := series.IntCoef(-2).Div(c)
 		if err == nil {
 			if k, err := sv.Float(s.Options.Env); err == nil {
-				tau := Figure{Name: "tau_max", Value: k * g.Value, At: &g.At, Digits: 9,
+				digits := 9 // from differences
+				if g.Exact {
+					digits = 0 // from the exact derivatives: printing's 12
+				}
+				tau := Figure{Name: "tau_max", Value: k * g.Value, At: &g.At, Digits: digits,
 					Description: "peak shear stress over G*theta: the largest |grad u| for lap(u) = -2 (on the boundary, where the stress function is steepest)"}
 				if g.Corner {
 					tau.Warnings = append(tau.Warnings, "the largest value is at a re-entrant corner, where the stress is unbounded in this model: the figure is where sampling stopped")

@@ -80,8 +80,32 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 		inside = nil // the peak of |∇u| is on the boundary
 	}
 	g := gradientPeak(shape, ev, inside)
+	if s.IsClosed() && !g.Corner {
+		// A closed solution's gradient at the peak found, from the exact
+		// derivatives: the value to rounding, not to the differences' 1e-9.
+		if v, ok := exactGradient(s.U, env, g.At); ok {
+			g.Value, g.Exact = v, true
+		}
+	}
 	rep.Gradient = &g
 	return rep, nil
+}
+
+// exactGradient is |∇u| = √(u_r² + (u_θ/r)²) at (x, y) from the exact
+// derivatives of a closed u.
+func exactGradient(u series.Sum, env series.Env, at [2]float64) (float64, bool) {
+	ur, err1 := u.DR().Compile(env)
+	ut, err2 := u.DTheta().Compile(env)
+	if err1 != nil || err2 != nil {
+		return 0, false
+	}
+	r := math.Hypot(at[0], at[1])
+	if r == 0 {
+		return 0, false
+	}
+	th := math.Atan2(at[1], at[0])
+	v := math.Hypot(ur.At(r, th), ut.At(r, th)/r)
+	return v, !math.IsNaN(v) && !math.IsInf(v, 0)
 }
 
 // sub substitutes the parameters' values in an exact figure and evaluates it.
