@@ -293,7 +293,11 @@ func renderText(w io.Writer, v *view) error {
 			line(w, "report", "net outward flux = source integral = "+r.FluxText+" (divergence theorem)")
 		}
 		if g := r.Gradient; g != nil {
-			line(w, "report", fmt.Sprintf("largest |grad u| = %.9g at x = %.6g, y = %.6g", g.Value, g.At[0], g.At[1])+g.note)
+			digits := 9 // by differences
+			if g.exact {
+				digits = 12 // from the exact derivatives
+			}
+			line(w, "report", fmt.Sprintf("largest |grad u| = %.*g at x = %.6g, y = %.6g", digits, g.Value, g.At[0], g.At[1])+g.note)
 		}
 		if r.Note != "" {
 			line(w, "report", r.Note)
@@ -351,6 +355,7 @@ type gradientOut struct {
 	At     [2]float64 `json:"at"`
 	Corner bool       `json:"at_reentrant_corner,omitempty"`
 	note   string
+	exact  bool
 }
 
 func finite(v float64) *float64 {
@@ -378,7 +383,7 @@ func newReportOut(r *domain.Report) *reportOut {
 		out.Sides = append(out.Sides, sideOut{Side: f.Side, Flux: finite(f.Value), Text: exactText(f.Exact)})
 	}
 	if g := r.Gradient; g != nil && !math.IsNaN(g.Value) {
-		out.Gradient = &gradientOut{Value: g.Value, At: g.At, Corner: g.Corner}
+		out.Gradient = &gradientOut{Value: g.Value, At: g.At, Corner: g.Corner, exact: g.Exact}
 		if g.Corner {
 			out.Gradient.note = " (at a re-entrant corner, where |grad u| is unbounded in general: the value is where sampling stopped)"
 		}
