@@ -37,7 +37,7 @@ type Quadrature struct {
 	// coarsens the quadrature on purpose: the tests use it to make the
 	// errors large enough for the estimate's honesty to be tested.
 	MaxSamples int
-	Modes   int // highest mode kept
+	Modes      int // highest mode kept
 	// Converged is false where the samples reached their cap before the top
 	// band fell below Tol; Truncation then estimates the modes beyond them.
 	Converged  bool
