@@ -357,30 +357,31 @@ func (c *CompiledSide) integralByQuadrature() float64 {
 	}, c.l, c.w, 16)
 }
 
-// local is the point (x, y) as (s along the side, d from the opposite side).
+// local is the point (x, y) as (s along the side, d from the opposite side),
+// from the rectangle's table of sides.
 func (c *CompiledSide) local(x, y float64) (s, d float64) {
-	switch c.side {
-	case Bottom:
-		return x, c.w - y
-	case Top:
-		return x, y
-	case Left:
-		return y, c.w - x
+	e := rectEdges[c.side]
+	s, across := x, y
+	if e.alongY {
+		s, across = y, x
 	}
-	return y, x
+	if e.far {
+		return s, across
+	}
+	return s, c.w - across
 }
 
 // point is local's inverse.
 func (c *CompiledSide) point(s, d float64) (x, y float64) {
-	switch c.side {
-	case Bottom:
-		return s, c.w - d
-	case Top:
-		return s, d
-	case Left:
-		return c.w - d, s
+	e := rectEdges[c.side]
+	across := c.w - d
+	if e.far {
+		across = d
 	}
-	return d, s
+	if e.alongY {
+		return across, s
+	}
+	return s, across
 }
 
 // acrossFunctions names the across factor's numerator and denominator
