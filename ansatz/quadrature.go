@@ -436,30 +436,57 @@ func (q *Quadrature) mesh() ([]panel, error) {
 	return mesh, nil
 }
 
-// refine bisects each finite panel while its Legendre tail, weighted by its
+// refine bisects finite panels while their Legendre tail, weighted by their
 // share of the integrals (width × outer radius), exceeds Tol relative to the
-// source's size (scale, over the reference radius squared).
+// source's size (scale, over the reference radius squared). The worst panel
+// is bisected first, so that when the budget (400 bisections, and the memory
+// of MaxQuadratureBytes) runs out the bisections went where they help most;
+// past it the halved mesh's estimate tells what is left.
 func (q *Quadrature) refine(mesh []panel, scale float64) []panel {
 	ref := q.R
 	if math.IsInf(ref, 1) {
 		ref = q.A
 	}
-	var out []panel
-	budget := 400 // bisections; past it the halved mesh's estimate tells what is left
-	var visit func(p panel, depth int)
-	visit = func(p panel, depth int) {
-		if !p.infinite && depth < 30 && budget > 0 && q.tail(p)*(p.hi-p.lo)*p.hi > 0.1*radialTol(q.Tol)*scale*ref*ref {
-			budget--
-			mid := (p.lo + p.hi) / 2
-			visit(q.newPanel(p.lo, mid, false), depth+1)
-			visit(q.newPanel(mid, p.hi, false), depth+1)
-			return
-		}
-		q.sums(&p)
-		out = append(out, p)
+	limit := 0.1 * radialTol(q.Tol) * scale * ref * ref
+	type leaf struct {
+		p      panel
+		depth  int
+		excess float64 // the weighted tail; 0 for a panel that stays
 	}
-	for _, p := range mesh {
-		visit(p, 0)
+	weigh := func(p panel, depth int) leaf {
+		l := leaf{p: p, depth: depth}
+		if !p.infinite && depth < 30 {
+			if e := q.tail(p) * (p.hi - p.lo) * p.hi; e > limit {
+				l.excess = e
+			}
+		}
+		return l
+	}
+	leaves := make([]leaf, len(mesh))
+	for i, p := range mesh {
+		leaves[i] = weigh(p, 0)
+	}
+	// Each bisection adds one coarse panel and two halved ones.
+	for budget := min(400, MaxQuadratureBytes/(3*q.panelBytes())-len(mesh)); budget > 0; budget-- {
+		worst := -1
+		for i, l := range leaves {
+			if l.excess > 0 && (worst < 0 || l.excess > leaves[worst].excess) {
+				worst = i
+			}
+		}
+		if worst < 0 {
+			break
+		}
+		l := leaves[worst]
+		mid := (l.p.lo + l.p.hi) / 2
+		left, right := weigh(q.newPanel(l.p.lo, mid, false), l.depth+1), weigh(q.newPanel(mid, l.p.hi, false), l.depth+1)
+		leaves = append(leaves[:worst+1], leaves[worst:]...)
+		leaves[worst], leaves[worst+1] = left, right
+	}
+	out := make([]panel, len(leaves))
+	for i, l := range leaves {
+		q.sums(&l.p)
+		out[i] = l.p
 	}
 	return out
 }
@@ -764,6 +791,15 @@ func (q *Quadrature) offGrid(r float64, a, b []float64) bool {
 	}
 	return worst > 1e-6*math.Max(size, 1e-300) && worst > 1e3*q.Tol*size
 }
+
+// MaxQuadratureBytes is the work budget of a quadrature's radial mesh: the
+// bytes its panels' node coefficients may take (the coarse mesh and its
+// halving together). It bounds memory, and with it the source evaluations.
+const MaxQuadratureBytes = 64 << 20
+
+// panelBytes is one panel's node coefficients: glN rings of Samples/2
+// cosine and sine coefficients.
+func (q *Quadrature) panelBytes() int { return glN * q.Samples * 8 }
 
 func (q *Quadrature) maxSamples() int {
 	if q.MaxSamples > 0 {
