@@ -3,6 +3,7 @@ package ansatz
 import (
 	"errors"
 	"math"
+	"sort"
 
 	"gonum.org/v1/gonum/dsp/fourier"
 )
@@ -37,7 +38,10 @@ type Quadrature struct {
 	// coarsens the quadrature on purpose: the tests use it to make the
 	// errors large enough for the estimate's honesty to be tested.
 	MaxSamples int
-	Modes      int // highest mode kept
+	// MaxBisections caps the radial mesh's bisections (0: 400), a test hook
+	// like MaxSamples for the estimate of the radial error.
+	MaxBisections int
+	Modes         int // highest mode kept
 	// Converged is false where the samples reached their cap before the top
 	// band fell below Tol; Truncation then estimates the modes beyond them.
 	Converged  bool
@@ -50,6 +54,8 @@ type Quadrature struct {
 	coarse, fine []panel
 	dropped      float64 // a bound on the particular solution of the modes not kept
 	ffts         map[int]*fourier.FFT
+	sourceSize   float64   // the largest |g| sampled (SourceSize)
+	peakRadii    []float64 // where |g| peaks (peaks), found once by Prepare
 	buf          []float64
 	recent       []*modeAt // the latest Modes, newest last: a stencil or a ring revisits a few radii
 }
@@ -159,6 +165,7 @@ func (q *Quadrature) ring(s float64) (a, b []float64) {
 	P := q.period()
 	for j := range x {
 		x[j] = q.G(s, P*float64(j)/float64(n))
+		q.sourceSize = math.Max(q.sourceSize, math.Abs(x[j]))
 	}
 	c := fft.Coefficients(nil, x)
 	a, b = make([]float64, n/2), make([]float64, n/2)
@@ -277,7 +284,7 @@ var ErrSlowDecay = errors.New("the source does not decay faster than r^-2, so it
 // each starting panel) is below Tol relative to the source's size; then each
 // panel is bisected until its Legendre tail is too.
 func (q *Quadrature) Prepare() error {
-	q.recent = nil
+	q.recent, q.peakRadii = nil, q.peaks()
 	for n := min(32, q.maxSamples()); ; n *= 2 {
 		q.Samples = n
 		worst, scale, modes := 0.0, 0.0, 0
@@ -377,7 +384,10 @@ func tailSum(size []float64) float64 {
 }
 
 // probes are the radii whose rings choose the angular samples: the middle of
-// each starting panel.
+// each starting panel, and where the source peaks. A source concentrated
+// about one radius (a sharp ring, an off-centre spike) can fall between the
+// panels' middles; a scan of the largest |g| on 256 rings of 256 angles
+// finds it, and the radii of its largest local maxima join the probes.
 func (q *Quadrature) probes() []float64 {
 	var out []float64
 	switch {
@@ -393,6 +403,39 @@ func (q *Quadrature) probes() []float64 {
 		for i := 0; i < 8; i++ {
 			out = append(out, q.A+(q.R-q.A)*(float64(i)+0.5)/8)
 		}
+	}
+	return append(out, q.peakRadii...)
+}
+
+// peaks are the radii of the largest local maxima of max_θ |g| on a scan of
+// the region (out to 64 A when it is unbounded), at most eight of them.
+func (q *Quadrature) peaks() []float64 {
+	const rings, angles = 256, 256
+	lo, hi := q.A, q.R
+	if math.IsInf(hi, 1) {
+		hi = 64 * q.A
+	}
+	radius := func(i int) float64 { return lo + (hi-lo)*(float64(i)+0.5)/rings }
+	size := make([]float64, rings)
+	P := q.period()
+	for i := range size {
+		r := radius(i)
+		for j := 0; j < angles; j++ {
+			if v := math.Abs(q.G(r, P*(float64(j)+0.5)/angles)); v > size[i] {
+				size[i] = v
+			}
+		}
+	}
+	var at []int
+	for i, v := range size {
+		if (i == 0 || v > size[i-1]) && (i == rings-1 || v >= size[i+1]) && v > 0 && !math.IsInf(v, 0) {
+			at = append(at, i)
+		}
+	}
+	sort.Slice(at, func(a, b int) bool { return size[at[a]] > size[at[b]] })
+	out := make([]float64, 0, 8)
+	for _, i := range at[:min(8, len(at))] {
+		out = append(out, radius(i))
 	}
 	return out
 }
@@ -467,7 +510,7 @@ func (q *Quadrature) refine(mesh []panel, scale float64) []panel {
 		leaves[i] = weigh(p, 0)
 	}
 	// Each bisection adds one coarse panel and two halved ones.
-	for budget := min(400, MaxQuadratureBytes/(3*q.panelBytes())-len(mesh)); budget > 0; budget-- {
+	for budget := min(q.maxBisections(), MaxQuadratureBytes/(3*q.panelBytes())-len(mesh)); budget > 0; budget-- {
 		worst := -1
 		for i, l := range leaves {
 			if l.excess > 0 && (worst < 0 || l.excess > leaves[worst].excess) {
@@ -778,7 +821,13 @@ func (q *Quadrature) offGrid(r float64, a, b []float64) bool {
 	const phi = 0.6180339887498949
 	P := q.period()
 	w := 2 * math.Pi / P
+	// The ring's size is at least Σ|a_k| + |b_k|: a source concentrated
+	// between the 13 test angles is tiny at all of them, and the FFT's
+	// rounding must be measured against its peak.
 	size, worst := 0.0, 0.0
+	for k := range a {
+		size += math.Abs(a[k]) + math.Abs(b[k])
+	}
 	for j := 1; j <= 13; j++ {
 		th := P * math.Mod(float64(j)*phi, 1)
 		v := 0.0
@@ -800,6 +849,18 @@ const MaxQuadratureBytes = 64 << 20
 // panelBytes is one panel's node coefficients: glN rings of Samples/2
 // cosine and sine coefficients.
 func (q *Quadrature) panelBytes() int { return glN * q.Samples * 8 }
+
+// SourceSize is the largest |g| the quadrature sampled: the scale a check of
+// its residual is measured against (a concentrated source can be tiny at
+// every point a check samples).
+func (q *Quadrature) SourceSize() float64 { return q.sourceSize }
+
+func (q *Quadrature) maxBisections() int {
+	if q.MaxBisections > 0 {
+		return q.MaxBisections
+	}
+	return 400
+}
 
 func (q *Quadrature) maxSamples() int {
 	if q.MaxSamples > 0 {

@@ -30,7 +30,7 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 			return err
 		}
 	}
-	q := &ansatz.Quadrature{G: cf.At, A: a, R: R, Tol: p.tol, MaxSamples: p.quadSamples}
+	q := &ansatz.Quadrature{G: cf.At, A: a, R: R, Tol: p.tol, MaxSamples: p.quadSamples, MaxBisections: p.quadBisections}
 	if err := q.Prepare(); err != nil {
 		return unsolvable("%s: %w", p.rest.Text(), err)
 	}

@@ -409,8 +409,8 @@ func TestQuadratureEstimatesWhereErrorsAreLarge(t *testing.T) {
 		t.Fatal(err)
 	}
 	var un *domain.Unsolvable
-	if _, err := domain.SolveWith(unitDisk, f, conds, domain.Options{Tol: 1e-12, QuadratureSamples: 16}); !errors.As(err, &un) || !strings.Contains(err.Error(), "own check") {
-		t.Errorf("16 samples: %v, want a refusal by psol's own check", err)
+	if _, err := domain.SolveWith(unitDisk, f, conds, domain.Options{Tol: 1e-12, QuadratureSamples: 8}); !errors.As(err, &un) || !strings.Contains(err.Error(), "own check") {
+		t.Errorf("8 samples: %v, want a refusal by psol's own check", err)
 	}
 	ref := solveWith(t, eq, unitDisk, domain.Options{Tol: 1e-13}, "u = 0")
 	refEv, err := ref.Compile(nil, 1e-13, domain.PointTerms)
@@ -467,5 +467,68 @@ func TestQuadratureKinkedSourceWithinBudget(t *testing.T) {
 		if trueErr > 1e-8 || !honest(est, trueErr, 1e-13) {
 			t.Errorf("u(r=%g, theta=%g) = %.14f, Poisson integral %.14f: error %.2g, estimate %.2g", p[0], p[1], got, ref, trueErr, est)
 		}
+	}
+}
+
+// The radial mesh's estimate where its error is large: a source sharp in r
+// and constant in θ, Δu = exp(−(r − 0.5)²/0.0005) on the unit disk with
+// u = 0, with one radial bisection allowed (Options.QuadratureBisections).
+// Reference: u(r) = ∫₀¹ t f(t) ln max(r, t) dt (the radial Green's function,
+// common practice: (r u')' = r f and u(1) = 0), by gonum's Gauss–Legendre on
+// panels. The true error is asserted large, so the estimate is tested.
+func TestQuadratureRadialEstimateWhereErrorsAreLarge(t *testing.T) {
+	f := func(t float64) float64 { return math.Exp(-(t - 0.5) * (t - 0.5) / 0.0005) }
+	nodes, weights := legendre(40)
+	want := func(r float64) float64 {
+		total := 0.0
+		for _, span := range [][2]float64{{0, r}, {r, 1}} {
+			for p := 0; p < 64; p++ {
+				lo := span[0] + (span[1]-span[0])*float64(p)/64
+				hi := span[0] + (span[1]-span[0])*float64(p+1)/64
+				for j, x := range nodes {
+					s := (lo+hi)/2 + (hi-lo)/2*x
+					total += weights[j] * (hi - lo) / 2 * s * f(s) * math.Log(math.Max(r, s))
+				}
+			}
+		}
+		return total
+	}
+	sol := solveWith(t, "lap(u) = exp(-(r - 0.5)^2/0.0005)", unitDisk, domain.Options{Tol: 1e-12, QuadratureBisections: 1}, "u = 0")
+	ev := evaluator(t, sol, 1e-12)
+	// The estimate bounds the error at each r (not below it by more than 10×)
+	// and is uniform in r, so its pessimism is measured against the largest
+	// error: within 100× of it.
+	largest, largestEst := 0.0, 0.0
+	for _, r := range []float64{0.1, 0.3, 0.45, 0.5, 0.55, 0.7, 0.9} {
+		got, est, _ := ev.At(r, 1)
+		trueErr := math.Abs(got - want(r))
+		largest, largestEst = math.Max(largest, trueErr), math.Max(largestEst, est)
+		if est < trueErr/10 {
+			t.Errorf("u(%g) = %.14f, Green's integral %.14f: error %.2g above its estimate %.2g", r, got, want(r), trueErr, est)
+		}
+	}
+	if largest < 1e-10 {
+		t.Errorf("largest true error %.2g: the hook no longer makes the radial error large", largest)
+	}
+	if largestEst > 100*largest {
+		t.Errorf("largest estimate %.2g, over 100 times the largest true error %.2g", largestEst, largest)
+	}
+}
+
+// A source concentrated between the quadrature's probe radii, a narrow
+// Gaussian of width 0.01 at z₀ = 0.55: the scan for peaks finds it, and the
+// sampled check measures against its peak, not against its size at the
+// check's points (e^−2025 at the nearest). Reference: u(0) = ∬ f(ζ) G(0, ζ)
+// dA with the disk's Green's function G(0, ζ) = ln|ζ|/2π (images; Jackson
+// ch. 2), and since ln|ζ| is harmonic about z₀ and f is symmetric about it,
+// the mean-value property gives u(0) = M ln|z₀|/2π with M = π·10⁻⁴ (the
+// tail beyond the disk, below e^−2000, is nothing).
+func TestQuadratureConcentratedSource(t *testing.T) {
+	sol := solveWith(t, "lap(u) = exp(-((x - 0.55)^2 + y^2)/0.0001)", unitDisk, domain.Options{Tol: 1e-10}, "u = 0")
+	ev := evaluator(t, sol, 1e-10)
+	got, est, _ := ev.At(0, 0)
+	want := 1e-4 / 2 * math.Log(0.55)
+	if trueErr := math.Abs(got - want); trueErr > 1e-13 || !honest(est, trueErr, 1e-16) {
+		t.Errorf("u(0) = %.15g, Green's function %.15g: error %.2g, estimate %.2g", got, want, trueErr, est)
 	}
 }

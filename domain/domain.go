@@ -86,6 +86,7 @@ type posed struct {
 	// forceQuadrature keeps rest from any ansatz (Options.NumericSource).
 	forceQuadrature bool
 	quadSamples     int // Options.QuadratureSamples
+	quadBisections  int // Options.QuadratureBisections
 }
 
 // Side is what one boundary part contributes: the condition, the particular
@@ -109,7 +110,8 @@ type Check struct {
 	Exact    bool
 	Residual series.Sum
 	Numeric  float64 // the largest residual on a check grid, when not exact
-	scale    float64 // the size of what a sampled check compares (for failed)
+	scale    float64 // the size of what a sampled check compares, at its points (for failed)
+	peak     float64 // the largest size anywhere, where known (a concentrated source's peak)
 	// independentFailed marks the independent check failing: psol's own
 	// solution does not meet its conditions (a defect of psol's).
 	independentFailed bool
@@ -191,7 +193,7 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 	if opt.NumericSource && source.IsExact() {
 		source = series.Field{Rest: series.ExprOf(source.Exact)}
 	}
-	p := &posed{f: source.Exact, rest: source.Rest, conds: map[string]Condition{}, env: opt.Env, tol: opt.Tol, numeric: opt.NumericData, forceQuadrature: opt.NumericSource, quadSamples: opt.QuadratureSamples}
+	p := &posed{f: source.Exact, rest: source.Rest, conds: map[string]Condition{}, env: opt.Env, tol: opt.Tol, numeric: opt.NumericData, forceQuadrature: opt.NumericSource, quadSamples: opt.QuadratureSamples, quadBisections: opt.QuadratureBisections}
 	for _, c := range conds {
 		if _, dup := p.conds[c.Side]; dup {
 			return nil, unsupported("side %s has two conditions; give one", c.Side)

@@ -36,6 +36,9 @@ type Options struct {
 	// default). Below it, the quadrature is coarse on purpose: a test hook
 	// for the honesty of its error estimate where the errors are large.
 	QuadratureSamples int
+	// QuadratureBisections caps the quadrature's radial bisections (0: its
+	// own default), the same kind of hook for the radial mesh's estimate.
+	QuadratureBisections int
 }
 
 // SumTol is the series truncation used where no tolerance is given.

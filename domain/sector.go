@@ -295,7 +295,7 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 		n := (k - off) / 2
 		return n, n >= b.fam.From
 	}
-	q := &ansatz.Quadrature{G: ext, A: 0, R: R, Period: 4 * alpha, Tol: p.tol, Lift: lift,
+	q := &ansatz.Quadrature{G: ext, A: 0, R: R, Period: 4 * alpha, Tol: p.tol, Lift: lift, MaxSamples: p.quadSamples, MaxBisections: p.quadBisections,
 		Keep: func(k int, sin bool) bool { _, ok := index(k); return ok && sin == b.fam.Sin }}
 	if err := q.Prepare(); err != nil {
 		return unsolvable("%s: %w", p.rest.Text(), err)
