@@ -73,10 +73,14 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 }
 
 // decimal is x rounded to 15 digits as an exact decimal.
-func decimal(x float64) series.Coef {
+func decimal(x float64) series.Coef { return decimalDigits(x, 15) }
+
+// decimalDigits is x rounded to the given significant digits as an exact
+// decimal.
+func decimalDigits(x float64, digits int) series.Coef {
 	if x == 0 || math.IsNaN(x) {
 		return series.Coef{}
 	}
-	q, _ := new(big.Rat).SetString(strconv.FormatFloat(x, 'g', 15, 64))
+	q, _ := new(big.Rat).SetString(strconv.FormatFloat(x, 'g', digits, 64))
 	return series.RatCoef(q)
 }

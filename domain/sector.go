@@ -331,10 +331,19 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 		}
 		return pm[k][part]
 	}
+	// The trace's size: of its modes and of the lift's polynomial in θ
+	// (Σ|c_k|α^k bounds it on the arc), which can be most of it.
 	scale := 0.0
 	for k := range pm {
 		scale = math.Max(scale, math.Abs(traceOf(k)))
 	}
+	liftSize := 0.0
+	for _, t := range b.liftArc.Terms() {
+		if c, err := t.C.Float(nil); err == nil {
+			liftSize += math.Abs(c) * math.Pow(alpha, float64(t.K))
+		}
+	}
+	scale = math.Max(scale, liftSize)
 	for k := range pm {
 		n, ok := index(k)
 		if !ok {
@@ -382,7 +391,11 @@ func (b *sectorBuilder) liftTrace(lift *ansatz.RayLift, R, h float64) series.Sum
 		}
 		for k, a := range poly {
 			if af, _ := a.Float(nil); af != 0 {
-				out = out.Add(series.NewSum(series.Term{C: decimal(c * af), K: k}))
+				// 13 digits: the lift's coefficients cancel in the modes'
+				// general term, and past 13 digits the cancellation's
+				// remainder is rounding that differs between CPUs (fused
+				// multiply-add); the quadrature's own error is far larger.
+				out = out.Add(series.NewSum(series.Term{C: decimalDigits(c*af, 13), K: k}))
 			}
 		}
 	}

@@ -416,6 +416,11 @@ func printCoef(c Coef, st style) string {
 // common atoms in front, brackets only where they are needed.
 func printQuotient(c Coef, st style) string {
 	q := c.num.content()
+	if st.decimal {
+		// Numeric coefficients print one by one as decimals: a common
+		// rational content would turn them into long integers.
+		q = new(big.Rat).Set(one)
+	}
 	g := commonMonomial(c.num)
 	num := c.num.ScaleRat(new(big.Rat).Inv(q))
 	head := ""
@@ -476,6 +481,9 @@ func factoredSum(p Poly, st style) (string, bool) {
 	inv, _ := Poly{[]pterm{{m, one}}}.PowRat(big.NewRat(-1, 1))
 	rest := p.Mul(inv)
 	q := rest.content()
+	if st.decimal { // numeric coefficients one by one, as in printQuotient
+		q = new(big.Rat).Set(one)
+	}
 	if rest.t[0].c.Sign() < 0 {
 		q.Neg(q)
 	}
