@@ -148,12 +148,14 @@ type Solution struct {
 	RaysByShift bool
 	// Rect is a rectangle's stages in x and y, for printing; its evaluation
 	// is one of the stages.
-	Rect   *RectParts
-	stages []stage       // region parts that evaluation attaches (see Compile)
-	Rules  []ansatz.Step // how each source term was solved
-	Steps  []string      // how the harmonic part was found, beyond the per-mode records
-	modes  []modeRecord
-	Notes  []string
+	Rect *RectParts
+	// Section is a polygon's or an ellipse's numeric harmonic part.
+	Section *SectionParts
+	stages  []stage       // region parts that evaluation attaches (see Compile)
+	Rules   []ansatz.Step // how each source term was solved
+	Steps   []string      // how the harmonic part was found, beyond the per-mode records
+	modes   []modeRecord
+	Notes   []string
 	// Quadrature is the particular solution of the source's part with no
 	// closed form, and Rest that part.
 	Quadrature *ansatz.Quadrature

@@ -21,6 +21,25 @@ type Evaluator struct {
 	waves   *cart.CompiledWaves    // a rectangle's exponential and trigonometric particular part
 	sq      *ansatz.SineQuadrature // a rectangle's numeric particular part
 	dataErr float64                // what numeric traces bring to every value
+	parts   []xyPart               // numeric parts evaluated in x and y (a section's harmonic part)
+}
+
+// xyPart is a numeric part of a solution evaluated in x and y.
+type xyPart interface {
+	AtXY(x, y float64) float64
+}
+
+// partsAt is the sum of the xy parts at (r, θ).
+func (e *Evaluator) partsAt(r, theta float64) float64 {
+	if len(e.parts) == 0 {
+		return 0
+	}
+	x, y := r*math.Cos(theta), r*math.Sin(theta)
+	v := 0.0
+	for _, p := range e.parts {
+		v += p.AtXY(x, y)
+	}
+	return v
 }
 
 // rectWalls holds a rectangle's Dirichlet data in the side coordinates.
@@ -113,7 +132,7 @@ func (e *Evaluator) atClosedAndSeries(r, theta float64) (u, errEst float64, term
 		u, errEst = e.atXYTail(r*math.Cos(theta), r*math.Sin(theta))
 		return u, errEst, 0
 	}
-	u = e.closed.At(r, theta)
+	u = e.closed.At(r, theta) + e.partsAt(r, theta)
 	if e.ser == nil {
 		return u, 0, 0
 	}
@@ -159,6 +178,13 @@ func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
 		for k, t := range e.ser.Grid(far, thetas, rows, e.tol, e.max) {
 			for j := range thetas {
 				errs[farRows[k]][j] = t
+			}
+		}
+	}
+	if len(e.parts) > 0 {
+		for i, r := range rs {
+			for j, th := range thetas {
+				u[i][j] += e.partsAt(r, th)
 			}
 		}
 	}

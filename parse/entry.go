@@ -438,3 +438,50 @@ func FixIn(unknown, text string, env series.Env) (r, theta, v series.Coef, err e
 	}
 	return vals[0], vals[1], vals[2], nil
 }
+
+// Vertices reads a polygon's corners, "X1,Y1 X2,Y2 …": pairs separated by
+// spaces, each coordinate a constant (a number, pi/3, a parameter). Offsets
+// are where each vertex starts in text, for a caret under a faulty one.
+func Vertices(label, text string, env series.Env) (xs, ys []series.Coef, offsets []int, err error) {
+	lw := &lowerer{label: label, input: text, env: env}
+	for off := 0; off < len(text); {
+		if text[off] == ' ' || text[off] == '\t' {
+			off++
+			continue
+		}
+		end := off
+		for end < len(text) && text[end] != ' ' && text[end] != '\t' {
+			end++
+		}
+		pair := text[off:end]
+		x, y, ok := strings.Cut(pair, ",")
+		if !ok || strings.Contains(y, ",") {
+			return nil, nil, nil, lw.fail(lexer.Position{Offset: off}, "a vertex is X,Y (two coordinates, a comma between them, no spaces), not %q", pair)
+		}
+		var cs [2]series.Coef
+		for i, part := range []struct {
+			text string
+			at   int
+		}{{x, off}, {y, off + len(x) + 1}} {
+			f, err := Expression(label, part.text, env)
+			if err != nil {
+				var pe *Error
+				if errors.As(err, &pe) {
+					pe.Input, pe.Offset = text, pe.Offset+part.at
+				}
+				return nil, nil, nil, err
+			}
+			c, ok := constant(value{f: f})
+			if !ok {
+				return nil, nil, nil, lw.fail(lexer.Position{Offset: part.at}, "a coordinate must be a constant")
+			}
+			cs[i] = c
+		}
+		xs, ys, offsets = append(xs, cs[0]), append(ys, cs[1]), append(offsets, off)
+		off = end
+	}
+	if len(xs) < 3 {
+		return nil, nil, nil, lw.fail(lexer.Position{Offset: len(text)}, "a polygon needs at least 3 vertices, found %d", len(xs))
+	}
+	return xs, ys, offsets, nil
+}

@@ -129,6 +129,9 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	if sol.Rect != nil {
 		v.rectStages(sol)
 	}
+	if sol.Section != nil {
+		v.sectionStages(sol)
+	}
 	if c := sol.Independent; c != nil {
 		v.Independent = &checkOut{Name: c.Name}
 		if v.independentFailed = c.Failed(); v.independentFailed {

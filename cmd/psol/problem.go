@@ -23,35 +23,71 @@ type problemFlags struct {
 	fix     string
 }
 
-// regionKind is one domain flag: how many sizes it takes and the region they make.
+// regionKind is one domain flag: how many sizes it takes and the region they
+// make, or (read) its own reading of the flag's text.
 type regionKind struct {
 	flag, usage string
 	sizes       int
 	make        func(sizes []series.Coef) (domain.Domain, string)
+	read        func(label, text string, env series.Env) (domain.Domain, error)
 }
 
 // regionKinds are the domain flags, in the order help lists them.
 var regionKinds = []regionKind{
 	{"disk", "solve on the disk r < R (R a number or parameter)", 1,
-		func(v []series.Coef) (domain.Domain, string) { return domain.Disk{R: v[0]}, "" }},
+		func(v []series.Coef) (domain.Domain, string) { return domain.Disk{R: v[0]}, "" }, nil},
 	{"annulus", "solve on the annulus R1 < r < R2, given as R1,R2", 2,
 		func(v []series.Coef) (domain.Domain, string) {
 			if d := v[1].Sub(v[0]); !series.Positive(d) {
 				return nil, "the inner radius must be smaller than the outer"
 			}
 			return domain.Annulus{R1: v[0], R2: v[1]}, ""
-		}},
+		}, nil},
 	{"outside", "solve outside the circle, r > R, with u bounded at infinity", 1,
-		func(v []series.Coef) (domain.Domain, string) { return domain.Outside{R: v[0]}, "" }},
+		func(v []series.Coef) (domain.Domain, string) { return domain.Outside{R: v[0]}, "" }, nil},
 	{"rect", "solve on the rectangle 0 < x < L, 0 < y < H, given as L,H", 2,
-		func(v []series.Coef) (domain.Domain, string) { return domain.Rect{L: v[0], H: v[1]}, "" }},
+		func(v []series.Coef) (domain.Domain, string) { return domain.Rect{L: v[0], H: v[1]}, "" }, nil},
 	{"sector", "solve on the sector r < R, 0 < theta < ALPHA, given as R,ALPHA (ALPHA a rational multiple of pi)", 2,
 		func(v []series.Coef) (domain.Domain, string) {
 			if a, ok := domain.AlphaOverPi(v[1]); !ok || a.Cmp(big.NewRat(2, 1)) > 0 {
 				return nil, "the angle must be a rational multiple of pi, at most 2*pi"
 			}
 			return domain.Sector{R: v[0], Alpha: v[1]}, ""
-		}},
+		}, nil},
+	{"polygon", `solve inside the polygon with vertices "X1,Y1 X2,Y2 ... XN,YN" in order (either way round); side sK runs from vertex K to K+1`, 0, nil, readPolygon},
+	{"ellipse", "solve on the ellipse x^2/A^2 + y^2/B^2 < 1, given as A,B; its side is rim", 2,
+		func(v []series.Coef) (domain.Domain, string) { return domain.Ellipse{A: v[0], B: v[1]}, "" }, nil},
+}
+
+// readPolygon reads --polygon and refuses a faulty outline with a caret
+// under the vertex at fault.
+func readPolygon(label, text string, env series.Env) (domain.Domain, error) {
+	xs, ys, offsets, err := parse.Vertices(label, text, env)
+	if err != nil {
+		return nil, err
+	}
+	p := domain.Polygon{X: xs, Y: ys}
+	fx, errX := floatsOf(xs, env)
+	fy, errY := floatsOf(ys, env)
+	if errX != nil || errY != nil {
+		return p, nil // parameters without values: the solve says what it needs
+	}
+	if k, reason := domain.PolygonFault(fx, fy); k >= 0 {
+		return nil, &parse.Error{Label: label, Input: text, Offset: offsets[min(k, len(offsets)-1)], Msg: reason}
+	}
+	return p, nil
+}
+
+func floatsOf(cs []series.Coef, env series.Env) ([]float64, error) {
+	out := make([]float64, len(cs))
+	for i, c := range cs {
+		v, err := c.Float(env)
+		if err != nil {
+			return nil, err
+		}
+		out[i] = v
+	}
+	return out, nil
 }
 
 func (p *problemFlags) bind(f *pflag.FlagSet) {
@@ -124,6 +160,12 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 			continue
 		}
 		chosen = append(chosen, "--"+k.flag)
+		if k.read != nil {
+			if pr.domain, err = k.read("--"+k.flag, text, env); err != nil {
+				return nil, err
+			}
+			continue
+		}
 		sizes, err := parse.Lengths("--"+k.flag, text, k.sizes, env)
 		if err != nil {
 			return nil, err
@@ -136,7 +178,7 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 	}
 	switch len(chosen) {
 	case 0:
-		return nil, usagef("give the domain: --disk R, --annulus R1,R2, --outside R, --sector R,ALPHA or --rect L,H")
+		return nil, usagef(`give the domain: --disk R, --annulus R1,R2, --outside R, --sector R,ALPHA, --rect L,H, --polygon "X1,Y1 X2,Y2 ..." or --ellipse A,B`)
 	case 1:
 	default:
 		return nil, usagef("give one domain, not %s", strings.Join(chosen, " and "))

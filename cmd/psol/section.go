@@ -1,0 +1,59 @@
+package main
+
+import (
+	"fmt"
+	"strings"
+
+	"psol/domain"
+	"psol/series"
+	"psol/series/cart"
+)
+
+// sectionStages prints a polygon's or an ellipse's solution: the exact
+// particular solution in x and y, its operator on the sides, and the
+// harmonic part described (its poles, degree and residual) rather than
+// printed coefficient by coefficient.
+func (v *view) sectionStages(sol *domain.Solution) {
+	sp := sol.Section
+	up := domain.FieldText(sol.Domain, sol.Particular)
+	upTeX := sol.Particular.LaTeX()
+	if p, err := cart.FromPolar(sol.Particular); err == nil {
+		upTeX = p.LaTeX()
+	}
+	v.Particular = exactStage("particular", "u_p = "+up, upTeX, "u_p")
+	var tr, co []string
+	for _, s := range sol.Sides {
+		c := s.Condition
+		switch c.Kind {
+		case domain.Dirichlet:
+			tr = append(tr, c.Side+": u_p = "+up)
+			if c.G.IsExact() {
+				co = append(co, c.Side+": "+domain.FieldText(sol.Domain, c.G.Exact.Sub(sol.Particular)))
+			} else {
+				co = append(co, c.Side+": "+s.DataText+" - u_p")
+			}
+		default:
+			tr = append(tr, c.Side+": "+domain.OperatorText(c, "u_p")+" with grad u_p = "+gradientText(sol))
+			co = append(co, c.Side+": "+s.DataText+" - ("+domain.OperatorText(c, "u_p")+")")
+		}
+	}
+	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(tr, `;\ `), `u_p\big|_{\partial\Omega}`)
+	v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(co, `;\ `), `g - u_p\big|_{\partial\Omega}`)
+	fit := sp.Describe()
+	form := "Re[sum_j c_j/(z - p_j) + sum_k d_k*q_k(z)], z = x + i*y"
+	if sp.Corners == 0 {
+		form = "Re[sum_k d_k*q_k(z)], z = x + i*y"
+	}
+	h := fmt.Sprintf("≈ h(x, y) = %s: %s, fitted to the side conditions (largest residual %.1e)", form, fit, sp.Residual)
+	v.Harmonic = stage{Label: "harmonic", Text: h, LaTeX: `h(x, y) = \operatorname{Re}\Big[\sum_j \frac{c_j}{z - p_j} + \sum_k d_k q_k(z)\Big]`, tex: "u_h"}
+	v.Solution = stage{Label: "solution", Text: "u ≈ " + up + " + h(x, y)", LaTeX: upTeX + ` + h(x, y)`, tex: "u"}
+}
+
+// gradientText is grad u_p = (u_x, u_y) in x and y, where u_p is a polynomial.
+func gradientText(sol *domain.Solution) string {
+	p, err := cart.FromPolar(sol.Particular)
+	if err != nil {
+		return "(grad of " + series.JoinText(sol.Particular) + ")"
+	}
+	return "(" + p.DX().Text() + ", " + p.DY().Text() + ")"
+}

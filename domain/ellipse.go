@@ -1,0 +1,156 @@
+package domain
+
+import (
+	"math"
+	"math/big"
+	"sort"
+
+	"psol/ansatz"
+
+	"psol/series"
+	"psol/series/cart"
+)
+
+// Ellipse is the region x²/A² + y²/B² < 1; its one side is the rim.
+type Ellipse struct{ A, B series.Coef }
+
+func (Ellipse) Sides() []string { return []string{"rim"} }
+
+func (e Ellipse) Describe() string {
+	return "the ellipse x^2/" + paren(e.A.Text()) + "^2 + y^2/" + paren(e.B.Text()) + "^2 < 1"
+}
+
+func (e Ellipse) Contains(r, theta float64, env series.Env) (bool, error) {
+	v, err := floats(env, e.A, e.B)
+	if err != nil {
+		return false, err
+	}
+	x, y := r*math.Cos(theta)/v[0], r*math.Sin(theta)/v[1]
+	return x*x+y*y <= 1+1e-12, nil
+}
+
+// Shape: the rim counter-clockwise from (A, 0), by arc length like every
+// side (the figures' panels take t as a fraction of the length).
+func (e Ellipse) Shape(env series.Env) (Shape, error) {
+	v, err := floats(env, e.A, e.B)
+	if err != nil {
+		return Shape{}, err
+	}
+	A, B := v[0], v[1]
+	return Shape{Sides: []SidePath{ellipseRim(A, B)}, Area: math.Pi * A * B, Box: Box{-A, A, -B, B}}, nil
+}
+
+// ellipseRim is the rim (A cos τ, B sin τ) parametrised by arc length: a
+// table of s(τ) at 256 nodes (16-point Gauss–Legendre between them), inverted
+// by Newton's method with s'(τ) = |z'(τ)|.
+func ellipseRim(A, B float64) SidePath {
+	const nodes = 256
+	speed := func(tau float64) float64 { return math.Hypot(A*math.Sin(tau), B*math.Cos(tau)) }
+	arc := func(lo, hi float64) float64 {
+		out := 0.0
+		for j, x := range ansatz.GaussX {
+			out += ansatz.GaussW[j] * speed((lo+hi)/2+(hi-lo)/2*x)
+		}
+		return out * (hi - lo) / 2
+	}
+	table := make([]float64, nodes+1) // s at τ_i = 2πi/nodes
+	for i := 1; i <= nodes; i++ {
+		table[i] = table[i-1] + arc(2*math.Pi*float64(i-1)/nodes, 2*math.Pi*float64(i)/nodes)
+	}
+	length := table[nodes]
+	return SidePath{Name: "rim", Length: length, At: func(t float64) (x, y, nx, ny float64) {
+		s := t * length
+		i := sort.SearchFloat64s(table, s) - 1
+		i = max(0, min(i, nodes-1))
+		lo := 2 * math.Pi * float64(i) / nodes
+		tau := lo + (s-table[i])/speed(lo+math.Pi/nodes) // a first guess
+		for it := 0; it < 6; it++ {
+			tau -= (table[i] + arc(lo, tau) - s) / speed(tau)
+		}
+		c, sn := math.Cos(tau), math.Sin(tau)
+		l := math.Hypot(B*c, A*sn)
+		return A * c, B * sn, B * c / l, A * sn / l
+	}}
+}
+
+// ellipsePerimeter by the trapezoidal rule (spectrally accurate for a
+// periodic integrand).
+func ellipsePerimeter(A, B float64) float64 {
+	const n = 512
+	sum := 0.0
+	for i := 0; i < n; i++ {
+		t := 2 * math.Pi * float64(i) / n
+		sum += math.Hypot(A*math.Sin(t), B*math.Cos(t))
+	}
+	return sum * 2 * math.Pi / n
+}
+
+// geometry: no corners; the polynomial alone converges geometrically on a
+// smooth boundary.
+func (e Ellipse) geometry(env series.Env) (sectionGeometry, error) {
+	sh, err := e.Shape(env)
+	if err != nil {
+		return sectionGeometry{}, err
+	}
+	return sectionGeometry{shape: sh, starts: []int{-1}, ends: []int{-1}, scale: math.Max(sh.Box.X1, sh.Box.Y1)}, nil
+}
+
+func (e Ellipse) solve(p *posed) (*Solution, error) { return solveSection(e, p) }
+
+// Measures: the area πAB exactly; the perimeter, an elliptic integral, as a
+// 15-digit decimal where the semi-axes are numbers.
+func (e Ellipse) Measures() Measures {
+	m := Measures{Area: series.SymCoef(series.Pi).Mul(e.A).Mul(e.B), Lengths: map[string]series.Coef{}}
+	if v, err := floats(nil, e.A, e.B); err == nil {
+		m.Lengths["rim"] = decimal(ellipsePerimeter(v[0], v[1]))
+	}
+	return m
+}
+
+// integral: ∬ x^(2a) y^(2b) dA = A^(2a+1) B^(2b+1) π (2a−1)!! (2b−1)!!/(2^(a+b) (a+b+1)!)
+// (the unit disk's moments Γ(a+½)Γ(b+½)/Γ(a+b+2), scaled); odd powers vanish.
+func (e Ellipse) integral(u series.Sum) (series.Coef, error) {
+	poly, err := cart.FromPolar(u)
+	if err != nil {
+		return series.Coef{}, err
+	}
+	total := series.Coef{}
+	for _, t := range poly.Terms() {
+		if t.I%2 == 1 || t.J%2 == 1 {
+			continue
+		}
+		a, b := t.I/2, t.J/2
+		num := doubleFactorial(2*a-1) * doubleFactorial(2*b-1)
+		den := int64(1) << (a + b)
+		for k := 2; k <= a+b+1; k++ {
+			den *= int64(k)
+		}
+		m := pow(e.A, t.I+1).Mul(pow(e.B, t.J+1)).Mul(series.SymCoef(series.Pi)).MulRat(big.NewRat(num, den))
+		total = total.Add(t.C.Mul(m))
+	}
+	return total, nil
+}
+
+func doubleFactorial(n int) int64 {
+	out := int64(1)
+	for k := n; k > 1; k -= 2 {
+		out *= int64(k)
+	}
+	return out
+}
+
+func (e Ellipse) figures(s *Solution, ev *Evaluator, rep *Report, env series.Env, tol float64) error {
+	return sectionFigures(e, s, ev, rep, env)
+}
+
+func (e Ellipse) claimSide(side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
+	return shapeClaimSide(e, side, cond, claim, env)
+}
+
+func (e Ellipse) samples(env series.Env) ([][2]float64, error) { return shapeSamples(e, env) }
+
+func (Ellipse) printsInXY() bool { return true }
+
+func (e Ellipse) containsXY(x, y float64, env series.Env) (bool, error) {
+	return e.Contains(math.Hypot(x, y), math.Atan2(y, x), env)
+}

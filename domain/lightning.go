@@ -1,0 +1,296 @@
+package domain
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"math/cmplx"
+
+	"gonum.org/v1/gonum/mat"
+)
+
+// The harmonic part on a general section (a polygon, an ellipse) is the real
+// part of a rational function fitted to the side conditions by least squares:
+//
+//	h(z) = Re[ Σ_corners Σ_j c_j/(z − p_j) + Σ_k d_k q_k((z − z_c)/s) ],
+//
+// with poles p_j outside the region on each corner's exterior bisector at
+// distances exponentially clustered towards the corner, and a polynomial in
+// the orthogonal basis q_k that Arnoldi's process builds on the sample
+// points (Vandermonde with Arnoldi: well conditioned at any degree). The
+// method and its parameters (σ = 4, clustered samples, degree growing with
+// the poles) are those of Gopal & Trefethen, "Solving Laplace problems with
+// corner singularities via rational functions", SIAM J. Numer. Anal. 57
+// (2019), and of Brubeck, Nakatsukasa & Trefethen, "Vandermonde with
+// Arnoldi", SIAM Review 63 (2021). A smooth boundary (the ellipse) has no
+// corners and needs the polynomial only.
+
+// boundaryPoint is one sample of a side condition: a·h + b·∂h/∂n = data at
+// z, with ν the outward unit normal as a complex number.
+type boundaryPoint struct {
+	z, nu complex128
+	a, b  float64 // Dirichlet 1, 0; Neumann 0, 1; Robin h, 1
+	data  float64
+	side  int
+}
+
+// corner is where poles cluster: the vertex and the unit direction, outside
+// the region, along which its poles lie.
+type corner struct {
+	w, dir complex128
+	// angle is the interior angle over π. At a singular corner (re-entrant,
+	// or where a value condition meets a flux one) the fit adds the
+	// corner's own singular powers (cornerPowers).
+	angle    float64
+	singular bool
+	reach    float64 // the distance to the farthest vertex
+}
+
+// cornerPower is one singular function at a re-entrant corner:
+// ζ^β with ζ = (z − w)·rot/s, rot turning the interior bisector onto the
+// positive axis, so that the branch cut lies along the exterior bisector.
+type cornerPower struct {
+	w, rot complex128
+	beta   float64
+}
+
+// at is ζ^β and its derivative in z; rot carries the scale that makes
+// |ζ| ≤ 1 on the region (high powers then stay small, not huge).
+func (c cornerPower) at(z complex128, _ float64) (f, df complex128) {
+	zeta := (z - c.w) * c.rot
+	if zeta == 0 {
+		return 0, 0
+	}
+	f = cmplx.Pow(zeta, complex(c.beta, 0))
+	return f, complex(c.beta, 0) * f / zeta * c.rot
+}
+
+// cornerPowers are a re-entrant corner's exponents k/α and (k − ½)/α,
+// k = 1..K, the non-integer ones: the separated solutions of Laplace's
+// equation in a wedge of angle απ with Dirichlet or Neumann sides, and with
+// one of each (common practice; e.g. Grisvard, Elliptic Problems in Nonsmooth
+// Domains). Integer powers are the polynomial's; exponents stop at 24.
+func cornerPowers(c corner, K int) []cornerPower {
+	var out []cornerPower
+	rot := 1 / -c.dir / complex(c.reach, 0) // the exterior bisector onto −1, the farthest vertex to |ζ| = 1
+	for k := 1; k <= K; k++ {
+		for _, beta := range []float64{float64(k) / c.angle, (float64(k) - 0.5) / c.angle} {
+			if math.Abs(beta-math.Round(beta)) > 1e-9 && beta <= 24 {
+				out = append(out, cornerPower{w: c.w, rot: rot, beta: beta})
+			}
+		}
+	}
+	return out
+}
+
+// rationalHarmonic is the fitted h: its poles and coefficients, and the
+// Arnoldi recurrence that evaluates the polynomial part anywhere.
+type rationalHarmonic struct {
+	poles    []complex128
+	cPole    []complex128 // h's pole part: Re Σ cPole_j/(z − p_j)
+	powers   []cornerPower
+	cPower   []complex128
+	centre   complex128
+	scale    float64
+	hess     [][]complex128 // Arnoldi's Hessenberg matrix, column k: the coefficients of q_{k+1}
+	cPoly    []complex128   // Re Σ cPoly_k q_k
+	degree   int
+	residual float64 // the largest |condition residual| on the check sampling
+	worstAt  complex128
+	worstOn  int
+}
+
+// polyBasis is q_0..q_D at z and their derivatives in z, by the stored
+// recurrence: q_{k+1} = (Z q_k − Σ_{j≤k} H[j][k] q_j)/H[k+1][k], Z = (z − z_c)/s.
+func (h *rationalHarmonic) polyBasis(z complex128, q, dq []complex128) {
+	Z := (z - h.centre) / complex(h.scale, 0)
+	q[0], dq[0] = 1, 0
+	for k := 0; k < h.degree; k++ {
+		v := Z * q[k]
+		dv := q[k]/complex(h.scale, 0) + Z*dq[k]
+		for j := 0; j <= k; j++ {
+			v -= h.hess[k][j] * q[j]
+			dv -= h.hess[k][j] * dq[j]
+		}
+		q[k+1], dq[k+1] = v/h.hess[k][k+1], dv/h.hess[k][k+1]
+	}
+}
+
+// value is h(z) and the derivative F'(z) of the F with h = Re F
+// (∇h = (Re F', −Im F')).
+func (h *rationalHarmonic) value(z complex128) (float64, complex128) {
+	f, df := h.complexValue(z)
+	return real(f), df
+}
+
+// AtXY is h(x, y).
+func (h *rationalHarmonic) AtXY(x, y float64) float64 {
+	v, _ := h.value(complex(x, y))
+	return v
+}
+
+// arnoldi builds the Hessenberg matrix of the polynomial basis on the
+// sample points Z (scaled), orthonormal in the mean over them.
+func arnoldi(Z []complex128, degree int) [][]complex128 {
+	m := len(Z)
+	Q := [][]complex128{make([]complex128, m)}
+	for i := range Q[0] {
+		Q[0][i] = 1
+	}
+	hess := make([][]complex128, degree)
+	for k := 0; k < degree; k++ {
+		v := make([]complex128, m)
+		for i := range v {
+			v[i] = Z[i] * Q[k][i]
+		}
+		hess[k] = make([]complex128, k+2)
+		for pass := 0; pass < 2; pass++ { // twice: classical Gram–Schmidt, reorthogonalised
+			for j := 0; j <= k; j++ {
+				var c complex128
+				for i := range v {
+					c += cmplx.Conj(Q[j][i]) * v[i]
+				}
+				c /= complex(float64(m), 0)
+				hess[k][j] += c
+				for i := range v {
+					v[i] -= c * Q[j][i]
+				}
+			}
+		}
+		norm := 0.0
+		for _, x := range v {
+			norm += real(x)*real(x) + imag(x)*imag(x)
+		}
+		norm = math.Sqrt(norm / float64(m))
+		hess[k][k+1] = complex(norm, 0)
+		for i := range v {
+			v[i] /= complex(norm, 0)
+		}
+		Q = append(Q, v)
+	}
+	return hess
+}
+
+// lightningPoles are n poles at a corner: w + dir·s·e^(−σ(√n − √j)), j = 1..n.
+func lightningPoles(c corner, s float64, n int) []complex128 {
+	const sigma = 4
+	out := make([]complex128, n)
+	for j := 1; j <= n; j++ {
+		d := s * math.Exp(-sigma*(math.Sqrt(float64(n))-math.Sqrt(float64(j))))
+		out[j-1] = c.w + c.dir*complex(d, 0)
+	}
+	return out
+}
+
+// fitHarmonic solves the least-squares problem on the samples for n[k]
+// poles at corner k and the given degree.
+func fitHarmonic(pts []boundaryPoint, corners []corner, centre complex128, scale float64, n []int, degree, powers int, freeConstant bool) (*rationalHarmonic, error) {
+	h := &rationalHarmonic{centre: centre, scale: scale, degree: degree}
+	for k, c := range corners {
+		h.poles = append(h.poles, lightningPoles(c, scale, n[k])...)
+		if c.singular {
+			h.powers = append(h.powers, cornerPowers(c, powers)...)
+		}
+	}
+	Z := make([]complex128, len(pts))
+	for i, p := range pts {
+		Z[i] = (p.z - centre) / complex(scale, 0)
+	}
+	h.hess = arnoldi(Z, degree)
+	// Columns: Re and Im of each pole's and each polynomial's operator value.
+	nc := 2*len(h.poles) + 2*(degree+1) + 2*len(h.powers)
+	A := mat.NewDense(len(pts), nc, nil)
+	b := mat.NewVecDense(len(pts), nil)
+	q := make([]complex128, degree+1)
+	dq := make([]complex128, degree+1)
+	for i, p := range pts {
+		col := 0
+		put := func(f, df complex128) {
+			w := complex(p.a, 0)*f + complex(p.b, 0)*df*p.nu
+			A.Set(i, col, real(w))
+			A.Set(i, col+1, imag(w))
+			col += 2
+		}
+		for _, pole := range h.poles {
+			d := 1 / (p.z - pole)
+			put(d, -d*d)
+		}
+		h.polyBasis(p.z, q, dq)
+		for k := range q {
+			put(q[k], dq[k])
+		}
+		for _, c := range h.powers {
+			put(c.at(p.z, scale))
+		}
+		b.SetVec(i, p.data)
+	}
+	// Scale the columns to unit norm (the poles nearest a corner are large
+	// there) and keep only the live ones: Im q_0 = 0 always, and a pure
+	// Neumann problem leaves the constant, Re q_0, to the caller.
+	constCol := 2 * len(h.poles)
+	norms := make([]float64, nc)
+	var live []int
+	for j := 0; j < nc; j++ {
+		norms[j] = mat.Norm(A.ColView(j), 2)
+		if norms[j] == 0 || freeConstant && j == constCol {
+			norms[j] = 0
+			continue
+		}
+		live = append(live, j)
+	}
+	B := mat.NewDense(len(pts), len(live), nil)
+	for c, j := range live {
+		for i := 0; i < len(pts); i++ {
+			B.Set(i, c, A.At(i, j)/norms[j])
+		}
+	}
+	var y mat.VecDense
+	var qr mat.QR
+	qr.Factorize(B)
+	// An ill-conditioned basis (exponentially clustered poles) is expected:
+	// the least-squares fit is still good where the residual says so, and
+	// the residual is measured afterwards; only a failed solve is an error.
+	if err := qr.SolveVecTo(&y, false, b); err != nil {
+		var cond mat.Condition
+		if !errors.As(err, &cond) {
+			return nil, fmt.Errorf("the least-squares fit failed: %w", err)
+		}
+	}
+	x := mat.NewVecDense(nc, nil)
+	for c, j := range live {
+		x.SetVec(j, y.AtVec(c))
+	}
+	coef := func(j int) float64 {
+		if norms[j] == 0 {
+			return 0
+		}
+		return x.AtVec(j) / norms[j]
+	}
+	// u = a·Re φ + b·Im φ = Re((a − ib)φ).
+	h.cPole = make([]complex128, len(h.poles))
+	for j := range h.poles {
+		h.cPole[j] = complex(coef(2*j), -coef(2*j+1))
+	}
+	h.cPoly = make([]complex128, degree+1)
+	for k := range h.cPoly {
+		h.cPoly[k] = complex(coef(constCol+2*k), -coef(constCol+2*k+1))
+	}
+	h.cPower = make([]complex128, len(h.powers))
+	first := constCol + 2*(degree+1)
+	for k := range h.cPower {
+		h.cPower[k] = complex(coef(first+2*k), -coef(first+2*k+1))
+	}
+	return h, nil
+}
+
+// residualOn is the largest condition residual on the points.
+func (h *rationalHarmonic) residualOn(pts []boundaryPoint) {
+	h.residual = 0
+	for _, p := range pts {
+		v, df := h.value(p.z)
+		r := math.Abs(p.a*v + p.b*real(df*p.nu) - p.data)
+		if r > h.residual || math.IsNaN(r) {
+			h.residual, h.worstAt, h.worstOn = r, p.z, p.side
+		}
+	}
+}

@@ -1,0 +1,616 @@
+package domain
+
+import (
+	"fmt"
+	"math"
+	"math/cmplx"
+	"strings"
+
+	"psol/ansatz"
+	"psol/series"
+)
+
+// section is a region whose harmonic part psol fits numerically (lightning.go):
+// a polygon or an ellipse. Its geometry in numbers is all the fit needs.
+type section interface {
+	Domain
+	geometry(env series.Env) (sectionGeometry, error)
+}
+
+// sectionGeometry is a section's boundary for the fit: the sides as paths,
+// the corners where poles cluster (none on a smooth boundary), and the centre
+// and size that scale the polynomial.
+type sectionGeometry struct {
+	shape   Shape
+	corners []corner
+	// starts[k] and ends[k] index the corners at side k's ends (−1: none).
+	starts, ends []int
+	centre       complex128
+	scale        float64
+}
+
+// SectionParts is a section's numeric harmonic part, for printing: its
+// poles and polynomial, and how well it meets the side conditions.
+type SectionParts struct {
+	Corners, Degree int
+	Poles           []int // at each corner, in the order of the vertices
+	// Residual is the largest |condition residual| on a sampling of the
+	// sides finer than the fit's, at (X, Y) on side Side.
+	Residual float64
+	X, Y     float64
+	Side     string
+	// Bound marks Dirichlet conditions on every side: by the maximum
+	// principle Residual then bounds the harmonic part's error everywhere.
+	Bound bool
+	fit   *rationalHarmonic
+}
+
+// attach adds the fitted harmonic part to the evaluator.
+func (sp *SectionParts) attach(e *Evaluator, _ *Solution, _ series.Env) error {
+	e.parts = append(e.parts, sp.fit)
+	return nil
+}
+
+// maxSectionSteps caps the fit's refinements (poles per corner 4 + 4·step).
+const maxSectionSteps = 12
+
+// solveSection is the pipeline on a section: u_p from the ansatz rules
+// (closed, whatever the region), its operator on each side sampled, and the
+// harmonic part fitted to the rest, refined until the residual on a finer
+// sampling meets the tolerance.
+func solveSection(d section, p *posed) (*Solution, error) {
+	if p.rest != nil {
+		return nil, unsupported("on %s psol needs a closed-form particular solution for now; the source part %s has none", d.Describe(), p.rest.Text())
+	}
+	allNeumann := true
+	for _, c := range p.conds {
+		allNeumann = allNeumann && c.Kind == Neumann
+	}
+	if allNeumann {
+		return nil, unsupported("a flux condition on every side of %s (the pure Neumann problem) is not supported yet on polygons and ellipses", d.Describe())
+	}
+	up, rules, err := ansatz.Particular(p.f)
+	if err != nil {
+		return nil, unsupported("%w", err)
+	}
+	geo, err := d.geometry(p.env)
+	if err != nil {
+		return nil, unsupported("the region needs its sizes as numbers: %w", err)
+	}
+	conds := make([]sideCondition, len(geo.shape.Sides))
+	for k, side := range geo.shape.Sides {
+		if conds[k], err = compileSideCondition(p.conds[side.Name], up, p.env); err != nil {
+			return nil, err
+		}
+	}
+	markSingularCorners(&geo)
+	scale := 0.0 // the problem's size on the boundary: the data and u_p's operator
+	for k, side := range geo.shape.Sides {
+		for j := 0; j <= 64; j++ {
+			x, y, nx, ny := side.At(float64(j) / 64)
+			g, op := conds[k].parts(x, y, nx, ny)
+			scale = math.Max(scale, math.Max(math.Abs(g), math.Abs(op)))
+		}
+	}
+	target := p.tol * math.Max(scale, 1e-300)
+	// Gopal & Trefethen's adaptive loop: after each fit, the corners whose
+	// nearby residual misses the target get more poles (about √n more), and
+	// the polynomial's degree grows while the residual away from the
+	// corners misses it.
+	poles := make([]int, len(geo.corners))
+	for k := range poles {
+		poles[k] = 4
+	}
+	degree := 12
+	var best *rationalHarmonic
+	var bestPoles []int
+	stalled := 0
+	for step := 1; step <= maxSectionSteps; step++ {
+		fit, check := geo.samples(poles, degree, conds)
+		h, err := fitHarmonic(fit, geo.corners, geo.centre, geo.scale, poles, degree, 4+3*step, false)
+		if err != nil {
+			return nil, unsolvable("%w", err)
+		}
+		near, far := h.residualsByCorner(check, geo.corners)
+		if best == nil || h.residual < best.residual {
+			best, bestPoles, stalled = h, append([]int(nil), poles...), 0
+		} else {
+			stalled++
+		}
+		if best.residual <= target || stalled >= 3 {
+			break
+		}
+		worstNear := 0.0
+		for _, r := range near {
+			worstNear = math.Max(worstNear, r)
+		}
+		for k := range poles { // the corners within a factor 10 of the worst
+			if near[k] > target && near[k] > 0.1*worstNear {
+				poles[k] += max(4, poles[k]/3)
+			}
+		}
+		// The polynomial grows where the residual away from the corners
+		// is a good part of the worst (on a smooth boundary, always).
+		if far > target && far > 0.3*worstNear || len(geo.corners) == 0 {
+			degree += 4 + degree/4
+		}
+	}
+	// A fit far from the target is no answer: psol refuses it rather than
+	// print a value it cannot stand behind.
+	if best.residual > math.Max(target, 1e-9*scale) || math.IsNaN(best.residual) {
+		return nil, unsolvable("the harmonic part's fit on %s reached a residual of only %.1e (relative %.1e) in %d refinements, largest at (x, y) = (%.6g, %.6g) on %s: a corner where a value condition meets a flux or convection condition at an angle other than pi/2 converges slowly with psol's rational fit, and psol gives no answer it cannot stand behind", d.Describe(), best.residual, best.residual/math.Max(scale, 1e-300), maxSectionSteps, real(best.worstAt), imag(best.worstAt), geo.shape.Sides[best.worstOn].Name)
+	}
+	parts := &SectionParts{Corners: len(geo.corners), Degree: best.degree, Residual: best.residual,
+		X: real(best.worstAt), Y: imag(best.worstAt), Side: geo.shape.Sides[best.worstOn].Name, Bound: true, fit: best, Poles: bestPoles}
+	sol := &Solution{Domain: d, Source: p.f, Particular: up, U: up, Rules: rules, Section: parts, stages: []stage{parts}, Numeric: true}
+	eq := Check{Name: "lap(u_p) - f", Exact: true}
+	if r := up.Laplacian().Sub(p.f); !r.IsZero() {
+		eq.Exact, eq.Residual = false, r
+	}
+	sol.Checks = append(sol.Checks, eq)
+	for k, side := range geo.shape.Sides {
+		cond := p.conds[side.Name]
+		parts.Bound = parts.Bound && cond.Kind == Dirichlet
+		sol.Sides = append(sol.Sides, Side{Condition: cond, At: side.Name, AtLaTeX: side.Name, Trace: conds[k].trace,
+			DataText: cond.G.Text(), DataLaTeX: cond.G.LaTeX()})
+		sol.Checks = append(sol.Checks, Check{Name: OperatorText(cond, "u") + " - g", Side: side.Name, Numeric: conds[k].worst(best, geo.shape.Sides[k])})
+	}
+	// The error at a point: for Dirichlet data the maximum principle bounds
+	// the harmonic part's error by the boundary residual; with fluxes the
+	// residual, times the section's size for a flux, is an estimate.
+	sol.DataError = best.residual
+	if !parts.Bound {
+		sol.DataError = best.residual * math.Max(1, geo.scale)
+	}
+	bound := "by the maximum principle this bounds the harmonic part's error everywhere inside"
+	if !parts.Bound {
+		bound = "with flux conditions it is an estimate of the error, not a bound"
+	}
+	fitText := parts.Describe()
+	sol.Steps = append(sol.Steps, fmt.Sprintf("harmonic part: the real part of a rational function (%s) fitted by least squares to the side conditions (Gopal & Trefethen's lightning method)", fitText))
+	sol.Notes = append(sol.Notes, fmt.Sprintf("the harmonic part is numeric: the largest residual of the side conditions, on a sampling finer than the fit's, is %.1e at (x, y) = (%.6g, %.6g) on %s; %s", best.residual, parts.X, parts.Y, parts.Side, bound))
+	if best.residual > target {
+		sol.Notes = append(sol.Notes, fmt.Sprintf("the fit did not reach the tolerance %.0e (relative to the boundary data's size %.3g) in %d refinements", p.tol, scale, maxSectionSteps))
+	}
+	return sol, nil
+}
+
+// sideCondition is one side's condition in numbers: a·u + b·∂u/∂n = g, with
+// u_p's share (its operator value) to subtract.
+type sideCondition struct {
+	a, b   float64
+	g      series.CompiledField
+	up     series.Compiled
+	ur, ut series.Compiled // ∂u_p/∂r and ∂u_p/∂θ
+	trace  series.Sum      // u_p's operator on the side, where it prints (Dirichlet: u_p)
+}
+
+func compileSideCondition(cond Condition, up series.Sum, env series.Env) (sideCondition, error) {
+	sc := sideCondition{a: 1}
+	switch cond.Kind {
+	case Neumann:
+		sc.a, sc.b = 0, 1
+	case Robin:
+		h, err := cond.H.Float(env)
+		if err != nil {
+			return sc, unsupported("the Robin coefficient on %s needs a value: %w", cond.Side, err)
+		}
+		sc.a, sc.b = h, 1
+	case Floating:
+		return sc, unsupported("a side at one unknown constant value is supported on circles for now, not on %s", cond.Side)
+	}
+	var err error
+	if sc.g, err = cond.G.Compile(env); err != nil {
+		return sc, unsupported("the data on %s need every parameter's value: %w", cond.Side, err)
+	}
+	if sc.up, err = up.Compile(env); err != nil {
+		return sc, unsupported("the particular solution needs every parameter's value: %w", err)
+	}
+	if sc.ur, err = up.DR().Compile(env); err != nil {
+		return sc, err
+	}
+	if sc.ut, err = up.DTheta().Compile(env); err != nil {
+		return sc, err
+	}
+	if cond.Kind == Dirichlet {
+		sc.trace = up
+	}
+	return sc, nil
+}
+
+// parts are the data g and u_p's operator value at a boundary point.
+func (sc sideCondition) parts(x, y, nx, ny float64) (g, op float64) {
+	r, th := math.Hypot(x, y), math.Atan2(y, x)
+	if th < 0 {
+		th += 2 * math.Pi
+	}
+	g = sc.g.At(r, th)
+	op = sc.a * sc.up.At(r, th)
+	if sc.b != 0 {
+		rr := math.Max(r, 1e-300)
+		ur, ut := sc.ur.At(rr, th), sc.ut.At(rr, th)/rr
+		ux, uy := math.Cos(th)*ur-math.Sin(th)*ut, math.Sin(th)*ur+math.Cos(th)*ut
+		op += sc.b * (nx*ux + ny*uy)
+	}
+	return g, op
+}
+
+func (sc sideCondition) point(x, y, nx, ny float64, side int) boundaryPoint {
+	g, op := sc.parts(x, y, nx, ny)
+	return boundaryPoint{z: complex(x, y), nu: complex(nx, ny), a: sc.a, b: sc.b, data: g - op, side: side}
+}
+
+// worst is the side's largest residual on a fine sampling.
+func (sc sideCondition) worst(h *rationalHarmonic, path SidePath) float64 {
+	out := 0.0
+	for j := 0; j < 400; j++ {
+		x, y, nx, ny := path.At((float64(j) + 0.5) / 400)
+		p := sc.point(x, y, nx, ny, 0)
+		v, df := h.value(p.z)
+		out = math.Max(out, math.Abs(p.a*v+p.b*real(df*p.nu)-p.data))
+	}
+	return out
+}
+
+// samples are the fit's points and the finer check points: uniform on each
+// side, and at a corner clustered like its poles (three points per pole
+// distance for the fit, four between them for the check).
+func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition) (fit, check []boundaryPoint) {
+	sides := g.shape.Sides
+	uniform := 3*(2*degree+2)/max(len(sides), 1)/2 + 12
+	dists := func(k int) []float64 {
+		var out []float64
+		n := poles[k]
+		for j := 1; j <= n; j++ {
+			out = append(out, g.scale*math.Exp(-4*(math.Sqrt(float64(n))-math.Sqrt(float64(j)))))
+		}
+		return out
+	}
+	add := func(to *[]boundaryPoint, k int, t float64) {
+		if t <= 0 || t >= 1 {
+			return
+		}
+		x, y, nx, ny := sides[k].At(t)
+		*to = append(*to, conds[k].point(x, y, nx, ny, k))
+	}
+	for k, side := range sides {
+		for i := 0; i < uniform; i++ {
+			add(&fit, k, (float64(i)+0.5)/float64(uniform))
+		}
+		for i := 0; i < 3*uniform; i++ {
+			add(&check, k, (float64(i)+0.25)/float64(3*uniform))
+		}
+		for _, end := range []struct {
+			corner int
+			at     func(s float64) float64
+		}{{g.starts[k], func(s float64) float64 { return s }}, {g.ends[k], func(s float64) float64 { return 1 - s }}} {
+			if end.corner < 0 {
+				continue
+			}
+			for _, d := range dists(end.corner) {
+				for _, f := range []float64{0.5, 1, 2} {
+					if s := f * d / side.Length; s < 0.5 {
+						add(&fit, k, end.at(s))
+					}
+				}
+				for _, f := range []float64{0.35, 0.7, 1.4, 2.8} {
+					if s := f * d / side.Length; s < 0.5 {
+						add(&check, k, end.at(s))
+					}
+				}
+			}
+		}
+	}
+	return fit, check
+}
+
+// sectionHarmonicIntegral is ∬ h dA for h = Re F: by Green's theorem
+// ∬ F dA = (1/2i) ∮ F(z) z̄ dz, on each side with panels graded towards its
+// ends (the poles nearest a corner are close to it).
+func sectionHarmonicIntegral(h *rationalHarmonic, shape Shape) float64 {
+	var total complex128
+	for _, side := range shape.Sides {
+		edges := gradedEdges()
+		for i := 0; i+1 < len(edges); i++ {
+			lo, hi := edges[i], edges[i+1]
+			for j, x := range ansatz.GaussX {
+				t := (lo+hi)/2 + (hi-lo)/2*x
+				px, py, nx, ny := side.At(t)
+				z := complex(px, py)
+				// dz = (tangent)·length·dt, the tangent being the normal turned left.
+				dz := complex(-ny, nx) * complex(side.Length*(hi-lo)/2*ansatz.GaussW[j], 0)
+				v, _ := h.complexValue(z)
+				total += v * cmplx.Conj(z) * dz
+			}
+		}
+	}
+	return real(total / complex(0, 2))
+}
+
+// complexValue is F(z), whose real part is h.
+func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
+	var f, df complex128
+	for j, p := range h.poles {
+		d := 1 / (z - p)
+		f += h.cPole[j] * d
+		df -= h.cPole[j] * d * d
+	}
+	q := make([]complex128, h.degree+1)
+	dq := make([]complex128, h.degree+1)
+	h.polyBasis(z, q, dq)
+	for k := range q {
+		f += h.cPoly[k] * q[k]
+		df += h.cPoly[k] * dq[k]
+	}
+	for k, c := range h.powers {
+		v, dv := c.at(z, h.scale)
+		f += h.cPower[k] * v
+		df += h.cPower[k] * dv
+	}
+	return f, df
+}
+
+// sectionFigures: the area integral as the particular solution's exact
+// integral plus the harmonic part's by Green's theorem; the source's exact
+// integral; extremes on a sample of the section; side fluxes by panels (the
+// report's generic path).
+func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env series.Env) error {
+	rep.Area = d.Measures().Area
+	shape, err := d.Shape(env)
+	if err != nil {
+		return err
+	}
+	c, err := d.integral(s.Particular)
+	if err != nil {
+		return err
+	}
+	_, v, err := sub(c, env)
+	if err != nil {
+		return err
+	}
+	rep.Integral = v + sectionHarmonicIntegral(s.Section.fit, shape)
+	if c, err := d.integral(s.Source); err == nil {
+		if c, v, err := sub(c, env); err == nil {
+			rep.SourceExact, rep.Source = &c, v
+		}
+	}
+	inside := func(x, y float64) bool { ok, err := ContainsXY(d, x, y, env); return ok && err == nil }
+	rep.Max, rep.ArgMax, rep.Min, rep.ArgMin = xyExtremes(shape, inside, ev)
+	up, err := compileSideCondition(Condition{Kind: Neumann, G: series.ExactField(series.Sum{})}, s.Particular, env)
+	if err != nil {
+		return err
+	}
+	rep.Sides, rep.Flux, rep.FluxExact = nil, 0, nil
+	for _, side := range shape.Sides {
+		f := SideFlux{Side: side.Name, Value: sideFlux(side, up, s.Section.fit)}
+		rep.Sides, rep.Flux = append(rep.Sides, f), rep.Flux+f.Value
+	}
+	return nil
+}
+
+// sideFlux is ∫ ∂u/∂n ds over a side: u_p's normal derivative from its exact
+// derivatives and h's from F' (∂h/∂n = Re(F'ν)), by Gauss–Legendre on panels
+// graded towards the side's ends, where the poles crowd.
+func sideFlux(side SidePath, up sideCondition, h *rationalHarmonic) float64 {
+	total := 0.0
+	edges := gradedEdges()
+	for i := 0; i+1 < len(edges); i++ {
+		lo, hi := edges[i], edges[i+1]
+		for j, x := range ansatz.GaussX {
+			px, py, nx, ny := side.At((lo+hi)/2 + (hi-lo)/2*x)
+			_, dup := up.parts(px, py, nx, ny)
+			_, df := h.value(complex(px, py))
+			total += ansatz.GaussW[j] * (hi - lo) / 2 * side.Length * (dup + real(df*complex(nx, ny)))
+		}
+	}
+	return total
+}
+
+// gradedEdges are panel edges on [0, 1], halving 40 times towards each end.
+func gradedEdges() []float64 {
+	edges := []float64{0}
+	for k := 40; k >= 1; k-- {
+		edges = append(edges, 0.5*math.Pow(0.5, float64(k)))
+	}
+	for i := 1; i < 16; i++ {
+		edges = append(edges, 0.5*float64(i)/16)
+	}
+	n := len(edges)
+	for i := n - 1; i >= 0; i-- {
+		edges = append(edges, 1-edges[i])
+	}
+	return edges
+}
+
+// xyExtremes samples the region's box on a 96 × 96 grid (inside points
+// only, the sides' points too), then refines the best points by a shrinking
+// pattern search that stays inside; locations in (r, θ).
+func xyExtremes(shape Shape, inside func(x, y float64) bool, ev *Evaluator) (maxV float64, argMax [2]float64, minV float64, argMin [2]float64) {
+	u := func(x, y float64) float64 { v, _, _ := ev.AtXY(x, y); return v }
+	b := shape.Box
+	maxV, minV = math.Inf(-1), math.Inf(1)
+	var pMax, pMin [2]float64
+	try := func(x, y float64) {
+		v := u(x, y)
+		if v > maxV {
+			maxV, pMax = v, [2]float64{x, y}
+		}
+		if v < minV {
+			minV, pMin = v, [2]float64{x, y}
+		}
+	}
+	const n = 96
+	for i := 0; i <= n; i++ {
+		for j := 0; j <= n; j++ {
+			if x, y := b.X0+(b.X1-b.X0)*float64(i)/n, b.Y0+(b.Y1-b.Y0)*float64(j)/n; inside(x, y) {
+				try(x, y)
+			}
+		}
+	}
+	for _, side := range shape.Sides {
+		for j := 0; j <= 64; j++ {
+			x, y, _, _ := side.At(float64(j) / 64)
+			try(x, y)
+		}
+	}
+	refine := func(p [2]float64, sign float64) ([2]float64, float64) {
+		best := sign * u(p[0], p[1])
+		dx, dy := (b.X1-b.X0)/n, (b.Y1-b.Y0)/n
+		for it := 0; it < 80 && (dx > 1e-12*(b.X1-b.X0) || dy > 1e-12*(b.Y1-b.Y0)); it++ {
+			moved := false
+			for _, st := range [][2]float64{{dx, 0}, {-dx, 0}, {0, dy}, {0, -dy}} {
+				q := [2]float64{p[0] + st[0], p[1] + st[1]}
+				if !inside(q[0], q[1]) {
+					continue
+				}
+				if v := sign * u(q[0], q[1]); v > best {
+					best, p, moved = v, q, true
+				}
+			}
+			if !moved {
+				dx, dy = dx/2, dy/2
+			}
+		}
+		return p, sign * best
+	}
+	pMax, maxV = refine(pMax, 1)
+	pMin, minV = refine(pMin, -1)
+	polar := func(p [2]float64) [2]float64 {
+		th := math.Atan2(p[1], p[0])
+		if th < 0 {
+			th += 2 * math.Pi
+		}
+		return [2]float64{math.Hypot(p[0], p[1]), th}
+	}
+	return maxV, polar(pMax), minV, polar(pMin)
+}
+
+// shapeClaimSide is a claimed solution's residual on one side of a region
+// known by its Shape: 48 points along the side, the normal derivative by a
+// central difference across it.
+func shapeClaimSide(d Domain, side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
+	shape, err := d.Shape(env)
+	if err != nil {
+		return ClaimCheck{}, err
+	}
+	var path *SidePath
+	for k := range shape.Sides {
+		if shape.Sides[k].Name == side {
+			path = &shape.Sides[k]
+		}
+	}
+	if path == nil {
+		return ClaimCheck{}, fmt.Errorf("%s has no side %s", d.Describe(), side)
+	}
+	h := 1e-5 * math.Max(shape.Box.X1-shape.Box.X0, shape.Box.Y1-shape.Box.Y0)
+	polar := func(x, y float64) (float64, float64) {
+		th := math.Atan2(y, x)
+		if th < 0 {
+			th += 2 * math.Pi
+		}
+		return math.Hypot(x, y), th
+	}
+	return sampledSideResidual(side, cond, claim, env, func(u series.CompiledField, k int) (float64, float64, float64, error) {
+		x, y, nx, ny := path.At((float64(k) + 0.5) / 48)
+		r, th := polar(x, y)
+		ro, to := polar(x+h*nx, y+h*ny)
+		ri, ti := polar(x-h*nx, y-h*ny)
+		return r, th, (u.At(ro, to) - u.At(ri, ti)) / (2 * h), nil
+	})
+}
+
+// shapeSamples are up to 72 interior points of a region known by its Shape,
+// from a grid over its box.
+func shapeSamples(d Domain, env series.Env) ([][2]float64, error) {
+	shape, err := d.Shape(env)
+	if err != nil {
+		return nil, err
+	}
+	b := shape.Box
+	var pts [][2]float64
+	for i := 1; i < 12; i++ {
+		for j := 1; j < 12; j++ {
+			x, y := b.X0+(b.X1-b.X0)*float64(i)/12, b.Y0+(b.Y1-b.Y0)*float64(j)/12
+			th := math.Atan2(y, x)
+			if th < 0 {
+				th += 2 * math.Pi
+			}
+			if ok, _ := d.Contains(math.Hypot(x, y), th, env); ok {
+				pts = append(pts, [2]float64{math.Hypot(x, y), th})
+			}
+		}
+	}
+	return pts, nil
+}
+
+// Describe is the fit in words: its poles and its polynomial.
+func (sp *SectionParts) Describe() string {
+	if sp.Corners == 0 {
+		return fmt.Sprintf("a polynomial of degree %d", sp.Degree)
+	}
+	total := 0
+	var each []string
+	for _, n := range sp.Poles {
+		total += n
+		each = append(each, fmt.Sprint(n))
+	}
+	return fmt.Sprintf("%d poles outside the region at its %d corners (%s) and a polynomial of degree %d", total, sp.Corners, strings.Join(each, ", "), sp.Degree)
+}
+
+// residualsByCorner are the largest residuals at the check points nearest
+// each corner (within half their side), and at the points near none.
+func (h *rationalHarmonic) residualsByCorner(pts []boundaryPoint, corners []corner) (near []float64, far float64) {
+	near = make([]float64, len(corners))
+	for _, p := range pts {
+		v, df := h.value(p.z)
+		r := math.Abs(p.a*v + p.b*real(df*p.nu) - p.data)
+		if r > h.residual || math.IsNaN(r) {
+			h.residual, h.worstAt, h.worstOn = r, p.z, p.side
+		}
+		k, d := -1, math.Inf(1)
+		for j, c := range corners {
+			if dj := abs(p.z - c.w); dj < d {
+				k, d = j, dj
+			}
+		}
+		if k >= 0 && d < 0.25*h.scale {
+			near[k] = math.Max(near[k], r)
+		} else {
+			far = math.Max(far, r)
+		}
+	}
+	return near, far
+}
+
+// markSingularCorners marks the corners whose own singular powers join the
+// fit: the re-entrant ones, provided the powers' branch cut, the exterior
+// bisector from the corner, stays outside the region (it can cross a
+// non-convex outline farther on).
+func markSingularCorners(g *sectionGeometry) {
+	for k := range g.corners {
+		c := &g.corners[k]
+		// Where a value condition meets a flux one the exponents (k − ½)/α
+		// would serve too, but with poles beside them the fit loses its
+		// conditioning: for now such corners have poles only (and converge
+		// slowly unless the angle is π/2, where the exponents are whole).
+		c.singular = c.angle > 1 && !rayCrosses(g.shape, c.w, c.dir)
+	}
+}
+
+// rayCrosses reports whether the ray from w along dir meets a side that
+// does not end at w.
+func rayCrosses(shape Shape, w, dir complex128) bool {
+	far := w + dir*complex(1e6*math.Max(shape.Box.X1-shape.Box.X0, shape.Box.Y1-shape.Box.Y0), 0)
+	for _, side := range shape.Sides {
+		x0, y0, _, _ := side.At(0)
+		x1, y1, _, _ := side.At(1)
+		a, b := complex(x0, y0), complex(x1, y1)
+		if abs(a-w) < 1e-12 || abs(b-w) < 1e-12 {
+			continue
+		}
+		if segmentsMeet(real(w), imag(w), real(far), imag(far), x0, y0, x1, y1, 0) {
+			return true
+		}
+	}
+	return false
+}

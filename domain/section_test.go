@@ -1,0 +1,209 @@
+package domain_test
+
+import (
+	"fmt"
+	"math"
+	"math/big"
+	"testing"
+
+	"psol/domain"
+	"psol/series"
+)
+
+// polygon is the polygon through the vertices, given as numbers.
+func polygon(vs ...[2]float64) domain.Polygon {
+	var p domain.Polygon
+	for _, v := range vs {
+		p.X = append(p.X, decimalCoef(v[0]))
+		p.Y = append(p.Y, decimalCoef(v[1]))
+	}
+	return p
+}
+
+func decimalCoef(x float64) series.Coef {
+	q, _ := new(big.Rat).SetString(fmt.Sprint(x))
+	return series.RatCoef(q)
+}
+
+// everySide is one condition on each side.
+func everySide(d domain.Domain, bc string) []string {
+	var out []string
+	for _, s := range d.Sides() {
+		out = append(out, s+": "+bc)
+	}
+	return out
+}
+
+// The unit square as a polygon against psol's exact rectangle solver, for
+// Δu = −1 with u = 0 (the series solution, itself checked against Shah &
+// London's fRe = 14.227 in the rectangle tests).
+func TestPolygonSquareAgainstRectangle(t *testing.T) {
+	sq := polygon([2]float64{0, 0}, [2]float64{1, 0}, [2]float64{1, 1}, [2]float64{0, 1})
+	sol := solveWith(t, "lap(u) = -1", sq, domain.Options{Tol: 1e-10}, everySide(sq, "u = 0")...)
+	r := domain.Rect{L: series.IntCoef(1), H: series.IntCoef(1)}
+	rect := solve(t, "lap(u) = -1", r, everySide(r, "u = 0")...)
+	ev, ref := evaluator(t, sol, 1e-12), evaluator(t, rect, 1e-14)
+	t.Logf("%s; residual %.2g", sol.Steps[0], sol.Section.Residual)
+	for _, p := range [][2]float64{{0.5, 0.5}, {0.1, 0.2}, {0.9, 0.95}, {0.01, 0.5}} {
+		got, est, _ := ev.AtXY(p[0], p[1])
+		want, _, _ := ref.AtXY(p[0], p[1])
+		if math.Abs(got-want) > 1e-9 || math.Abs(got-want) > est+sol.DataError {
+			t.Errorf("u%v = %.14f, rectangle %.14f (estimate %.2g)", p, got, want, est)
+		}
+	}
+}
+
+// Outside values for Δu = −1, u = 0 on general sections (flow in a duct;
+// fRe = D_h²/(2 u_mean) with D_h = 4A/P).
+func TestSectionDuctsAgainstTables(t *testing.T) {
+	s3 := math.Sqrt(3)
+	cases := []struct {
+		name   string
+		d      domain.Domain
+		fRe    float64
+		tol    float64
+		source string
+	}{
+		// Equilateral triangle: fRe = 40/3 exactly (Shah & London 1978; the
+		// closed form u = y(√3x − y)(√3(a − x) − y)/(2√3 a)).
+		{"equilateral triangle", polygon([2]float64{0, 0}, [2]float64{1, 0}, [2]float64{0.5, s3 / 2}), 40.0 / 3, 1e-9, "Shah & London 1978, exact"},
+		// Right isosceles triangle: 13.153 (Shah & London 1978, from memory).
+		{"right isosceles triangle", polygon([2]float64{0, 0}, [2]float64{1, 0}, [2]float64{0, 1}), 13.153, 5e-4, "Shah & London 1978, from memory"},
+		// Regular hexagon: 15.054 (Shah & London 1978, from memory).
+		{"regular hexagon", polygon([2]float64{1, 0}, [2]float64{0.5, s3 / 2}, [2]float64{-0.5, s3 / 2}, [2]float64{-1, 0}, [2]float64{-0.5, -s3 / 2}, [2]float64{0.5, -s3 / 2}), 15.054, 5e-4, "Shah & London 1978, from memory"},
+		// Square: 14.227 (Shah & London 1978).
+		{"square, clockwise", polygon([2]float64{0, 0}, [2]float64{0, 1}, [2]float64{1, 1}, [2]float64{1, 0}), 14.227, 5e-4, "Shah & London 1978"},
+	}
+	for _, c := range cases {
+		sol := solveWith(t, "lap(u) = -1", c.d, domain.Options{Tol: 1e-10}, everySide(c.d, "u = 0")...)
+		rep, err := sol.Report(nil, 1e-10)
+		if err != nil {
+			t.Fatal(err)
+		}
+		figs, err := sol.Quantity("flow", rep)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, f := range figs {
+			if f.Name == "fRe" && math.Abs(f.Value-c.fRe) > c.tol*c.fRe {
+				t.Errorf("%s: fRe = %.10g, want %.10g (%s)", c.name, f.Value, c.fRe, c.source)
+			}
+		}
+		if math.Abs(rep.Flux-rep.Source) > 1e-8*math.Abs(rep.Source) {
+			t.Errorf("%s: net outward flux %.12g, source integral %.12g (divergence theorem)", c.name, rep.Flux, rep.Source)
+		}
+	}
+}
+
+// The equilateral triangle's closed form at interior points (Timoshenko &
+// Goodier, torsion of an equilateral triangular bar: the stress function is
+// the product of the three side lines), and its torsion constant √3a⁴/80.
+func TestEquilateralTriangleClosedForm(t *testing.T) {
+	s3 := math.Sqrt(3)
+	tri := polygon([2]float64{0, 0}, [2]float64{1, 0}, [2]float64{0.5, s3 / 2})
+	sol := solveWith(t, "lap(u) = -2", tri, domain.Options{Tol: 1e-10}, everySide(tri, "u = 0")...)
+	ev := evaluator(t, sol, 1e-10)
+	exact := func(x, y float64) float64 { return y * (s3*x - y) * (s3*(1-x) - y) / s3 }
+	for _, p := range [][2]float64{{0.5, 0.2}, {0.3, 0.1}, {0.6, 0.5}, {0.02, 0.01}} {
+		got, _, _ := ev.AtXY(p[0], p[1])
+		if math.Abs(got-exact(p[0], p[1])) > 1e-11 {
+			t.Errorf("u%v = %.15f, closed form %.15f", p, got, exact(p[0], p[1]))
+		}
+	}
+	rep, err := sol.Report(nil, 1e-10)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if J := 2 * rep.Integral; math.Abs(J-s3/80) > 1e-11 {
+		t.Errorf("J = %.15g, want √3/80 = %.15g (Timoshenko & Goodier)", J, s3/80)
+	}
+}
+
+// The ellipse: Δu = −1 with u = 0 has u = a²b²(1 − x²/a² − y²/b²)/(2(a² + b²))
+// (Timoshenko & Goodier, torsion of an elliptic bar), J = πa³b³/(a² + b²) for
+// Δu = −2, and a Robin rim checked by its own closed form: u = c − r²/4 on
+// the circle... here on the ellipse with data made from the exact solution.
+func TestEllipseClosedForms(t *testing.T) {
+	e := domain.Ellipse{A: series.IntCoef(2), B: series.IntCoef(1)}
+	sol := solveWith(t, "lap(u) = -1", e, domain.Options{Tol: 1e-12}, "u = 0")
+	ev := evaluator(t, sol, 1e-12)
+	exact := func(x, y float64) float64 { return 4 * (1 - x*x/4 - y*y) / 10 }
+	for _, p := range [][2]float64{{0, 0}, {1, 0.5}, {-1.9, 0.1}, {0.3, -0.9}} {
+		got, _, _ := ev.AtXY(p[0], p[1])
+		if math.Abs(got-exact(p[0], p[1])) > 1e-12 {
+			t.Errorf("u%v = %.15f, closed form %.15f", p, got, exact(p[0], p[1]))
+		}
+	}
+	rep, err := sol.Report(nil, 1e-12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if J, want := 4*rep.Integral, 8*math.Pi/5; math.Abs(J-want) > 1e-11 {
+		t.Errorf("J = %.15g, want πa³b³/(a² + b²) = %.15g", J, want)
+	}
+	// Robin: u = 1 − x²/4 − y² + xy (harmonic part xy) satisfies
+	// dn(u) + u = g on the rim with g from its gradient and the normal.
+	robin := "dn(u) + u = ((-x/2 + y)*x/4 + (-2*y + x)*y)/sqrt(x^2/16 + y^2) + 1 - x^2/4 - y^2 + x*y"
+	rs := solveWith(t, "lap(u) = -5/2", e, domain.Options{Tol: 1e-12}, robin)
+	rev := evaluator(t, rs, 1e-12)
+	for _, p := range [][2]float64{{0, 0}, {1, 0.5}, {-1.5, -0.3}} {
+		got, est, _ := rev.AtXY(p[0], p[1])
+		want := 1 - p[0]*p[0]/4 - p[1]*p[1] + p[0]*p[1]
+		if math.Abs(got-want) > 1e-10 || math.Abs(got-want) > est+rs.DataError {
+			t.Errorf("Robin rim: u%v = %.14f, exact %.14f (estimate %.2g)", p, got, want, est+rs.DataError)
+		}
+	}
+}
+
+// An L-shaped section with its re-entrant corner at the origin and a
+// manufactured solution carrying the corner's singularity,
+// u = r^(2/3) cos(2θ/3) + r² (Δu = 4; the singular part is a classical
+// separated solution in a 270° wedge with flux-free sides), with flux
+// conditions on the corner's two sides, Robin and flux conditions on two
+// outer sides and values on the rest, the data from the exact solution:
+// u_x − i u_y = (2/3) z^(−1/3) + 2z̄, so u_x = (2/3) r^(−1/3) cos(θ/3) + 2x and
+// u_y = (2/3) r^(−1/3) sin(θ/3) + 2y.
+func TestLShapeManufacturedSingularity(t *testing.T) {
+	l := polygon([2]float64{0, 0}, [2]float64{1, 0}, [2]float64{1, 1}, [2]float64{-1, 1}, [2]float64{-1, -1}, [2]float64{0, -1})
+	value := "u = r^(2/3)*cos(2*theta/3) + r^2"
+	bcs := []string{
+		"s1: dn(u) = 0", // y = 0, x > 0: −u_y = 0
+		"s2: dn(u) + u = 2/3*r^(-1/3)*cos(theta/3) + 2*x + r^(2/3)*cos(2*theta/3) + r^2", // x = 1
+		"s3: dn(u) = 2/3*r^(-1/3)*sin(theta/3) + 2*y",                                    // y = 1
+		"s4: " + value, "s5: " + value,
+		"s6: dn(u) = 0", // x = 0, y < 0: u_x = 0
+	}
+	sol := solveWith(t, "lap(u) = 4", l, domain.Options{Tol: 1e-10}, bcs...)
+	ev := evaluator(t, sol, 1e-10)
+	for _, p := range [][2]float64{{0.5, 0.5}, {-0.5, -0.5}, {0.01, 0.01}, {-0.9, 0.9}, {0.001, -0.5}} {
+		r, th := math.Hypot(p[0], p[1]), math.Atan2(p[1], p[0])
+		if th < 0 {
+			th += 2 * math.Pi
+		}
+		want := math.Pow(r, 2.0/3)*math.Cos(2*th/3) + r*r
+		got, est, _ := ev.AtXY(p[0], p[1])
+		if err := math.Abs(got - want); err > 1e-8 || err > 10*(est+sol.DataError) {
+			t.Errorf("u%v = %.14f, exact %.14f (estimate %.2g)", p, got, want, est+sol.DataError)
+		}
+	}
+}
+
+// Bad outlines are refused with the vertex at fault.
+func TestPolygonFaults(t *testing.T) {
+	cases := []struct {
+		name   string
+		xs, ys []float64
+		vertex int
+	}{
+		{"two vertices", []float64{0, 1}, []float64{0, 0}, 1},
+		{"repeated vertex", []float64{0, 1, 1, 0}, []float64{0, 0, 0, 1}, 2},
+		{"straight angle", []float64{0, 1, 2, 0}, []float64{0, 0, 0, 1}, 1},
+		{"bow tie", []float64{0, 1, 1, 0}, []float64{0, 1, 0, 1}, 2},
+		{"sound", []float64{0, 1, 0}, []float64{0, 0, 1}, -1},
+	}
+	for _, c := range cases {
+		if k, reason := domain.PolygonFault(c.xs, c.ys); k != c.vertex {
+			t.Errorf("%s: fault at vertex %d (%s), want %d", c.name, k, reason, c.vertex)
+		}
+	}
+}
