@@ -32,6 +32,20 @@ type boundaryPoint struct {
 	a, b  float64 // Dirichlet 1, 0; Neumann 0, 1; Robin h, 1
 	data  float64
 	side  int
+	// w weighs the row: 1 for a value condition; for a flux or Robin one
+	// the distance to the nearest corner over the section's size (capped
+	// at 1), so that its residual, like a value's, is what it moves u by
+	// (a flux error δ over a distance d moves u by about δ·d). Near a
+	// corner where a value meets a flux the gradient is singular, and the
+	// unweighted flux residual would measure that, not the fit (Gopal &
+	// Trefethen weight so).
+	w float64
+}
+
+// residual is the point's weighted condition residual for h.
+func (p boundaryPoint) residual(h *rationalHarmonic) float64 {
+	v, df := h.value(p.z)
+	return p.w * math.Abs(p.a*v+p.b*real(df*p.nu)-p.data)
 }
 
 // corner is where poles cluster: the vertex and the unit direction, outside
@@ -171,13 +185,32 @@ func arnoldi(Z []complex128, degree int) [][]complex128 {
 	return hess
 }
 
-// lightningPoles are n poles at a corner: w + dir·s·e^(−σ(√n − √j)), j = 1..n.
+// nearest is the smallest distance from a corner, relative to the section's
+// size, that the fit resolves: its nearest poles, and its nearest samples
+// (the residual is measured on the sides from there on).
+const nearest = 1e-9
+
+// lightningPoles are n poles at a corner: w + dir·d_j (poleDistances).
 func lightningPoles(c corner, s float64, n int) []complex128 {
-	const sigma = 4
 	out := make([]complex128, n)
+	for j, d := range poleDistances(n, s) {
+		out[j] = c.w + c.dir*complex(d, 0)
+	}
+	return out
+}
+
+// poleDistances are d_j = s·e^(−σ(√n − √j)), j = 1..n, with σ = 4, but no
+// nearer than nearest·s: a point and a pole closer than that differ by
+// little more than float64 resolves against the coordinates' size, and
+// 1/(z − p) loses its digits (σ shrinks as n grows to keep the nearest there).
+func poleDistances(n int, s float64) []float64 {
+	sigma := 4.0
+	if n > 1 {
+		sigma = math.Min(sigma, -math.Log(nearest)/(math.Sqrt(float64(n))-1))
+	}
+	out := make([]float64, n)
 	for j := 1; j <= n; j++ {
-		d := s * math.Exp(-sigma*(math.Sqrt(float64(n))-math.Sqrt(float64(j))))
-		out[j-1] = c.w + c.dir*complex(d, 0)
+		out[j-1] = s * math.Exp(-sigma*(math.Sqrt(float64(n))-math.Sqrt(float64(j))))
 	}
 	return out
 }
@@ -206,7 +239,7 @@ func fitHarmonic(pts []boundaryPoint, corners []corner, centre complex128, scale
 	for i, p := range pts {
 		col := 0
 		put := func(f, df complex128) {
-			w := complex(p.a, 0)*f + complex(p.b, 0)*df*p.nu
+			w := (complex(p.a, 0)*f + complex(p.b, 0)*df*p.nu) * complex(p.w, 0)
 			A.Set(i, col, real(w))
 			A.Set(i, col+1, imag(w))
 			col += 2
@@ -222,7 +255,7 @@ func fitHarmonic(pts []boundaryPoint, corners []corner, centre complex128, scale
 		for _, c := range h.powers {
 			put(c.at(p.z, scale))
 		}
-		b.SetVec(i, p.data)
+		b.SetVec(i, p.w*p.data)
 	}
 	// Scale the columns to unit norm (the poles nearest a corner are large
 	// there) and keep only the live ones: Im q_0 = 0 always, and a pure
@@ -238,12 +271,25 @@ func fitHarmonic(pts []boundaryPoint, corners []corner, centre complex128, scale
 		}
 		live = append(live, j)
 	}
-	B := mat.NewDense(len(pts), len(live), nil)
+	// A small Tikhonov term (rows √λ·I, λ = 1e-26 against unit columns)
+	// keeps the coefficients bounded where the basis is nearly dependent
+	// (a corner's poles and its own powers describe the same singularity):
+	// without it QR, which does not pivot, returns huge coefficients that
+	// cancel, and the residual is rounding of them.
+	const ridge = 1e-13
+	m := len(pts)
+	B := mat.NewDense(m+len(live), len(live), nil)
 	for c, j := range live {
-		for i := 0; i < len(pts); i++ {
+		for i := 0; i < m; i++ {
 			B.Set(i, c, A.At(i, j)/norms[j])
 		}
+		B.Set(m+c, c, ridge)
 	}
+	rhs := mat.NewVecDense(m+len(live), nil)
+	for i := 0; i < m; i++ {
+		rhs.SetVec(i, b.AtVec(i))
+	}
+	b = rhs
 	var y mat.VecDense
 	var qr mat.QR
 	qr.Factorize(B)
@@ -287,8 +333,7 @@ func fitHarmonic(pts []boundaryPoint, corners []corner, centre complex128, scale
 func (h *rationalHarmonic) residualOn(pts []boundaryPoint) {
 	h.residual = 0
 	for _, p := range pts {
-		v, df := h.value(p.z)
-		r := math.Abs(p.a*v + p.b*real(df*p.nu) - p.data)
+		r := p.residual(h)
 		if r > h.residual || math.IsNaN(r) {
 			h.residual, h.worstAt, h.worstOn = r, p.z, p.side
 		}

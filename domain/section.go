@@ -83,7 +83,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 			return nil, err
 		}
 	}
-	markSingularCorners(&geo)
+	markSingularCorners(&geo, conds)
 	scale := 0.0 // the problem's size on the boundary: the data and u_p's operator
 	for k, side := range geo.shape.Sides {
 		for j := 0; j <= 64; j++ {
@@ -102,8 +102,13 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		poles[k] = 4
 	}
 	degree := 12
-	var best *rationalHarmonic
+	values := true // a value condition on every side: the residual bounds the error
+	for _, c := range conds {
+		values = values && c.b == 0
+	}
+	var best, prev *rationalHarmonic // the best fit, and the runner-up
 	var bestPoles []int
+	var lastCheck []boundaryPoint
 	stalled := 0
 	for step := 1; step <= maxSectionSteps; step++ {
 		fit, check := geo.samples(poles, degree, conds)
@@ -112,12 +117,17 @@ func solveSection(d section, p *posed) (*Solution, error) {
 			return nil, unsolvable("%w", err)
 		}
 		near, far := h.residualsByCorner(check, geo.corners)
+		lastCheck = check
 		if best == nil || h.residual < best.residual {
-			best, bestPoles, stalled = h, append([]int(nil), poles...), 0
+			prev, best, bestPoles, stalled = best, h, append([]int(nil), poles...), 0
 		} else {
+			if prev == nil || h.residual < prev.residual {
+				prev = h // the runner-up, for the estimate
+			}
 			stalled++
 		}
-		if best.residual <= target || stalled >= 3 {
+		// With a flux condition a second fit is needed for the estimate.
+		if best.residual <= target && (values || prev != nil) || stalled >= 3 {
 			break
 		}
 		worstNear := 0.0
@@ -153,18 +163,30 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		parts.Bound = parts.Bound && cond.Kind == Dirichlet
 		sol.Sides = append(sol.Sides, Side{Condition: cond, At: side.Name, AtLaTeX: side.Name, Trace: conds[k].trace,
 			DataText: cond.G.Text(), DataLaTeX: cond.G.LaTeX()})
-		sol.Checks = append(sol.Checks, Check{Name: OperatorText(cond, "u") + " - g", Side: side.Name, Numeric: conds[k].worst(best, geo.shape.Sides[k])})
+		sol.Checks = append(sol.Checks, Check{Name: OperatorText(cond, "u") + " - g", Side: side.Name, Numeric: conds[k].worst(best, geo.shape.Sides[k], &geo)})
 	}
 	// The error at a point: for Dirichlet data the maximum principle bounds
 	// the harmonic part's error by the boundary residual; with fluxes the
 	// residual, times the section's size for a flux, is an estimate.
+	// With flux conditions the residual bounds nothing: the estimate is
+	// the largest change from the previous fit on the sides, which by the
+	// maximum principle (their difference is harmonic) bounds the change
+	// everywhere inside, and errs on the safe side for the final fit.
 	sol.DataError = best.residual
 	if !parts.Bound {
-		sol.DataError = best.residual * math.Max(1, geo.scale)
+		change := 0.0
+		if prev != nil {
+			for _, p := range lastCheck {
+				a, _ := best.value(p.z)
+				b, _ := prev.value(p.z)
+				change = math.Max(change, math.Abs(a-b))
+			}
+		}
+		sol.DataError = math.Max(best.residual*math.Max(1, geo.scale), change)
 	}
 	bound := "by the maximum principle this bounds the harmonic part's error everywhere inside"
 	if !parts.Bound {
-		bound = "with flux conditions it is an estimate of the error, not a bound"
+		bound = fmt.Sprintf("with flux conditions that is no bound: the error estimate, %.1e, is the largest change from the previous fit", sol.DataError)
 	}
 	fitText := parts.Describe()
 	sol.Steps = append(sol.Steps, fmt.Sprintf("harmonic part: the real part of a rational function (%s) fitted by least squares to the side conditions (Gopal & Trefethen's lightning method)", fitText))
@@ -235,19 +257,23 @@ func (sc sideCondition) parts(x, y, nx, ny float64) (g, op float64) {
 	return g, op
 }
 
-func (sc sideCondition) point(x, y, nx, ny float64, side int) boundaryPoint {
+func (sc sideCondition) point(x, y, nx, ny float64, side int, geo *sectionGeometry) boundaryPoint {
 	g, op := sc.parts(x, y, nx, ny)
-	return boundaryPoint{z: complex(x, y), nu: complex(nx, ny), a: sc.a, b: sc.b, data: g - op, side: side}
+	p := boundaryPoint{z: complex(x, y), nu: complex(nx, ny), a: sc.a, b: sc.b, data: g - op, side: side, w: 1}
+	if sc.b != 0 {
+		for _, c := range geo.corners {
+			p.w = math.Min(p.w, abs(p.z-c.w)/geo.scale)
+		}
+	}
+	return p
 }
 
-// worst is the side's largest residual on a fine sampling.
-func (sc sideCondition) worst(h *rationalHarmonic, path SidePath) float64 {
+// worst is the side's largest (weighted) residual on a fine sampling.
+func (sc sideCondition) worst(h *rationalHarmonic, path SidePath, geo *sectionGeometry) float64 {
 	out := 0.0
 	for j := 0; j < 400; j++ {
 		x, y, nx, ny := path.At((float64(j) + 0.5) / 400)
-		p := sc.point(x, y, nx, ny, 0)
-		v, df := h.value(p.z)
-		out = math.Max(out, math.Abs(p.a*v+p.b*real(df*p.nu)-p.data))
+		out = math.Max(out, sc.point(x, y, nx, ny, 0, geo).residual(h))
 	}
 	return out
 }
@@ -258,20 +284,13 @@ func (sc sideCondition) worst(h *rationalHarmonic, path SidePath) float64 {
 func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition) (fit, check []boundaryPoint) {
 	sides := g.shape.Sides
 	uniform := 3*(2*degree+2)/max(len(sides), 1)/2 + 12
-	dists := func(k int) []float64 {
-		var out []float64
-		n := poles[k]
-		for j := 1; j <= n; j++ {
-			out = append(out, g.scale*math.Exp(-4*(math.Sqrt(float64(n))-math.Sqrt(float64(j)))))
-		}
-		return out
-	}
+	dists := func(k int) []float64 { return poleDistances(poles[k], g.scale) }
 	add := func(to *[]boundaryPoint, k int, t float64) {
-		if t <= 0 || t >= 1 {
+		if t*sides[k].Length < 0.3*nearest*g.scale || (1-t)*sides[k].Length < 0.3*nearest*g.scale {
 			return
 		}
 		x, y, nx, ny := sides[k].At(t)
-		*to = append(*to, conds[k].point(x, y, nx, ny, k))
+		*to = append(*to, conds[k].point(x, y, nx, ny, k, &g))
 	}
 	for k, side := range sides {
 		for i := 0; i < uniform; i++ {
@@ -562,8 +581,7 @@ func (sp *SectionParts) Describe() string {
 func (h *rationalHarmonic) residualsByCorner(pts []boundaryPoint, corners []corner) (near []float64, far float64) {
 	near = make([]float64, len(corners))
 	for _, p := range pts {
-		v, df := h.value(p.z)
-		r := math.Abs(p.a*v + p.b*real(df*p.nu) - p.data)
+		r := p.residual(h)
 		if r > h.residual || math.IsNaN(r) {
 			h.residual, h.worstAt, h.worstOn = r, p.z, p.side
 		}
@@ -586,14 +604,14 @@ func (h *rationalHarmonic) residualsByCorner(pts []boundaryPoint, corners []corn
 // fit: the re-entrant ones, provided the powers' branch cut, the exterior
 // bisector from the corner, stays outside the region (it can cross a
 // non-convex outline farther on).
-func markSingularCorners(g *sectionGeometry) {
+func markSingularCorners(g *sectionGeometry, conds []sideCondition) {
 	for k := range g.corners {
 		c := &g.corners[k]
 		// Where a value condition meets a flux one the exponents (k − ½)/α
 		// would serve too, but with poles beside them the fit loses its
 		// conditioning: for now such corners have poles only (and converge
 		// slowly unless the angle is π/2, where the exponents are whole).
-		c.singular = c.angle > 1 && !rayCrosses(g.shape, c.w, c.dir)
+		c.singular = (c.angle > 1 || mixedCorner(g, k, conds)) && !rayCrosses(g.shape, c.w, c.dir)
 	}
 }
 
@@ -613,4 +631,19 @@ func rayCrosses(shape Shape, w, dir complex128) bool {
 		}
 	}
 	return false
+}
+
+// mixedCorner reports a corner where a value condition meets a flux or
+// convection one.
+func mixedCorner(g *sectionGeometry, k int, conds []sideCondition) bool {
+	on, back := -1, -1
+	for s := range g.starts {
+		if g.starts[s] == k {
+			on = s
+		}
+		if g.ends[s] == k {
+			back = s
+		}
+	}
+	return on >= 0 && back >= 0 && (conds[on].b == 0) != (conds[back].b == 0)
 }
