@@ -52,15 +52,16 @@ func (p boundaryPoint) residual(h *rationalHarmonic) float64 {
 // the region, along which its poles lie.
 type corner struct {
 	w, dir complex128
-	// angle is the interior angle over π. At a singular corner (re-entrant,
-	// or where a value condition meets a flux one) the fit adds the
-	// corner's own singular powers (cornerPowers).
+	// angle is the interior angle over π. families are the exponent
+	// families of the corner's own singular powers that join the fit
+	// (cornerPowers): whole (k/α: the same kind of condition on both
+	// sides), half (k − ½)/α: a value meets a flux), both (a Robin side).
 	angle    float64
-	singular bool
-	reach    float64 // the distance to the farthest vertex
+	families []float64 // the offsets: 0 for k/α, ½ for (k − ½)/α
+	reach    float64   // the distance to the farthest vertex
 }
 
-// cornerPower is one singular function at a re-entrant corner:
+// cornerPower is one singular function at a corner:
 // ζ^β with ζ = (z − w)·rot/s, rot turning the interior bisector onto the
 // positive axis, so that the branch cut lies along the exterior bisector.
 type cornerPower struct {
@@ -79,17 +80,18 @@ func (c cornerPower) at(z complex128, _ float64) (f, df complex128) {
 	return f, complex(c.beta, 0) * f / zeta * c.rot
 }
 
-// cornerPowers are a re-entrant corner's exponents k/α and (k − ½)/α,
-// k = 1..K, the non-integer ones: the separated solutions of Laplace's
-// equation in a wedge of angle απ with Dirichlet or Neumann sides, and with
-// one of each (common practice; e.g. Grisvard, Elliptic Problems in Nonsmooth
-// Domains). Integer powers are the polynomial's; exponents stop at 24.
+// cornerPowers are a corner's exponents (k − offset)/α, k = 1..K, for its
+// families' offsets, the non-integer ones: the separated solutions of
+// Laplace's equation in a wedge of angle απ with Dirichlet or Neumann sides
+// (offset 0), and with one of each (offset ½) (common practice; e.g.
+// Grisvard, Elliptic Problems in Nonsmooth Domains). Integer powers are the
+// polynomial's; exponents stop at 24.
 func cornerPowers(c corner, K int) []cornerPower {
 	var out []cornerPower
 	rot := 1 / -c.dir / complex(c.reach, 0) // the exterior bisector onto −1, the farthest vertex to |ζ| = 1
 	for k := 1; k <= K; k++ {
-		for _, beta := range []float64{float64(k) / c.angle, (float64(k) - 0.5) / c.angle} {
-			if math.Abs(beta-math.Round(beta)) > 1e-9 && beta <= 24 {
+		for _, off := range c.families {
+			if beta := (float64(k) - off) / c.angle; math.Abs(beta-math.Round(beta)) > 1e-9 && beta <= 24 {
 				out = append(out, cornerPower{w: c.w, rot: rot, beta: beta})
 			}
 		}
@@ -221,9 +223,7 @@ func fitHarmonic(pts []boundaryPoint, corners []corner, centre complex128, scale
 	h := &rationalHarmonic{centre: centre, scale: scale, degree: degree}
 	for k, c := range corners {
 		h.poles = append(h.poles, lightningPoles(c, scale, n[k])...)
-		if c.singular {
-			h.powers = append(h.powers, cornerPowers(c, powers)...)
-		}
+		h.powers = append(h.powers, cornerPowers(c, powers)...)
 	}
 	Z := make([]complex128, len(pts))
 	for i, p := range pts {

@@ -8,6 +8,7 @@ import (
 
 	"psol/ansatz"
 	"psol/series"
+	"psol/series/cart"
 )
 
 // section is a region whose harmonic part psol fits numerically (lightning.go):
@@ -161,8 +162,11 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	for k, side := range geo.shape.Sides {
 		cond := p.conds[side.Name]
 		parts.Bound = parts.Bound && cond.Kind == Dirichlet
-		sol.Sides = append(sol.Sides, Side{Condition: cond, At: side.Name, AtLaTeX: side.Name, Trace: conds[k].trace,
-			DataText: cond.G.Text(), DataLaTeX: cond.G.LaTeX()})
+		data := Side{Condition: cond, At: side.Name, AtLaTeX: side.Name, Trace: conds[k].trace, DataText: cond.G.Text(), DataLaTeX: cond.G.LaTeX()}
+		if p, err := cart.FromPolar(cond.G.Exact); cond.G.IsExact() && err == nil { // in x and y, as the section prints
+			data.DataText, data.DataLaTeX = p.Text(), p.LaTeX()
+		}
+		sol.Sides = append(sol.Sides, data)
 		sol.Checks = append(sol.Checks, Check{Name: OperatorText(cond, "u") + " - g", Side: side.Name, Numeric: conds[k].worst(best, geo.shape.Sides[k], &geo)})
 	}
 	// The error at a point: for Dirichlet data the maximum principle bounds
@@ -354,17 +358,31 @@ func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
 		f += h.cPole[j] * d
 		df -= h.cPole[j] * d * d
 	}
-	q := make([]complex128, h.degree+1)
-	dq := make([]complex128, h.degree+1)
+	var qa, dqa [64]complex128 // on the stack for the usual degrees
+	q, dq := qa[:0], dqa[:0]
+	if h.degree < len(qa) {
+		q, dq = qa[:h.degree+1], dqa[:h.degree+1]
+	} else {
+		q, dq = make([]complex128, h.degree+1), make([]complex128, h.degree+1)
+	}
 	h.polyBasis(z, q, dq)
 	for k := range q {
 		f += h.cPoly[k] * q[k]
 		df += h.cPoly[k] * dq[k]
 	}
+	// A corner's powers share ζ and log ζ: ζ^β = exp(β log ζ).
+	var w, zeta, logZeta complex128
 	for k, c := range h.powers {
-		v, dv := c.at(z, h.scale)
+		if k == 0 || c.w != w {
+			w, zeta = c.w, (z-c.w)*c.rot
+			logZeta = cmplx.Log(zeta)
+		}
+		if zeta == 0 {
+			continue
+		}
+		v := cmplx.Exp(complex(c.beta, 0) * logZeta)
 		f += h.cPower[k] * v
-		df += h.cPower[k] * dv
+		df += h.cPower[k] * complex(c.beta, 0) * v / zeta * c.rot
 	}
 	return f, df
 }
@@ -600,19 +618,48 @@ func (h *rationalHarmonic) residualsByCorner(pts []boundaryPoint, corners []corn
 	return near, far
 }
 
-// markSingularCorners marks the corners whose own singular powers join the
-// fit: the re-entrant ones, provided the powers' branch cut, the exterior
-// bisector from the corner, stays outside the region (it can cross a
-// non-convex outline farther on).
+// markSingularCorners gives each corner the exponent families of its own
+// singular powers, by the conditions on its two sides, provided the powers'
+// branch cut, the exterior bisector from the corner, stays outside the
+// region (it can cross a non-convex outline farther on).
 func markSingularCorners(g *sectionGeometry, conds []sideCondition) {
 	for k := range g.corners {
 		c := &g.corners[k]
-		// Where a value condition meets a flux one the exponents (k − ½)/α
-		// would serve too, but with poles beside them the fit loses its
-		// conditioning: for now such corners have poles only (and converge
-		// slowly unless the angle is π/2, where the exponents are whole).
-		c.singular = (c.angle > 1 || mixedCorner(g, k, conds)) && !rayCrosses(g.shape, c.w, c.dir)
+		c.families = nil
+		if rayCrosses(g.shape, c.w, c.dir) {
+			continue // the poles alone
+		}
+		on, back := cornerSides(g, k)
+		if on < 0 || back < 0 {
+			continue
+		}
+		a, b := conds[on], conds[back]
+		switch {
+		// A Robin side, or a re-entrant corner (whose expansion has a
+		// logarithm where an exponent is whole, which the other family
+		// helps the poles to fit: the L shape converges twice as fast).
+		case a.b != 0 && a.a != 0 || b.b != 0 && b.a != 0 || c.angle > 1:
+			c.families = []float64{0, 0.5}
+		case (a.b == 0) != (b.b == 0):
+			c.families = []float64{0.5}
+		default:
+			c.families = []float64{0}
+		}
 	}
+}
+
+// cornerSides are the sides that start and end at corner k.
+func cornerSides(g *sectionGeometry, k int) (on, back int) {
+	on, back = -1, -1
+	for s := range g.starts {
+		if g.starts[s] == k {
+			on = s
+		}
+		if g.ends[s] == k {
+			back = s
+		}
+	}
+	return on, back
 }
 
 // rayCrosses reports whether the ray from w along dir meets a side that
@@ -633,17 +680,3 @@ func rayCrosses(shape Shape, w, dir complex128) bool {
 	return false
 }
 
-// mixedCorner reports a corner where a value condition meets a flux or
-// convection one.
-func mixedCorner(g *sectionGeometry, k int, conds []sideCondition) bool {
-	on, back := -1, -1
-	for s := range g.starts {
-		if g.starts[s] == k {
-			on = s
-		}
-		if g.ends[s] == k {
-			back = s
-		}
-	}
-	return on >= 0 && back >= 0 && (conds[on].b == 0) != (conds[back].b == 0)
-}

@@ -207,3 +207,47 @@ func TestPolygonFaults(t *testing.T) {
 		}
 	}
 }
+
+// The fit on sections of 3 to 8 sides and the L shape, Δu = −1 with u = 0,
+// to 1e-10 relative.
+func BenchmarkSectionSolve(b *testing.B) {
+	regular := func(n int) domain.Polygon {
+		var vs [][2]float64
+		for k := 0; k < n; k++ {
+			t := 2 * math.Pi * float64(k) / float64(n)
+			vs = append(vs, [2]float64{math.Cos(t), math.Sin(t)})
+		}
+		return polygon(vs...)
+	}
+	cases := map[string]domain.Polygon{
+		"sides=3": regular(3), "sides=4": regular(4), "sides=6": regular(6), "sides=8": regular(8),
+		"L": polygon([2]float64{0, 0}, [2]float64{2, 0}, [2]float64{2, 1}, [2]float64{1, 1}, [2]float64{1, 2}, [2]float64{0, 2}),
+	}
+	for _, name := range []string{"sides=3", "sides=4", "sides=6", "sides=8", "L"} {
+		d := cases[name]
+		f, conds, err := pose("lap(u) = -1", d, everySide(d, "u = 0"), nil)
+		if err != nil {
+			b.Fatal(err)
+		}
+		b.Run(name, func(b *testing.B) {
+			b.ReportAllocs()
+			for i := 0; i < b.N; i++ {
+				if _, err := domain.SolveWith(d, f, conds, domain.Options{Tol: 1e-10}); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
+
+// Evaluating the fitted solution at a point of the L shape.
+func BenchmarkSectionEval(b *testing.B) {
+	l := polygon([2]float64{0, 0}, [2]float64{2, 0}, [2]float64{2, 1}, [2]float64{1, 1}, [2]float64{1, 2}, [2]float64{0, 2})
+	sol := solveWith(b, "lap(u) = -1", l, domain.Options{Tol: 1e-10}, everySide(l, "u = 0")...)
+	ev := evaluator(b, sol, 1e-10)
+	b.ReportAllocs()
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		ev.AtXY(0.3+1e-9*float64(i%7), 0.7)
+	}
+}

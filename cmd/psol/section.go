@@ -21,24 +21,32 @@ func (v *view) sectionStages(sol *domain.Solution) {
 		upTeX = p.LaTeX()
 	}
 	v.Particular = exactStage("particular", "u_p = "+up, upTeX, "u_p")
-	var tr, co []string
+	var tr, co, trTeX, coTeX []string
+	xyTeX := func(s series.Sum) string {
+		if p, err := cart.FromPolar(s); err == nil {
+			return p.LaTeX()
+		}
+		return s.LaTeX()
+	}
 	for _, s := range sol.Sides {
 		c := s.Condition
+		side := `\text{` + c.Side + `}:\ `
 		switch c.Kind {
 		case domain.Dirichlet:
-			tr = append(tr, c.Side+": u_p = "+up)
+			tr, trTeX = append(tr, c.Side+": u_p = "+up), append(trTeX, side+upTeX)
 			if c.G.IsExact() {
-				co = append(co, c.Side+": "+domain.FieldText(sol.Domain, c.G.Exact.Sub(sol.Particular)))
+				d := c.G.Exact.Sub(sol.Particular)
+				co, coTeX = append(co, c.Side+": "+domain.FieldText(sol.Domain, d)), append(coTeX, side+xyTeX(d))
 			} else {
-				co = append(co, c.Side+": "+s.DataText+" - u_p")
+				co, coTeX = append(co, c.Side+": "+s.DataText+" - u_p"), append(coTeX, side+s.DataLaTeX+" - u_p")
 			}
 		default:
-			tr = append(tr, c.Side+": "+domain.OperatorText(c, "u_p")+" with grad u_p = "+gradientText(sol))
-			co = append(co, c.Side+": "+s.DataText+" - ("+domain.OperatorText(c, "u_p")+")")
+			tr, trTeX = append(tr, c.Side+": "+domain.OperatorText(c, "u_p")+" with grad u_p = "+gradientText(sol)), append(trTeX, side+operatorTeX(c, "u_p"))
+			co, coTeX = append(co, c.Side+": "+s.DataText+" - ("+domain.OperatorText(c, "u_p")+")"), append(coTeX, side+s.DataLaTeX+" - ("+operatorTeX(c, "u_p")+")")
 		}
 	}
-	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(tr, `;\ `), `u_p\big|_{\partial\Omega}`)
-	v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(co, `;\ `), `g - u_p\big|_{\partial\Omega}`)
+	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(trTeX, `;\quad `), `u_p\big|_{\partial\Omega}`)
+	v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(coTeX, `;\quad `), `g - u_p\big|_{\partial\Omega}`)
 	fit := sp.Describe()
 	form := "Re[sum_j c_j/(z - p_j) + sum_k d_k*q_k(z)], z = x + i*y"
 	if sp.Corners == 0 {
