@@ -679,4 +679,3 @@ func rayCrosses(shape Shape, w, dir complex128) bool {
 	}
 	return false
 }
-
