@@ -814,6 +814,18 @@ func (q *Quadrature) At(r, theta float64) (float64, float64) {
 	return v, err
 }
 
+// Gradient is (∂p/∂r, ∂p/∂θ) at (r, θ), from the modes and their radial
+// derivatives (no lift: regions with a lift do not ask).
+func (q *Quadrature) Gradient(r, theta float64) (pr, pt float64) {
+	p, dp, _ := q.Mode(r)
+	for k := range p {
+		c, s := math.Cos(q.nu(k)*theta), math.Sin(q.nu(k)*theta)
+		pr += dp[k][0]*c + dp[k][1]*s
+		pt += q.nu(k) * (p[k][1]*c - p[k][0]*s)
+	}
+	return pr, pt
+}
+
 // offGrid reports a ring whose coefficients a, b (of the period P) disagree
 // with the source between the samples, at 13 angles no power-of-two grid
 // hits: content above the band folded onto lower modes (aliasing).

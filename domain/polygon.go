@@ -7,6 +7,7 @@ import (
 	"math/cmplx"
 	"strings"
 
+	"psol/ansatz"
 	"psol/series"
 	"psol/series/cart"
 )
@@ -216,6 +217,84 @@ func (p Polygon) geometry(env series.Env) (sectionGeometry, error) {
 		g.starts[k], g.ends[k] = k, j
 	}
 	return g, nil
+}
+
+// areaNodes: the polygon cut into triangles by ear clipping, each triangle
+// into 4 by its midpoints, and a collapsed 16 × 16 Gauss–Legendre rule
+// (Duffy's map of the square onto the triangle) on each.
+func (p Polygon) areaNodes(env series.Env) ([][3]float64, error) {
+	xs, ys, orient, err := p.vertices(env)
+	if err != nil {
+		return nil, err
+	}
+	var out [][3]float64
+	var split func(a, b, c [2]float64, depth int)
+	split = func(a, b, c [2]float64, depth int) {
+		if depth > 0 {
+			mid := func(p, q [2]float64) [2]float64 { return [2]float64{(p[0] + q[0]) / 2, (p[1] + q[1]) / 2} }
+			ab, bc, ca := mid(a, b), mid(b, c), mid(c, a)
+			split(a, ab, ca, depth-1)
+			split(ab, b, bc, depth-1)
+			split(ca, bc, c, depth-1)
+			split(ab, bc, ca, depth-1)
+			return
+		}
+		area := math.Abs((b[0]-a[0])*(c[1]-a[1])-(c[0]-a[0])*(b[1]-a[1])) / 2
+		for i, u := range ansatz.GaussX {
+			s := (u + 1) / 2
+			for j, v := range ansatz.GaussX {
+				t := (v + 1) / 2 * (1 - s)
+				w := ansatz.GaussW[i] / 2 * ansatz.GaussW[j] / 2 * (1 - s) * 2 * area
+				out = append(out, [3]float64{a[0] + s*(b[0]-a[0]) + t*(c[0]-a[0]), a[1] + s*(b[1]-a[1]) + t*(c[1]-a[1]), w})
+			}
+		}
+	}
+	for _, tri := range earClip(xs, ys, orient) {
+		split([2]float64{xs[tri[0]], ys[tri[0]]}, [2]float64{xs[tri[1]], ys[tri[1]]}, [2]float64{xs[tri[2]], ys[tri[2]]}, 1)
+	}
+	return out, nil
+}
+
+// earClip cuts a simple polygon into triangles: repeatedly the first
+// convex vertex whose triangle holds no other vertex.
+func earClip(xs, ys []float64, orient float64) [][3]int {
+	idx := make([]int, len(xs))
+	for i := range idx {
+		idx[i] = i
+	}
+	cross := func(a, b, c int) float64 {
+		return orient * ((xs[b]-xs[a])*(ys[c]-ys[a]) - (ys[b]-ys[a])*(xs[c]-xs[a]))
+	}
+	var out [][3]int
+	for len(idx) > 3 {
+		cut := false
+		for k := range idx {
+			a, b, c := idx[(k+len(idx)-1)%len(idx)], idx[k], idx[(k+1)%len(idx)]
+			if cross(a, b, c) <= 0 {
+				continue // reflex: not an ear
+			}
+			ear := true
+			for _, o := range idx {
+				if o != a && o != b && o != c && cross(a, b, o) >= 0 && cross(b, c, o) >= 0 && cross(c, a, o) >= 0 {
+					ear = false
+					break
+				}
+			}
+			if ear {
+				out = append(out, [3]int{a, b, c})
+				idx = append(idx[:k], idx[k+1:]...)
+				cut = true
+				break
+			}
+		}
+		if !cut { // rounding on a degenerate outline: close with a fan
+			break
+		}
+	}
+	for k := 1; k+1 < len(idx); k++ {
+		out = append(out, [3]int{idx[0], idx[k], idx[k+1]})
+	}
+	return out
 }
 
 func abs(z complex128) float64 { return math.Hypot(real(z), imag(z)) }

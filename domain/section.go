@@ -16,6 +16,9 @@ import (
 type section interface {
 	Domain
 	geometry(env series.Env) (sectionGeometry, error)
+	// areaNodes are points and weights of a rule for ∬ f dA over the
+	// section, exact to rounding for smooth f (the numeric parts' integrals).
+	areaNodes(env series.Env) ([][3]float64, error)
 }
 
 // sectionGeometry is a section's boundary for the fit: the sides as paths,
@@ -44,6 +47,7 @@ type SectionParts struct {
 	// principle Residual then bounds the harmonic part's error everywhere.
 	Bound bool
 	fit   *rationalHarmonic
+	quad  []*sideInterpolant // the numeric particular part on each side, if any
 }
 
 // attach adds the fitted harmonic part to the evaluator.
@@ -60,9 +64,6 @@ const maxSectionSteps = 12
 // harmonic part fitted to the rest, refined until the residual on a finer
 // sampling meets the tolerance.
 func solveSection(d section, p *posed) (*Solution, error) {
-	if p.rest != nil {
-		return nil, unsupported("on %s psol needs a closed-form particular solution for now; the source part %s has none", d.Describe(), p.rest.Text())
-	}
 	allNeumann := true
 	for _, c := range p.conds {
 		allNeumann = allNeumann && c.Kind == Neumann
@@ -78,10 +79,19 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	if err != nil {
 		return nil, unsupported("the region needs its sizes as numbers: %w", err)
 	}
+	var quad *ansatz.Quadrature
+	if p.rest != nil {
+		if quad, err = sectionQuadrature(d, geo, p); err != nil {
+			return nil, err
+		}
+	}
 	conds := make([]sideCondition, len(geo.shape.Sides))
 	for k, side := range geo.shape.Sides {
 		if conds[k], err = compileSideCondition(p.conds[side.Name], up, p.env); err != nil {
 			return nil, err
+		}
+		if quad != nil {
+			conds[k].quad = newSideInterpolant(quad, side, p.tol)
 		}
 	}
 	markSingularCorners(&geo, conds)
@@ -89,7 +99,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	for k, side := range geo.shape.Sides {
 		for j := 0; j <= 64; j++ {
 			x, y, nx, ny := side.At(float64(j) / 64)
-			g, op := conds[k].parts(x, y, nx, ny)
+			g, op := conds[k].parts(float64(j)/64, x, y, nx, ny)
 			scale = math.Max(scale, math.Max(math.Abs(g), math.Abs(op)))
 		}
 	}
@@ -153,7 +163,13 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	}
 	parts := &SectionParts{Corners: len(geo.corners), Degree: best.degree, Residual: best.residual,
 		X: real(best.worstAt), Y: imag(best.worstAt), Side: geo.shape.Sides[best.worstOn].Name, Bound: true, fit: best, Poles: bestPoles}
-	sol := &Solution{Domain: d, Source: p.f, Particular: up, U: up, Rules: rules, Section: parts, stages: []stage{parts}, Numeric: true}
+	for _, c := range conds {
+		if c.quad != nil {
+			parts.quad = append(parts.quad, c.quad)
+		}
+	}
+	sol := &Solution{Domain: d, Source: p.f, Particular: up, U: up, Rules: rules, Section: parts, stages: []stage{parts}, Numeric: true,
+		Quadrature: quad, Rest: p.rest}
 	eq := Check{Name: "lap(u_p) - f", Exact: true}
 	if r := up.Laplacian().Sub(p.f); !r.IsZero() {
 		eq.Exact, eq.Residual = false, r
@@ -188,6 +204,29 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		}
 		sol.DataError = math.Max(best.residual*math.Max(1, geo.scale), change)
 	}
+	if quad != nil {
+		// The quadrature's own error on the sides enters the data, and so
+		// (maximum principle) the harmonic part everywhere.
+		qerr := 0.0
+		for _, side := range geo.shape.Sides {
+			for j := 0; j <= 32; j++ {
+				x, y, _, _ := side.At(float64(j) / 32)
+				r, th := polarOf(x, y)
+				_, e := quad.At(r, th)
+				qerr = math.Max(qerr, e)
+			}
+		}
+		for _, in := range parts.quad { // the interpolants' own error moves the data too
+			qerr = math.Max(qerr, in.err)
+		}
+		sol.DataError += qerr
+		sol.Notes = append(sol.Notes, fmt.Sprintf("psol has no closed-form rule for the source part %s: its particular solution is by quadrature on the disk r < %.6g around the section (FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r)", p.rest.Text(), quad.R, quad.Samples, quad.Modes))
+		qc, err := checkedQuadrature(d, sol, p)
+		if err != nil {
+			return nil, err
+		}
+		sol.Checks = append(sol.Checks, qc)
+	}
 	bound := "by the maximum principle this bounds the harmonic part's error everywhere inside"
 	if !parts.Bound {
 		bound = fmt.Sprintf("with flux conditions that is no bound: the error estimate, %.1e, is the largest change from the previous fit", sol.DataError)
@@ -204,6 +243,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 // sideCondition is one side's condition in numbers: a·u + b·∂u/∂n = g, with
 // u_p's share (its operator value) to subtract.
 type sideCondition struct {
+	quad   *sideInterpolant // the numeric particular part on the side, where the source has one
 	a, b   float64
 	g      series.CompiledField
 	up     series.Compiled
@@ -244,14 +284,20 @@ func compileSideCondition(cond Condition, up series.Sum, env series.Env) (sideCo
 	return sc, nil
 }
 
-// parts are the data g and u_p's operator value at a boundary point.
-func (sc sideCondition) parts(x, y, nx, ny float64) (g, op float64) {
+// parts are the data g and u_p's operator value at a boundary point, t
+// along its side (the numeric particular part is interpolated in t; t < 0
+// leaves it out).
+func (sc sideCondition) parts(t, x, y, nx, ny float64) (g, op float64) {
 	r, th := math.Hypot(x, y), math.Atan2(y, x)
 	if th < 0 {
 		th += 2 * math.Pi
 	}
 	g = sc.g.At(r, th)
 	op = sc.a * sc.up.At(r, th)
+	if sc.quad != nil && t >= 0 {
+		v, dn := sc.quad.at(t)
+		op += sc.a*v + sc.b*dn
+	}
 	if sc.b != 0 {
 		rr := math.Max(r, 1e-300)
 		ur, ut := sc.ur.At(rr, th), sc.ut.At(rr, th)/rr
@@ -261,8 +307,116 @@ func (sc sideCondition) parts(x, y, nx, ny float64) (g, op float64) {
 	return g, op
 }
 
-func (sc sideCondition) point(x, y, nx, ny float64, side int, geo *sectionGeometry) boundaryPoint {
-	g, op := sc.parts(x, y, nx, ny)
+// sideInterpolant is the numeric particular solution's value and normal
+// derivative along one side, as Chebyshev interpolants in the side's
+// parameter t: the fit asks for them at thousands of points, each a
+// quadrature evaluation otherwise. Its error, checked at the midpoints
+// between the nodes, joins the data's.
+type sideInterpolant struct {
+	t, v, dn, w []float64 // nodes, values, weights (barycentric)
+	err         float64
+}
+
+func newSideInterpolant(q *ansatz.Quadrature, path SidePath, tol float64) *sideInterpolant {
+	eval := func(t float64) (float64, float64) {
+		x, y, nx, ny := path.At(t)
+		r, th := polarOf(x, y)
+		v, _ := q.At(r, th)
+		rr := math.Max(r, 1e-300)
+		pr, pt := q.Gradient(rr, th)
+		pt /= rr
+		ux, uy := math.Cos(th)*pr-math.Sin(th)*pt, math.Sin(th)*pr+math.Cos(th)*pt
+		return v, nx*ux + ny*uy
+	}
+	var in *sideInterpolant
+	for n := 32; ; n *= 2 {
+		in = &sideInterpolant{}
+		for j := 0; j <= n; j++ {
+			t := (1 - math.Cos(math.Pi*float64(j)/float64(n))) / 2
+			v, dn := eval(t)
+			w := 1.0
+			if j%2 == 1 {
+				w = -1
+			}
+			if j == 0 || j == n {
+				w /= 2
+			}
+			in.t, in.v, in.dn, in.w = append(in.t, t), append(in.v, v), append(in.dn, dn), append(in.w, w)
+		}
+		size := 0.0
+		for j := range in.v {
+			size = math.Max(size, math.Max(math.Abs(in.v[j]), math.Abs(in.dn[j])))
+		}
+		in.err = 0
+		for j := 0; j < n; j++ {
+			t := (1 - math.Cos(math.Pi*(float64(j)+0.5)/float64(n))) / 2
+			v, dn := eval(t)
+			a, b := in.at(t)
+			in.err = math.Max(in.err, math.Max(math.Abs(a-v), math.Abs(b-dn)))
+		}
+		if in.err <= tol*math.Max(size, 1e-300) || n >= 1024 {
+			return in
+		}
+	}
+}
+
+// at is the interpolated value and normal derivative at t.
+func (in *sideInterpolant) at(t float64) (v, dn float64) {
+	var num, numD, den float64
+	for j, tj := range in.t {
+		if t == tj {
+			return in.v[j], in.dn[j]
+		}
+		c := in.w[j] / (t - tj)
+		num, numD, den = num+c*in.v[j], numD+c*in.dn[j], den+c
+	}
+	return num / den, numD / den
+}
+
+// polarOf is (r, θ) of (x, y), θ in [0, 2π).
+func polarOf(x, y float64) (float64, float64) {
+	th := math.Atan2(y, x)
+	if th < 0 {
+		th += 2 * math.Pi
+	}
+	return math.Hypot(x, y), th
+}
+
+// sectionQuadrature is the numeric particular solution of the source's part
+// with no closed form: the polar quadrature on the disk about the origin
+// that holds the section (any condition on its rim will do: only Δu_p = f
+// inside the section matters). The source must be defined on that disk.
+func sectionQuadrature(d section, geo sectionGeometry, p *posed) (*ansatz.Quadrature, error) {
+	cf, err := series.Field{Rest: p.rest}.Compile(p.env)
+	if err != nil {
+		return nil, unsupported("the source %s needs every parameter's value: %w", p.rest.Text(), err)
+	}
+	R := 0.0
+	for _, side := range geo.shape.Sides {
+		for j := 0; j <= 256; j++ {
+			x, y, _, _ := side.At(float64(j) / 256)
+			R = math.Max(R, math.Hypot(x, y))
+		}
+	}
+	R *= 1 + 1e-9
+	for i := 1; i <= 64; i++ {
+		for j := 0; j < 64; j++ {
+			r, th := R*float64(i)/64, 2*math.Pi*float64(j)/64
+			if v := cf.At(r, th); math.IsNaN(v) || math.IsInf(v, 0) {
+				x, y := Cartesian(r, th)
+				return nil, unsolvable("the source %s is not a finite number at (x, y) = (%.4g, %.4g): psol's quadrature for %s needs it on the whole disk r < %.4g around the section, not only inside", p.rest.Text(), x, y, d.Describe(), R)
+			}
+		}
+	}
+	q := &ansatz.Quadrature{G: cf.At, R: R, Tol: p.tol, MaxSamples: p.quadSamples, MaxBisections: p.quadBisections}
+	if err := q.Prepare(); err != nil {
+		return nil, unsolvable("%s: %w", p.rest.Text(), err)
+	}
+	return q, nil
+}
+
+func (sc sideCondition) point(t, x, y, nx, ny float64, side int, geo *sectionGeometry) boundaryPoint {
+	g, op := sc.parts(t, x, y, nx, ny)
 	p := boundaryPoint{z: complex(x, y), nu: complex(nx, ny), a: sc.a, b: sc.b, data: g - op, side: side, w: 1}
 	if sc.b != 0 {
 		for _, c := range geo.corners {
@@ -277,7 +431,7 @@ func (sc sideCondition) worst(h *rationalHarmonic, path SidePath, geo *sectionGe
 	out := 0.0
 	for j := 0; j < 400; j++ {
 		x, y, nx, ny := path.At((float64(j) + 0.5) / 400)
-		out = math.Max(out, sc.point(x, y, nx, ny, 0, geo).residual(h))
+		out = math.Max(out, sc.point((float64(j)+0.5)/400, x, y, nx, ny, 0, geo).residual(h))
 	}
 	return out
 }
@@ -294,7 +448,7 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 			return
 		}
 		x, y, nx, ny := sides[k].At(t)
-		*to = append(*to, conds[k].point(x, y, nx, ny, k, &g))
+		*to = append(*to, conds[k].point(t, x, y, nx, ny, k, &g))
 	}
 	for k, side := range sides {
 		for i := 0; i < uniform; i++ {
@@ -411,6 +565,23 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 			rep.SourceExact, rep.Source = &c, v
 		}
 	}
+	if s.Quadrature != nil { // the numeric particular part and its source, by the area rule
+		nodes, err := d.areaNodes(env)
+		if err != nil {
+			return err
+		}
+		f, err := series.Field{Rest: s.Rest}.Compile(env)
+		if err != nil {
+			return err
+		}
+		for _, n := range nodes {
+			r, th := polarOf(n[0], n[1])
+			p, _ := s.Quadrature.At(r, th)
+			rep.Integral += n[2] * p
+			rep.Source += n[2] * f.At(r, th)
+		}
+		rep.SourceExact = nil
+	}
 	inside := func(x, y float64) bool { ok, err := ContainsXY(d, x, y, env); return ok && err == nil }
 	rep.Max, rep.ArgMax, rep.Min, rep.ArgMin = xyExtremes(shape, inside, ev)
 	up, err := compileSideCondition(Condition{Kind: Neumann, G: series.ExactField(series.Sum{})}, s.Particular, env)
@@ -418,7 +589,10 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 		return err
 	}
 	rep.Sides, rep.Flux, rep.FluxExact = nil, 0, nil
-	for _, side := range shape.Sides {
+	for k, side := range shape.Sides {
+		if len(s.Section.quad) == len(shape.Sides) {
+			up.quad = s.Section.quad[k]
+		}
 		f := SideFlux{Side: side.Name, Value: sideFlux(side, up, s.Section.fit)}
 		rep.Sides, rep.Flux = append(rep.Sides, f), rep.Flux+f.Value
 	}
@@ -434,8 +608,9 @@ func sideFlux(side SidePath, up sideCondition, h *rationalHarmonic) float64 {
 	for i := 0; i+1 < len(edges); i++ {
 		lo, hi := edges[i], edges[i+1]
 		for j, x := range ansatz.GaussX {
-			px, py, nx, ny := side.At((lo+hi)/2 + (hi-lo)/2*x)
-			_, dup := up.parts(px, py, nx, ny)
+			t := (lo+hi)/2 + (hi-lo)/2*x
+			px, py, nx, ny := side.At(t)
+			_, dup := up.parts(t, px, py, nx, ny) // up is Neumann: its operator is ∂u_p/∂n
 			_, df := h.value(complex(px, py))
 			total += ansatz.GaussW[j] * (hi - lo) / 2 * side.Length * (dup + real(df*complex(nx, ny)))
 		}

@@ -251,3 +251,30 @@ func BenchmarkSectionEval(b *testing.B) {
 		ev.AtXY(0.3+1e-9*float64(i%7), 0.7)
 	}
 }
+
+// A source with no closed form on a section: its particular solution by the
+// polar quadrature on a disk around the section, the harmonic part fitted
+// to the rest. Against psol's rectangle with its own, independent sine
+// quadrature (sinequad.go) for the same Gaussian source on the unit square.
+func TestSectionQuadratureSourceAgainstRectangle(t *testing.T) {
+	const eq = "lap(u) = -exp(-((x - 0.4)^2 + (y - 0.6)^2)/0.02)"
+	sq := polygon([2]float64{0, 0}, [2]float64{1, 0}, [2]float64{1, 1}, [2]float64{0, 1})
+	sol := solveWith(t, eq, sq, domain.Options{Tol: 1e-10}, everySide(sq, "u = 0")...)
+	r := domain.Rect{L: series.IntCoef(1), H: series.IntCoef(1)}
+	rect := solveWith(t, eq, r, domain.Options{Tol: 1e-12}, everySide(r, "u = 0")...)
+	ev, ref := evaluator(t, sol, 1e-10), evaluator(t, rect, 1e-12)
+	for _, p := range [][2]float64{{0.4, 0.6}, {0.1, 0.1}, {0.8, 0.3}} {
+		got, est, _ := ev.AtXY(p[0], p[1])
+		want, west, _ := ref.AtXY(p[0], p[1])
+		if diff := math.Abs(got - want); diff > 1e-9 || diff > 10*(est+sol.DataError+west+rect.DataError) {
+			t.Errorf("u%v = %.13f, rectangle %.13f (estimates %.1g, %.1g)", p, got, want, est+sol.DataError, west+rect.DataError)
+		}
+	}
+	rep, err := sol.Report(nil, 1e-10)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if math.Abs(rep.Flux-rep.Source) > 1e-9*math.Abs(rep.Source) {
+		t.Errorf("net outward flux %.12g, source integral %.12g (divergence theorem)", rep.Flux, rep.Source)
+	}
+}

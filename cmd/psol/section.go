@@ -20,7 +20,23 @@ func (v *view) sectionStages(sol *domain.Solution) {
 	if p, err := cart.FromPolar(sol.Particular); err == nil {
 		upTeX = p.LaTeX()
 	}
+	closedUp := up             // the closed part alone, for the corrections
+	if sol.Quadrature != nil { // the source's part with no closed form, by quadrature
+		q := "quadrature(" + sol.Rest.Text() + ")"
+		if sol.Particular.IsZero() {
+			up, upTeX = "u_q, u_q = "+q, `u_q`
+		} else {
+			up, upTeX = up+" + u_q, u_q = "+q, upTeX+` + u_q`
+		}
+	}
 	v.Particular = exactStage("particular", "u_p = "+up, upTeX, "u_p")
+	minusQ, minusQTeX := "", ""
+	if sol.Quadrature != nil {
+		up, minusQ, minusQTeX = closedUp+" + u_q", " - u_q", ` - u_q`
+		if sol.Particular.IsZero() {
+			up = "u_q"
+		}
+	}
 	var tr, co, trTeX, coTeX []string
 	xyTeX := func(s series.Sum) string {
 		if p, err := cart.FromPolar(s); err == nil {
@@ -36,7 +52,7 @@ func (v *view) sectionStages(sol *domain.Solution) {
 			tr, trTeX = append(tr, c.Side+": u_p = "+up), append(trTeX, side+upTeX)
 			if c.G.IsExact() {
 				d := c.G.Exact.Sub(sol.Particular)
-				co, coTeX = append(co, c.Side+": "+domain.FieldText(sol.Domain, d)), append(coTeX, side+xyTeX(d))
+				co, coTeX = append(co, c.Side+": "+domain.FieldText(sol.Domain, d)+minusQ), append(coTeX, side+xyTeX(d)+minusQTeX)
 			} else {
 				co, coTeX = append(co, c.Side+": "+s.DataText+" - u_p"), append(coTeX, side+s.DataLaTeX+" - u_p")
 			}
