@@ -559,6 +559,28 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 	if err != nil {
 		return err
 	}
+	if s.Section == nil { // a closed solution: every figure exact
+		c, err := d.integral(s.U)
+		if err != nil {
+			return err
+		}
+		cv, v, err := sub(c, env)
+		if err != nil {
+			return err
+		}
+		rep.IntegralExact, rep.Integral = &cv, v
+		if c, err := d.integral(s.Source); err == nil {
+			if c, v, err := sub(c, env); err == nil {
+				rep.SourceExact, rep.Source = &c, v
+				if len(shape.Sides) == 1 { // the one side carries all of it (divergence theorem)
+					rep.Sides, rep.Flux, rep.FluxExact = []SideFlux{{Side: shape.Sides[0].Name, Value: v, Exact: &c}}, v, &c
+				}
+			}
+		}
+		inside := func(x, y float64) bool { ok, err := ContainsXY(d, x, y, env); return ok && err == nil }
+		rep.Max, rep.ArgMax, rep.Min, rep.ArgMin = xyExtremes(shape, inside, ev)
+		return nil
+	}
 	rep.Integral = v + sectionHarmonicIntegral(s.Section.fit, shape)
 	if c, err := d.integral(s.Source); err == nil {
 		if c, v, err := sub(c, env); err == nil {

@@ -278,3 +278,44 @@ func TestSectionQuadratureSourceAgainstRectangle(t *testing.T) {
 		t.Errorf("net outward flux %.12g, source integral %.12g (divergence theorem)", rep.Flux, rep.Source)
 	}
 }
+
+// The ellipse's exact polynomial solutions: Δu = xy² with u = x³ − y on the
+// rim of x²/(3/2)² + y² < 1 is a polynomial of degree 5, found by exact
+// linear algebra; checked here independently: Δu − f = 0 exactly, and
+// u = g at points of the rim in float64. With symbols, the torsion constant
+// is Timoshenko & Goodier's πa³b³/(a² + b²) exactly.
+func TestEllipseExactPolynomialSolutions(t *testing.T) {
+	e := domain.Ellipse{A: coef(t, "3/2"), B: series.IntCoef(1)}
+	sol := solve(t, "lap(u) = x*y^2", e, "u = x^3 - y")
+	if !sol.IsClosed() {
+		t.Fatalf("not closed: %s", sol.U.Text())
+	}
+	if r := sol.U.Laplacian().Sub(sol.Source); !r.IsZero() {
+		t.Errorf("lap(u) - f = %s", r.Text())
+	}
+	u, err := sol.U.Compile(nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for k := 0; k < 16; k++ {
+		tau := 2 * math.Pi * float64(k) / 16
+		x, y := 1.5*math.Cos(tau), math.Sin(tau)
+		if got, want := u.At(math.Hypot(x, y), math.Atan2(y, x)), x*x*x-y; math.Abs(got-want) > 1e-13 {
+			t.Errorf("u(%.3f, %.3f) = %.15f on the rim, g = %.15f", x, y, got, want)
+		}
+	}
+	sym := domain.Ellipse{A: coef(t, "a"), B: coef(t, "b")}
+	tor := solve(t, "lap(u) = -2", sym, "u = 0")
+	rep, err := tor.Report(nil, 1e-12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	figs, err := tor.Quantity("torsion", rep)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := coef(t, "pi*a^3*b^3/(a^2 + b^2)")
+	if figs[0].Exact == nil || !figs[0].Exact.Sub(want).IsZero() {
+		t.Errorf("J = %v, want pi*a^3*b^3/(a^2 + b^2) (Timoshenko & Goodier)", figs[0].Exact)
+	}
+}

@@ -131,6 +131,8 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	}
 	if sol.Section != nil {
 		v.sectionStages(sol)
+	} else if _, ok := sol.Domain.(domain.Ellipse); ok {
+		v.xyClosedStages(sol)
 	}
 	if c := sol.Independent; c != nil {
 		v.Independent = &checkOut{Name: c.Name}

@@ -81,3 +81,25 @@ func gradientText(sol *domain.Solution) string {
 	}
 	return "(" + p.DX().Text() + ", " + p.DY().Text() + ")"
 }
+
+// xyClosedStages reprints a closed solution on a section (the ellipse's
+// polynomial one) in x and y, as the section's other output is.
+func (v *view) xyClosedStages(sol *domain.Solution) {
+	text := func(s series.Sum) string { return domain.FieldText(sol.Domain, s) }
+	tex := func(s series.Sum) string {
+		if p, err := cart.FromPolar(s); err == nil {
+			return p.LaTeX()
+		}
+		return s.LaTeX()
+	}
+	v.Particular = exactStage("particular", "u_p = "+text(sol.Particular), tex(sol.Particular), "u_p")
+	var tr, trTeX, co, coTeX []string
+	for _, s := range sol.Sides {
+		tr, trTeX = append(tr, s.Condition.Side+": u_p = "+text(s.Trace)), append(trTeX, tex(s.Trace))
+		co, coTeX = append(co, s.Condition.Side+": "+text(s.Correction)), append(coTeX, tex(s.Correction))
+	}
+	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(trTeX, `;\quad `), `u_p\big|_{\partial\Omega}`)
+	v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(coTeX, `;\quad `), `g - u_p\big|_{\partial\Omega}`)
+	v.Harmonic = exactStage("harmonic", text(sol.Harmonic), tex(sol.Harmonic), "u_h")
+	v.Solution = exactStage("solution", "u = "+text(sol.U), tex(sol.U), "u")
+}
