@@ -89,7 +89,25 @@ var scenarios = []scenario{
 		meaning: "A thin disk of unit radius carries charge density growing to one side, lap(u) = -(1 + x),\n" +
 			"with its rim grounded (u = 0). u is the potential in units of rho0 a^2/eps0.",
 		args: []string{"solve", "lap(u) = -(1 + x)", "--disk", "1", "--bc", "u = 0", "--steps"},
+	},	{
+		name:  "hexduct",
+		title: "Hexagonal channel of a plate heat exchanger",
+		meaning: "Laminar flow in a channel whose section is a regular hexagon of side 4 mm: with u the velocity\n" +
+			"in units of (-dp/dz)/mu, lap(u) = -1 and u = 0 on the six walls. The section is not a region\n" +
+			"with a series solution: psol fits the harmonic part numerically and prints its accuracy;\n" +
+			"fRe, the friction product pressure-drop estimates use, is the figure of interest.",
+		args: []string{"solve", "lap(u) = -1", "--polygon", "0.004,0 0.002,0.002*sqrt(3) -0.002,0.002*sqrt(3) -0.004,0 -0.002,-0.002*sqrt(3) 0.002,-0.002*sqrt(3)",
+			"--bc", "u = 0", "--quantity", "flow"},
 	},
+	{
+		name:  "lbar",
+		title: "Twisted L-shaped bar",
+		meaning: "An angle section, legs 40 mm long and 10 mm thick, twisted: the Prandtl stress function has\n" +
+			"lap(u) = -2 and u = 0 on the outline. The torsion constant J and the peak shear stress over\n" +
+			"G*theta follow; at the re-entrant corner the stress is unbounded in this model (a fillet helps).",
+		args: []string{"solve", "lap(u) = -2", "--polygon", "0,0 0.04,0 0.04,0.01 0.01,0.01 0.01,0.04 0,0.04", "--bc", "u = 0", "--quantity", "torsion"},
+	},
+
 }
 
 func newDemoCmd() *cobra.Command {
