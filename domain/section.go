@@ -233,7 +233,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	}
 	fitText := parts.Describe()
 	sol.Steps = append(sol.Steps, fmt.Sprintf("harmonic part: the real part of a rational function (%s) fitted by least squares to the side conditions (Gopal & Trefethen's lightning method)", fitText))
-	sol.Notes = append(sol.Notes, fmt.Sprintf("the harmonic part is numeric: the largest residual of the side conditions, on a sampling finer than the fit's, is %.1e at (x, y) = (%.6g, %.6g) on %s; %s", best.residual, parts.X, parts.Y, parts.Side, bound))
+	sol.Notes = append(sol.Notes, fmt.Sprintf("the harmonic part is numeric: the largest residual of the side conditions, on a sampling finer than the fit's, is %.1e; %s", best.residual, bound))
 	if best.residual > target {
 		sol.Notes = append(sol.Notes, fmt.Sprintf("the fit did not reach the tolerance %.0e (relative to the boundary data's size %.3g) in %d refinements", p.tol, scale, maxSectionSteps))
 	}
@@ -709,7 +709,12 @@ func xyExtremes(shape Shape, inside func(x, y float64) bool, ev *Evaluator) (max
 	}
 	pMax, maxV = refine(pMax, 1)
 	pMin, minV = refine(pMin, -1)
+	// A maximum is flat: its place is known to about 1e-6 of the region's
+	// size, the value to rounding. Snap the place to that grid, so that
+	// rounding (another CPU's) does not move the printed place.
+	grid := 1e-6 * math.Max(b.X1-b.X0, b.Y1-b.Y0)
 	polar := func(p [2]float64) [2]float64 {
+		p = [2]float64{math.Round(p[0]/grid) * grid, math.Round(p[1]/grid) * grid}
 		th := math.Atan2(p[1], p[0])
 		if th < 0 {
 			th += 2 * math.Pi

@@ -229,7 +229,7 @@ func TestRoundTrip(t *testing.T) {
 
 func FuzzParse(f *testing.F) {
 	for _, s := range []string{"lap(u) = 6r*sin(theta)", "x^2*y", "-k*lap(u) = q", "dn(u) + h*u = g", "rim: u = 4sin(3theta)", "(a+b)^3/(1+r^2)", "theta < pi ? 1 : 0", "2e5*exp(-r^2)", "∇²u = 1",
-		"inner: u = const, flux = 2*pi*a^2", "lap(T) = -q/k", "ΔT = x", "u(0, pi/2) = 1"} {
+		"inner: u = const, flux = 2*pi*a^2", "lap(T) = -q/k", "ΔT = x", "u(0, pi/2) = 1", "0,0 1,0 1/2,sqrt(3)/2", "0,0 a,0\ta,b/2"} {
 		f.Add(s)
 	}
 	f.Fuzz(func(t *testing.T, in string) {
@@ -265,6 +265,13 @@ func FuzzParse(f *testing.F) {
 		positioned("Lengths", err)
 		_, err = ExpressionIn("T", "--claim", in, nil)
 		positioned("Expression", err)
+		_, _, offsets, err := Vertices("--polygon", in, nil)
+		positioned("Vertices", err)
+		for _, o := range offsets {
+			if o < 0 || o >= len(in) {
+				t.Fatalf("Vertices(%q): vertex offset %d outside the input", in, o)
+			}
+		}
 	})
 }
 
@@ -316,6 +323,30 @@ func TestCaretColumns(t *testing.T) {
 		lines := strings.Split(err.Error(), "\n")
 		if len(lines) != 3 || lines[1] != "    "+c.quoted || lines[2] != "    "+c.caret {
 			t.Errorf("%q:\n%s\nwant the quote %q and the caret %q", c.in, err, c.quoted, c.caret)
+		}
+	}
+}
+
+// Vertices: pairs separated by spaces, each a constant; faults at their column.
+func TestVertices(t *testing.T) {
+	xs, ys, offs, err := Vertices("--polygon", "0,0  1,0 1/2,sqrt(3)/2", nil)
+	if err != nil || len(xs) != 3 || ys[2].Text() != "1/2*sqrt(3)" || offs[1] != 5 || offs[2] != 9 {
+		t.Fatalf("got %v %v %v (%v)", xs, ys, offs, err)
+	}
+	for _, c := range []struct {
+		in     string
+		offset int
+	}{
+		{"0,0 1,0", 7},       // two vertices
+		{"0,0 1;0 0,1", 4},   // no comma
+		{"0,0 1,0,2 0,1", 4}, // three coordinates
+		{"0,0 1,x 0,1", 6},   // a variable, not a constant
+		{"0,0 1,(2 0,1", 8},  // a parse error inside a coordinate
+	} {
+		_, _, _, err := Vertices("--polygon", c.in, nil)
+		var pe *Error
+		if !errors.As(err, &pe) || pe.Offset != c.offset {
+			t.Errorf("Vertices(%q): %v, want a parse error at %d", c.in, err, c.offset)
 		}
 	}
 }

@@ -63,12 +63,13 @@ func (v *view) sectionStages(sol *domain.Solution) {
 	}
 	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(trTeX, `;\quad `), `u_p\big|_{\partial\Omega}`)
 	v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(coTeX, `;\quad `), `g - u_p\big|_{\partial\Omega}`)
-	fit := sp.Describe()
 	form := "Re[sum_j c_j/(z - p_j) + sum_k d_k*q_k(z)], z = x + i*y"
 	if sp.Corners == 0 {
 		form = "Re[sum_k d_k*q_k(z)], z = x + i*y"
 	}
-	h := fmt.Sprintf("≈ h(x, y) = %s: %s, fitted to the side conditions (largest residual %.1e)", form, fit, sp.Residual)
+	// The poles and the degree the adaptive fit chose are in --steps: they
+	// follow residuals at rounding level, which differ between CPUs.
+	h := fmt.Sprintf("≈ h(x, y) = %s, fitted to the side conditions (largest residual %.1e)", form, sp.Residual)
 	v.Harmonic = stage{Label: "harmonic", Text: h, LaTeX: `h(x, y) = \operatorname{Re}\Big[\sum_j \frac{c_j}{z - p_j} + \sum_k d_k q_k(z)\Big]`, tex: "u_h"}
 	v.Solution = stage{Label: "solution", Text: "u ≈ " + up + " + h(x, y)", LaTeX: upTeX + ` + h(x, y)`, tex: "u"}
 }
