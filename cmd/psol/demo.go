@@ -89,7 +89,7 @@ var scenarios = []scenario{
 		meaning: "A thin disk of unit radius carries charge density growing to one side, lap(u) = -(1 + x),\n" +
 			"with its rim grounded (u = 0). u is the potential in units of rho0 a^2/eps0.",
 		args: []string{"solve", "lap(u) = -(1 + x)", "--disk", "1", "--bc", "u = 0", "--steps"},
-	},	{
+	}, {
 		name:  "hexduct",
 		title: "Hexagonal channel of a plate heat exchanger",
 		meaning: "Laminar flow in a channel whose section is a regular hexagon of side 4 mm: with u the velocity\n" +
@@ -107,7 +107,6 @@ var scenarios = []scenario{
 			"G*theta follow; at the re-entrant corner the stress is unbounded in this model (a fillet helps).",
 		args: []string{"solve", "lap(u) = -2", "--polygon", "0,0 0.04,0 0.04,0.01 0.01,0.01 0.01,0.04 0,0.04", "--bc", "u = 0", "--quantity", "torsion"},
 	},
-
 }
 
 func newDemoCmd() *cobra.Command {
