@@ -47,6 +47,9 @@ type view struct {
 	Warnings   []string    `json:"warnings"`
 	showSteps  bool
 	checkScope string // how far an exact check reaches, for series
+	// where defines, for LaTeX, the symbols the formulas use but do not
+	// spell out (u_q, a fitted h's poles and basis), one clause each.
+	where []string
 	// Independent is the check of every side's condition from the evaluated
 	// solution, by code the solve does not use; nil without parameter values.
 	Independent       *checkOut `json:"independent_check,omitempty"`
@@ -114,6 +117,9 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 		}
 		st := exactStage("closed form", "u = "+text, tex, "u")
 		v.ClosedForm = &st
+	}
+	if sol.Quadrature != nil {
+		v.where = append(v.where, `$u_q$ is the particular solution of the source part $`+sol.Rest.LaTeX()+`$, by quadrature (numeric)`)
 	}
 	if sol.Numeric {
 		v.approximate(sol)
@@ -451,6 +457,9 @@ func renderLaTeX(w io.Writer, v *view) error {
 		fmt.Fprintf(w, "  %s &= %s%s\n", s.tex, s.LaTeX, end)
 	}
 	fmt.Fprintln(w, `\end{align*}`)
+	if len(v.where) > 0 {
+		fmt.Fprintf(w, "\\noindent where %s.\n", strings.Join(v.where, "; "))
+	}
 	fmt.Fprintf(w, "%% check: %s\n", checkSummary(v.Checks))
 	return nil
 }

@@ -70,6 +70,8 @@ func (v *view) sectionStages(sol *domain.Solution) {
 	// The poles and the degree the adaptive fit chose are in --steps: they
 	// follow residuals at rounding level, which differ between CPUs.
 	h := fmt.Sprintf("≈ h(x, y) = %s, fitted to the side conditions (largest residual %.1e)", form, sp.Residual)
+	v.where = append(v.where, fmt.Sprintf(`$z = x + iy$, the $p_j$ are poles outside the region at its corners, the $q_k$ polynomials of Arnoldi's orthogonal basis, and $c_j$, $d_k$ coefficients fitted numerically to the side conditions (largest residual $%s$)`,
+		latexNumber(sp.Residual)))
 	v.Harmonic = stage{Label: "harmonic", Text: h, LaTeX: `h(x, y) = \operatorname{Re}\Big[\sum_j \frac{c_j}{z - p_j} + \sum_k d_k q_k(z)\Big]`, tex: "u_h"}
 	v.Solution = stage{Label: "solution", Text: "u ≈ " + up + " + h(x, y)", LaTeX: upTeX + ` + h(x, y)`, tex: "u"}
 }
@@ -104,3 +106,6 @@ func (v *view) xyClosedStages(sol *domain.Solution) {
 	v.Harmonic = exactStage("harmonic", text(sol.Harmonic), tex(sol.Harmonic), "u_h")
 	v.Solution = exactStage("solution", "u = "+text(sol.U), tex(sol.U), "u")
 }
+
+// latexNumber is a residual in LaTeX: 2.3 \cdot 10^{-13}.
+func latexNumber(x float64) string { return series.LaTeXNumber(fmt.Sprintf("%.1e", x)) }
