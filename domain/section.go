@@ -68,9 +68,6 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	for _, c := range p.conds {
 		allNeumann = allNeumann && c.Kind == Neumann
 	}
-	if allNeumann {
-		return nil, unsupported("a flux condition on every side of %s (the pure Neumann problem) is not supported yet on polygons and ellipses", d.Describe())
-	}
 	up, rules, err := ansatz.Particular(p.f)
 	if err != nil {
 		return nil, unsupported("%w", err)
@@ -104,6 +101,11 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		}
 	}
 	target := p.tol * math.Max(scale, 1e-300)
+	if allNeumann {
+		if err := neumannBalance(d, geo, conds, up, quad, p); err != nil {
+			return nil, err
+		}
+	}
 	// Gopal & Trefethen's adaptive loop: after each fit, the corners whose
 	// nearby residual misses the target get more poles (about √n more), and
 	// the polynomial's degree grows while the residual away from the
@@ -123,7 +125,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	stalled := 0
 	for step := 1; step <= maxSectionSteps; step++ {
 		fit, check := geo.samples(poles, degree, conds)
-		h, err := fitHarmonic(fit, geo.corners, geo.centre, geo.scale, poles, degree, 4+3*step, false)
+		h, err := fitHarmonic(fit, geo.corners, geo.centre, geo.scale, poles, degree, 4+3*step, allNeumann)
 		if err != nil {
 			return nil, unsolvable("%w", err)
 		}
@@ -170,6 +172,35 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	}
 	sol := &Solution{Domain: d, Source: p.f, Particular: up, U: up, Rules: rules, Section: parts, stages: []stage{parts}, Numeric: true,
 		Quadrature: quad, Rest: p.rest}
+	if allNeumann { // u up to an additive constant, and the value that makes its mean on the boundary 0
+		used := map[string]bool{}
+		p.f.Params(used)
+		for _, c := range p.conds {
+			c.G.Exact.Params(used)
+		}
+		sol.Free = freeName(used)
+		sol.U = up.Add(series.Const(series.SymCoef(series.Param(sol.Free))))
+		sol.Notes = append(sol.Notes, fmt.Sprintf("pure Neumann data fix u only up to an additive constant %s", sol.Free))
+		mean, length := 0.0, 0.0
+		for k, side := range geo.shape.Sides {
+			for j, x := range ansatz.GaussX {
+				for i := 0; i < 32; i++ {
+					t := (float64(i) + (x+1)/2) / 32
+					px, py, _, _ := side.At(t)
+					r, th := polarOf(px, py)
+					v, _ := best.value(complex(px, py))
+					v += conds[k].up.At(r, th)
+					if quad != nil {
+						q, _ := quad.At(r, th)
+						v += q
+					}
+					w := ansatz.GaussW[j] / 2 / 32 * side.Length
+					mean, length = mean+w*v, length+w
+				}
+			}
+		}
+		sol.FreeMean = decimal(-mean / length)
+	}
 	eq := Check{Name: "lap(u_p) - f", Exact: true}
 	if r := up.Laplacian().Sub(p.f); !r.IsZero() {
 		eq.Exact, eq.Residual = false, r
@@ -880,4 +911,48 @@ func rayCrosses(shape Shape, w, dir complex128) bool {
 		}
 	}
 	return false
+}
+
+// neumannBalance is the solvability of the pure Neumann problem: the net
+// outward flux of the data must equal the source's integral (divergence
+// theorem), to about 1e-9 of the larger.
+func neumannBalance(d section, geo sectionGeometry, conds []sideCondition, up series.Sum, quad *ansatz.Quadrature, p *posed) error {
+	flux := 0.0
+	edges := gradedEdges()
+	for k, side := range geo.shape.Sides {
+		for i := 0; i+1 < len(edges); i++ {
+			lo, hi := edges[i], edges[i+1]
+			for j, x := range ansatz.GaussX {
+				px, py, _, _ := side.At((lo+hi)/2 + (hi-lo)/2*x)
+				r, th := polarOf(px, py)
+				flux += ansatz.GaussW[j] * (hi - lo) / 2 * side.Length * conds[k].g.At(r, th)
+			}
+		}
+	}
+	source := 0.0
+	c, err := d.integral(p.f)
+	if err != nil {
+		return unsupported("the source's integral over %s: %w", d.Describe(), err)
+	}
+	if source, err = c.Float(p.env); err != nil {
+		return unsupported("the source's integral needs every parameter's value: %w", err)
+	}
+	if quad != nil {
+		nodes, err := d.areaNodes(p.env)
+		if err != nil {
+			return err
+		}
+		f, err := series.Field{Rest: p.rest}.Compile(p.env)
+		if err != nil {
+			return err
+		}
+		for _, n := range nodes {
+			r, th := polarOf(n[0], n[1])
+			source += n[2] * f.At(r, th)
+		}
+	}
+	if math.Abs(flux-source) > 1e-9*math.Max(math.Max(math.Abs(flux), math.Abs(source)), geo.scale*geo.scale) {
+		return unsolvable("with a flux condition on every side the net outward flux of the data, %.12g, must equal the source's integral over the region, %.12g (divergence theorem); they differ by %.3g, so the problem has no solution", flux, source, flux-source)
+	}
+	return nil
 }

@@ -1,9 +1,11 @@
 package domain_test
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"math/big"
+	"strings"
 	"testing"
 
 	"psol/domain"
@@ -317,5 +319,40 @@ func TestEllipseExactPolynomialSolutions(t *testing.T) {
 	want := coef(t, "pi*a^3*b^3/(a^2 + b^2)")
 	if figs[0].Exact == nil || !figs[0].Exact.Sub(want).IsZero() {
 		t.Errorf("J = %v, want pi*a^3*b^3/(a^2 + b^2) (Timoshenko & Goodier)", figs[0].Exact)
+	}
+}
+
+// The pure Neumann problem on a section: Δu = 2 on the unit square with
+// fluxes 1 on two sides and 0 on the others has u = (x² + y²)/2 + C (its
+// normal derivative is x or y); psol's constant makes the boundary mean 0,
+// so C = −5/12. Data whose net flux misses the source's integral are refused
+// (divergence theorem).
+func TestSectionPureNeumann(t *testing.T) {
+	sq := polygon([2]float64{0, 0}, [2]float64{1, 0}, [2]float64{1, 1}, [2]float64{0, 1})
+	sol := solveWith(t, "lap(u) = 2", sq, domain.Options{Tol: 1e-10}, "s1: dn(u) = 0", "s2: dn(u) = 1", "s3: dn(u) = 1", "s4: dn(u) = 0")
+	if sol.Free == "" {
+		t.Fatal("no free constant")
+	}
+	C, _ := sol.FreeMean.Float(nil)
+	if math.Abs(C+5.0/12) > 1e-10 {
+		t.Errorf("C = %.14f, want -5/12", C)
+	}
+	ev, err := sol.Compile(series.Env{sol.Free: sol.FreeMean}, 1e-10, 1<<20)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range [][2]float64{{0.5, 0.5}, {0.1, 0.9}, {0.99, 0.01}} {
+		got, _, _ := ev.AtXY(p[0], p[1])
+		if want := (p[0]*p[0]+p[1]*p[1])/2 - 5.0/12; math.Abs(got-want) > 1e-10 {
+			t.Errorf("u%v = %.14f, exact %.14f", p, got, want)
+		}
+	}
+	f, conds, err := pose("lap(u) = 2", sq, []string{"s1: dn(u) = 0", "s2: dn(u) = 1", "s3: dn(u) = 0", "s4: dn(u) = 0"}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var un *domain.Unsolvable
+	if _, err := domain.SolveWith(sq, f, conds, domain.Options{Tol: 1e-10}); !errors.As(err, &un) || !strings.Contains(err.Error(), "divergence theorem") {
+		t.Errorf("unbalanced fluxes: %v, want a refusal by the divergence theorem", err)
 	}
 }

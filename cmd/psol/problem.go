@@ -250,8 +250,12 @@ func (pr *problem) solve() (*domain.Solution, error) {
 		if sol.Numeric { // a decimal from numeric parts
 			mean = series.Const(sol.FreeMean).TextApprox()
 		}
+		on := pr.domain.Sides()[0]
+		if sol.Section != nil { // a section's constant is set by the whole boundary
+			on = "the boundary"
+		}
 		sol.Notes = append(sol.Notes, fmt.Sprintf("%s = %s makes the mean of u on %s zero; numeric values use it (--fix \"u(r, theta) = v\" pins %s instead)",
-			sol.Free, mean, pr.domain.Sides()[0], sol.Free))
+			sol.Free, mean, on, sol.Free))
 		pr.env[sol.Free] = sol.FreeMean
 		return sol, nil
 	}
