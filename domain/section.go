@@ -956,3 +956,28 @@ func neumannBalance(d section, geo sectionGeometry, conds []sideCondition, up se
 	}
 	return nil
 }
+
+// FittedPart is a section's fitted harmonic part in numbers, for generated
+// code: h(x, y) = Re[Σ_j C_j/(z − P_j) + Σ_k D_k q_k(Z) + Σ_m E_m ζ_m^β_m],
+// z = x + iy, Z = (z − Centre)/Scale, q_0 = 1 and
+// q_{k+1} = (Z q_k − Σ_{j≤k} H_k[j] q_j)/H_k[k+1] (Arnoldi's recurrence),
+// ζ_m = (z − W_m)·Rot_m on the principal branch.
+type FittedPart struct {
+	Poles, C  []complex128
+	Centre    complex128
+	Scale     float64
+	H         [][]complex128
+	D         []complex128
+	W, Rot, E []complex128
+	Beta      []float64
+}
+
+// Fitted is the fitted part in numbers.
+func (sp *SectionParts) Fitted() FittedPart {
+	h := sp.fit
+	out := FittedPart{Poles: h.poles, C: h.cPole, Centre: h.centre, Scale: h.scale, H: h.hess, D: h.cPoly, E: h.cPower}
+	for _, c := range h.powers {
+		out.W, out.Rot, out.Beta = append(out.W, c.w), append(out.Rot, c.rot), append(out.Beta, c.beta)
+	}
+	return out
+}

@@ -22,8 +22,8 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 	if sol.Rect != nil {
 		return writeRectCode(w, l, pr, sol, terms)
 	}
-	if sol.Section != nil { // the fitted harmonic part: its poles and powers are not written out yet
-		return &domain.Unsupported{Reason: "generated code for a polygon's or an ellipse's harmonic part (a fitted rational function) is not written yet; --grid N --csv FILE gives its values"}
+	if sol.Section != nil { // the fitted harmonic part, from its tables
+		return writeSectionCode(w, l, pr, sol)
 	}
 	if sol.Quadrature != nil { // the numeric particular part has no formula to write
 		return &domain.Unsupported{Reason: "generated code for a source part by quadrature is not written yet"}

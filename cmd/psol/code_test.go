@@ -31,6 +31,8 @@ var codeCases = []struct {
 	{[]string{"solve", "-k*lap(u) = q*(1 + x)", "--disk", "a", "--bc", "u = Ts + cos(2theta)"}, "k=2,q=3,Ts=1,a=1.5", false},
 	{[]string{"solve", "lap(u) = -2", "--sector", "1,pi/2", "--bc", "arc: u = 0", "--bc", "start: u = 0", "--bc", "end: u = 0", "--terms", "400"}, "", false},
 	{[]string{"solve", "lap(u) = 0", "--disk", "1", "--bc", "u = 0 < theta < pi ? 1 : 0", "--terms", "400"}, "", false},
+	// A fitted section: poles, the Arnoldi recurrence and the re-entrant corner's powers.
+	{[]string{"solve", "lap(u) = -2 + x", "--polygon", "0,0 1,0 1,1/2 1/2,1/2 1/2,1 0,1", "--bc", "u = 0", "--bc", "s2: dn(u) + 2u = y"}, "", true},
 }
 
 var codePoints = [][2]float64{{0.3, 0.4}, {0.6, 0.1}, {0.2, 0.45}} // inside every case (as r, theta or as x, y)
