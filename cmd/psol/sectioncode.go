@@ -72,7 +72,9 @@ func U(x, y float64) float64 {
 			}
 			return fmt.Sprintf("static const double psol%s[] = {%s};\n", name, floats(v))
 		},
-		scalar: func(name string, v float64) string { return fmt.Sprintf("static const double psol%s = %s;\n", name, lit(v)) },
+		scalar: func(name string, v float64) string {
+			return fmt.Sprintf("static const double psol%s = %s;\n", name, lit(v))
+		},
 		body: `
 /* u(x, y); link with -lm. */
 double u(double x, double y) {
