@@ -106,6 +106,13 @@ type rationalHarmonic struct {
 	cPole    []complex128 // h's pole part: Re Σ cPole_j/(z − p_j)
 	powers   []cornerPower
 	cPower   []complex128
+	logs     []holeBasis // each hole's log|z − c|, with real coefficients
+	cLog     []float64
+	laurent  []laurentTerm
+	cLaurent []complex128
+	mobius   *mobiusMap
+	mobiusK  []int // the powers of w, ±1..±degree
+	cMobius  []complex128
 	centre   complex128
 	scale    float64
 	hess     [][]complex128 // Arnoldi's Hessenberg matrix, column k: the coefficients of q_{k+1}
@@ -192,6 +199,12 @@ func arnoldi(Z []complex128, degree int) [][]complex128 {
 // (the residual is measured on the sides from there on).
 const nearest = 1e-9
 
+// laurentTerm is (ρ/(z − c))^j for a hole.
+type laurentTerm struct {
+	hole holeBasis
+	j    int
+}
+
 // lightningPoles are n poles at a corner: w + dir·d_j (poleDistances).
 func lightningPoles(c corner, s float64, n int) []complex128 {
 	out := make([]complex128, n)
@@ -219,8 +232,23 @@ func poleDistances(n int, s float64) []float64 {
 
 // fitHarmonic solves the least-squares problem on the samples for n[k]
 // poles at corner k and the given degree.
-func fitHarmonic(pts []boundaryPoint, corners []corner, centre complex128, scale float64, n []int, degree, powers int, freeConstant bool) (*rationalHarmonic, error) {
-	h := &rationalHarmonic{centre: centre, scale: scale, degree: degree}
+func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powers int, freeConstant bool) (*rationalHarmonic, error) {
+	corners, centre, scale := geo.corners, geo.centre, geo.scale
+	h := &rationalHarmonic{centre: centre, scale: scale, degree: degree, logs: geo.holes, mobius: geo.mobius}
+	if geo.mobius != nil {
+		// The Laurent series in w with log|w| is complete on the two
+		// circles' region: the polynomial in z would only repeat it (and
+		// spoil the conditioning), so it keeps its constant alone.
+		for j := 1; j <= degree; j++ {
+			h.mobiusK = append(h.mobiusK, j, -j)
+		}
+		degree, h.degree = 0, 0
+	}
+	for _, hb := range geo.holes {
+		for j := 1; j <= degree && geo.mobius == nil; j++ { // the Möbius series has them
+			h.laurent = append(h.laurent, laurentTerm{hb, j})
+		}
+	}
 	for k, c := range corners {
 		h.poles = append(h.poles, lightningPoles(c, scale, n[k])...)
 		h.powers = append(h.powers, cornerPowers(c, powers)...)
@@ -231,7 +259,7 @@ func fitHarmonic(pts []boundaryPoint, corners []corner, centre complex128, scale
 	}
 	h.hess = arnoldi(Z, degree)
 	// Columns: Re and Im of each pole's and each polynomial's operator value.
-	nc := 2*len(h.poles) + 2*(degree+1) + 2*len(h.powers)
+	nc := 2*len(h.poles) + 2*(degree+1) + 2*len(h.powers) + 2*len(h.logs) + 2*len(h.laurent) + 2*len(h.mobiusK)
 	A := mat.NewDense(len(pts), nc, nil)
 	b := mat.NewVecDense(len(pts), nil)
 	q := make([]complex128, degree+1)
@@ -254,6 +282,21 @@ func fitHarmonic(pts []boundaryPoint, corners []corner, centre complex128, scale
 		}
 		for _, c := range h.powers {
 			put(c.at(p.z, scale))
+		}
+		for _, hb := range h.logs {
+			// log|z − c| alone: the pair's second column, arg(z − c), is
+			// multivalued around the hole and stays 0 (dropped as empty).
+			d := p.z - hb.c
+			A.Set(i, col, p.w*(p.a*math.Log(abs(d))+p.b*real(p.nu/d)))
+			col += 2
+		}
+		for _, t := range h.laurent {
+			d := p.z - t.hole.c
+			w := cmplx.Pow(complex(t.hole.rho, 0)/d, complex(float64(t.j), 0))
+			put(w, complex(-float64(t.j), 0)*w/d)
+		}
+		for _, j := range h.mobiusK {
+			put(h.mobius.term(p.z, j))
 		}
 		b.SetVec(i, p.w*p.data)
 	}
@@ -325,6 +368,21 @@ func fitHarmonic(pts []boundaryPoint, corners []corner, centre complex128, scale
 	first := constCol + 2*(degree+1)
 	for k := range h.cPower {
 		h.cPower[k] = complex(coef(first+2*k), -coef(first+2*k+1))
+	}
+	first += 2 * len(h.powers)
+	h.cLog = make([]float64, len(h.logs))
+	for k := range h.cLog {
+		h.cLog[k] = coef(first + 2*k) // Re log|z − c|; the Im column, multivalued, is 0 on purpose
+	}
+	first += 2 * len(h.logs)
+	h.cLaurent = make([]complex128, len(h.laurent))
+	for k := range h.cLaurent {
+		h.cLaurent[k] = complex(coef(first+2*k), -coef(first+2*k+1))
+	}
+	first += 2 * len(h.laurent)
+	h.cMobius = make([]complex128, len(h.mobiusK))
+	for k := range h.cMobius {
+		h.cMobius[k] = complex(coef(first+2*k), -coef(first+2*k+1))
 	}
 	return h, nil
 }

@@ -31,12 +31,25 @@ type sectionGeometry struct {
 	starts, ends []int
 	centre       complex128
 	scale        float64
+	holes        []holeBasis // a hole's centre and radius, for its logarithm and Laurent terms
+	// warp, where set, maps a side's uniform samples to its parameter.
+	warp []func(t float64) float64
+	// mobius, for two circles, adds the Laurent series in the variable that
+	// makes them concentric.
+	mobius *mobiusMap
+}
+
+// holeBasis is a hole's share of the basis: log|z − c| and (ρ/(z − c))^j.
+type holeBasis struct {
+	c   complex128
+	rho float64
 }
 
 // SectionParts is a section's numeric harmonic part, for printing: its
 // poles and polynomial, and how well it meets the side conditions.
 type SectionParts struct {
 	Corners, Degree int
+	Holes           int // holes, each with its logarithm and Laurent terms in the basis
 	Poles           []int // at each corner, in the order of the vertices
 	// Residual is the largest |condition residual| on a sampling of the
 	// sides finer than the fit's, at (X, Y) on side Side.
@@ -125,7 +138,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	stalled := 0
 	for step := 1; step <= maxSectionSteps; step++ {
 		fit, check := geo.samples(poles, degree, conds)
-		h, err := fitHarmonic(fit, geo.corners, geo.centre, geo.scale, poles, degree, 4+3*step, allNeumann)
+		h, err := fitHarmonic(fit, geo, poles, degree, 4+3*step, allNeumann)
 		if err != nil {
 			return nil, unsolvable("%w", err)
 		}
@@ -164,7 +177,8 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		return nil, unsolvable("the harmonic part's fit on %s reached a residual of only %.1e (relative %.1e) in %d refinements, largest at (x, y) = (%.6g, %.6g) on %s: a corner where a value condition meets a flux or convection condition at an angle other than pi/2 converges slowly with psol's rational fit, and psol gives no answer it cannot stand behind", d.Describe(), best.residual, best.residual/math.Max(scale, 1e-300), maxSectionSteps, real(best.worstAt), imag(best.worstAt), geo.shape.Sides[best.worstOn].Name)
 	}
 	parts := &SectionParts{Corners: len(geo.corners), Degree: best.degree, Residual: best.residual,
-		X: real(best.worstAt), Y: imag(best.worstAt), Side: geo.shape.Sides[best.worstOn].Name, Bound: true, fit: best, Poles: bestPoles}
+		X: real(best.worstAt), Y: imag(best.worstAt), Side: geo.shape.Sides[best.worstOn].Name, Bound: true, fit: best, Poles: bestPoles,
+		Holes: len(geo.holes)}
 	for _, c := range conds {
 		if c.quad != nil {
 			parts.quad = append(parts.quad, c.quad)
@@ -472,7 +486,17 @@ func (sc sideCondition) worst(h *rationalHarmonic, path SidePath, geo *sectionGe
 // distance for the fit, four between them for the check).
 func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition) (fit, check []boundaryPoint) {
 	sides := g.shape.Sides
-	uniform := 3*(2*degree+2)/max(len(sides), 1)/2 + 12
+	// Three rows a column: the polynomial's and each hole's Laurent terms.
+	blocks := 1 + len(g.holes) // the polynomial and each hole's Laurent terms
+	if g.mobius != nil {
+		blocks = 3 // the polynomial, and the Möbius series both ways
+	}
+	uniform := 3*(2*degree+2)*blocks/max(len(sides), 1)/2 + 12
+	if len(g.holes) > 0 {
+		// Around a hole its Laurent terms and the polynomial both act, up
+		// to the degree each way: a hole's circle needs its own share.
+		uniform = max(uniform, 6*degree+12)
+	}
 	dists := func(k int) []float64 { return poleDistances(poles[k], g.scale) }
 	add := func(to *[]boundaryPoint, k int, t float64) {
 		if t*sides[k].Length < 0.3*nearest*g.scale || (1-t)*sides[k].Length < 0.3*nearest*g.scale {
@@ -482,11 +506,15 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 		*to = append(*to, conds[k].point(t, x, y, nx, ny, k, &g))
 	}
 	for k, side := range sides {
+		warp := func(t float64) float64 { return t }
+		if k < len(g.warp) && g.warp[k] != nil {
+			warp = g.warp[k]
+		}
 		for i := 0; i < uniform; i++ {
-			add(&fit, k, (float64(i)+0.5)/float64(uniform))
+			add(&fit, k, warp((float64(i)+0.5)/float64(uniform)))
 		}
 		for i := 0; i < 3*uniform; i++ {
-			add(&check, k, (float64(i)+0.25)/float64(3*uniform))
+			add(&check, k, warp((float64(i)+0.25)/float64(3*uniform)))
 		}
 		for _, end := range []struct {
 			corner int
@@ -517,6 +545,7 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 // ends (the poles nearest a corner are close to it).
 func sectionHarmonicIntegral(h *rationalHarmonic, shape Shape) float64 {
 	var total complex128
+	logs := 0.0
 	for _, side := range shape.Sides {
 		edges := gradedEdges()
 		for i := 0; i+1 < len(edges); i++ {
@@ -528,11 +557,20 @@ func sectionHarmonicIntegral(h *rationalHarmonic, shape Shape) float64 {
 				// dz = (tangent)·length·dt, the tangent being the normal turned left.
 				dz := complex(-ny, nx) * complex(side.Length*(hi-lo)/2*ansatz.GaussW[j], 0)
 				v, _ := h.complexValue(z)
+				// The holes' logarithms are not single-valued analytic
+				// functions: out of F here, and by Δw = log|z − c| for
+				// w = |z − c|²(log|z − c| − 1)/4 below.
+				for k, hb := range h.logs {
+					v -= complex(h.cLog[k], 0) * cmplx.Log(z-hb.c)
+					d := z - hb.c
+					grad := d * complex((2*math.Log(abs(d))-1)/4, 0) // ∇w as x + iy
+					logs += h.cLog[k] * (real(grad)*nx + imag(grad)*ny) * side.Length * (hi - lo) / 2 * ansatz.GaussW[j]
+				}
 				total += v * cmplx.Conj(z) * dz
 			}
 		}
 	}
-	return real(total / complex(0, 2))
+	return real(total/complex(0, 2)) + logs
 }
 
 // complexValue is F(z), whose real part is h.
@@ -554,6 +592,22 @@ func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
 	for k := range q {
 		f += h.cPoly[k] * q[k]
 		df += h.cPoly[k] * dq[k]
+	}
+	for k, hb := range h.logs {
+		d := z - hb.c
+		f += complex(h.cLog[k], 0) * cmplx.Log(d)
+		df += complex(h.cLog[k], 0) / d
+	}
+	for k, t := range h.laurent {
+		d := z - t.hole.c
+		w := cmplx.Pow(complex(t.hole.rho, 0)/d, complex(float64(t.j), 0))
+		f += h.cLaurent[k] * w
+		df += h.cLaurent[k] * complex(-float64(t.j), 0) * w / d
+	}
+	for k, j := range h.mobiusK {
+		v, dv := h.mobius.term(z, j)
+		f += h.cMobius[k] * v
+		df += h.cMobius[k] * dv
 	}
 	// A corner's powers share ζ and log ζ: ζ^β = exp(β log ζ).
 	var w, zeta, logZeta complex128

@@ -356,3 +356,75 @@ func TestSectionPureNeumann(t *testing.T) {
 		t.Errorf("unbalanced fluxes: %v, want a refusal by the divergence theorem", err)
 	}
 }
+
+// Two circles at fixed values, the outer of radius b = 2 about the origin and
+// a hole of radius a = 0.5 about (d, 0), d = 0.6: the charge per unit length
+// on the hole for a unit potential difference is C = 2π/arccosh((a² + b² −
+// d²)/(2ab)) (Smythe, Static and Dynamic Electricity; the shape factor of an
+// eccentric cylinder in Incropera's table is the same formula).
+func TestEccentricAnnulusCapacitance(t *testing.T) {
+	a, b, dd := 0.5, 2.0, 0.6
+	d := domain.Holed{Outer: domain.Disk{R: series.IntCoef(2)}, Holes: []domain.CircleHole{{X: decimalCoef(dd), Y: series.Coef{}, R: decimalCoef(a)}}}
+	sol := solveWith(t, "lap(u) = 0", d, domain.Options{Tol: 1e-12}, "rim: u = 0", "hole1: u = 1")
+	rep, err := sol.Report(nil, 1e-12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := 2 * math.Pi / math.Acosh((a*a+b*b-dd*dd)/(2*a*b))
+	for _, f := range rep.Sides {
+		// The region's outward normal on the hole points into it: the flux
+		// there is +C, through the rim −C.
+		if f.Side == "hole1" && math.Abs(f.Value-want) > 1e-10*want {
+			t.Errorf("flux through the hole's circle %.14g, want the capacitance %.14g (Smythe)", f.Value, want)
+		}
+		if f.Side == "rim" && math.Abs(f.Value+want) > 1e-10*want {
+			t.Errorf("flux through the rim %.14g, want %.14g", f.Value, -want)
+		}
+	}
+}
+
+// Laminar flow in an eccentric annulus, Δu = −1 (u in units of (−dp/dz)/μ)
+// with u = 0 on both walls, outer radius a = 1, inner b = 0.4, the inner
+// circle's centre at c from the outer's: the flow rate by the bipolar
+// series (Piercy, Hooper & Whitehead 1933; White, Viscous Fluid Flow, ch. 3,
+// from memory): Q = (π/8)[a⁴ − b⁴ − 4c²M²/(β − α) − 8c²M² Σ n e^(−n(β+α))/sinh(n(β − α))],
+// F = (a² − b² + c²)/(2c), M = √(F² − a²), α = ½ ln((F + M)/(F − M)),
+// β = ½ ln((F − c + M)/(F − c − M)). At c = 0 the concentric annulus, against
+// psol's exact annulus (Bird, Stewart & Lightfoot §2.4).
+func TestEccentricAnnulusFlow(t *testing.T) {
+	a, b := 1.0, 0.4
+	bipolar := func(c float64) float64 {
+		F := (a*a - b*b + c*c) / (2 * c)
+		M := math.Sqrt(F*F - a*a)
+		alpha := 0.5 * math.Log((F+M)/(F-M))
+		beta := 0.5 * math.Log((F-c+M)/(F-c-M))
+		sum := 0.0
+		for n := 1; n < 400; n++ {
+			sum += float64(n) * math.Exp(-float64(n)*(beta+alpha)) / math.Sinh(float64(n)*(beta-alpha))
+		}
+		return math.Pi / 8 * (a*a*a*a - b*b*b*b - 4*c*c*M*M/(beta-alpha) - 8*c*c*M*M*sum)
+	}
+	flow := func(c float64) float64 {
+		d := domain.Holed{Outer: domain.Disk{R: series.IntCoef(1)}, Holes: []domain.CircleHole{{X: decimalCoef(c), R: decimalCoef(b)}}}
+		sol := solveWith(t, "lap(u) = -1", d, domain.Options{Tol: 1e-10}, everySide(d, "u = 0")...)
+		rep, err := sol.Report(nil, 1e-10)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return rep.Integral
+	}
+	for _, e := range []float64{0.25, 0.5, 0.9} {
+		c := e * (a - b) // the eccentricity as a fraction of the gap
+		if got, want := flow(c), bipolar(c); math.Abs(got-want) > 1e-8*want {
+			t.Errorf("eccentricity %g: Q = %.12g, bipolar series %.12g", e, got, want)
+		}
+	}
+	ann := solve(t, "lap(u) = -1", domain.Annulus{R1: decimalCoef(b), R2: series.IntCoef(1)}, "inner: u = 0", "outer: u = 0")
+	rep, err := ann.Report(nil, 1e-12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got := flow(0.0); math.Abs(got-rep.Integral) > 1e-9*rep.Integral {
+		t.Errorf("concentric: Q = %.12g, psol's exact annulus %.12g", got, rep.Integral)
+	}
+}

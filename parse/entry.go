@@ -485,3 +485,45 @@ func Vertices(label, text string, env series.Env) (xs, ys []series.Coef, offsets
 	}
 	return xs, ys, offsets, nil
 }
+
+// Hole reads a hole, "circle CX,CY,R": the word, then the centre's
+// coordinates (any constants) and the radius (positive), commas between.
+func Hole(label, text string, env series.Env) (cx, cy, r series.Coef, err error) {
+	lw := &lowerer{label: label, input: text, env: env}
+	trimmed := strings.TrimLeft(text, " \t")
+	lead := len(text) - len(trimmed)
+	word, rest, _ := strings.Cut(trimmed, " ")
+	switch word {
+	case "circle":
+	case "ellipse", "polygon":
+		return cx, cy, r, lw.fail(lexer.Position{Offset: lead}, "holes are circles for now: \"circle CX,CY,R\"")
+	default:
+		return cx, cy, r, lw.fail(lexer.Position{Offset: lead}, "a hole is \"circle CX,CY,R\", not %q", word)
+	}
+	off := lead + len(word) + 1
+	parts := strings.Split(rest, ",")
+	if len(parts) != 3 {
+		return cx, cy, r, lw.fail(lexer.Position{Offset: len(text)}, "a circle hole is CX,CY,R: expected 3 comma-separated values, found %d", len(parts))
+	}
+	var cs [3]series.Coef
+	for i, p := range parts {
+		f, err := Expression(label, p, env)
+		if err != nil {
+			var pe *Error
+			if errors.As(err, &pe) {
+				pe.Input, pe.Offset = text, pe.Offset+off
+			}
+			return cx, cy, r, err
+		}
+		c, ok := constant(value{f: f})
+		if !ok {
+			return cx, cy, r, lw.fail(lexer.Position{Offset: off}, "a hole's centre and radius must be constants")
+		}
+		if i == 2 && !series.Positive(c) {
+			return cx, cy, r, lw.fail(lexer.Position{Offset: off + len(p) - len(strings.TrimLeft(p, " "))}, "a hole's radius must be positive, not %s", c.Text())
+		}
+		cs[i] = c
+		off += len(p) + 1
+	}
+	return cs[0], cs[1], cs[2], nil
+}

@@ -18,6 +18,7 @@ import (
 // problemFlags are the flags that pose a problem, shared by solve and check.
 type problemFlags struct {
 	regions map[string]*string // domain flag name → its value
+	holes   []string           // --hole, repeatable
 	bcs     []string
 	lets    []string
 	fix     string
@@ -95,6 +96,7 @@ func (p *problemFlags) bind(f *pflag.FlagSet) {
 	for _, k := range regionKinds {
 		p.regions[k.flag] = f.String(k.flag, "", k.usage)
 	}
+	f.StringArrayVar(&p.holes, "hole", nil, `a hole taken out of --disk, --rect, --ellipse or --polygon: "circle CX,CY,R" (repeatable); the K-th hole's circle is side holeK`)
 	f.StringArrayVar(&p.bcs, "bc", nil, `boundary condition "[SIDE:] u = g", "dn(u) = g", "dn(u) + h*u = g" or "u = const, flux = Q" (one unknown value with net outward flux Q; circles); one per side, repeatable; one without SIDE applies to every side not named`)
 	f.StringArrayVar(&p.lets, "let", nil, `parameter values "a=0.05,q=2e5" (repeatable)`)
 	f.StringVar(&p.fix, "fix", "", `pin the free constant of a pure Neumann problem: "u(R0, THETA0) = V" (polar point)`)
@@ -182,6 +184,11 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 	case 1:
 	default:
 		return nil, usagef("give one domain, not %s", strings.Join(chosen, " and "))
+	}
+	if len(p.holes) > 0 {
+		if pr.domain, err = withHoles(pr.domain, p.holes, env); err != nil {
+			return nil, err
+		}
 	}
 	if pr.source, err = parse.Equation(equation, env); err != nil {
 		return nil, err
@@ -284,7 +291,7 @@ func (p *problemFlags) regionTexts() []string {
 	for _, k := range regionKinds {
 		out = append(out, *p.regions[k.flag])
 	}
-	return out
+	return append(out, p.holes...)
 }
 
 var identifier = regexp.MustCompile(`[\p{L}_][\p{L}\p{N}_]*`)
@@ -306,4 +313,26 @@ func (pr *problem) unusedLets(more ...string) []string {
 	}
 	sort.Strings(out)
 	return out
+}
+
+// withHoles takes the --hole disks out of the region, refusing holes that
+// meet the boundary or each other, with a caret under the hole at fault.
+func withHoles(d domain.Domain, holes []string, env series.Env) (domain.Domain, error) {
+	switch d.(type) {
+	case domain.Disk, domain.Rect, domain.Ellipse, domain.Polygon:
+	default:
+		return nil, usagef("--hole goes with --disk, --rect, --ellipse or --polygon, not with %s (the annulus and the outside of a circle have their inner circle already)", d.Describe())
+	}
+	h := domain.Holed{Outer: d}
+	for _, text := range holes {
+		x, y, r, err := parse.Hole("--hole", text, env)
+		if err != nil {
+			return nil, err
+		}
+		h.Holes = append(h.Holes, domain.CircleHole{X: x, Y: y, R: r})
+	}
+	if k, reason := h.HoleFault(env); k >= 0 {
+		return nil, &parse.Error{Label: "--hole", Input: holes[k], Offset: 0, Msg: reason}
+	}
+	return h, nil
 }

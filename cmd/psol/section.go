@@ -67,6 +67,9 @@ func (v *view) sectionStages(sol *domain.Solution) {
 	if sp.Corners == 0 {
 		form = "Re[sum_k d_k*q_k(z)], z = x + i*y"
 	}
+	if sp.Holes > 0 {
+		form += ", with each hole's a*log|z - c| and Laurent terms in 1/(z - c) (c inside the hole)"
+	}
 	// The poles and the degree the adaptive fit chose are in --steps: they
 	// follow residuals at rounding level, which differ between CPUs.
 	h := fmt.Sprintf("≈ h(x, y) = %s, fitted to the side conditions (largest residual %.1e)", form, sp.Residual)

@@ -1,0 +1,429 @@
+package domain
+
+import (
+	"fmt"
+	"math"
+	"math/big"
+	"math/cmplx"
+	"strings"
+
+	"psol/ansatz"
+	"psol/series"
+	"psol/series/cart"
+)
+
+// Holed is a section with circular holes: an outer region (a disk, a
+// rectangle, an ellipse or a polygon) less the disks of its holes. The K-th
+// hole's circle is the side "holeK". The harmonic part is fitted as on any
+// section, its basis grown by each hole's logarithm log|z − c| and Laurent
+// terms (ρ/(z − c))^j: on a region with holes a harmonic function is the real
+// part of an analytic one only up to those logarithms (common practice; e.g.
+// Ahlfors, Complex Analysis, on harmonic functions in multiply connected
+// regions).
+type Holed struct {
+	Outer Domain // Disk, Rect, Ellipse or Polygon
+	Holes []CircleHole
+}
+
+// CircleHole is the disk (x − X)² + (y − Y)² < R² taken out.
+type CircleHole struct{ X, Y, R series.Coef }
+
+func holeName(k int) string { return fmt.Sprintf("hole%d", k+1) }
+
+func (h Holed) Sides() []string {
+	out := append([]string(nil), h.Outer.Sides()...)
+	for k := range h.Holes {
+		out = append(out, holeName(k))
+	}
+	return out
+}
+
+func (h Holed) Describe() string {
+	var hs []string
+	for _, c := range h.Holes {
+		hs = append(hs, "the disk of radius "+c.R.Text()+" about ("+c.X.Text()+", "+c.Y.Text()+")")
+	}
+	return h.Outer.Describe() + " less " + strings.Join(hs, " and ")
+}
+
+type holeNumbers struct{ x, y, r float64 }
+
+func (h Holed) holes(env series.Env) ([]holeNumbers, error) {
+	var out []holeNumbers
+	for _, c := range h.Holes {
+		v, err := floats(env, c.X, c.Y, c.R)
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, holeNumbers{v[0], v[1], v[2]})
+	}
+	return out, nil
+}
+
+// HoleFault is the first fault of the holes in numbers: a hole that meets
+// the outer boundary or lies outside it, or two holes that meet; −1 and ""
+// where they are sound.
+func (h Holed) HoleFault(env series.Env) (int, string) {
+	hs, err := h.holes(env)
+	if err != nil {
+		return -1, ""
+	}
+	shape, err := h.Outer.Shape(env)
+	if err != nil {
+		return -1, ""
+	}
+	for k, c := range hs {
+		if c.r <= 0 {
+			return k, "a hole's radius must be positive"
+		}
+		if ok, _ := ContainsXY(h.Outer, c.x, c.y, env); !ok {
+			return k, fmt.Sprintf("hole %d's centre is outside %s", k+1, h.Outer.Describe())
+		}
+		for _, side := range shape.Sides {
+			for j := 0; j <= 720; j++ {
+				x, y, _, _ := side.At(float64(j) / 720)
+				if math.Hypot(x-c.x, y-c.y) <= c.r*(1+1e-9) {
+					return k, fmt.Sprintf("hole %d meets or crosses the outer boundary (%s)", k+1, side.Name)
+				}
+			}
+		}
+		for j := 0; j < k; j++ {
+			if math.Hypot(hs[j].x-c.x, hs[j].y-c.y) <= (hs[j].r+c.r)*(1+1e-9) {
+				return k, fmt.Sprintf("holes %d and %d meet or overlap", j+1, k+1)
+			}
+		}
+	}
+	return -1, ""
+}
+
+func (h Holed) Contains(r, theta float64, env series.Env) (bool, error) {
+	x, y := r*math.Cos(theta), r*math.Sin(theta)
+	return h.containsXY(x, y, env)
+}
+
+func (h Holed) containsXY(x, y float64, env series.Env) (bool, error) {
+	in, err := ContainsXY(h.Outer, x, y, env)
+	if err != nil || !in {
+		return false, err
+	}
+	hs, err := h.holes(env)
+	if err != nil {
+		return false, err
+	}
+	for _, c := range hs {
+		if math.Hypot(x-c.x, y-c.y) < c.r*(1-1e-12) {
+			return false, nil
+		}
+	}
+	return true, nil
+}
+
+func (Holed) printsInXY() bool { return true }
+
+// Shape: the outer sides, then each hole's circle traversed clockwise (the
+// region on its left), its outward normal pointing into the hole.
+func (h Holed) Shape(env series.Env) (Shape, error) {
+	sh, err := h.Outer.Shape(env)
+	if err != nil {
+		return Shape{}, err
+	}
+	hs, err := h.holes(env)
+	if err != nil {
+		return Shape{}, err
+	}
+	sh.Sides = append([]SidePath(nil), sh.Sides...)
+	sh.Polar = nil
+	for k, c := range hs {
+		sh.Sides = append(sh.Sides, holeCircle(holeName(k), c))
+		sh.Area -= math.Pi * c.r * c.r
+	}
+	return sh, nil
+}
+
+func holeCircle(name string, c holeNumbers) SidePath {
+	return SidePath{Name: name, Length: 2 * math.Pi * c.r, At: func(t float64) (x, y, nx, ny float64) {
+		th := -2 * math.Pi * t
+		cs, sn := math.Cos(th), math.Sin(th)
+		return c.x + c.r*cs, c.y + c.r*sn, -cs, -sn
+	}}
+}
+
+// geometry: the outer region's, with the holes' sides (no corners) and
+// their centres for the logarithms and Laurent terms.
+func (h Holed) geometry(env series.Env) (sectionGeometry, error) {
+	outer, ok := h.Outer.(section)
+	var g sectionGeometry
+	var err error
+	if ok {
+		if g, err = outer.geometry(env); err != nil {
+			return g, err
+		}
+	} else { // a disk or a rectangle as a section
+		if g, err = plainGeometry(h.Outer, env); err != nil {
+			return g, err
+		}
+	}
+	hs, err := h.holes(env)
+	if err != nil {
+		return g, err
+	}
+	for k, c := range hs {
+		g.shape.Sides = append(g.shape.Sides, holeCircle(holeName(k), c))
+		g.starts, g.ends = append(g.starts, -1), append(g.ends, -1)
+		g.holes = append(g.holes, holeBasis{c: complex(c.x, c.y), rho: c.r})
+	}
+	if disk, ok := h.Outer.(Disk); ok && len(hs) == 1 {
+		// Two circles: the solution's singularities (images of images)
+		// gather at the limiting points of the pair, the points inverse in
+		// both circles; the hole's expansion converges far faster about the
+		// one inside it than about its centre (an eccentric annulus).
+		if R, err := disk.R.Float(env); err == nil {
+			if l, ok := limitingPoint(R, hs[0]); ok {
+				// ρ: the distance to the hole's circle, so that |ρ/(z − l)| ≤ 1 in the region.
+				c := complex(hs[0].x, hs[0].y)
+				g.holes[0].c, g.holes[0].rho = l, hs[0].r-abs(l-c)
+				g.mobius = &mobiusMap{l1: l, l2: complex(R*R, 0) / cmplx.Conj(l)}
+				wr, wh := g.mobius.w(l/complex(abs(l), 0)*complex(R, 0)), g.mobius.w(c+l/complex(abs(l), 0)*complex(hs[0].r, 0))
+				g.mobius.lo, g.mobius.hi = math.Min(abs(wr), abs(wh)), math.Max(abs(wr), abs(wh))
+				g.warp = bipolarWarps(R, l, c, hs[0].r, len(g.shape.Sides))
+			}
+		}
+	}
+	g.shape.Polar = nil
+	return g, nil
+}
+
+// plainGeometry is a disk's or a rectangle's boundary as a section's: the
+// rectangle's corners take poles like a polygon's.
+func plainGeometry(d Domain, env series.Env) (sectionGeometry, error) {
+	switch r := d.(type) {
+	case Disk:
+		sh, err := r.Shape(env)
+		if err != nil {
+			return sectionGeometry{}, err
+		}
+		return sectionGeometry{shape: sh, starts: []int{-1}, ends: []int{-1}, scale: sh.Box.X1}, nil
+	case Rect:
+		poly := Polygon{X: []series.Coef{{}, r.L, r.L, {}}, Y: []series.Coef{{}, {}, r.H, r.H}}
+		g, err := poly.geometry(env)
+		if err != nil {
+			return g, err
+		}
+		// The rectangle's sides in its own names and order (left, right,
+		// bottom, top), between the polygon's corners (0, 0), (L, 0),
+		// (L, H), (0, H).
+		if g.shape, err = r.Shape(env); err != nil {
+			return g, err
+		}
+		g.starts, g.ends = []int{3, 1, 0, 2}, []int{0, 2, 1, 3}
+		return g, nil
+	}
+	return sectionGeometry{}, fmt.Errorf("%s takes no holes", d.Describe())
+}
+
+func (h Holed) solve(p *posed) (*Solution, error) { return solveSection(h, p) }
+
+// Measures: the outer region's, less the holes' areas; each hole's
+// circumference and the area it encloses.
+func (h Holed) Measures() Measures {
+	m := h.Outer.Measures()
+	lengths := map[string]series.Coef{}
+	for k, v := range m.Lengths {
+		lengths[k] = v
+	}
+	out := Measures{Area: m.Area, Lengths: lengths, Holes: map[string]series.Coef{}}
+	for k, c := range h.Holes {
+		a := discArea(c.R)
+		out.Area = out.Area.Sub(a)
+		out.Lengths[holeName(k)] = circleLength(c.R)
+		out.Holes[holeName(k)] = a
+	}
+	return out
+}
+
+// integral: the outer region's less each hole's disk, a polynomial's
+// moments about the hole's centre: ∬ X^(2a) Y^(2b) over a disk of radius ρ is
+// ρ^(2a+2b+2) π (2a−1)!!(2b−1)!!/(2^(a+b) (a+b+1)!).
+func (h Holed) integral(u series.Sum) (series.Coef, error) {
+	total, err := h.Outer.integral(u)
+	if err != nil {
+		return series.Coef{}, err
+	}
+	poly, err := cart.FromPolar(u)
+	if err != nil {
+		return series.Coef{}, err
+	}
+	for _, c := range h.Holes {
+		e := Ellipse{A: c.R, B: c.R}
+		shifted := shiftPoly(poly, c.X, c.Y)
+		v, err := e.integral(shifted.Polar())
+		if err != nil {
+			return series.Coef{}, err
+		}
+		total = total.Sub(v)
+	}
+	return total, nil
+}
+
+// shiftPoly is p(X + a, Y + b) as a polynomial in X, Y.
+func shiftPoly(p cart.Poly, a, b series.Coef) cart.Poly {
+	out := cart.Poly{}
+	for _, t := range p.Terms() {
+		for i := 0; i <= t.I; i++ {
+			for j := 0; j <= t.J; j++ {
+				c := t.C.Mul(pow(a, t.I-i)).Mul(pow(b, t.J-j)).MulRat(big.NewRat(binom(t.I, i)*binom(t.J, j), 1))
+				out = out.Add(cart.Monomial(c, i, j))
+			}
+		}
+	}
+	return out
+}
+
+// areaNodes: the outer region's rule, less a rule on each hole's disk
+// (negative weights): exact for what is smooth across the holes, as the
+// quadrature's particular solution is.
+func (h Holed) areaNodes(env series.Env) ([][3]float64, error) {
+	var nodes [][3]float64
+	switch o := h.Outer.(type) {
+	case section:
+		n, err := o.areaNodes(env)
+		if err != nil {
+			return nil, err
+		}
+		nodes = n
+	case Disk:
+		R, err := o.R.Float(env)
+		if err != nil {
+			return nil, err
+		}
+		nodes = diskNodes(0, 0, R, 1)
+	case Rect:
+		v, err := floats(env, o.L, o.H)
+		if err != nil {
+			return nil, err
+		}
+		for i := 0; i < 8; i++ {
+			for a, xa := range ansatz.GaussX {
+				for j := 0; j < 8; j++ {
+					for b, yb := range ansatz.GaussX {
+						x, y := v[0]*(float64(i)+(xa+1)/2)/8, v[1]*(float64(j)+(yb+1)/2)/8
+						nodes = append(nodes, [3]float64{x, y, ansatz.GaussW[a] * ansatz.GaussW[b] / 4 * v[0] * v[1] / 64})
+					}
+				}
+			}
+		}
+	}
+	hs, err := h.holes(env)
+	if err != nil {
+		return nil, err
+	}
+	for _, c := range hs {
+		nodes = append(nodes, diskNodes(c.x, c.y, c.r, -1)...)
+	}
+	return nodes, nil
+}
+
+// diskNodes are Gauss–Legendre nodes on a disk (8 panels in ρ, 32 in φ),
+// weights times sign.
+func diskNodes(cx, cy, R, sign float64) [][3]float64 {
+	var out [][3]float64
+	for i := 0; i < 8; i++ {
+		for ki, xi := range ansatz.GaussX {
+			rho := R * (float64(i) + (xi+1)/2) / 8
+			for j := 0; j < 32; j++ {
+				for kj, xj := range ansatz.GaussX {
+					phi := 2 * math.Pi * (float64(j) + (xj+1)/2) / 32
+					w := sign * ansatz.GaussW[ki] / 16 * R * ansatz.GaussW[kj] * math.Pi / 32 * rho
+					out = append(out, [3]float64{cx + rho*math.Cos(phi), cy + rho*math.Sin(phi), w})
+				}
+			}
+		}
+	}
+	return out
+}
+
+func (h Holed) figures(s *Solution, ev *Evaluator, rep *Report, env series.Env, tol float64) error {
+	return sectionFigures(h, s, ev, rep, env)
+}
+
+func (h Holed) claimSide(side string, cond Condition, claim series.Field, env series.Env) (ClaimCheck, error) {
+	return shapeClaimSide(h, side, cond, claim, env)
+}
+
+func (h Holed) samples(env series.Env) ([][2]float64, error) { return shapeSamples(h, env) }
+
+// limitingPoint is the limiting point inside the hole of the circles |z| = R
+// and |z − c| = ρ: on the line of centres, inverse in both circles
+// (x·x' = R² and (x − c)(x' − c) = ρ² along the line).
+func limitingPoint(R float64, h holeNumbers) (complex128, bool) {
+	c := math.Hypot(h.x, h.y)
+	if c < 1e-12*R {
+		return complex(h.x, h.y), false // concentric: the centre itself
+	}
+	s := (R*R - h.r*h.r + c*c) / c // x + x'
+	disc := s*s - 4*R*R
+	if disc <= 0 {
+		return 0, false
+	}
+	x := (s - math.Sqrt(disc)) / 2 // the root nearer the hole's centre
+	if math.Abs((s+math.Sqrt(disc))/2-c) < math.Abs(x-c) {
+		x = (s + math.Sqrt(disc)) / 2
+	}
+	dir := complex(h.x/c, h.y/c)
+	return dir * complex(x, 0), true
+}
+
+// mobiusMap is w = (z − l₁)/(z − l₂) for the limiting points of two
+// circles: it maps them onto the circles |w| = lo and |w| = hi about the
+// origin, where a harmonic function is a Laurent series in w plus a multiple
+// of log|w| (an eccentric annulus made concentric; the bipolar coordinates
+// of the classical solutions).
+type mobiusMap struct {
+	l1, l2 complex128
+	lo, hi float64
+}
+
+func (m *mobiusMap) w(z complex128) complex128 { return (z - m.l1) / (z - m.l2) }
+
+// term is (w/hi)^k for k > 0, (lo/w)^−k for k < 0, and its derivative in z.
+func (m *mobiusMap) term(z complex128, k int) (f, df complex128) {
+	w := m.w(z)
+	dw := (m.l1 - m.l2) / ((z - m.l2) * (z - m.l2))
+	var base complex128
+	if k > 0 {
+		base = w / complex(m.hi, 0)
+	} else {
+		base = complex(m.lo, 0) / w
+	}
+	f = cmplx.Pow(base, complex(math.Abs(float64(k)), 0))
+	return f, complex(float64(k), 0) * f / w * dw
+}
+
+// bipolarWarps sample the rim (side 0) and the hole (side n−1) of an
+// eccentric annulus uniformly in the angle of w = (z − l₁)/(z − l₂), l₁ and
+// l₂ = R²/l̄₁ the limiting points, which maps both circles onto circles about
+// the origin: the samples crowd into the narrow gap, where the solution
+// varies fastest, as the basis in w does.
+func bipolarWarps(R float64, l1, c complex128, r float64, n int) []func(float64) float64 {
+	l2 := complex(R*R, 0) / cmplx.Conj(l1)
+	circle := func(z0 complex128) func(float64) complex128 { // z on the w-circle through z0, by its w-angle
+		w0 := (z0 - l1) / (z0 - l2)
+		return func(s float64) complex128 {
+			w := w0 * cmplx.Rect(1, 2*math.Pi*s)
+			return (l1 - l2*w) / (1 - w)
+		}
+	}
+	dir := l1 / complex(abs(l1), 0)
+	rim := circle(dir * complex(R, 0))
+	hole := circle(c + dir*complex(r, 0))
+	warps := make([]func(float64) float64, n)
+	warps[0] = func(s float64) float64 {
+		a := cmplx.Phase(rim(s)) / (2 * math.Pi)
+		return a - math.Floor(a)
+	}
+	warps[n-1] = func(s float64) float64 {
+		a := -cmplx.Phase(hole(s)-c) / (2 * math.Pi) // the hole's circle runs clockwise
+		return a - math.Floor(a)
+	}
+	return warps
+}
