@@ -49,7 +49,7 @@ type holeBasis struct {
 // poles and polynomial, and how well it meets the side conditions.
 type SectionParts struct {
 	Corners, Degree int
-	Holes           int // holes, each with its logarithm and Laurent terms in the basis
+	Holes           int   // holes, each with its logarithm and Laurent terms in the basis
 	Poles           []int // at each corner, in the order of the vertices
 	// Residual is the largest |condition residual| on a sampling of the
 	// sides finer than the fit's, at (X, Y) on side Side.
