@@ -207,9 +207,10 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 			return nil, unsupported("boundary data on %s given as an infinite series are not sampled (each of thousands of samples would sum the series, and the sum's tail would go unmeasured): give the data in closed form, or as a finite sum of modes", c.Side)
 		}
 	}
+	_, holed := d.(Holed)
 	if _, circles := d.(circular); !circles {
 		for _, c := range conds {
-			if c.Kind == Floating {
+			if c.Kind == Floating && !(holed && strings.HasPrefix(c.Side, "hole")) {
 				return nil, unsupported("a side at one unknown constant value (u = const, flux = ...) is supported on circles for now (the annulus, the disk, outside a circle), not on %s", d.Describe())
 			}
 		}

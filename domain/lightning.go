@@ -32,6 +32,9 @@ type boundaryPoint struct {
 	a, b  float64 // Dirichlet 1, 0; Neumann 0, 1; Robin h, 1
 	data  float64
 	side  int
+	// floating is the side whose unknown value U the row's u equals (a
+	// floating side), or −1.
+	floating int
 	// w weighs the row: 1 for a value condition; for a flux or Robin one
 	// the distance to the nearest corner over the section's size (capped
 	// at 1), so that its residual, like a value's, is what it moves u by
@@ -45,6 +48,9 @@ type boundaryPoint struct {
 // residual is the point's weighted condition residual for h.
 func (p boundaryPoint) residual(h *rationalHarmonic) float64 {
 	v, df := h.value(p.z)
+	if p.floating >= 0 {
+		v -= h.floatingU[p.floating]
+	}
 	return p.w * math.Abs(p.a*v+p.b*real(df*p.nu)-p.data)
 }
 
@@ -111,16 +117,18 @@ type rationalHarmonic struct {
 	laurent  []laurentTerm
 	cLaurent []complex128
 	mobius   *mobiusMap
-	mobiusK  []int // the powers of w, ±1..±degree
-	cMobius  []complex128
-	centre   complex128
-	scale    float64
-	hess     [][]complex128 // Arnoldi's Hessenberg matrix, column k: the coefficients of q_{k+1}
-	cPoly    []complex128   // Re Σ cPoly_k q_k
-	degree   int
-	residual float64 // the largest |condition residual| on the check sampling
-	worstAt  complex128
-	worstOn  int
+	// floatingU is each floating side's value U, found with the fit.
+	floatingU map[int]float64
+	mobiusK   []int // the powers of w, ±1..±degree
+	cMobius   []complex128
+	centre    complex128
+	scale     float64
+	hess      [][]complex128 // Arnoldi's Hessenberg matrix, column k: the coefficients of q_{k+1}
+	cPoly     []complex128   // Re Σ cPoly_k q_k
+	degree    int
+	residual  float64 // the largest |condition residual| on the check sampling
+	worstAt   complex128
+	worstOn   int
 }
 
 // polyBasis is q_0..q_D at z and their derivatives in z, by the stored
@@ -232,7 +240,15 @@ func poleDistances(n int, s float64) []float64 {
 
 // fitHarmonic solves the least-squares problem on the samples for n[k]
 // poles at corner k and the given degree.
-func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powers int, freeConstant bool) (*rationalHarmonic, error) {
+// fluxConstraint is a floating side's net flux: Σ of the flux rows at pts
+// (their weights w the quadrature's) equals target.
+type fluxConstraint struct {
+	side   int
+	pts    []boundaryPoint
+	target float64
+}
+
+func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powers int, freeConstant bool, constraints []fluxConstraint) (*rationalHarmonic, error) {
 	corners, centre, scale := geo.corners, geo.centre, geo.scale
 	h := &rationalHarmonic{centre: centre, scale: scale, degree: degree, logs: geo.holes, mobius: geo.mobius}
 	if geo.mobius != nil {
@@ -260,16 +276,25 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	h.hess = arnoldi(Z, degree)
 	// Columns: Re and Im of each pole's and each polynomial's operator value.
 	nc := 2*len(h.poles) + 2*(degree+1) + 2*len(h.powers) + 2*len(h.logs) + 2*len(h.laurent) + 2*len(h.mobiusK)
-	A := mat.NewDense(len(pts), nc, nil)
-	b := mat.NewVecDense(len(pts), nil)
+	// A floating side's value U is one more unknown (its column: −1 on its
+	// rows), and its net flux one more equation: the sum over quadrature
+	// points of the flux rows, weighted heavily so that it holds.
+	uCol := map[int]int{}
+	for _, c := range constraints {
+		uCol[c.side] = nc + 2*len(uCol)
+	}
+	nc += 2 * len(uCol) // a pair, the second empty, like every column
+	rows := len(pts) + len(constraints)
+	A := mat.NewDense(rows, nc, nil)
+	b := mat.NewVecDense(rows, nil)
 	q := make([]complex128, degree+1)
 	dq := make([]complex128, degree+1)
-	for i, p := range pts {
+	fill := func(i int, p boundaryPoint, scaleBy float64) {
 		col := 0
 		put := func(f, df complex128) {
-			w := (complex(p.a, 0)*f + complex(p.b, 0)*df*p.nu) * complex(p.w, 0)
-			A.Set(i, col, real(w))
-			A.Set(i, col+1, imag(w))
+			w := (complex(p.a, 0)*f + complex(p.b, 0)*df*p.nu) * complex(p.w*scaleBy, 0)
+			A.Set(i, col, A.At(i, col)+real(w))
+			A.Set(i, col+1, A.At(i, col+1)+imag(w))
 			col += 2
 		}
 		for _, pole := range h.poles {
@@ -287,7 +312,7 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 			// log|z − c| alone: the pair's second column, arg(z − c), is
 			// multivalued around the hole and stays 0 (dropped as empty).
 			d := p.z - hb.c
-			A.Set(i, col, p.w*(p.a*math.Log(abs(d))+p.b*real(p.nu/d)))
+			A.Set(i, col, A.At(i, col)+scaleBy*p.w*(p.a*math.Log(abs(d))+p.b*real(p.nu/d)))
 			col += 2
 		}
 		for _, t := range h.laurent {
@@ -298,7 +323,20 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 		for _, j := range h.mobiusK {
 			put(h.mobius.term(p.z, j))
 		}
+		if c, ok := uCol[p.floating]; ok && p.floating >= 0 {
+			A.Set(i, c, A.At(i, c)-scaleBy*p.w*p.a)
+		}
+	}
+	for i, p := range pts {
+		fill(i, p, 1)
 		b.SetVec(i, p.w*p.data)
+	}
+	for k, c := range constraints {
+		const heavy = 1e3
+		for _, p := range c.pts {
+			fill(len(pts)+k, p, heavy)
+		}
+		b.SetVec(len(pts)+k, heavy*c.target)
 	}
 	// Scale the columns to unit norm (the poles nearest a corner are large
 	// there) and keep only the live ones: Im q_0 = 0 always, and a pure
@@ -320,7 +358,7 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	// without it QR, which does not pivot, returns huge coefficients that
 	// cancel, and the residual is rounding of them.
 	const ridge = 1e-13
-	m := len(pts)
+	m := rows
 	B := mat.NewDense(m+len(live), len(live), nil)
 	for c, j := range live {
 		for i := 0; i < m; i++ {
@@ -383,6 +421,10 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	h.cMobius = make([]complex128, len(h.mobiusK))
 	for k := range h.cMobius {
 		h.cMobius[k] = complex(coef(first+2*k), -coef(first+2*k+1))
+	}
+	h.floatingU = map[int]float64{}
+	for side, c := range uCol {
+		h.floatingU[side] = coef(c)
 	}
 	return h, nil
 }

@@ -114,6 +114,10 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		}
 	}
 	target := p.tol * math.Max(scale, 1e-300)
+	constraints, err := floatingConstraints(geo, conds, up, p.env)
+	if err != nil {
+		return nil, err
+	}
 	if allNeumann {
 		if err := neumannBalance(d, geo, conds, up, quad, p); err != nil {
 			return nil, err
@@ -138,7 +142,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	stalled := 0
 	for step := 1; step <= maxSectionSteps; step++ {
 		fit, check := geo.samples(poles, degree, conds)
-		h, err := fitHarmonic(fit, geo, poles, degree, 4+3*step, allNeumann)
+		h, err := fitHarmonic(fit, geo, poles, degree, 4+3*step, allNeumann, constraints)
 		if err != nil {
 			return nil, unsolvable("%w", err)
 		}
@@ -186,6 +190,16 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	}
 	sol := &Solution{Domain: d, Source: p.f, Particular: up, U: up, Rules: rules, Section: parts, stages: []stage{parts}, Numeric: true,
 		Quadrature: quad, Rest: p.rest}
+	for k, c := range conds {
+		if c.floating {
+			if sol.Floating == nil {
+				sol.Floating = map[string]series.Coef{}
+			}
+			name := geo.shape.Sides[k].Name
+			sol.Floating[name] = decimal(best.floatingU[k])
+			sol.Notes = append(sol.Notes, fmt.Sprintf("u on %s is the constant %s, found with the fit from its net outward flux %.12g", name, series.Const(sol.Floating[name]).TextApprox(), c.flux))
+		}
+	}
 	if allNeumann { // u up to an additive constant, and the value that makes its mean on the boundary 0
 		used := map[string]bool{}
 		p.f.Params(used)
@@ -228,7 +242,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 			data.DataText, data.DataLaTeX = p.Text(), p.LaTeX()
 		}
 		sol.Sides = append(sol.Sides, data)
-		sol.Checks = append(sol.Checks, Check{Name: OperatorText(cond, "u") + " - g", Side: side.Name, Numeric: conds[k].worst(best, geo.shape.Sides[k], &geo)})
+		sol.Checks = append(sol.Checks, Check{Name: OperatorText(cond, "u") + " - g", Side: side.Name, Numeric: conds[k].worst(best, k, geo.shape.Sides[k], &geo)})
 	}
 	// The error at a point: for Dirichlet data the maximum principle bounds
 	// the harmonic part's error by the boundary residual; with fluxes the
@@ -288,12 +302,14 @@ func solveSection(d section, p *posed) (*Solution, error) {
 // sideCondition is one side's condition in numbers: a·u + b·∂u/∂n = g, with
 // u_p's share (its operator value) to subtract.
 type sideCondition struct {
-	quad   *sideInterpolant // the numeric particular part on the side, where the source has one
-	a, b   float64
-	g      series.CompiledField
-	up     series.Compiled
-	ur, ut series.Compiled // ∂u_p/∂r and ∂u_p/∂θ
-	trace  series.Sum      // u_p's operator on the side, where it prints (Dirichlet: u_p)
+	floating bool             // u is one unknown constant U here, with net outward flux
+	flux     float64          // the flux, for a floating side
+	quad     *sideInterpolant // the numeric particular part on the side, where the source has one
+	a, b     float64
+	g        series.CompiledField
+	up       series.Compiled
+	ur, ut   series.Compiled // ∂u_p/∂r and ∂u_p/∂θ
+	trace    series.Sum      // u_p's operator on the side, where it prints (Dirichlet: u_p)
 }
 
 func compileSideCondition(cond Condition, up series.Sum, env series.Env) (sideCondition, error) {
@@ -307,11 +323,23 @@ func compileSideCondition(cond Condition, up series.Sum, env series.Env) (sideCo
 			return sc, unsupported("the Robin coefficient on %s needs a value: %w", cond.Side, err)
 		}
 		sc.a, sc.b = h, 1
-	case Floating:
-		return sc, unsupported("a side at one unknown constant value is supported on circles for now, not on %s", cond.Side)
+	case Floating: // u = U (one more unknown) on the side; its data is the net flux
+		c, ok := cond.G.Exact.Const()
+		if !ok || !cond.G.IsExact() {
+			return sc, unsupported("the net flux on %s must be a constant", cond.Side)
+		}
+		q, err := c.Float(env)
+		if err != nil {
+			return sc, unsupported("the net flux on %s needs a value: %w", cond.Side, err)
+		}
+		sc.floating, sc.flux = true, q
 	}
 	var err error
-	if sc.g, err = cond.G.Compile(env); err != nil {
+	g := cond.G
+	if cond.Kind == Floating {
+		g = series.ExactField(series.Sum{}) // the value's data: u − U = 0
+	}
+	if sc.g, err = g.Compile(env); err != nil {
 		return sc, unsupported("the data on %s need every parameter's value: %w", cond.Side, err)
 	}
 	if sc.up, err = up.Compile(env); err != nil {
@@ -462,7 +490,10 @@ func sectionQuadrature(d section, geo sectionGeometry, p *posed) (*ansatz.Quadra
 
 func (sc sideCondition) point(t, x, y, nx, ny float64, side int, geo *sectionGeometry) boundaryPoint {
 	g, op := sc.parts(t, x, y, nx, ny)
-	p := boundaryPoint{z: complex(x, y), nu: complex(nx, ny), a: sc.a, b: sc.b, data: g - op, side: side, w: 1}
+	p := boundaryPoint{z: complex(x, y), nu: complex(nx, ny), a: sc.a, b: sc.b, data: g - op, side: side, w: 1, floating: -1}
+	if sc.floating {
+		p.floating = side
+	}
 	if sc.b != 0 {
 		for _, c := range geo.corners {
 			p.w = math.Min(p.w, abs(p.z-c.w)/geo.scale)
@@ -472,11 +503,11 @@ func (sc sideCondition) point(t, x, y, nx, ny float64, side int, geo *sectionGeo
 }
 
 // worst is the side's largest (weighted) residual on a fine sampling.
-func (sc sideCondition) worst(h *rationalHarmonic, path SidePath, geo *sectionGeometry) float64 {
+func (sc sideCondition) worst(h *rationalHarmonic, k int, path SidePath, geo *sectionGeometry) float64 {
 	out := 0.0
 	for j := 0; j < 400; j++ {
 		x, y, nx, ny := path.At((float64(j) + 0.5) / 400)
-		out = math.Max(out, sc.point((float64(j)+0.5)/400, x, y, nx, ny, 0, geo).residual(h))
+		out = math.Max(out, sc.point((float64(j)+0.5)/400, x, y, nx, ny, k, geo).residual(h))
 	}
 	return out
 }
@@ -1034,4 +1065,34 @@ func (sp *SectionParts) Fitted() FittedPart {
 		out.W, out.Rot, out.Beta = append(out.W, c.w), append(out.Rot, c.rot), append(out.Beta, c.beta)
 	}
 	return out
+}
+
+// floatingConstraints are the floating sides' net fluxes as equations of
+// the fit: Σ w·∂h/∂n over 256 points of the side (the trapezoidal rule,
+// spectrally accurate on a circle) = Q − ∮ ∂u_p/∂n ds.
+func floatingConstraints(geo sectionGeometry, conds []sideCondition, up series.Sum, env series.Env) ([]fluxConstraint, error) {
+	var out []fluxConstraint
+	for k, c := range conds {
+		if !c.floating {
+			continue
+		}
+		flux, err := compileSideCondition(Condition{Kind: Neumann, G: series.ExactField(series.Sum{})}, up, env)
+		if err != nil {
+			return nil, err
+		}
+		flux.quad = c.quad
+		side := geo.shape.Sides[k]
+		fc := fluxConstraint{side: k, target: c.flux}
+		const n = 256
+		for j := 0; j < n; j++ {
+			t := float64(j) / n
+			x, y, nx, ny := side.At(t)
+			_, dn := flux.parts(t, x, y, nx, ny)
+			w := side.Length / n
+			fc.target -= w * dn
+			fc.pts = append(fc.pts, boundaryPoint{z: complex(x, y), nu: complex(nx, ny), b: 1, w: w, floating: -1})
+		}
+		out = append(out, fc)
+	}
+	return out, nil
 }

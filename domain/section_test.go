@@ -428,3 +428,52 @@ func TestEccentricAnnulusFlow(t *testing.T) {
 		t.Errorf("concentric: Q = %.12g, psol's exact annulus %.12g", got, rep.Integral)
 	}
 }
+
+// A hollow shaft, its hole's value unknown and its net flux fixed by
+// single-valued warping (−c·A_hole for Δu = c): J = π(b⁴ − a⁴)/2
+// (Timoshenko & Goodier, torsion of hollow shafts), the hole's value
+// (b² − a²)/2.
+func TestHollowShaftFloatingHole(t *testing.T) {
+	a, b := 0.02, 0.025
+	d := domain.Holed{Outer: domain.Disk{R: decimalCoef(b)}, Holes: []domain.CircleHole{{X: series.Coef{}, Y: series.Coef{}, R: decimalCoef(a)}}}
+	sol := solveWith(t, "lap(u) = -2", d, domain.Options{Tol: 1e-12}, "rim: u = 0", "hole1: u = const, flux = 2*pi*0.02^2")
+	rep, err := sol.Report(nil, 1e-12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	figs, err := sol.Quantity("torsion", rep)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if want := math.Pi * (b*b*b*b - a*a*a*a) / 2; math.Abs(figs[0].Value-want) > 1e-9*want {
+		t.Errorf("J = %.12g, want π(b⁴ − a⁴)/2 = %.12g (Timoshenko & Goodier)", figs[0].Value, want)
+	}
+	if v, _ := sol.Floating["hole1"].Float(nil); math.Abs(v-(b*b-a*a)/2) > 1e-12 {
+		t.Errorf("the hole's value %.15g, want (b² − a²)/2 = %.15g", v, (b*b-a*a)/2)
+	}
+}
+
+// A plate with two holes against a manufactured solution,
+// u = x² + y² + 0.3 ln|z − c₁| + 0.5 ln|z − c₂| (Δu = 4; each logarithm
+// harmonic outside its hole): values on the rim and on hole 1, the flux
+// on hole 2 (its normal, the region's, points into the hole).
+func TestTwoHolesManufactured(t *testing.T) {
+	d := domain.Holed{Outer: domain.Disk{R: series.IntCoef(2)}, Holes: []domain.CircleHole{
+		{X: decimalCoef(-0.6), Y: series.Coef{}, R: decimalCoef(0.3)},
+		{X: decimalCoef(0.6), Y: decimalCoef(0.2), R: decimalCoef(0.25)}}}
+	u := "x^2 + y^2 + 0.15*ln((x + 0.6)^2 + y^2) + 0.25*ln((x - 0.6)^2 + (y - 0.2)^2)"
+	ux := "(2*x + 0.3*(x + 0.6)/((x + 0.6)^2 + y^2) + 0.5*(x - 0.6)/((x - 0.6)^2 + (y - 0.2)^2))"
+	uy := "(2*y + 0.3*y/((x + 0.6)^2 + y^2) + 0.5*(y - 0.2)/((x - 0.6)^2 + (y - 0.2)^2))"
+	dn := "-((x - 0.6)*" + ux + " + (y - 0.2)*" + uy + ")/0.25"
+	sol := solveWith(t, "lap(u) = 4", d, domain.Options{Tol: 1e-11}, "rim: u = "+u, "hole1: u = "+u, "hole2: dn(u) = "+dn)
+	ev := evaluator(t, sol, 1e-11)
+	exact := func(x, y float64) float64 {
+		return x*x + y*y + 0.15*math.Log((x+0.6)*(x+0.6)+y*y) + 0.25*math.Log((x-0.6)*(x-0.6)+(y-0.2)*(y-0.2))
+	}
+	for _, p := range [][2]float64{{0, 0}, {1, 1}, {-1.5, 0.3}, {0.6, 0.5}, {-0.6, -0.4}} {
+		got, est, _ := ev.AtXY(p[0], p[1])
+		if err := math.Abs(got - exact(p[0], p[1])); err > 1e-9 || err > 10*(est+sol.DataError) {
+			t.Errorf("u%v = %.13f, exact %.13f (estimate %.1g)", p, got, exact(p[0], p[1]), est+sol.DataError)
+		}
+	}
+}
