@@ -25,15 +25,34 @@ type Holed struct {
 	Holes []CircleHole
 }
 
-// CircleHole is the disk (x − X)² + (y − Y)² < R² taken out.
-type CircleHole struct{ X, Y, R series.Coef }
+// CircleHole is a hole: the disk (x − X)² + (y − Y)² < R², or, where Poly
+// has vertices, the inside of that polygon (its edges the sides holeK.s1,
+// holeK.s2, …).
+type CircleHole struct {
+	X, Y, R series.Coef
+	Poly    Polygon
+}
+
+func (c CircleHole) isPolygon() bool { return len(c.Poly.X) > 0 }
 
 func holeName(k int) string { return fmt.Sprintf("hole%d", k+1) }
 
+// holeGroup is the hole a side belongs to: holeK for holeK and holeK.sJ.
+func holeGroup(side string) string {
+	g, _, _ := strings.Cut(side, ".")
+	return g
+}
+
 func (h Holed) Sides() []string {
 	out := append([]string(nil), h.Outer.Sides()...)
-	for k := range h.Holes {
-		out = append(out, holeName(k))
+	for k, c := range h.Holes {
+		if !c.isPolygon() {
+			out = append(out, holeName(k))
+			continue
+		}
+		for j := range c.Poly.X {
+			out = append(out, fmt.Sprintf("%s.s%d", holeName(k), j+1))
+		}
 	}
 	return out
 }
@@ -41,29 +60,138 @@ func (h Holed) Sides() []string {
 func (h Holed) Describe() string {
 	var hs []string
 	for _, c := range h.Holes {
+		if c.isPolygon() {
+			hs = append(hs, "the inside of "+c.Poly.Describe())
+			continue
+		}
 		hs = append(hs, "the disk of radius "+c.R.Text()+" about ("+c.X.Text()+", "+c.Y.Text()+")")
 	}
 	return h.Outer.Describe() + " less " + strings.Join(hs, " and ")
 }
 
-type holeNumbers struct{ x, y, r float64 }
+// holeNumbers is a hole in numbers: its sides (the region on their left,
+// the outward normal into the hole), its corners, the centre and radius of
+// its logarithm and Laurent terms, and a test for its inside.
+type holeNumbers struct {
+	x, y, r float64 // a circle's centre and radius; a polygon's centroid and inner radius
+	sides   []SidePath
+	corners []corner
+	area    float64
+	inside  func(x, y float64) bool
+	circle  bool
+}
 
 func (h Holed) holes(env series.Env) ([]holeNumbers, error) {
 	var out []holeNumbers
-	for _, c := range h.Holes {
-		v, err := floats(env, c.X, c.Y, c.R)
+	for k, c := range h.Holes {
+		if !c.isPolygon() {
+			v, err := floats(env, c.X, c.Y, c.R)
+			if err != nil {
+				return nil, err
+			}
+			hn := holeNumbers{x: v[0], y: v[1], r: v[2], area: math.Pi * v[2] * v[2], circle: true}
+			hn.sides = []SidePath{holeCircle(holeName(k), hn)}
+			hn.inside = func(x, y float64) bool { return math.Hypot(x-hn.x, y-hn.y) < hn.r*(1-1e-12) }
+			out = append(out, hn)
+			continue
+		}
+		hn, err := polygonHole(holeName(k), c.Poly, env)
 		if err != nil {
 			return nil, err
 		}
-		out = append(out, holeNumbers{v[0], v[1], v[2]})
+		out = append(out, hn)
 	}
 	return out, nil
 }
 
+// polygonHole: the edges with the region's outward normal (into the hole),
+// a corner at every vertex with its
+// poles inside the hole, the Laurent centre at the vertices' centroid and
+// its radius the nearest edge's distance.
+func polygonHole(name string, p Polygon, env series.Env) (holeNumbers, error) {
+	xs, ys, orient, err := p.vertices(env)
+	if err != nil {
+		return holeNumbers{}, err
+	}
+	n := len(xs)
+	hn := holeNumbers{area: math.Abs(signedArea(xs, ys))}
+	for k := 0; k < n; k++ {
+		hn.x, hn.y = hn.x+xs[k]/float64(n), hn.y+ys[k]/float64(n)
+	}
+	hn.r = math.Inf(1)
+	for k := 0; k < n; k++ {
+		j := (k + 1) % n
+		// The edge from vertex k to k+1, its normal turned into the hole
+		// (the region's outward normal there).
+		s := orientedSegment(fmt.Sprintf("%s.s%d", name, k+1), xs[k], ys[k], xs[j], ys[j], -orient)
+		hn.sides = append(hn.sides, s)
+		hn.r = math.Min(hn.r, pointSegment(hn.x, hn.y, xs[k], ys[k], xs[j], ys[j]))
+	}
+	for k := 0; k < n; k++ {
+		i, j := (k+n-1)%n, (k+1)%n
+		w := complex(xs[k], ys[k])
+		a, b := complex(xs[i], ys[i])-w, complex(xs[j], ys[j])-w
+		d := a/complex(abs(a), 0) + b/complex(abs(b), 0)
+		d /= complex(abs(d), 0)
+		holeAngle := math.Acos(math.Max(-1, math.Min(1, real(cmplx.Conj(a)*b)/(abs(a)*abs(b))))) / math.Pi
+		if turn := imag(cmplx.Conj(-a) * b); turn*orient < 0 { // a reflex vertex of the hole
+			holeAngle, d = 2-holeAngle, -d
+		}
+		// The region's angle there is 2 − the hole's; the poles go into the hole.
+		reach := 0.0
+		for m := range xs {
+			reach = math.Max(reach, abs(complex(xs[m], ys[m])-w))
+		}
+		// The powers' cut runs from the corner to the centroid: inside the
+		// hole wherever the segment is (checked along it).
+		cn := corner{w: w, dir: d, angle: 2 - holeAngle, reach: reach, pivot: complex(hn.x, hn.y), hasPivot: true}
+		for s := 1; s < 64; s++ {
+			p := w + (cn.pivot-w)*complex(float64(s)/64, 0)
+			if !insidePolygon(xs, ys, real(p), imag(p)) {
+				cn.hasPivot = false
+			}
+		}
+		hn.corners = append(hn.corners, cn)
+	}
+	hn.inside = func(x, y float64) bool {
+		if !insidePolygon(xs, ys, x, y) {
+			return false
+		}
+		for k := 0; k < n; k++ { // on an edge: not inside
+			j := (k + 1) % n
+			if pointSegment(x, y, xs[k], ys[k], xs[j], ys[j]) <= 1e-12*math.Max(1, hn.r) {
+				return false
+			}
+		}
+		return true
+	}
+	return hn, nil
+}
+
+// pointSegment is the distance from (x, y) to the segment from a to b.
+func pointSegment(x, y, ax, ay, bx, by float64) float64 {
+	dx, dy := bx-ax, by-ay
+	t := math.Max(0, math.Min(1, ((x-ax)*dx+(y-ay)*dy)/(dx*dx+dy*dy)))
+	return math.Hypot(x-ax-t*dx, y-ay-t*dy)
+}
+
 // HoleFault is the first fault of the holes in numbers: a hole that meets
-// the outer boundary or lies outside it, or two holes that meet; −1 and ""
-// where they are sound.
+// the outer boundary or lies outside it, two holes that meet, a polygon
+// hole's own fault; −1 and "" where they are sound.
 func (h Holed) HoleFault(env series.Env) (int, string) {
+	for k, c := range h.Holes {
+		if !c.isPolygon() {
+			continue
+		}
+		xs, err1 := floats(env, c.Poly.X...)
+		ys, err2 := floats(env, c.Poly.Y...)
+		if err1 != nil || err2 != nil {
+			return -1, ""
+		}
+		if j, reason := PolygonFault(xs, ys); j >= 0 {
+			return k, fmt.Sprintf("hole %d: %s", k+1, reason)
+		}
+	}
 	hs, err := h.holes(env)
 	if err != nil {
 		return -1, ""
@@ -72,24 +200,49 @@ func (h Holed) HoleFault(env series.Env) (int, string) {
 	if err != nil {
 		return -1, ""
 	}
+	boundary := func(hn holeNumbers) [][2]float64 {
+		var out [][2]float64
+		for _, s := range hn.sides {
+			for j := 0; j < 240; j++ {
+				x, y, _, _ := s.At(float64(j) / 240)
+				out = append(out, [2]float64{x, y})
+			}
+		}
+		return out
+	}
 	for k, c := range hs {
-		if c.r <= 0 {
+		if c.circle && c.r <= 0 {
 			return k, "a hole's radius must be positive"
 		}
-		if ok, _ := ContainsXY(h.Outer, c.x, c.y, env); !ok {
-			return k, fmt.Sprintf("hole %d's centre is outside %s", k+1, h.Outer.Describe())
+		for _, p := range boundary(c) {
+			if ok, _ := ContainsXY(h.Outer, p[0], p[1], env); !ok {
+				return k, fmt.Sprintf("hole %d reaches outside %s", k+1, h.Outer.Describe())
+			}
 		}
 		for _, side := range shape.Sides {
 			for j := 0; j <= 720; j++ {
 				x, y, _, _ := side.At(float64(j) / 720)
-				if math.Hypot(x-c.x, y-c.y) <= c.r*(1+1e-9) {
+				if c.inside(x, y) || c.circle && math.Hypot(x-c.x, y-c.y) <= c.r*(1+1e-9) {
 					return k, fmt.Sprintf("hole %d meets or crosses the outer boundary (%s)", k+1, side.Name)
 				}
 			}
 		}
 		for j := 0; j < k; j++ {
-			if math.Hypot(hs[j].x-c.x, hs[j].y-c.y) <= (hs[j].r+c.r)*(1+1e-9) {
-				return k, fmt.Sprintf("holes %d and %d meet or overlap", j+1, k+1)
+			if c.circle && hs[j].circle {
+				if math.Hypot(hs[j].x-c.x, hs[j].y-c.y) <= (hs[j].r+c.r)*(1+1e-9) {
+					return k, fmt.Sprintf("holes %d and %d meet or overlap", j+1, k+1)
+				}
+				continue
+			}
+			for _, p := range boundary(c) {
+				if hs[j].inside(p[0], p[1]) {
+					return k, fmt.Sprintf("holes %d and %d meet or overlap", j+1, k+1)
+				}
+			}
+			for _, p := range boundary(hs[j]) {
+				if c.inside(p[0], p[1]) {
+					return k, fmt.Sprintf("holes %d and %d meet or overlap", j+1, k+1)
+				}
 			}
 		}
 	}
@@ -111,7 +264,7 @@ func (h Holed) containsXY(x, y float64, env series.Env) (bool, error) {
 		return false, err
 	}
 	for _, c := range hs {
-		if math.Hypot(x-c.x, y-c.y) < c.r*(1-1e-12) {
+		if c.inside(x, y) {
 			return false, nil
 		}
 	}
@@ -120,8 +273,8 @@ func (h Holed) containsXY(x, y float64, env series.Env) (bool, error) {
 
 func (Holed) printsInXY() bool { return true }
 
-// Shape: the outer sides, then each hole's circle traversed clockwise (the
-// region on its left), its outward normal pointing into the hole.
+// Shape: the outer sides, then each hole's sides traversed with the region
+// on their left, the outward normal pointing into the hole.
 func (h Holed) Shape(env series.Env) (Shape, error) {
 	sh, err := h.Outer.Shape(env)
 	if err != nil {
@@ -133,9 +286,9 @@ func (h Holed) Shape(env series.Env) (Shape, error) {
 	}
 	sh.Sides = append([]SidePath(nil), sh.Sides...)
 	sh.Polar = nil
-	for k, c := range hs {
-		sh.Sides = append(sh.Sides, holeCircle(holeName(k), c))
-		sh.Area -= math.Pi * c.r * c.r
+	for _, c := range hs {
+		sh.Sides = append(sh.Sides, c.sides...)
+		sh.Area -= c.area
 	}
 	return sh, nil
 }
@@ -148,7 +301,7 @@ func holeCircle(name string, c holeNumbers) SidePath {
 	}}
 }
 
-// geometry: the outer region's, with the holes' sides (no corners) and
+// geometry: the outer region's, with the holes' sides and corners, and
 // their centres for the logarithms and Laurent terms.
 func (h Holed) geometry(env series.Env) (sectionGeometry, error) {
 	outer, ok := h.Outer.(section)
@@ -167,12 +320,28 @@ func (h Holed) geometry(env series.Env) (sectionGeometry, error) {
 	if err != nil {
 		return g, err
 	}
-	for k, c := range hs {
-		g.shape.Sides = append(g.shape.Sides, holeCircle(holeName(k), c))
-		g.starts, g.ends = append(g.starts, -1), append(g.ends, -1)
+	for _, c := range hs {
+		first := len(g.corners)
+		g.corners = append(g.corners, c.corners...)
+		for j, s := range c.sides {
+			g.shape.Sides = append(g.shape.Sides, s)
+			if c.circle {
+				g.starts, g.ends = append(g.starts, -1), append(g.ends, -1)
+				continue
+			}
+			// Edge j runs from vertex j+1 to j when the hole is traversed
+			// backwards, from j to j+1 otherwise: its ends are those corners.
+			n := len(c.corners)
+			x0, y0, _, _ := s.At(0)
+			a, b := first+j, first+(j+1)%n
+			if abs(complex(x0, y0)-c.corners[j].w) > 1e-12*math.Max(1, c.r) {
+				a, b = b, a
+			}
+			g.starts, g.ends = append(g.starts, a), append(g.ends, b)
+		}
 		g.holes = append(g.holes, holeBasis{c: complex(c.x, c.y), rho: c.r})
 	}
-	if disk, ok := h.Outer.(Disk); ok && len(hs) == 1 {
+	if disk, ok := h.Outer.(Disk); ok && len(hs) == 1 && hs[0].circle {
 		// Two circles: the solution's singularities (images of images)
 		// gather at the limiting points of the pair, the points inverse in
 		// both circles; the hole's expansion converges far faster about the
@@ -223,8 +392,8 @@ func plainGeometry(d Domain, env series.Env) (sectionGeometry, error) {
 
 func (h Holed) solve(p *posed) (*Solution, error) { return solveSection(h, p) }
 
-// Measures: the outer region's, less the holes' areas; each hole's
-// circumference and the area it encloses.
+// Measures: the outer region's, less the holes' areas; each hole's side
+// lengths and the area it encloses.
 func (h Holed) Measures() Measures {
 	m := h.Outer.Measures()
 	lengths := map[string]series.Coef{}
@@ -233,6 +402,15 @@ func (h Holed) Measures() Measures {
 	}
 	out := Measures{Area: m.Area, Lengths: lengths, Holes: map[string]series.Coef{}}
 	for k, c := range h.Holes {
+		if c.isPolygon() {
+			pm := c.Poly.Measures()
+			out.Area = out.Area.Sub(pm.Area)
+			for s, l := range pm.Lengths {
+				out.Lengths[holeName(k)+"."+s] = l
+			}
+			out.Holes[holeName(k)] = pm.Area
+			continue
+		}
 		a := discArea(c.R)
 		out.Area = out.Area.Sub(a)
 		out.Lengths[holeName(k)] = circleLength(c.R)
@@ -241,9 +419,9 @@ func (h Holed) Measures() Measures {
 	return out
 }
 
-// integral: the outer region's less each hole's disk, a polynomial's
-// moments about the hole's centre: ∬ X^(2a) Y^(2b) over a disk of radius ρ is
-// ρ^(2a+2b+2) π (2a−1)!!(2b−1)!!/(2^(a+b) (a+b+1)!).
+// integral: the outer region's less each hole's (a polygon's exactly; a
+// disk's by a polynomial's moments about its centre:
+// ∬ X^(2a) Y^(2b) over a disk of radius ρ is ρ^(2a+2b+2) π (2a−1)!!(2b−1)!!/(2^(a+b) (a+b+1)!)).
 func (h Holed) integral(u series.Sum) (series.Coef, error) {
 	total, err := h.Outer.integral(u)
 	if err != nil {
@@ -254,9 +432,12 @@ func (h Holed) integral(u series.Sum) (series.Coef, error) {
 		return series.Coef{}, err
 	}
 	for _, c := range h.Holes {
-		e := Ellipse{A: c.R, B: c.R}
-		shifted := shiftPoly(poly, c.X, c.Y)
-		v, err := e.integral(shifted.Polar())
+		var v series.Coef
+		if c.isPolygon() {
+			v, err = c.Poly.integral(u)
+		} else {
+			v, err = Ellipse{A: c.R, B: c.R}.integral(shiftPoly(poly, c.X, c.Y).Polar())
+		}
 		if err != nil {
 			return series.Coef{}, err
 		}
@@ -313,12 +494,22 @@ func (h Holed) areaNodes(env series.Env) ([][3]float64, error) {
 			}
 		}
 	}
-	hs, err := h.holes(env)
-	if err != nil {
-		return nil, err
-	}
-	for _, c := range hs {
-		nodes = append(nodes, diskNodes(c.x, c.y, c.r, -1)...)
+	for k, c := range h.Holes {
+		if c.isPolygon() {
+			hn, err := c.Poly.areaNodes(env)
+			if err != nil {
+				return nil, err
+			}
+			for _, n := range hn {
+				nodes = append(nodes, [3]float64{n[0], n[1], -n[2]})
+			}
+			continue
+		}
+		hs, err := h.holes(env)
+		if err != nil {
+			return nil, err
+		}
+		nodes = append(nodes, diskNodes(hs[k].x, hs[k].y, hs[k].r, -1)...)
 	}
 	return nodes, nil
 }

@@ -65,6 +65,10 @@ type corner struct {
 	angle    float64
 	families []float64 // the offsets: 0 for k/α, ½ for (k − ½)/α
 	reach    float64   // the distance to the farthest vertex
+	// pivot: a hole's corner takes its powers about a point inside the
+	// hole (cornerPower.pivot), where hasPivot.
+	pivot    complex128
+	hasPivot bool
 }
 
 // cornerPower is one singular function at a corner:
@@ -73,17 +77,32 @@ type corner struct {
 type cornerPower struct {
 	w, rot complex128
 	beta   float64
+	// pivot, at a hole's corner, is a point inside the hole: ζ is then
+	// (z − w)/(z − pivot), whose principal branch cuts only the segment from
+	// the corner to the pivot, inside the hole (the exterior bisector would
+	// run through the hole into the region).
+	pivot    complex128
+	hasPivot bool
+}
+
+// zeta is ζ at z and dζ/dz.
+func (c cornerPower) zeta(z complex128) (complex128, complex128) {
+	if c.hasPivot {
+		d := z - c.pivot
+		return (z - c.w) / d, (c.w - c.pivot) / (d * d)
+	}
+	return (z - c.w) * c.rot, c.rot
 }
 
 // at is ζ^β and its derivative in z; rot carries the scale that makes
 // |ζ| ≤ 1 on the region (high powers then stay small, not huge).
 func (c cornerPower) at(z complex128, _ float64) (f, df complex128) {
-	zeta := (z - c.w) * c.rot
+	zeta, dz := c.zeta(z)
 	if zeta == 0 {
 		return 0, 0
 	}
 	f = cmplx.Pow(zeta, complex(c.beta, 0))
-	return f, complex(c.beta, 0) * f / zeta * c.rot
+	return f, complex(c.beta, 0) * f / zeta * dz
 }
 
 // cornerPowers are a corner's exponents (k − offset)/α, k = 1..K, for its
@@ -98,7 +117,7 @@ func cornerPowers(c corner, K int) []cornerPower {
 	for k := 1; k <= K; k++ {
 		for _, off := range c.families {
 			if beta := (float64(k) - off) / c.angle; math.Abs(beta-math.Round(beta)) > 1e-9 && beta <= 24 {
-				out = append(out, cornerPower{w: c.w, rot: rot, beta: beta})
+				out = append(out, cornerPower{w: c.w, rot: rot, beta: beta, pivot: c.pivot, hasPivot: c.hasPivot})
 			}
 		}
 	}

@@ -195,11 +195,12 @@ func torsionFigures(s *Solution, rep *Report) ([]Figure, error) {
 	var warnings []string
 	for _, side := range s.Sides {
 		cond := side.Condition
-		_, hole := m.Holes[cond.Side]
+		key := holeGroup(cond.Side) // a polygon hole's edges are one hole
+		_, hole := m.Holes[key]
 		var v series.Coef
 		switch {
 		case cond.Kind == Floating:
-			v = s.Floating[cond.Side]
+			v = s.Floating[key]
 		case cond.Kind == Dirichlet && cond.G.IsExact() && !cond.G.Exact.HasAngle():
 			k, isConst := cond.G.Exact.Const()
 			if !isConst {
@@ -216,8 +217,11 @@ func torsionFigures(s *Solution, rep *Report) ([]Figure, error) {
 			outer = &v
 			continue
 		}
-		holeValue[cond.Side] = v
-		if cond.Kind == Dirichlet { // single-valued warping asks ∮ ∂φ/∂n ds = −c·A_k (the region's outward normal)
+		if prev, seen := holeValue[key]; seen && !prev.Equal(v) {
+			return nil, unsupported("torsion figures need one value of u on each hole; %s takes %s and %s", key, prev.Text(), v.Text())
+		}
+		holeValue[key] = v
+		if cond.Kind == Dirichlet && key == cond.Side { // single-valued warping asks ∮ ∂φ/∂n ds = −c·A_k (the region's outward normal)
 			want := c.Neg().Mul(m.Holes[cond.Side])
 			for _, f := range rep.Sides {
 				if f.Side != cond.Side {

@@ -104,6 +104,15 @@ func solveSection(d section, p *posed) (*Solution, error) {
 			conds[k].quad = newSideInterpolant(quad, side, p.tol)
 		}
 	}
+	for k := range conds { // a hole's sides share its value and its flux
+		conds[k].group = k
+		for j := 0; j < k; j++ {
+			if holeGroup(geo.shape.Sides[j].Name) == holeGroup(geo.shape.Sides[k].Name) {
+				conds[k].group = j
+				break
+			}
+		}
+	}
 	markSingularCorners(&geo, conds)
 	scale := 0.0 // the problem's size on the boundary: the data and u_p's operator
 	for k, side := range geo.shape.Sides {
@@ -191,11 +200,11 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	sol := &Solution{Domain: d, Source: p.f, Particular: up, U: up, Rules: rules, Section: parts, stages: []stage{parts}, Numeric: true,
 		Quadrature: quad, Rest: p.rest}
 	for k, c := range conds {
-		if c.floating {
+		if c.floating && c.group == k {
 			if sol.Floating == nil {
 				sol.Floating = map[string]series.Coef{}
 			}
-			name := geo.shape.Sides[k].Name
+			name := holeGroup(geo.shape.Sides[k].Name)
 			sol.Floating[name] = decimal(best.floatingU[k])
 			sol.Notes = append(sol.Notes, fmt.Sprintf("u on %s is the constant %s, found with the fit from its net outward flux %.12g", name, series.Const(sol.Floating[name]).TextApprox(), c.flux))
 		}
@@ -303,7 +312,8 @@ func solveSection(d section, p *posed) (*Solution, error) {
 // u_p's share (its operator value) to subtract.
 type sideCondition struct {
 	floating bool             // u is one unknown constant U here, with net outward flux
-	flux     float64          // the flux, for a floating side
+	flux     float64          // the flux, for a floating side (of its whole hole)
+	group    int              // the first side of its hole: one U, one flux for all its sides
 	quad     *sideInterpolant // the numeric particular part on the side, where the source has one
 	a, b     float64
 	g        series.CompiledField
@@ -492,7 +502,7 @@ func (sc sideCondition) point(t, x, y, nx, ny float64, side int, geo *sectionGeo
 	g, op := sc.parts(t, x, y, nx, ny)
 	p := boundaryPoint{z: complex(x, y), nu: complex(nx, ny), a: sc.a, b: sc.b, data: g - op, side: side, w: 1, floating: -1}
 	if sc.floating {
-		p.floating = side
+		p.floating = sc.group
 	}
 	if sc.b != 0 {
 		for _, c := range geo.corners {
@@ -522,11 +532,18 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 	if g.mobius != nil {
 		blocks = 3 // the polynomial, and the Möbius series both ways
 	}
-	uniform := 3*(2*degree+2)*blocks/max(len(sides), 1)/2 + 12
-	if len(g.holes) > 0 {
-		// Around a hole its Laurent terms and the polynomial both act, up
-		// to the degree each way: a hole's circle needs its own share.
-		uniform = max(uniform, 6*degree+12)
+	base := 3*(2*degree+2)*blocks/max(len(sides), 1)/2 + 12
+	// Around a hole its Laurent terms and the polynomial both act, up to
+	// the degree each way: a hole needs its own share, split among its sides.
+	members := map[string]int{}
+	for _, s := range sides {
+		members[holeGroup(s.Name)]++
+	}
+	perSide := func(k int) int {
+		if len(g.holes) == 0 {
+			return base
+		}
+		return max(base, (6*degree+12)/members[holeGroup(sides[k].Name)])
 	}
 	dists := func(k int) []float64 { return poleDistances(poles[k], g.scale) }
 	add := func(to *[]boundaryPoint, k int, t float64) {
@@ -537,6 +554,7 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 		*to = append(*to, conds[k].point(t, x, y, nx, ny, k, &g))
 	}
 	for k, side := range sides {
+		uniform := perSide(k)
 		warp := func(t float64) float64 { return t }
 		if k < len(g.warp) && g.warp[k] != nil {
 			warp = g.warp[k]
@@ -641,10 +659,11 @@ func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
 		df += h.cMobius[k] * dv
 	}
 	// A corner's powers share ζ and log ζ: ζ^β = exp(β log ζ).
-	var w, zeta, logZeta complex128
+	var w, zeta, dzeta, logZeta complex128
 	for k, c := range h.powers {
 		if k == 0 || c.w != w {
-			w, zeta = c.w, (z-c.w)*c.rot
+			w = c.w
+			zeta, dzeta = c.zeta(z)
 			logZeta = cmplx.Log(zeta)
 		}
 		if zeta == 0 {
@@ -652,7 +671,7 @@ func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
 		}
 		v := cmplx.Exp(complex(c.beta, 0) * logZeta)
 		f += h.cPower[k] * v
-		df += h.cPower[k] * complex(c.beta, 0) * v / zeta * c.rot
+		df += h.cPower[k] * complex(c.beta, 0) * v / zeta * dzeta
 	}
 	return f, df
 }
@@ -944,7 +963,7 @@ func markSingularCorners(g *sectionGeometry, conds []sideCondition) {
 	for k := range g.corners {
 		c := &g.corners[k]
 		c.families = nil
-		if rayCrosses(g.shape, c.w, c.dir) {
+		if !c.hasPivot && rayCrosses(g.shape, c.w, c.dir) {
 			continue // the poles alone
 		}
 		on, back := cornerSides(g, k)
@@ -1055,6 +1074,8 @@ type FittedPart struct {
 	D         []complex128
 	W, Rot, E []complex128
 	Beta      []float64
+	Pivoted   bool // some powers are about a hole's inner point (not in the tables)
+	Holed     bool // the holes' logarithms and Laurent terms (not in the tables)
 }
 
 // Fitted is the fitted part in numbers.
@@ -1063,7 +1084,9 @@ func (sp *SectionParts) Fitted() FittedPart {
 	out := FittedPart{Poles: h.poles, C: h.cPole, Centre: h.centre, Scale: h.scale, H: h.hess, D: h.cPoly, E: h.cPower}
 	for _, c := range h.powers {
 		out.W, out.Rot, out.Beta = append(out.W, c.w), append(out.Rot, c.rot), append(out.Beta, c.beta)
+		out.Pivoted = out.Pivoted || c.hasPivot
 	}
+	out.Holed = len(h.logs) > 0
 	return out
 }
 
@@ -1073,24 +1096,40 @@ func (sp *SectionParts) Fitted() FittedPart {
 func floatingConstraints(geo sectionGeometry, conds []sideCondition, up series.Sum, env series.Env) ([]fluxConstraint, error) {
 	var out []fluxConstraint
 	for k, c := range conds {
-		if !c.floating {
+		if !c.floating || c.group != k {
 			continue
 		}
-		flux, err := compileSideCondition(Condition{Kind: Neumann, G: series.ExactField(series.Sum{})}, up, env)
-		if err != nil {
-			return nil, err
-		}
-		flux.quad = c.quad
-		side := geo.shape.Sides[k]
 		fc := fluxConstraint{side: k, target: c.flux}
-		const n = 256
-		for j := 0; j < n; j++ {
-			t := float64(j) / n
-			x, y, nx, ny := side.At(t)
-			_, dn := flux.parts(t, x, y, nx, ny)
-			w := side.Length / n
-			fc.target -= w * dn
-			fc.pts = append(fc.pts, boundaryPoint{z: complex(x, y), nu: complex(nx, ny), b: 1, w: w, floating: -1})
+		for m, member := range conds { // every side of the hole
+			if member.group != k {
+				continue
+			}
+			flux, err := compileSideCondition(Condition{Kind: Neumann, G: series.ExactField(series.Sum{})}, up, env)
+			if err != nil {
+				return nil, err
+			}
+			flux.quad = member.quad
+			side := geo.shape.Sides[m]
+			add := func(t, w float64) {
+				x, y, nx, ny := side.At(t)
+				_, dn := flux.parts(t, x, y, nx, ny)
+				fc.target -= w * dn
+				fc.pts = append(fc.pts, boundaryPoint{z: complex(x, y), nu: complex(nx, ny), b: 1, w: w, floating: -1})
+			}
+			if geo.starts[m] < 0 { // a circle: the trapezoidal rule, spectral for a periodic integrand
+				const n = 256
+				for j := 0; j < n; j++ {
+					add(float64(j)/n, side.Length/n)
+				}
+				continue
+			}
+			edges := gradedEdges() // an edge: panels graded towards its corners
+			for i := 0; i+1 < len(edges); i++ {
+				lo, hi := edges[i], edges[i+1]
+				for j, x := range ansatz.GaussX {
+					add((lo+hi)/2+(hi-lo)/2*x, ansatz.GaussW[j]*(hi-lo)/2*side.Length)
+				}
+			}
 		}
 		out = append(out, fc)
 	}

@@ -230,11 +230,36 @@ func Condition(text string, sides []string, env series.Env) (domain.Condition, e
 
 // ConditionIn is Condition for an unknown with another name (see Unknown).
 func ConditionIn(unknown, text string, sides []string, env series.Env) (domain.Condition, error) {
-	lw := &lowerer{label: "--bc", input: text, env: env, clauses: true, unknown: unknown}
+	// A dotted side name (a polygon hole's edge, hole1.s2) is read as a
+	// name with an underscore, of the same length, so that columns stay.
+	input, dotted := text, map[string]string{}
+	for _, s := range sides {
+		if !strings.Contains(s, ".") {
+			continue
+		}
+		alias := strings.ReplaceAll(s, ".", "_")
+		dotted[alias] = s
+		trimmed := strings.TrimLeft(input, " \t")
+		lead := len(input) - len(trimmed)
+		if rest, ok := strings.CutPrefix(trimmed, s); ok && strings.HasPrefix(strings.TrimLeft(rest, " \t"), ":") {
+			input = input[:lead] + alias + rest
+		}
+	}
+	lw := &lowerer{label: "--bc", input: input, env: env, clauses: true, unknown: unknown}
 	st, err := lw.statement()
 	if err != nil {
+		var pe *Error
+		if errors.As(err, &pe) {
+			pe.Input = text
+		}
 		return domain.Condition{}, err
 	}
+	if st.Side != nil {
+		if name, ok := dotted[st.Side.Name]; ok {
+			st.Side.Name = name
+		}
+	}
+	lw.input = text
 	cond := domain.Condition{Text: text}
 	switch {
 	case st.Side != nil:
@@ -486,19 +511,52 @@ func Vertices(label, text string, env series.Env) (xs, ys []series.Coef, offsets
 	return xs, ys, offsets, nil
 }
 
-// Hole reads a hole, "circle CX,CY,R": the word, then the centre's
-// coordinates (any constants) and the radius (positive), commas between.
-func Hole(label, text string, env series.Env) (cx, cy, r series.Coef, err error) {
+// HoleSpec is a hole as given: a circle (X, Y, R) or a polygon's vertices.
+type HoleSpec struct {
+	Polygon     bool
+	X, Y, R     series.Coef
+	XS, YS      []series.Coef
+	Offsets     []int // where each polygon vertex starts in the text
+	VertexStart int   // where the vertices start
+}
+
+// HoleOf reads a hole, "circle CX,CY,R" or "polygon X1,Y1 X2,Y2 …".
+func HoleOf(label, text string, env series.Env) (HoleSpec, error) {
 	lw := &lowerer{label: label, input: text, env: env}
 	trimmed := strings.TrimLeft(text, " \t")
 	lead := len(text) - len(trimmed)
 	word, rest, _ := strings.Cut(trimmed, " ")
 	switch word {
 	case "circle":
-	case "ellipse", "polygon":
-		return cx, cy, r, lw.fail(lexer.Position{Offset: lead}, "holes are circles for now: \"circle CX,CY,R\"")
-	default:
-		return cx, cy, r, lw.fail(lexer.Position{Offset: lead}, "a hole is \"circle CX,CY,R\", not %q", word)
+		x, y, r, err := Hole(label, text, env)
+		return HoleSpec{X: x, Y: y, R: r}, err
+	case "polygon":
+		start := lead + len(word) + 1
+		xs, ys, offs, err := Vertices(label, rest, env)
+		if err != nil {
+			var pe *Error
+			if errors.As(err, &pe) {
+				pe.Input, pe.Offset = text, pe.Offset+start
+			}
+			return HoleSpec{}, err
+		}
+		for i := range offs {
+			offs[i] += start
+		}
+		return HoleSpec{Polygon: true, XS: xs, YS: ys, Offsets: offs, VertexStart: start}, nil
+	}
+	return HoleSpec{}, lw.fail(lexer.Position{Offset: lead}, "a hole is \"circle CX,CY,R\" or \"polygon X1,Y1 X2,Y2 ...\", not %q", word)
+}
+
+// Hole reads a circular hole, "circle CX,CY,R": the word, then the centre's
+// coordinates (any constants) and the radius (positive), commas between.
+func Hole(label, text string, env series.Env) (cx, cy, r series.Coef, err error) {
+	lw := &lowerer{label: label, input: text, env: env}
+	trimmed := strings.TrimLeft(text, " \t")
+	lead := len(text) - len(trimmed)
+	word, rest, _ := strings.Cut(trimmed, " ")
+	if word != "circle" {
+		return cx, cy, r, lw.fail(lexer.Position{Offset: lead}, "a circular hole is \"circle CX,CY,R\", not %q", word)
 	}
 	off := lead + len(word) + 1
 	parts := strings.Split(rest, ",")

@@ -96,7 +96,7 @@ func (p *problemFlags) bind(f *pflag.FlagSet) {
 	for _, k := range regionKinds {
 		p.regions[k.flag] = f.String(k.flag, "", k.usage)
 	}
-	f.StringArrayVar(&p.holes, "hole", nil, `a hole taken out of --disk, --rect, --ellipse or --polygon: "circle CX,CY,R" (repeatable); the K-th hole's circle is side holeK`)
+	f.StringArrayVar(&p.holes, "hole", nil, `a hole taken out of --disk, --rect, --ellipse or --polygon: "circle CX,CY,R" or "polygon X1,Y1 X2,Y2 ..." (repeatable); the K-th hole is side holeK (a polygon hole's edges holeK.s1, holeK.s2, ...)`)
 	f.StringArrayVar(&p.bcs, "bc", nil, `boundary condition "[SIDE:] u = g", "dn(u) = g", "dn(u) + h*u = g" or "u = const, flux = Q" (one unknown value with net outward flux Q; circles); one per side, repeatable; one without SIDE applies to every side not named`)
 	f.StringArrayVar(&p.lets, "let", nil, `parameter values "a=0.05,q=2e5" (repeatable)`)
 	f.StringVar(&p.fix, "fix", "", `pin the free constant of a pure Neumann problem: "u(R0, THETA0) = V" (polar point)`)
@@ -206,10 +206,34 @@ func conditions(unknown string, bcs []string, sides []string, env series.Env) ([
 	var conds []domain.Condition
 	var general *domain.Condition
 	given := map[string]string{}
+	// A polygon hole's edges holeK.s1, holeK.s2, … take a condition by the
+	// hole's name, holeK, too.
+	groups := map[string][]string{}
+	named := append([]string(nil), sides...)
+	for _, s := range sides {
+		if g, _, ok := strings.Cut(s, "."); ok {
+			if len(groups[g]) == 0 {
+				named = append(named, g)
+			}
+			groups[g] = append(groups[g], s)
+		}
+	}
 	for _, bc := range bcs {
-		c, err := parse.ConditionIn(unknown, bc, sides, env)
+		c, err := parse.ConditionIn(unknown, bc, named, env)
 		if err != nil {
 			return nil, err
+		}
+		if members, ok := groups[c.Side]; ok {
+			for _, m := range members {
+				if prev, dup := given[m]; dup {
+					return nil, &parse.Error{Label: "--bc", Input: bc, Msg: fmt.Sprintf("side %s already has a condition (%q); give one per side", m, prev)}
+				}
+				mc := c
+				mc.Side = m
+				given[m] = bc
+				conds = append(conds, mc)
+			}
+			continue
 		}
 		lead := len(bc) - len(strings.TrimLeft(bc, " "))
 		switch prev, dup := given[c.Side]; {
@@ -325,11 +349,22 @@ func withHoles(d domain.Domain, holes []string, env series.Env) (domain.Domain, 
 	}
 	h := domain.Holed{Outer: d}
 	for _, text := range holes {
-		x, y, r, err := parse.Hole("--hole", text, env)
+		spec, err := parse.HoleOf("--hole", text, env)
 		if err != nil {
 			return nil, err
 		}
-		h.Holes = append(h.Holes, domain.CircleHole{X: x, Y: y, R: r})
+		if spec.Polygon {
+			if fx, errX := floatsOf(spec.XS, env); errX == nil {
+				if fy, errY := floatsOf(spec.YS, env); errY == nil {
+					if k, reason := domain.PolygonFault(fx, fy); k >= 0 {
+						return nil, &parse.Error{Label: "--hole", Input: text, Offset: spec.Offsets[min(k, len(spec.Offsets)-1)], Msg: reason}
+					}
+				}
+			}
+			h.Holes = append(h.Holes, domain.CircleHole{Poly: domain.Polygon{X: spec.XS, Y: spec.YS}})
+			continue
+		}
+		h.Holes = append(h.Holes, domain.CircleHole{X: spec.X, Y: spec.Y, R: spec.R})
 	}
 	if k, reason := h.HoleFault(env); k >= 0 {
 		return nil, &parse.Error{Label: "--hole", Input: holes[k], Offset: 0, Msg: reason}

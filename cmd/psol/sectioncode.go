@@ -191,6 +191,12 @@ func writeSectionCode(w io.Writer, l series.Lang, pr *problem, sol *domain.Solut
 	}
 	shape := sectionCodeShapes[l.Name]
 	f := sol.Section.Fitted()
+	if f.Holed {
+		return &domain.Unsupported{Reason: "generated code for a section with holes is not written yet; --grid N --csv FILE gives the values"}
+	}
+	if f.Pivoted {
+		return &domain.Unsupported{Reason: "generated code for a polygon hole's corner functions is not written yet; --grid N --csv FILE gives the values"}
+	}
 	split := func(z []complex128) (re, im []float64) {
 		for _, c := range z {
 			re, im = append(re, real(c)), append(im, imag(c))
