@@ -69,6 +69,18 @@ type corner struct {
 	// hole (cornerPower.pivot), where hasPivot.
 	pivot    complex128
 	hasPivot bool
+	// maxDist caps the poles' distance (0: none): half way to where the
+	// exterior bisector meets a side again.
+	maxDist float64
+}
+
+// poleScale is the poles' largest distance: the section's size, or less
+// where the bisector meets a side.
+func (c corner) poleScale(s float64) float64 {
+	if c.maxDist > 0 {
+		return math.Min(s, c.maxDist)
+	}
+	return s
 }
 
 // cornerPower is one singular function at a corner:
@@ -285,7 +297,7 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 		}
 	}
 	for k, c := range corners {
-		h.poles = append(h.poles, lightningPoles(c, scale, n[k])...)
+		h.poles = append(h.poles, lightningPoles(c, c.poleScale(scale), n[k])...)
 		h.powers = append(h.powers, cornerPowers(c, powers)...)
 	}
 	Z := make([]complex128, len(pts))

@@ -545,7 +545,7 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 		}
 		return max(base, (6*degree+12)/members[holeGroup(sides[k].Name)])
 	}
-	dists := func(k int) []float64 { return poleDistances(poles[k], g.scale) }
+	dists := func(k int) []float64 { return poleDistances(poles[k], g.corners[k].poleScale(g.scale)) }
 	add := func(to *[]boundaryPoint, k int, t float64) {
 		if t*sides[k].Length < 0.3*nearest*g.scale || (1-t)*sides[k].Length < 0.3*nearest*g.scale {
 			return
@@ -799,12 +799,16 @@ func xyExtremes(shape Shape, inside func(x, y float64) bool, ev *Evaluator) (max
 	b := shape.Box
 	maxV, minV = math.Inf(-1), math.Inf(1)
 	var pMax, pMin [2]float64
+	// A new extreme must beat the old by more than rounding: where u takes
+	// its extreme along a whole side (a hole held at the largest value) the
+	// first point of the scan is kept, whatever the CPU's rounding.
+	beats := func(v, old float64) bool { return v > old+1e-12*math.Max(1, math.Abs(old)) }
 	try := func(x, y float64) {
 		v := u(x, y)
-		if v > maxV {
+		if math.IsInf(maxV, -1) || beats(v, maxV) {
 			maxV, pMax = v, [2]float64{x, y}
 		}
-		if v < minV {
+		if math.IsInf(minV, 1) || beats(-v, -minV) {
 			minV, pMin = v, [2]float64{x, y}
 		}
 	}
@@ -832,7 +836,7 @@ func xyExtremes(shape Shape, inside func(x, y float64) bool, ev *Evaluator) (max
 				if !inside(q[0], q[1]) {
 					continue
 				}
-				if v := sign * u(q[0], q[1]); v > best {
+				if v := sign * u(q[0], q[1]); beats(v, best) {
 					best, p, moved = v, q, true
 				}
 			}
@@ -963,7 +967,14 @@ func markSingularCorners(g *sectionGeometry, conds []sideCondition) {
 	for k := range g.corners {
 		c := &g.corners[k]
 		c.families = nil
-		if !c.hasPivot && rayCrosses(g.shape, c.w, c.dir) {
+		// The poles stay outside the region: at most half way to where
+		// their ray meets a side (a hole's far side, a non-convex outline).
+		hit := rayHit(g.shape, c.w, c.dir)
+		c.maxDist = 0
+		if !math.IsInf(hit, 1) {
+			c.maxDist = hit / 2
+		}
+		if !c.hasPivot && !math.IsInf(hit, 1) {
 			continue // the poles alone
 		}
 		on, back := cornerSides(g, k)
@@ -1001,20 +1012,39 @@ func cornerSides(g *sectionGeometry, k int) (on, back int) {
 
 // rayCrosses reports whether the ray from w along dir meets a side that
 // does not end at w.
-func rayCrosses(shape Shape, w, dir complex128) bool {
-	far := w + dir*complex(1e6*math.Max(shape.Box.X1-shape.Box.X0, shape.Box.Y1-shape.Box.Y0), 0)
+func rayCrosses(shape Shape, w, dir complex128) bool { return !math.IsInf(rayHit(shape, w, dir), 1) }
+
+// rayHit is the distance along the ray from w in the direction dir to the
+// first side it meets (each side as 64 chords; those at w itself left out),
+// +Inf where it meets none.
+func rayHit(shape Shape, w, dir complex128) float64 {
+	size := math.Max(shape.Box.X1-shape.Box.X0, shape.Box.Y1-shape.Box.Y0)
+	best := math.Inf(1)
 	for _, side := range shape.Sides {
-		x0, y0, _, _ := side.At(0)
-		x1, y1, _, _ := side.At(1)
-		a, b := complex(x0, y0), complex(x1, y1)
-		if abs(a-w) < 1e-12 || abs(b-w) < 1e-12 {
-			continue
-		}
-		if segmentsMeet(real(w), imag(w), real(far), imag(far), x0, y0, x1, y1, 0) {
-			return true
+		const chords = 64
+		px, py, _, _ := side.At(0)
+		for j := 1; j <= chords; j++ {
+			qx, qy, _, _ := side.At(float64(j) / chords)
+			a, b := complex(px, py), complex(qx, qy)
+			px, py = qx, qy
+			if abs(a-w) < 1e-9*size || abs(b-w) < 1e-9*size {
+				continue
+			}
+			// Solve w + t·dir = a + s·(b − a), t > 0, 0 ≤ s ≤ 1.
+			e := b - a
+			den := imag(cmplx.Conj(dir) * e)
+			if den == 0 {
+				continue
+			}
+			d := a - w
+			t := imag(cmplx.Conj(d)*e) / den
+			s := imag(cmplx.Conj(d)*dir) / den
+			if t > 0 && s >= 0 && s <= 1 && t < best {
+				best = t
+			}
 		}
 	}
-	return false
+	return best
 }
 
 // neumannBalance is the solvability of the pure Neumann problem: the net
