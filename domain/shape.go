@@ -126,6 +126,10 @@ func segmentPath(name string, x0, y0, x1, y1 float64) SidePath {
 	}}
 }
 
+// Floats evaluates coefficients with the parameters' values, stopping at
+// the first error.
+func Floats(env series.Env, cs ...series.Coef) ([]float64, error) { return floats(env, cs...) }
+
 // floats evaluates coefficients with the parameters' values, stopping at the first error.
 func floats(env series.Env, cs ...series.Coef) ([]float64, error) {
 	out := make([]float64, len(cs))

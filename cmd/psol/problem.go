@@ -68,8 +68,8 @@ func readPolygon(label, text string, env series.Env) (domain.Domain, error) {
 		return nil, err
 	}
 	p := domain.Polygon{X: xs, Y: ys}
-	fx, errX := floatsOf(xs, env)
-	fy, errY := floatsOf(ys, env)
+	fx, errX := domain.Floats(env, xs...)
+	fy, errY := domain.Floats(env, ys...)
 	if errX != nil || errY != nil {
 		return p, nil // parameters without values: the solve says what it needs
 	}
@@ -79,17 +79,6 @@ func readPolygon(label, text string, env series.Env) (domain.Domain, error) {
 	return p, nil
 }
 
-func floatsOf(cs []series.Coef, env series.Env) ([]float64, error) {
-	out := make([]float64, len(cs))
-	for i, c := range cs {
-		v, err := c.Float(env)
-		if err != nil {
-			return nil, err
-		}
-		out[i] = v
-	}
-	return out, nil
-}
 
 func (p *problemFlags) bind(f *pflag.FlagSet) {
 	p.regions = map[string]*string{}
@@ -354,8 +343,8 @@ func withHoles(d domain.Domain, holes []string, env series.Env) (domain.Domain, 
 			return nil, err
 		}
 		if spec.Polygon {
-			if fx, errX := floatsOf(spec.XS, env); errX == nil {
-				if fy, errY := floatsOf(spec.YS, env); errY == nil {
+			if fx, errX := domain.Floats(env, spec.XS...); errX == nil {
+				if fy, errY := domain.Floats(env, spec.YS...); errY == nil {
 					if k, reason := domain.PolygonFault(fx, fy); k >= 0 {
 						return nil, &parse.Error{Label: "--hole", Input: text, Offset: spec.Offsets[min(k, len(spec.Offsets)-1)], Msg: reason}
 					}
