@@ -79,7 +79,6 @@ func readPolygon(label, text string, env series.Env) (domain.Domain, error) {
 	return p, nil
 }
 
-
 func (p *problemFlags) bind(f *pflag.FlagSet) {
 	p.regions = map[string]*string{}
 	for _, k := range regionKinds {
