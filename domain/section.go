@@ -686,14 +686,6 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 	if err != nil {
 		return err
 	}
-	c, err := d.integral(s.Particular)
-	if err != nil {
-		return err
-	}
-	_, v, err := sub(c, env)
-	if err != nil {
-		return err
-	}
 	if s.Section == nil { // a closed solution: every figure exact
 		c, err := d.integral(s.U)
 		if err != nil {
@@ -715,6 +707,14 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 		inside := func(x, y float64) bool { ok, err := ContainsXY(d, x, y, env); return ok && err == nil }
 		rep.Max, rep.ArgMax, rep.Min, rep.ArgMin = xyExtremes(shape, inside, ev)
 		return nil
+	}
+	c, err := d.integral(s.Particular)
+	if err != nil {
+		return err
+	}
+	_, v, err := sub(c, env)
+	if err != nil {
+		return err
 	}
 	rep.Integral = v + sectionHarmonicIntegral(s.Section.fit, shape)
 	if c, err := d.integral(s.Source); err == nil {
@@ -881,13 +881,7 @@ func shapeClaimSide(d Domain, side string, cond Condition, claim series.Field, e
 		return ClaimCheck{}, fmt.Errorf("%s has no side %s", d.Describe(), side)
 	}
 	h := 1e-5 * math.Max(shape.Box.X1-shape.Box.X0, shape.Box.Y1-shape.Box.Y0)
-	polar := func(x, y float64) (float64, float64) {
-		th := math.Atan2(y, x)
-		if th < 0 {
-			th += 2 * math.Pi
-		}
-		return math.Hypot(x, y), th
-	}
+	polar := polarOf
 	return sampledSideResidual(side, cond, claim, env, func(u series.CompiledField, k int) (float64, float64, float64, error) {
 		x, y, nx, ny := path.At((float64(k) + 0.5) / 48)
 		r, th := polar(x, y)
@@ -908,13 +902,9 @@ func shapeSamples(d Domain, env series.Env) ([][2]float64, error) {
 	var pts [][2]float64
 	for i := 1; i < 12; i++ {
 		for j := 1; j < 12; j++ {
-			x, y := b.X0+(b.X1-b.X0)*float64(i)/12, b.Y0+(b.Y1-b.Y0)*float64(j)/12
-			th := math.Atan2(y, x)
-			if th < 0 {
-				th += 2 * math.Pi
-			}
-			if ok, _ := d.Contains(math.Hypot(x, y), th, env); ok {
-				pts = append(pts, [2]float64{math.Hypot(x, y), th})
+			r, th := polarOf(b.X0+(b.X1-b.X0)*float64(i)/12, b.Y0+(b.Y1-b.Y0)*float64(j)/12)
+			if ok, _ := d.Contains(r, th, env); ok {
+				pts = append(pts, [2]float64{r, th})
 			}
 		}
 	}
