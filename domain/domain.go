@@ -151,11 +151,14 @@ type Solution struct {
 	Rect *RectParts
 	// Section is a polygon's or an ellipse's numeric harmonic part.
 	Section *SectionParts
-	stages  []stage       // region parts that evaluation attaches (see Compile)
-	Rules   []ansatz.Step // how each source term was solved
-	Steps   []string      // how the harmonic part was found, beyond the per-mode records
-	modes   []modeRecord
-	Notes   []string
+	// Points is the point sources' field u_s and how it meets the
+	// conditions, where the source has point sources; U is then w, and u = u_s + U.
+	Points *PointPart
+	stages []stage       // region parts that evaluation attaches (see Compile)
+	Rules  []ansatz.Step // how each source term was solved
+	Steps  []string      // how the harmonic part was found, beyond the per-mode records
+	modes  []modeRecord
+	Notes  []string
 	// Quadrature is the particular solution of the source's part with no
 	// closed form, and Rest that part.
 	Quadrature *ansatz.Quadrature
@@ -182,6 +185,9 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 	}
 	if opt.Terms == 0 {
 		opt.Terms = PointTerms
+	}
+	if len(source.Points) > 0 {
+		return solvePoints(d, source, conds, opt)
 	}
 	switch {
 	case source.IsPiecewise() || source.Rest.HasChoice():
@@ -311,7 +317,7 @@ func freeName(used map[string]bool) string {
 // IsClosed reports a solution whose U is the whole answer: no series, no
 // numeric part, and on a rectangle no side series or waves.
 func (s *Solution) IsClosed() bool {
-	if s.Series != nil || s.Numeric || s.Quadrature != nil {
+	if s.Series != nil || s.Numeric || s.Quadrature != nil || s.Points != nil {
 		return false
 	}
 	if s.Rect != nil {

@@ -22,6 +22,7 @@ type Evaluator struct {
 	sq      *ansatz.SineQuadrature // a rectangle's numeric particular part
 	dataErr float64                // what numeric traces bring to every value
 	parts   []xyPart               // numeric parts evaluated in x and y (a section's harmonic part)
+	pts     *pointEval             // the point sources' field u_s, where the source has any
 }
 
 // xyPart is a numeric part of a solution evaluated in x and y.
@@ -132,6 +133,15 @@ func (e *Evaluator) atClosedAndSeries(r, theta float64) (u, errEst float64, term
 		u, errEst = e.atXYTail(r*math.Cos(theta), r*math.Sin(theta))
 		return u, errEst, 0
 	}
+	u, errEst, terms = e.atPolar(r, theta)
+	if e.pts != nil {
+		u += e.pts.at(r*math.Cos(theta), r*math.Sin(theta))
+	}
+	return u, errEst, terms
+}
+
+// atPolar is the closed parts and the polar series at (r, θ).
+func (e *Evaluator) atPolar(r, theta float64) (u, errEst float64, terms int) {
 	u = e.closed.At(r, theta) + e.partsAt(r, theta)
 	if e.ser == nil {
 		return u, 0, 0
@@ -188,6 +198,13 @@ func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
 			}
 		}
 	}
+	if e.pts != nil {
+		for i, r := range rs {
+			for j, th := range thetas {
+				u[i][j] += e.pts.at(r*math.Cos(th), r*math.Sin(th))
+			}
+		}
+	}
 	// The numeric particular part, a radius at a time (its modes are per
 	// radius); the data's share of the error is the caller's.
 	if e.quad != nil {
@@ -207,10 +224,13 @@ func (e *Evaluator) atXYTail(x, y float64) (u, tail float64) {
 	if v, ok := e.walls.on(x, y); ok {
 		return v, 0
 	}
+	if e.pts != nil {
+		u = e.pts.at(x, y)
+	}
 	if e.xy != nil {
-		u = e.xy.At(x, y) + e.waves.At(x, y)
+		u += e.xy.At(x, y) + e.waves.At(x, y)
 	} else {
-		u = e.closed.At(math.Hypot(x, y), math.Atan2(y, x)) + e.waves.At(x, y)
+		u += e.closed.At(math.Hypot(x, y), math.Atan2(y, x)) + e.waves.At(x, y)
 	}
 	if e.sq != nil {
 		v, t := e.sq.At(x, y)

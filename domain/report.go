@@ -54,6 +54,9 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 	if err := s.Domain.figures(s, ev, rep, env, tol); err != nil {
 		return nil, err
 	}
+	// The region's figures cover w; u_s's share is added below (pointFigures).
+	pts := ev.pts
+	ev.pts = nil
 	if A, err := rep.Area.Float(env); err == nil && A > 0 {
 		rep.Mean = rep.Integral / A
 	}
@@ -67,6 +70,13 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 		for _, f := range rep.Sides {
 			rep.Flux += f.Value
 		}
+	}
+	ev.pts = pts
+	if s.Points != nil {
+		if err := s.pointFigures(rep, shape, env); err != nil {
+			return nil, err
+		}
+		return rep, nil
 	}
 	inside := func(x, y float64) bool {
 		th := math.Atan2(y, x)

@@ -12,7 +12,7 @@ import (
 
 // Equation reads "c*lap(u) = f", or a bare source f, as the source of Δu = f.
 func Equation(text string, env series.Env) (series.Field, error) {
-	lw := &lowerer{label: "equation", input: text, env: env}
+	lw := &lowerer{label: "equation", input: text, env: env, points: true}
 	st, err := lw.statement()
 	if err != nil {
 		return series.Field{}, err

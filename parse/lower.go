@@ -22,6 +22,7 @@ type lowerer struct {
 	clauses      bool   // a second clause ("u = const, flux = Q") is allowed: conditions only
 	work         int    // term products done so far (see MaxWork)
 	unknown      string // the unknown's name, "u" unless the equation names another (lap(T))
+	points       bool   // delta(...) is allowed: the equation's source only
 }
 
 // unk is the unknown's name.
@@ -75,6 +76,12 @@ func (lw *lowerer) choice(c *choice) (value, error) {
 	if a.hasUnknown() || b.hasUnknown() {
 		return value{}, lw.fail(c.Pos, "%s may not appear inside cond ? a : b", lw.unk())
 	}
+	if err := lw.noPoints(a, c.Then.Pos, "inside cond ? a : b"); err != nil {
+		return value{}, err
+	}
+	if err := lw.noPoints(b, c.Else.Pos, "inside cond ? a : b"); err != nil {
+		return value{}, err
+	}
 	if numeric {
 		return lw.numericChoice(c, a, b)
 	}
@@ -101,6 +108,9 @@ func (lw *lowerer) numericChoice(c *choice, a, b value) (value, error) {
 		}
 		if v.hasUnknown() {
 			return value{}, lw.fail(sd.Pos, "%s may not appear in a condition", lw.unk())
+		}
+		if err := lw.noPoints(v, sd.Pos, "in a condition"); err != nil {
+			return value{}, err
 		}
 		fields = append(fields, v.f)
 	}
@@ -231,6 +241,9 @@ func (lw *lowerer) mul(v value, vpos lexer.Position, w value, wpos lexer.Positio
 		}
 		return w.scale(c), nil
 	}
+	if len(v.f.Points) > 0 || len(w.f.Points) > 0 {
+		return lw.scalePoints(v, vpos, w, wpos)
+	}
 	if v.f.Exact.Size()*w.f.Exact.Size() > MaxSize {
 		return value{}, lw.fail(wpos, "the expanded expression would exceed %d terms", MaxSize)
 	}
@@ -277,6 +290,20 @@ func (lw *lowerer) div(v, w value, wpos lexer.Position) (value, error) {
 		}
 		return v.scale(inv), nil
 	}
+	if err := lw.noPoints(w, wpos, "in a divisor"); err != nil {
+		return value{}, err
+	}
+	if len(v.f.Points) > 0 {
+		c, ok := constant(w)
+		if !ok {
+			return value{}, lw.fail(wpos, "a point source's strength is a constant: divide delta(...) by a number or a parameter, not by a function of x and y")
+		}
+		inv, err := series.IntCoef(1).Div(c)
+		if err != nil {
+			return value{}, lw.fail(wpos, "division by zero")
+		}
+		return v.scale(inv), nil
+	}
 	f, err := v.f.Div(w.f)
 	if err != nil {
 		return value{}, lw.fail(wpos, "division by zero")
@@ -310,6 +337,12 @@ func (lw *lowerer) raise(v value, vpos lexer.Position, exp *unary) (value, error
 	}
 	if v.hasUnknown() || e.hasUnknown() {
 		return value{}, lw.fail(vpos, "%s may not be raised to a power; the problem must be linear", lw.unk())
+	}
+	if err := lw.noPoints(v, vpos, "raised to a power"); err != nil {
+		return value{}, err
+	}
+	if err := lw.noPoints(e, exp.Pos, "in an exponent"); err != nil {
+		return value{}, err
 	}
 	c, ok := constant(e)
 	q, isRat := c.Rat()
@@ -446,6 +479,9 @@ func (lw *lowerer) atom(a *atom) (value, error) {
 }
 
 func (lw *lowerer) call(c *call) (value, error) {
+	if c.Name == "delta" || c.Name == "δ" {
+		return lw.delta(c)
+	}
 	if len(c.Args) != 1 {
 		return value{}, lw.fail(c.Pos, "%s takes one argument, not %d", c.Name, len(c.Args))
 	}
@@ -469,6 +505,9 @@ func (lw *lowerer) call(c *call) (value, error) {
 	}
 	if v.hasUnknown() {
 		return value{}, lw.fail(arg.Pos, "%s may not appear inside %s(...); the problem must be linear", lw.unk(), c.Name)
+	}
+	if err := lw.noPoints(v, arg.Pos, "inside "+c.Name+"(...)"); err != nil {
+		return value{}, err
 	}
 	f, err := series.Apply(c.Name, v.f)
 	if err != nil {
@@ -527,6 +566,9 @@ func (lw *lowerer) series(s *sumNode) (value, error) {
 	}
 	if body.hasUnknown() {
 		return value{}, lw.fail(s.Body.Pos, "%s may not appear inside a sum", lw.unk())
+	}
+	if err := lw.noPoints(body, s.Body.Pos, "inside a sum"); err != nil {
+		return value{}, err
 	}
 	return value{f: series.SeriesField(from, skip, body.f)}, nil
 }

@@ -16,6 +16,10 @@ type Field struct {
 	Exact  Sum
 	Rest   *Expr   // nil when the field is exact
 	Pieces []Piece // when not nil, the field is these pieces in θ (Exact and Rest unused)
+	// Points are sources concentrated at points, Q·δ(x − X, y − Y): a
+	// distribution beside the function the rest describes. Only a source
+	// carries them; evaluation (Compile) sees the function alone.
+	Points []PointSource
 }
 
 // Exact wraps a sum as a field.
@@ -32,6 +36,21 @@ type Expr struct {
 	ser    *seriesNode
 	pieces []Piece
 	cmp    []string // "choose": the comparisons between args[2:], a chain a < b < c
+	fn     *namedFunc
+}
+
+// namedFunc is a function of (r, θ) computed in Go, printed by its name: a
+// part of data that psol derives (a point source's field on a side).
+type namedFunc struct {
+	text, latex string
+	at          func(r, theta float64) float64
+}
+
+// FuncField is the field at(r, θ), printed as text (and latex): data psol
+// computes rather than reads, such as the trace of a point source's field
+// on a side. It evaluates in float64 only.
+func FuncField(text, latex string, at func(r, theta float64) float64) Field {
+	return opaque(&Expr{op: "func", fn: &namedFunc{text, latex, at}})
 }
 
 // Choose is "sides[0] ops[0] sides[1] ... ? then : other", evaluated in
@@ -85,6 +104,7 @@ func opaque(e *Expr) Field { return Field{Rest: e} }
 func (f Field) Add(g Field) Field {
 	if f.IsPiecewise() || g.IsPiecewise() {
 		h, _ := liftPieces(f, g, func(a, b Field) (Field, error) { return a.Add(b), nil })
+		h.Points = addPoints(f.Points, g.Points)
 		return h
 	}
 	rest := f.Rest
@@ -94,7 +114,7 @@ func (f Field) Add(g Field) Field {
 	case g.Rest != nil:
 		rest = &Expr{op: "+", args: []*Expr{f.Rest, g.Rest}}
 	}
-	return Field{Exact: f.Exact.Add(g.Exact), Rest: rest}
+	return Field{Exact: f.Exact.Add(g.Exact), Rest: rest, Points: addPoints(f.Points, g.Points)}
 }
 
 // Neg is −f.
@@ -104,9 +124,10 @@ func (f Field) Neg() Field { return f.Scale(IntCoef(-1)) }
 func (f Field) Scale(c Coef) Field {
 	if f.IsPiecewise() {
 		h, _ := mapPieces(f, func(a Field) (Field, error) { return a.Scale(c), nil })
+		h.Points = scalePoints(f.Points, c)
 		return h
 	}
-	out := Field{Exact: f.Exact.Scale(c)}
+	out := Field{Exact: f.Exact.Scale(c), Points: scalePoints(f.Points, c)}
 	if f.Rest == nil || c.Equal(IntCoef(1)) {
 		out.Rest = f.Rest
 		return out
@@ -356,6 +377,8 @@ func (e *Expr) Text() string {
 		return "0"
 	}
 	switch e.op {
+	case "func":
+		return e.fn.text
 	case "pieces":
 		return "(" + piecesText(e.pieces) + ")"
 	case "series":
@@ -402,6 +425,8 @@ func (e *Expr) LaTeX() string {
 		return "0"
 	}
 	switch e.op {
+	case "func":
+		return e.fn.latex
 	case "pieces":
 		return piecesLaTeX(e.pieces)
 	case "series":
@@ -490,6 +515,18 @@ func trimParens(s string) string {
 
 // Text prints the field in psol's syntax.
 func (f Field) Text() string {
+	if len(f.Points) > 0 {
+		pts := PointsText(f.Points)
+		g := f
+		g.Points = nil
+		if g.IsExact() && g.Exact.IsZero() {
+			return pts
+		}
+		if strings.HasPrefix(pts, "-") {
+			return g.Text() + " - " + pts[1:]
+		}
+		return g.Text() + " + " + pts
+	}
 	if f.IsPiecewise() {
 		return piecesText(f.Pieces)
 	}
@@ -594,6 +631,9 @@ var binaryFloat = map[string]func(a, b float64) float64{
 
 func compileExpr(e *Expr, env Env) (evalFunc, error) {
 	switch e.op {
+	case "func":
+		at := e.fn.at
+		return func(r, theta, _ float64) float64 { return at(r, theta) }, nil
 	case "pieces":
 		p, err := Field{Pieces: e.pieces}.compilePieces(env)
 		return func(r, theta, _ float64) float64 { return p.at(r, theta) }, err

@@ -371,6 +371,18 @@ func (t Term) isConstExceptAngle() bool { return t.power().Sign() == 0 && t.L ==
 
 // LaTeX prints the field as LaTeX where it can, pieces as a cases block.
 func (f Field) LaTeX() string {
+	if len(f.Points) > 0 {
+		pts := PointsLaTeX(f.Points)
+		g := f
+		g.Points = nil
+		if g.IsExact() && g.Exact.IsZero() {
+			return pts
+		}
+		if strings.HasPrefix(pts, "-") {
+			return g.LaTeX() + " - " + pts[1:]
+		}
+		return g.LaTeX() + " + " + pts
+	}
 	switch {
 	case f.IsPiecewise():
 		return piecesLaTeX(f.Pieces)

@@ -33,6 +33,7 @@ type checkOut struct {
 type view struct {
 	Problem    stage       `json:"problem"`
 	Particular stage       `json:"particular"`
+	Images     *stage      `json:"images,omitempty"`
 	Trace      stage       `json:"trace"`
 	Correction stage       `json:"correction"`
 	Harmonic   stage       `json:"harmonic"`
@@ -72,6 +73,7 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	if sol.Rest != nil { // the part the quadrature took
 		f = f.Add(series.Field{Rest: sol.Rest})
 	}
+	f = sourceWithPoints(f, sol)
 	var conds, condsTeX []string
 	for _, s := range sol.Sides {
 		if s.Condition.Kind == domain.Floating { // as the user gave it: one unknown value, a net flux
@@ -140,6 +142,9 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	} else if _, ok := sol.Domain.(domain.Ellipse); ok {
 		v.xyClosedStages(sol)
 	}
+	if sol.Points != nil {
+		v.pointStages(sol)
+	}
 	if c := sol.Independent; c != nil {
 		v.Independent = &checkOut{Name: c.Name}
 		if v.independentFailed = c.Failed(); v.independentFailed {
@@ -154,6 +159,15 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	v.Steps = append(v.Steps, sol.StepLines()...)
 	v.Warnings = append(v.Warnings, sol.Notes...)
 	return v
+}
+
+// stages are the printed formulas in order.
+func (v *view) stages() []stage {
+	out := []stage{v.Particular}
+	if v.Images != nil {
+		out = append(out, *v.Images)
+	}
+	return append(out, v.Trace, v.Correction, v.Harmonic, v.Solution)
 }
 
 // residualSize is 0 for an exactly vanishing residual, and 1 as a flag otherwise
@@ -260,7 +274,7 @@ func renderText(w io.Writer, v *view) error {
 			line(w, "step", s)
 		}
 	}
-	for _, s := range []stage{v.Particular, v.Trace, v.Correction, v.Harmonic, v.Solution} {
+	for _, s := range v.stages() {
 		line(w, s.Label, s.Text)
 	}
 	if v.ClosedForm != nil {
@@ -269,6 +283,9 @@ func renderText(w io.Writer, v *view) error {
 	line(w, "check", checkSummary(v.Checks)+v.checkScope+v.independentText())
 	for _, p := range v.Points {
 		at := fmt.Sprintf("r = %.10g, theta = %.10g (x = %.10g, y = %.10g): u = %.12g", p.R, p.Theta, p.X, p.Y, p.U)
+		if p.Regular {
+			at = fmt.Sprintf("r = %.10g, theta = %.10g (x = %.10g, y = %.10g), a point source: u is infinite; its regular part u - (Q/2pi)*ln|z - z0| = %.12g", p.R, p.Theta, p.X, p.Y, p.U)
+		}
 		switch {
 		case p.Terms > 0:
 			at += fmt.Sprintf(" (series summed to n = %d, tail estimate %.1e)", p.Terms, p.Error)
@@ -278,9 +295,18 @@ func renderText(w io.Writer, v *view) error {
 		line(w, "point", at)
 	}
 	if r := v.Report; r != nil {
-		if r.Max != nil {
-			line(w, "report", fmt.Sprintf("max u = %.12g at %s", *r.Max, where(r.ArgMax)))
-			line(w, "report", fmt.Sprintf("min u = %.12g at %s", *r.Min, where(r.ArgMin)))
+		for _, e := range []struct {
+			name string
+			v    *float64
+			at   [2]float64
+			inf  string
+		}{{"max", r.Max, r.ArgMax, r.MaxInf}, {"min", r.Min, r.ArgMin, r.MinInf}} {
+			switch {
+			case e.v != nil:
+				line(w, "report", fmt.Sprintf("%s u = %.12g at %s", e.name, *e.v, where(e.at)))
+			case e.inf != "":
+				line(w, "report", fmt.Sprintf("%s u = %s at the point source, %s", e.name, e.inf, where(e.at)))
+			}
 		}
 		switch {
 		case r.Integral != nil:
@@ -303,7 +329,9 @@ func renderText(w io.Writer, v *view) error {
 		} else if r.FluxText != "" {
 			line(w, "report", "net outward flux = source integral = "+r.FluxText+" (divergence theorem)")
 		}
-		if g := r.Gradient; g != nil {
+		if g := r.Gradient; g != nil && g.Unbounded {
+			line(w, "report", fmt.Sprintf("largest |grad u|: unbounded at the point source x = %.6g, y = %.6g (|grad u| grows like |Q|/(2*pi*distance) there)", g.At[0], g.At[1]))
+		} else if g != nil {
 			digits := 9 // by differences
 			if g.exact {
 				digits = 12 // from the exact derivatives
@@ -338,6 +366,8 @@ func renderText(w io.Writer, v *view) error {
 type reportOut struct {
 	Max            *float64     `json:"max"`
 	Min            *float64     `json:"min"`
+	MaxInf         string       `json:"max_infinite,omitempty"` // "+inf" at a point source (max is null)
+	MinInf         string       `json:"min_infinite,omitempty"`
 	ArgMax         [2]float64   `json:"argmax"`
 	ArgMin         [2]float64   `json:"argmin"`
 	Integral       *float64     `json:"integral"` // null where it is not finite (outside a circle)
@@ -365,8 +395,10 @@ type gradientOut struct {
 	Value  float64    `json:"value"`
 	At     [2]float64 `json:"at"`
 	Corner bool       `json:"at_reentrant_corner,omitempty"`
-	note   string
-	exact  bool
+	// Unbounded marks |grad u| growing without bound at a point source (value 0).
+	Unbounded bool `json:"unbounded,omitempty"`
+	note      string
+	exact     bool
 }
 
 func finite(v float64) *float64 {
@@ -390,10 +422,18 @@ func newReportOut(r *domain.Report) *reportOut {
 	if r.Symbolic {
 		out.AreaText = r.Area.Text()
 	}
+	if math.IsInf(r.Max, 1) {
+		out.MaxInf = "+inf"
+	}
+	if math.IsInf(r.Min, -1) {
+		out.MinInf = "-inf"
+	}
 	for _, f := range r.Sides {
 		out.Sides = append(out.Sides, sideOut{Side: f.Side, Flux: finite(f.Value), Text: exactText(f.Exact)})
 	}
-	if g := r.Gradient; g != nil && !math.IsNaN(g.Value) {
+	if g := r.Gradient; g != nil && math.IsInf(g.Value, 1) {
+		out.Gradient = &gradientOut{At: g.At, Unbounded: true}
+	} else if g != nil && !math.IsNaN(g.Value) {
 		out.Gradient = &gradientOut{Value: g.Value, At: g.At, Corner: g.Corner, exact: g.Exact}
 		if g.Corner {
 			out.Gradient.note = " (at a re-entrant corner, where |grad u| is unbounded in general: the value is where sampling stopped)"
@@ -448,7 +488,7 @@ func renderLaTeX(w io.Writer, v *view) error {
 	fmt.Fprintf(w, "%% psol: %s\n", v.Problem.Text)
 	fmt.Fprintln(w, `\begin{align*}`)
 	fmt.Fprintf(w, "  & %s \\\\\n", v.Problem.LaTeX)
-	rows := []stage{v.Particular, v.Trace, v.Correction, v.Harmonic, v.Solution}
+	rows := v.stages()
 	for i, s := range rows {
 		end := ` \\`
 		if i == len(rows)-1 {

@@ -19,7 +19,10 @@ type point struct {
 	Error float64 `json:"error"`           // truncation estimate; 0 for closed forms
 	Terms int     `json:"terms,omitempty"` // series terms summed
 	Input string  `json:"input"`
-	inXY  bool    // given as x and y: evaluated in them
+	// Regular marks a point source's position: U is the regular part
+	// u − (Q/2π)·ln|z − z₀| there, u itself being infinite.
+	Regular bool `json:"regular_part,omitempty"`
+	inXY    bool // given as x and y: evaluated in them
 }
 
 // readPoint reads "r=…,theta=…" or "x=…,y=…".
@@ -90,7 +93,9 @@ func evaluate(sol *domain.Solution, pts []point) error {
 		if !in {
 			return &parse.Error{Label: "--at", Input: pts[i].Input, Msg: "the point lies outside " + sol.Domain.Describe()}
 		}
-		if pts[i].inXY {
+		if reg, est, ok := ev.AtSource(pts[i].X, pts[i].Y); ok {
+			pts[i].U, pts[i].Error, pts[i].Regular = reg, est, true
+		} else if pts[i].inXY {
 			pts[i].U, pts[i].Error, pts[i].Terms = ev.AtXY(pts[i].X, pts[i].Y)
 		} else {
 			pts[i].U, pts[i].Error, pts[i].Terms = ev.At(pts[i].R, pts[i].Theta)

@@ -1,0 +1,80 @@
+package main
+
+import (
+	"strings"
+
+	"psol/domain"
+	"psol/series"
+)
+
+// pointStages adds the point sources' field to the printed stages. psol
+// splits u = u_s + w: u_s is the sources' own logarithms (part of the
+// particular solution) and, where an image system exists, the images (a
+// line of their own); w is what the other stages print, with each side's
+// data less B[u_s].
+func (v *view) pointStages(sol *domain.Solution) {
+	pp := sol.Points
+	own := &domain.PointPart{Logs: pp.Logs[:len(pp.Sources)]}
+	v.Particular.Text = "u_p = " + joinNonzero(strings.TrimPrefix(v.Particular.Text, "u_p = "), own.Text())
+	v.Particular.LaTeX = joinNonzero(v.Particular.LaTeX, own.LaTeX())
+	if pp.Images != "" {
+		img := &domain.PointPart{Logs: pp.Logs[len(pp.Sources):]}
+		st := exactStage("images", "u_i = "+img.Text(), img.LaTeX(), "u_i")
+		if len(img.Logs) == 0 { // a source at a disk's centre needs none
+			st = exactStage("images", "u_i = 0", "0", "u_i")
+		}
+		v.Images = &st
+	}
+	var tr, trTeX []string
+	for _, s := range sol.Sides {
+		t := pp.Traces[s.Condition.Side]
+		name := domain.OperatorText(s.Condition, "u_s")
+		if pp.Images == "" { // the side's operator on u_s, sampled into the correction
+			tr = append(tr, s.Condition.Side+": "+name+", numeric")
+			trTeX = append(trTeX, t.LaTeX())
+			continue
+		}
+		tr = append(tr, s.Condition.Side+": "+name+" = "+t.Text())
+		trTeX = append(trTeX, t.LaTeX())
+	}
+	v.Trace.Text += "; the point sources' field u_s: " + strings.Join(tr, "; ")
+	v.Trace.LaTeX += `;\quad u_s:\ ` + strings.Join(trTeX, ", ")
+	for _, st := range []*stage{&v.Solution, v.ClosedForm} {
+		if st == nil {
+			continue
+		}
+		for _, eq := range []string{"u = ", "u ≈ "} {
+			if rest, ok := strings.CutPrefix(st.Text, eq); ok {
+				st.Text = eq + joinNonzero(pp.Text(), rest)
+				break
+			}
+		}
+		st.LaTeX = joinNonzero(pp.LaTeX(), st.LaTeX)
+	}
+	what := "the point sources' own field"
+	if pp.Images != "" {
+		what = "their field with the " + pp.Images + ", $u_s = u_{p,\\delta} + u_i$"
+	}
+	v.where = append(v.where, `$u_s$ is `+what+`, and the correction is $g$ less the trace of $u_p$ and of $u_s$`)
+}
+
+// joinNonzero joins two printed sums with the right sign, dropping a "0".
+func joinNonzero(a, b string) string {
+	switch {
+	case a == "0" || a == "":
+		return b
+	case b == "0" || b == "":
+		return a
+	case strings.HasPrefix(b, "-"):
+		return a + " - " + b[1:]
+	}
+	return a + " + " + b
+}
+
+// sourceWithPoints is the source as given, with its point sources.
+func sourceWithPoints(f series.Field, sol *domain.Solution) series.Field {
+	if sol.Points != nil {
+		f.Points = sol.Points.Sources
+	}
+	return f
+}
