@@ -221,11 +221,11 @@ func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
 
 // atXYTail is a rectangle's u(x, y) with the summed tail estimates.
 func (e *Evaluator) atXYTail(x, y float64) (u, tail float64) {
-	if v, ok := e.walls.on(x, y); ok {
-		return v, 0
-	}
 	if e.pts != nil {
 		u = e.pts.at(x, y)
+	}
+	if v, ok := e.walls.on(x, y); ok { // the data of w, which u_s completes
+		return u + v, 0
 	}
 	if e.xy != nil {
 		u += e.xy.At(x, y) + e.waves.At(x, y)

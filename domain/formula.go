@@ -5,8 +5,21 @@ import (
 	"strings"
 )
 
-// Formula is u in psol's syntax (or LaTeX): the closed parts, then any series.
+// Formula is u in psol's syntax (or LaTeX): the point sources' field, the
+// closed parts, then any series.
 func (s *Solution) Formula(latex bool) string {
+	rest := s.formulaOfW(latex)
+	if s.Points == nil {
+		return rest
+	}
+	pts := s.Points.Text()
+	if latex {
+		pts = s.Points.LaTeX()
+	}
+	return joinPrinted(pts, rest, rest == "0", pts == "")
+}
+
+func (s *Solution) formulaOfW(latex bool) string {
 	if s.Series == nil {
 		if latex {
 			return series.JoinLaTeX(s.Particular, s.Harmonic)

@@ -43,13 +43,13 @@ type signedPoint struct{ Q, X, Y series.Coef }
 // written as (Q/4π)·ln|z − a|² − (Q/4π)·ln((ρ²/R²)·|z − a*|²); with a flux,
 // (Q/4π)·(ln|z − a|² + ln((ρ²/R²)·|z − a*|²)), whose normal derivative on
 // the circle is Q/(2πR) (the pair's flux 2π(Q/2π) spread evenly). A point
-// at the centre has no image: (Q/4π)·ln(r²/R²), or (Q/4π)·ln r². It returns
-// the logs (the orbit's own first) and the circle's trace.
-func circleImages(R series.Coef, orbit []signedPoint, kind Kind) ([]PointLog, series.Coef) {
+// at the centre has its image at infinity: (Q/4π)·ln r² − (Q/4π)·ln R², or
+// (Q/4π)·ln r². It returns the logs (the orbit's own first), the circle's
+// trace and the constant; ok is false where ln R² has no exact form.
+func circleImages(R series.Coef, orbit []signedPoint, kind Kind) (logs []PointLog, trace, konst series.Coef, ok bool) {
 	fourPi := series.IntCoef(4).Mul(series.SymCoef(series.Pi))
 	R2 := R.Mul(R)
 	var own, images []PointLog
-	trace := series.Coef{}
 	for _, p := range orbit {
 		c, _ := p.Q.Div(fourPi)
 		rho2 := p.X.Mul(p.X).Add(p.Y.Mul(p.Y))
@@ -57,11 +57,14 @@ func circleImages(R series.Coef, orbit []signedPoint, kind Kind) ([]PointLog, se
 			trace = trace.Add(mustDiv(p.Q, series.IntCoef(2).Mul(series.SymCoef(series.Pi)).Mul(R)))
 		}
 		if rho2.IsZero() {
-			l := PointLog{C: c}
-			if kind == Dirichlet {
-				l.S = mustDiv(series.IntCoef(1), R2)
+			own = append(own, PointLog{C: c})
+			if kind == Dirichlet { // the image at infinity: a constant
+				lnR2, err := R2.Ln()
+				if err != nil {
+					return nil, series.Coef{}, series.Coef{}, false
+				}
+				konst = konst.Sub(c.Mul(lnR2))
 			}
-			own = append(own, l)
 			continue
 		}
 		own = append(own, PointLog{C: c, X: p.X, Y: p.Y})
@@ -72,7 +75,7 @@ func circleImages(R series.Coef, orbit []signedPoint, kind Kind) ([]PointLog, se
 		}
 		images = append(images, img)
 	}
-	return append(own, images...), trace
+	return append(own, images...), trace, konst, true
 }
 
 func mustDiv(a, b series.Coef) series.Coef {
@@ -100,8 +103,11 @@ func diskImages(d Domain, conds map[string]Condition, pts []series.PointSource) 
 	for _, p := range pts {
 		orbit = append(orbit, signedPoint{p.Q, p.X, p.Y})
 	}
-	logs, tr := circleImages(disk.R, orbit, kind)
-	return &PointPart{Sources: pts, Logs: logs, Traces: map[string]series.Field{"rim": constField(tr)}}, true
+	logs, tr, konst, ok := circleImages(disk.R, orbit, kind)
+	if !ok {
+		return nil, false
+	}
+	return &PointPart{Sources: pts, Logs: logs, Const: konst, Traces: map[string]series.Field{"rim": constField(tr)}}, true
 }
 
 // sectorImages: a sector of angle π/k whose rays carry the same kind of
@@ -160,7 +166,10 @@ func sectorImages(d Domain, conds map[string]Condition, pts []series.PointSource
 			orbit = append(orbit, signedPoint{p.Q.Mul(mirror), x, y})
 		}
 	}
-	logs, tr := circleImages(s.R, orbit, arcKind)
+	logs, tr, _, ok := circleImages(s.R, orbit, arcKind) // no source at a sector's corner: no constant
+	if !ok {
+		return nil, false
+	}
 	// The sources' own logs first: move each source's to the front.
 	front := make([]PointLog, 0, len(logs))
 	for i := range pts {

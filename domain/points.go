@@ -71,6 +71,9 @@ type PointPart struct {
 	// Logs are the sources' own logarithms (one per source, in order), then
 	// the images'.
 	Logs []PointLog
+	// Const is an additive constant of the images' (−(Q/4π)·ln R² for a
+	// source at a disk's centre, whose image is at infinity).
+	Const series.Coef
 	// Images names the image system that makes u_s meet every side's
 	// homogeneous condition exactly; "" where u_s is the sources' own field
 	// and its traces are numeric data for w.
@@ -125,17 +128,36 @@ func (pp *PointPart) print(latex bool) string {
 			b.WriteString(" + " + ln)
 		}
 	}
+	if !pp.Const.IsZero() {
+		k := pp.Const.Text()
+		if latex {
+			k = pp.Const.LaTeX()
+		}
+		switch {
+		case b.Len() == 0:
+			b.WriteString(k)
+		case strings.HasPrefix(k, "-"):
+			b.WriteString(" - " + k[1:])
+		default:
+			b.WriteString(" + " + k)
+		}
+	}
 	return b.String()
 }
 
 // pointEval is u_s in float64.
 type pointEval struct {
 	c, x, y, s []float64
-	sources    int // the first logs are the sources' own
+	k          float64 // the additive constant
+	sources    int     // the first logs are the sources' own
 }
 
 func (pp *PointPart) compile(env series.Env) (*pointEval, error) {
 	pe := &pointEval{sources: len(pp.Sources)}
+	var err error
+	if pe.k, err = pp.Const.Float(env); err != nil {
+		return nil, err
+	}
 	for _, l := range pp.Logs {
 		v, err := floats(env, l.C, l.X, l.Y, l.scale())
 		if err != nil {
@@ -151,7 +173,7 @@ func (pe *pointEval) at(x, y float64) float64 {
 	if pe == nil {
 		return 0
 	}
-	v := 0.0
+	v := pe.k
 	for k := range pe.c {
 		dx, dy := x-pe.x[k], y-pe.y[k]
 		v += pe.c[k] * math.Log(pe.s[k]*(dx*dx+dy*dy))
@@ -186,7 +208,7 @@ func (pe *pointEval) source(x, y float64) (int, bool) {
 // regular is u_s less the k-th source's singular part (Q_k/2π)·ln|z − z_k|,
 // at (x, y): finite at the source itself.
 func (pe *pointEval) regular(x, y float64, k int) float64 {
-	v := pe.c[k] * math.Log(pe.s[k])
+	v := pe.k + pe.c[k]*math.Log(pe.s[k])
 	for j := range pe.c {
 		if j == k {
 			continue
@@ -202,6 +224,12 @@ func (pp *PointPart) attach(e *Evaluator, _ *Solution, env series.Env) error {
 	pe, err := pp.compile(env)
 	e.pts = pe
 	return err
+}
+
+// SourcesField is the point sources' own field, Σ (Q/4π)·ln|z − z₀|²: a
+// particular solution of Δu = Σ Q·δ(z − z₀) in the whole plane.
+func SourcesField(pts []series.PointSource) *PointPart {
+	return &PointPart{Sources: pts, Logs: ownLogs(pts)}
 }
 
 // ownLogs are the sources' own logarithms, (Q/4π)·ln|z − z₀|².
@@ -228,6 +256,9 @@ func solvePoints(d Domain, source series.Field, conds []Condition, opt Options) 
 		}
 	}
 	if err := pointsInside(d, pts, opt.Env); err != nil {
+		return nil, err
+	}
+	if err := pointsBalance(d, source, conds, pts, opt.Env); err != nil {
 		return nil, err
 	}
 	pp, err := imagesFor(d, byside, pts)
@@ -544,7 +575,7 @@ func (s *Solution) pointFigures(rep *Report, shape Shape, env series.Env) error 
 // at a, so the divergence theorem holds with no term there), by
 // Gauss–Legendre on 64 panels a side.
 func (pe *pointEval) areaIntegral(shape Shape) float64 {
-	total := 0.0
+	total := pe.k * shape.Area
 	for k := range pe.c {
 		total += pe.c[k] * math.Log(pe.s[k]) * shape.Area
 	}
@@ -590,4 +621,66 @@ func (pe *pointEval) sideFlux(side SidePath) float64 {
 		px, py = x, y
 	}
 	return total
+}
+
+// pointsBalance refuses a problem with a flux on every side whose data's
+// net outward flux differs from the source's integral plus the point
+// sources' strengths (the divergence theorem: ∮g ds = ∬f dA + ΣQ), in the
+// user's terms, before the solve of w would say it in terms of the data
+// less u_s's flux. It needs the parameters' values and an exact source.
+func pointsBalance(d Domain, source series.Field, conds []Condition, pts []series.PointSource, env series.Env) error {
+	for _, c := range conds {
+		if c.Kind != Neumann {
+			return nil
+		}
+	}
+	if source.Rest != nil || source.IsPiecewise() {
+		return nil
+	}
+	fc, err := d.integral(source.Exact)
+	if err != nil {
+		return nil
+	}
+	f, err := fc.Float(env)
+	if err != nil {
+		return nil
+	}
+	q := 0.0
+	for _, p := range pts {
+		v, err := p.Q.Float(env)
+		if err != nil {
+			return nil
+		}
+		q += v
+	}
+	shape, err := d.Shape(env)
+	if err != nil || math.IsInf(shape.Area, 1) {
+		return nil
+	}
+	flux := 0.0
+	for _, side := range shape.Sides {
+		var cond Condition
+		for _, c := range conds {
+			if c.Side == side.Name {
+				cond = c
+			}
+		}
+		g, err := cond.G.Compile(env)
+		if err != nil {
+			return nil
+		}
+		const panels = 64
+		for i := 0; i < panels; i++ {
+			a, b := float64(i)/panels, float64(i+1)/panels
+			for j, xg := range legendreX {
+				x, y, _, _ := side.At((a+b)/2 + (b-a)/2*xg)
+				r, th := polarOf(x, y)
+				flux += (b - a) / 2 * legendreW[j] * side.Length * g.At(r, th)
+			}
+		}
+	}
+	if math.Abs(flux-f-q) > 1e-9*(1+math.Abs(flux)+math.Abs(f)+math.Abs(q)) {
+		return unsolvable("with a flux condition on every side the net outward flux of the data, %.12g, must equal the source's integral over the region plus the point sources' strengths, %.12g + %.12g = %.12g (divergence theorem); they differ by %.3g, so the problem has no solution", flux, f, q, f+q, flux-f-q)
+	}
+	return nil
 }

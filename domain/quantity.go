@@ -49,6 +49,9 @@ func QuantityNames() []string {
 
 // Quantity computes the named preset's figures from the solution's report.
 func (s *Solution) Quantity(name string, rep *Report) ([]Figure, error) {
+	if s.Points != nil {
+		return nil, unsupported("the figure sets (flow, torsion, ...) are for a distributed source; with point sources, --report gives the figures (the extremes, the area integral, the flux through each side)")
+	}
 	for _, q := range Quantities {
 		if q.Name == name {
 			return q.figures(s, rep)

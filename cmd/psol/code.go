@@ -19,6 +19,9 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 	if !ok {
 		return usagef("--lang %q: choose go, c or python", lang)
 	}
+	if sol.Points != nil && sol.Points.Images == "" {
+		return &domain.Unsupported{Reason: "generated code for point sources is written where images close their field (a disk, or a sector of angle pi/k); here their field's correction is numeric"}
+	}
 	if sol.Rect != nil {
 		return writeRectCode(w, l, pr, sol, terms)
 	}
@@ -62,12 +65,59 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 		params = append(params, p)
 	}
 	sort.Strings(params)
-	g := codeGen{l: l, vars: []string{"r", "theta"}, params: params, closed: closed.Code(l), parts: parts, terms: terms}
+	var logs []string
+	if sol.Points != nil {
+		if logs, err = pointCode(l, sol.Points, pr.env, used); err != nil {
+			return err
+		}
+	}
+	delete(used, series.Index)
+	params = params[:0]
+	for p := range used {
+		params = append(params, p)
+	}
+	sort.Strings(params)
+	g := codeGen{l: l, vars: []string{"r", "theta"}, params: params, closed: closed.Code(l), parts: parts, terms: terms, extra: logs}
 	fmt.Fprintf(w, "%s psol %s: %s\n", g.comment(), version, sol.Formula(false))
 	if len(parts) > 0 {
 		fmt.Fprintf(w, "%s The series are summed to n = %d.\n", g.comment(), terms)
 	}
 	return g.write(w)
+}
+
+// pointCode is each logarithm of u_s, C*log(S*((x - X)^2 + (y - Y)^2)),
+// as a term in r and theta; it adds the parameters it uses to used.
+func pointCode(l series.Lang, pp *domain.PointPart, env series.Env, used map[string]bool) ([]string, error) {
+	var out []string
+	for _, lg := range pp.Logs {
+		cs := []series.Coef{lg.C, lg.X, lg.Y, lg.S}
+		if lg.S.IsZero() {
+			cs[3] = series.IntCoef(1)
+		}
+		for i := range cs {
+			c, err := cs[i].Subst(env)
+			if err != nil {
+				return nil, err
+			}
+			c.Params(used)
+			cs[i] = c
+		}
+		code := func(c series.Coef) string { return c.Code(l, series.Index) }
+		x := "r*" + l.Fn["cos"] + "(theta)"
+		y := "r*" + l.Fn["sin"] + "(theta)"
+		dx := "(" + x + " - " + code(cs[1]) + ")"
+		dy := "(" + y + " - " + code(cs[2]) + ")"
+		out = append(out, code(cs[0])+"*"+l.Fn["log"]+"("+code(cs[3])+"*("+dx+"*"+dx+" + "+dy+"*"+dy+"))")
+	}
+	if !pp.Const.IsZero() {
+		k, err := pp.Const.Subst(env)
+		if err != nil {
+			return nil, err
+		}
+		k.Params(used)
+		out = append(out, k.Code(l, series.Index))
+	}
+	return out, nil
 }
 
 func substSeries(s series.Series, env series.Env) (series.Series, error) {

@@ -8,6 +8,7 @@ import (
 	"psol/ansatz"
 	"psol/domain"
 	"psol/parse"
+	"psol/series"
 )
 
 type particularOptions struct {
@@ -69,6 +70,12 @@ func (o *particularOptions) run(w io.Writer, source string) error {
 			upText, upTeX = joinSigned(upText, waves.Text()), joinSigned(upTeX, waves.LaTeX())
 		}
 	}
+	pointStep := ""
+	if len(f.Points) > 0 { // the fundamental solution of each point source
+		pp := domain.SourcesField(f.Points)
+		upText, upTeX = joinNonzero(upText, pp.Text()), joinNonzero(upTeX, pp.LaTeX())
+		pointStep = series.PointsText(f.Points) + " -> " + pp.Text() + " (a point source Q*delta(x - X0, y - Y0) has the fundamental solution (Q/(4*pi))*ln((x - X0)^2 + (y - Y0)^2))"
+	}
 	v.Particular = exactStage("particular", "u_p = "+upText, upTeX, "u_p")
 	res := up.Laplacian().Sub(exact)
 	v.Checks = []checkOut{{Name: "lap(u_p) - f", Exact: true, Formula: res.Text(), Residual: residualSize(res, env)}}
@@ -82,6 +89,9 @@ func (o *particularOptions) run(w io.Writer, source string) error {
 	}
 	for _, st := range steps {
 		v.Steps = append(v.Steps, st.Source.Text()+" -> "+st.Result.Text()+" ("+st.Rule+")")
+	}
+	if pointStep != "" {
+		v.Steps = append(v.Steps, pointStep)
 	}
 	if err := v.failedCheck(); err != nil {
 		return err

@@ -18,9 +18,9 @@ func (v *view) pointStages(sol *domain.Solution) {
 	v.Particular.Text = "u_p = " + joinNonzero(strings.TrimPrefix(v.Particular.Text, "u_p = "), own.Text())
 	v.Particular.LaTeX = joinNonzero(v.Particular.LaTeX, own.LaTeX())
 	if pp.Images != "" {
-		img := &domain.PointPart{Logs: pp.Logs[len(pp.Sources):]}
+		img := &domain.PointPart{Logs: pp.Logs[len(pp.Sources):], Const: pp.Const}
 		st := exactStage("images", "u_i = "+img.Text(), img.LaTeX(), "u_i")
-		if len(img.Logs) == 0 { // a source at a disk's centre needs none
+		if len(img.Logs) == 0 && pp.Const.IsZero() { // a flux at a disk's centre needs none
 			st = exactStage("images", "u_i = 0", "0", "u_i")
 		}
 		v.Images = &st
@@ -30,7 +30,7 @@ func (v *view) pointStages(sol *domain.Solution) {
 		t := pp.Traces[s.Condition.Side]
 		name := domain.OperatorText(s.Condition, "u_s")
 		if pp.Images == "" { // the side's operator on u_s, sampled into the correction
-			tr = append(tr, s.Condition.Side+": "+name+", numeric")
+			tr = append(tr, s.Condition.Side+": "+name+" (numeric)")
 			trTeX = append(trTeX, t.LaTeX())
 			continue
 		}

@@ -1,0 +1,364 @@
+package domain_test
+
+import (
+	"errors"
+	"math"
+	"math/cmplx"
+	"strings"
+	"testing"
+
+	"psol/domain"
+	"psol/parse"
+	"psol/series"
+)
+
+// solvePointProblem poses and solves with parameter values, the way the CLI does.
+func solvePointProblem(t *testing.T, equation string, d domain.Domain, env series.Env, bcs ...string) *domain.Solution {
+	t.Helper()
+	f, conds, err := pose(equation, d, bcs, env)
+	if err != nil {
+		t.Fatalf("%s: %v", equation, err)
+	}
+	sol, err := domain.SolveWith(d, f, conds, domain.Options{Env: env})
+	if err != nil {
+		t.Fatalf("%s on %s: %v", equation, d.Describe(), err)
+	}
+	if sol.Independent == nil || sol.Independent.Failed() {
+		t.Fatalf("%s on %s: the independent check fails or is missing: %+v", equation, d.Describe(), sol.Independent)
+	}
+	for _, c := range sol.Checks {
+		if c.Failed() {
+			t.Fatalf("%s: check failed: %s", equation, c.Name)
+		}
+	}
+	return sol
+}
+
+// diskGreen is the Dirichlet Green's function of the disk |z| < R for
+// Δu = δ(z − a): (1/2π)·ln( R|z − a| / |R² − āz| ) (images: Jackson,
+// Classical Electrodynamics, ch. 2; Griffiths ch. 3), written here in
+// complex arithmetic, independently of psol's image logs.
+func diskGreen(z, a complex128, R float64) float64 {
+	return math.Log(R*cmplx.Abs(z-a)/cmplx.Abs(complex(R*R, 0)-cmplx.Conj(a)*z)) / (2 * math.Pi)
+}
+
+func TestPointSourcesAgainstClosedForms(t *testing.T) {
+	// Groundwater in the trade's form: T·Δh = Q·δ for a well pumping Q
+	// (drawdown s = H − h). Numbers are our own scenarios.
+	thiem := series.Env{"Q": series.FracCoef(3, 100), "T": series.FracCoef(1, 200), "H": series.IntCoef(30)}
+	cases := []struct {
+		name, equation string
+		d              domain.Domain
+		bcs            []string
+		env            series.Env
+		want           func(x, y float64) float64
+		tol            float64
+		source         string
+	}{
+		{
+			name: "well at the centre of a round island", equation: "T*lap(u) = Q*delta(x, y)",
+			d: domain.Disk{R: series.IntCoef(400)}, bcs: []string{"u = H"}, env: thiem,
+			// s(r) = (Q/2πT)·ln(R/r)
+			want: func(x, y float64) float64 { return 30 - 0.03/(2*math.Pi*0.005)*math.Log(400/math.Hypot(x, y)) },
+			tol:  1e-12, source: "Thiem 1906; Bear, Hydraulics of Groundwater",
+		},
+		{
+			name: "well off centre in a round island", equation: "T*lap(u) = Q*delta(x - 150, y + 80)",
+			d: domain.Disk{R: series.IntCoef(400)}, bcs: []string{"u = H"}, env: thiem,
+			want: func(x, y float64) float64 {
+				return 30 + 0.03/0.005*diskGreen(complex(x, y), complex(150, -80), 400)
+			},
+			tol: 1e-12, source: "image well (Bear; Jackson ch. 2)",
+		},
+		{
+			name: "line charge in a grounded cylinder", equation: "-eps*lap(u) = lam*delta(x + 0.004, y - 0.003)",
+			d: domain.Disk{R: series.FracCoef(1, 100)}, bcs: []string{"u = 0"},
+			env: series.Env{"eps": series.FracCoef(885, 100), "lam": series.IntCoef(2)},
+			// φ = (λ/2πε)·ln( ρ₀|z − a*| / (R|z − a|) ), a* = R²a/ρ₀²
+			want: func(x, y float64) float64 {
+				a := complex(-0.004, 0.003)
+				star := a * complex(1e-4/(cmplx.Abs(a)*cmplx.Abs(a)), 0)
+				z := complex(x, y)
+				return 2 / (2 * math.Pi * 8.85) * math.Log(cmplx.Abs(a)*cmplx.Abs(z-star)/(0.01*cmplx.Abs(z-a)))
+			},
+			tol: 1e-12, source: "Jackson ch. 2; Griffiths ch. 3",
+		},
+		{
+			name: "line charge in a grounded 90-degree corner, closed by an arc", equation: "lap(u) = -delta(x - 0.4, y - 0.3)",
+			d: domain.Sector{R: series.IntCoef(1), Alpha: series.SymCoef(series.Pi).Mul(series.FracCoef(1, 2))}, bcs: []string{"arc: u = 0", "start: u = 0", "end: u = 0"},
+			want: func(x, y float64) float64 {
+				return -wedgeGreen(complex(x, y), complex(0.4, 0.3), 2, 1)
+			},
+			tol: 1e-12, source: "finite image system (Jackson ch. 2) with the disk's images",
+		},
+		{
+			name: "line charge in a grounded 60-degree corner, closed by an arc", equation: "lap(u) = -delta(x - 0.5, y - 0.2)",
+			d: domain.Sector{R: series.IntCoef(1), Alpha: series.SymCoef(series.Pi).Mul(series.FracCoef(1, 3))}, bcs: []string{"arc: u = 0", "start: u = 0", "end: u = 0"},
+			want: func(x, y float64) float64 {
+				return -wedgeGreen(complex(x, y), complex(0.5, 0.2), 3, 1)
+			},
+			tol: 1e-12, source: "finite image system (Jackson ch. 2) with the disk's images",
+		},
+		{
+			name: "point source in a rectangle with fixed values", equation: "lap(u) = delta(x - 0.7, y - 0.35)",
+			d: domain.Rect{L: series.IntCoef(2), H: series.IntCoef(1)}, bcs: []string{"left: u = 0", "right: u = 0", "bottom: u = 0", "top: u = 0"},
+			want: func(x, y float64) float64 { return rectGreen(x, y, 0.7, 0.35, 2, 1) },
+			tol:  1e-8, source: "the double sine series, inner sum in closed form (eigenfunction expansion, common practice)",
+		},
+		{
+			name: "convecting disk: the Robin series", equation: "lap(u) = delta(x - 0.3, y - 0.4)",
+			d: domain.Disk{R: series.IntCoef(1)}, bcs: []string{"dn(u) + 2*u = 0"},
+			want: func(x, y float64) float64 { return robinDiskSeries(complex(x, y), complex(0.3, 0.4), 1, 2) },
+			tol:  1e-10, source: "the Fourier series of ln|z - a| on the circle, summed directly",
+		},
+	}
+	for _, c := range cases {
+		t.Run(c.name, func(t *testing.T) {
+			sol := solvePointProblem(t, c.equation, c.d, c.env, c.bcs...)
+			ev, err := sol.Evaluator(domain.CheckTerms)
+			if err != nil {
+				t.Fatal(err)
+			}
+			shape, err := c.d.Shape(c.env)
+			if err != nil {
+				t.Fatal(err)
+			}
+			b := shape.Box
+			worst, scale := 0.0, 0.0
+			for i := 1; i < 12; i++ {
+				for j := 1; j < 12; j++ {
+					x, y := b.X0+(b.X1-b.X0)*float64(i)/12, b.Y0+(b.Y1-b.Y0)*float64(j)/12
+					if in, _ := domain.ContainsXY(c.d, x, y, c.env); !in {
+						continue
+					}
+					got, _, _ := ev.AtXY(x, y)
+					want := c.want(x, y)
+					worst, scale = math.Max(worst, math.Abs(got-want)), math.Max(scale, math.Abs(want))
+				}
+			}
+			if worst > c.tol*math.Max(1, scale) {
+				t.Errorf("largest difference from %s is %.3g (scale %.3g)", c.source, worst, scale)
+			}
+		})
+	}
+}
+
+// wedgeGreen is u with Δu = δ(z − a) in the sector of angle π/k and radius
+// R with u = 0 on every side: the disk's Green's function summed over the
+// 2k images of a under the reflections in the rays, alternating in sign.
+func wedgeGreen(z, a complex128, k int, R float64) float64 {
+	u := 0.0
+	for j := 0; j < k; j++ {
+		rot := cmplx.Exp(complex(0, 2*math.Pi*float64(j)/float64(k)))
+		u += diskGreen(z, rot*a, R) - diskGreen(z, rot*cmplx.Conj(a), R)
+	}
+	return u
+}
+
+// rectGreen is u with Δu = δ at (x0, y0) in [0, L]×[0, H], u = 0 on the
+// sides: Σ_m (2/L) sin(kx) sin(kx0)·g_m(y), k = mπ/L, with the inner sum
+// of the double sine series in closed form,
+// g_m = −sinh(k y<)·sinh(k(H − y>)) / (k sinh(kH)), summed to m = 4000.
+func rectGreen(x, y, x0, y0, L, H float64) float64 {
+	lo, hi := math.Min(y, y0), math.Max(y, y0)
+	u := 0.0
+	for m := 1; m <= 4000; m++ {
+		k := float64(m) * math.Pi / L
+		// sinh ratio in a form that does not overflow: e^{k(lo - H + hi - H)}...
+		g := -(1 - math.Exp(-2*k*lo)) * (1 - math.Exp(-2*k*(H-hi))) / (1 - math.Exp(-2*k*H)) * math.Exp(-k*(hi-lo)) / (2 * k)
+		u += 2 / L * math.Sin(k*x) * math.Sin(k*x0) * g
+	}
+	return u
+}
+
+// robinDiskSeries is u with Δu = δ(z − a) in |z| < R and ∂u/∂n + h·u = 0 on
+// the rim: (1/2π)·ln|z − a| plus the harmonic series whose modes cancel
+// the Robin operator on ln R − Σ (ρ/R)^n cos n(θ − φ)/n, summed to n = 400.
+func robinDiskSeries(z, a complex128, R, h float64) float64 {
+	rho, phi := cmplx.Abs(a), cmplx.Phase(a)
+	r, th := cmplx.Abs(z), cmplx.Phase(z)
+	u := math.Log(cmplx.Abs(z-a))/(2*math.Pi) - (1/(R*h)+math.Log(R))/(2*math.Pi)
+	for n := 1; n <= 400; n++ {
+		fn := float64(n)
+		an := -math.Pow(rho/R, fn) * (1/R - h/fn) / (fn/R + h) / (2 * math.Pi)
+		u += an * math.Pow(r/R, fn) * math.Cos(fn*(th-phi))
+	}
+	return u
+}
+
+// The disk's flux condition: the closed image form against the exact
+// Fourier series of ln|z − a| on the circle, the modes' coefficients
+// −(ρ/R)^n/n, summed directly; up to the free constant, so differences.
+func TestPointSourceNeumannDiskAgainstSeries(t *testing.T) {
+	sol := solvePointProblem(t, "lap(u) = delta(x - 0.35, y + 0.2)", domain.Disk{R: series.IntCoef(1)}, nil, "dn(u) = 1/(2*pi)")
+	if sol.Points == nil || sol.Points.Images == "" {
+		t.Fatalf("the Neumann disk is not closed by images: %+v", sol.Points)
+	}
+	if err := sol.Pin(series.Coef{}); err != nil {
+		t.Fatal(err)
+	}
+	ev, err := sol.Evaluator(domain.CheckTerms)
+	if err != nil {
+		t.Fatal(err)
+	}
+	a := complex(0.35, -0.2)
+	series := func(z complex128) float64 {
+		rho, phi := cmplx.Abs(a), cmplx.Phase(a)
+		r, th := cmplx.Abs(z), cmplx.Phase(z)
+		u := math.Log(cmplx.Abs(z-a)) / (2 * math.Pi)
+		for n := 1; n <= 300; n++ {
+			fn := float64(n)
+			u -= math.Pow(rho, fn) / fn * math.Pow(r, fn) * math.Cos(fn*(th-phi)) / (2 * math.Pi)
+		}
+		return u
+	}
+	ref := complex(-0.5, 0.1)
+	u0, _, _ := ev.AtXY(real(ref), imag(ref))
+	for _, z := range []complex128{0.1 + 0.6i, -0.3 - 0.3i, 0.7, 0.2 + 0.1i} {
+		u, _, _ := ev.AtXY(real(z), imag(z))
+		if d := (u - u0) - (series(z) - series(ref)); math.Abs(d) > 1e-12 {
+			t.Errorf("at %v: psol's difference from the series is %.3g", z, d)
+		}
+	}
+}
+
+// The flux through a small circle around the source is its strength, and
+// the report's net outward flux equals the source integral with the points
+// counted (divergence theorem), on closed and numeric paths alike.
+func TestPointSourceFluxes(t *testing.T) {
+	cases := []struct {
+		equation string
+		d        domain.Domain
+		bcs      []string
+		q        float64
+		at       [2]float64
+	}{
+		{"lap(u) = 3*delta(x - 0.2, y - 0.1) - 1", domain.Disk{R: series.IntCoef(1)}, []string{"u = 0"}, 3, [2]float64{0.2, 0.1}},
+		{"lap(u) = -2*delta(x - 0.9, y - 0.4)", domain.Rect{L: series.IntCoef(2), H: series.IntCoef(1)}, []string{"left: u = 0", "right: u = 0", "bottom: dn(u) = 0", "top: dn(u) + u = 0"}, -2, [2]float64{0.9, 0.4}},
+		{"lap(u) = delta(x - 0.5, y - 0.3)", domain.Polygon{X: []series.Coef{series.IntCoef(0), series.IntCoef(2), series.IntCoef(1)}, Y: []series.Coef{series.IntCoef(0), series.IntCoef(0), series.FracCoef(3, 2)}}, []string{"s1: u = 0", "s2: u = 0", "s3: u = 0"}, 1, [2]float64{0.5, 0.3}},
+		{"lap(u) = delta(x + 0.5, y)", domain.Annulus{R1: series.FracCoef(1, 5), R2: series.IntCoef(1)}, []string{"inner: dn(u) = 0", "outer: u = 0"}, 1, [2]float64{-0.5, 0}},
+	}
+	for _, c := range cases {
+		sol := solvePointProblem(t, c.equation, c.d, nil, c.bcs...)
+		ev, err := sol.Evaluator(domain.CheckTerms)
+		if err != nil {
+			t.Fatal(err)
+		}
+		const eps, h, n = 1e-2, 1e-5, 400
+		flux := 0.0
+		for k := 0; k < n; k++ {
+			th := 2 * math.Pi * (float64(k) + 0.5) / n
+			nx, ny := math.Cos(th), math.Sin(th)
+			x, y := c.at[0]+eps*nx, c.at[1]+eps*ny
+			up, _, _ := ev.AtXY(x+h*nx, y+h*ny)
+			um, _, _ := ev.AtXY(x-h*nx, y-h*ny)
+			flux += (up - um) / (2 * h) * eps * 2 * math.Pi / n
+		}
+		// The small disk's own source integral is part of the flux through its edge.
+		flux -= sourceInside(c.equation, eps)
+		if math.Abs(flux-c.q) > 1e-6*math.Abs(c.q) {
+			t.Errorf("%s on %s: flux through a circle round the source %.10g, want %g", c.equation, c.d.Describe(), flux, c.q)
+		}
+		rep, err := sol.Figures()
+		if err != nil {
+			t.Fatal(err)
+		}
+		if math.Abs(rep.Flux-rep.Source) > 1e-8*(1+math.Abs(rep.Source)) {
+			t.Errorf("%s on %s: net outward flux %.12g, source integral with the points %.12g", c.equation, c.d.Describe(), rep.Flux, rep.Source)
+		}
+		if c.q > 0 && !math.IsInf(rep.Min, -1) || c.q < 0 && !math.IsInf(rep.Max, 1) {
+			t.Errorf("%s: the report's extreme at the source is not infinite: max %g, min %g", c.equation, rep.Max, rep.Min)
+		}
+	}
+}
+
+// sourceInside is the distributed source's integral over a disk of radius
+// eps: the "- 1" of the first case.
+func sourceInside(equation string, eps float64) float64 {
+	if strings.HasSuffix(equation, " - 1") {
+		return -math.Pi * eps * eps
+	}
+	return 0
+}
+
+// The Green's function's area integral: ∬G(z, a) dA = (|a|² − R²)/4, by
+// Green's reciprocity with Δv = 1, v = 0 on the rim (common practice).
+func TestPointSourceAreaIntegral(t *testing.T) {
+	sol := solvePointProblem(t, "lap(u) = delta(x - 0.3, y + 0.5)", domain.Disk{R: series.IntCoef(2)}, nil, "u = 0")
+	rep, err := sol.Figures()
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := (0.09 + 0.25 - 4) / 4
+	if math.Abs(rep.Integral-want) > 1e-12 {
+		t.Errorf("area integral %.15g, want %.15g", rep.Integral, want)
+	}
+}
+
+// Points on or outside the boundary have no solution (exit 1); a delta in
+// boundary data or times a function is bad input (exit 2, with a caret).
+func TestPointSourceRefusals(t *testing.T) {
+	disk := domain.Disk{R: series.IntCoef(1)}
+	for _, eq := range []string{"lap(u) = delta(x - 1, y)", "lap(u) = delta(x - 2, y + 1)"} {
+		f, conds, err := pose(eq, disk, []string{"u = 0"}, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		_, err = domain.Solve(disk, f, conds)
+		var un *domain.Unsolvable
+		if !errors.As(err, &un) {
+			t.Errorf("%s: want no solution as posed, got %v", eq, err)
+		}
+	}
+	for _, c := range []struct{ label, text string }{
+		{"equation", "lap(u) = x*delta(x, y)"},
+		{"equation", "lap(u) = delta(x^2, y)"},
+		{"equation", "lap(u) = sin(delta(x, y))"},
+		{"equation", "lap(u) = delta(x, y)^2"},
+		{"equation", "lap(u) = 1/delta(x, y)"},
+		{"equation", "lap(u) = delta(x, y)*delta(x, y)"},
+		{"equation", "lap(u) = delta(x)"},
+		{"bc", "u = delta(x, y)"},
+	} {
+		var err error
+		if c.label == "bc" {
+			_, err = parse.Condition(c.text, disk.Sides(), nil)
+		} else {
+			_, err = parse.Equation(c.text, nil)
+		}
+		var pe *parse.Error
+		if !errors.As(err, &pe) {
+			t.Errorf("%s: want a parse error, got %v", c.text, err)
+		}
+	}
+	// A strength may be a constant expression, on either side, and δ is delta.
+	f, err := parse.Equation("-Q/T*δ(x - 1/2, y + 1) - N/T", nil)
+	if err != nil || len(f.Points) != 1 {
+		t.Fatalf("the strength form: %v, %+v", err, f.Points)
+	}
+	if got := series.PointsText(f.Points); got != "-Q/T*delta(x - 1/2, y + 1)" {
+		t.Errorf("printed %q", got)
+	}
+}
+
+// A well near a straight river at fixed head: the half-disk of a large
+// radius against the half-plane's image recharge well,
+// h = H + (Q/4πT)·ln(|z − a|²/|z − ā|²) (common practice; Bear). The arc's
+// own images move h by O(|a||z|/R²), far below the tolerance here.
+func TestPointSourceWellNearRiver(t *testing.T) {
+	env := series.Env{"Q": series.FracCoef(3, 100), "T": series.FracCoef(1, 200), "H": series.IntCoef(12)}
+	d := domain.Sector{R: series.IntCoef(100000), Alpha: series.SymCoef(series.Pi)}
+	sol := solvePointProblem(t, "T*lap(u) = Q*delta(x, y - 80)", d, env, "arc: u = H", "start: u = H", "end: u = H")
+	ev, err := sol.Evaluator(domain.CheckTerms)
+	if err != nil {
+		t.Fatal(err)
+	}
+	a := complex(0, 80)
+	for _, z := range []complex128{10 + 5i, -40 + 80i, 150 + 200i, 0 + 300i, 79 + 1i} {
+		got, _, _ := ev.AtXY(real(z), imag(z))
+		want := 12 + 0.03/(4*math.Pi*0.005)*math.Log(math.Pow(cmplx.Abs(z-a), 2)/math.Pow(cmplx.Abs(z-cmplx.Conj(a)), 2))
+		if math.Abs(got-want) > 1e-5 {
+			t.Errorf("at %v: head %.12g, the image recharge well gives %.12g", z, got, want)
+		}
+	}
+}
