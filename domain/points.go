@@ -507,16 +507,17 @@ func (s *Solution) sideCondition(name string) Condition {
 // is, the regular part there: u − (Q/2π)·ln|z − z₀| (u itself is infinite),
 // with its error estimate. It is the figure a well's drawdown at its radius
 // and a wire's self-capacitance come from.
-func (e *Evaluator) AtSource(x, y float64) (regular, errEst float64, ok bool) {
-	k, ok := e.pts.source(x, y)
+// k is the source's index in PointPart.Sources.
+func (e *Evaluator) AtSource(x, y float64) (regular, errEst float64, k int, ok bool) {
+	k, ok = e.pts.source(x, y)
 	if !ok {
-		return 0, 0, false
+		return 0, 0, 0, false
 	}
 	pts := e.pts
 	e.pts = nil
 	w, est, _ := e.AtXY(x, y)
 	e.pts = pts
-	return w + pts.regular(x, y, k), est, true
+	return w + pts.regular(x, y, k), est, k, true
 }
 
 // pointFigures adds u_s's share to a report whose region figures covered

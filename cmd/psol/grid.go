@@ -62,6 +62,9 @@ func writeGrid(files *stagedFiles, path string, sol *domain.Solution, n int, pro
 				if r == 0 && j > 0 {
 					break // the centre once
 				}
+				if math.IsInf(u[i][j], 0) {
+					continue // a point source: u is infinite there (its regular part is --at's)
+				}
 				line = line[:0]
 				for k, v := range [6]float64{r, th, r * math.Cos(th), r * math.Sin(th), u[i][j], errs[i][j] + sol.DataError} {
 					if k > 0 {
@@ -104,6 +107,9 @@ func writeCartesianGrid(files *stagedFiles, path string, box domain.Box, ev *dom
 			for j := 0; j < n; j++ {
 				x, y := box.X0+(box.X1-box.X0)*float64(i)/float64(n-1), box.Y0+(box.Y1-box.Y0)*float64(j)/float64(n-1)
 				u, e, _ := ev.AtXY(x, y)
+				if math.IsInf(u, 0) {
+					continue // a point source: u is infinite there (its regular part is --at's)
+				}
 				line = line[:0]
 				for k, v := range [4]float64{x, y, u, e} {
 					if k > 0 {

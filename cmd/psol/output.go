@@ -31,23 +31,25 @@ type checkOut struct {
 
 // view is everything a renderer prints, computed once.
 type view struct {
-	Problem    stage       `json:"problem"`
-	Particular stage       `json:"particular"`
-	Images     *stage      `json:"images,omitempty"`
-	Trace      stage       `json:"trace"`
-	Correction stage       `json:"correction"`
-	Harmonic   stage       `json:"harmonic"`
-	Solution   stage       `json:"solution"`
-	Checks     []checkOut  `json:"checks"`
-	Points     []point     `json:"points"`
-	Steps      []string    `json:"steps,omitempty"`
-	Report     *reportOut  `json:"report,omitempty"`
-	ClosedForm *stage      `json:"closed_form,omitempty"`
-	Quantities []figureOut `json:"quantities,omitempty"`
-	Caution    string      `json:"caution,omitempty"`
-	Warnings   []string    `json:"warnings"`
-	showSteps  bool
-	checkScope string // how far an exact check reaches, for series
+	Problem    stage  `json:"problem"`
+	Particular stage  `json:"particular"`
+	Images     *stage `json:"images,omitempty"`
+	// PointSources are the source's points, with their strengths.
+	PointSources []pointSourceOut `json:"point_sources,omitempty"`
+	Trace        stage            `json:"trace"`
+	Correction   stage            `json:"correction"`
+	Harmonic     stage            `json:"harmonic"`
+	Solution     stage            `json:"solution"`
+	Checks       []checkOut       `json:"checks"`
+	Points       []point          `json:"points"`
+	Steps        []string         `json:"steps,omitempty"`
+	Report       *reportOut       `json:"report,omitempty"`
+	ClosedForm   *stage           `json:"closed_form,omitempty"`
+	Quantities   []figureOut      `json:"quantities,omitempty"`
+	Caution      string           `json:"caution,omitempty"`
+	Warnings     []string         `json:"warnings"`
+	showSteps    bool
+	checkScope   string // how far an exact check reaches, for series
 	// where defines, for LaTeX, the symbols the formulas use but do not
 	// spell out (u_q, a fitted h's poles and basis), one clause each.
 	where []string
@@ -284,7 +286,7 @@ func renderText(w io.Writer, v *view) error {
 	for _, p := range v.Points {
 		at := fmt.Sprintf("r = %.10g, theta = %.10g (x = %.10g, y = %.10g): u = %.12g", p.R, p.Theta, p.X, p.Y, p.U)
 		if p.Regular {
-			at = fmt.Sprintf("r = %.10g, theta = %.10g (x = %.10g, y = %.10g), a point source: u is infinite; its regular part u - (Q/2pi)*ln|z - z0| = %.12g", p.R, p.Theta, p.X, p.Y, p.U)
+			at = fmt.Sprintf("r = %.10g, theta = %.10g (x = %.10g, y = %.10g), a point source: u is infinite; its regular part u - (Q/(2*pi))*ln|z - z0| = %.12g, Q = %s", p.R, p.Theta, p.X, p.Y, p.U, p.strength)
 		}
 		switch {
 		case p.Terms > 0:

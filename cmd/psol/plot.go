@@ -119,6 +119,21 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 		}
 		at = polarSampler(ev, rlo, rhi, n, 2*n)
 	}
+	sources, err := pointSources(sol)
+	if err != nil {
+		return usagef("--plot: %w", err)
+	}
+	// The colour scale leaves out a few cells round each point source, where
+	// u grows like a logarithm: those cells take the scale's end colour.
+	clip := 3 * math.Max(f.dx, f.dy)
+	nearSource := func(x, y float64) bool {
+		for _, s := range sources {
+			if math.Hypot(x-s.X, y-s.Y) < clip {
+				return true
+			}
+		}
+		return false
+	}
 	for r := 0; r < n; r++ {
 		for c := 0; c < n; c++ {
 			x, y := f.X(c), f.Y(r)
@@ -129,9 +144,16 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 			v := math.NaN()
 			if in, _ := sol.Domain.Contains(rad, th, env); in {
 				v = at(rad, th)
-				f.min, f.max = math.Min(f.min, v), math.Max(f.max, v)
+				if !nearSource(x, y) {
+					f.min, f.max = math.Min(f.min, v), math.Max(f.max, v)
+				}
 			}
 			f.z[r*n+c] = v
+		}
+	}
+	for i, v := range f.z {
+		if !math.IsNaN(v) {
+			f.z[i] = math.Max(f.min, math.Min(f.max, v))
 		}
 	}
 	if !(f.max > f.min) {
@@ -161,6 +183,14 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 		}
 		l.Width = vg.Points(1.5)
 		p.Add(l)
+	}
+	if len(sources) > 0 { // each point source marked
+		sc, err := plotter.NewScatter(sources)
+		if err != nil {
+			return err
+		}
+		sc.GlyphStyle = draw.GlyphStyle{Shape: draw.CrossGlyph{}, Radius: vg.Points(4), Color: color.NRGBA{R: 200, A: 255}}
+		p.Add(sc)
 	}
 	// Equal scales on both axes, so that the domain keeps its true shape.
 	if w, h := x1-x0, y1-y0; w > h {
@@ -285,4 +315,24 @@ func plotFormat(path string) (string, error) {
 		return "svg", nil
 	}
 	return "", usagef("--plot %s: the file name must end in .png or .svg", path)
+}
+
+// pointSources are the positions of the solution's point sources.
+func pointSources(sol *domain.Solution) (plotter.XYs, error) {
+	if sol.Points == nil {
+		return nil, nil
+	}
+	var out plotter.XYs
+	for _, p := range sol.Points.Sources {
+		x, err := p.X.Float(sol.Options.Env)
+		if err != nil {
+			return nil, err
+		}
+		y, err := p.Y.Float(sol.Options.Env)
+		if err != nil {
+			return nil, err
+		}
+		out = append(out, plotter.XY{X: x, Y: y})
+	}
+	return out, nil
 }

@@ -21,8 +21,9 @@ type point struct {
 	Input string  `json:"input"`
 	// Regular marks a point source's position: U is the regular part
 	// u − (Q/2π)·ln|z − z₀| there, u itself being infinite.
-	Regular bool `json:"regular_part,omitempty"`
-	inXY    bool // given as x and y: evaluated in them
+	Regular  bool   `json:"regular_part,omitempty"`
+	strength string // the source's strength Q there, as printed
+	inXY     bool   // given as x and y: evaluated in them
 }
 
 // readPoint reads "r=…,theta=…" or "x=…,y=…".
@@ -93,8 +94,9 @@ func evaluate(sol *domain.Solution, pts []point) error {
 		if !in {
 			return &parse.Error{Label: "--at", Input: pts[i].Input, Msg: "the point lies outside " + sol.Domain.Describe()}
 		}
-		if reg, est, ok := ev.AtSource(pts[i].X, pts[i].Y); ok {
+		if reg, est, k, ok := ev.AtSource(pts[i].X, pts[i].Y); ok {
 			pts[i].U, pts[i].Error, pts[i].Regular = reg, est, true
+			pts[i].strength = sol.Points.Sources[k].Q.Text()
 		} else if pts[i].inXY {
 			pts[i].U, pts[i].Error, pts[i].Terms = ev.AtXY(pts[i].X, pts[i].Y)
 		} else {

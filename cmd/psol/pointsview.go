@@ -14,6 +14,18 @@ import (
 // data less B[u_s].
 func (v *view) pointStages(sol *domain.Solution) {
 	pp := sol.Points
+	for _, p := range pp.Sources {
+		out := pointSourceOut{X: p.X.Text(), Y: p.Y.Text(), Strength: p.Q.Text()}
+		for _, f := range []struct {
+			c  series.Coef
+			to **float64
+		}{{p.X, &out.XValue}, {p.Y, &out.YValue}, {p.Q, &out.StrengthValue}} {
+			if x, err := f.c.Float(sol.Options.Env); err == nil {
+				*f.to = &x
+			}
+		}
+		v.PointSources = append(v.PointSources, out)
+	}
 	own := &domain.PointPart{Logs: pp.Logs[:len(pp.Sources)]}
 	v.Particular.Text = "u_p = " + joinNonzero(strings.TrimPrefix(v.Particular.Text, "u_p = "), own.Text())
 	v.Particular.LaTeX = joinNonzero(v.Particular.LaTeX, own.LaTeX())
@@ -56,6 +68,17 @@ func (v *view) pointStages(sol *domain.Solution) {
 		what = "their field with the " + pp.Images + ", $u_s = u_{p,\\delta} + u_i$"
 	}
 	v.where = append(v.where, `$u_s$ is `+what+`, and the correction is $g$ less the trace of $u_p$ and of $u_s$`)
+}
+
+// pointSourceOut is one point source Q·δ(x − X, y − Y) in JSON: exact
+// forms, and numbers where the parameters have values.
+type pointSourceOut struct {
+	X             string   `json:"x"`
+	Y             string   `json:"y"`
+	Strength      string   `json:"strength"`
+	XValue        *float64 `json:"x_value,omitempty"`
+	YValue        *float64 `json:"y_value,omitempty"`
+	StrengthValue *float64 `json:"strength_value,omitempty"`
 }
 
 // joinNonzero joins two printed sums with the right sign, dropping a "0".
