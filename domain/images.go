@@ -17,6 +17,7 @@ var imageRules = []struct {
 }{
 	{"images in the circle", diskImages},
 	{"images in the rays and the circle", sectorImages},
+	{"images in the circle", outsideImages},
 }
 
 // imagesFor is u_s with images where a rule fits, nil where none does.
@@ -203,4 +204,25 @@ func cosSinPi(q *big.Rat) (c, s series.Coef, ok bool) {
 	}
 	v, ok := table[n]
 	return v[0], v[1], ok
+}
+
+// outsideImages: outside a circle at fixed values, each source's Kelvin
+// image inside the circle with the opposite strength. The pair vanishes on
+// the circle and stays bounded far away (it tends to −(Q/4π)·ln(ρ²/R²)),
+// the class psol's exterior solutions belong to; the sources' own field
+// alone would grow like (Q/2π)·ln r. A flux on the circle has no such pair.
+func outsideImages(d Domain, conds map[string]Condition, pts []series.PointSource) (*PointPart, bool) {
+	out, ok := d.(Outside)
+	if !ok || conds["rim"].Kind != Dirichlet {
+		return nil, false
+	}
+	var orbit []signedPoint
+	for _, p := range pts {
+		orbit = append(orbit, signedPoint{p.Q, p.X, p.Y})
+	}
+	logs, _, _, ok := circleImages(out.R, orbit, Dirichlet)
+	if !ok {
+		return nil, false
+	}
+	return &PointPart{Sources: pts, Logs: logs, Traces: map[string]series.Field{"rim": constField(series.Coef{})}}, true
 }

@@ -379,6 +379,9 @@ func nearestT(side SidePath, x, y float64) float64 {
 // on the sides are numeric data for w (each side's operator on u_s, with
 // the outward normal of the side's point nearest to where it is asked).
 func ownField(d Domain, conds map[string]Condition, pts []series.PointSource, env series.Env) (*PointPart, error) {
+	if _, ok := d.(Outside); ok {
+		return nil, unsupported("a point source outside a circle is solved by its image in the circle, which needs values on the circle (u = g); with a flux there the source's strength has to leave through infinity, and psol's exterior solutions stay bounded")
+	}
 	if _, ok := d.(Sector); ok {
 		return nil, unsupported("a point source in a sector is solved by images, which need the angle pi/k (k = 1, 2, 3, 4 or 6) and the same kind of condition on both rays (u = 0 or dn(u) = 0 once the constant is taken out), and the arc at a value or a flux; %s does not meet that", d.Describe())
 	}
@@ -531,7 +534,9 @@ func (s *Solution) pointFigures(rep *Report, shape Shape, env series.Env) error 
 	if err != nil {
 		return err
 	}
-	if !math.IsInf(shape.Area, 1) && !math.IsNaN(rep.Integral) {
+	if math.IsInf(shape.Area, 1) { // u_s tends to a constant, or grows: no finite integral
+		rep.Integral, rep.IntegralExact, rep.Mean = math.NaN(), nil, math.NaN()
+	} else if !math.IsNaN(rep.Integral) {
 		rep.Integral += pe.areaIntegral(shape)
 		rep.IntegralExact = nil
 		if A, err := rep.Area.Float(env); err == nil && A > 0 {

@@ -100,6 +100,13 @@ func TestPointSourcesAgainstClosedForms(t *testing.T) {
 			tol: 1e-12, source: "finite image system (Jackson ch. 2) with the disk's images",
 		},
 		{
+			name: "line charge outside a grounded cylinder", equation: "lap(u) = delta(x - 2, y - 0.5)",
+			d: domain.Outside{R: series.IntCoef(1)}, bcs: []string{"u = 0"},
+			// the same Kelvin pair, bounded far away
+			want: func(x, y float64) float64 { return diskGreen(complex(x, y), complex(2, 0.5), 1) },
+			tol:  1e-12, source: "images (Jackson ch. 2; Smythe)",
+		},
+		{
 			name: "point source in a rectangle with fixed values", equation: "lap(u) = delta(x - 0.7, y - 0.35)",
 			d: domain.Rect{L: series.IntCoef(2), H: series.IntCoef(1)}, bcs: []string{"left: u = 0", "right: u = 0", "bottom: u = 0", "top: u = 0"},
 			want: func(x, y float64) float64 { return rectGreen(x, y, 0.7, 0.35, 2, 1) },

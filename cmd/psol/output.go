@@ -311,8 +311,10 @@ func renderText(w io.Writer, v *view) error {
 			}
 		}
 		switch {
-		case r.Integral != nil:
+		case r.Integral != nil && r.Mean != nil:
 			line(w, "report", "area integral of u = "+figure(r.IntegralText, *r.Integral)+fmt.Sprintf(", mean u = %.12g", *r.Mean))
+		case r.Integral != nil:
+			line(w, "report", "area integral of u = "+figure(r.IntegralText, *r.Integral))
 		case r.IntegralText != "":
 			line(w, "report", "area integral of u = "+r.IntegralText+", area = "+r.AreaText)
 		default:

@@ -4,6 +4,8 @@ import (
 	"errors"
 	"fmt"
 	"io"
+	"os"
+	"runtime/debug"
 	"strings"
 
 	"github.com/spf13/cobra"
@@ -38,6 +40,9 @@ func run(args []string, stdout, stderr io.Writer) (status int) {
 	defer func() {
 		if r := recover(); r != nil {
 			fmt.Fprintf(stderr, "psol: internal error (please report it with the command line): %v\n", r)
+			if os.Getenv("PSOL_STACK") != "" {
+				debug.PrintStack()
+			}
 			status = 3
 		}
 	}()
