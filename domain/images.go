@@ -14,10 +14,12 @@ import (
 var imageRules = []struct {
 	name string
 	fits func(d Domain, conds map[string]Condition, pts []series.PointSource) (*PointPart, bool)
+	// verify checks the rule's claims exactly (imagecheck.go).
+	verify func(d Domain, conds map[string]Condition, pp *PointPart) error
 }{
-	{"images in the circle", diskImages},
-	{"images in the rays and the circle", sectorImages},
-	{"images in the circle", outsideImages},
+	{"images in the circle", diskImages, verifyDisk},
+	{"images in the rays and the circle", sectorImages, verifySector},
+	{"images in the circle", outsideImages, verifyOutside},
 }
 
 // imagesFor is u_s with images where a rule fits, nil where none does.
@@ -25,6 +27,7 @@ func imagesFor(d Domain, conds map[string]Condition, pts []series.PointSource) (
 	for _, rule := range imageRules {
 		if pp, ok := rule.fits(d, conds, pts); ok {
 			pp.Images = rule.name
+			pp.verify = func() error { return rule.verify(d, conds, pp) }
 			return pp, nil
 		}
 	}

@@ -81,6 +81,7 @@ type PointPart struct {
 	// Traces are B[u_s] on each side, by side: exact constants with images,
 	// numeric functions otherwise.
 	Traces map[string]series.Field
+	verify func() error // the image rule's exact check of its claims
 }
 
 // Text is u_s in psol's syntax.
@@ -290,6 +291,7 @@ func solvePoints(d Domain, source series.Field, conds []Condition, opt Options) 
 	}
 	sol.stages = append(sol.stages, pp)
 	if pp.Images != "" {
+		sol.Checks = append(sol.Checks, exactImageCheck(pp, pp.verify))
 		if c, ok := imageCheck(d, sol, pp, opt.Env); ok {
 			sol.Checks = append(sol.Checks, c)
 		}
@@ -448,7 +450,7 @@ func imageCheck(d Domain, sol *Solution, pp *PointPart, env series.Env) (Check, 
 	if err != nil {
 		return Check{}, false
 	}
-	c := Check{Name: "u_s: images outside the region, and B[u_s] on each side as stated (sampled)"}
+	c := Check{Name: "B[u_s] less its stated trace, images outside"}
 	for k := len(pp.Sources); k < len(pe.c); k++ {
 		r, th := polarOf(pe.x[k], pe.y[k])
 		if in, err := d.Contains(r, th, env); err == nil && in && r > 1e-12 {

@@ -71,3 +71,20 @@ func TestSineCoefficient(t *testing.T) {
 		}
 	}
 }
+
+// ModCircle: x² + y² − 4 vanishes on the circle of radius 2; x·y³ reduces
+// to x·y·(4 − x²); a polynomial that does not vanish there stays nonzero.
+func TestModCircle(t *testing.T) {
+	four := series.IntCoef(4)
+	if p := X.Mul(X).Add(Y.Mul(Y)).Sub(Monomial(four, 0, 0)); !p.ModCircle(four).IsZero() {
+		t.Errorf("x^2 + y^2 - 4 reduces to %s", p.ModCircle(four).Text())
+	}
+	xy3 := X.Mul(Y).Mul(Y).Mul(Y)
+	want := X.Mul(Y).Mul(Monomial(four, 0, 0).Sub(X.Mul(X)))
+	if got := xy3.ModCircle(four); !got.Equal(want) {
+		t.Errorf("x*y^3 reduces to %s, want %s", got.Text(), want.Text())
+	}
+	if X.Add(Y).ModCircle(four).IsZero() {
+		t.Error("x + y reduces to zero")
+	}
+}

@@ -311,3 +311,39 @@ func (p Poly) Terms() []PolyTerm {
 	}
 	return out
 }
+
+// ModCircle is p reduced modulo x² + y² − R2: every y² replaced by
+// R2 − x² until y's degree is at most 1. p vanishes on the circle
+// x² + y² = R2 exactly when the result is zero (a polynomial in x plus y
+// times one vanishes at infinitely many points of the circle only if both do).
+func (p Poly) ModCircle(R2 series.Coef) Poly {
+	out := Poly{}
+	for _, t := range p.t {
+		out = out.Add(reduceCircle(t, R2))
+	}
+	return out
+}
+
+// reduceCircle is c·x^i·y^j with y^j = y^(j mod 2)·(R2 − x²)^(j div 2).
+func reduceCircle(t term, R2 series.Coef) Poly {
+	acc := Monomial(t.c, t.i, t.j%2)
+	step := Monomial(R2, 0, 0).Sub(Monomial(series.IntCoef(1), 2, 0))
+	for k := 0; k < t.j/2; k++ {
+		acc = acc.Mul(step)
+	}
+	return acc
+}
+
+// RadialDerivative is x·∂p/∂x + y·∂p/∂y, which is r·∂p/∂r.
+func (p Poly) RadialDerivative() Poly { return X.Mul(p.DX()).Add(Y.Mul(p.DY())) }
+
+// Const reports p as a constant.
+func (p Poly) Const() (series.Coef, bool) {
+	switch {
+	case len(p.t) == 0:
+		return series.Coef{}, true
+	case len(p.t) == 1 && p.t[0].i == 0 && p.t[0].j == 0:
+		return p.t[0].c, true
+	}
+	return series.Coef{}, false
+}
