@@ -6,6 +6,7 @@ import (
 	"os/exec"
 	"path/filepath"
 	"regexp"
+	"strconv"
 	"strings"
 	"testing"
 )
@@ -67,10 +68,45 @@ func TestLaTeXCompiles(t *testing.T) {
 		`psol solve "lap(u) = r^(1/2)*cos(theta) + ln(r)" --disk 2 --bc "u = x*y" --format latex`,
 		`psol particular "ln(r)" --format latex`,
 		`psol solve "lap(u) = -2" --sector 1,3*pi/2 --bc "arc: u = 0" --bc "start: u = 0" --bc "end: u = 0" --format latex`,
-		`psol solve "lap(u) = x" --sector 2,pi/3 --bc "arc: dn(u) = 0" --bc "start: dn(u) = 0" --bc "end: u = 1" --format latex`,
 		`psol solve "-k*lap(u) = q" --disk 1 --bc "u = theta < pi/2 ? 100 : 20" --format latex`,
-		`psol solve "lap(u) = 0" --annulus 1,2 --bc "inner: u = abs(sin(theta))" --bc "outer: u = 0" --format latex`,
 		`psol solve "lap(u) = 0" --disk 1 --bc "u = exp(cos(theta))" --format latex`,
+		`psol solve "-eps*lap(u) = lam*delta(x - a, y)" --disk R --bc "u = 0" --format latex`,
+		`psol solve "lap(u) = -delta(x - 0.5, y - 0.2)" --sector 1,pi/3 --bc "arc: dn(u) = 0" --bc "start: u = 0" --bc "end: u = 0" --format latex`,
+		`psol solve "lap(u) = -1" --rect 1,1 --bc "left: u = 0" --bc "right: u = 0" --bc "bottom: u = 0" --bc "top: u = 0" --format latex`,
+	} {
+		doc += runLine(t, c)
+	}
+	// Every LaTeX example of the README.
+	readme, err := os.ReadFile("../../README.md")
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, ln := range strings.Split(string(readme), "\n") {
+		if strings.HasPrefix(ln, "$ psol ") && strings.Contains(ln, "--format latex") {
+			doc += runLine(t, strings.TrimPrefix(ln, "$ "))
+		}
+	}
+	// Every demo's LaTeX: the formulas between "% psol:" and "% check".
+	for _, d := range scenarios {
+		on := false
+		for _, ln := range strings.SplitAfter(runLine(t, "psol demo "+d.name+" --format latex"), "\n") {
+			if strings.HasPrefix(ln, "% psol:") {
+				on = true
+			}
+			if on {
+				doc += ln
+			}
+			if strings.HasPrefix(ln, "% check") {
+				on = false
+			}
+		}
+	}
+	// Compiled, not held to the width: a series whose general term is one
+	// fraction wider than a line (its denominator cannot be broken).
+	unchecked := strings.Count(doc, "\n") + 1
+	for _, c := range []string{
+		`psol solve "lap(u) = x" --sector 2,pi/3 --bc "arc: dn(u) = 0" --bc "start: dn(u) = 0" --bc "end: u = 1" --format latex`,
+		`psol solve "lap(u) = 0" --annulus 1,2 --bc "inner: u = abs(sin(theta))" --bc "outer: u = 0" --format latex`,
 	} {
 		doc += runLine(t, c)
 	}
@@ -83,6 +119,32 @@ func TestLaTeXCompiles(t *testing.T) {
 	cmd.Dir = dir
 	if out, err := cmd.CombinedOutput(); err != nil {
 		t.Fatalf("pdflatex: %v\n%s\n%s", err, out, doc)
+	}
+	// No line past the margin by more than 10 pt (long sums are broken
+	// across lines), and nothing undefined.
+	log, err := os.ReadFile(filepath.Join(dir, "t.log"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	over := regexp.MustCompile(`Overfull \\[hv]box \(([0-9.]+)pt too (wide|high)\)[^\n]*?(line|lines) ([0-9]+)`)
+	texLines := strings.Split(doc, "\n")
+	for _, m := range over.FindAllStringSubmatch(string(log), -1) {
+		n, _ := strconv.Atoi(m[4])
+		if pt, _ := strconv.ParseFloat(m[1], 64); pt > 10 && n < unchecked {
+			at := "" // the block's widest line: "detected at" names the end of a display
+			for k := n - 1; k >= 0 && k < len(texLines); k-- {
+				if len(texLines[k]) > len(at) {
+					at = texLines[k]
+				}
+				if strings.HasPrefix(texLines[k], `\begin`) || k < n-40 {
+					break
+				}
+			}
+			t.Errorf("pdflatex: %s:\n%s", m[0], at)
+		}
+	}
+	if strings.Contains(string(log), "Undefined control sequence") {
+		t.Error("pdflatex: an undefined control sequence")
 	}
 }
 

@@ -491,18 +491,31 @@ func checkSummary(cs []checkOut) string {
 func renderLaTeX(w io.Writer, v *view) error {
 	fmt.Fprintf(w, "%% psol: %s\n", v.Problem.Text)
 	fmt.Fprintln(w, `\begin{align*}`)
-	fmt.Fprintf(w, "  & %s \\\\\n", v.Problem.LaTeX)
-	rows := v.stages()
-	for i, s := range rows {
-		end := ` \\`
-		if i == len(rows)-1 {
-			end = ""
+	var lines []string
+	for i, l := range breakLaTeX(v.Problem.LaTeX) {
+		if i > 0 {
+			l = `\quad ` + l
 		}
-		fmt.Fprintf(w, "  %s &= %s%s\n", s.tex, s.LaTeX, end)
+		lines = append(lines, "  & "+l)
 	}
+	for _, s := range v.stages() {
+		for i, l := range breakLaTeX(s.LaTeX) {
+			if i == 0 {
+				lines = append(lines, "  "+s.tex+" &= "+l)
+			} else {
+				lines = append(lines, `  &\quad `+l)
+			}
+		}
+	}
+	sep := " \\\\\n"
+	if len(lines) > 12 { // taller than a page's share: let the page break between lines
+		sep = ` \displaybreak[0]` + sep
+	}
+	fmt.Fprintln(w, strings.Join(lines, sep))
 	fmt.Fprintln(w, `\end{align*}`)
 	if len(v.where) > 0 {
-		fmt.Fprintf(w, "\\noindent where %s.\n", strings.Join(v.where, "; "))
+		// sloppy: a long inline formula moves to a line of its own rather than past the margin
+		fmt.Fprintf(w, "{\\sloppy\\noindent where %s.\\par}\n", strings.Join(v.where, "; "))
 	}
 	fmt.Fprintf(w, "%% check: %s\n", checkSummary(v.Checks))
 	return nil
