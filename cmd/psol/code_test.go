@@ -426,3 +426,43 @@ func TestIsolines(t *testing.T) {
 		}
 	}
 }
+
+// No two contour labels' boxes overlap, and each box lies inside the
+// region (on a field with a hole of NaN in the middle).
+func TestContourLabelsApart(t *testing.T) {
+	const n = 160
+	f := &field{x0: -1, y0: -1, dx: 2.0 / (n - 1), dy: 2.0 / (n - 1), nx: n, ny: n, z: make([]float64, n*n), min: math.Inf(1), max: math.Inf(-1)}
+	for r := 0; r < n; r++ {
+		for c := 0; c < n; c++ {
+			x, y := f.X(c), f.Y(r)
+			v := math.NaN()
+			if h := math.Hypot(x, y); h < 1 && h > 0.2 {
+				v = x*x - y + 0.3*math.Sin(5*x)
+				f.min, f.max = math.Min(f.min, v), math.Max(f.max, v)
+			}
+			f.z[r*n+c] = v
+		}
+	}
+	var levels []float64
+	for i := 1; i <= 12; i++ {
+		levels = append(levels, f.min+(f.max-f.min)*float64(i)/13)
+	}
+	labels := contourLabels(f, levels, 2, 2)
+	if labels == nil || len(labels.XYs) < 4 {
+		t.Fatalf("too few labels placed: %v", labels)
+	}
+	// The box contourLabels reserves, in data units.
+	bw, bh := 0.45/5.3*2, 0.17/4.6*2
+	for i, p := range labels.XYs {
+		for j, q := range labels.XYs[:i] {
+			if math.Abs(p.X-q.X) < bw && math.Abs(p.Y-q.Y) < bh {
+				t.Errorf("labels %d (%v) and %d (%v) overlap", i, p, j, q)
+			}
+		}
+		for _, d := range [][2]float64{{0, 0}, {bw, 0}, {0, bh}, {bw, bh}} {
+			if h := math.Hypot(p.X+d[0], p.Y+d[1]); h >= 1 || h <= 0.2 {
+				t.Errorf("label %d's box reaches outside the region at %v", i, d)
+			}
+		}
+	}
+}
