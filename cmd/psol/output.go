@@ -543,6 +543,7 @@ func (v *view) seriesStages(sol *domain.Solution, ps *domain.SeriesParts) {
 	if sol.RaysByShift {
 		v.Steps = append(v.Steps, "the rays' values are carried by the harmonic shift w = "+h.Text()+"; the modes vanish on the rays")
 		v.Correction = exactStage("correction", ps.Correction.Text(), ps.Correction.LaTeX(), `g - w - `+traceTeX(side))
+		v.where = append(v.where, `$w = `+h.LaTeX()+`$ is the harmonic shift that carries the rays' values, so that the modes vanish on the rays`)
 	} else {
 		var co, coTeX []string
 		for _, s := range sol.Sides {
@@ -704,6 +705,12 @@ func (v *view) rectStages(sol *domain.Solution) {
 			v.Particular.Exact, v.Trace.Exact = false, false
 		}
 		v.checkScope = "; the numeric side series as summed"
+	}
+	for _, side := range rp.Sides {
+		if side.Eigen != nil {
+			v.where = append(v.where, `$\mu_n$ and $\delta_n$ are the $n$-th mode's wavenumber and phase along a side with a convective neighbour, fixed by its two neighbours' conditions; $Y_n(d)$ is the mode's profile across, $d$ the distance from the opposite side, meeting that side's condition and scaled to 1 under this side's operator; $b_n$ its coefficient, fitted to the side's data (numeric)`)
+			break
+		}
 	}
 }
 
