@@ -3,6 +3,7 @@ package domain_test
 import (
 	"errors"
 	"math"
+	"math/big"
 	"math/cmplx"
 	"strings"
 	"testing"
@@ -366,6 +367,35 @@ func TestPointSourceWellNearRiver(t *testing.T) {
 		want := 12 + 0.03/(4*math.Pi*0.005)*math.Log(math.Pow(cmplx.Abs(z-a), 2)/math.Pow(cmplx.Abs(z-cmplx.Conj(a)), 2))
 		if math.Abs(got-want) > 1e-5 {
 			t.Errorf("at %v: head %.12g, the image recharge well gives %.12g", z, got, want)
+		}
+	}
+}
+
+// A heating wire in a slab with fixed-temperature ends and convecting
+// faces, on two independent numeric paths: the rectangle's eigenfunction
+// series and the same rectangle as a polygon (the rational fit). They
+// share only u_s.
+func TestPointSourceSlabTwoPaths(t *testing.T) {
+	env := series.Env{"k": series.IntCoef(15), "P": series.IntCoef(40), "hc": series.IntCoef(25)}
+	eq := "-k*lap(u) = P*delta(x - 0.02, y - 0.01)"
+	rect := solvePointProblem(t, eq, domain.Rect{L: series.FracCoef(1, 20), H: series.FracCoef(1, 50)}, env,
+		"left: u = 20", "right: u = 20", "bottom: -k*dn(u) = hc*(u - 20)", "top: -k*dn(u) = hc*(u - 20)")
+	c := func(v float64) series.Coef { return series.RatCoef(new(big.Rat).SetFloat64(v)) }
+	poly := domain.Polygon{X: []series.Coef{c(0), c(0.05), c(0.05), c(0)}, Y: []series.Coef{c(0), c(0), c(0.02), c(0.02)}}
+	sec := solvePointProblem(t, eq, poly, env, "s1: -k*dn(u) = hc*(u - 20)", "s3: -k*dn(u) = hc*(u - 20)", "s2: u = 20", "s4: u = 20")
+	er, err := rect.Evaluator(domain.CheckTerms)
+	if err != nil {
+		t.Fatal(err)
+	}
+	es, err := sec.Evaluator(domain.CheckTerms)
+	if err != nil {
+		t.Fatal(err)
+	}
+	for _, p := range [][2]float64{{0.03, 0.01}, {0.045, 0.018}, {0.005, 0.002}, {0.021, 0.0105}} {
+		a, _, _ := er.AtXY(p[0], p[1])
+		b, _, _ := es.AtXY(p[0], p[1])
+		if math.Abs(a-b) > 1e-8 {
+			t.Errorf("at %v: the rectangle gives %.12g, the polygon %.12g", p, a, b)
 		}
 	}
 }
