@@ -3,6 +3,8 @@ package main
 import (
 	"fmt"
 	"math"
+	"strconv"
+	"strings"
 
 	"psol/domain"
 	"psol/parse"
@@ -28,18 +30,65 @@ type point struct {
 
 // readPoint reads "r=…,theta=…" or "x=…,y=…".
 func readPoint(text string, env series.Env) (point, error) {
+	vals, ok := plainPoint(text)
+	if !ok {
+		var err error
+		if vals, err = boundPoint(text, env); err != nil {
+			return point{}, err
+		}
+	}
+	return pointFrom(text, vals)
+}
+
+// plainPoint reads the common form with plain decimal numbers,
+// "x=0.25,y=-1e-3", without the grammar (ten thousand --at points would
+// otherwise spend most of their time in it). A decimal reads to the same
+// float64 either way: both round the exact value correctly.
+func plainPoint(text string) (map[string]float64, bool) {
+	vals := map[string]float64{}
+	for _, part := range strings.Split(text, ",") {
+		name, num, ok := strings.Cut(part, "=")
+		if !ok {
+			return nil, false
+		}
+		name, num = strings.TrimSpace(name), strings.TrimSpace(num)
+		switch name {
+		case "r", "theta", "x", "y":
+		case "θ":
+			name = "theta"
+		default:
+			return nil, false
+		}
+		if !plainDecimal(num) {
+			return nil, false
+		}
+		v, err := strconv.ParseFloat(num, 64)
+		if err != nil || math.IsInf(v, 0) || math.IsNaN(v) {
+			return nil, false // pi/4, 2e999 and the rest: the grammar says what they are
+		}
+		if _, dup := vals[name]; dup {
+			return nil, false
+		}
+		vals[name] = v
+	}
+	return vals, true
+}
+
+// boundPoint reads a point's bindings with the grammar: expressions,
+// parameters, and the positioned errors.
+func boundPoint(text string, env series.Env) (map[string]float64, error) {
 	bs, err := parse.Bindings("--at", text, env)
 	if err != nil {
-		return point{}, err
+		return nil, err
 	}
 	vals := map[string]float64{}
 	for _, b := range bs {
 		v, err := b.Value.Float(env)
 		if err != nil {
-			return point{}, usagef("--at %s: %w", text, err)
+			return nil, usagef("--at %s: %w", text, err)
 		}
 		if math.IsNaN(v) || math.IsInf(v, 0) {
-			return point{}, &parse.Error{Label: "--at", Input: text, Msg: fmt.Sprintf("%s is beyond float64's range", b.Name)}
+			return nil, &parse.Error{Label: "--at", Input: text, Msg: fmt.Sprintf("%s is beyond float64's range", b.Name)}
 		}
 		name := b.Name
 		if name == "θ" {
@@ -47,6 +96,11 @@ func readPoint(text string, env series.Env) (point, error) {
 		}
 		vals[name] = v
 	}
+	return vals, nil
+}
+
+// pointFrom checks the coordinates given and fills both systems.
+func pointFrom(text string, vals map[string]float64) (point, error) {
 	p := point{Input: text}
 	_, hasR := vals["r"]
 	_, hasT := vals["theta"]
@@ -111,4 +165,40 @@ func evaluate(sol *domain.Solution, pts []point) error {
 		}
 	}
 	return nil
+}
+
+// plainDecimal reports a number in the grammar's own form, with a sign:
+// [+-](d+.d+ | d+ | .d+)([eE][+-]d+).
+func plainDecimal(s string) bool {
+	if s != "" && (s[0] == '+' || s[0] == '-') {
+		s = s[1:]
+	}
+	digits := func() int {
+		n := 0
+		for n < len(s) && s[n] >= '0' && s[n] <= '9' {
+			n++
+		}
+		d := n
+		s = s[n:]
+		return d
+	}
+	whole := digits()
+	if s != "" && s[0] == '.' {
+		s = s[1:]
+		if digits() == 0 {
+			return false
+		}
+	} else if whole == 0 {
+		return false
+	}
+	if s != "" && (s[0] == 'e' || s[0] == 'E') {
+		s = s[1:]
+		if s != "" && (s[0] == '+' || s[0] == '-') {
+			s = s[1:]
+		}
+		if digits() == 0 {
+			return false
+		}
+	}
+	return s == ""
 }
