@@ -21,5 +21,8 @@ func main() {
 		}
 		os.Exit(code)
 	}()
-	os.Exit(run(os.Args[1:], os.Stdout, os.Stderr))
+	stop := startProfile()
+	code := run(os.Args[1:], os.Stdout, os.Stderr)
+	stop()
+	os.Exit(code)
 }

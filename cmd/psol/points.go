@@ -30,6 +30,10 @@ type point struct {
 
 // readPoint reads "r=…,theta=…" or "x=…,y=…".
 func readPoint(text string, env series.Env) (point, error) {
+	if !strings.ContainsAny(text, "=") {
+		// "0.2,0.1" alone: which system is meant is a guess psol does not make.
+		return point{}, &parse.Error{Label: "--at", Input: text, Msg: `name the coordinates: "x=…,y=…" or "r=…,theta=…"`}
+	}
 	vals, ok := plainPoint(text)
 	if !ok {
 		var err error
