@@ -25,15 +25,18 @@ type Holed struct {
 	Holes []CircleHole
 }
 
-// CircleHole is a hole: the disk (x − X)² + (y − Y)² < R², or, where Poly
-// has vertices, the inside of that polygon (its edges the sides holeK.s1,
-// holeK.s2, …).
+// CircleHole is a hole: the disk (x − X)² + (y − Y)² < R²; where A is set,
+// the ellipse ((x − X)/A)² + ((y − Y)/B)² < 1; where Poly has vertices, the
+// inside of that polygon (its edges the sides holeK.s1, holeK.s2, …).
 type CircleHole struct {
 	X, Y, R series.Coef
+	A, B    series.Coef // an elliptical hole's semi-axes along x and y
 	Poly    Polygon
 }
 
 func (c CircleHole) isPolygon() bool { return len(c.Poly.X) > 0 }
+
+func (c CircleHole) isEllipse() bool { return !c.isPolygon() && !c.A.IsZero() }
 
 func holeName(k int) string { return fmt.Sprintf("hole%d", k+1) }
 
@@ -64,6 +67,10 @@ func (h Holed) Describe() string {
 			hs = append(hs, "the inside of "+c.Poly.Describe())
 			continue
 		}
+		if c.isEllipse() {
+			hs = append(hs, "the ellipse of semi-axes "+c.A.Text()+", "+c.B.Text()+" about ("+c.X.Text()+", "+c.Y.Text()+")")
+			continue
+		}
 		hs = append(hs, "the disk of radius "+c.R.Text()+" about ("+c.X.Text()+", "+c.Y.Text()+")")
 	}
 	return h.Outer.Describe() + " less " + strings.Join(hs, " and ")
@@ -73,7 +80,8 @@ func (h Holed) Describe() string {
 // the outward normal into the hole), its corners, the centre and radius of
 // its logarithm and Laurent terms, and a test for its inside.
 type holeNumbers struct {
-	x, y, r float64 // a circle's centre and radius; a polygon's centroid and inner radius
+	x, y, r float64 // a circle's centre and radius; a polygon's centroid and inner radius; an ellipse's centre and smaller semi-axis
+	a, b    float64 // an ellipse's semi-axes along x and y (0 otherwise)
 	sides   []SidePath
 	corners []corner
 	area    float64
@@ -84,6 +92,20 @@ type holeNumbers struct {
 func (h Holed) holes(env series.Env) ([]holeNumbers, error) {
 	var out []holeNumbers
 	for k, c := range h.Holes {
+		if c.isEllipse() {
+			v, err := floats(env, c.X, c.Y, c.A, c.B)
+			if err != nil {
+				return nil, err
+			}
+			hn := holeNumbers{x: v[0], y: v[1], r: math.Min(v[2], v[3]), a: v[2], b: v[3], area: math.Pi * v[2] * v[3]}
+			hn.sides = []SidePath{holeEllipse(holeName(k), hn)}
+			hn.inside = func(x, y float64) bool {
+				dx, dy := (x-hn.x)/hn.a, (y-hn.y)/hn.b
+				return dx*dx+dy*dy < 1-1e-12
+			}
+			out = append(out, hn)
+			continue
+		}
 		if !c.isPolygon() {
 			v, err := floats(env, c.X, c.Y, c.R)
 			if err != nil {
@@ -293,6 +315,17 @@ func (h Holed) Shape(env series.Env) (Shape, error) {
 	return sh, nil
 }
 
+// holeEllipse is an elliptical hole's boundary by arc length (the outer
+// ellipse's rim, moved), clockwise so that the region is on its left, with
+// the normal pointing into the hole.
+func holeEllipse(name string, c holeNumbers) SidePath {
+	rim := ellipseRim(c.a, c.b)
+	return SidePath{Name: name, Length: rim.Length, At: func(t float64) (x, y, nx, ny float64) {
+		x, y, nx, ny = rim.At(1 - t)
+		return c.x + x, c.y + y, -nx, -ny
+	}}
+}
+
 func holeCircle(name string, c holeNumbers) SidePath {
 	return SidePath{Name: name, Length: 2 * math.Pi * c.r, At: func(t float64) (x, y, nx, ny float64) {
 		th := -2 * math.Pi * t
@@ -325,7 +358,7 @@ func (h Holed) geometry(env series.Env) (sectionGeometry, error) {
 		g.corners = append(g.corners, c.corners...)
 		for j, s := range c.sides {
 			g.shape.Sides = append(g.shape.Sides, s)
-			if c.circle {
+			if len(c.corners) == 0 { // a circle or an ellipse
 				g.starts, g.ends = append(g.starts, -1), append(g.ends, -1)
 				continue
 			}
@@ -339,7 +372,16 @@ func (h Holed) geometry(env series.Env) (sectionGeometry, error) {
 			}
 			g.starts, g.ends = append(g.starts, a), append(g.ends, b)
 		}
-		g.holes = append(g.holes, holeBasis{c: complex(c.x, c.y), rho: c.r})
+		hb := holeBasis{c: complex(c.x, c.y), rho: c.r}
+		if c.a > 0 && c.a != c.b { // an ellipse: the terms of its exterior map
+			hb.mean = (c.a + c.b) / 2
+			if c.a > c.b {
+				hb.focus = complex(math.Sqrt(c.a*c.a-c.b*c.b), 0)
+			} else {
+				hb.focus = complex(0, math.Sqrt(c.b*c.b-c.a*c.a))
+			}
+		}
+		g.holes = append(g.holes, hb)
 	}
 	if disk, ok := h.Outer.(Disk); ok && len(hs) == 1 && hs[0].circle {
 		// Two circles: the solution's singularities (images of images)
@@ -402,6 +444,13 @@ func (h Holed) Measures() Measures {
 	}
 	out := Measures{Area: m.Area, Lengths: lengths, Holes: map[string]series.Coef{}}
 	for k, c := range h.Holes {
+		if c.isEllipse() {
+			m := Ellipse{A: c.A, B: c.B}.Measures()
+			out.Area = out.Area.Sub(m.Area)
+			out.Lengths[holeName(k)] = m.Lengths["rim"]
+			out.Holes[holeName(k)] = m.Area
+			continue
+		}
 		if c.isPolygon() {
 			pm := c.Poly.Measures()
 			out.Area = out.Area.Sub(pm.Area)
@@ -433,9 +482,12 @@ func (h Holed) integral(u series.Sum) (series.Coef, error) {
 	}
 	for _, c := range h.Holes {
 		var v series.Coef
-		if c.isPolygon() {
+		switch {
+		case c.isPolygon():
 			v, err = c.Poly.integral(u)
-		} else {
+		case c.isEllipse():
+			v, err = Ellipse{A: c.A, B: c.B}.integral(shiftPoly(poly, c.X, c.Y).Polar())
+		default:
 			v, err = Ellipse{A: c.R, B: c.R}.integral(shiftPoly(poly, c.X, c.Y).Polar())
 		}
 		if err != nil {
@@ -508,6 +560,12 @@ func (h Holed) areaNodes(env series.Env) ([][3]float64, error) {
 		hs, err := h.holes(env)
 		if err != nil {
 			return nil, err
+		}
+		if c.isEllipse() { // the unit disk's rule stretched onto the ellipse
+			for _, n := range diskNodes(0, 0, 1, -1) {
+				nodes = append(nodes, [3]float64{hs[k].x + hs[k].a*n[0], hs[k].y + hs[k].b*n[1], hs[k].a * hs[k].b * n[2]})
+			}
+			continue
 		}
 		nodes = append(nodes, diskNodes(hs[k].x, hs[k].y, hs[k].r, -1)...)
 	}

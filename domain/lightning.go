@@ -238,7 +238,7 @@ func arnoldi(Z []complex128, degree int) [][]complex128 {
 // (the residual is measured on the sides from there on).
 const nearest = 1e-9
 
-// laurentTerm is (ρ/(z − c))^j for a hole.
+// laurentTerm is a hole's j-th Laurent term (holeBasis.term).
 type laurentTerm struct {
 	hole holeBasis
 	j    int
@@ -347,9 +347,7 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 			col += 2
 		}
 		for _, t := range h.laurent {
-			d := p.z - t.hole.c
-			w := cmplx.Pow(complex(t.hole.rho, 0)/d, complex(float64(t.j), 0))
-			put(w, complex(-float64(t.j), 0)*w/d)
+			put(t.hole.term(p.z, t.j))
 		}
 		for _, j := range h.mobiusK {
 			put(h.mobius.term(p.z, j))

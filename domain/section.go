@@ -39,10 +39,37 @@ type sectionGeometry struct {
 	mobius *mobiusMap
 }
 
-// holeBasis is a hole's share of the basis: log|z − c| and (ρ/(z − c))^j.
+// holeBasis is a hole's share of the basis: log|z − c| and the Laurent
+// terms (ρ/(z − c))^j, or for an elliptical hole (focus f ≠ 0) the terms
+// w^(−j) of the map w = (ζ + √(ζ − f)·√(ζ + f))/m, ζ = z − c, m the mean of
+// the semi-axes, which takes the outside of the ellipse onto |w| > 1: the
+// terms decay from the ellipse outwards as the outside's own harmonic
+// functions do, where the Laurent series about the centre of an elongated
+// hole would not converge on the near parts of the region (common practice:
+// the Joukowski map; e.g. Muskhelishvili on elliptical holes).
 type holeBasis struct {
-	c   complex128
-	rho float64
+	c     complex128
+	rho   float64
+	focus complex128 // the focus on the major axis relative to c; 0 for a circle
+	mean  float64    // (A + B)/2, for an ellipse
+}
+
+// term is the j-th Laurent term at z and its derivative in z.
+func (hb holeBasis) term(z complex128, j int) (f, df complex128) {
+	zeta := z - hb.c
+	if hb.focus == 0 {
+		f = cmplx.Pow(complex(hb.rho, 0)/zeta, complex(float64(j), 0))
+		return f, complex(-float64(j), 0) * f / zeta
+	}
+	// In the frame with the foci on the real axis, where the two square
+	// roots' cuts join into the segment between the foci, inside the hole.
+	dir := hb.focus / complex(abs(hb.focus), 0)
+	z1, fl := zeta/dir, complex(abs(hb.focus), 0)
+	s := cmplx.Sqrt(z1-fl) * cmplx.Sqrt(z1+fl)
+	w := (z1 + s) / complex(hb.mean, 0)
+	f = cmplx.Pow(w, complex(-float64(j), 0))
+	// dw/dz = w/(s·dir).
+	return f, complex(-float64(j), 0) * f / (s * dir)
 }
 
 // SectionParts is a section's numeric harmonic part, for printing: its
@@ -50,6 +77,7 @@ type holeBasis struct {
 type SectionParts struct {
 	Corners, Degree int
 	Holes           int   // holes, each with its logarithm and Laurent terms in the basis
+	Elliptic        bool  // some hole is an ellipse: its terms are powers of its exterior map's inverse
 	Poles           []int // at each corner, in the order of the vertices
 	// Residual is the largest |condition residual| on a sampling of the
 	// sides finer than the fit's, at (X, Y) on side Side.
@@ -192,6 +220,9 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	parts := &SectionParts{Corners: len(geo.corners), Degree: best.degree, Residual: best.residual,
 		X: real(best.worstAt), Y: imag(best.worstAt), Side: geo.shape.Sides[best.worstOn].Name, Bound: true, fit: best, Poles: bestPoles,
 		Holes: len(geo.holes)}
+	for _, hb := range geo.holes {
+		parts.Elliptic = parts.Elliptic || hb.focus != 0
+	}
 	for _, c := range conds {
 		if c.quad != nil {
 			parts.quad = append(parts.quad, c.quad)
@@ -648,10 +679,9 @@ func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
 		df += complex(h.cLog[k], 0) / d
 	}
 	for k, t := range h.laurent {
-		d := z - t.hole.c
-		w := cmplx.Pow(complex(t.hole.rho, 0)/d, complex(float64(t.j), 0))
-		f += h.cLaurent[k] * w
-		df += h.cLaurent[k] * complex(-float64(t.j), 0) * w / d
+		v, dv := t.hole.term(z, t.j)
+		f += h.cLaurent[k] * v
+		df += h.cLaurent[k] * dv
 	}
 	for k, j := range h.mobiusK {
 		v, dv := h.mobius.term(z, j)
@@ -777,12 +807,15 @@ func sideFlux(side SidePath, up sideCondition, h *rationalHarmonic) float64 {
 
 // gradedEdges are panel edges on [0, 1], halving 40 times towards each end.
 func gradedEdges() []float64 {
+	// 0 < 2⁻⁴⁰/32 < … < 2⁻¹/32 < 1/32 < 2/32 < … < 15/32, then mirrored:
+	// increasing (an earlier version graded to 1/4 and then stepped back to
+	// 1/32, a panel of negative width that cost the fluxes 8 digits).
 	edges := []float64{0}
 	for k := 40; k >= 1; k-- {
-		edges = append(edges, 0.5*math.Pow(0.5, float64(k)))
+		edges = append(edges, math.Pow(0.5, float64(k))/32)
 	}
 	for i := 1; i < 16; i++ {
-		edges = append(edges, 0.5*float64(i)/16)
+		edges = append(edges, float64(i)/32)
 	}
 	n := len(edges)
 	for i := n - 1; i >= 0; i-- {

@@ -514,3 +514,86 @@ func TestHollowTubeApproachesBredt(t *testing.T) {
 		}
 	}
 }
+
+// Two confocal ellipses at fixed values (foci ±0.6 on the axis of the
+// larger semi-axes): in elliptic coordinates u depends on ξ alone, and the
+// flux for a unit difference is 2π/(ξ_o − ξ_i), ξ = ln((A + B)/c) — here
+// ln 3 and ln 1.5, so 2π/ln 2 (the confocal elliptic capacitor; Smythe,
+// Static and Dynamic Electricity, from memory). Both orientations: the
+// major axes along x, and along y.
+func TestConfocalEllipticHole(t *testing.T) {
+	want := 2 * math.Pi / math.Ln2
+	for _, c := range []struct{ A, B, a, b float64 }{{1, 0.8, 0.65, 0.25}, {0.8, 1, 0.25, 0.65}} {
+		d := domain.Holed{Outer: domain.Ellipse{A: decimalCoef(c.A), B: decimalCoef(c.B)},
+			Holes: []domain.CircleHole{{A: decimalCoef(c.a), B: decimalCoef(c.b)}}}
+		sol := solveWith(t, "lap(u) = 0", d, domain.Options{Tol: 1e-12}, "rim: u = 0", "hole1: u = 1")
+		rep, err := sol.Report(nil, 1e-12)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, f := range rep.Sides {
+			if f.Side == "hole1" && math.Abs(f.Value-want) > 1e-10*want {
+				t.Errorf("%v: flux through the hole %.14g, want 2π/ln 2 = %.14g", c, f.Value, want)
+			}
+		}
+		// u = ln((A + B)/(x-semi-axis + y-semi-axis of the confocal ellipse through the point))/ln 2 on the major axis.
+		ev := evaluator(t, sol, 1e-12)
+		along := math.Max(c.A, c.B) * 0.8 // a point on the major axis between the ellipses
+		x, y := along, 0.0
+		if c.B > c.A {
+			x, y = 0, along
+		}
+		xi := math.Acosh(along / 0.6)
+		exact := (math.Log(3) - xi) / math.Ln2
+		if got, _, _ := ev.AtXY(x, y); math.Abs(got-exact) > 1e-11 {
+			t.Errorf("%v: u(%g, %g) = %.14g, want (ln 3 − ξ)/ln 2 = %.14g", c, x, y, got, exact)
+		}
+	}
+}
+
+// A hollow elliptical shaft bounded by similar ellipses, semi-axes a, b and
+// ka, kb: the inner ellipse is a level line of the solid shaft's stress
+// function, so J = π a³b³/(a² + b²)·(1 − k⁴) and the hole's value is
+// a²b²/(a² + b²)·(1 − k²) (Timoshenko & Goodier, Theory of Elasticity,
+// torsion of hollow shafts). The hole's value is found from its net flux.
+func TestHollowEllipticShaft(t *testing.T) {
+	a, b, k := 0.05, 0.03, 0.5
+	d := domain.Holed{Outer: domain.Ellipse{A: decimalCoef(a), B: decimalCoef(b)},
+		Holes: []domain.CircleHole{{A: decimalCoef(k * a), B: decimalCoef(k * b)}}}
+	sol := solveWith(t, "lap(u) = -2", d, domain.Options{Tol: 1e-12}, "rim: u = 0", fmt.Sprintf("hole1: u = const, flux = 2*pi*%g*%g", k*a, k*b))
+	rep, err := sol.Report(nil, 1e-12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	figs, err := sol.Quantity("torsion", rep)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if want := math.Pi * a * a * a * b * b * b / (a*a + b*b) * (1 - k*k*k*k); math.Abs(figs[0].Value-want) > 1e-9*want {
+		t.Errorf("J = %.12g, want πa³b³/(a² + b²)(1 − k⁴) = %.12g (Timoshenko & Goodier)", figs[0].Value, want)
+	}
+	if v, _ := sol.Floating["hole1"].Float(nil); math.Abs(v-a*a*b*b/(a*a+b*b)*(1-k*k)) > 1e-12 {
+		t.Errorf("the hole's value %.15g, want a²b²/(a² + b²)(1 − k²) = %.15g", v, a*a*b*b/(a*a+b*b)*(1-k*k))
+	}
+}
+
+// An elliptical hole off the centre of a disk against a manufactured
+// solution: u = x² + y² + 0.1 ln|z − c|² + 0.05 Re(1/(z − c)) (Δu = 4; the
+// logarithm and the pole harmonic outside the hole), values on both sides.
+func TestEllipticHoleManufactured(t *testing.T) {
+	d := domain.Holed{Outer: domain.Disk{R: decimalCoef(1.2)},
+		Holes: []domain.CircleHole{{X: decimalCoef(0.3), Y: decimalCoef(0.1), A: decimalCoef(0.5), B: decimalCoef(0.2)}}}
+	u := "x^2 + y^2 + 0.1*ln((x - 0.3)^2 + (y - 0.1)^2) + 0.05*(x - 0.3)/((x - 0.3)^2 + (y - 0.1)^2)"
+	sol := solveWith(t, "lap(u) = 4", d, domain.Options{Tol: 1e-11}, "rim: u = "+u, "hole1: u = "+u)
+	ev := evaluator(t, sol, 1e-11)
+	exact := func(x, y float64) float64 {
+		dx, dy := x-0.3, y-0.1
+		return x*x + y*y + 0.1*math.Log(dx*dx+dy*dy) + 0.05*dx/(dx*dx+dy*dy)
+	}
+	for _, p := range [][2]float64{{0, 0.5}, {-0.8, 0}, {0.3, 0.35}, {0.9, 0.1}, {0.3, -0.5}} {
+		got, est, _ := ev.AtXY(p[0], p[1])
+		if err := math.Abs(got - exact(p[0], p[1])); err > 1e-9 || err > 10*(est+sol.DataError) {
+			t.Errorf("u%v = %.13f, exact %.13f (estimate %.1g)", p, got, exact(p[0], p[1]), est+sol.DataError)
+		}
+	}
+}

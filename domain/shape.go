@@ -29,7 +29,9 @@ type Box struct{ X0, X1, Y0, Y1 float64 }
 type SidePath struct {
 	Name   string
 	Length float64
-	// At is the point at t and the outward unit normal there.
+	// At is the point at t ∈ [0, 1] and the outward unit normal there; t
+	// is proportional to arc length (t·Length along the side), which the
+	// flux and length integrals rely on.
 	At func(t float64) (x, y, nx, ny float64)
 }
 

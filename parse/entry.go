@@ -514,23 +514,29 @@ func Vertices(label, text string, env series.Env) (xs, ys []series.Coef, offsets
 // HoleSpec is a hole as given: a circle (X, Y, R) or a polygon's vertices.
 type HoleSpec struct {
 	Polygon     bool
-	X, Y, R     series.Coef
+	Ellipse     bool        // "ellipse CX,CY,A,B": semi-axes A along x, B along y
+	X, Y, R     series.Coef // the centre; a circle's radius
+	A, B        series.Coef // an ellipse's semi-axes
 	XS, YS      []series.Coef
 	Offsets     []int // where each polygon vertex starts in the text
 	VertexStart int   // where the vertices start
 }
 
-// HoleOf reads a hole, "circle CX,CY,R" or "polygon X1,Y1 X2,Y2 …".
+// holeShapes are the words a hole starts with and the sizes that follow
+// (polygon aside: its vertices).
+var holeShapes = map[string][]string{
+	"circle":  {"CX", "CY", "R"},
+	"ellipse": {"CX", "CY", "A", "B"},
+}
+
+// HoleOf reads a hole: "circle CX,CY,R", "ellipse CX,CY,A,B" (semi-axes
+// along x and y) or "polygon X1,Y1 X2,Y2 …".
 func HoleOf(label, text string, env series.Env) (HoleSpec, error) {
 	lw := &lowerer{label: label, input: text, env: env}
 	trimmed := strings.TrimLeft(text, " \t")
 	lead := len(text) - len(trimmed)
 	word, rest, _ := strings.Cut(trimmed, " ")
-	switch word {
-	case "circle":
-		x, y, r, err := Hole(label, text, env)
-		return HoleSpec{X: x, Y: y, R: r}, err
-	case "polygon":
+	if word == "polygon" {
 		start := lead + len(word) + 1
 		xs, ys, offs, err := Vertices(label, rest, env)
 		if err != nil {
@@ -545,25 +551,16 @@ func HoleOf(label, text string, env series.Env) (HoleSpec, error) {
 		}
 		return HoleSpec{Polygon: true, XS: xs, YS: ys, Offsets: offs, VertexStart: start}, nil
 	}
-	return HoleSpec{}, lw.fail(lexer.Position{Offset: lead}, "a hole is \"circle CX,CY,R\" or \"polygon X1,Y1 X2,Y2 ...\", not %q", word)
-}
-
-// Hole reads a circular hole, "circle CX,CY,R": the word, then the centre's
-// coordinates (any constants) and the radius (positive), commas between.
-func Hole(label, text string, env series.Env) (cx, cy, r series.Coef, err error) {
-	lw := &lowerer{label: label, input: text, env: env}
-	trimmed := strings.TrimLeft(text, " \t")
-	lead := len(text) - len(trimmed)
-	word, rest, _ := strings.Cut(trimmed, " ")
-	if word != "circle" {
-		return cx, cy, r, lw.fail(lexer.Position{Offset: lead}, "a circular hole is \"circle CX,CY,R\", not %q", word)
+	names, ok := holeShapes[word]
+	if !ok {
+		return HoleSpec{}, lw.fail(lexer.Position{Offset: lead}, "a hole is \"circle CX,CY,R\", \"ellipse CX,CY,A,B\" or \"polygon X1,Y1 X2,Y2 ...\", not %q", word)
 	}
 	off := lead + len(word) + 1
 	parts := strings.Split(rest, ",")
-	if len(parts) != 3 {
-		return cx, cy, r, lw.fail(lexer.Position{Offset: len(text)}, "a circle hole is CX,CY,R: expected 3 comma-separated values, found %d", len(parts))
+	if len(parts) != len(names) {
+		return HoleSpec{}, lw.fail(lexer.Position{Offset: len(text)}, "%q takes %s: expected %d comma-separated values, found %d", word, strings.Join(names, ","), len(names), len(parts))
 	}
-	var cs [3]series.Coef
+	cs := make([]series.Coef, len(parts))
 	for i, p := range parts {
 		f, err := Expression(label, p, env)
 		if err != nil {
@@ -571,17 +568,20 @@ func Hole(label, text string, env series.Env) (cx, cy, r series.Coef, err error)
 			if errors.As(err, &pe) {
 				pe.Input, pe.Offset = text, pe.Offset+off
 			}
-			return cx, cy, r, err
+			return HoleSpec{}, err
 		}
 		c, ok := constant(value{f: f})
 		if !ok {
-			return cx, cy, r, lw.fail(lexer.Position{Offset: off}, "a hole's centre and radius must be constants")
+			return HoleSpec{}, lw.fail(lexer.Position{Offset: off}, "a hole's centre and sizes must be constants")
 		}
-		if i == 2 && !series.Positive(c) {
-			return cx, cy, r, lw.fail(lexer.Position{Offset: off + len(p) - len(strings.TrimLeft(p, " "))}, "a hole's radius must be positive, not %s", c.Text())
+		if i >= 2 && !series.Positive(c) {
+			return HoleSpec{}, lw.fail(lexer.Position{Offset: off + len(p) - len(strings.TrimLeft(p, " "))}, "a hole's %s must be positive, not %s", map[bool]string{true: "radius", false: "semi-axis"}[word == "circle"], c.Text())
 		}
 		cs[i] = c
 		off += len(p) + 1
 	}
-	return cs[0], cs[1], cs[2], nil
+	if word == "ellipse" {
+		return HoleSpec{Ellipse: true, X: cs[0], Y: cs[1], A: cs[2], B: cs[3]}, nil
+	}
+	return HoleSpec{X: cs[0], Y: cs[1], R: cs[2]}, nil
 }

@@ -84,7 +84,7 @@ func (p *problemFlags) bind(f *pflag.FlagSet) {
 	for _, k := range regionKinds {
 		p.regions[k.flag] = f.String(k.flag, "", k.usage)
 	}
-	f.StringArrayVar(&p.holes, "hole", nil, `a hole taken out of --disk, --rect, --ellipse or --polygon: "circle CX,CY,R" or "polygon X1,Y1 X2,Y2 ..." (repeatable); the K-th hole is side holeK (a polygon hole's edges holeK.s1, holeK.s2, ...)`)
+	f.StringArrayVar(&p.holes, "hole", nil, `a hole taken out of --disk, --rect, --ellipse or --polygon: "circle CX,CY,R", "ellipse CX,CY,A,B" (semi-axes along x and y) or "polygon X1,Y1 X2,Y2 ..." (repeatable); the K-th hole is side holeK (a polygon hole's edges holeK.s1, holeK.s2, ...)`)
 	f.StringArrayVar(&p.bcs, "bc", nil, `boundary condition "[SIDE:] u = g", "dn(u) = g", "dn(u) + h*u = g" or "u = const, flux = Q" (one unknown value with net outward flux Q; circles); one per side, repeatable; one without SIDE applies to every side not named`)
 	f.StringArrayVar(&p.lets, "let", nil, `parameter values "a=0.05,q=2e5" (repeatable)`)
 	f.StringVar(&p.fix, "fix", "", `pin the free constant of a pure Neumann problem: "u(R0, THETA0) = V" (polar point)`)
@@ -97,6 +97,7 @@ type problem struct {
 	inputs   []string // the texts that may name parameters: equation, region, conditions, --fix, --let
 	lets     []string // the names --let gives (the solve may add a free constant to env)
 	fix      string
+	typed    string // the region as the flags gave it: "disk 1, hole circle 0.3,0,0.2"
 	tol      float64
 	terms    int // the cap on series terms at points and on grids
 	env      series.Env
@@ -138,7 +139,7 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 	if err != nil {
 		return nil, err
 	}
-	pr := &problem{equation: equation, env: env, fix: p.fix}
+	pr := &problem{equation: equation, env: env, fix: p.fix, typed: p.typedRegion()}
 	pr.inputs = append(append(append([]string{equation, p.fix}, p.bcs...), p.lets...), p.regionTexts()...)
 	for name := range env {
 		pr.lets = append(pr.lets, name)
@@ -298,6 +299,21 @@ func (pr *problem) solve() (*domain.Solution, error) {
 	return sol, nil
 }
 
+// typedRegion is the region in the user's own words and numbers, for a
+// plot's title: the domain flag with its value, then each hole.
+func (p *problemFlags) typedRegion() string {
+	var parts []string
+	for _, k := range regionKinds {
+		if v := strings.TrimSpace(*p.regions[k.flag]); v != "" {
+			parts = append(parts, k.flag+" "+v)
+		}
+	}
+	for _, h := range p.holes {
+		parts = append(parts, "hole "+strings.TrimSpace(h))
+	}
+	return strings.Join(parts, ", ")
+}
+
 func (p *problemFlags) regionTexts() []string {
 	var out []string
 	for _, k := range regionKinds {
@@ -352,7 +368,7 @@ func withHoles(d domain.Domain, holes []string, env series.Env) (domain.Domain, 
 			h.Holes = append(h.Holes, domain.CircleHole{Poly: domain.Polygon{X: spec.XS, Y: spec.YS}})
 			continue
 		}
-		h.Holes = append(h.Holes, domain.CircleHole{X: spec.X, Y: spec.Y, R: spec.R})
+		h.Holes = append(h.Holes, domain.CircleHole{X: spec.X, Y: spec.Y, R: spec.R, A: spec.A, B: spec.B})
 	}
 	if k, reason := h.HoleFault(env); k >= 0 {
 		return nil, &parse.Error{Label: "--hole", Input: holes[k], Offset: 0, Msg: reason}

@@ -69,6 +69,9 @@ func (v *view) sectionStages(sol *domain.Solution) {
 	}
 	if sp.Holes > 0 {
 		form += ", with each hole's a*log|z - c| and Laurent terms in 1/(z - c) (c inside the hole)"
+		if sp.Elliptic {
+			form += ", for an elliptical hole in 1/w, w = ((z - c) + sqrt((z - c)^2 - f^2))/m (f the focal distance, m the mean semi-axis), which maps its outside onto |w| > 1"
+		}
 	}
 	// The poles and the degree the adaptive fit chose are in --steps: they
 	// follow residuals at rounding level, which differ between CPUs.

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"io"
 	"strings"
+	"unicode/utf8"
 
 	"github.com/spf13/cobra"
 
@@ -233,5 +234,31 @@ func plotTitle(pr *problem) string {
 			conds = append(conds, strings.TrimSpace(c.Text))
 		}
 	}
-	return strings.TrimSpace(pr.equation) + " on " + pr.domain.Describe() + "\n" + strings.Join(conds, "; ")
+	region := pr.typed
+	if region == "" {
+		region = pr.domain.Describe()
+	}
+	return wrapWords(strings.TrimSpace(pr.equation)+" on "+region, titleWidth) + "\n" + wrapWords(strings.Join(conds, "; "), titleWidth)
+}
+
+// titleWidth is the characters of a title line that fit the plot's width
+// in its font (about 100 at 12 pt on 7 inches; a margin kept).
+const titleWidth = 84
+
+// wrapWords breaks text into lines of at most width characters at spaces
+// (a longer word stands on its own line).
+func wrapWords(text string, width int) string {
+	var lines []string
+	line := ""
+	for _, w := range strings.Fields(text) {
+		if line != "" && utf8.RuneCountInString(line)+1+utf8.RuneCountInString(w) > width {
+			lines, line = append(lines, line), w
+			continue
+		}
+		if line != "" {
+			line += " "
+		}
+		line += w
+	}
+	return strings.Join(append(lines, line), "\n")
 }
