@@ -284,6 +284,11 @@ func twoCircleSeries(d circular, p *posed, traced map[string]series.Field, trace
 	}
 	ss := series.SeriesSum{Parts: harm}
 	sol.Series = &SeriesParts{Harmonic: ss, U: ss, BySide: map[string]series.SeriesSum{}}
+	for _, c := range circles {
+		if p.conds[c.name].Kind == Dirichlet {
+			sol.stages = append(sol.stages, &arcWall{data: traced[c.name], radius: c.radius, fullCircle: true})
+		}
+	}
 	for name, parts := range corr {
 		sol.Series.BySide[name] = series.SeriesSum{Parts: parts}
 	}

@@ -23,6 +23,27 @@ type Evaluator struct {
 	dataErr float64                // what numeric traces bring to every value
 	parts   []xyPart               // numeric parts evaluated in x and y (a section's harmonic part)
 	pts     *pointEval             // the point sources' field u_s, where the source has any
+	arcs    []*compiledArc         // Dirichlet data on circular sides, exact on the circles themselves
+}
+
+// onArc is u where (r, θ) lies on a circular side with Dirichlet data.
+func (e *Evaluator) onArc(r, theta float64) (float64, bool) {
+	for _, a := range e.arcs {
+		if v, ok := a.on(r, theta); ok {
+			return v, true
+		}
+	}
+	return 0, false
+}
+
+// arcRow reports whether radius r is a circular side's with Dirichlet data.
+func (e *Evaluator) arcRow(r float64) bool {
+	for _, a := range e.arcs {
+		if a.onRow(r) {
+			return true
+		}
+	}
+	return false
 }
 
 // xyPart is a numeric part of a solution evaluated in x and y.
@@ -152,6 +173,9 @@ func (e *Evaluator) atPolar(r, theta float64) (u, errEst float64, terms int) {
 	if e.rim != nil && e.rim.near(r) {
 		return e.rim.at(r, theta), e.tol, 0
 	}
+	if v, ok := e.onArc(r, theta); ok {
+		return v, 0, 0
+	}
 	s := e.ser.At(r, theta, e.tol, e.max)
 	return u + s.Value, s.Tail, s.Terms
 }
@@ -170,7 +194,7 @@ func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
 	var far []float64
 	var farRows []int
 	for i, r := range rs {
-		if e.ser != nil && (r == 0 || e.rim != nil && e.rim.near(r)) {
+		if e.ser != nil && (r == 0 || e.rim != nil && e.rim.near(r) || e.arcRow(r)) {
 			for j, th := range thetas {
 				u[i][j], errs[i][j], _ = e.atClosedAndSeries(r, th)
 			}

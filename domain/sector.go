@@ -182,6 +182,9 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 		m.store(parts, n)
 	}
 	sol.Series = parts
+	if arcCond.Kind == Dirichlet {
+		sol.stages = append(sol.stages, &arcWall{data: gf, radius: s.R, from: series.Coef{}, to: s.Alpha})
+	}
 	if sol.Free != "" {
 		sol.FreeMean = sectorFreeMean(s, sol, p)
 	}

@@ -270,6 +270,7 @@ func (cs CompiledSeries) At(r, theta, tol float64, maxTerms int) Summed {
 	quiet := 0
 	last := cs.fam.From
 	tail := math.Inf(1)
+	var recent [4]float64
 	for n := cs.fam.From; n < cs.fam.From+maxTerms; n++ {
 		nf := float64(n)
 		nu := cs.slope*nf + cs.offset
@@ -304,7 +305,11 @@ func (cs CompiledSeries) At(r, theta, tol float64, maxTerms int) Summed {
 		}
 		sum += rho * phi
 		last = n
-		tail = nf * math.Abs(rho)
+		// The estimate is the largest n·|ρ_n| of the last four terms: a
+		// series whose every other term vanishes would otherwise read 0
+		// wherever the cap stops it on a zero term.
+		recent[n%4] = nf * math.Abs(rho)
+		tail = max(recent[0], recent[1], recent[2], recent[3])
 		if !special && tail <= tol*math.Max(1, math.Abs(sum)) {
 			quiet++
 			if quiet >= 4 {
@@ -325,7 +330,6 @@ func (cs CompiledSeries) At(r, theta, tol float64, maxTerms int) Summed {
 // n·|ρ_n(r)| has stayed below tol·max(1, |row|) for four modes.
 func (cs CompiledSeries) Grid(rs, thetas []float64, out [][]float64, tol float64, maxTerms int) []float64 {
 	rho := make([]float64, len(rs))
-	phi := make([]float64, len(thetas))
 	tail := make([]float64, len(rs))
 	quiet := make([]int, len(rs))
 	scale := make([]float64, len(rs))
@@ -334,10 +338,27 @@ func (cs CompiledSeries) Grid(rs, thetas []float64, out [][]float64, tol float64
 		lnr[i] = math.Log(r)
 		tail[i] = math.Inf(1)
 	}
+	recent := make([][4]float64, len(rs))
+	// The angular factors by rotation, cos and sin of ν_n·θ advanced by
+	// ν's step each mode (refreshed every 64 modes against drift).
+	cosT, sinT := make([]float64, len(thetas)), make([]float64, len(thetas))
+	cosD, sinD := make([]float64, len(thetas)), make([]float64, len(thetas))
+	for j, th := range thetas {
+		sinD[j], cosD[j] = math.Sincos(cs.slope * th)
+	}
 	active := len(rs)
 	for n := cs.fam.From; n < cs.fam.From+maxTerms && active > 0; n++ {
 		nf := float64(n)
 		nu := cs.slope*nf + cs.offset
+		if n == cs.fam.From || (n-cs.fam.From)%64 == 0 {
+			for j, th := range thetas {
+				sinT[j], cosT[j] = math.Sincos(nu * th)
+			}
+		} else {
+			for j := range thetas {
+				cosT[j], sinT[j] = cosT[j]*cosD[j]-sinT[j]*sinD[j], sinT[j]*cosD[j]+cosT[j]*sinD[j]
+			}
+		}
 		ts, special := cs.special[n]
 		for i, r := range rs {
 			if quiet[i] >= 4 {
@@ -370,14 +391,12 @@ func (cs CompiledSeries) Grid(rs, thetas []float64, out [][]float64, tol float64
 				v -= cs.jumpAt(n) * scale[i]
 			}
 			rho[i] = v
-			tail[i] = nf * math.Abs(v)
+			recent[i][n%4] = nf * math.Abs(v)
+			tail[i] = max(recent[i][0], recent[i][1], recent[i][2], recent[i][3])
 		}
-		for j, th := range thetas {
-			if cs.fam.Sin {
-				phi[j] = math.Sin(nu * th)
-			} else {
-				phi[j] = math.Cos(nu * th)
-			}
+		phi := cosT
+		if cs.fam.Sin {
+			phi = sinT
 		}
 		for i := range rs {
 			if rho[i] == 0 && quiet[i] >= 4 {
@@ -385,9 +404,13 @@ func (cs CompiledSeries) Grid(rs, thetas []float64, out [][]float64, tol float64
 			}
 			row := out[i]
 			big := 0.0
-			for j := range thetas {
-				row[j] += rho[i] * phi[j]
-				big = math.Max(big, math.Abs(row[j]))
+			ri := rho[i]
+			for j, p := range phi {
+				v := row[j] + ri*p
+				row[j] = v
+				if a := math.Abs(v); a > big {
+					big = a
+				}
 			}
 			if !special && tail[i] <= tol*math.Max(1, big) {
 				quiet[i]++

@@ -184,3 +184,26 @@ func TestCheckVerdicts(t *testing.T) {
 		}
 	}
 }
+
+// A capped series is honest on the grid: with --terms 50 every value is
+// within its error column of the fully summed value, and the rim row, on
+// the arc's Dirichlet data, is the data itself (it read 0 error while off by
+// 2.9e-4 when the series was summed there and stopped on a vanishing term).
+func TestGridCappedSeriesHonest(t *testing.T) {
+	args := []string{"solve", "lap(u) = 1", "--sector", "1,pi/3", "--bc", "u = 0"}
+	_, ref := readCSV(t, args...)
+	_, capped := readCSV(t, append(args, "--terms", "50")...)
+	if len(ref) != len(capped) {
+		t.Fatalf("%d rows against %d", len(capped), len(ref))
+	}
+	for i, r := range capped {
+		u, errCol, want := r[4], r[5], ref[i][4]
+		if math.Abs(u-want) > 10*errCol+1e-12 {
+			t.Errorf("r = %g, theta = %g: u = %.12g with error column %.1g, fully summed %.12g", r[0], r[1], u, errCol, want)
+		}
+		corner := r[1] < 1e-12 || math.Abs(r[1]-math.Pi/3) < 1e-9 // the rays meet the arc: summed there
+		if r[0] == 1 && !corner && (u != 0 || errCol != 0) {
+			t.Errorf("on the arc, theta = %g: u = %g (error %g), want the data 0 exactly", r[1], u, errCol)
+		}
+	}
+}
