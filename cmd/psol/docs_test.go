@@ -73,6 +73,7 @@ func TestLaTeXCompiles(t *testing.T) {
 		`psol solve "-eps*lap(u) = lam*delta(x - a, y)" --disk R --bc "u = 0" --format latex`,
 		`psol solve "lap(u) = -delta(x - 0.5, y - 0.2)" --sector 1,pi/3 --bc "arc: dn(u) = 0" --bc "start: u = 0" --bc "end: u = 0" --format latex`,
 		`psol solve "lap(u) = -1" --rect 1,1 --bc "left: u = 0" --bc "right: u = 0" --bc "bottom: u = 0" --bc "top: u = 0" --format latex`,
+		`psol solve "lap(u) = abs(y - 0.3)" --disk 1 --bc "u = 0" --format latex`, // hundreds of numeric terms, shortened
 	} {
 		doc += runLine(t, c)
 	}

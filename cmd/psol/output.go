@@ -277,7 +277,7 @@ func renderText(w io.Writer, v *view) error {
 		}
 	}
 	for _, s := range v.stages() {
-		line(w, s.Label, s.Text)
+		line(w, s.Label, shortenNumeric(s.Text))
 	}
 	if v.ClosedForm != nil {
 		line(w, "closed form", v.ClosedForm.Text)
@@ -498,8 +498,13 @@ func renderLaTeX(w io.Writer, v *view) error {
 		}
 		lines = append(lines, "  & "+l)
 	}
+	where := v.where
 	for _, s := range v.stages() {
-		for i, l := range breakLaTeX(s.LaTeX) {
+		tex, note := shortenNumericLaTeX(s.Text, s.LaTeX, s.tex)
+		if note != "" {
+			where = append(where, note)
+		}
+		for i, l := range breakLaTeX(tex) {
 			if i == 0 {
 				lines = append(lines, "  "+s.tex+" &= "+l)
 			} else {
@@ -513,9 +518,9 @@ func renderLaTeX(w io.Writer, v *view) error {
 	}
 	fmt.Fprintln(w, strings.Join(lines, sep))
 	fmt.Fprintln(w, `\end{align*}`)
-	if len(v.where) > 0 {
+	if len(where) > 0 {
 		// sloppy: a long inline formula moves to a line of its own rather than past the margin
-		fmt.Fprintf(w, "{\\sloppy\\noindent where %s.\\par}\n", strings.Join(v.where, "; "))
+		fmt.Fprintf(w, "{\\sloppy\\noindent where %s.\\par}\n", strings.Join(where, "; "))
 	}
 	fmt.Fprintf(w, "%% check: %s\n", checkSummary(v.Checks))
 	return nil
