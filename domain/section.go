@@ -1127,8 +1127,35 @@ type FittedPart struct {
 	D         []complex128
 	W, Rot, E []complex128
 	Beta      []float64
-	Pivoted   bool // some powers are about a hole's inner point (not in the tables)
-	Holed     bool // the holes' logarithms and Laurent terms (not in the tables)
+	// Pivot, where Pivoted[m], makes power m's variable ζ = (z − W)/(z − Pivot)
+	// (a hole's corner) instead of (z − W)·Rot.
+	Pivot   []complex128
+	Pivoted []bool
+	// LogAt and LogK are the holes' logarithms: Σ LogK_k·ln|z − LogAt_k|.
+	LogAt []complex128
+	LogK  []float64
+	// Vars and Terms are the holes' other terms: Re Σ E_t·v(z)^J_t, v one
+	// of Vars (HoleVar).
+	Vars  []HoleVar
+	Terms []HoleTerm
+}
+
+// HoleVar is a variable of a hole's terms, by Kind:
+//
+//	0 (Laurent)     v = S/(z − A)
+//	1 (ellipse)     v = 1/w, w = (ζ + √(ζ − S)·√(ζ + S))/S2, ζ = (z − A)/B (B the major axis's direction)
+//	2 (two circles) v = ((z − A)/(z − B))/S
+//	3 (two circles) v = S/((z − A)/(z − B))
+type HoleVar struct {
+	Kind  int
+	A, B  complex128
+	S, S2 float64
+}
+
+// HoleTerm is E·v^J for the variable Vars[Var].
+type HoleTerm struct {
+	Var, J int
+	E      complex128
 }
 
 // Fitted is the fitted part in numbers.
@@ -1137,9 +1164,36 @@ func (sp *SectionParts) Fitted() FittedPart {
 	out := FittedPart{Poles: h.poles, C: h.cPole, Centre: h.centre, Scale: h.scale, H: h.hess, D: h.cPoly, E: h.cPower}
 	for _, c := range h.powers {
 		out.W, out.Rot, out.Beta = append(out.W, c.w), append(out.Rot, c.rot), append(out.Beta, c.beta)
-		out.Pivoted = out.Pivoted || c.hasPivot
+		out.Pivot, out.Pivoted = append(out.Pivot, c.pivot), append(out.Pivoted, c.hasPivot)
 	}
-	out.Holed = len(h.logs) > 0
+	for k, hb := range h.logs {
+		out.LogAt, out.LogK = append(out.LogAt, hb.c), append(out.LogK, h.cLog[k])
+	}
+	vars := map[HoleVar]int{}
+	variable := func(v HoleVar) int {
+		if i, ok := vars[v]; ok {
+			return i
+		}
+		vars[v] = len(out.Vars)
+		out.Vars = append(out.Vars, v)
+		return vars[v]
+	}
+	for k, t := range h.laurent {
+		v := HoleVar{Kind: 0, A: t.hole.c, S: t.hole.rho}
+		if t.hole.focus != 0 {
+			dir := t.hole.focus / complex(abs(t.hole.focus), 0)
+			v = HoleVar{Kind: 1, A: t.hole.c, B: dir, S: abs(t.hole.focus), S2: t.hole.mean}
+		}
+		out.Terms = append(out.Terms, HoleTerm{Var: variable(v), J: t.j, E: h.cLaurent[k]})
+	}
+	for k, j := range h.mobiusK {
+		m := h.mobius
+		v := HoleVar{Kind: 2, A: m.l1, B: m.l2, S: m.hi}
+		if j < 0 {
+			v = HoleVar{Kind: 3, A: m.l1, B: m.l2, S: m.lo}
+		}
+		out.Terms = append(out.Terms, HoleTerm{Var: variable(v), J: max(j, -j), E: h.cMobius[k]})
+	}
 	return out
 }
 

@@ -55,13 +55,71 @@ func U(x, y float64) float64 {
 	for m := range psolBeta {
 		dx, dy := x-psolWRe[m], y-psolWIm[m]
 		sr, si := dx*psolRotRe[m]-dy*psolRotIm[m], dx*psolRotIm[m]+dy*psolRotRe[m]
+		if psolPiv[m] != 0 { // a hole's corner: ζ = (z − W)/(z − pivot)
+			sr, si = psolDiv(dx, dy, x-psolPivRe[m], y-psolPivIm[m])
+		}
 		if sr == 0 && si == 0 {
 			continue
 		}
 		mag, arg := math.Exp(psolBeta[m]*math.Log(math.Hypot(sr, si))), psolBeta[m]*math.Atan2(si, sr)
 		u += mag * (psolERe[m]*math.Cos(arg) - psolEIm[m]*math.Sin(arg))
 	}
+	for j := range psolLogK {
+		dx, dy := x-psolLogRe[j], y-psolLogIm[j]
+		u += psolLogK[j] * 0.5 * math.Log(dx*dx+dy*dy)
+	}
+	var vr, vi [%[3]d]float64
+	for k := range psolVarKind {
+		vr[k], vi[k] = psolVar(k, x, y)
+	}
+	for t := range psolTermJ {
+		k := int(psolTermVar[t])
+		pr, pi := 1.0, 0.0
+		for n := 0; n < int(psolTermJ[t]); n++ {
+			pr, pi = pr*vr[k]-pi*vi[k], pr*vi[k]+pi*vr[k]
+		}
+		u += psolTERe[t]*pr - psolTEIm[t]*pi
+	}
 	return u
+}
+
+// psolVar is a hole's variable k at (x, y), as real and imaginary parts.
+func psolVar(k int, x, y float64) (float64, float64) {
+	ar, ai := x-psolVarARe[k], y-psolVarAIm[k]
+	switch psolVarKind[k] {
+	case 0: // S/(z − A)
+		return psolDiv(psolVarS[k], 0, ar, ai)
+	case 1: // 1/w, w = (ζ + √(ζ − S)·√(ζ + S))/S2, ζ = (z − A)/B
+		zr, zi := psolDiv(ar, ai, psolVarBRe[k], psolVarBIm[k])
+		s1r, s1i := psolSqrt(zr-psolVarS[k], zi)
+		s2r, s2i := psolSqrt(zr+psolVarS[k], zi)
+		wr, wi := (zr+s1r*s2r-s1i*s2i)/psolVarS2[k], (zi+s1r*s2i+s1i*s2r)/psolVarS2[k]
+		return psolDiv(1, 0, wr, wi)
+	case 2: // ((z − A)/(z − B))/S
+		wr, wi := psolDiv(ar, ai, x-psolVarBRe[k], y-psolVarBIm[k])
+		return wr / psolVarS[k], wi / psolVarS[k]
+	default: // S/((z − A)/(z − B))
+		wr, wi := psolDiv(ar, ai, x-psolVarBRe[k], y-psolVarBIm[k])
+		return psolDiv(psolVarS[k], 0, wr, wi)
+	}
+}
+
+// psolDiv is (ar + i·ai)/(br + i·bi).
+func psolDiv(ar, ai, br, bi float64) (float64, float64) {
+	d := br*br + bi*bi
+	return (ar*br + ai*bi) / d, (ai*br - ar*bi) / d
+}
+
+// psolSqrt is the principal square root of a + i·b (cut along the negative reals).
+func psolSqrt(a, b float64) (float64, float64) {
+	if a == 0 && b == 0 {
+		return 0, 0
+	}
+	t := math.Sqrt((math.Abs(a) + math.Hypot(a, b)) / 2)
+	if a >= 0 {
+		return t, b / (2 * t)
+	}
+	return math.Abs(b) / (2 * t), math.Copysign(t, b)
 }
 `,
 	},
@@ -76,6 +134,51 @@ func U(x, y float64) float64 {
 			return fmt.Sprintf("static const double psol%s = %s;\n", name, lit(v))
 		},
 		body: `
+/* (ar + i*ai)/(br + i*bi). */
+static void psolDiv(double ar, double ai, double br, double bi, double *re, double *im) {
+	double d = br*br + bi*bi;
+	*re = (ar*br + ai*bi)/d;
+	*im = (ai*br - ar*bi)/d;
+}
+
+/* The principal square root of a + i*b (cut along the negative reals). */
+static void psolSqrt(double a, double b, double *re, double *im) {
+	if (a == 0 && b == 0) { *re = 0; *im = 0; return; }
+	double t = sqrt((fabs(a) + hypot(a, b))/2);
+	if (a >= 0) { *re = t; *im = b/(2*t); return; }
+	*re = fabs(b)/(2*t);
+	*im = copysign(t, b);
+}
+
+/* A hole's variable k at (x, y): 0 S/(z - A); 1 1/w, w = (t + sqrt(t - S)*sqrt(t + S))/S2, t = (z - A)/B;
+   2 ((z - A)/(z - B))/S; 3 S/((z - A)/(z - B)). */
+static void psolVar(int k, double x, double y, double *re, double *im) {
+	double ar = x - psolVarARe[k], ai = y - psolVarAIm[k], wr, wi;
+	switch ((int)psolVarKind[k]) {
+	case 0:
+		psolDiv(psolVarS[k], 0, ar, ai, re, im);
+		return;
+	case 1: {
+		double zr, zi, s1r, s1i, s2r, s2i;
+		psolDiv(ar, ai, psolVarBRe[k], psolVarBIm[k], &zr, &zi);
+		psolSqrt(zr - psolVarS[k], zi, &s1r, &s1i);
+		psolSqrt(zr + psolVarS[k], zi, &s2r, &s2i);
+		wr = (zr + s1r*s2r - s1i*s2i)/psolVarS2[k];
+		wi = (zi + s1r*s2i + s1i*s2r)/psolVarS2[k];
+		psolDiv(1, 0, wr, wi, re, im);
+		return;
+	}
+	case 2:
+		psolDiv(ar, ai, x - psolVarBRe[k], y - psolVarBIm[k], &wr, &wi);
+		*re = wr/psolVarS[k];
+		*im = wi/psolVarS[k];
+		return;
+	default:
+		psolDiv(ar, ai, x - psolVarBRe[k], y - psolVarBIm[k], &wr, &wi);
+		psolDiv(psolVarS[k], 0, wr, wi, re, im);
+	}
+}
+
 /* u(x, y); link with -lm. */
 double u(double x, double y) {
 	double u = %[1]s;
@@ -102,9 +205,28 @@ double u(double x, double y) {
 	for (int m = 0; m < psolPowers; m++) {
 		double dx = x - psolWRe[m], dy = y - psolWIm[m];
 		double sr = dx*psolRotRe[m] - dy*psolRotIm[m], si = dx*psolRotIm[m] + dy*psolRotRe[m];
+		if (psolPiv[m] != 0) psolDiv(dx, dy, x - psolPivRe[m], y - psolPivIm[m], &sr, &si); /* a hole's corner */
 		if (sr == 0 && si == 0) continue;
 		double mag = exp(psolBeta[m]*log(hypot(sr, si))), arg = psolBeta[m]*atan2(si, sr);
 		u += mag*(psolERe[m]*cos(arg) - psolEIm[m]*sin(arg));
+	}
+	for (int j = 0; j < psolLogs; j++) {
+		double dx = x - psolLogRe[j], dy = y - psolLogIm[j];
+		u += psolLogK[j]*0.5*log(dx*dx + dy*dy);
+	}
+	double vr[%[3]d] = {0}, vi[%[3]d] = {0};
+	for (int k = 0; k < psolVars; k++) {
+		psolVar(k, x, y, &vr[k], &vi[k]);
+	}
+	for (int t = 0; t < psolTerms; t++) {
+		int k = (int)psolTermVar[t];
+		double pr = 1, pi = 0;
+		for (int n = 0; n < (int)psolTermJ[t]; n++) {
+			double r = pr*vr[k] - pi*vi[k];
+			pi = pr*vi[k] + pi*vr[k];
+			pr = r;
+		}
+		u += psolTERe[t]*pr - psolTEIm[t]*pi;
 	}
 	return u;
 }
@@ -138,11 +260,57 @@ def u(x, y):
     for m in range(len(PSOL_BETA)):
         dx, dy = x - PSOL_WRE[m], y - PSOL_WIM[m]
         sr, si = dx*PSOL_ROTRE[m] - dy*PSOL_ROTIM[m], dx*PSOL_ROTIM[m] + dy*PSOL_ROTRE[m]
+        if PSOL_PIV[m] != 0:  # a hole's corner: (z - W)/(z - pivot)
+            sr, si = _psol_div(dx, dy, x - PSOL_PIVRE[m], y - PSOL_PIVIM[m])
         if sr == 0 and si == 0:
             continue
         mag, arg = math.exp(PSOL_BETA[m]*math.log(math.hypot(sr, si))), PSOL_BETA[m]*math.atan2(si, sr)
         u += mag*(PSOL_ERE[m]*math.cos(arg) - PSOL_EIM[m]*math.sin(arg))
+    for j in range(len(PSOL_LOGK)):
+        dx, dy = x - PSOL_LOGRE[j], y - PSOL_LOGIM[j]
+        u += PSOL_LOGK[j]*0.5*math.log(dx*dx + dy*dy)
+    v = [_psol_var(k, x, y) for k in range(len(PSOL_VARKIND))]
+    for t in range(len(PSOL_TERMJ)):
+        vr, vi = v[int(PSOL_TERMVAR[t])]
+        pr, pi = 1.0, 0.0
+        for _ in range(int(PSOL_TERMJ[t])):
+            pr, pi = pr*vr - pi*vi, pr*vi + pi*vr
+        u += PSOL_TERE[t]*pr - PSOL_TEIM[t]*pi
     return u
+
+
+def _psol_div(ar, ai, br, bi):
+    d = br*br + bi*bi
+    return (ar*br + ai*bi)/d, (ai*br - ar*bi)/d
+
+
+def _psol_sqrt(a, b):
+    """The principal square root of a + i*b (cut along the negative reals)."""
+    if a == 0 and b == 0:
+        return 0.0, 0.0
+    t = math.sqrt((abs(a) + math.hypot(a, b))/2)
+    if a >= 0:
+        return t, b/(2*t)
+    return abs(b)/(2*t), math.copysign(t, b)
+
+
+def _psol_var(k, x, y):
+    """A hole's variable k: 0 S/(z - A); 1 1/w, w = (t + sqrt(t - S)*sqrt(t + S))/S2, t = (z - A)/B;
+    2 ((z - A)/(z - B))/S; 3 S/((z - A)/(z - B))."""
+    ar, ai = x - PSOL_VARARE[k], y - PSOL_VARAIM[k]
+    kind = int(PSOL_VARKIND[k])
+    if kind == 0:
+        return _psol_div(PSOL_VARS[k], 0.0, ar, ai)
+    if kind == 1:
+        zr, zi = _psol_div(ar, ai, PSOL_VARBRE[k], PSOL_VARBIM[k])
+        s1r, s1i = _psol_sqrt(zr - PSOL_VARS[k], zi)
+        s2r, s2i = _psol_sqrt(zr + PSOL_VARS[k], zi)
+        wr, wi = (zr + s1r*s2r - s1i*s2i)/PSOL_VARS2[k], (zi + s1r*s2i + s1i*s2r)/PSOL_VARS2[k]
+        return _psol_div(1.0, 0.0, wr, wi)
+    wr, wi = _psol_div(ar, ai, x - PSOL_VARBRE[k], y - PSOL_VARBIM[k])
+    if kind == 2:
+        return wr/PSOL_VARS[k], wi/PSOL_VARS[k]
+    return _psol_div(PSOL_VARS[k], 0.0, wr, wi)
 `,
 	},
 }
@@ -191,12 +359,6 @@ func writeSectionCode(w io.Writer, l series.Lang, pr *problem, sol *domain.Solut
 	}
 	shape := sectionCodeShapes[l.Name]
 	f := sol.Section.Fitted()
-	if f.Holed {
-		return &domain.Unsupported{Reason: "generated code for a section with holes is not written yet; --grid N --csv FILE gives the values"}
-	}
-	if f.Pivoted {
-		return &domain.Unsupported{Reason: "generated code for a polygon hole's corner functions is not written yet; --grid N --csv FILE gives the values"}
-	}
 	split := func(z []complex128) (re, im []float64) {
 		for _, c := range z {
 			re, im = append(re, real(c)), append(im, imag(c))
@@ -229,13 +391,41 @@ func writeSectionCode(w io.Writer, l series.Lang, pr *problem, sol *domain.Solut
 	table("Rot", f.Rot)
 	table("E", f.E)
 	b.WriteString(shape.array("Beta", f.Beta))
+	table("Piv", f.Pivot)
+	piv := make([]float64, len(f.Pivoted))
+	for m, p := range f.Pivoted {
+		if p {
+			piv[m] = 1
+		}
+	}
+	b.WriteString(shape.array("Piv", piv))
+	table("Log", f.LogAt)
+	b.WriteString(shape.array("LogK", f.LogK))
+	var kind, s1, s2 []float64
+	var va, vb, te []complex128
+	for _, v := range f.Vars {
+		kind, s1, s2 = append(kind, float64(v.Kind)), append(s1, v.S), append(s2, v.S2)
+		va, vb = append(va, v.A), append(vb, v.B)
+	}
+	b.WriteString(shape.array("VarKind", kind))
+	table("VarA", va)
+	table("VarB", vb)
+	b.WriteString(shape.array("VarS", s1))
+	b.WriteString(shape.array("VarS2", s2))
+	var tv, tj []float64
+	for _, t := range f.Terms {
+		tv, tj, te = append(tv, float64(t.Var)), append(tj, float64(t.J)), append(te, t.E)
+	}
+	b.WriteString(shape.array("TermVar", tv))
+	b.WriteString(shape.array("TermJ", tj))
+	table("TE", te)
 	b.WriteString(shape.scalar("CentreRe", real(f.Centre)))
 	b.WriteString(shape.scalar("CentreIm", imag(f.Centre)))
 	b.WriteString(shape.scalar("Scale", f.Scale))
 	if l.Name == "c" {
-		fmt.Fprintf(&b, "enum { psolPoles = %d, psolPowers = %d };\n", len(f.Poles), len(f.Beta))
+		fmt.Fprintf(&b, "enum { psolPoles = %d, psolPowers = %d, psolLogs = %d, psolVars = %d, psolTerms = %d };\n", len(f.Poles), len(f.Beta), len(f.LogK), len(f.Vars), len(f.Terms))
 	}
-	fmt.Fprintf(&b, shape.body, poly.Code(l), len(f.D))
+	fmt.Fprintf(&b, shape.body, poly.Code(l), len(f.D), max(1, len(f.Vars)))
 	_, err = io.WriteString(w, b.String())
 	return err
 }
