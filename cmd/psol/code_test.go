@@ -64,7 +64,11 @@ func psolValues(t *testing.T, args []string, env string, xy bool) []float64 {
 	if err != nil {
 		t.Fatal(err)
 	}
-	sol, err := domain.SolveWith(pr.domain, pr.source, pr.conds, domain.Options{Env: pr.env})
+	opt := domain.Options{Env: pr.env}
+	if cmd.Flags().Changed("tol") { // a fitted case's own tolerance: the same fit as the generated code's
+		opt.Tol, _ = cmd.Flags().GetFloat64("tol")
+	}
+	sol, err := domain.SolveWith(pr.domain, pr.source, pr.conds, opt)
 	if err != nil {
 		t.Fatal(err)
 	}
