@@ -122,7 +122,13 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		return o.finish(w, &out, files, nil)
 	}
 	v := newView(pr, sol, pts, o.steps)
-	for _, name := range pr.unusedLets(o.at...) {
+	var named []string // the --at texts that may name a parameter (plain numbers cannot)
+	for _, a := range o.at {
+		if _, plain := plainPoint(a); !plain {
+			named = append(named, a)
+		}
+	}
+	for _, name := range pr.unusedLets(named...) {
 		v.Warnings = append(v.Warnings, fmt.Sprintf("--let %s: the problem never uses %s (a misspelt name?)", name, name))
 	}
 	if o.report || len(o.quantity) > 0 {
