@@ -9,6 +9,11 @@
 // times polynomials, addend by addend (SplitWaves). A term no rule closes
 // is a *NoRule with the reason.
 //
+// A kink along a line, c·abs(ℓ) with ℓ linear in x and y, has the closed
+// particular solution c·|ℓ|³/(6|∇ℓ|²) (Kink, kink.go): SplitKinks takes such
+// addends out of a remainder, and the quadrature carries them as closed
+// parts beside what it samples.
+//
 // What no rule closes goes to a quadrature: Quadrature (polar regions: an FFT
 // in θ, Green's kernels on Gauss–Legendre panels in r) and SineQuadrature (the
 // rectangle: a sine transform in x, panels in y). Both refine two meshes and

@@ -3,6 +3,7 @@ package ansatz
 import (
 	"errors"
 	"math"
+	"psol/series"
 	"sort"
 
 	"gonum.org/v1/gonum/dsp/fourier"
@@ -50,6 +51,12 @@ type Quadrature struct {
 	// Laplacian the caller has taken out of G (a sector's RayLift): At and
 	// Integrals add it; Mode is the quadrature's own part without it.
 	Lift *RayLift
+	// Kinks are closed parts C·|ℓ|³/(6|∇ℓ|²) of the particular solution
+	// whose sources C·|ℓ| the caller has taken out of G (SplitKinks): At,
+	// Gradient, Integrals and Flux add them; Mode leaves them to KinkModes.
+	Kinks []Kink
+	// Left is the source part G samples when Kinks are set (nil: none).
+	Left *series.Expr
 
 	coarse, fine []panel
 	dropped      float64 // a bound on the particular solution of the modes not kept
@@ -780,6 +787,10 @@ func (q *Quadrature) Integrals(theta0, theta1 float64) (source, particular float
 		g, p := q.Lift.Integrals(theta1)
 		source, particular = source+g, particular+p
 	}
+	for _, k := range q.Kinks {
+		g, p := k.Integrals(q.A, q.R, theta0, theta1)
+		source, particular = source+g, particular+p
+	}
 	return source, particular
 }
 
@@ -791,7 +802,11 @@ func (q *Quadrature) Flux(r, theta0, theta1 float64) float64 {
 		nu := q.nu(k)
 		total += dp[k][0]*(math.Sin(nu*theta1)-math.Sin(nu*theta0))/nu + dp[k][1]*(math.Cos(nu*theta0)-math.Cos(nu*theta1))/nu
 	}
-	return r * total
+	flux := r * total
+	for _, k := range q.Kinks {
+		flux += k.Flux(r, theta0, theta1)
+	}
+	return flux
 }
 
 // At is the particular solution at (r, θ), with the quadrature error estimate.
@@ -811,7 +826,26 @@ func (q *Quadrature) At(r, theta float64) (float64, float64) {
 	if q.Lift != nil {
 		v += q.Lift.Value(r, theta)
 	}
+	for _, k := range q.Kinks {
+		v += k.Value(r, theta)
+	}
 	return v, err
+}
+
+// KinkModes are the Fourier coefficients of the kinks' closed parts and of
+// their radial derivatives on the circle of radius r, modes 0..top.
+func (q *Quadrature) KinkModes(r float64, top int) (p, dp [][2]float64) {
+	p, dp = make([][2]float64, top+1), make([][2]float64, top+1)
+	for _, k := range q.Kinks {
+		kp, kdp := k.Modes(r, top)
+		for m := range p {
+			for j := 0; j < 2; j++ {
+				p[m][j] += kp[m][j]
+				dp[m][j] += kdp[m][j]
+			}
+		}
+	}
+	return p, dp
 }
 
 // Gradient is (∂p/∂r, ∂p/∂θ) at (r, θ), from the modes and their radial
@@ -822,6 +856,10 @@ func (q *Quadrature) Gradient(r, theta float64) (pr, pt float64) {
 		c, s := math.Cos(q.nu(k)*theta), math.Sin(q.nu(k)*theta)
 		pr += dp[k][0]*c + dp[k][1]*s
 		pt += q.nu(k) * (p[k][1]*c - p[k][0]*s)
+	}
+	for _, k := range q.Kinks {
+		vr, vt := k.Gradient(r, theta)
+		pr, pt = pr+vr, pt+vt
 	}
 	return pr, pt
 }

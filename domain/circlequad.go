@@ -13,11 +13,8 @@ import (
 // particular solution of the source's remaining part (ansatz.Quadrature),
 // mode by mode under the circle's operator.
 func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string]series.Sum) error {
-	cf, err := series.Field{Rest: p.rest}.Compile(p.env)
-	if err != nil {
-		return unsupported("the source %s needs every parameter's value: %w", p.rest.Text(), err)
-	}
 	in, out := d.bounds()
+	var err error
 	a := 0.0
 	if in != nil {
 		if a, err = in.Float(p.env); err != nil {
@@ -30,9 +27,9 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 			return err
 		}
 	}
-	q := &ansatz.Quadrature{G: cf.At, A: a, R: R, Tol: p.tol, MaxSamples: p.quadSamples, MaxBisections: p.quadBisections}
-	if err := q.Prepare(); err != nil {
-		return unsolvable("%s: %w", p.rest.Text(), err)
+	q, err := kinkedQuadrature(p, a, R)
+	if err != nil {
+		return err
 	}
 	sol.Quadrature, sol.Rest, sol.Numeric = q, p.rest, true
 	for _, c := range d.circles() {
@@ -42,6 +39,11 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		}
 		pm, dpm, _ := q.Mode(r)
 		cond := p.conds[c.name]
+		if len(q.Kinks) > 0 {
+			var tail float64
+			pm, dpm, tail = addModes(pm, dpm, q, r, cond.Kind == Neumann || cond.Kind == Robin || cond.Kind == Floating)
+			sol.DataError += tail
+		}
 		qerr := q.TraceError(r, cond.Kind == Neumann || cond.Kind == Robin || cond.Kind == Floating)
 		h := 0.0
 		if cond.Kind == Robin {
@@ -68,8 +70,94 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		traces[c.name] = traces[c.name].Add(series.NewSum(terms...))
 		sol.DataError += qerr
 	}
-	sol.Notes = append(sol.Notes, fmt.Sprintf("psol has no closed-form rule for the source part %s: its particular solution is by quadrature (FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r)", p.rest.Text(), q.Samples, q.Modes))
+	sol.Notes = append(sol.Notes, quadratureNote(q, p.rest, "", fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", q.Samples, q.Modes)))
 	return nil
+}
+
+// kinkedQuadrature is the quadrature of the source's remainder with its
+// kinks c·abs(ℓ) taken out as closed parts (ansatz.SplitKinks) where the
+// region is bounded: the rest, if any, is sampled.
+func kinkedQuadrature(p *posed, a, R float64) (*ansatz.Quadrature, error) {
+	var kinks []ansatz.Kink
+	left := p.rest
+	if !math.IsInf(R, 1) {
+		kinks, left = ansatz.SplitKinks(p.rest, p.env)
+	}
+	g := func(r, theta float64) float64 { return 0 }
+	if left != nil {
+		cf, err := series.Field{Rest: left}.Compile(p.env)
+		if err != nil {
+			return nil, unsupported("the source %s needs every parameter's value: %w", p.rest.Text(), err)
+		}
+		g = cf.At
+	}
+	q := &ansatz.Quadrature{G: g, A: a, R: R, Tol: p.tol, MaxSamples: p.quadSamples, MaxBisections: p.quadBisections, Kinks: kinks, Left: left}
+	if err := q.Prepare(); err != nil {
+		return nil, unsolvable("%s: %w", p.rest.Text(), err)
+	}
+	return q, nil
+}
+
+// quadratureNote says how the source's remainder was taken: the kinks'
+// closed parts, and the quadrature of what is left.
+func quadratureNote(q *ansatz.Quadrature, rest *series.Expr, where, how string) string {
+	if len(q.Kinks) == 0 {
+		return fmt.Sprintf("psol has no closed-form rule for the source part %s: its particular solution is by quadrature%s (%s)", rest.Text(), where, how)
+	}
+	note := "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable; its trace's Fourier coefficients, which fall like k^-4, by an FFT of at least 16384 samples)"
+	if q.Left != nil {
+		note += fmt.Sprintf("; the rest, %s, is by quadrature%s (%s)", q.Left.Text(), where, how)
+	}
+	return note
+}
+
+// addModes adds the kinks' modes on the circle of radius r to the
+// quadrature's, as many as the kinks need: their coefficients fall like
+// k⁻⁴ (a jump in the third derivative where the line crosses), and the
+// modes stop after the last one above the tolerance's share.
+//
+// The tail returned is what the modes left out add up to, the bound on
+// their share of the data.
+func addModes(pm, dpm [][2]float64, q *ansatz.Quadrature, r float64, slope bool) (p, dp [][2]float64, tail float64) {
+	const most = 8192
+	kp, kdp := q.KinkModes(r, most)
+	use := kp // the data the side's condition reads: values, or with a flux the slopes
+	if slope {
+		use = kdp
+	}
+	size := 0.0
+	for _, v := range use {
+		size = math.Max(size, math.Hypot(v[0], v[1]))
+	}
+	// The fewest modes whose omitted rest — those computed, summed, and
+	// beyond them Σ_{k>n} a·(n/k)⁴ ≤ a·n/3, a the last coefficient — is
+	// within a quarter of the tolerance.
+	last := use[len(use)-1]
+	tail = math.Hypot(last[0], last[1]) * float64(len(use)) / 3
+	top := len(use) - 1
+	for top > 0 {
+		a := math.Hypot(use[top][0], use[top][1])
+		if tail+a > q.Tol*size/4 {
+			break
+		}
+		tail += a
+		top--
+	}
+	kp, kdp = kp[:top+1], kdp[:top+1]
+	n := max(len(pm), len(kp))
+	p, dp = make([][2]float64, n), make([][2]float64, n)
+	for m := 0; m < n; m++ {
+		for j := 0; j < 2; j++ {
+			if m < len(pm) {
+				p[m][j], dp[m][j] = pm[m][j], dpm[m][j]
+			}
+			if m < len(kp) {
+				p[m][j] += kp[m][j]
+				dp[m][j] += kdp[m][j]
+			}
+		}
+	}
+	return p, dp, tail
 }
 
 // decimal is x rounded to 15 digits as an exact decimal.

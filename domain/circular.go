@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"sort"
 	"strings"
 
 	"psol/ansatz"
@@ -205,6 +206,17 @@ func coefOf(s series.Sum, m mode) series.Coef {
 	return series.Coef{}
 }
 
+// modeTable is coefOf for every mode of s at once.
+func modeTable(s series.Sum) map[mode]series.Coef {
+	out := map[mode]series.Coef{}
+	for _, t := range s.Terms() {
+		if t.P.Sign() == 0 && t.L == 0 && t.K == 0 {
+			out[mode{t.M, t.Sin}] = t.C
+		}
+	}
+	return out
+}
+
 func harmonicModes(d circular, p *posed, sol *Solution, data map[string]series.Sum) error {
 	circles := d.circles()
 	modes := map[mode]bool{{0, false}: true} // mode 0 always: it may carry a free constant
@@ -220,6 +232,12 @@ func harmonicModes(d circular, p *posed, sol *Solution, data map[string]series.S
 	sortModes(order)
 	harmonic := sol.Harmonic.Terms() // built once, at the end
 	defer func() { sol.Harmonic = series.NewSum(harmonic...) }()
+	// Each circle's data by mode, looked up once: a numeric trace can have
+	// thousands of modes, and a scan per mode is quadratic.
+	byMode := map[string]map[mode]series.Coef{}
+	for _, c := range circles {
+		byMode[c.name] = modeTable(data[c.name])
+	}
 	for _, m := range order {
 		basis := d.basis(m.n)
 		a := make([][]series.Coef, len(circles))
@@ -234,7 +252,7 @@ func harmonicModes(d circular, p *posed, sol *Solution, data map[string]series.S
 				}
 				a[i] = append(a[i], coefOf(v, m))
 			}
-			b[i] = coefOf(data[c.name], m)
+			b[i] = byMode[c.name][m]
 		}
 		x, free, ok := series.SolveLinear(a, b)
 		if !ok && sol.Quadrature != nil {
@@ -310,11 +328,9 @@ func modeStep(m mode, basis []series.Sum, x []series.Coef) string {
 }
 
 func sortModes(ms []mode) {
-	for i := 1; i < len(ms); i++ {
-		for j := i; j > 0 && (ms[j].n < ms[j-1].n || ms[j].n == ms[j-1].n && !ms[j].sin && ms[j-1].sin); j-- {
-			ms[j], ms[j-1] = ms[j-1], ms[j]
-		}
-	}
+	sort.Slice(ms, func(i, j int) bool {
+		return ms[i].n < ms[j].n || ms[i].n == ms[j].n && !ms[i].sin && ms[j].sin
+	})
 }
 
 // numericGap is the largest |b_i|, and whether it is within 1e-9 of scale,

@@ -319,7 +319,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 			qerr = math.Max(qerr, in.err)
 		}
 		sol.DataError += qerr
-		sol.Notes = append(sol.Notes, fmt.Sprintf("psol has no closed-form rule for the source part %s: its particular solution is by quadrature on the disk r < %.6g around the section (FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r)", p.rest.Text(), quad.R, quad.Samples, quad.Modes))
+		sol.Notes = append(sol.Notes, quadratureNote(quad, p.rest, fmt.Sprintf(" on the disk r < %.6g around the section", quad.R), fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", quad.Samples, quad.Modes)))
 		qc, err := checkedQuadrature(d, sol, p)
 		if err != nil {
 			return nil, err
@@ -522,11 +522,7 @@ func sectionQuadrature(d section, geo sectionGeometry, p *posed) (*ansatz.Quadra
 			}
 		}
 	}
-	q := &ansatz.Quadrature{G: cf.At, R: R, Tol: p.tol, MaxSamples: p.quadSamples, MaxBisections: p.quadBisections}
-	if err := q.Prepare(); err != nil {
-		return nil, unsolvable("%s: %w", p.rest.Text(), err)
-	}
-	return q, nil
+	return kinkedQuadrature(p, 0, R)
 }
 
 func (sc sideCondition) point(t, x, y, nx, ny float64, side int, geo *sectionGeometry) boundaryPoint {

@@ -122,8 +122,8 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 		st := exactStage("closed form", "u = "+text, tex, "u")
 		v.ClosedForm = &st
 	}
-	if sol.Quadrature != nil {
-		v.where = append(v.where, `$u_q$ is the particular solution of the source part $`+sol.Rest.LaTeX()+`$, by quadrature (numeric)`)
+	if rest := quadratureSource(sol); rest != nil {
+		v.where = append(v.where, `$u_q$ is the particular solution of the source part $`+rest.LaTeX()+`$, by quadrature (numeric)`)
 	}
 	if sol.Numeric {
 		v.approximate(sol)
@@ -606,23 +606,57 @@ func (v *view) approximate(sol *domain.Solution) {
 	}
 	mark(&v.Trace, strings.Join(tr, "; "), strings.Join(trTeX, ", "))
 	if sol.Quadrature != nil {
-		q := "quadrature(" + sol.Rest.Text() + ")"
+		q, qTeX := quadratureText(sol)
 		text := "u_p = " + sol.Particular.Text() + " + " + q
 		if sol.Particular.IsZero() {
 			text = "u_p = " + q
 		}
-		tex := sol.Particular.LaTeX() + ` + u_q`
+		tex := sol.Particular.LaTeX() + ` + ` + qTeX
 		if sol.Particular.IsZero() {
-			tex = `u_q`
+			tex = qTeX
 		}
 		mark(&v.Particular, text, tex)
+		if sol.Quadrature.Left == nil && len(sol.Quadrature.Kinks) > 0 {
+			v.Particular.Exact = true // closed: the kinks' forms alone
+		}
 	}
 	mark(&v.Harmonic, "≈ "+sol.Harmonic.TextApprox(), sol.Harmonic.LaTeXApprox())
 	solText, solTeX := sol.U.TextApprox(), sol.U.LaTeXApprox()
 	if sol.Quadrature != nil {
-		solText, solTeX = solText+" + quadrature("+sol.Rest.Text()+")", solTeX+` + u_q`
+		q, qTeX := quadratureText(sol)
+		solText, solTeX = solText+" + "+q, solTeX+` + `+qTeX
 	}
 	mark(&v.Solution, "u ≈ "+solText, solTeX)
+}
+
+// quadratureText is the particular solution of the source's part with no
+// polynomial rule: the kinks' closed forms, c*abs(l)^3/(6|grad l|^2), and
+// quadrature(rest) for what is left (u_q in LaTeX).
+func quadratureText(sol *domain.Solution) (text, tex string) {
+	q := sol.Quadrature
+	if len(q.Kinks) == 0 {
+		return "quadrature(" + sol.Rest.Text() + ")", `u_q`
+	}
+	var ts, xs []string
+	for _, k := range q.Kinks {
+		ts, xs = append(ts, k.Text()), append(xs, k.LaTeX())
+	}
+	if q.Left != nil {
+		ts, xs = append(ts, "quadrature("+q.Left.Text()+")"), append(xs, `u_q`)
+	}
+	return strings.Join(ts, " + "), strings.Join(xs, " + ")
+}
+
+// quadratureSource is the source part the quadrature samples (nil: none,
+// the kinks took it all).
+func quadratureSource(sol *domain.Solution) *series.Expr {
+	if sol.Quadrature == nil {
+		return nil
+	}
+	if len(sol.Quadrature.Kinks) > 0 {
+		return sol.Quadrature.Left
+	}
+	return sol.Rest
 }
 
 // where is a polar point, with its Cartesian coordinates beside.

@@ -22,7 +22,7 @@ func (v *view) sectionStages(sol *domain.Solution) {
 	}
 	closedUp := up             // the closed part alone, for the corrections
 	if sol.Quadrature != nil { // the source's part with no closed form, by quadrature
-		q := "quadrature(" + sol.Rest.Text() + ")"
+		q, _ := quadratureText(sol)
 		if sol.Particular.IsZero() {
 			up, upTeX = "u_q, u_q = "+q, `u_q`
 		} else {

@@ -1,0 +1,215 @@
+package ansatz
+
+import (
+	"math"
+	"sort"
+
+	"gonum.org/v1/gonum/dsp/fourier"
+
+	"psol/series"
+)
+
+// Kink is the source term C·|ℓ|, ℓ = A·x + B·y + D a linear form with a
+// nonzero gradient: the source of a heated slab whose sides are at
+// different temperatures, a load that changes sign along a line. Its
+// particular solution is closed:
+//
+//	v = C·|ℓ|³/(6(A² + B²)),  since d²/dℓ² |ℓ|³/6 = |ℓ| and |∇ℓ|² = A² + B²
+//
+// (common practice). v is twice continuously differentiable, so the
+// harmonic part sees a smooth enough trace; no quadrature of the kinked
+// source is needed (it took 10⁸ samples and a gigabyte for 1e-9).
+type Kink struct {
+	C, A, B, D float64
+	// Factor is C/(6(A² + B²)) exactly, where the source's numbers are,
+	// and Abs the abs(ℓ) node: the closed form prints as Factor·Abs³.
+	Factor series.Coef
+	Abs    *series.Expr
+}
+
+// Text is the closed form, Factor*abs(ℓ)^3.
+func (k Kink) Text() string { return k.factorText() + "*" + k.Abs.Text() + "^3" }
+
+// LaTeX is the closed form in LaTeX.
+func (k Kink) LaTeX() string { return series.Const(k.Factor).LaTeX() + ` ` + k.Abs.LaTeX() + `^{3}` }
+
+func (k Kink) factorText() string { return "(" + series.Const(k.Factor).Text() + ")" }
+
+func (k Kink) form(x, y float64) float64 { return k.A*x + k.B*y + k.D }
+
+func (k Kink) grad2() float64 { return k.A*k.A + k.B*k.B }
+
+// ValueXY is v(x, y).
+func (k Kink) ValueXY(x, y float64) float64 {
+	l := math.Abs(k.form(x, y))
+	return k.C * l * l * l / (6 * k.grad2())
+}
+
+// Value is v(r, θ).
+func (k Kink) Value(r, theta float64) float64 {
+	return k.ValueXY(r*math.Cos(theta), r*math.Sin(theta))
+}
+
+// Source is C·|ℓ| at (r, θ): Δv.
+func (k Kink) Source(r, theta float64) float64 {
+	return k.C * math.Abs(k.form(r*math.Cos(theta), r*math.Sin(theta)))
+}
+
+// Gradient is (∂v/∂r, ∂v/∂θ) at (r, θ): ∇v = C·ℓ|ℓ|/(2(A² + B²))·(A, B).
+func (k Kink) Gradient(r, theta float64) (vr, vt float64) {
+	c, s := math.Cos(theta), math.Sin(theta)
+	l := k.form(r*c, r*s)
+	g := k.C * l * math.Abs(l) / (2 * k.grad2())
+	gx, gy := g*k.A, g*k.B
+	return gx*c + gy*s, r * (gy*c - gx*s)
+}
+
+// breaks are the angles in [0, 2π) where the line ℓ = 0 meets the circle
+// of radius r (none, one where it touches, or two), sorted.
+func (k Kink) breaks(r float64) []float64 {
+	// A r cos θ + B r sin θ = −D: ρ cos(θ − φ) = −D/r with ρ = |∇ℓ|.
+	rho, phi := math.Sqrt(k.grad2()), math.Atan2(k.B, k.A)
+	c := -k.D / (r * rho)
+	if math.Abs(c) > 1 {
+		return nil
+	}
+	d := math.Acos(c)
+	var out []float64
+	for _, t := range []float64{phi + d, phi - d} {
+		t = math.Mod(t, 2*math.Pi)
+		if t < 0 {
+			t += 2 * math.Pi
+		}
+		out = append(out, t)
+	}
+	sort.Float64s(out)
+	return out
+}
+
+// arcNodes are Gauss–Legendre nodes and weights on [0, 2π) split at the
+// breaks, each arc in panels of at most 2π/64: v is a polynomial in cos θ
+// and sin θ between the breaks, integrated to rounding.
+func arcNodes(breaks []float64) (th, w []float64) { return arcNodesFor(breaks, 64) }
+
+// arcNodesFor is arcNodes with panels of at most 2π/panels: a rule for
+// the modes up to about 4·panels (16 nodes to a panel resolve its ~4
+// periods of the highest mode).
+func arcNodesFor(breaks []float64, panels int) (th, w []float64) {
+	edges := append([]float64{0}, breaks...)
+	edges = append(edges, 2*math.Pi)
+	for i := 0; i+1 < len(edges); i++ {
+		lo, hi := edges[i], edges[i+1]
+		if hi <= lo {
+			continue
+		}
+		n := int(math.Ceil((hi - lo) / (2 * math.Pi / float64(panels))))
+		for p := 0; p < n; p++ {
+			a, b := lo+(hi-lo)*float64(p)/float64(n), lo+(hi-lo)*float64(p+1)/float64(n)
+			for j, x := range GaussX {
+				th = append(th, (a+b)/2+(b-a)/2*x)
+				w = append(w, GaussW[j]*(b-a)/2)
+			}
+		}
+	}
+	return th, w
+}
+
+// Modes are the Fourier coefficients of v and of ∂v/∂r on the circle of
+// radius r, [k][0] of cos kθ and [k][1] of sin kθ, k = 0..top, by an FFT of
+// 8·top samples (at least 2¹⁴): v has a jump only in its third derivative,
+// so its coefficients fall like k⁻⁴ and the aliased ones, from k ≥ 7·top,
+// are below 10⁻¹⁶ of the largest.
+func (k Kink) Modes(r float64, top int) (p, dp [][2]float64) {
+	n := max(1<<14, 8*top)
+	vals, slopes := make([]float64, n), make([]float64, n)
+	for i := range vals {
+		t := 2 * math.Pi * float64(i) / float64(n)
+		vals[i] = k.Value(r, t)
+		slopes[i], _ = k.Gradient(r, t)
+	}
+	fft := fourier.NewFFT(n)
+	cv, cs := fft.Coefficients(nil, vals), fft.Coefficients(nil, slopes)
+	p, dp = make([][2]float64, top+1), make([][2]float64, top+1)
+	for m := 0; m <= top; m++ {
+		f := 2 / float64(n)
+		if m == 0 {
+			f = 1 / float64(n)
+		}
+		// The FFT's coefficient is Σ x_j e^(−2πijm/n): a_m = f·Re, b_m = −f·Im.
+		p[m] = [2]float64{f * real(cv[m]), -f * imag(cv[m])}
+		dp[m] = [2]float64{f * real(cs[m]), -f * imag(cs[m])}
+	}
+	return p, dp
+}
+
+// Integrals are ∬ C|ℓ| dA and ∬ v dA over a < r < R, θ0 < θ < θ1, by
+// Gauss–Legendre in r on panels split where the line touches a circle and
+// in θ between each ring's crossings.
+func (k Kink) Integrals(a, R, theta0, theta1 float64) (source, particular float64) {
+	// Radial panels: 16 on each side of where the line touches a circle,
+	// graded geometrically towards that radius, where the crossings move
+	// like a square root of the distance.
+	edges := []float64{a, R}
+	if t := math.Abs(k.D) / math.Sqrt(k.grad2()); t > a && t < R {
+		edges = []float64{a}
+		for j := 30; j >= 1; j-- {
+			edges = append(edges, t-(t-a)*math.Pow(0.5, float64(j)))
+		}
+		edges = append(edges, t)
+		for j := 1; j <= 30; j++ {
+			edges = append(edges, t+(R-t)*math.Pow(0.5, float64(31-j)))
+		}
+		edges = append(edges, R)
+		sort.Float64s(edges)
+	}
+	for i := 0; i+1 < len(edges); i++ {
+		lo, hi := edges[i], edges[i+1]
+		panels := 1
+		if len(edges) == 2 {
+			panels = 16
+		}
+		for pn := 0; pn < panels; pn++ {
+			pa, pb := lo+(hi-lo)*float64(pn)/float64(panels), lo+(hi-lo)*float64(pn+1)/float64(panels)
+			for j, x := range GaussX {
+				r := (pa+pb)/2 + (pb-pa)/2*x
+				wr := GaussW[j] * (pb - pa) / 2 * r
+				th, w := arcNodes(withEnds(k.breaks(r), theta0, theta1))
+				for m, t := range th {
+					if t < theta0 || t > theta1 {
+						continue
+					}
+					source += wr * w[m] * k.Source(r, t)
+					particular += wr * w[m] * k.Value(r, t)
+				}
+			}
+		}
+	}
+	return source, particular
+}
+
+// withEnds adds the ends of a range in [0, 2π] to the breaks, so that no
+// panel straddles them.
+func withEnds(breaks []float64, theta0, theta1 float64) []float64 {
+	out := append([]float64(nil), breaks...)
+	for _, t := range []float64{theta0, theta1} {
+		if t > 0 && t < 2*math.Pi {
+			out = append(out, t)
+		}
+	}
+	sort.Float64s(out)
+	return out
+}
+
+// Flux is ∫ ∂v/∂r r dθ over θ0 < θ < θ1 on the circle of radius r.
+func (k Kink) Flux(r, theta0, theta1 float64) float64 {
+	th, w := arcNodes(withEnds(k.breaks(r), theta0, theta1))
+	total := 0.0
+	for i, t := range th {
+		if t < theta0 || t > theta1 {
+			continue
+		}
+		vr, _ := k.Gradient(r, t)
+		total += w[i] * vr * r
+	}
+	return total
+}
