@@ -437,14 +437,7 @@ func TestHollowShaftFloatingHole(t *testing.T) {
 	a, b := 0.02, 0.025
 	d := domain.Holed{Outer: domain.Disk{R: decimalCoef(b)}, Holes: []domain.CircleHole{{X: series.Coef{}, Y: series.Coef{}, R: decimalCoef(a)}}}
 	sol := solveWith(t, "lap(u) = -2", d, domain.Options{Tol: 1e-12}, "rim: u = 0", "hole1: u = const, flux = 2*pi*0.02^2")
-	rep, err := sol.Report(nil, 1e-12)
-	if err != nil {
-		t.Fatal(err)
-	}
-	figs, err := sol.Quantity("torsion", rep)
-	if err != nil {
-		t.Fatal(err)
-	}
+	figs := quantityOf(t, sol, "torsion", 1e-12)
 	if want := math.Pi * (b*b*b*b - a*a*a*a) / 2; math.Abs(figs[0].Value-want) > 1e-9*want {
 		t.Errorf("J = %.12g, want π(b⁴ − a⁴)/2 = %.12g (Timoshenko & Goodier)", figs[0].Value, want)
 	}
@@ -561,14 +554,7 @@ func TestHollowEllipticShaft(t *testing.T) {
 	d := domain.Holed{Outer: domain.Ellipse{A: decimalCoef(a), B: decimalCoef(b)},
 		Holes: []domain.CircleHole{{A: decimalCoef(k * a), B: decimalCoef(k * b)}}}
 	sol := solveWith(t, "lap(u) = -2", d, domain.Options{Tol: 1e-12}, "rim: u = 0", fmt.Sprintf("hole1: u = const, flux = 2*pi*%g*%g", k*a, k*b))
-	rep, err := sol.Report(nil, 1e-12)
-	if err != nil {
-		t.Fatal(err)
-	}
-	figs, err := sol.Quantity("torsion", rep)
-	if err != nil {
-		t.Fatal(err)
-	}
+	figs := quantityOf(t, sol, "torsion", 1e-12)
 	if want := math.Pi * a * a * a * b * b * b / (a*a + b*b) * (1 - k*k*k*k); math.Abs(figs[0].Value-want) > 1e-9*want {
 		t.Errorf("J = %.12g, want πa³b³/(a² + b²)(1 − k⁴) = %.12g (Timoshenko & Goodier)", figs[0].Value, want)
 	}
@@ -596,4 +582,18 @@ func TestEllipticHoleManufactured(t *testing.T) {
 			t.Errorf("u%v = %.13f, exact %.13f (estimate %.1g)", p, got, exact(p[0], p[1]), est+sol.DataError)
 		}
 	}
+}
+
+// quantityOf is the named figure set of a solution's report at tol.
+func quantityOf(t *testing.T, sol *domain.Solution, name string, tol float64) []domain.Figure {
+	t.Helper()
+	rep, err := sol.Report(nil, tol)
+	if err != nil {
+		t.Fatal(err)
+	}
+	figs, err := sol.Quantity(name, rep)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return figs
 }

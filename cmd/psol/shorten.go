@@ -121,17 +121,27 @@ func splitTop(s, sep string) []string {
 
 // splitTerms splits a sum into its top-level terms, each keeping the sign
 // before it (" + t" or " - t"; the first as written).
-func splitTerms(s string) []string {
+func splitTerms(s string) []string { return splitSigned(s, bracketDepth) }
+
+// bracketDepth is how a plain-text character changes the nesting.
+func bracketDepth(s string, i int) int {
+	switch s[i] {
+	case '(', '[', '{':
+		return 1
+	case ')', ']', '}':
+		return -1
+	}
+	return 0
+}
+
+// splitSigned splits s at its " + " and " - " where depth, summed over the
+// characters so far, is zero.
+func splitSigned(s string, depth func(s string, i int) int) []string {
 	var out []string
-	depth, start := 0, 0
+	level, start := 0, 0
 	for i := 0; i < len(s); i++ {
-		switch s[i] {
-		case '(', '[', '{':
-			depth++
-		case ')', ']', '}':
-			depth--
-		}
-		if depth == 0 && i > start && (strings.HasPrefix(s[i:], " + ") || strings.HasPrefix(s[i:], " - ")) {
+		level += depth(s, i)
+		if level == 0 && i > start && (strings.HasPrefix(s[i:], " + ") || strings.HasPrefix(s[i:], " - ")) {
 			out = append(out, s[start:i])
 			start = i
 			i += 2
@@ -174,20 +184,13 @@ func shortenNumericLaTeX(text, tex, symbol string) (string, string) {
 // splitTermsLaTeX splits LaTeX at its top-level " + " and " - " (outside
 // braces and \left…\right pairs), each term keeping its sign.
 func splitTermsLaTeX(s string) []string {
-	var out []string
-	depth, start := 0, 0
-	for i := 0; i < len(s); i++ {
+	return splitSigned(s, func(s string, i int) int {
 		switch {
 		case s[i] == '{' || strings.HasPrefix(s[i:], `\left`):
-			depth++
+			return 1
 		case s[i] == '}' || strings.HasPrefix(s[i:], `\right`):
-			depth--
+			return -1
 		}
-		if depth == 0 && i > start && (strings.HasPrefix(s[i:], " + ") || strings.HasPrefix(s[i:], " - ")) {
-			out = append(out, s[start:i])
-			start = i
-			i += 2
-		}
-	}
-	return append(out, s[start:])
+		return 0
+	})
 }
