@@ -268,8 +268,11 @@ func (e *EigenSide) At(x, y, tol float64, maxTerms int) (sum, tail float64) {
 			break
 		}
 	}
-	if len(e.b) > 0 { // the modes beyond the computed ones: about the last one's size, times n
-		tail = math.Max(tail, math.Abs(e.b[len(e.b)-1]*e.across(e.mu[len(e.b)-1], d))*float64(len(e.b)))
+	// The modes beyond the computed ones: about the last ones' size, times
+	// n — the largest of the last four, since symmetric data leave every
+	// other coefficient 0 and the very last one may be among them.
+	for n := max(0, len(e.b)-4); n < len(e.b); n++ {
+		tail = math.Max(tail, math.Abs(e.b[n]*e.across(e.mu[n], d))*float64(len(e.b)))
 	}
 	return sum, tail
 }
