@@ -95,7 +95,7 @@ func polarSampler(ev *domain.Evaluator, rlo, rhi float64, nr, nt int) func(r, th
 
 // plotSolution draws a filled map of u over the true domain, labelled
 // contour lines, the boundary, a colour bar, axes and a title.
-func plotSolution(w io.Writer, format string, title string, sol *domain.Solution) error {
+func plotSolution(w io.Writer, format string, title string, sol *domain.Solution, scale *[2]float64) error {
 	env := sol.Options.Env
 	x0, x1, y0, y1, edges, err := bounds(sol.Domain, env)
 	if err != nil {
@@ -150,6 +150,9 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 			}
 			f.z[r*n+c] = v
 		}
+	}
+	if scale != nil { // the user's ends: values beyond take the end colours
+		f.min, f.max = scale[0], scale[1]
 	}
 	for i, v := range f.z {
 		if !math.IsNaN(v) {

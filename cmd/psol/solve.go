@@ -4,6 +4,9 @@ import (
 	"bytes"
 	"fmt"
 	"io"
+	"math"
+	"psol/parse"
+	"strconv"
 	"strings"
 	"unicode/utf8"
 
@@ -26,6 +29,8 @@ type solveOptions struct {
 	csv      string
 	stderr   io.Writer
 	plot     string
+	scale    string      // --plot-scale LO,HI as given
+	scaleLH  *[2]float64 // read by validate
 	quantity []string
 	// set records flags given explicitly (even as an empty string).
 	gridSet, csvSet, plotSet bool
@@ -55,6 +60,7 @@ func newSolveCmd() *cobra.Command {
 	f.StringVar(&o.csv, "csv", "", "with --grid: the CSV file to write (replaced only when the run succeeds)")
 	f.StringArrayVar(&o.quantity, "quantity", nil, quantityHelp())
 	f.StringVar(&o.plot, "plot", "", "draw u over the domain to FILE.png or FILE.svg")
+	f.StringVar(&o.scale, "plot-scale", "", "with --plot: the colour scale's ends LO,HI (default: the values' range)")
 	f.StringVar(&o.lang, "lang", "go", "language of --format code: go, c or python")
 	f.BoolVar(&o.report, "report", false, "add max, min, area integral, mean and the flux balance")
 	f.IntVar(&o.terms, "terms", 100000, "cap on the series terms summed")
@@ -97,7 +103,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	if o.plot != "" {
 		format, _ := plotFormat(o.plot)
 		title := plotTitle(pr)
-		if err := files.stage(o.plot, func(w io.Writer) error { return plotSolution(w, format, title, sol) }); err != nil {
+		if err := files.stage(o.plot, func(w io.Writer) error { return plotSolution(w, format, title, sol, o.scaleLH) }); err != nil {
 			return err
 		}
 	}
@@ -205,6 +211,16 @@ func (o *solveOptions) validate() error {
 			return err
 		}
 	}
+	if o.scale != "" {
+		lh, err := readScale(o.scale)
+		if err != nil {
+			return err
+		}
+		if o.plot == "" {
+			return usagef("--plot-scale goes with --plot FILE")
+		}
+		o.scaleLH = &lh
+	}
 	if o.format == "code" {
 		if _, ok := series.Langs[o.lang]; !ok {
 			return usagef("--lang %q: choose go, c or python", o.lang)
@@ -245,6 +261,23 @@ func plotTitle(pr *problem) string {
 		region = pr.domain.Describe()
 	}
 	return wrapWords(strings.TrimSpace(pr.equation)+" on "+region, titleWidth) + "\n" + wrapWords(strings.Join(conds, "; "), titleWidth)
+}
+
+// readScale reads --plot-scale LO,HI: two numbers, LO below HI.
+func readScale(text string) ([2]float64, error) {
+	lo, hi, ok := strings.Cut(text, ",")
+	a, errA := strconv.ParseFloat(strings.TrimSpace(lo), 64)
+	if !ok || errA != nil || math.IsInf(a, 0) || math.IsNaN(a) {
+		return [2]float64{}, &parse.Error{Label: "--plot-scale", Input: text, Msg: "give the colour scale's ends as LO,HI, two numbers"}
+	}
+	b, errB := strconv.ParseFloat(strings.TrimSpace(hi), 64)
+	if errB != nil || math.IsInf(b, 0) || math.IsNaN(b) {
+		return [2]float64{}, &parse.Error{Label: "--plot-scale", Input: text, Offset: len(lo) + 1, Msg: "give the colour scale's ends as LO,HI, two numbers"}
+	}
+	if !(a < b) {
+		return [2]float64{}, &parse.Error{Label: "--plot-scale", Input: text, Offset: len(lo) + 1, Msg: "the upper end must be above the lower"}
+	}
+	return [2]float64{a, b}, nil
 }
 
 // titleWidth is the characters of a title line that fit the plot's width
