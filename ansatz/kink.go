@@ -143,12 +143,12 @@ func (k Kink) Modes(r float64, top int) (p, dp [][2]float64) {
 }
 
 // Integrals are ∬ C|ℓ| dA and ∬ v dA over a < r < R, θ0 < θ < θ1, by
-// Gauss–Legendre in r on panels split where the line touches a circle and
-// in θ between each ring's crossings.
+// Gauss–Legendre in r on panels graded towards where the line touches a
+// circle and in θ between each ring's crossings (and θ0, θ1).
 func (k Kink) Integrals(a, R, theta0, theta1 float64) (source, particular float64) {
-	// Radial panels: 16 on each side of where the line touches a circle,
-	// graded geometrically towards that radius, where the crossings move
-	// like a square root of the distance.
+	// Radial panels: 30 on each side of where the line touches a circle,
+	// halving towards that radius, where the crossings move like a square
+	// root of the distance; 16 equal ones where it touches none.
 	edges := []float64{a, R}
 	if t := math.Abs(k.D) / math.Sqrt(k.grad2()); t > a && t < R {
 		edges = []float64{a}
