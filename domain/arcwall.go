@@ -11,11 +11,10 @@ import (
 // series reaches only slowly (its terms decay like a power of 1/n there, not
 // geometrically). A point or a grid row on the arc takes the data, exactly.
 type arcWall struct {
-	data        series.Field
-	radius      series.Coef
-	from, to    series.Coef // the arc's angular range
-	fullCircle  bool
-	compiledArc *compiledArc
+	data       series.Field
+	radius     series.Coef
+	from, to   series.Coef // the arc's angular range
+	fullCircle bool
 }
 
 type compiledArc struct {

@@ -34,7 +34,7 @@ func (s *Solution) verifyIndependently() (worst float64, side string, ok bool) {
 	if err != nil {
 		return 0, "", false
 	}
-	ev.walls, ev.rim = nil, nil // no reading the data back
+	ev.walls, ev.rim, ev.arcs = nil, nil, nil // no reading the data back
 	shape, err := s.Domain.Shape(env)
 	if err != nil {
 		return 0, "", false
