@@ -78,16 +78,7 @@ func shortenPart(p string) string {
 	if len(p) <= longSum {
 		return p
 	}
-	at := strings.Index(p, "≈ ")
-	if at < 0 {
-		return p
-	}
-	head, body := p[:at+len("≈ ")], p[at+len("≈ "):]
-	terms := splitTerms(body)
-	if len(terms) < manyTerms {
-		return p
-	}
-	omit, keep, ok := numericRun(terms[shownTerms:])
+	head, terms, omit, keep, ok := longNumericSum(p)
 	if !ok {
 		return p
 	}
@@ -99,17 +90,29 @@ func shortenPart(p string) string {
 	return head + strings.Join(terms[:shownTerms], "") + rest + "; --format json lists them all)" + strings.Join(keep, "")
 }
 
+// longNumericSum reads "head ≈ sum" with many terms: the head (through the
+// "≈ "), the sum's terms, the plain numeric run after the first shownTerms
+// to leave out and the trailing terms of other kinds to keep; ok is false
+// where the part is not such a sum.
+func longNumericSum(p string) (head string, terms, omit, keep []string, ok bool) {
+	at := strings.Index(p, "≈ ")
+	if at < 0 {
+		return "", nil, nil, nil, false
+	}
+	head, terms = p[:at+len("≈ ")], splitTerms(p[at+len("≈ "):])
+	if len(terms) < manyTerms {
+		return "", nil, nil, nil, false
+	}
+	omit, keep, ok = numericRun(terms[shownTerms:])
+	return head, terms, omit, keep, ok
+}
+
 // splitTop splits s at sep where no bracket is open.
 func splitTop(s, sep string) []string {
 	var out []string
 	depth, start := 0, 0
 	for i := 0; i < len(s); i++ {
-		switch s[i] {
-		case '(', '[', '{':
-			depth++
-		case ')', ']', '}':
-			depth--
-		}
+		depth += bracketDepth(s, i)
 		if depth == 0 && strings.HasPrefix(s[i:], sep) {
 			out = append(out, s[start:i])
 			start = i + len(sep)
@@ -158,17 +161,9 @@ func shortenNumericLaTeX(text, tex, symbol string) (string, string) {
 	if len(text) <= longSum || !strings.Contains(text, "≈") || len(splitTop(text, "; ")) != 1 {
 		return tex, ""
 	}
-	at := strings.Index(text, "≈ ")
-	if at < 0 {
-		return tex, ""
-	}
-	terms := splitTerms(text[at+len("≈ "):])
+	_, terms, omit, keep, ok := longNumericSum(text)
 	texTerms := splitTermsLaTeX(tex)
-	if len(terms) < manyTerms || len(texTerms) != len(terms) {
-		return tex, ""
-	}
-	omit, keep, ok := numericRun(terms[shownTerms:])
-	if !ok {
+	if !ok || len(texTerms) != len(terms) {
 		return tex, ""
 	}
 	largest, _ := omittedSize(omit)
