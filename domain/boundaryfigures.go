@@ -95,8 +95,11 @@ func gradientPeak(shape Shape, ev *Evaluator, inside func(x, y float64) bool) Gr
 	}
 	best := GradientPeak{Value: -1}
 	// better asks for a real gain: values equal to rounding (a circle's rim
-	// in a symmetric problem) keep the first point, on every CPU.
-	better := func(g float64) bool { return g > best.Value+1e-11*math.Abs(best.Value) }
+	// in a symmetric problem) keep the first point, on every CPU. The
+	// samples ask for more than the differences resolve (9 digits), the
+	// refinement between them for less.
+	gain := 1e-9
+	better := func(g float64) bool { return g > best.Value+gain*math.Abs(best.Value) }
 	var bestSide, bestT = -1, 0.0
 	n := 128
 	if ev.costly() {
@@ -148,6 +151,7 @@ func gradientPeak(shape Shape, ev *Evaluator, inside func(x, y float64) bool) Gr
 		}
 	}
 	if bestSide >= 0 { // refine along the side
+		gain = 1e-11
 		side := shape.Sides[bestSide]
 		margin := 4 * h / math.Max(side.Length, h)
 		dt := 1.0 / float64(n)

@@ -151,25 +151,53 @@ type rationalHarmonic struct {
 	// floatingU is each floating side's value U, found with the fit.
 	floatingU map[int]float64
 	mobiusK   []int // the powers of w, ±1..±degree
-	cMobius   []complex128
-	centre    complex128
-	scale     float64
-	hess      [][]complex128 // Arnoldi's Hessenberg matrix, column k: the coefficients of q_{k+1}
-	cPoly     []complex128   // Re Σ cPoly_k q_k
-	degree    int
-	residual  float64 // the largest |condition residual| on the check sampling
-	worstAt   complex128
-	worstOn   int
+	// sym, where set, is the problem's symmetry: h is the sum of the
+	// fitted combination over the group's images (complexValue).
+	sym *symmetry
+	// polyRot and polyPower make the polynomial's variable (polyVar).
+	polyRot   complex128
+	polyPower int
+	// shift is the known harmonic c = ū_p − u_p that a symmetric fit adds
+	// (particularShift): h = (the symmetric fitted part) + c.
+	shift    func(z complex128) (float64, complex128)
+	cMobius  []complex128
+	centre   complex128
+	scale    float64
+	hess     [][]complex128 // Arnoldi's Hessenberg matrix, column k: the coefficients of q_{k+1}
+	cPoly    []complex128   // Re Σ cPoly_k q_k
+	degree   int
+	residual float64 // the largest |condition residual| on the check sampling
+	worstAt  complex128
+	worstOn  int
+}
+
+// polyVar is the polynomial's variable at z and its derivative in z:
+// Z = (z − z_c)/s, or with a symmetry of order 2n, Z = W^n, W = (z − z_c)·ρ/s
+// with ρ turning a mirror line onto the real axis. Then the symmetric analytic
+// functions are those of W^n with real coefficients (a mirror: F(W̄) is the
+// conjugate of F(W); the rotation by 2π/n: F(W·e^{2πi/n}) = F(W)), and the
+// basis is one real column a degree of Z.
+func (h *rationalHarmonic) polyVar(z complex128) (Z, dZ complex128) {
+	d := h.polyRot / complex(h.scale, 0)
+	W := (z - h.centre) * d
+	if h.polyPower <= 1 {
+		return W, d
+	}
+	Wn1 := W
+	for k := 2; k < h.polyPower; k++ {
+		Wn1 *= W
+	}
+	return Wn1 * W, complex(float64(h.polyPower), 0) * Wn1 * d
 }
 
 // polyBasis is q_0..q_D at z and their derivatives in z, by the stored
-// recurrence: q_{k+1} = (Z q_k − Σ_{j≤k} H[j][k] q_j)/H[k+1][k], Z = (z − z_c)/s.
+// recurrence: q_{k+1} = (Z q_k − Σ_{j≤k} H[j][k] q_j)/H[k+1][k], Z from polyVar.
 func (h *rationalHarmonic) polyBasis(z complex128, q, dq []complex128) {
-	Z := (z - h.centre) / complex(h.scale, 0)
+	Z, dZ := h.polyVar(z)
 	q[0], dq[0] = 1, 0
 	for k := 0; k < h.degree; k++ {
 		v := Z * q[k]
-		dv := q[k]/complex(h.scale, 0) + Z*dq[k]
+		dv := q[k]*dZ + Z*dq[k]
 		for j := 0; j <= k; j++ {
 			v -= h.hess[k][j] * q[j]
 			dv -= h.hess[k][j] * dq[j]
@@ -182,6 +210,10 @@ func (h *rationalHarmonic) polyBasis(z complex128, q, dq []complex128) {
 // (∇h = (Re F', −Im F')).
 func (h *rationalHarmonic) value(z complex128) (float64, complex128) {
 	f, df := h.complexValue(z)
+	if h.shift != nil {
+		c, dc := h.shift(z)
+		return real(f) + c, df + dc
+	}
 	return real(f), df
 }
 
@@ -192,8 +224,10 @@ func (h *rationalHarmonic) AtXY(x, y float64) float64 {
 }
 
 // arnoldi builds the Hessenberg matrix of the polynomial basis on the
-// sample points Z (scaled), orthonormal in the mean over them.
-func arnoldi(Z []complex128, degree int) [][]complex128 {
+// sample points Z (scaled), orthonormal in the mean over them; with realCoef
+// the basis polynomials have real coefficients, orthonormal in the real part
+// of that inner product (the symmetric basis, polyVar).
+func arnoldi(Z []complex128, degree int, realCoef bool) [][]complex128 {
 	m := len(Z)
 	Q := [][]complex128{make([]complex128, m)}
 	for i := range Q[0] {
@@ -213,6 +247,9 @@ func arnoldi(Z []complex128, degree int) [][]complex128 {
 					c += cmplx.Conj(Q[j][i]) * v[i]
 				}
 				c /= complex(float64(m), 0)
+				if realCoef {
+					c = complex(real(c), 0)
+				}
 				hess[k][j] += c
 				for i := range v {
 					v[i] -= c * Q[j][i]
@@ -281,7 +318,21 @@ type fluxConstraint struct {
 
 func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powers int, freeConstant bool, constraints []fluxConstraint) (*rationalHarmonic, error) {
 	corners, centre, scale := geo.corners, geo.centre, geo.scale
-	h := &rationalHarmonic{centre: centre, scale: scale, degree: degree, logs: geo.holes, mobius: geo.mobius}
+	if geo.sym != nil { // the polynomial about the symmetry's centre keeps each term's parity
+		centre = geo.sym.centre
+	}
+	h := &rationalHarmonic{centre: centre, scale: scale, degree: degree, logs: geo.holes, mobius: geo.mobius, sym: geo.sym, shift: geo.shift, polyRot: 1, polyPower: 1}
+	if geo.sym != nil {
+		h.polyRot, h.polyPower = cmplx.Conj(geo.sym.walls[0]), len(geo.sym.group)/2
+	}
+	// The rows' data less the known shift's share: what the fitted part must supply.
+	shiftOp := func(p boundaryPoint) float64 {
+		if h.shift == nil {
+			return 0
+		}
+		c, dc := h.shift(p.z)
+		return p.a*c + p.b*real(dc*p.nu)
+	}
 	if geo.mobius != nil {
 		// The Laurent series in w with log|w| is complete on the two
 		// circles' region: the polynomial in z would only repeat it (and
@@ -296,17 +347,54 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 			h.laurent = append(h.laurent, laurentTerm{hb, j})
 		}
 	}
+	if h.polyPower > 1 { // degree in z, over n: the same resolution in Z = W^n
+		degree = (degree + h.polyPower - 1) / h.polyPower
+		h.degree = degree
+	}
 	for k, c := range corners {
+		if geo.sym != nil && geo.sym.rep[k] != k {
+			continue // its orbit's representative's poles, mirrored, serve it
+		}
 		h.poles = append(h.poles, lightningPoles(c, c.poleScale(scale), n[k])...)
 		h.powers = append(h.powers, cornerPowers(c, powers)...)
 	}
+	// With a symmetry the columns are the representatives' pairs, and the
+	// basis is expanded into every image of each term (symmetry.go), each
+	// image adding its share to its representative's pair.
+	nPole, nPower, nLaurent := len(h.poles), len(h.powers), len(h.laurent)
+	poleImg, powerImg, laurentImg := identityImages(nPole), identityImages(nPower), identityImages(nLaurent)
+	if geo.sym != nil {
+		var poles []complex128
+		var powers []cornerPower
+		var laurent []laurentTerm
+		poleImg, powerImg, laurentImg = nil, nil, nil
+		for _, g := range geo.sym.group {
+			for j, p := range h.poles {
+				q, m := poleImage(g, p)
+				m.rep = j
+				poles, poleImg = append(poles, q), append(poleImg, m)
+			}
+			for j, c := range h.powers {
+				c2, m := powerImage(g, c)
+				m.rep = j
+				powers, powerImg = append(powers, c2), append(powerImg, m)
+			}
+			for j, t := range h.laurent {
+				hb, m := holeImage(g, t.hole, t.j)
+				m.rep = j
+				laurent, laurentImg = append(laurent, laurentTerm{hb, t.j}), append(laurentImg, m)
+			}
+		}
+		h.poles, h.powers, h.laurent = poles, powers, laurent
+	}
+	// The polynomial is symmetric by its variable (polyVar).
 	Z := make([]complex128, len(pts))
 	for i, p := range pts {
-		Z[i] = (p.z - centre) / complex(scale, 0)
+		Z[i], _ = h.polyVar(p.z)
 	}
-	h.hess = arnoldi(Z, degree)
+	h.hess = arnoldi(Z, degree, geo.sym != nil)
 	// Columns: Re and Im of each pole's and each polynomial's operator value.
-	nc := 2*len(h.poles) + 2*(degree+1) + 2*len(h.powers) + 2*len(h.logs) + 2*len(h.laurent) + 2*len(h.mobiusK)
+	nc := 2*nPole + 2*(degree+1) + 2*nPower + 2*len(h.logs) + 2*nLaurent + 2*len(h.mobiusK)
 	// A floating side's value U is one more unknown (its column: −1 on its
 	// rows), and its net flux one more equation: the sum over quadrature
 	// points of the flux rows, weighted heavily so that it holds.
@@ -320,62 +408,87 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	b := mat.NewVecDense(rows, nil)
 	q := make([]complex128, degree+1)
 	dq := make([]complex128, degree+1)
+	// raw is each column's norm before the images' sum: a column the sum
+	// cancels to rounding (a term of the wrong parity) is dropped below.
+	raw := make([]float64, nc)
+	add := func(i, col int, v float64) {
+		A.Set(i, col, A.At(i, col)+v)
+		raw[col] += v * v
+	}
 	fill := func(i int, p boundaryPoint, scaleBy float64) {
-		col := 0
-		put := func(f, df complex128) {
-			w := (complex(p.a, 0)*f + complex(p.b, 0)*df*p.nu) * complex(p.w*scaleBy, 0)
-			A.Set(i, col, A.At(i, col)+real(w))
-			A.Set(i, col+1, A.At(i, col+1)+imag(w))
-			col += 2
+		z, nu := p.z, p.nu
+		val := func(f, df complex128) complex128 {
+			return (complex(p.a, 0)*f + complex(p.b, 0)*df*nu) * complex(p.w*scaleBy, 0)
 		}
-		for _, pole := range h.poles {
-			d := 1 / (p.z - pole)
-			put(d, -d*d)
+		// u = Re(c·ψ) = a·Re ψ + b·Im ψ for c = a − ib; Re(c̄·ψ) = a·Re ψ − b·Im ψ.
+		image := func(first int, m imageTerm, f, df complex128) {
+			w := val(m.factor*f, m.factor*df)
+			col := first + 2*m.rep
+			add(i, col, real(w))
+			if m.conj {
+				add(i, col+1, -imag(w))
+			} else {
+				add(i, col+1, imag(w))
+			}
 		}
-		h.polyBasis(p.z, q, dq)
+		for e, pole := range h.poles {
+			d := 1 / (z - pole)
+			image(0, poleImg[e], d, -d*d)
+		}
+		col := 2 * nPole
+		h.polyBasis(z, q, dq)
 		for k := range q {
-			put(q[k], dq[k])
-		}
-		for _, c := range h.powers {
-			put(c.at(p.z, scale))
-		}
-		for _, hb := range h.logs {
-			// log|z − c| alone: the pair's second column, arg(z − c), is
-			// multivalued around the hole and stays 0 (dropped as empty).
-			d := p.z - hb.c
-			A.Set(i, col, A.At(i, col)+scaleBy*p.w*(p.a*math.Log(abs(d))+p.b*real(p.nu/d)))
+			w := val(q[k], dq[k])
+			add(i, col, real(w))
+			if geo.sym == nil { // with a symmetry, real coefficients: the Im column would be antisymmetric
+				add(i, col+1, imag(w))
+			}
 			col += 2
 		}
-		for _, t := range h.laurent {
-			put(t.hole.term(p.z, t.j))
+		h.eachPower(z, func(e int, f, df complex128) { image(col, powerImg[e], f, df) })
+		col += 2 * nPower
+		for _, hb := range h.logs {
+			// log|z − c| alone (each hole's centre is fixed by a symmetry):
+			// the pair's second column, arg(z − c), is multivalued around
+			// the hole and stays 0 (dropped as empty).
+			d := z - hb.c
+			add(i, col, scaleBy*p.w*(p.a*math.Log(abs(d))+p.b*real(nu/d)))
+			col += 2
 		}
+		h.eachLaurent(z, func(e int, f, df complex128) { image(col, laurentImg[e], f, df) })
+		col += 2 * nLaurent
 		for _, j := range h.mobiusK {
-			put(h.mobius.term(p.z, j))
+			w := val(h.mobius.term(z, j))
+			add(i, col, real(w))
+			add(i, col+1, imag(w))
+			col += 2
 		}
 		if c, ok := uCol[p.floating]; ok && p.floating >= 0 {
-			A.Set(i, c, A.At(i, c)-scaleBy*p.w*p.a)
+			add(i, c, -scaleBy*p.w*p.a)
 		}
 	}
 	for i, p := range pts {
 		fill(i, p, 1)
-		b.SetVec(i, p.w*p.data)
+		b.SetVec(i, p.w*(p.data-shiftOp(p)))
 	}
 	for k, c := range constraints {
 		const heavy = 1e3
+		target := c.target
 		for _, p := range c.pts {
 			fill(len(pts)+k, p, heavy)
+			target -= p.w * shiftOp(p)
 		}
-		b.SetVec(len(pts)+k, heavy*c.target)
+		b.SetVec(len(pts)+k, heavy*target)
 	}
 	// Scale the columns to unit norm (the poles nearest a corner are large
 	// there) and keep only the live ones: Im q_0 = 0 always, and a pure
 	// Neumann problem leaves the constant, Re q_0, to the caller.
-	constCol := 2 * len(h.poles)
+	constCol := 2 * nPole
 	norms := make([]float64, nc)
 	var live []int
 	for j := 0; j < nc; j++ {
 		norms[j] = mat.Norm(A.ColView(j), 2)
-		if norms[j] == 0 || freeConstant && j == constCol {
+		if norms[j] <= 1e-5*math.Sqrt(raw[j]) || freeConstant && j == constCol {
 			norms[j] = 0
 			continue
 		}
@@ -423,30 +536,31 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 		return x.AtVec(j) / norms[j]
 	}
 	// u = a·Re φ + b·Im φ = Re((a − ib)φ).
+	pair := func(col int) complex128 { return complex(coef(col), -coef(col+1)) }
 	h.cPole = make([]complex128, len(h.poles))
-	for j := range h.poles {
-		h.cPole[j] = complex(coef(2*j), -coef(2*j+1))
+	for e, m := range poleImg {
+		h.cPole[e] = m.coef(pair(2 * m.rep))
 	}
 	h.cPoly = make([]complex128, degree+1)
 	for k := range h.cPoly {
-		h.cPoly[k] = complex(coef(constCol+2*k), -coef(constCol+2*k+1))
+		h.cPoly[k] = pair(constCol + 2*k)
 	}
-	h.cPower = make([]complex128, len(h.powers))
 	first := constCol + 2*(degree+1)
-	for k := range h.cPower {
-		h.cPower[k] = complex(coef(first+2*k), -coef(first+2*k+1))
+	h.cPower = make([]complex128, len(h.powers))
+	for e, m := range powerImg {
+		h.cPower[e] = m.coef(pair(first + 2*m.rep))
 	}
-	first += 2 * len(h.powers)
+	first += 2 * nPower
 	h.cLog = make([]float64, len(h.logs))
 	for k := range h.cLog {
 		h.cLog[k] = coef(first + 2*k) // Re log|z − c|; the Im column, multivalued, is 0 on purpose
 	}
 	first += 2 * len(h.logs)
 	h.cLaurent = make([]complex128, len(h.laurent))
-	for k := range h.cLaurent {
-		h.cLaurent[k] = complex(coef(first+2*k), -coef(first+2*k+1))
+	for e, m := range laurentImg {
+		h.cLaurent[e] = m.coef(pair(first + 2*m.rep))
 	}
-	first += 2 * len(h.laurent)
+	first += 2 * nLaurent
 	h.cMobius = make([]complex128, len(h.mobiusK))
 	for k := range h.cMobius {
 		h.cMobius[k] = complex(coef(first+2*k), -coef(first+2*k+1))
@@ -467,4 +581,13 @@ func (h *rationalHarmonic) residualOn(pts []boundaryPoint) {
 			h.residual, h.worstAt, h.worstOn = r, p.z, p.side
 		}
 	}
+}
+
+// identityImages are n terms that are their own representatives.
+func identityImages(n int) []imageTerm {
+	out := make([]imageTerm, n)
+	for j := range out {
+		out[j] = imageTerm{rep: j, factor: 1}
+	}
+	return out
 }

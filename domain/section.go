@@ -37,6 +37,10 @@ type sectionGeometry struct {
 	// mobius, for two circles, adds the Laurent series in the variable that
 	// makes them concentric.
 	mobius *mobiusMap
+	// sym is the problem's symmetry, where it has one (symmetry.go).
+	sym *symmetry
+	// shift goes with sym: the particular solution's asymmetric share (particularShift).
+	shift func(z complex128) (float64, complex128)
 }
 
 // holeBasis is a hole's share of the basis: log|z − c| and the Laurent
@@ -56,10 +60,16 @@ type holeBasis struct {
 
 // term is the j-th Laurent term at z and its derivative in z.
 func (hb holeBasis) term(z complex128, j int) (f, df complex128) {
+	v, dlog := hb.variable(z)
+	f = cmplx.Pow(v, complex(float64(j), 0))
+	return f, complex(float64(j), 0) * f * dlog
+}
+
+// variable is the terms' variable v at z (term j is v^j) and d(log v)/dz.
+func (hb holeBasis) variable(z complex128) (v, dlog complex128) {
 	zeta := z - hb.c
 	if hb.focus == 0 {
-		f = cmplx.Pow(complex(hb.rho, 0)/zeta, complex(float64(j), 0))
-		return f, complex(-float64(j), 0) * f / zeta
+		return complex(hb.rho, 0) / zeta, -1 / zeta
 	}
 	// In the frame with the foci on the real axis, where the two square
 	// roots' cuts join into the segment between the foci, inside the hole.
@@ -67,9 +77,42 @@ func (hb holeBasis) term(z complex128, j int) (f, df complex128) {
 	z1, fl := zeta/dir, complex(abs(hb.focus), 0)
 	s := cmplx.Sqrt(z1-fl) * cmplx.Sqrt(z1+fl)
 	w := (z1 + s) / complex(hb.mean, 0)
-	f = cmplx.Pow(w, complex(-float64(j), 0))
-	// dw/dz = w/(s·dir).
-	return f, complex(-float64(j), 0) * f / (s * dir)
+	// v = 1/w, dw/dz = w/(s·dir).
+	return 1 / w, -1 / (s * dir)
+}
+
+// eachLaurent calls fn with each Laurent term's value and derivative at z,
+// a run j = 1, 2, … of one hole's terms by multiplication (a power at each
+// term was the fit's largest cost).
+func (h *rationalHarmonic) eachLaurent(z complex128, fn func(k int, f, df complex128)) {
+	var v, dlog, f complex128
+	for k, t := range h.laurent {
+		if k == 0 || t.hole != h.laurent[k-1].hole || t.j != h.laurent[k-1].j+1 {
+			v, dlog = t.hole.variable(z)
+			f = cmplx.Pow(v, complex(float64(t.j), 0))
+		} else {
+			f *= v
+		}
+		fn(k, f, complex(float64(t.j), 0)*f*dlog)
+	}
+}
+
+// eachPower calls fn with each corner power's value and derivative at z; a
+// corner's powers share ζ and log ζ: ζ^β = exp(β log ζ).
+func (h *rationalHarmonic) eachPower(z complex128, fn func(k int, f, df complex128)) {
+	var zeta, dzeta, logZeta complex128
+	for k, c := range h.powers {
+		if k == 0 || c.w != h.powers[k-1].w || c.pivot != h.powers[k-1].pivot {
+			zeta, dzeta = c.zeta(z)
+			logZeta = cmplx.Log(zeta)
+		}
+		if zeta == 0 {
+			fn(k, 0, 0)
+			continue
+		}
+		v := cmplx.Exp(complex(c.beta, 0) * logZeta)
+		fn(k, v, complex(c.beta, 0)*v/zeta*dzeta)
+	}
 }
 
 // SectionParts is a section's numeric harmonic part, for printing: its
@@ -87,8 +130,12 @@ type SectionParts struct {
 	// Bound marks Dirichlet conditions on every side: by the maximum
 	// principle Residual then bounds the harmonic part's error everywhere.
 	Bound bool
-	fit   *rationalHarmonic
-	quad  []*sideInterpolant // the numeric particular part on each side, if any
+	// Symmetries is the order of the problem's symmetry group the fit used
+	// (1: none): the fit's rows lie on one of that many congruent parts of
+	// the boundary, its terms summed over their images (symmetry.go).
+	Symmetries int
+	fit        *rationalHarmonic
+	quad       []*sideInterpolant // the numeric particular part on each side, if any
 }
 
 // attach adds the fitted harmonic part to the evaluator.
@@ -151,6 +198,14 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		}
 	}
 	target := p.tol * math.Max(scale, 1e-300)
+	if quad == nil && !allNeumann { // a symmetric problem fits on one chamber (symmetry.go)
+		if geo.sym, err = sectionSymmetry(d, &geo, conds, p, 0.01*target); err != nil {
+			return nil, err
+		}
+		if geo.sym != nil {
+			geo.shift = particularShift(geo.sym, conds[0])
+		}
+	}
 	constraints, err := floatingConstraints(geo, conds, up, p.env)
 	if err != nil {
 		return nil, err
@@ -184,6 +239,11 @@ func solveSection(d section, p *posed) (*Solution, error) {
 			return nil, unsolvable("%w", err)
 		}
 		near, far := h.residualsByCorner(check, geo.corners)
+		if geo.sym != nil { // a corner's residual is its representative's
+			for k, r := range geo.sym.rep {
+				near[r] = math.Max(near[r], near[k])
+			}
+		}
 		lastCheck = check
 		if best == nil || h.residual < best.residual {
 			prev, best, bestPoles, stalled = best, h, append([]int(nil), poles...), 0
@@ -211,15 +271,20 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		if far > target && far > 0.3*worstNear || len(geo.corners) == 0 {
 			degree += 4 + degree/4
 		}
+		if geo.sym != nil { // the mirrored corners as their representatives, for the count printed
+			for k, r := range geo.sym.rep {
+				poles[k] = poles[r]
+			}
+		}
 	}
 	// A fit far from the target is no answer: psol refuses it rather than
 	// print a value it cannot stand behind.
 	if best.residual > math.Max(target, 1e-9*scale) || math.IsNaN(best.residual) {
 		return nil, unsolvable("the harmonic part's fit on %s reached a residual of only %.1e (relative %.1e) in %d refinements, largest at (x, y) = (%.6g, %.6g) on %s: a corner where a value condition meets a flux or convection condition at an angle other than pi/2 converges slowly with psol's rational fit, and psol gives no answer it cannot stand behind", d.Describe(), best.residual, best.residual/math.Max(scale, 1e-300), maxSectionSteps, real(best.worstAt), imag(best.worstAt), geo.shape.Sides[best.worstOn].Name)
 	}
-	parts := &SectionParts{Corners: len(geo.corners), Degree: best.degree, Residual: best.residual,
+	parts := &SectionParts{Corners: len(geo.corners), Degree: best.degree * best.polyPower, Residual: best.residual,
 		X: real(best.worstAt), Y: imag(best.worstAt), Side: geo.shape.Sides[best.worstOn].Name, Bound: true, fit: best, Poles: bestPoles,
-		Holes: len(geo.holes)}
+		Holes: len(geo.holes), Symmetries: geo.sym.order()}
 	for _, hb := range geo.holes {
 		parts.Elliptic = parts.Elliptic || hb.focus != 0
 	}
@@ -613,6 +678,18 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 			}
 		}
 	}
+	if g.sym != nil { // the chamber's share: the rest are its images
+		keep := func(pts []boundaryPoint) []boundaryPoint {
+			out := pts[:0]
+			for _, p := range pts {
+				if g.sym.inChamber(p.z) {
+					out = append(out, p)
+				}
+			}
+			return out
+		}
+		fit, check = keep(fit), keep(check)
+	}
 	return fit, check
 }
 
@@ -649,14 +726,22 @@ func sectionHarmonicIntegral(h *rationalHarmonic, shape Shape) float64 {
 	return real(total/complex(0, 2)) + logs
 }
 
-// complexValue is F(z), whose real part is h.
+// complexValue is F(z), whose real part is h less a symmetric fit's shift,
+// and F'(z).
 func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
-	var f, df complex128
-	for j, p := range h.poles {
-		d := 1 / (z - p)
-		f += h.cPole[j] * d
-		df -= h.cPole[j] * d * d
+	f, df := h.polyValue(z)
+	b, db := h.baseValue(z)
+	f, df = f+b, df+db
+	for k, hb := range h.logs {
+		d := z - hb.c
+		f += complex(h.cLog[k], 0) * cmplx.Log(d)
+		df += complex(h.cLog[k], 0) / d
 	}
+	return f, df
+}
+
+// polyValue is the polynomial part and its derivative.
+func (h *rationalHarmonic) polyValue(z complex128) (f, df complex128) {
 	var qa, dqa [64]complex128 // on the stack for the usual degrees
 	q, dq := qa[:0], dqa[:0]
 	if h.degree < len(qa) {
@@ -669,36 +754,31 @@ func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
 		f += h.cPoly[k] * q[k]
 		df += h.cPoly[k] * dq[k]
 	}
-	for k, hb := range h.logs {
-		d := z - hb.c
-		f += complex(h.cLog[k], 0) * cmplx.Log(d)
-		df += complex(h.cLog[k], 0) / d
+	return f, df
+}
+
+// baseValue is φ(z), the fitted basis's combination without the polynomial
+// and the holes' logarithms (taken once, symmetric by themselves), and φ'(z).
+func (h *rationalHarmonic) baseValue(z complex128) (complex128, complex128) {
+	var f, df complex128
+	for j, p := range h.poles {
+		d := 1 / (z - p)
+		f += h.cPole[j] * d
+		df -= h.cPole[j] * d * d
 	}
-	for k, t := range h.laurent {
-		v, dv := t.hole.term(z, t.j)
+	h.eachLaurent(z, func(k int, v, dv complex128) {
 		f += h.cLaurent[k] * v
 		df += h.cLaurent[k] * dv
-	}
+	})
 	for k, j := range h.mobiusK {
 		v, dv := h.mobius.term(z, j)
 		f += h.cMobius[k] * v
 		df += h.cMobius[k] * dv
 	}
-	// A corner's powers share ζ and log ζ: ζ^β = exp(β log ζ).
-	var w, zeta, dzeta, logZeta complex128
-	for k, c := range h.powers {
-		if k == 0 || c.w != w {
-			w = c.w
-			zeta, dzeta = c.zeta(z)
-			logZeta = cmplx.Log(zeta)
-		}
-		if zeta == 0 {
-			continue
-		}
-		v := cmplx.Exp(complex(c.beta, 0) * logZeta)
+	h.eachPower(z, func(k int, v, dv complex128) {
 		f += h.cPower[k] * v
-		df += h.cPower[k] * complex(c.beta, 0) * v / zeta * dzeta
-	}
+		df += h.cPower[k] * dv
+	})
 	return f, df
 }
 
@@ -828,12 +908,23 @@ func xyExtremes(shape Shape, inside func(x, y float64) bool, ev *Evaluator) (max
 	b := shape.Box
 	maxV, minV = math.Inf(-1), math.Inf(1)
 	var pMax, pMin [2]float64
-	// A new extreme must beat the old by more than rounding: where u takes
-	// its extreme along a whole side (a hole held at the largest value) the
-	// first point of the scan is kept, whatever the CPU's rounding.
-	beats := func(v, old float64) bool { return v > old+1e-12*math.Max(1, math.Abs(old)) }
-	try := func(x, y float64) {
+	// A new extreme must beat the old by more than the fit's rounding
+	// (10⁻¹⁰ of u's size, from a first scan): where u takes its extreme
+	// along a whole side (u = 0 on the sides, a hole held at the largest
+	// value) the first point of the scan is kept, whatever the CPU.
+	type sample struct{ x, y, v float64 }
+	var samples []sample
+	size := 0.0
+	scan := func(x, y float64) {
 		v := u(x, y)
+		samples = append(samples, sample{x, y, v})
+		if !math.IsNaN(v) {
+			size = math.Max(size, math.Abs(v))
+		}
+	}
+	floor := 0.0
+	beats := func(v, old float64) bool { return v > old+math.Max(floor, 1e-12*math.Max(1, math.Abs(old))) }
+	try := func(x, y, v float64) {
 		if math.IsInf(maxV, -1) || beats(v, maxV) {
 			maxV, pMax = v, [2]float64{x, y}
 		}
@@ -845,15 +936,19 @@ func xyExtremes(shape Shape, inside func(x, y float64) bool, ev *Evaluator) (max
 	for i := 0; i <= n; i++ {
 		for j := 0; j <= n; j++ {
 			if x, y := b.X0+(b.X1-b.X0)*float64(i)/n, b.Y0+(b.Y1-b.Y0)*float64(j)/n; inside(x, y) {
-				try(x, y)
+				scan(x, y)
 			}
 		}
 	}
 	for _, side := range shape.Sides {
 		for j := 0; j <= 64; j++ {
 			x, y, _, _ := side.At(float64(j) / 64)
-			try(x, y)
+			scan(x, y)
 		}
+	}
+	floor = 1e-10 * size
+	for _, s := range samples {
+		try(s.x, s.y, s.v)
 	}
 	refine := func(p [2]float64, sign float64) ([2]float64, float64) {
 		best := sign * u(p[0], p[1])
@@ -875,6 +970,7 @@ func xyExtremes(shape Shape, inside func(x, y float64) bool, ev *Evaluator) (max
 		}
 		return p, sign * best
 	}
+	floor = 0 // between the samples, any gain: the place of a flat extreme to its digits
 	pMax, maxV = refine(pMax, 1)
 	pMin, minV = refine(pMin, -1)
 	// A maximum is flat: its place is known to about 1e-6 of the region's
@@ -942,8 +1038,12 @@ func shapeSamples(d Domain, env series.Env) ([][2]float64, error) {
 
 // Describe is the fit in words: its poles and its polynomial.
 func (sp *SectionParts) Describe() string {
+	symmetric := ""
+	if sp.Symmetries > 1 {
+		symmetric = fmt.Sprintf(", each term with its images under the problem's %d symmetries (mirror lines through the centroid), fitted on 1/%d of the boundary", sp.Symmetries, sp.Symmetries)
+	}
 	if sp.Corners == 0 {
-		return fmt.Sprintf("a polynomial of degree %d", sp.Degree)
+		return fmt.Sprintf("a polynomial of degree %d%s", sp.Degree, symmetric)
 	}
 	total := 0
 	var each []string
@@ -951,7 +1051,7 @@ func (sp *SectionParts) Describe() string {
 		total += n
 		each = append(each, fmt.Sprint(n))
 	}
-	return fmt.Sprintf("%d poles outside the region at its %d corners (%s) and a polynomial of degree %d", total, sp.Corners, strings.Join(each, ", "), sp.Degree)
+	return fmt.Sprintf("%d poles outside the region at its %d corners (%s) and a polynomial of degree %d%s", total, sp.Corners, strings.Join(each, ", "), sp.Degree, symmetric)
 }
 
 // residualsByCorner are the largest residuals at the check points nearest
@@ -1134,6 +1234,14 @@ type FittedPart struct {
 	// of Vars (HoleVar).
 	Vars  []HoleVar
 	Terms []HoleTerm
+	// PolyRot and PolyPower make the polynomial's variable: Z = W^PolyPower,
+	// W = (z − Centre)·PolyRot/Scale (a symmetric fit; 1 and 1 otherwise).
+	PolyRot   complex128
+	PolyPower int
+	// Maps are the section's symmetries as (x, y) ↦ (A·x + B·y + E, C·x + D·y + F),
+	// the identity first (alone where it has none): u is the closed part's
+	// mean over them plus the fitted part (a symmetric fit's u_p is the mean).
+	Maps [][6]float64
 }
 
 // HoleVar is a variable of a hole's terms, by Kind:
@@ -1157,7 +1265,14 @@ type HoleTerm struct {
 // Fitted is the fitted part in numbers.
 func (sp *SectionParts) Fitted() FittedPart {
 	h := sp.fit
-	out := FittedPart{Poles: h.poles, C: h.cPole, Centre: h.centre, Scale: h.scale, H: h.hess, D: h.cPoly, E: h.cPower}
+	out := FittedPart{Poles: h.poles, C: h.cPole, Centre: h.centre, Scale: h.scale, H: h.hess, D: h.cPoly, E: h.cPower,
+		PolyRot: h.polyRot, PolyPower: h.polyPower, Maps: [][6]float64{isometry{rot: 1}.Matrix()}}
+	if h.sym != nil {
+		out.Maps = nil
+		for _, g := range h.sym.group {
+			out.Maps = append(out.Maps, g.Matrix())
+		}
+	}
 	for _, c := range h.powers {
 		out.W, out.Rot, out.Beta = append(out.W, c.w), append(out.Rot, c.rot), append(out.Beta, c.beta)
 		out.Pivot, out.Pivoted = append(out.Pivot, c.pivot), append(out.Pivoted, c.hasPivot)

@@ -32,13 +32,20 @@ var sectionCodeShapes = map[string]sectionCodeShape{
 		body: `
 // U is u(x, y). It needs: import "math"
 func U(x, y float64) float64 {
-	u := %[1]s
+	u := 0.0
+	for m := range psolMapA { // the closed part's mean over the section's symmetries (the identity alone where it has none)
+		u += psolClosed(psolMapA[m]*x+psolMapB[m]*y+psolMapE[m], psolMapC[m]*x+psolMapD[m]*y+psolMapF[m]) / float64(len(psolMapA))
+	}
 	for j := range psolPoleRe {
 		dx, dy := x-psolPoleRe[j], y-psolPoleIm[j]
 		u += (psolCRe[j]*dx + psolCIm[j]*dy) / (dx*dx + dy*dy)
 	}
 	var qr, qi [%[2]d]float64
 	zr, zi := (x-psolCentreRe)/psolScale, (y-psolCentreIm)/psolScale
+	zr, zi = zr*psolPolyRotRe-zi*psolPolyRotIm, zr*psolPolyRotIm+zi*psolPolyRotRe
+	for n, wr, wi := 1.0, zr, zi; n < psolPolyPower; n++ { // Z = W^PolyPower
+		zr, zi = zr*wr-zi*wi, zr*wi+zi*wr
+	}
 	qr[0] = 1
 	for k := 0; k+1 < %[2]d; k++ {
 		vr, vi := zr*qr[k]-zi*qi[k], zr*qi[k]+zi*qr[k]
@@ -82,6 +89,9 @@ func U(x, y float64) float64 {
 	}
 	return u
 }
+
+// psolClosed is the closed part of u.
+func psolClosed(x, y float64) float64 { return %[1]s }
 
 // psolVar is a hole's variable k at (x, y), as real and imaginary parts.
 func psolVar(k int, x, y float64) (float64, float64) {
@@ -179,15 +189,28 @@ static void psolVar(int k, double x, double y, double *re, double *im) {
 	}
 }
 
+/* The closed part of u. */
+static double psolClosed(double x, double y) { return %[1]s; }
+
 /* u(x, y); link with -lm. */
 double u(double x, double y) {
-	double u = %[1]s;
+	double u = 0;
+	for (int m = 0; m < psolMaps; m++) /* the closed part's mean over the section's symmetries (the identity alone where it has none) */
+		u += psolClosed(psolMapA[m]*x + psolMapB[m]*y + psolMapE[m], psolMapC[m]*x + psolMapD[m]*y + psolMapF[m]) / psolMaps;
 	for (int j = 0; j < psolPoles; j++) {
 		double dx = x - psolPoleRe[j], dy = y - psolPoleIm[j];
 		u += (psolCRe[j]*dx + psolCIm[j]*dy) / (dx*dx + dy*dy);
 	}
 	double qr[%[2]d] = {1}, qi[%[2]d] = {0};
 	double zr = (x - psolCentreRe)/psolScale, zi = (y - psolCentreIm)/psolScale;
+	double wr = zr*psolPolyRotRe - zi*psolPolyRotIm, wi = zr*psolPolyRotIm + zi*psolPolyRotRe;
+	zr = wr;
+	zi = wi;
+	for (int n = 1; n < psolPolyPower; n++) { /* Z = W^PolyPower */
+		double r = zr*wr - zi*wi;
+		zi = zr*wi + zi*wr;
+		zr = r;
+	}
 	for (int k = 0; k + 1 < %[2]d; k++) {
 		double vr = zr*qr[k] - zi*qi[k], vi = zr*qi[k] + zi*qr[k];
 		int row = k*(k + 3)/2;
@@ -241,13 +264,23 @@ double u(double x, double y) {
 		},
 		body: `
 
+def _psol_closed(x, y):
+    return %[1]s
+
+
 def u(x, y):
-    u = %[1]s
+    u = 0.0
+    for m in range(len(PSOL_MAPA)):  # the closed part's mean over the section's symmetries (the identity alone where it has none)
+        u += _psol_closed(PSOL_MAPA[m]*x + PSOL_MAPB[m]*y + PSOL_MAPE[m], PSOL_MAPC[m]*x + PSOL_MAPD[m]*y + PSOL_MAPF[m]) / len(PSOL_MAPA)
     for j in range(len(PSOL_POLERE)):
         dx, dy = x - PSOL_POLERE[j], y - PSOL_POLEIM[j]
         u += (PSOL_CRE[j]*dx + PSOL_CIM[j]*dy) / (dx*dx + dy*dy)
     qr, qi = [1.0] + [0.0]*(%[2]d - 1), [0.0]*%[2]d
     zr, zi = (x - PSOL_CENTRERE)/PSOL_SCALE, (y - PSOL_CENTREIM)/PSOL_SCALE
+    wr, wi = zr*PSOL_POLYROTRE - zi*PSOL_POLYROTIM, zr*PSOL_POLYROTIM + zi*PSOL_POLYROTRE
+    zr, zi = wr, wi
+    for _ in range(int(PSOL_POLYPOWER) - 1):  # Z = W^PolyPower
+        zr, zi = zr*wr - zi*wi, zr*wi + zi*wr
     for k in range(%[2]d - 1):
         vr, vi = zr*qr[k] - zi*qi[k], zr*qi[k] + zi*qr[k]
         row = k*(k + 3)//2
@@ -422,8 +455,20 @@ func writeSectionCode(w io.Writer, l series.Lang, pr *problem, sol *domain.Solut
 	b.WriteString(shape.scalar("CentreRe", real(f.Centre)))
 	b.WriteString(shape.scalar("CentreIm", imag(f.Centre)))
 	b.WriteString(shape.scalar("Scale", f.Scale))
+	b.WriteString(shape.scalar("PolyRotRe", real(f.PolyRot)))
+	b.WriteString(shape.scalar("PolyRotIm", imag(f.PolyRot)))
+	b.WriteString(shape.scalar("PolyPower", float64(f.PolyPower)))
+	var maps [6][]float64
+	for _, m := range f.Maps {
+		for i := range maps {
+			maps[i] = append(maps[i], m[i])
+		}
+	}
+	for i, name := range []string{"A", "B", "C", "D", "E", "F"} {
+		b.WriteString(shape.array("Map"+name, maps[i]))
+	}
 	if l.Name == "c" {
-		fmt.Fprintf(&b, "enum { psolPoles = %d, psolPowers = %d, psolLogs = %d, psolVars = %d, psolTerms = %d };\n", len(f.Poles), len(f.Beta), len(f.LogK), len(f.Vars), len(f.Terms))
+		fmt.Fprintf(&b, "enum { psolPoles = %d, psolPowers = %d, psolLogs = %d, psolVars = %d, psolTerms = %d, psolMaps = %d };\n", len(f.Poles), len(f.Beta), len(f.LogK), len(f.Vars), len(f.Terms), len(f.Maps))
 	}
 	fmt.Fprintf(&b, shape.body, poly.Code(l), len(f.D), max(1, len(f.Vars)))
 	_, err = io.WriteString(w, b.String())
