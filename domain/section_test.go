@@ -719,3 +719,28 @@ func TestSymmetricSections(t *testing.T) {
 		}
 	})
 }
+
+// A hollow rectangular tube 0.1 × 0.06 in torsion, its hole floating, by
+// wall thickness: the symmetric fit (symmetry.go) on a quarter of the
+// boundary. The thin wall was the slowest case psol had (70 s, 1.5 GB for
+// the 5% wall before the symmetry).
+func BenchmarkThinWalledTube(b *testing.B) {
+	for _, wall := range []float64{0.01, 0.005} {
+		w, h := 0.1-2*wall, 0.06-2*wall
+		d := domain.Holed{Outer: polygonXY(0, 0, 0.1, 0, 0.1, 0.06, 0, 0.06),
+			Holes: []domain.CircleHole{{Poly: polygonXY(wall, wall, 0.1-wall, wall, 0.1-wall, 0.06-wall, wall, 0.06-wall)}}}
+		conds := append(sidesOf(d, "s", "u = 0"), sidesOf(d, "hole1", fmt.Sprintf("u = const, flux = %g", 2*w*h))...)
+		f, cs, err := pose("lap(u) = -2", d, conds, nil)
+		if err != nil {
+			b.Fatal(err)
+		}
+		b.Run(fmt.Sprintf("wall=%g", wall), func(b *testing.B) {
+			b.ReportAllocs()
+			for i := 0; i < b.N; i++ {
+				if _, err := domain.SolveWith(d, f, cs, domain.Options{Tol: 1e-12}); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
