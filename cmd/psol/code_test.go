@@ -39,6 +39,10 @@ var codeCases = []struct {
 	{[]string{"solve", "lap(u) = -1", "--disk", "1", "--hole", "circle -0.5,0,0.2", "--hole", "ellipse 0,-0.5,0.3,0.15", "--bc", "u = 0", "--bc", "hole1: u = 1", "--bc", "hole2: dn(u) = 0"}, "", true},
 	{[]string{"solve", "lap(u) = -1", "--rect", "1,1", "--hole", "polygon 0.6,0.6 0.8,0.6 0.8,0.8 0.6,0.8", "--bc", "u = 0", "--tol", "1e-10"}, "", true},
 	{[]string{"solve", "lap(u) = -1", "--disk", "1", "--hole", "circle 0.3,-0.1,0.25", "--bc", "u = 0"}, "", true},
+	// Symmetric fits (the terms' images are in the tables; u_p's mean over
+	// the mirror maps): two mirror lines, and one with an elliptical hole.
+	{[]string{"solve", "lap(u) = -1", "--rect", "1,0.6", "--hole", "polygon 0.35,0.15 0.65,0.15 0.65,0.45 0.35,0.45", "--bc", "u = 0", "--tol", "1e-10"}, "", true},
+	{[]string{"solve", "lap(u) = -1 + (x - 0.5)^2", "--rect", "1,0.6", "--hole", "ellipse 0.5,0.3,0.1,0.05", "--bc", "u = 0", "--bc", "top: dn(u) + 2u = 1", "--tol", "1e-10"}, "", true},
 }
 
 var codePoints = [][2]float64{{0.3, 0.4}, {0.6, 0.1}, {0.2, 0.45}} // inside every case (as r, theta or as x, y)
