@@ -106,17 +106,6 @@ func (c cornerPower) zeta(z complex128) (complex128, complex128) {
 	return (z - c.w) * c.rot, c.rot
 }
 
-// at is ζ^β and its derivative in z; rot carries the scale that makes
-// |ζ| ≤ 1 on the region (high powers then stay small, not huge).
-func (c cornerPower) at(z complex128, _ float64) (f, df complex128) {
-	zeta, dz := c.zeta(z)
-	if zeta == 0 {
-		return 0, 0
-	}
-	f = cmplx.Pow(zeta, complex(c.beta, 0))
-	return f, complex(c.beta, 0) * f / zeta * dz
-}
-
 // cornerPowers are a corner's exponents (k − offset)/α, k = 1..K, for its
 // families' offsets, the non-integer ones: the separated solutions of
 // Laplace's equation in a wedge of angle απ with Dirichlet or Neumann sides

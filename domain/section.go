@@ -58,13 +58,6 @@ type holeBasis struct {
 	mean  float64    // (A + B)/2, for an ellipse
 }
 
-// term is the j-th Laurent term at z and its derivative in z.
-func (hb holeBasis) term(z complex128, j int) (f, df complex128) {
-	v, dlog := hb.variable(z)
-	f = cmplx.Pow(v, complex(float64(j), 0))
-	return f, complex(float64(j), 0) * f * dlog
-}
-
 // variable is the terms' variable v at z (term j is v^j) and d(log v)/dz.
 func (hb holeBasis) variable(z complex128) (v, dlog complex128) {
 	zeta := z - hb.c
@@ -757,8 +750,9 @@ func (h *rationalHarmonic) polyValue(z complex128) (f, df complex128) {
 	return f, df
 }
 
-// baseValue is φ(z), the fitted basis's combination without the polynomial
-// and the holes' logarithms (taken once, symmetric by themselves), and φ'(z).
+// baseValue is the fitted terms other than the polynomial and the holes'
+// logarithms (poles, corner powers, Laurent and Möbius terms, a symmetric
+// fit's images among them), and its derivative.
 func (h *rationalHarmonic) baseValue(z complex128) (complex128, complex128) {
 	var f, df complex128
 	for j, p := range h.poles {
