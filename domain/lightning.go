@@ -140,8 +140,8 @@ type rationalHarmonic struct {
 	// floatingU is each floating side's value U, found with the fit.
 	floatingU map[int]float64
 	mobiusK   []int // the powers of w, ±1..±degree
-	// sym, where set, is the problem's symmetry: h is the sum of the
-	// fitted combination over the group's images (complexValue).
+	// sym, where set, is the symmetry the fit used (its terms' images are
+	// among the terms; generated code takes its maps for u_p's mean).
 	sym *symmetry
 	// polyRot and polyPower make the polynomial's variable (polyVar).
 	polyRot   complex128

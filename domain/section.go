@@ -460,10 +460,7 @@ func compileSideCondition(cond Condition, up series.Sum, env series.Env) (sideCo
 // along its side (the numeric particular part is interpolated in t; t < 0
 // leaves it out).
 func (sc sideCondition) parts(t, x, y, nx, ny float64) (g, op float64) {
-	r, th := math.Hypot(x, y), math.Atan2(y, x)
-	if th < 0 {
-		th += 2 * math.Pi
-	}
+	r, th := polarOf(x, y)
 	g = sc.g.At(r, th)
 	op = sc.a * sc.up.At(r, th)
 	if sc.quad != nil && t >= 0 {
@@ -471,12 +468,18 @@ func (sc sideCondition) parts(t, x, y, nx, ny float64) (g, op float64) {
 		op += sc.a*v + sc.b*dn
 	}
 	if sc.b != 0 {
-		rr := math.Max(r, 1e-300)
-		ur, ut := sc.ur.At(rr, th), sc.ut.At(rr, th)/rr
-		ux, uy := math.Cos(th)*ur-math.Sin(th)*ut, math.Sin(th)*ur+math.Cos(th)*ut
-		op += sc.b * (nx*ux + ny*uy)
+		grad := sc.particularGradient(r, th)
+		op += sc.b * (nx*real(grad) + ny*imag(grad))
 	}
 	return g, op
+}
+
+// particularGradient is ∇u_p at (r, θ) as ∂x + i·∂y.
+func (sc sideCondition) particularGradient(r, th float64) complex128 {
+	rr := math.Max(r, 1e-300)
+	ur, ut := sc.ur.At(rr, th), sc.ut.At(rr, th)/rr
+	sin, cos := math.Sincos(th)
+	return complex(cos*ur-sin*ut, sin*ur+cos*ut)
 }
 
 // sideInterpolant is the numeric particular solution's value and normal
@@ -720,21 +723,14 @@ func sectionHarmonicIntegral(h *rationalHarmonic, shape Shape) float64 {
 }
 
 // complexValue is F(z), whose real part is h less a symmetric fit's shift,
-// and F'(z).
+// and F'(z); a symmetric fit's images are terms like any other.
 func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
-	f, df := h.polyValue(z)
-	b, db := h.baseValue(z)
-	f, df = f+b, df+db
-	for k, hb := range h.logs {
-		d := z - hb.c
-		f += complex(h.cLog[k], 0) * cmplx.Log(d)
-		df += complex(h.cLog[k], 0) / d
+	var f, df complex128
+	for j, p := range h.poles {
+		d := 1 / (z - p)
+		f += h.cPole[j] * d
+		df -= h.cPole[j] * d * d
 	}
-	return f, df
-}
-
-// polyValue is the polynomial part and its derivative.
-func (h *rationalHarmonic) polyValue(z complex128) (f, df complex128) {
 	var qa, dqa [64]complex128 // on the stack for the usual degrees
 	q, dq := qa[:0], dqa[:0]
 	if h.degree < len(qa) {
@@ -747,18 +743,10 @@ func (h *rationalHarmonic) polyValue(z complex128) (f, df complex128) {
 		f += h.cPoly[k] * q[k]
 		df += h.cPoly[k] * dq[k]
 	}
-	return f, df
-}
-
-// baseValue is the fitted terms other than the polynomial and the holes'
-// logarithms (poles, corner powers, Laurent and Möbius terms, a symmetric
-// fit's images among them), and its derivative.
-func (h *rationalHarmonic) baseValue(z complex128) (complex128, complex128) {
-	var f, df complex128
-	for j, p := range h.poles {
-		d := 1 / (z - p)
-		f += h.cPole[j] * d
-		df -= h.cPole[j] * d * d
+	for k, hb := range h.logs {
+		d := z - hb.c
+		f += complex(h.cLog[k], 0) * cmplx.Log(d)
+		df += complex(h.cLog[k], 0) / d
 	}
 	h.eachLaurent(z, func(k int, v, dv complex128) {
 		f += h.cLaurent[k] * v

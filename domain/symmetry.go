@@ -329,15 +329,8 @@ func boundaryCentroid(shape Shape) (complex128, bool) {
 // for a rotation, rot·conj(∇) for a reflection (its matrix is symmetric).
 func particularShift(s *symmetry, sc sideCondition) func(z complex128) (float64, complex128) {
 	at := func(z complex128) (float64, complex128) {
-		x, y := real(z), imag(z)
-		r, th := math.Hypot(x, y), math.Atan2(y, x)
-		if th < 0 {
-			th += 2 * math.Pi
-		}
-		rr := math.Max(r, 1e-300)
-		ur, ut := sc.ur.At(rr, th), sc.ut.At(rr, th)/rr
-		sin, cos := math.Sincos(th)
-		return sc.up.At(r, th), complex(cos*ur-sin*ut, sin*ur+cos*ut)
+		r, th := polarOf(real(z), imag(z))
+		return sc.up.At(r, th), sc.particularGradient(r, th)
 	}
 	n := float64(len(s.group))
 	return func(z complex128) (float64, complex128) {
@@ -369,13 +362,7 @@ func sectionSymmetry(d section, g *sectionGeometry, conds []sideCondition, p *po
 	if err != nil {
 		return nil, nil // a source that needs parameters: no symmetry test, the full fit
 	}
-	at := func(x, y float64) float64 {
-		r, th := math.Hypot(x, y), math.Atan2(y, x)
-		if th < 0 {
-			th += 2 * math.Pi
-		}
-		return f.At(r, th)
-	}
+	at := func(x, y float64) float64 { return f.At(polarOf(x, y)) }
 	return findSymmetry(g, conds, tolData, nodes, at), nil
 }
 
