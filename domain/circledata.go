@@ -24,6 +24,12 @@ func circleData(d circular, c circle, cond Condition, gf series.Field, tr series
 			return seriesData(d, c, cond, series.Field{Pieces: pieces}, fc, tr, sol)
 		}
 	}
+	if len(d.circles()) == 1 && !p.numeric {
+		// Data with an exact general term (a point source's trace).
+		if fc, ok := gf.FourierOn(c.radius); ok {
+			return seriesData(d, c, cond, gf, fc, tr, sol)
+		}
+	}
 	// The numeric fallback: sample the data on the circle.
 	cf, err := gf.Compile(p.env)
 	if err != nil {
@@ -173,13 +179,9 @@ func twoCircleSeries(d circular, p *posed, traced map[string]series.Field, trace
 	}
 	fcs := map[string]series.FourierCoefficients{}
 	for _, c := range circles {
-		pieces, ok := exactAngular(traced[c.name])
+		fc, ok := traced[c.name].FourierOn(c.radius)
 		if !ok {
 			return nil, nil // numeric data: the FFT path
-		}
-		fc, err := series.Fourier(pieces)
-		if err != nil {
-			return nil, nil
 		}
 		fcs[c.name] = fc
 	}

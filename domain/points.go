@@ -78,11 +78,18 @@ type PointPart struct {
 	// homogeneous condition exactly; "" where u_s is the sources' own field
 	// and its traces are numeric data for w.
 	Images string
+	// Expansion names how the traces are exact without images (the
+	// logarithm's Fourier series on circles); "" with images or numeric traces.
+	Expansion string
 	// Traces are B[u_s] on each side, by side: exact constants with images,
 	// numeric functions otherwise.
 	Traces map[string]series.Field
 	verify func() error // the image rule's exact check of its claims
 }
+
+// ExactTraces reports traces B[u_s] in closed form (images) or as exact
+// series (Expansion), rather than numeric data.
+func (pp *PointPart) ExactTraces() bool { return pp.Images != "" || pp.Expansion != "" }
 
 // Text is u_s in psol's syntax.
 func (pp *PointPart) Text() string { return pp.print(false) }
@@ -267,6 +274,9 @@ func solvePoints(d Domain, source series.Field, conds []Condition, opt Options) 
 		return nil, err
 	}
 	if pp == nil {
+		pp, _ = circleLogSeries(d, byside, pts)
+	}
+	if pp == nil {
 		if pp, err = ownField(d, byside, pts, opt.Env); err != nil {
 			return nil, err
 		}
@@ -292,6 +302,8 @@ func solvePoints(d Domain, source series.Field, conds []Condition, opt Options) 
 	sol.stages = append(sol.stages, pp)
 	if pp.Images != "" {
 		sol.Checks = append(sol.Checks, exactImageCheck(pp, pp.verify))
+	}
+	if pp.ExactTraces() {
 		if c, ok := imageCheck(d, sol, pp, opt.Env); ok {
 			sol.Checks = append(sol.Checks, c)
 		}
@@ -451,6 +463,9 @@ func imageCheck(d Domain, sol *Solution, pp *PointPart, env series.Env) (Check, 
 		return Check{}, false
 	}
 	c := Check{Name: "B[u_s] less its stated trace, images outside"}
+	if pp.Images == "" {
+		c.Name = "B[u_s] less its stated series trace"
+	}
 	for k := len(pp.Sources); k < len(pe.c); k++ {
 		r, th := polarOf(pe.x[k], pe.y[k])
 		if in, err := d.Contains(r, th, env); err == nil && in && r > 1e-12 {

@@ -117,7 +117,19 @@ func TestPointSourcesAgainstClosedForms(t *testing.T) {
 			name: "convecting disk: the Robin series", equation: "lap(u) = delta(x - 0.3, y - 0.4)",
 			d: domain.Disk{R: series.IntCoef(1)}, bcs: []string{"dn(u) + 2*u = 0"},
 			want: func(x, y float64) float64 { return robinDiskSeries(complex(x, y), complex(0.3, 0.4), 1, 2) },
-			tol:  1e-10, source: "the Fourier series of ln|z - a| on the circle, summed directly",
+			tol:  1e-13, source: "the Fourier series of ln|z - a| on the circle, summed directly",
+		},
+		{
+			name: "convecting disk, the source at an angle no rational multiple of pi", equation: "lap(u) = delta(x + 0.3, y - 0.2)",
+			d: domain.Disk{R: series.FracCoef(3, 2)}, bcs: []string{"dn(u) + u/2 = 0"},
+			want: func(x, y float64) float64 { return robinDiskSeries(complex(x, y), complex(-0.3, 0.2), 1.5, 0.5) },
+			tol:  1e-13, source: "the Fourier series of ln|z - a| on the circle, summed directly",
+		},
+		{
+			name: "line charge between grounded coaxial cylinders", equation: "lap(u) = delta(x - 0.4, y + 0.5)",
+			d: domain.Annulus{R1: series.FracCoef(1, 2), R2: series.IntCoef(1)}, bcs: []string{"inner: u = 0", "outer: u = 0"},
+			want: func(x, y float64) float64 { return annulusGreen(complex(x, y), complex(0.4, -0.5), 0.5, 1) },
+			tol:  1e-13, source: "the annulus' Green's function mode by mode (eigenfunction expansion, common practice), in the source's own angle",
 		},
 	}
 	for _, c := range cases {
@@ -190,6 +202,31 @@ func robinDiskSeries(z, a complex128, R, h float64) float64 {
 		fn := float64(n)
 		an := -math.Pow(rho/R, fn) * (1/R - h/fn) / (fn/R + h) / (2 * math.Pi)
 		u += an * math.Pow(r/R, fn) * math.Cos(fn*(th-phi))
+	}
+	return u
+}
+
+// annulusGreen is u with Δu = δ(z − a) in R1 < |z| < R2, u = 0 on both
+// circles: (1/2π)·ln|z − a| plus c0 + d0·ln r and, per mode, the real part
+// of (α_n r^n + β_n r^(−n))·e^{in(θ − φ)}, whose values on the circles
+// cancel the logarithm's series there, (ρ/R2)^n/n outside it and
+// (R1/ρ)^n/n inside; summed to n = 200.
+func annulusGreen(z, a complex128, R1, R2 float64) float64 {
+	rho, phi := cmplx.Abs(a), cmplx.Phase(a)
+	r, th := cmplx.Abs(z), cmplx.Phase(z)
+	k := 1 / (2 * math.Pi)
+	// c0 + d0 ln R2 = −k ln R2, c0 + d0 ln R1 = −k ln ρ.
+	d0 := k * (math.Log(rho) - math.Log(R2)) / (math.Log(R2) - math.Log(R1))
+	c0 := -k*math.Log(R2) - d0*math.Log(R2)
+	u := k*math.Log(cmplx.Abs(z-a)) + c0 + d0*math.Log(r)
+	for n := 1; n <= 200; n++ {
+		fn := float64(n)
+		g2, g1 := k*math.Pow(rho/R2, fn)/fn, k*math.Pow(R1/rho, fn)/fn
+		// α R2^n + β R2^−n = g2, α R1^n + β R1^−n = g1.
+		a11, a12, a21, a22 := math.Pow(R2, fn), math.Pow(R2, -fn), math.Pow(R1, fn), math.Pow(R1, -fn)
+		det := a11*a22 - a12*a21
+		alpha, beta := (g2*a22-a12*g1)/det, (a11*g1-g2*a21)/det
+		u += (alpha*math.Pow(r, fn) + beta*math.Pow(r, -fn)) * math.Cos(fn*(th-phi))
 	}
 	return u
 }
@@ -287,6 +324,24 @@ func sourceInside(equation string, eps float64) float64 {
 		return -math.Pi * eps * eps
 	}
 	return 0
+}
+
+// Between two circles: ∬G(z, a) dA = v(a), v = r²/4 + A + B·ln r with
+// Δv = 1 and v = 0 on both circles (Green's reciprocity, common practice).
+func TestPointSourceAnnulusAreaIntegral(t *testing.T) {
+	R1, R2 := 0.5, 1.0
+	sol := solvePointProblem(t, "lap(u) = delta(x - 0.3, y + 0.6)", domain.Annulus{R1: series.FracCoef(1, 2), R2: series.IntCoef(1)}, nil, "inner: u = 0", "outer: u = 0")
+	rep, err := sol.Figures()
+	if err != nil {
+		t.Fatal(err)
+	}
+	B := -(R2*R2 - R1*R1) / (4 * math.Log(R2/R1))
+	A := -R2*R2/4 - B*math.Log(R2)
+	rho2 := 0.09 + 0.36
+	want := rho2/4 + A + B*math.Log(math.Sqrt(rho2))
+	if math.Abs(rep.Integral-want) > 1e-10 {
+		t.Errorf("area integral of the annulus' Green's function %.15g, want %.15g (reciprocity)", rep.Integral, want)
+	}
 }
 
 // The Green's function's area integral: ∬G(z, a) dA = (|a|² − R²)/4, by

@@ -18,11 +18,11 @@ type Lang struct {
 
 // Langs are the languages psol writes code in.
 var Langs = map[string]Lang{
-	"go": {Name: "go", Fn: map[string]string{"cos": "math.Cos", "sin": "math.Sin", "log": "math.Log", "pow": "math.Pow", "sqrt": "math.Sqrt", "exp": "math.Exp"},
+	"go": {Name: "go", Fn: map[string]string{"cos": "math.Cos", "sin": "math.Sin", "log": "math.Log", "pow": "math.Pow", "sqrt": "math.Sqrt", "exp": "math.Exp", "atan": "math.Atan"},
 		Pi: "math.Pi", Float: func(s string) string { return s }},
-	"c": {Name: "c", Fn: map[string]string{"cos": "cos", "sin": "sin", "log": "log", "pow": "pow", "sqrt": "sqrt", "exp": "exp"},
+	"c": {Name: "c", Fn: map[string]string{"cos": "cos", "sin": "sin", "log": "log", "pow": "pow", "sqrt": "sqrt", "exp": "exp", "atan": "atan"},
 		Pi: "3.141592653589793", Float: func(s string) string { return s }}, // M_PI is not in C99
-	"python": {Name: "python", Fn: map[string]string{"cos": "math.cos", "sin": "math.sin", "log": "math.log", "pow": "math.pow", "sqrt": "math.sqrt", "exp": "math.exp"},
+	"python": {Name: "python", Fn: map[string]string{"cos": "math.cos", "sin": "math.sin", "log": "math.log", "pow": "math.pow", "sqrt": "math.sqrt", "exp": "math.exp", "atan": "math.atan"},
 		Pi: "math.pi", Float: func(s string) string { return s }},
 }
 
@@ -63,6 +63,13 @@ func (l Lang) atom(s Symbol, index string) string {
 		return l.Fn["cos"] + "(" + l.Pi + "*" + index + ")"
 	case kindPowN:
 		return l.Fn["pow"] + "(" + powBase(s.name).Code(l, index) + ", " + index + ")"
+	case kindCosAtanN, kindSinAtanN:
+		fn := l.Fn["cos"]
+		if s.kind == kindSinAtanN {
+			fn = l.Fn["sin"]
+		}
+		t, _ := new(big.Rat).SetString(s.name)
+		return fn + "(" + l.Fn["atan"] + "(" + l.lit(t) + ")*" + index + ")"
 	case kindCosN, kindSinN:
 		q, _ := new(big.Rat).SetString(s.name)
 		fn := l.Fn["cos"]

@@ -353,6 +353,13 @@ func (s Symbol) float(env Env) (float64, error) {
 			return math.Cos(x), err
 		}
 		return math.Sin(x), err
+	case kindCosAtanN, kindSinAtanN:
+		v, err := env.float(Index)
+		x := atanQ(s.name) * math.Pi * v
+		if s.kind == kindCosAtanN {
+			return math.Cos(x), err
+		}
+		return math.Sin(x), err
 	case kindSign:
 		v, err := env.float(s.name)
 		if math.Mod(math.Abs(v), 2) == 1 {
@@ -474,6 +481,22 @@ func (p Poly) subst(env Env) (Coef, error) {
 					}
 					base = cs
 					if f.sym.kind == kindSinN {
+						base = sn
+					}
+				}
+			case f.sym.kind == kindCosAtanN || f.sym.kind == kindSinAtanN:
+				if v, ok := env[Index]; ok {
+					k, isRat := v.Rat()
+					if !isRat || !k.IsInt() || !k.Num().IsInt64() {
+						return Coef{}, fmt.Errorf("%s needs a whole number", f.sym.key())
+					}
+					t, _ := new(big.Rat).SetString(f.sym.name)
+					cs, sn, err := atanTrigAt(t, k.Num().Int64())
+					if err != nil {
+						return Coef{}, err
+					}
+					base = cs
+					if f.sym.kind == kindSinAtanN {
 						base = sn
 					}
 				}

@@ -37,6 +37,7 @@ type Expr struct {
 	pieces []Piece
 	cmp    []string // "choose": the comparisons between args[2:], a chain a < b < c
 	fn     *namedFunc
+	four   *FourierCoefficients // "fourier": data on a circle by their exact coefficients
 }
 
 // namedFunc is a function of (r, θ) computed in Go, printed by its name: a
@@ -379,6 +380,8 @@ func (e *Expr) Text() string {
 	switch e.op {
 	case "func":
 		return e.fn.text
+	case "fourier":
+		return "(" + e.four.Text() + ")"
 	case "pieces":
 		return "(" + piecesText(e.pieces) + ")"
 	case "series":
@@ -427,6 +430,8 @@ func (e *Expr) LaTeX() string {
 	switch e.op {
 	case "func":
 		return e.fn.latex
+	case "fourier":
+		return `\left(` + e.four.LaTeX() + `\right)`
 	case "pieces":
 		return piecesLaTeX(e.pieces)
 	case "series":
@@ -557,7 +562,7 @@ func dependsOnIndex(c Coef) bool {
 	for _, p := range []Poly{c.num, c.den} {
 		for _, t := range p.t {
 			for _, f := range t.m.f {
-				if f.sym.kind == kindSign || f.sym.kind == kindCosN || f.sym.kind == kindSinN || f.sym.kind == kindPowN || f.sym.kind == kindParam && f.sym.name == Index {
+				if f.sym.indexed() {
 					return true
 				}
 			}
@@ -634,6 +639,8 @@ func compileExpr(e *Expr, env Env) (evalFunc, error) {
 	case "func":
 		at := e.fn.at
 		return func(r, theta, _ float64) float64 { return at(r, theta) }, nil
+	case "fourier":
+		return compileFourier(*e.four, env)
 	case "pieces":
 		p, err := Field{Pieces: e.pieces}.compilePieces(env)
 		return func(r, theta, _ float64) float64 { return p.at(r, theta) }, err

@@ -362,6 +362,17 @@ func atomPower(s Symbol, e *big.Rat, st style) string {
 			return b + "^n"
 		}
 		return b + "^(" + e.RatString() + "*n)"
+	case kindCosAtanN, kindSinAtanN:
+		fn := map[symKind]string{kindCosAtanN: "cos", kindSinAtanN: "sin"}[s.kind]
+		t, _ := new(big.Rat).SetString(s.name)
+		if st.latex {
+			arg := t.RatString()
+			if !t.IsInt() {
+				arg = `\frac{` + t.Num().String() + `}{` + t.Denom().String() + `}`
+			}
+			return power(`\`+fn+`\left(n \arctan `+arg+`\right)`, e, st)
+		}
+		return power(fn+"(n*atan("+s.name+"))", e, st)
 	case kindCosN, kindSinN:
 		fn := map[symKind]string{kindCosN: "cos", kindSinN: "sin"}[s.kind]
 		q, _ := new(big.Rat).SetString(s.name)

@@ -46,6 +46,9 @@ func compilePoly(p Poly, env Env) ([]monoFunc, error) {
 				q, _ := new(big.Rat).SetString(f.sym.name)
 				e, _ := f.exp.Float64()
 				mf.trig = append(mf.trig, nTrigFactor{q: ratFloat(q), e: e, sin: f.sym.kind == kindSinN})
+			case f.sym.kind == kindCosAtanN || f.sym.kind == kindSinAtanN:
+				e, _ := f.exp.Float64()
+				mf.trig = append(mf.trig, nTrigFactor{q: atanQ(f.sym.name), e: e, sin: f.sym.kind == kindSinAtanN})
 			default:
 				v, err := f.sym.float(env)
 				if err != nil {

@@ -18,6 +18,8 @@ const (
 	kindCosN                 // cos(qπn) for the index n, q in (0, 1) (name: q)
 	kindSinN                 // sin(qπn)
 	kindPowN                 // ρ^n for a fixed ratio ρ (name: ρ's text; value in powBases)
+	kindCosAtanN             // cos(n·atan t) for the index n, t > 0 rational, t ≠ 1 (name: t)
+	kindSinAtanN             // sin(n·atan t)
 )
 
 // Symbol is one atom of a coefficient. Atoms are treated as independent
@@ -25,6 +27,15 @@ const (
 type Symbol struct {
 	kind symKind
 	name string // the prime's digits or the parameter's name; "" for π
+}
+
+// indexed reports an atom that depends on a series' index n.
+func (s Symbol) indexed() bool {
+	switch s.kind {
+	case kindSign, kindCosN, kindSinN, kindPowN, kindCosAtanN, kindSinAtanN:
+		return true
+	}
+	return s.kind == kindParam && s.name == Index
 }
 
 // Param is the atom of the named parameter.
@@ -52,6 +63,10 @@ func (s Symbol) key() string {
 		return "sin(" + s.name + "*pi*n)"
 	case kindPowN:
 		return "(" + s.name + ")^n"
+	case kindCosAtanN:
+		return "cos(n*atan(" + s.name + "))"
+	case kindSinAtanN:
+		return "sin(n*atan(" + s.name + "))"
 	}
 	return s.name
 }

@@ -19,8 +19,8 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 	if !ok {
 		return usagef("--lang %q: choose go, c or python", lang)
 	}
-	if sol.Points != nil && sol.Points.Images == "" {
-		return &domain.Unsupported{Reason: "generated code for point sources is written where images close their field (a disk, or a sector of angle pi/k); here their field's correction is numeric"}
+	if sol.Points != nil && !sol.Points.ExactTraces() {
+		return &domain.Unsupported{Reason: "generated code for point sources is written where their field's traces are exact (images on a disk or a sector of angle pi/k, the logarithm's series on a disk or an annulus); here their field's correction is numeric"}
 	}
 	if sol.Rect != nil {
 		return writeRectCode(w, l, pr, sol, terms)

@@ -559,7 +559,9 @@ func (v *view) seriesStages(sol *domain.Solution, ps *domain.SeriesParts) {
 		v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(coTeX, ", "), `g - `+traceTeX(side))
 	}
 	v.Harmonic = exactStage("harmonic", join(h, hSer, false), join(h, hSer, true), "u_h")
-	v.Solution = exactStage("solution", "u = "+sol.Formula(false), sol.Formula(true), "u")
+	// u without the point sources' field, which pointStages adds.
+	w := sol.Particular.Add(sol.Harmonic)
+	v.Solution = exactStage("solution", "u = "+join(w, ps.U, false), join(w, ps.U, true), "u")
 	v.checkScope = "; the series term by term, for every n"
 }
 

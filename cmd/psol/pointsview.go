@@ -41,7 +41,7 @@ func (v *view) pointStages(sol *domain.Solution) {
 	for _, s := range sol.Sides {
 		t := pp.Traces[s.Condition.Side]
 		name := domain.OperatorText(s.Condition, "u_s")
-		if pp.Images == "" { // the side's operator on u_s, sampled into the correction
+		if !pp.ExactTraces() { // the side's operator on u_s, sampled into the correction
 			tr = append(tr, s.Condition.Side+": "+name+" (numeric)")
 			trTeX = append(trTeX, t.LaTeX())
 			continue
