@@ -10,16 +10,16 @@ import (
 type symKind uint8
 
 const (
-	kindRoot  symKind = iota // a prime p to a power in (0, 1): the irrational part of R^p
-	kindPi                   // π
-	kindParam                // a parameter such as a, mu, G
-	kindLog                  // ln of a prime or of a parameter
-	kindSign                 // (−1)^n for a whole-number parameter n
-	kindCosN                 // cos(qπn) for the index n, q in (0, 1) (name: q)
-	kindSinN                 // sin(qπn)
-	kindPowN                 // ρ^n for a fixed ratio ρ (name: ρ's text; value in powBases)
-	kindCosAtanN             // cos(n·atan t) for the index n, t > 0 rational, t ≠ 1 (name: t)
-	kindSinAtanN             // sin(n·atan t)
+	kindRoot     symKind = iota // a prime p to a power in (0, 1): the irrational part of R^p
+	kindPi                      // π
+	kindParam                   // a parameter such as a, mu, G
+	kindLog                     // ln of a prime or of a parameter
+	kindSign                    // (−1)^n for a whole-number parameter n
+	kindCosN                    // cos(qπn) for the index n, q in (0, 1) (name: q)
+	kindSinN                    // sin(qπn)
+	kindPowN                    // ρ^n for a fixed ratio ρ (name: ρ's text; value in powBases)
+	kindCosAtanN                // cos(n·atan t) for the index n, t > 0 rational, t ≠ 1 (name: t)
+	kindSinAtanN                // sin(n·atan t)
 )
 
 // Symbol is one atom of a coefficient. Atoms are treated as independent
