@@ -20,6 +20,8 @@ var imageRules = []struct {
 	{"images in the circle", diskImages, verifyDisk},
 	{"images in the rays and the circle", sectorImages, verifySector},
 	{"images in the circle", outsideImages, verifyOutside},
+	// The walls' row of images leaves the other two sides' traces numeric.
+	{"row of images in the walls, summed in closed form", stripImages, verifyStrip},
 }
 
 // imagesFor is u_s with images where a rule fits, nil where none does.

@@ -23,10 +23,21 @@ import (
 // exactness the region has; without, the traces are numeric data.
 
 // PointLog is C·ln P with P = S·((x − X)² + (y − Y)²), S = 1 where zero: a
-// point source's logarithm or an image's.
+// point source's logarithm or an image's. With a Period p it is instead a
+// row of them, period p along x (along y when AlongY), summed in closed form:
+//
+//	P = sinh(π(y − Y)/p)² + sin(π(x − X)/p)² = |sin(π(z − z₀)/p)|²
+//
+// (x and y exchanged when AlongY), whose zeros are z₀ + kp; near z₀ it is
+// (π/p)²·|z − z₀|².
 type PointLog struct {
 	C, X, Y, S series.Coef
+	Period     series.Coef
+	AlongY     bool
 }
+
+// rowed reports a row of logarithms (a Period).
+func (l PointLog) rowed() bool { return !l.Period.IsZero() }
 
 func (l PointLog) scale() series.Coef {
 	if l.S.IsZero() {
@@ -46,6 +57,9 @@ func (l PointLog) Poly() cart.Poly {
 // argText is P as psol prints it: (x - X)^2 + (y - Y)^2 where S = 1, the
 // expanded polynomial otherwise.
 func (l PointLog) argText(latex bool) string {
+	if l.rowed() {
+		return l.rowText(latex)
+	}
 	if !l.scale().Equal(series.IntCoef(1)) {
 		if latex {
 			return l.Poly().LaTeX()
@@ -85,11 +99,33 @@ type PointPart struct {
 	// numeric functions otherwise.
 	Traces map[string]series.Field
 	verify func() error // the image rule's exact check of its claims
+	// zeroAt reports a point of a wall where u_s vanishes and with it every
+	// side's operator on u_s (a corner on a wall with values): the numeric
+	// traces take 0 there, not its rounding, so the corners' data agree.
+	zeroAt func(x, y float64) bool
 }
 
-// ExactTraces reports traces B[u_s] in closed form (images) or as exact
-// series (Expansion), rather than numeric data.
-func (pp *PointPart) ExactTraces() bool { return pp.Images != "" || pp.Expansion != "" }
+// ExactTraces reports traces B[u_s] all in closed form (images) or as exact
+// series (Expansion), none numeric data.
+func (pp *PointPart) ExactTraces() bool {
+	for _, t := range pp.Traces {
+		if !pp.exactTrace(t) {
+			return false
+		}
+	}
+	return true
+}
+
+func (pp *PointPart) exactTrace(t series.Field) bool {
+	if t.IsExact() {
+		return true
+	}
+	_, ok := t.FourierOn(series.IntCoef(1))
+	return ok
+}
+
+// ExactTrace reports the trace on a side given exactly.
+func (pp *PointPart) ExactTrace(side string) bool { return pp.exactTrace(pp.Traces[side]) }
 
 // Text is u_s in psol's syntax.
 func (pp *PointPart) Text() string { return pp.print(false) }
@@ -156,6 +192,8 @@ func (pp *PointPart) print(latex bool) string {
 // pointEval is u_s in float64.
 type pointEval struct {
 	c, x, y, s []float64
+	period     []float64 // 0 for a single logarithm, else the row's period
+	alongY     []bool
 	k          float64 // the additive constant
 	sources    int     // the first logs are the sources' own
 }
@@ -172,6 +210,11 @@ func (pp *PointPart) compile(env series.Env) (*pointEval, error) {
 			return nil, err
 		}
 		pe.c, pe.x, pe.y, pe.s = append(pe.c, v[0]), append(pe.x, v[1]), append(pe.y, v[2]), append(pe.s, v[3])
+		p, err := l.Period.Float(env)
+		if err != nil {
+			return nil, err
+		}
+		pe.period, pe.alongY = append(pe.period, p), append(pe.alongY, l.AlongY)
 	}
 	return pe, nil
 }
@@ -184,6 +227,10 @@ func (pe *pointEval) at(x, y float64) float64 {
 	v := pe.k
 	for k := range pe.c {
 		dx, dy := x-pe.x[k], y-pe.y[k]
+		if pe.period[k] != 0 {
+			v += pe.c[k] * math.Log(pe.rowArg(k, dx, dy))
+			continue
+		}
 		v += pe.c[k] * math.Log(pe.s[k]*(dx*dx+dy*dy))
 	}
 	return v
@@ -193,6 +240,11 @@ func (pe *pointEval) at(x, y float64) float64 {
 func (pe *pointEval) grad(x, y float64) (gx, gy float64) {
 	for k := range pe.c {
 		dx, dy := x-pe.x[k], y-pe.y[k]
+		if pe.period[k] != 0 {
+			rx, ry := pe.rowGrad(k, dx, dy)
+			gx, gy = gx+rx, gy+ry
+			continue
+		}
 		d2 := dx*dx + dy*dy
 		gx += 2 * pe.c[k] * dx / d2
 		gy += 2 * pe.c[k] * dy / d2
@@ -217,11 +269,18 @@ func (pe *pointEval) source(x, y float64) (int, bool) {
 // at (x, y): finite at the source itself.
 func (pe *pointEval) regular(x, y float64, k int) float64 {
 	v := pe.k + pe.c[k]*math.Log(pe.s[k])
+	if p := pe.period[k]; p != 0 { // |sin(π(z − z₀)/p)|² ~ (π/p)²·|z − z₀|²
+		v = pe.k + pe.c[k]*2*math.Log(math.Pi/p)
+	}
 	for j := range pe.c {
 		if j == k {
 			continue
 		}
 		dx, dy := x-pe.x[j], y-pe.y[j]
+		if pe.period[j] != 0 {
+			v += pe.c[j] * math.Log(pe.rowArg(j, dx, dy))
+			continue
+		}
 		v += pe.c[j] * math.Log(pe.s[j]*(dx*dx+dy*dy))
 	}
 	return v
@@ -273,6 +332,11 @@ func solvePoints(d Domain, source series.Field, conds []Condition, opt Options) 
 	if err != nil {
 		return nil, err
 	}
+	if pp != nil && len(pp.Traces) < len(d.Sides()) { // a rule that closes some sides only
+		if err := numericTraces(d, byside, pp, opt.Env); err != nil {
+			return nil, err
+		}
+	}
 	if pp == nil {
 		pp, _ = circleLogSeries(d, byside, pts)
 	}
@@ -303,7 +367,7 @@ func solvePoints(d Domain, source series.Field, conds []Condition, opt Options) 
 	if pp.Images != "" {
 		sol.Checks = append(sol.Checks, exactImageCheck(pp, pp.verify))
 	}
-	if pp.ExactTraces() {
+	if pp.Images != "" || pp.Expansion != "" {
 		if c, ok := imageCheck(d, sol, pp, opt.Env); ok {
 			sol.Checks = append(sol.Checks, c)
 		}
@@ -400,26 +464,35 @@ func ownField(d Domain, conds map[string]Condition, pts []series.PointSource, en
 		return nil, unsupported("a point source in a sector is solved by images, which need the angle pi/k (k = 1, 2, 3, 4 or 6) and the same kind of condition on both rays (u = 0 or dn(u) = 0 once the constant is taken out), and the arc at a value or a flux; %s does not meet that", d.Describe())
 	}
 	pp := &PointPart{Sources: pts, Logs: ownLogs(pts), Traces: map[string]series.Field{}}
+	return pp, numericTraces(d, conds, pp, env)
+}
+
+// numericTraces gives each side that has no trace yet B[u_s] as numeric data.
+func numericTraces(d Domain, conds map[string]Condition, pp *PointPart, env series.Env) error {
 	pe, err := pp.compile(env)
 	if err != nil {
-		return nil, unsupported("a point source off the exact image systems is solved numerically, which needs every parameter's value: %w", err)
+		return unsupported("a point source off the exact image systems is solved numerically, which needs every parameter's value: %w", err)
 	}
 	shape, err := d.Shape(env)
 	if err != nil {
-		return nil, unsupported("%w", err)
+		return unsupported("%w", err)
 	}
 	for _, side := range shape.Sides {
 		cond, ok := conds[side.Name]
-		if !ok {
+		if _, done := pp.Traces[side.Name]; !ok || done {
 			continue
 		}
 		h, err := cond.H.Float(env)
 		if err != nil {
-			return nil, unsupported("%w", err)
+			return unsupported("%w", err)
 		}
 		side, kind := side, cond.Kind
+		zero := pp.zeroAt
 		at := func(r, theta float64) float64 {
 			x, y := r*math.Cos(theta), r*math.Sin(theta)
+			if zero != nil && zero(x, y) {
+				return 0
+			}
 			v := pe.at(x, y)
 			if kind == Dirichlet {
 				return v
@@ -435,7 +508,7 @@ func ownField(d Domain, conds map[string]Condition, pts []series.PointSource, en
 		text := OperatorText(cond, "u_s")
 		pp.Traces[side.Name] = series.FuncField(text, operatorLaTeX(cond, "u_s"), at)
 	}
-	return pp, nil
+	return nil
 }
 
 // operatorLaTeX is OperatorText in LaTeX.
@@ -597,7 +670,20 @@ func (s *Solution) pointFigures(rep *Report, shape Shape, env series.Env) error 
 // C·ln S·A plus C·∮ ∂v/∂n ds with v = ρ²(ln ρ − 1)/2, Δv = ln ρ² (v is C¹
 // at a, so the divergence theorem holds with no term there), by
 // Gauss–Legendre on 64 panels a side.
+//
+// A row of logarithms enters as its five terms nearest the centre, each a
+// single logarithm as above, and the rest, smooth on the region, by
+// Gauss–Legendre over it (rowRestArea).
 func (pe *pointEval) areaIntegral(shape Shape) float64 {
+	plain, rows := pe.splitRows()
+	total := plain.logsArea(shape)
+	for _, k := range rows {
+		total += pe.rowRestArea(k, shape)
+	}
+	return total
+}
+
+func (pe *pointEval) logsArea(shape Shape) float64 {
 	total := pe.k * shape.Area
 	for k := range pe.c {
 		total += pe.c[k] * math.Log(pe.s[k]) * shape.Area
@@ -626,7 +712,19 @@ func (pe *pointEval) areaIntegral(shape Shape) float64 {
 // sideFlux is ∫ ∂u_s/∂n ds over a side: for each C·ln ρ², 2C times the
 // angle the side subtends at the centre, signed by the outward normal
 // (∂ ln ρ/∂n ds = dφ), summed over 2048 steps whose angles are exact.
+//
+// A row of logarithms enters as its five nearest terms so, and the rest by
+// Gauss–Legendre of its normal derivative (rowRestFlux).
 func (pe *pointEval) sideFlux(side SidePath) float64 {
+	plain, rows := pe.splitRows()
+	total := plain.logsFlux(side)
+	for _, k := range rows {
+		total += pe.rowRestFlux(k, side)
+	}
+	return total
+}
+
+func (pe *pointEval) logsFlux(side SidePath) float64 {
 	const steps = 2048
 	total := 0.0
 	px, py, _, _ := side.At(0)

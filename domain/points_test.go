@@ -111,7 +111,19 @@ func TestPointSourcesAgainstClosedForms(t *testing.T) {
 			name: "point source in a rectangle with fixed values", equation: "lap(u) = delta(x - 0.7, y - 0.35)",
 			d: domain.Rect{L: series.IntCoef(2), H: series.IntCoef(1)}, bcs: []string{"left: u = 0", "right: u = 0", "bottom: u = 0", "top: u = 0"},
 			want: func(x, y float64) float64 { return rectGreen(x, y, 0.7, 0.35, 2, 1) },
-			tol:  1e-8, source: "the double sine series, inner sum in closed form (eigenfunction expansion, common practice)",
+			tol:  1e-12, source: "the double sine series, inner sum in closed form (eigenfunction expansion, common practice)",
+		},
+		{
+			name: "point source in a rectangle, values on three sides and no flux through the right", equation: "lap(u) = delta(x - 1.6, y - 0.3)",
+			d: domain.Rect{L: series.IntCoef(2), H: series.IntCoef(1)}, bcs: []string{"left: u = 0", "right: dn(u) = 0", "bottom: u = 0", "top: u = 0"},
+			want: func(x, y float64) float64 { return rectGreenModes(x, y, 1.6, 0.3, 2, 1, true) },
+			tol:  1e-12, source: "the eigenfunction series in sin((m - 1/2)*pi*x/L), inner sum in closed form (common practice)",
+		},
+		{
+			name: "point source in a tall rectangle, insulated top and bottom", equation: "lap(u) = delta(x - 0.3, y - 1.45)",
+			d: domain.Rect{L: series.IntCoef(1), H: series.IntCoef(2)}, bcs: []string{"left: u = 0", "right: u = 0", "bottom: dn(u) = 0", "top: dn(u) = 0"},
+			want: func(x, y float64) float64 { return rectGreenKinds(x, y, 0.3, 1.45, 1, 2, false, true) },
+			tol:  1e-12, source: "the sine series in x, the insulated sides' inner sum in closed form (eigenfunction expansion, common practice)",
 		},
 		{
 			name: "convecting disk: the Robin series", equation: "lap(u) = delta(x - 0.3, y - 0.4)",
@@ -180,12 +192,30 @@ func wedgeGreen(z, a complex128, k int, R float64) float64 {
 // of the double sine series in closed form,
 // g_m = −sinh(k y<)·sinh(k(H − y>)) / (k sinh(kH)), summed to m = 4000.
 func rectGreen(x, y, x0, y0, L, H float64) float64 {
+	return rectGreenModes(x, y, x0, y0, L, H, false)
+}
+
+// rectGreenModes is rectGreen with the x modes sin(kx), k = mπ/L, or with
+// k = (m − 1/2)π/L when flux (no flux through x = L).
+func rectGreenModes(x, y, x0, y0, L, H float64, flux bool) float64 {
+	return rectGreenKinds(x, y, x0, y0, L, H, flux, false)
+}
+
+// rectGreenKinds is rectGreenModes with, when insulated, no flux through
+// y = 0 and y = H: g_m = −cosh(k y<)·cosh(k(H − y>)) / (k sinh(kH)).
+func rectGreenKinds(x, y, x0, y0, L, H float64, flux, insulated bool) float64 {
 	lo, hi := math.Min(y, y0), math.Max(y, y0)
 	u := 0.0
 	for m := 1; m <= 4000; m++ {
 		k := float64(m) * math.Pi / L
+		if flux {
+			k = (float64(m) - 0.5) * math.Pi / L
+		}
 		// sinh ratio in a form that does not overflow: e^{k(lo - H + hi - H)}...
 		g := -(1 - math.Exp(-2*k*lo)) * (1 - math.Exp(-2*k*(H-hi))) / (1 - math.Exp(-2*k*H)) * math.Exp(-k*(hi-lo)) / (2 * k)
+		if insulated {
+			g = -(1 + math.Exp(-2*k*lo)) * (1 + math.Exp(-2*k*(H-hi))) / (1 - math.Exp(-2*k*H)) * math.Exp(-k*(hi-lo)) / (2 * k)
+		}
 		u += 2 / L * math.Sin(k*x) * math.Sin(k*x0) * g
 	}
 	return u

@@ -20,7 +20,7 @@ import (
 // exact general term and its check for every n.
 
 // logSeriesName names the method in the printed stages.
-const logSeriesName = "the logarithm's Fourier series on each circle"
+const logSeriesName = "the logarithm's exact Fourier series"
 
 // circleLogSeries is u_s with exact series traces on a disk or an annulus,
 // for sources at rational points with rational strengths' positions and

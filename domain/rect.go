@@ -134,6 +134,11 @@ type sideData struct {
 	poly *cart.Poly
 	fn   func(s float64) float64
 	text string
+	// base and rest split numeric data into an exact polynomial part and
+	// the rest (a point source's sampled trace, say), so that a corner where
+	// the rest is exactly 0 keeps the exact value.
+	base *cart.Poly
+	rest func(s float64) float64
 }
 
 func (g sideData) at(s float64, env series.Env) float64 {
@@ -235,6 +240,17 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 			x, y := geo.point(s, L, H)
 			return cf.At(math.Hypot(x, y), math.Atan2(y, x))
 		}, text: cond.G.Text()}
+		if g, err := cart.FromPolar(cond.G.Exact); err == nil && cond.G.Rest != nil && !cond.G.IsPiecewise() {
+			if rf, err := (series.Field{Rest: cond.G.Rest}).Compile(p.env); err == nil {
+				tr := d.trace(name, Condition{Kind: Dirichlet}, g)
+				sd := data[name]
+				sd.base, sd.rest = &tr, func(s float64) float64 {
+					x, y := geo.point(s, L, H)
+					return rf.At(math.Hypot(x, y), math.Atan2(y, x))
+				}
+				data[name] = sd
+			}
+		}
 	}
 	var wt *numericPart
 	if len(waves) > 0 || sq != nil {
@@ -417,6 +433,9 @@ func (d Rect) cornerData(name string, g sideData, atEnd bool, env series.Env) se
 	s := 0.0
 	if atEnd {
 		s = l
+	}
+	if g.base != nil && g.rest(s) == 0 {
+		return d.cornerData(name, sideData{poly: g.base}, atEnd, env)
 	}
 	return decimal(g.fn(s))
 }

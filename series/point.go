@@ -40,7 +40,7 @@ func (p PointSource) LaTeX() string {
 	return q + `\,` + d
 }
 
-// offsetText is "x - X" ("x" when X is 0, "x + 1/2" when X is −1/2).
+// OffsetText is "x - X" ("x" when X is 0, "x + 1/2" when X is −1/2).
 func OffsetText(v string, c Coef) string {
 	if c.IsZero() {
 		return v
@@ -55,15 +55,19 @@ func OffsetText(v string, c Coef) string {
 	return v + " + " + s
 }
 
+// OffsetLaTeX is OffsetText in LaTeX.
 func OffsetLaTeX(v string, c Coef) string {
 	if c.IsZero() {
 		return v
 	}
-	s := c.LaTeX()
-	if strings.ContainsAny(s[1:], "+-") || strings.HasPrefix(s, "-") {
-		return v + ` - \left(` + s + `\right)`
+	s := c.Neg().LaTeX()
+	if strings.HasPrefix(s, "-") && !strings.ContainsAny(s[1:], "+-") {
+		return v + " - " + s[1:]
 	}
-	return v + " - " + s
+	if strings.ContainsAny(s[1:], "+-") {
+		return v + ` + \left(` + s + `\right)`
+	}
+	return v + " + " + s
 }
 
 func wrapSigned(s string) string {

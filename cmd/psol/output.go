@@ -290,7 +290,11 @@ func renderText(w io.Writer, v *view) error {
 		}
 		switch {
 		case p.Terms > 0:
-			at += fmt.Sprintf(" (series summed to n = %d, tail estimate %.1e)", p.Terms, p.Error)
+			tail := p.Error
+			if tail < 1e-300 { // an underflow's denormal, not a measure
+				tail = 0
+			}
+			at += fmt.Sprintf(" (series summed to n = %d, tail estimate %.1e)", p.Terms, tail)
 		case p.Error > 1e-10*math.Max(1, math.Abs(p.U)): // numeric parts: the estimate matters
 			at += fmt.Sprintf(" (error estimate %.1e)", p.Error)
 		}
@@ -732,11 +736,14 @@ func (v *view) rectStages(sol *domain.Solution) {
 	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(trTeX, `,\ `), "u_p|_{\\partial}")
 	v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(coTeX, `,\ `), "g - u_p")
 	v.Harmonic = exactStage("harmonic", harm, harmTeX, "u_h")
-	sol0 := upText
-	if harm != "0" {
+	sol0, sol0TeX := upText, upTeX+" + "+harmTeX
+	switch {
+	case upText == "0":
+		sol0, sol0TeX = harm, harmTeX
+	case harm != "0":
 		sol0 += " + " + harm
 	}
-	v.Solution = exactStage("solution", "u = "+sol0, upTeX+" + "+harmTeX, "u")
+	v.Solution = exactStage("solution", "u = "+sol0, sol0TeX, "u")
 	v.checkScope = ""
 	if sol.Numeric { // some side series have numeric coefficients (cart.EigenSide)
 		for _, st := range []*stage{&v.Correction, &v.Harmonic, &v.Solution} {

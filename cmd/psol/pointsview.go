@@ -1,6 +1,7 @@
 package main
 
 import (
+	"fmt"
 	"strings"
 
 	"psol/domain"
@@ -41,7 +42,7 @@ func (v *view) pointStages(sol *domain.Solution) {
 	for _, s := range sol.Sides {
 		t := pp.Traces[s.Condition.Side]
 		name := domain.OperatorText(s.Condition, "u_s")
-		if !pp.ExactTraces() { // the side's operator on u_s, sampled into the correction
+		if !pp.ExactTrace(s.Condition.Side) { // the side's operator on u_s, sampled into the correction
 			tr = append(tr, s.Condition.Side+": "+name+" (numeric)")
 			trTeX = append(trTeX, t.LaTeX())
 			continue
@@ -63,9 +64,24 @@ func (v *view) pointStages(sol *domain.Solution) {
 		}
 		st.LaTeX = joinNonzero(pp.LaTeX(), st.LaTeX)
 	}
+	how := "sampled on each side into the correction (numeric)"
+	switch {
+	case pp.Images != "":
+		how = "closed by the " + pp.Images + " (exact)"
+	case pp.Expansion != "":
+		how = "given on each circle by " + pp.Expansion + ", ln|R e^(i theta) - rho e^(i phi)| = ln R - sum(n=1..inf, (rho/R)^n cos(n (theta - phi))/n) for rho < R (R and rho exchanged for rho > R)"
+	}
+	count := "the source"
+	if len(pp.Sources) > 1 {
+		count = fmt.Sprintf("the %d sources", len(pp.Sources))
+	}
+	v.Steps = append(v.Steps, fmt.Sprintf("point sources: u_s = sum of (Q/(2*pi))*ln|z - z0| over %s; its traces B[u_s] are %s", count, how))
 	what := "the point sources' own field"
 	if pp.Images != "" {
 		what = "their field with the " + pp.Images + ", $u_s = u_{p,\\delta} + u_i$"
+	}
+	if pp.Expansion != "" {
+		what += ", its trace on each circle by " + pp.Expansion + ", $\\ln|R e^{i\\theta} - \\rho e^{i\\varphi}| = \\ln R - \\sum_{n \\ge 1} (\\rho/R)^n \\cos n(\\theta - \\varphi)/n$ for $\\rho < R$ (and $R$, $\\rho$ exchanged outside)"
 	}
 	v.where = append(v.where, `$u_s$ is `+what+`, and the correction is $g$ less the trace of $u_p$ and of $u_s$`)
 }
