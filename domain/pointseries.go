@@ -65,26 +65,28 @@ func circleLogSeries(d Domain, conds map[string]Condition, pts []series.PointSou
 //	(Q/2π)·(−Σ (R/ρ)^n cos n(θ − φ)/R)        (ρ > R)
 //
 // times the circle's outward sign.
+//
+// A source lies inside the region, so inside the circle that bounds it from
+// outside (outward normal +r) and outside a hole's circle: the radius may
+// be a parameter.
 func logTrace(c circle, cond Condition, p series.PointSource) (series.FourierCoefficients, bool) {
-	R, okR := c.radius.Rat()
 	x, okx := p.X.Rat()
 	y, oky := p.Y.Rat()
-	if !okR || !okx || !oky {
+	if !okx || !oky {
 		return series.FourierCoefficients{}, false
 	}
 	rho2 := new(big.Rat).Add(new(big.Rat).Mul(x, x), new(big.Rat).Mul(y, y))
-	R2 := new(big.Rat).Mul(R, R)
-	inside := rho2.Cmp(R2) < 0 // the source inside the circle
-	if rho2.Cmp(R2) == 0 {
-		return series.FourierCoefficients{}, false
-	}
+	inside := c.outward > 0 // the source inside the circle
 	twoPi := series.IntCoef(2).Mul(series.SymCoef(series.Pi))
 	k, err := p.Q.Div(twoPi)
 	if err != nil {
 		return series.FourierCoefficients{}, false
 	}
-	radius := series.RatCoef(R)
-	invR := series.RatCoef(new(big.Rat).Inv(R))
+	radius := c.radius
+	invR, err := series.IntCoef(1).Div(radius)
+	if err != nil {
+		return series.FourierCoefficients{}, false
+	}
 	// The value: k·(ln max(R, ρ) − Σ m^n cos n(θ − φ)/n), m = min(R, ρ)/max(R, ρ).
 	var value, deriv series.FourierCoefficients
 	lnBig, err := radius.Ln()
@@ -101,11 +103,14 @@ func logTrace(c circle, cond Condition, p series.PointSource) (series.FourierCoe
 		deriv.A0 = k.Mul(invR)
 	}
 	if rho2.Sign() != 0 {
-		m2 := new(big.Rat).Quo(rho2, R2)
-		if !inside {
-			m2.Inv(m2)
+		rho, err := series.RatCoef(rho2).Pow(big.NewRat(1, 2))
+		if err != nil {
+			return series.FourierCoefficients{}, false
 		}
-		m, err := series.RatCoef(m2).Pow(big.NewRat(1, 2))
+		m, err := rho.Div(radius) // ρ/R, or R/ρ outside the circle
+		if !inside {
+			m, err = radius.Div(rho)
+		}
 		if err != nil {
 			return series.FourierCoefficients{}, false
 		}
