@@ -301,6 +301,12 @@ func renderText(w io.Writer, v *view) error {
 		line(w, "point", at)
 	}
 	if r := v.Report; r != nil {
+		uScale := 0.0 // u's size (the extremes', the mean's), against which rounding is judged
+		for _, m := range []*float64{r.Max, r.Min, r.Mean} {
+			if m != nil {
+				uScale = math.Max(uScale, math.Abs(*m))
+			}
+		}
 		for _, e := range []struct {
 			name string
 			v    *float64
@@ -309,7 +315,7 @@ func renderText(w io.Writer, v *view) error {
 		}{{"max", r.Max, r.ArgMax, r.MaxInf}, {"min", r.Min, r.ArgMin, r.MinInf}} {
 			switch {
 			case e.v != nil:
-				line(w, "report", fmt.Sprintf("%s u = %.12g at %s", e.name, *e.v, where(e.at)))
+				line(w, "report", fmt.Sprintf("%s u = %s at %s", e.name, noiseFloor(*e.v, uScale), where(e.at)))
 			case e.inf != "":
 				line(w, "report", fmt.Sprintf("%s u = %s at the point source, %s", e.name, e.inf, where(e.at)))
 			}
@@ -324,8 +330,18 @@ func renderText(w io.Writer, v *view) error {
 		default:
 			line(w, "report", "area integral of u: not finite over the unbounded region")
 		}
+		fluxScale := 0.0
+		for _, f := range append([]*float64{r.SourceIntegral, r.Flux}, sideFluxes(r.Sides)...) {
+			if f != nil {
+				fluxScale = math.Max(fluxScale, math.Abs(*f))
+			}
+		}
 		var sides []string
 		for _, f := range r.Sides {
+			if f.Text == "" && f.Flux != nil {
+				sides = append(sides, f.Side+" "+noiseFloor(*f.Flux, fluxScale))
+				continue
+			}
 			sides = append(sides, f.Side+" "+figureOrExact(f.Text, f.Flux))
 		}
 		if len(sides) > 1 {
@@ -456,6 +472,26 @@ func figureOrExact(exact string, v *float64) string {
 		return exact
 	}
 	return figure(exact, *v)
+}
+
+// noiseFloor prints a computed figure, or 0 with what was computed where it
+// is below 1e-9 of the size of its kind of figure (the extremes', the
+// fluxes'): there the digits are the rounding of the numeric parts, and a
+// zero (an insulated side's flux, the value on a side at u = 0) is what the
+// user should read.
+func noiseFloor(v, scale float64) string {
+	if v != 0 && math.Abs(v) <= 1e-9*scale {
+		return fmt.Sprintf("0 (computed %.1e, within rounding)", v)
+	}
+	return fmt.Sprintf("%.12g", v)
+}
+
+func sideFluxes(ss []sideOut) []*float64 {
+	out := make([]*float64, len(ss))
+	for i, s := range ss {
+		out[i] = s.Flux
+	}
+	return out
 }
 
 // figure prints an exact value with its decimal, or the decimal alone.
