@@ -89,6 +89,10 @@ func (c corner) poleScale(s float64) float64 {
 type cornerPower struct {
 	w, rot complex128
 	beta   float64
+	// beta = (k − off)/alpha: ζ^β = (ζ^(1/α))^k·ζ^(−off/α), which lets a
+	// corner's powers come by multiplication (eachPower).
+	k          int
+	off, alpha float64
 	// pivot, at a hole's corner, is a point inside the hole: ζ is then
 	// (z − w)/(z − pivot), whose principal branch cuts only the segment from
 	// the corner to the pivot, inside the hole (the exterior bisector would
@@ -118,7 +122,7 @@ func cornerPowers(c corner, K int) []cornerPower {
 	for k := 1; k <= K; k++ {
 		for _, off := range c.families {
 			if beta := (float64(k) - off) / c.angle; math.Abs(beta-math.Round(beta)) > 1e-9 && beta <= 24 {
-				out = append(out, cornerPower{w: c.w, rot: rot, beta: beta, pivot: c.pivot, hasPivot: c.hasPivot})
+				out = append(out, cornerPower{w: c.w, rot: rot, beta: beta, k: k, off: off, alpha: c.angle, pivot: c.pivot, hasPivot: c.hasPivot})
 			}
 		}
 	}
@@ -191,7 +195,9 @@ func (h *rationalHarmonic) polyBasis(z complex128, q, dq []complex128) {
 			v -= h.hess[k][j] * q[j]
 			dv -= h.hess[k][j] * dq[j]
 		}
-		q[k+1], dq[k+1] = v/h.hess[k][k+1], dv/h.hess[k][k+1]
+		// The subdiagonal is a real norm: a scaling, not a complex division.
+		inv := 1 / real(h.hess[k][k+1])
+		q[k+1], dq[k+1] = complex(real(v)*inv, imag(v)*inv), complex(real(dv)*inv, imag(dv)*inv)
 	}
 }
 

@@ -80,9 +80,14 @@ func (hb holeBasis) variable(z complex128) (v, dlog complex128) {
 func (h *rationalHarmonic) eachLaurent(z complex128, fn func(k int, f, df complex128)) {
 	var v, dlog, f complex128
 	for k, t := range h.laurent {
-		if k == 0 || t.hole != h.laurent[k-1].hole || t.j != h.laurent[k-1].j+1 {
+		// A run is one hole's j = 1, 2, …: a new one wherever j does not
+		// follow on (comparing the holes themselves cost more than the terms).
+		if k == 0 || t.j != h.laurent[k-1].j+1 {
 			v, dlog = t.hole.variable(z)
-			f = cmplx.Pow(v, complex(float64(t.j), 0))
+			f = v
+			for i := 1; i < t.j; i++ {
+				f *= v
+			}
 		} else {
 			f *= v
 		}
@@ -90,21 +95,66 @@ func (h *rationalHarmonic) eachLaurent(z complex128, fn func(k int, f, df comple
 	}
 }
 
-// eachPower calls fn with each corner power's value and derivative at z; a
-// corner's powers share ζ and log ζ: ζ^β = exp(β log ζ).
+// recip is 1/w by its conjugate: no complex division's special cases (w is
+// never 0, ∞ or NaN here), a third of its cost in the fit's inner loops.
+func recip(w complex128) complex128 {
+	s := 1 / (real(w)*real(w) + imag(w)*imag(w))
+	return complex(real(w)*s, -imag(w)*s)
+}
+
+// eachPower calls fn with each corner power's value and derivative at z. A
+// corner's powers ζ^β, β = (k − off)/α, share ζ and log ζ, and come by
+// multiplication: (ζ^(1/α))^k times one ζ^(−off/α) per family of offsets (an
+// exponential at each power was the fit's largest cost after the poles).
 func (h *rationalHarmonic) eachPower(z complex128, fn func(k int, f, df complex128)) {
-	var zeta, dzeta, logZeta complex128
+	var zeta, logZeta, dlog, root, rootK complex128
+	var fam [2]struct {
+		off float64
+		f   complex128
+	}
+	nfam, kNow := 0, 0
 	for k, c := range h.powers {
-		if k == 0 || c.w != h.powers[k-1].w || c.pivot != h.powers[k-1].pivot {
+		if k == 0 || c.w != h.powers[k-1].w || c.pivot != h.powers[k-1].pivot || c.alpha != h.powers[k-1].alpha || c.k < kNow {
+			var dzeta complex128
 			zeta, dzeta = c.zeta(z)
-			logZeta = cmplx.Log(zeta)
+			nfam, kNow = 0, 0
+			if zeta != 0 {
+				logZeta = cmplx.Log(zeta)
+				dlog = recip(zeta) * dzeta
+				root, rootK = cmplx.Exp(logZeta*complex(1/c.alpha, 0)), 1
+				fam[0].off, fam[0].f, nfam = 0, 1, 1
+				if c.off != 0 {
+					fam[0].off, fam[0].f = c.off, cmplx.Exp(logZeta*complex(-c.off/c.alpha, 0))
+				}
+			}
 		}
 		if zeta == 0 {
 			fn(k, 0, 0)
 			continue
 		}
-		v := cmplx.Exp(complex(c.beta, 0) * logZeta)
-		fn(k, v, complex(c.beta, 0)*v/zeta*dzeta)
+		for ; kNow < c.k; kNow++ {
+			rootK *= root
+		}
+		var ff complex128
+		found := false
+		for i := 0; i < nfam; i++ {
+			if fam[i].off == c.off {
+				ff, found = fam[i].f, true
+				break
+			}
+		}
+		if !found {
+			ff = 1
+			if c.off != 0 {
+				ff = cmplx.Exp(logZeta * complex(-c.off/c.alpha, 0))
+			}
+			if nfam < len(fam) {
+				fam[nfam].off, fam[nfam].f = c.off, ff
+				nfam++
+			}
+		}
+		v := rootK * ff
+		fn(k, v, complex(c.beta, 0)*v*dlog)
 	}
 }
 
@@ -727,7 +777,7 @@ func sectionHarmonicIntegral(h *rationalHarmonic, shape Shape) float64 {
 func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
 	var f, df complex128
 	for j, p := range h.poles {
-		d := 1 / (z - p)
+		d := recip(z - p)
 		f += h.cPole[j] * d
 		df -= h.cPole[j] * d * d
 	}
