@@ -113,6 +113,23 @@ type xyRegion interface {
 
 // ContainsXY reports whether the point (x, y) lies in the closed region: in
 // x and y where the region is Cartesian, through r and θ ∈ [0, 2π) otherwise.
+// insideXYer is a region that builds its containment test once, for loops
+// over many points (its numbers from env computed up front).
+type insideXYer interface {
+	insideXY(env series.Env) (func(x, y float64) bool, error)
+}
+
+// InsideXY is ContainsXY as a test built once: false where the region
+// cannot say.
+func InsideXY(d Domain, env series.Env) func(x, y float64) bool {
+	if in, ok := d.(insideXYer); ok {
+		if f, err := in.insideXY(env); err == nil {
+			return f
+		}
+	}
+	return func(x, y float64) bool { ok, err := ContainsXY(d, x, y, env); return ok && err == nil }
+}
+
 func ContainsXY(d Domain, x, y float64, env series.Env) (bool, error) {
 	if xy, ok := d.(xyRegion); ok {
 		return xy.containsXY(x, y, env)

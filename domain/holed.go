@@ -276,6 +276,25 @@ func (h Holed) Contains(r, theta float64, env series.Env) (bool, error) {
 	return h.containsXY(x, y, env)
 }
 
+func (h Holed) insideXY(env series.Env) (func(x, y float64) bool, error) {
+	hs, err := h.holes(env)
+	if err != nil {
+		return nil, err
+	}
+	outer := InsideXY(h.Outer, env)
+	return func(x, y float64) bool {
+		if !outer(x, y) {
+			return false
+		}
+		for _, c := range hs {
+			if c.inside(x, y) {
+				return false
+			}
+		}
+		return true
+	}, nil
+}
+
 func (h Holed) containsXY(x, y float64, env series.Env) (bool, error) {
 	in, err := ContainsXY(h.Outer, x, y, env)
 	if err != nil || !in {

@@ -402,10 +402,15 @@ func (p Polygon) samples(env series.Env) ([][2]float64, error) { return shapeSam
 
 func (Polygon) printsInXY() bool { return true }
 
-func (p Polygon) containsXY(x, y float64, env series.Env) (bool, error) {
+func (p Polygon) insideXY(env series.Env) (func(x, y float64) bool, error) {
 	xs, ys, _, err := p.vertices(env)
 	if err != nil {
-		return false, err
+		return nil, err
 	}
-	return insidePolygon(xs, ys, x, y), nil
+	return func(x, y float64) bool { return insidePolygon(xs, ys, x, y) }, nil
+}
+
+func (p Polygon) containsXY(x, y float64, env series.Env) (bool, error) {
+	in, err := p.insideXY(env)
+	return err == nil && in(x, y), err
 }

@@ -33,14 +33,21 @@ func (d Rect) Contains(r, theta float64, env series.Env) (bool, error) {
 
 // containsXY is Contains for a point given in x and y, with no trip through
 // polar coordinates (which loses the short coordinate of a long rectangle).
-func (d Rect) containsXY(x, y float64, env series.Env) (bool, error) {
+func (d Rect) insideXY(env series.Env) (func(x, y float64) bool, error) {
 	v, err := floats(env, d.L, d.H)
 	if err != nil {
-		return false, err
+		return nil, err
 	}
 	L, H := v[0], v[1]
 	const eps = 1e-12
-	return x >= -eps*L && x <= L*(1+eps) && y >= -eps*H && y <= H*(1+eps), nil
+	return func(x, y float64) bool {
+		return x >= -eps*L && x <= L*(1+eps) && y >= -eps*H && y <= H*(1+eps)
+	}, nil
+}
+
+func (d Rect) containsXY(x, y float64, env series.Env) (bool, error) {
+	in, err := d.insideXY(env)
+	return err == nil && in(x, y), err
 }
 
 // RectParts are a rectangle's stages in x and y.

@@ -842,7 +842,7 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 				}
 			}
 		}
-		inside := func(x, y float64) bool { ok, err := ContainsXY(d, x, y, env); return ok && err == nil }
+		inside := InsideXY(d, env)
 		rep.Max, rep.ArgMax, rep.Min, rep.ArgMin = xyExtremes(shape, inside, ev)
 		return nil
 	}
@@ -877,7 +877,7 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 		}
 		rep.SourceExact = nil
 	}
-	inside := func(x, y float64) bool { ok, err := ContainsXY(d, x, y, env); return ok && err == nil }
+	inside := InsideXY(d, env)
 	rep.Max, rep.ArgMax, rep.Min, rep.ArgMin = xyExtremes(shape, inside, ev)
 	up, err := compileSideCondition(Condition{Kind: Neumann, G: series.ExactField(series.Sum{})}, s.Particular, env)
 	if err != nil {
