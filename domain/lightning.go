@@ -157,6 +157,7 @@ type rationalHarmonic struct {
 	centre   complex128
 	scale    float64
 	hess     [][]complex128 // Arnoldi's Hessenberg matrix, column k: the coefficients of q_{k+1}
+	realHess bool           // its entries are real (a symmetric fit's basis): real products
 	cPoly    []complex128   // Re Σ cPoly_k q_k
 	degree   int
 	residual float64 // the largest |condition residual| on the check sampling
@@ -191,9 +192,17 @@ func (h *rationalHarmonic) polyBasis(z complex128, q, dq []complex128) {
 	for k := 0; k < h.degree; k++ {
 		v := Z * q[k]
 		dv := q[k]*dZ + Z*dq[k]
-		for j := 0; j <= k; j++ {
-			v -= h.hess[k][j] * q[j]
-			dv -= h.hess[k][j] * dq[j]
+		if h.realHess {
+			for j := 0; j <= k; j++ {
+				c := real(h.hess[k][j])
+				v -= complex(c*real(q[j]), c*imag(q[j]))
+				dv -= complex(c*real(dq[j]), c*imag(dq[j]))
+			}
+		} else {
+			for j := 0; j <= k; j++ {
+				v -= h.hess[k][j] * q[j]
+				dv -= h.hess[k][j] * dq[j]
+			}
 		}
 		// The subdiagonal is a real norm: a scaling, not a complex division.
 		inv := 1 / real(h.hess[k][k+1])
@@ -387,7 +396,7 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	for i, p := range pts {
 		Z[i], _ = h.polyVar(p.z)
 	}
-	h.hess = arnoldi(Z, degree, geo.sym != nil)
+	h.hess, h.realHess = arnoldi(Z, degree, geo.sym != nil), geo.sym != nil
 	// Columns: Re and Im of each pole's and each polynomial's operator value.
 	nc := 2*nPole + 2*(degree+1) + 2*nPower + 2*len(h.logs) + 2*nLaurent + 2*len(h.mobiusK)
 	// A floating side's value U is one more unknown (its column: −1 on its
