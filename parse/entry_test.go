@@ -3,6 +3,7 @@ package parse
 import (
 	"errors"
 	"flag"
+	"math"
 	"math/big"
 	"math/rand"
 	"os"
@@ -63,6 +64,9 @@ func TestLowering(t *testing.T) {
 		{"1/(1+r^2)", "1/(1 + r^2)"},
 		{"sum(n=1..inf, n != 2..4, n != 7, r^n*sin(n*theta)/n)", "sum(n=1..inf, n != 2..4, n != 7, r^(n)*sin(n*theta)*1/n)"},
 		{"sum(n=1..inf, n != 2, n != 3, n != 4, r^n/n^2)", "sum(n=1..inf, n != 2..4, r^(n)*1/n^2)"},
+		// A single term with a compound coefficient keeps its parentheses as
+		// an operand (the printed text once read (1/2*sqrt(3))^n as 1/2*sqrt(3)^n).
+		{"sum(n=1..inf, (1/2*sqrt(3))^n*(n - 2)/(n + 1)*r^n*sin(n*theta))", "sum(n=1..inf, (1/2*sqrt(3))^(n)*(-2 + n)*1/(1 + n)*r^(n)*sin(n*theta))"},
 	}
 	for _, c := range cases {
 		f, err := Expression("test", c.in, nil)
@@ -72,6 +76,37 @@ func TestLowering(t *testing.T) {
 		}
 		if got := f.Text(); got != c.want {
 			t.Errorf("%s: got %s, want %s", c.in, got, c.want)
+		}
+	}
+}
+
+// Printed remainders read back as the same function: the text is psol's
+// syntax, so a claim or a formula copied from the output means what it did.
+func TestRemainderTextRoundTrip(t *testing.T) {
+	for _, in := range []string{
+		"sum(n=1..inf, (1/2*sqrt(3))^n*(n - 2)/(n + 1)*r^n*sin(n*theta))",
+		"exp(x)/(2*x + 3) - (x - 1)^3*exp(-y)",
+		"atan(2*r*sin(theta)/(1 - r^2))/pi",
+		"-sin(pi*x)*sin(pi*y)/(2*pi^2)",
+		"(1 + x)^(1/3)*exp(-(x^2 + y^2)/0.05)",
+	} {
+		f, err := Expression("test", in, nil)
+		if err != nil {
+			t.Fatalf("%s: %v", in, err)
+		}
+		g, err := Expression("test", f.Text(), nil)
+		if err != nil {
+			t.Fatalf("%s printed as %s: %v", in, f.Text(), err)
+		}
+		cf, err1 := f.Compile(nil)
+		cg, err2 := g.Compile(nil)
+		if err1 != nil || err2 != nil {
+			t.Fatal(err1, err2)
+		}
+		for _, p := range [][2]float64{{0.3, 0.4}, {0.7, 2.1}, {0.5, -1}} {
+			if a, b := cf.At(p[0], p[1]), cg.At(p[0], p[1]); math.Abs(a-b) > 1e-12*math.Max(1, math.Abs(a)) {
+				t.Errorf("%s printed as %s: %.15g, read back %.15g", in, f.Text(), a, b)
+			}
 		}
 	}
 }

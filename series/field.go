@@ -404,11 +404,11 @@ func (e *Expr) Text() string {
 		return e.args[0].Text() + " + " + e.args[1].Text()
 	case "*", "/":
 		if k, ok := e.constFactor(); ok && k.Equal(IntCoef(-1)) {
-			return "-" + wrap(e.args[1])
+			return "-" + operand(e.args[1], false, false)
 		}
-		return wrap(e.args[0]) + e.op + wrap(e.args[1])
+		return operand(e.args[0], true, false) + e.op + operand(e.args[1], false, e.op == "/")
 	case "^":
-		return wrap(e.args[0]) + "^(" + trimParens(e.args[1].Text()) + ")"
+		return operand(e.args[0], false, true) + "^(" + trimParens(e.args[1].Text()) + ")"
 	}
 	return e.op + "(" + trimParens(e.args[0].Text()) + ")"
 }
@@ -498,7 +498,7 @@ func (e *Expr) bareLaTeX() string {
 }
 
 func wrapLaTeX(e *Expr) string {
-	if e.op == "+" {
+	if sum, _ := shapeOf(e.Text()); e.op == "+" || sum {
 		return `\left(` + e.LaTeX() + `\right)`
 	}
 	return e.LaTeX()
@@ -511,11 +511,61 @@ func wrap(e *Expr) string {
 	return e.Text()
 }
 
-func trimParens(s string) string {
-	if len(s) > 1 && s[0] == '(' && s[len(s)-1] == ')' {
-		return s[1 : len(s)-1]
+// operand prints e as an operand of *, / or ^, in parentheses where it
+// would not bind as one: a sum always (a single term's compound coefficient
+// too, such as n − 2), a leading sign except on the left, and a product or
+// quotient where strict (the right of /, the base of ^).
+func operand(e *Expr, left, strict bool) string {
+	t := e.Text()
+	sum, product := shapeOf(t)
+	switch {
+	case e.op == "+" || sum,
+		strings.HasPrefix(t, "-") && !left,
+		strict && (product || strings.HasPrefix(t, "-") || e.op == "*" || e.op == "/" || e.op == "^"):
+		return "(" + t + ")"
 	}
-	return s
+	return t
+}
+
+// shapeOf reports printed text with a top-level sum (+ or − between terms,
+// not an exponent's sign) or a top-level product or quotient.
+func shapeOf(t string) (sum, product bool) {
+	depth := 0
+	for i, c := range t {
+		switch {
+		case c == '(':
+			depth++
+		case c == ')':
+			depth--
+		case depth > 0:
+		case c == '+' || c == '-' && i > 0 && t[i-1] != 'e':
+			sum = true
+		case c == '*' || c == '/' || c == '^':
+			product = true
+		}
+	}
+	return sum, product
+}
+
+// trimParens drops one pair of parentheses around the whole of s (not a
+// first and a last that belong to different pairs, as in (a)*f(b)).
+func trimParens(s string) string {
+	if len(s) < 2 || s[0] != '(' || s[len(s)-1] != ')' {
+		return s
+	}
+	depth := 0
+	for i, c := range s {
+		switch c {
+		case '(':
+			depth++
+		case ')':
+			depth--
+			if depth == 0 && i != len(s)-1 {
+				return s
+			}
+		}
+	}
+	return s[1 : len(s)-1]
 }
 
 // Text prints the field in psol's syntax.
