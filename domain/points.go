@@ -675,10 +675,17 @@ func (s *Solution) pointFigures(rep *Report, shape Shape, env series.Env) error 
 // single logarithm as above, and the rest, smooth on the region, by
 // Gauss–Legendre over it (rowRestArea).
 func (pe *pointEval) areaIntegral(shape Shape) float64 {
-	plain, rows := pe.splitRows()
-	total := plain.logsArea(shape)
+	return pe.overRows(func(p *pointEval) float64 { return p.logsArea(shape) },
+		func(k int) float64 { return pe.rowRestArea(k, shape) })
+}
+
+// overRows is a figure of u_s: plain's on its single logarithms (the rows
+// split into their nearest zeros, splitRows) plus rest's for each row.
+func (pe *pointEval) overRows(plain func(*pointEval) float64, rest func(k int) float64) float64 {
+	p, rows := pe.splitRows()
+	total := plain(p)
 	for _, k := range rows {
-		total += pe.rowRestArea(k, shape)
+		total += rest(k)
 	}
 	return total
 }
@@ -716,12 +723,8 @@ func (pe *pointEval) logsArea(shape Shape) float64 {
 // A row of logarithms enters as its five nearest terms so, and the rest by
 // Gauss–Legendre of its normal derivative (rowRestFlux).
 func (pe *pointEval) sideFlux(side SidePath) float64 {
-	plain, rows := pe.splitRows()
-	total := plain.logsFlux(side)
-	for _, k := range rows {
-		total += pe.rowRestFlux(k, side)
-	}
-	return total
+	return pe.overRows(func(p *pointEval) float64 { return p.logsFlux(side) },
+		func(k int) float64 { return pe.rowRestFlux(k, side) })
 }
 
 func (pe *pointEval) logsFlux(side SidePath) float64 {
