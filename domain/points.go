@@ -95,8 +95,9 @@ type PointPart struct {
 	// Expansion names how the traces are exact without images (the
 	// logarithm's Fourier series on circles); "" with images or numeric traces.
 	Expansion string
-	// Traces are B[u_s] on each side, by side: exact constants with images,
-	// numeric functions otherwise.
+	// Traces are B[u_s] on each side, by side: exact constants with images
+	// (a row of images: its two walls', the other sides numeric), exact
+	// Fourier series with an Expansion, numeric functions otherwise.
 	Traces map[string]series.Field
 	verify func() error // the image rule's exact check of its claims
 	// zeroAt reports a point of a wall where u_s vanishes and with it every
@@ -226,14 +227,18 @@ func (pe *pointEval) at(x, y float64) float64 {
 	}
 	v := pe.k
 	for k := range pe.c {
-		dx, dy := x-pe.x[k], y-pe.y[k]
-		if pe.period[k] != 0 {
-			v += pe.c[k] * math.Log(pe.rowArg(k, dx, dy))
-			continue
-		}
-		v += pe.c[k] * math.Log(pe.s[k]*(dx*dx+dy*dy))
+		v += pe.logAt(k, x-pe.x[k], y-pe.y[k])
 	}
 	return v
+}
+
+// logAt is the k-th logarithm (or row of them) at the offset (dx, dy) from
+// its centre.
+func (pe *pointEval) logAt(k int, dx, dy float64) float64 {
+	if pe.period[k] != 0 {
+		return pe.c[k] * math.Log(pe.rowArg(k, dx, dy))
+	}
+	return pe.c[k] * math.Log(pe.s[k]*(dx*dx+dy*dy))
 }
 
 // grad is ∇u_s at (x, y).
@@ -273,15 +278,9 @@ func (pe *pointEval) regular(x, y float64, k int) float64 {
 		v = pe.k + pe.c[k]*2*math.Log(math.Pi/p)
 	}
 	for j := range pe.c {
-		if j == k {
-			continue
+		if j != k {
+			v += pe.logAt(j, x-pe.x[j], y-pe.y[j])
 		}
-		dx, dy := x-pe.x[j], y-pe.y[j]
-		if pe.period[j] != 0 {
-			v += pe.c[j] * math.Log(pe.rowArg(j, dx, dy))
-			continue
-		}
-		v += pe.c[j] * math.Log(pe.s[j]*(dx*dx+dy*dy))
 	}
 	return v
 }

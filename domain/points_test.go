@@ -484,3 +484,44 @@ func TestPointSourceSlabTwoPaths(t *testing.T) {
 		}
 	}
 }
+
+// The regular part at a source, u − (Q/2π)·ln|z − z₀| there, against its
+// definition as a limit: the mean of u − (Q/2π)·ln ε at the four points at
+// distance ε = 1e-4 around the source (the mean cancels the linear term, so
+// the difference is O(ε²)). Each way of building u_s: images, the
+// logarithm's series, the row of images, the sources' own field.
+func TestPointSourceRegularPart(t *testing.T) {
+	cases := []struct {
+		equation string
+		d        domain.Domain
+		bcs      []string
+		at       [2]float64
+		q        float64
+	}{
+		{"lap(u) = 2*delta(x - 0.3, y + 0.2)", domain.Disk{R: series.IntCoef(1)}, []string{"u = 0"}, [2]float64{0.3, -0.2}, 2},
+		{"lap(u) = 2*delta(x - 0.3, y + 0.2)", domain.Disk{R: series.IntCoef(1)}, []string{"dn(u) + 3*u = 0"}, [2]float64{0.3, -0.2}, 2},
+		{"lap(u) = delta(x + 0.6, y + 0.3)", domain.Annulus{R1: series.FracCoef(1, 2), R2: series.IntCoef(1)}, []string{"inner: dn(u) = 0", "outer: u = 0"}, [2]float64{-0.6, -0.3}, 1},
+		{"lap(u) = -delta(x - 0.7, y - 0.2)", domain.Rect{L: series.IntCoef(1), H: series.FracCoef(1, 2)}, []string{"left: u = 0", "right: dn(u) = 0", "bottom: dn(u) + u = 0", "top: u = 0"}, [2]float64{0.7, 0.2}, -1},
+		{"lap(u) = delta(x - 0.5, y - 0.3)", domain.Polygon{X: []series.Coef{series.IntCoef(0), series.IntCoef(2), series.IntCoef(1)}, Y: []series.Coef{series.IntCoef(0), series.IntCoef(0), series.FracCoef(3, 2)}}, []string{"s1: u = 0", "s2: u = 0", "s3: u = 0"}, [2]float64{0.5, 0.3}, 1},
+	}
+	for _, c := range cases {
+		sol := solvePointProblem(t, c.equation, c.d, nil, c.bcs...)
+		ev, err := sol.Evaluator(domain.CheckTerms)
+		if err != nil {
+			t.Fatal(err)
+		}
+		regular, _, _, ok := ev.AtSource(c.at[0], c.at[1])
+		if !ok {
+			t.Fatalf("%s: no source at %v", c.equation, c.at)
+		}
+		const eps = 1e-4
+		mean := 0.0
+		for _, d := range [][2]float64{{eps, 0}, {-eps, 0}, {0, eps}, {0, -eps}} {
+			u, _, _ := ev.AtXY(c.at[0]+d[0], c.at[1]+d[1])
+			mean += (u - c.q/(2*math.Pi)*math.Log(eps)) / 4
+		}
+		if math.Abs(mean-regular) > 1e-7*math.Max(1, math.Abs(regular)) {
+			t.Errorf("%s on %s: the regular part %.12g, its limit from nearby %.12g", c.equation, c.d.Describe(), regular, mean)
+		}
+	}
+}
