@@ -238,20 +238,33 @@ func harmonicModes(d circular, p *posed, sol *Solution, data map[string]series.S
 	for _, c := range circles {
 		byMode[c.name] = modeTable(data[c.name])
 	}
+	// The operators' matrix depends on n alone: cos nθ and sin nθ share it.
+	type system struct {
+		basis []series.Sum
+		a     [][]series.Coef
+	}
+	systems := map[int]system{}
 	for _, m := range order {
-		basis := d.basis(m.n)
-		a := make([][]series.Coef, len(circles))
+		sys, ok := systems[m.n]
+		if !ok {
+			sys.basis = d.basis(m.n)
+			sys.a = make([][]series.Coef, len(circles))
+			for i, c := range circles {
+				for _, fn := range sys.basis {
+					// The operator on the mode's function, fn·T(nθ): a floating
+					// side's operator differs between mode 0 and the others.
+					v, err := c.apply(p.conds[c.name], fn.Mul(m.trig()))
+					if err != nil {
+						return err
+					}
+					sys.a[i] = append(sys.a[i], coefOf(v, m))
+				}
+			}
+			systems[m.n] = sys
+		}
+		basis, a := sys.basis, sys.a
 		b := make([]series.Coef, len(circles))
 		for i, c := range circles {
-			for _, fn := range basis {
-				// The operator on the mode's function, fn·T(nθ): a floating
-				// side's operator differs between mode 0 and the others.
-				v, err := c.apply(p.conds[c.name], fn.Mul(m.trig()))
-				if err != nil {
-					return err
-				}
-				a[i] = append(a[i], coefOf(v, m))
-			}
 			b[i] = byMode[c.name][m]
 		}
 		x, free, ok := series.SolveLinear(a, b)

@@ -4,6 +4,13 @@ package series
 // elimination. A column with no pivot is a free unknown, set to 0 and
 // listed; ok is false when the system is inconsistent.
 func SolveLinear(a [][]Coef, b []Coef) (x []Coef, free []int, ok bool) {
+	if len(a) == 1 && len(a[0]) == 1 && !a[0][0].IsZero() { // one mode on one circle: b/a
+		if q, isRat := a[0][0].Rat(); isRat && q.Cmp(one) == 0 {
+			return []Coef{b[0]}, nil, true
+		}
+		v, err := b[0].Div(a[0][0])
+		return []Coef{v}, nil, err == nil
+	}
 	n := len(a[0])
 	rows := len(a)
 	m := make([][]Coef, rows)

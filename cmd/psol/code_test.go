@@ -355,6 +355,13 @@ func BenchmarkOffCentreGaussian(b *testing.B) {
 	benchRun(b, args)
 }
 
+// BenchmarkKinkedSource is abs(y - 0.3) on the unit disk (the closed form
+// abs(l)^3/6 and its trace's ~2000 numeric modes), from text to one point.
+func BenchmarkKinkedSource(b *testing.B) {
+	b.ReportAllocs()
+	benchRun(b, []string{"solve", "lap(u) = abs(y - 0.3)", "--disk", "1", "--bc", "u = 0", "--at", "x=0.1,y=0.2"})
+}
+
 // BenchmarkSectorRayLift is a source that does not vanish on the Dirichlet
 // rays of a quarter disk with a convective arc (the quadrature's ray lift),
 // from source text to five evaluated points.

@@ -158,7 +158,9 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	for _, st := range sol.Rules {
 		v.Steps = append(v.Steps, fmt.Sprintf("ansatz %s -> %s (%s)", st.Source.Text(), st.Result.Text(), st.Rule))
 	}
-	v.Steps = append(v.Steps, sol.StepLines()...)
+	if showSteps { // a line per mode: thousands with numeric data
+		v.Steps = append(v.Steps, sol.StepLines()...)
+	}
 	v.Warnings = append(v.Warnings, sol.Notes...)
 	return v
 }
