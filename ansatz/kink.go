@@ -25,6 +25,9 @@ type Kink struct {
 	// and Abs the abs(ℓ) node: the closed form prints as Factor·Abs³.
 	Factor series.Coef
 	Abs    *series.Expr
+	// LA, LB, LD are ℓ's coefficients exactly (the float ones above carry
+	// the parameters' values), for the trace's exact coefficients.
+	LA, LB, LD series.Coef
 }
 
 // Text is the closed form, Factor*abs(ℓ)^3.

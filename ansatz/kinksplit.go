@@ -65,11 +65,11 @@ func kinkOf(e *series.Expr, env series.Env) (Kink, bool) {
 			}
 			switch {
 			case t.I == 0 && t.J == 0:
-				k.D = v
+				k.D, k.LD = v, t.C
 			case t.I == 1 && t.J == 0:
-				k.A, grad2 = v, grad2.Add(t.C.Mul(t.C))
+				k.A, k.LA, grad2 = v, t.C, grad2.Add(t.C.Mul(t.C))
 			case t.I == 0 && t.J == 1:
-				k.B, grad2 = v, grad2.Add(t.C.Mul(t.C))
+				k.B, k.LB, grad2 = v, t.C, grad2.Add(t.C.Mul(t.C))
 			default:
 				return Kink{}, false // not linear
 			}

@@ -2,6 +2,7 @@ package series
 
 import (
 	"math"
+	"math/big"
 	"testing"
 )
 
@@ -39,6 +40,38 @@ func TestIndexTrig(t *testing.T) {
 					t.Errorf("(%d, %d) n = %d, %s: exact %.16g, float %.16g, want %.16g", p[0], p[1], n, v.Text(), ev, fl, want)
 				}
 			}
+		}
+	}
+	// With roots: the angle of (−√2, 3) and of (1/2, −√5/3), and the
+	// angles themselves (Angle) against math.Atan2.
+	sqrt := func(q int64) Coef { c, _ := IntCoef(q).Pow(big.NewRat(1, 2)); return c }
+	for _, p := range [][2]Coef{{sqrt(2).Neg(), IntCoef(3)}, {FracCoef(1, 2), sqrt(5).MulRat(big.NewRat(-1, 3))}, {sqrt(3), IntCoef(1)}} {
+		c, s, ok := IndexTrig(p[0], p[1])
+		x, _ := p[0].Float(nil)
+		y, _ := p[1].Float(nil)
+		phi := math.Atan2(y, x)
+		if !ok {
+			t.Fatalf("(%s, %s): no atoms", p[0].Text(), p[1].Text())
+		}
+		for n := int64(1); n <= 7; n++ {
+			for i, v := range []Coef{c, s} {
+				want := math.Cos(float64(n) * phi)
+				if i == 1 {
+					want = math.Sin(float64(n) * phi)
+				}
+				exact, err := v.Subst(Env{Index: IntCoef(n)})
+				if err != nil {
+					t.Fatal(err)
+				}
+				ev, _ := exact.Float(nil)
+				if math.Abs(ev-want) > 1e-13 {
+					t.Errorf("(%s, %s) n = %d: %.16g, want %.16g", p[0].Text(), p[1].Text(), n, ev, want)
+				}
+			}
+		}
+		a, ok := Angle(p[0], p[1])
+		if v, _ := a.Float(nil); !ok || math.Abs(v-phi) > 1e-15 {
+			t.Errorf("angle of (%s, %s): %s = %v, want %v", p[0].Text(), p[1].Text(), a.Text(), v, phi)
 		}
 	}
 	if _, _, ok := IndexTrig(Coef{}, Coef{}); ok {

@@ -68,8 +68,9 @@ func (l Lang) atom(s Symbol, index string) string {
 		if s.kind == kindSinAtanN {
 			fn = l.Fn["sin"]
 		}
-		t, _ := new(big.Rat).SetString(s.name)
-		return fn + "(" + l.Fn["atan"] + "(" + l.lit(t) + ")*" + index + ")"
+		return fn + "(" + l.Fn["atan"] + "(" + atanBase(s.name).Code(l, index) + ")*" + index + ")"
+	case kindAtan:
+		return l.Fn["atan"] + "(" + atanBase(s.name).Code(l, index) + ")"
 	case kindCosN, kindSinN:
 		q, _ := new(big.Rat).SetString(s.name)
 		fn := l.Fn["cos"]

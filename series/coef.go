@@ -353,6 +353,9 @@ func (s Symbol) float(env Env) (float64, error) {
 			return math.Cos(x), err
 		}
 		return math.Sin(x), err
+	case kindAtan:
+		t, err := atanBase(s.name).Float(nil)
+		return math.Atan(t), err
 	case kindCosAtanN, kindSinAtanN:
 		v, err := env.float(Index)
 		x := atanQ(s.name) * math.Pi * v
@@ -490,8 +493,7 @@ func (p Poly) subst(env Env) (Coef, error) {
 					if !isRat || !k.IsInt() || !k.Num().IsInt64() {
 						return Coef{}, fmt.Errorf("%s needs a whole number", f.sym.key())
 					}
-					t, _ := new(big.Rat).SetString(f.sym.name)
-					cs, sn, err := atanTrigAt(t, k.Num().Int64())
+					cs, sn, err := atanTrigAt(atanBase(f.sym.name), k.Num().Int64())
 					if err != nil {
 						return Coef{}, err
 					}

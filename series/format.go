@@ -364,15 +364,15 @@ func atomPower(s Symbol, e *big.Rat, st style) string {
 		return b + "^(" + e.RatString() + "*n)"
 	case kindCosAtanN, kindSinAtanN:
 		fn := map[symKind]string{kindCosAtanN: "cos", kindSinAtanN: "sin"}[s.kind]
-		t, _ := new(big.Rat).SetString(s.name)
 		if st.latex {
-			arg := t.RatString()
-			if !t.IsInt() {
-				arg = `\frac{` + t.Num().String() + `}{` + t.Denom().String() + `}`
-			}
-			return power(`\`+fn+`\left(n \arctan `+arg+`\right)`, e, st)
+			return power(`\`+fn+`\left(n \arctan `+atanLaTeX(s.name)+`\right)`, e, st)
 		}
 		return power(fn+"(n*atan("+s.name+"))", e, st)
+	case kindAtan:
+		if st.latex {
+			return power(`\arctan `+atanLaTeX(s.name), e, st)
+		}
+		return power("atan("+s.name+")", e, st)
 	case kindCosN, kindSinN:
 		fn := map[symKind]string{kindCosN: "cos", kindSinN: "sin"}[s.kind]
 		q, _ := new(big.Rat).SetString(s.name)
@@ -526,4 +526,17 @@ func factoredSum(p Poly, st style) (string, bool) {
 func (p Poly) inverse() monomial {
 	inv, _ := p.PowRat(big.NewRat(-1, 1))
 	return inv.t[0].m
+}
+
+// atanLaTeX is an angle atom's ratio t as the argument of \arctan: a
+// fraction bare, anything else in parentheses.
+func atanLaTeX(name string) string {
+	t := atanBase(name)
+	if q, ok := t.Rat(); ok && q.Sign() > 0 {
+		if q.IsInt() {
+			return q.RatString()
+		}
+		return `\frac{` + q.Num().String() + `}{` + q.Denom().String() + `}`
+	}
+	return `\left(` + t.LaTeX() + `\right)`
 }

@@ -18,8 +18,9 @@ const (
 	kindCosN                    // cos(qπn) for the index n, q in (0, 1) (name: q)
 	kindSinN                    // sin(qπn)
 	kindPowN                    // ρ^n for a fixed ratio ρ (name: ρ's text; value in powBases)
-	kindCosAtanN                // cos(n·atan t) for the index n, t > 0 rational, t ≠ 1 (name: t)
+	kindCosAtanN                // cos(n·atan t) for the index n, t > 0, t ≠ 1 (name: t's text; value in atanBases)
 	kindSinAtanN                // sin(n·atan t)
+	kindAtan                    // atan t, a constant angle (name: t's text; value in atanBases)
 )
 
 // Symbol is one atom of a coefficient. Atoms are treated as independent
@@ -67,6 +68,8 @@ func (s Symbol) key() string {
 		return "cos(n*atan(" + s.name + "))"
 	case kindSinAtanN:
 		return "sin(n*atan(" + s.name + "))"
+	case kindAtan:
+		return "atan(" + s.name + ")"
 	}
 	return s.name
 }
