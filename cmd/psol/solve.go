@@ -127,8 +127,9 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		}
 		return o.finish(w, &out, files, nil)
 	}
-	v := newView(pr, sol, pts, o.steps || o.format == "json") // JSON always lists the steps
-	var named []string                                        // the --at texts that may name a parameter (plain numbers cannot)
+	// JSON always lists the steps.
+	v := newView(pr, sol, pts, o.steps || o.format == "json")
+	var named []string // the --at texts that may name a parameter (plain numbers cannot)
 	for _, a := range o.at {
 		if _, plain := plainPoint(a); !plain {
 			named = append(named, a)
