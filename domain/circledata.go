@@ -128,7 +128,10 @@ func seriesData(d circular, c circle, cond Condition, data series.Field, fc seri
 		// Piecewise-constant values: the series sums to arctangents, one per jump.
 		sol.ClosedForm, sol.ClosedFormLaTeX = jumpClosedForm(jumps, c.radius, inverse)
 	}
-	if cond.Kind == Dirichlet {
+	if cond.Kind == Dirichlet && data.IsPiecewise() {
+		// Near the rim, pieces' slowly converging series go by the Poisson
+		// integral of the data; data given by their coefficients (a
+		// kink's trace, falling like n⁻⁴) sum well as they are.
 		ss.Jumps = jumps
 		sol.stages = append(sol.stages, &rimData{data: data, trace: tr, radius: c.radius, inverse: inverse})
 	}

@@ -11,8 +11,11 @@ import (
 
 // quadratureParticular adds to each circle's trace that of the numeric
 // particular solution of the source's remaining part (ansatz.Quadrature),
-// mode by mode under the circle's operator.
-func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string]series.Sum) error {
+// mode by mode under the circle's operator. Where that part is kinks alone,
+// c·abs(ℓ) with rational ℓ, their traces are exact (Kink.CircleTrace): they
+// go into the data (traced) as series with a general term, and the solve
+// stays exact.
+func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string]series.Sum, traced map[string]series.Field) error {
 	in, out := d.bounds()
 	var err error
 	a := 0.0
@@ -32,6 +35,16 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		return err
 	}
 	sol.Quadrature, sol.Rest, sol.Numeric = q, p.rest, true
+	if exact, ok := exactKinkTraces(d, p, q, traced); ok {
+		sol.Numeric = false
+		sol.KinkTraces = map[string]series.Field{}
+		for name, fc := range exact {
+			sol.KinkTraces[name] = series.FourierFieldSum(fc, kinksOperator(q, d, p, name))
+			traced[name] = traced[name].Add(sol.KinkTraces[name].Neg())
+		}
+		sol.Notes = append(sol.Notes, "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable); its trace on each circle is given by exact Fourier coefficients, whose general term carries the angles where the line crosses the circle")
+		return nil
+	}
 	for _, c := range d.circles() {
 		r, err := c.radius.Float(p.env)
 		if err != nil {
@@ -72,6 +85,77 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 	}
 	sol.Notes = append(sol.Notes, quadratureNote(q, p.rest, "", fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", q.Samples, q.Modes)))
 	return nil
+}
+
+// exactKinkTraces are B[Σ kinks] on each circle as exact Fourier
+// coefficients, where the source's remainder is kinks alone with rational
+// forms and radii and the data have exact coefficients too (numeric data
+// go by the FFT, and the kinks' modes with them); ok is false otherwise.
+func exactKinkTraces(d circular, p *posed, q *ansatz.Quadrature, traced map[string]series.Field) (map[string]series.FourierCoefficients, bool) {
+	if q.Left != nil || len(q.Kinks) == 0 || p.numeric {
+		return nil, false
+	}
+	out := map[string]series.FourierCoefficients{}
+	for _, c := range d.circles() {
+		cond := p.conds[c.name]
+		if _, exactData := traced[c.name].FourierOn(c.radius); cond.Kind == Floating || !exactData {
+			return nil, false
+		}
+		total := series.FourierCoefficients{Special: map[int][2]series.Coef{}}
+		for _, k := range q.Kinks {
+			value, ok1 := k.CircleTrace(c.radius, false)
+			slope, ok2 := k.CircleTrace(c.radius, true)
+			if !ok1 || !ok2 {
+				return nil, false
+			}
+			b := value // the side's operator: u, ∂u/∂n = ±∂u/∂r, or ∂u/∂n + h·u
+			if cond.Kind != Dirichlet {
+				b = slope.Scale(series.IntCoef(c.outward))
+				if cond.Kind == Robin {
+					sum, err := b.Add(value.Scale(cond.H))
+					if err != nil {
+						return nil, false
+					}
+					b = sum
+				}
+			}
+			sum, err := total.Add(b)
+			if err != nil {
+				return nil, false
+			}
+			total = sum
+		}
+		out[c.name] = total
+	}
+	return out, true
+}
+
+// kinksOperator is the side's operator on the kinks' closed forms at
+// (r, θ), the sum of their trace's series there.
+func kinksOperator(q *ansatz.Quadrature, d circular, p *posed, side string) func(r, theta float64) float64 {
+	var c circle
+	for _, cc := range d.circles() {
+		if cc.name == side {
+			c = cc
+		}
+	}
+	cond := p.conds[side]
+	h, _ := cond.H.Float(p.env)
+	return func(r, theta float64) float64 {
+		v, slope := 0.0, 0.0
+		for _, k := range q.Kinks {
+			v += k.Value(r, theta)
+			vr, _ := k.Gradient(r, theta)
+			slope += vr
+		}
+		switch cond.Kind {
+		case Neumann:
+			return float64(c.outward) * slope
+		case Robin:
+			return float64(c.outward)*slope + h*v
+		}
+		return v
+	}
 }
 
 // kinkedQuadrature is the quadrature of the source's remainder with its

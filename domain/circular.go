@@ -111,8 +111,12 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 		}
 		traced[c.name], traces[c.name] = gf, tr
 	}
+	given := map[string]series.Field{} // the data as given, for printing (the kinks' exact traces may join them)
+	for k, v := range traced {
+		given[k] = v
+	}
 	if p.rest != nil {
-		if err := quadratureParticular(d, p, sol, traces); err != nil {
+		if err := quadratureParticular(d, p, sol, traces, traced); err != nil {
 			return nil, err
 		}
 	}
@@ -131,7 +135,7 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 		}
 		corr := g.Sub(tr)
 		side := Side{Condition: cond, At: c.radius.Text() + ", theta", AtLaTeX: "r=" + c.radius.LaTeX(), Data: g, Trace: tr, Correction: corr,
-			DataText: gf.Text(), DataLaTeX: gf.LaTeX()}
+			DataText: given[c.name].Text(), DataLaTeX: given[c.name].LaTeX()}
 		sol.Sides = append(sol.Sides, side)
 		data[c.name] = corr
 	}
@@ -169,6 +173,10 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 		qc, err := checkedQuadrature(d, sol, p)
 		if err != nil {
 			return nil, err
+		}
+		if !sol.Numeric { // kinks alone: closed forms, checked by differences too
+			sol.Checks[0].Name = "lap(u_p) - f (the terms with a rule)"
+			qc.Name = "lap(c*abs(l)^3/(6*|grad l|^2)) - c*abs(l) (sampled, by differences)"
 		}
 		sol.Checks = append(sol.Checks, qc)
 		numericResiduals(d, sol, p.env)
@@ -374,7 +382,11 @@ func singular(d circular, p *posed, sol *Solution, m mode) error {
 		for _, s := range sol.Sides {
 			for _, c := range d.circles() {
 				if c.name == s.Condition.Side {
-					flux = flux.Add(coefOf(s.Data, m).Mul(c.radius).Mul(series.SymCoef(series.Pi)).MulRat(big.NewRat(2, 1)))
+					mean := coefOf(s.Data, m)
+					if kt, ok := sol.KinkTraces[c.name].FourierOn(c.radius); ok && sol.KinkTraces != nil {
+						mean = mean.Add(kt.A0) // the data as given: the kinks' trace was taken out of them
+					}
+					flux = flux.Add(mean.Mul(c.radius).Mul(series.SymCoef(series.Pi)).MulRat(big.NewRat(2, 1)))
 				}
 			}
 		}

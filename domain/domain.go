@@ -162,6 +162,10 @@ type Solution struct {
 	// Quadrature is the particular solution of the source's part with no
 	// closed form, and Rest that part.
 	Quadrature *ansatz.Quadrature
+	// KinkTraces are, by side, the kinks' share of B[u_p] given exactly
+	// (their particular solution is the quadrature's closed part): in the
+	// data, and printed with the trace.
+	KinkTraces map[string]series.Field
 	Rest       *series.Expr
 	// seriesResidual is, per side, the exact residual of the general term's condition.
 	seriesResidual map[string]series.Coef

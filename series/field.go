@@ -37,7 +37,8 @@ type Expr struct {
 	pieces []Piece
 	cmp    []string // "choose": the comparisons between args[2:], a chain a < b < c
 	fn     *namedFunc
-	four   *FourierCoefficients // "fourier": data on a circle by their exact coefficients
+	four   *FourierCoefficients           // "fourier": data on a circle by their exact coefficients
+	sumAt  func(r, theta float64) float64 // "fourier": the series' sum in closed form, where known
 }
 
 // namedFunc is a function of (r, θ) computed in Go, printed by its name: a
@@ -690,6 +691,9 @@ func compileExpr(e *Expr, env Env) (evalFunc, error) {
 		at := e.fn.at
 		return func(r, theta, _ float64) float64 { return at(r, theta) }, nil
 	case "fourier":
+		if at := e.sumAt; at != nil {
+			return func(r, theta, _ float64) float64 { return at(r, theta) }, nil
+		}
 		return compileFourier(*e.four, env)
 	case "pieces":
 		p, err := Field{Pieces: e.pieces}.compilePieces(env)

@@ -182,7 +182,10 @@ func printTerm(t Term, st style) (neg bool, body string) {
 	} else if len(vars) == 0 {
 		return neg, printCoef(c, st)
 	} else if st.latex {
-		coef = `\frac{` + printPoly(c.num, st) + "}{" + factoredPoly(c.den, st) + "}"
+		coef = fracLaTeX(c, st)
+		if len(c.num.t) >= longNumerator {
+			coef = `\left(` + coef + `\right)`
+		}
 	} else {
 		coef = printQuotient(c, st)
 	}
@@ -418,9 +421,38 @@ func printCoef(c Coef, st style) string {
 	case c.den.IsZero():
 		return printPoly(c.num, st)
 	case st.latex:
-		return `\frac{` + printPoly(c.num, st) + "}{" + factoredPoly(c.den, st) + "}"
+		return fracLaTeX(c, st)
 	}
 	return printQuotient(c, st)
+}
+
+// longNumerator is the count of numerator terms from which a LaTeX quotient
+// prints as a sum of fractions over the one denominator: a displayed line
+// can break between them, not inside one \frac (a kink's general term has
+// a numerator a page wide).
+const longNumerator = 3
+
+// fracLaTeX is num/den as \frac{num}{den}, or as Σ ±\frac{t}{den} for a
+// long numerator.
+func fracLaTeX(c Coef, st style) string {
+	den := factoredPoly(c.den, st)
+	if len(c.num.t) < longNumerator {
+		return `\frac{` + printPoly(c.num, st) + "}{" + den + "}"
+	}
+	var b strings.Builder
+	for i, t := range c.num.t {
+		neg, body := printMonomialTerm(t, nil, st)
+		switch {
+		case i == 0 && neg:
+			b.WriteString("-")
+		case neg:
+			b.WriteString(" - ")
+		case i > 0:
+			b.WriteString(" + ")
+		}
+		b.WriteString(`\frac{` + body + "}{" + den + "}")
+	}
+	return b.String()
 }
 
 // printQuotient is num/den in text: the numerator's rational content and

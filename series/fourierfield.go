@@ -14,6 +14,13 @@ func FourierField(fc FourierCoefficients) Field {
 	return opaque(&Expr{op: "fourier", four: &fc})
 }
 
+// FourierFieldSum is FourierField whose sum is known in closed form, at:
+// float64 evaluation uses it (a series whose coefficients fall like n⁻⁴
+// would take 10⁵ terms a point to sum to rounding).
+func FourierFieldSum(fc FourierCoefficients, at func(r, theta float64) float64) Field {
+	return opaque(&Expr{op: "fourier", four: &fc, sumAt: at})
+}
+
 // Add is fc + gc, term by term.
 func (fc FourierCoefficients) Add(gc FourierCoefficients) (FourierCoefficients, error) {
 	out := FourierCoefficients{A0: fc.A0.Add(gc.A0), A: fc.A.Add(gc.A), B: fc.B.Add(gc.B), Special: map[int][2]Coef{}}

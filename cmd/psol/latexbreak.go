@@ -223,8 +223,10 @@ func groupWidth(s string, i int) (float64, int) {
 // openGroup breaks a term wider than a line inside its first top-level
 // \left( … \right) group: the pair becomes \biggl( … \biggr), fixed-size
 // delimiters that may stand on different lines, and the group's inside is
-// cut before its top-level + and − signs. A term with no such group, or
-// whose group has no sign to cut at, comes back whole.
+// cut before its top-level + and − signs; an inside with no sign to cut at
+// is opened the same way, one group deeper (a series' general term: a
+// coefficient's sum within the term's parentheses). A term with no such
+// group, or none with a sign to cut at, comes back whole.
 func openGroup(s string) []string {
 	open := strings.Index(s, `\left(`)
 	if open < 0 || !topLevelAt(s, open) {
@@ -243,6 +245,9 @@ func openGroup(s string) []string {
 					return []string{s}
 				}
 				inner := topLevelSplit(s[open+6:i], signsBefore)
+				if len(inner) < 2 {
+					inner = openGroup(s[open+6 : i])
+				}
 				if len(inner) < 2 {
 					return []string{s}
 				}

@@ -93,8 +93,12 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	var tr, trTeX, co, coTeX []string
 	for _, s := range sol.Sides {
 		prefix := sidePrefix(sol, s)
-		tr = append(tr, prefix+traceText(s)+" = "+s.Trace.Text())
-		trTeX = append(trTeX, s.Trace.LaTeX())
+		trace, traceTeX := s.Trace.Text(), s.Trace.LaTeX()
+		if kink, kinkTeX := kinkTrace(sol, s); kink != "" {
+			trace, traceTeX = joinNonzero(trace, kink), joinNonzero(traceTeX, kinkTeX)
+		}
+		tr = append(tr, prefix+traceText(s)+" = "+trace)
+		trTeX = append(trTeX, traceTeX)
 		co = append(co, prefix+series.JoinText(s.Data, s.Trace.Neg()))
 		coTeX = append(coTeX, series.JoinLaTeX(s.Data, s.Trace.Neg()))
 	}
@@ -604,6 +608,11 @@ func (v *view) seriesStages(sol *domain.Solution, ps *domain.SeriesParts) {
 	// u without the point sources' field, which pointStages adds.
 	w := sol.Particular.Add(sol.Harmonic)
 	v.Solution = exactStage("solution", "u = "+join(w, ps.U, false), join(w, ps.U, true), "u")
+	if sol.Quadrature != nil && !sol.Numeric { // kinks alone: their closed forms, exact traces
+		q, qTeX := quadratureText(sol)
+		v.Particular.Text, v.Particular.LaTeX = "u_p = "+joinNonzero(join(up, upSer, false), q), joinNonzero(join(up, upSer, true), qTeX)
+		v.Solution.Text, v.Solution.LaTeX = "u = "+joinNonzero(join(w, ps.U, false), q), joinNonzero(join(w, ps.U, true), qTeX)
+	}
 	v.checkScope = "; the series term by term, for every n"
 }
 
@@ -671,6 +680,17 @@ func (v *view) approximate(sol *domain.Solution) {
 		solText, solTeX = solText+" + "+q, solTeX+` + `+qTeX
 	}
 	mark(&v.Solution, "u ≈ "+solText, solTeX)
+}
+
+// kinkTrace is the kinks' exact trace on a side, as a bare sum of series
+// (no outer parentheses, so that LaTeX lines break inside it); "" if none.
+func kinkTrace(sol *domain.Solution, s domain.Side) (text, latex string) {
+	f, ok := sol.KinkTraces[s.Condition.Side]
+	if !ok {
+		return "", ""
+	}
+	fc, _ := f.FourierOn(series.IntCoef(1)) // the kinks' traces depend on theta alone
+	return fc.Text(), fc.LaTeX()
 }
 
 // quadratureText is the particular solution of the source's part with no
