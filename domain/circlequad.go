@@ -54,7 +54,14 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		cond := p.conds[c.name]
 		if len(q.Kinks) > 0 {
 			var tail float64
-			pm, dpm, tail = addModes(pm, dpm, q, r, cond.Kind == Neumann || cond.Kind == Robin || cond.Kind == Floating)
+			// Between two circles the modes grow like (R2/R1)^n in the exact
+			// algebra's r^n, r^−n form: as many as circleData's numeric data
+			// take there, the rest in the tail.
+			most := 8192
+			if len(d.circles()) > 1 {
+				most = 256
+			}
+			pm, dpm, tail = addModes(pm, dpm, q, r, cond.Kind == Neumann || cond.Kind == Robin || cond.Kind == Floating, most)
 			sol.DataError += tail
 		}
 		qerr := q.TraceError(r, cond.Kind == Neumann || cond.Kind == Robin || cond.Kind == Floating)
@@ -202,8 +209,7 @@ func quadratureNote(q *ansatz.Quadrature, rest *series.Expr, where, how string) 
 //
 // The tail returned is what the modes left out add up to, the bound on
 // their share of the data.
-func addModes(pm, dpm [][2]float64, q *ansatz.Quadrature, r float64, slope bool) (p, dp [][2]float64, tail float64) {
-	const most = 8192
+func addModes(pm, dpm [][2]float64, q *ansatz.Quadrature, r float64, slope bool, most int) (p, dp [][2]float64, tail float64) {
 	kp, kdp := q.KinkModes(r, most)
 	use := kp // the data the side's condition reads: values, or with a flux the slopes
 	if slope {

@@ -617,3 +617,24 @@ func TestKinkedSourceAnnulus(t *testing.T) {
 		}
 	}
 }
+
+// A kinked source with numeric data between two circles (the trace's modes
+// by FFT, as many as the two circles' powers keep representable; NaN
+// before, when all of the kink's ~2000 modes went in) against two exact
+// or separate paths by linearity: the kink with zero data (its exact trace)
+// plus the data with no source. The estimate bounds the difference.
+func TestKinkedSourceAnnulusNumericData(t *testing.T) {
+	ann := domain.Annulus{R1: series.FracCoef(1, 4), R2: series.IntCoef(1)}
+	opt := domain.Options{Tol: 1e-12}
+	both := evaluator(t, solveWith(t, "lap(u) = abs(x + y/3 - 0.1)", ann, opt, "inner: dn(u) = 0", "outer: u = exp(x)"), 1e-14)
+	kink := evaluator(t, solveWith(t, "lap(u) = abs(x + y/3 - 0.1)", ann, opt, "inner: dn(u) = 0", "outer: u = 0"), 1e-14)
+	data := evaluator(t, solveWith(t, "lap(u) = 0", ann, opt, "inner: dn(u) = 0", "outer: u = exp(x)"), 1e-14)
+	for _, p := range [][2]float64{{0.1, 0.5}, {0.99, 0}, {0, -0.995}, {0.26, 0}, {-0.5, 0.2}} {
+		got, est, _ := both.AtXY(p[0], p[1])
+		a, _, _ := kink.AtXY(p[0], p[1])
+		b, _, _ := data.AtXY(p[0], p[1])
+		if err := math.Abs(got - (a + b)); math.IsNaN(got) || err > est || err > 1e-9 {
+			t.Errorf("u(%g, %g) = %.14f, the parts' sum %.14f (estimate %.2g)", p[0], p[1], got, a+b, est)
+		}
+	}
+}
