@@ -3,7 +3,6 @@ package series
 import (
 	"math"
 	"math/big"
-	"sync"
 )
 
 // Angles that are no rational multiple of π. A point source at (X, Y) sits at
@@ -23,20 +22,12 @@ import (
 //
 // with C = cos(n·atan t), S = sin(n·atan t).
 
-// atanBases remembers the ratio t behind each angle atom, by its text.
-var atanBases sync.Map // string → Coef
+// atanBases remembers the ratio t behind each angle atom.
+var atanBases registry
 
-func atanAtom(kind symKind, t Coef) Coef {
-	name := t.Text()
-	atanBases.LoadOrStore(name, t)
-	return SymCoef(Symbol{kind, name})
-}
+func atanAtom(kind symKind, t Coef) Coef { return SymCoef(Symbol{kind, atanBases.name(t)}) }
 
-func atanBase(name string) Coef {
-	v, _ := atanBases.Load(name)
-	c, _ := v.(Coef)
-	return c
-}
+func atanBase(name string) Coef { return atanBases.coef(name) }
 
 // quadrant reads the signs of x and y and the ratio t = |y/x| for an angle
 // atan2(y, x) of constants (roots allowed); ok is false for parameters or

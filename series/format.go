@@ -200,6 +200,12 @@ func paren(s string, st style) string {
 }
 
 func printPoly(p Poly, st style) string {
+	return signedTerms(p, st, func(body string) string { return body })
+}
+
+// signedTerms prints p's terms with their signs between them, each term's
+// body through form.
+func signedTerms(p Poly, st style, form func(body string) string) string {
 	var b strings.Builder
 	for i, t := range p.t {
 		neg, body := printMonomialTerm(t, nil, st)
@@ -211,7 +217,7 @@ func printPoly(p Poly, st style) string {
 		case i > 0:
 			b.WriteString(" + ")
 		}
-		b.WriteString(body)
+		b.WriteString(form(body))
 	}
 	return b.String()
 }
@@ -439,20 +445,7 @@ func fracLaTeX(c Coef, st style) string {
 	if len(c.num.t) < longNumerator {
 		return `\frac{` + printPoly(c.num, st) + "}{" + den + "}"
 	}
-	var b strings.Builder
-	for i, t := range c.num.t {
-		neg, body := printMonomialTerm(t, nil, st)
-		switch {
-		case i == 0 && neg:
-			b.WriteString("-")
-		case neg:
-			b.WriteString(" - ")
-		case i > 0:
-			b.WriteString(" + ")
-		}
-		b.WriteString(`\frac{` + body + "}{" + den + "}")
-	}
-	return b.String()
+	return signedTerms(c.num, st, func(body string) string { return `\frac{` + body + "}{" + den + "}" })
 }
 
 // printQuotient is num/den in text: the numerator's rational content and
