@@ -39,7 +39,10 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		sol.Numeric = false
 		sol.KinkTraces = map[string]series.Field{}
 		for name, fc := range exact {
-			sol.KinkTraces[name] = series.FourierFieldSum(fc, kinksOperator(q, d, p, name))
+			sol.KinkTraces[name] = series.FourierField(fc)
+			if at := kinksOperator(q, d, p, name); at != nil {
+				sol.KinkTraces[name] = series.FourierFieldSum(fc, at)
+			}
 			traced[name] = traced[name].Add(sol.KinkTraces[name].Neg())
 		}
 		sol.Notes = append(sol.Notes, "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable); its trace on each circle is given by exact Fourier coefficients, whose general term carries the angles where the line crosses the circle")
@@ -138,7 +141,8 @@ func exactKinkTraces(d circular, p *posed, q *ansatz.Quadrature, traced map[stri
 }
 
 // kinksOperator is the side's operator on the kinks' closed forms at
-// (r, θ), the sum of their trace's series there.
+// (r, θ), the sum of their trace's series there; nil where the Robin
+// coefficient has no value.
 func kinksOperator(q *ansatz.Quadrature, d circular, p *posed, side string) func(r, theta float64) float64 {
 	var c circle
 	for _, cc := range d.circles() {
@@ -147,7 +151,10 @@ func kinksOperator(q *ansatz.Quadrature, d circular, p *posed, side string) func
 		}
 	}
 	cond := p.conds[side]
-	h, _ := cond.H.Float(p.env)
+	h, err := cond.H.Float(p.env)
+	if err != nil {
+		return nil
+	}
 	return func(r, theta float64) float64 {
 		v, slope := 0.0, 0.0
 		for _, k := range q.Kinks {
@@ -155,13 +162,7 @@ func kinksOperator(q *ansatz.Quadrature, d circular, p *posed, side string) func
 			vr, _ := k.Gradient(r, theta)
 			slope += vr
 		}
-		switch cond.Kind {
-		case Neumann:
-			return float64(c.outward) * slope
-		case Robin:
-			return float64(c.outward)*slope + h*v
-		}
-		return v
+		return operatorValue(cond.Kind, h, v, float64(c.outward)*slope)
 	}
 }
 

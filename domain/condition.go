@@ -30,3 +30,15 @@ type Condition struct {
 	G    series.Field
 	Text string // as the user wrote it
 }
+
+// operatorValue is a condition's operator in numbers: u, ∂u/∂n or
+// ∂u/∂n + h·u from the value v and the outward normal derivative dn.
+func operatorValue(kind Kind, h, v, dn float64) float64 {
+	switch kind {
+	case Neumann:
+		return dn
+	case Robin:
+		return dn + h*v
+	}
+	return v
+}

@@ -498,11 +498,7 @@ func numericTraces(d Domain, conds map[string]Condition, pp *PointPart, env seri
 			}
 			_, _, nx, ny := side.At(nearestT(side, x, y))
 			gx, gy := pe.grad(x, y)
-			dn := gx*nx + gy*ny
-			if kind == Robin {
-				return dn + h*v
-			}
-			return dn
+			return operatorValue(kind, h, v, gx*nx+gy*ny)
 		}
 		text := OperatorText(cond, "u_s")
 		pp.Traces[side.Name] = series.FuncField(text, operatorLaTeX(cond, "u_s"), at)
