@@ -18,11 +18,11 @@ type Lang struct {
 
 // Langs are the languages psol writes code in.
 var Langs = map[string]Lang{
-	"go": {Name: "go", Fn: map[string]string{"cos": "math.Cos", "sin": "math.Sin", "log": "math.Log", "pow": "math.Pow", "sqrt": "math.Sqrt", "exp": "math.Exp", "atan": "math.Atan"},
+	"go": {Name: "go", Fn: map[string]string{"cos": "math.Cos", "sin": "math.Sin", "log": "math.Log", "pow": "math.Pow", "sqrt": "math.Sqrt", "exp": "math.Exp", "atan": "math.Atan", "abs": "math.Abs"},
 		Pi: "math.Pi", Float: func(s string) string { return s }},
-	"c": {Name: "c", Fn: map[string]string{"cos": "cos", "sin": "sin", "log": "log", "pow": "pow", "sqrt": "sqrt", "exp": "exp", "atan": "atan"},
+	"c": {Name: "c", Fn: map[string]string{"cos": "cos", "sin": "sin", "log": "log", "pow": "pow", "sqrt": "sqrt", "exp": "exp", "atan": "atan", "abs": "fabs"},
 		Pi: "3.141592653589793", Float: func(s string) string { return s }}, // M_PI is not in C99
-	"python": {Name: "python", Fn: map[string]string{"cos": "math.cos", "sin": "math.sin", "log": "math.log", "pow": "math.pow", "sqrt": "math.sqrt", "exp": "math.exp", "atan": "math.atan"},
+	"python": {Name: "python", Fn: map[string]string{"cos": "math.cos", "sin": "math.sin", "log": "math.log", "pow": "math.pow", "sqrt": "math.sqrt", "exp": "math.exp", "atan": "math.atan", "abs": "abs"},
 		Pi: "math.pi", Float: func(s string) string { return s }},
 }
 

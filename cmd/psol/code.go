@@ -28,8 +28,15 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 	if sol.Section != nil { // the fitted harmonic part, from its tables
 		return writeSectionCode(w, l, pr, sol)
 	}
+	var kinks []string
 	if sol.Quadrature != nil { // the numeric particular part has no formula to write
-		return &domain.Unsupported{Reason: "generated code for a source part by quadrature is not written yet"}
+		if sol.Numeric || len(sol.Quadrature.Kinks) == 0 {
+			return &domain.Unsupported{Reason: "generated code for a source part by quadrature is not written yet"}
+		}
+		var err error
+		if kinks, err = kinkCode(l, sol); err != nil {
+			return err
+		}
 	}
 	closed := sol.U
 	var parts []series.Series
@@ -77,12 +84,28 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 		params = append(params, p)
 	}
 	sort.Strings(params)
-	g := codeGen{l: l, vars: []string{"r", "theta"}, params: params, closed: closed.Code(l), parts: parts, terms: terms, extra: logs}
+	g := codeGen{l: l, vars: []string{"r", "theta"}, params: params, closed: closed.Code(l), parts: parts, terms: terms, extra: append(logs, kinks...)}
 	fmt.Fprintf(w, "%s psol %s: %s\n", g.comment(), version, sol.Formula(false))
 	if len(parts) > 0 {
 		fmt.Fprintf(w, "%s The series are summed to n = %d.\n", g.comment(), terms)
 	}
 	return g.write(w)
+}
+
+// kinkCode is each kink's closed form, Factor*|A*x + B*y + D|^3, as a term
+// in r and theta (kinks alone are closed: their forms are rational).
+func kinkCode(l series.Lang, sol *domain.Solution) ([]string, error) {
+	var out []string
+	for _, k := range sol.Quadrature.Kinks {
+		if k.LA.IsZero() && k.LB.IsZero() {
+			return nil, &domain.Unsupported{Reason: "a kink with no linear form has no code"}
+		}
+		code := func(c series.Coef) string { return c.Code(l, series.Index) }
+		form := "(" + code(k.LA) + "*r*" + l.Fn["cos"] + "(theta) + " + code(k.LB) + "*r*" + l.Fn["sin"] + "(theta) + " + code(k.LD) + ")"
+		a := l.Fn["abs"] + form
+		out = append(out, code(k.Factor)+"*"+a+"*"+a+"*"+a)
+	}
+	return out, nil
 }
 
 // pointCode is each logarithm of u_s, C*log(S*((x - X)^2 + (y - Y)^2)),

@@ -47,6 +47,10 @@ var codeCases = []struct {
 	// the circles (cos(n*atan t), sin(n*atan t) and ρ^n in the terms).
 	{[]string{"solve", "lap(u) = delta(x + 0.3, y - 0.2) - 1", "--disk", "1", "--bc", "dn(u) + 2u = 0"}, "", false},
 	{[]string{"solve", "lap(u) = 2*delta(x - 0.5, y + 0.4)", "--annulus", "0.1,1", "--bc", "inner: u = 0", "--bc", "outer: dn(u) + u = 1"}, "", false},
+	// Kinks: the closed form |l|^3 and the trace's general term in the
+	// crossing angle's atoms (atan of a square root).
+	{[]string{"solve", "lap(u) = abs(y - 0.3) - 1", "--disk", "1", "--bc", "dn(u) + 2u = 0"}, "", false},
+	{[]string{"solve", "lap(u) = 2*abs(x - 2*y + 0.5)", "--annulus", "0.1,1", "--bc", "inner: dn(u) = 0", "--bc", "outer: u = 0"}, "", false},
 }
 
 var codePoints = [][2]float64{{0.3, 0.4}, {0.6, 0.1}, {0.2, 0.45}} // inside every case (as r, theta or as x, y)
