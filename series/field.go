@@ -505,13 +505,6 @@ func wrapLaTeX(e *Expr) string {
 	return e.LaTeX()
 }
 
-func wrap(e *Expr) string {
-	if e.op == "+" {
-		return "(" + e.Text() + ")"
-	}
-	return e.Text()
-}
-
 // operand prints e as an operand of *, / or ^, in parentheses where it
 // would not bind as one: a sum always (a single term's compound coefficient
 // too, such as n − 2), a leading sign except on the left, and a product or

@@ -66,8 +66,10 @@ func (v *view) pointStages(sol *domain.Solution) {
 	}
 	how := "sampled on each side into the correction (numeric)"
 	switch {
-	case pp.Images != "":
+	case pp.Images != "" && pp.ExactTraces():
 		how = "closed by the " + pp.Images + " (exact)"
+	case pp.Images != "": // a row of images closes its two walls only
+		how = "closed on the walls by the " + pp.Images + " (exact), and sampled on the other sides into the correction (numeric)"
 	case pp.Expansion != "":
 		how = "given on each circle by " + pp.Expansion + ", ln|R e^(i theta) - rho e^(i phi)| = ln R - sum(n=1..inf, (rho/R)^n cos(n (theta - phi))/n) for rho < R (R and rho exchanged for rho > R)"
 	}
