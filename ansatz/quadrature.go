@@ -5,6 +5,7 @@ import (
 	"math"
 	"psol/series"
 	"sort"
+	"sync"
 
 	"gonum.org/v1/gonum/dsp/fourier"
 )
@@ -20,9 +21,13 @@ import (
 //	p_k(r) = −(1/2ν)[∫_A^r s (s/r)^ν g_k ds + ∫_r^R s (r/s)^ν g_k ds],
 //
 // which solves p” + p'/r − ν²p/r² = g_k. The integrals run on one mesh of
-// 16-point Gauss–Legendre panels shared by every point: graded towards the
-// centre of a disk, geometric out to infinity, and bisected until each
-// panel's Legendre tail of every g_k is below Tol. The kernels separate on
+// 16-point Gauss–Legendre panels shared by every point: halvings down to
+// R/64 towards the centre of a disk (where mode 0's kernel s ln s takes a
+// product rule, centreLogWeights), geometric out to infinity, and bisected
+// until each panel's Legendre tail of every g_k is below Tol. Each panel
+// takes the fewest angular samples that resolve all its rings, starting
+// from the probes' count scaled by its outer radius: a smooth source's
+// rings near the centre need few. The kernels separate on
 // whole panels, so a point costs its own panel only, where g_k comes from the
 // panel's nodes by barycentric interpolation. A second mesh with every panel
 // halved gives the values; their difference from the first is the estimate.
@@ -64,6 +69,9 @@ type Quadrature struct {
 	sourceSize   float64   // the largest |g| sampled (SourceSize)
 	peakRadii    []float64 // where |g| peaks (peaks), found once by Prepare
 	buf          []float64
+	scale        float64   // the probes' largest mode, weighted by its share of p
+	used         int       // the most angular samples a panel took
+	capped       bool      // a panel reached the cap with its top band above Tol
 	recent       []*modeAt // the latest Modes, newest last: a stencil or a ring revisits a few radii
 }
 
@@ -154,9 +162,9 @@ func (q *Quadrature) omega() float64 { return 2 * math.Pi / q.period() }
 
 func (q *Quadrature) nu(k int) float64 { return float64(k) * q.omega() }
 
-// ring is the Fourier coefficients of g on the circle of radius s: a[k] cos, b[k] sin.
-func (q *Quadrature) ring(s float64) (a, b []float64) {
-	n := q.Samples
+// ring is the Fourier coefficients of g on the circle of radius s from n
+// samples: a[k] cos, b[k] sin, k < n/2.
+func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
 	if q.ffts == nil {
 		q.ffts = map[int]*fourier.FFT{}
 	}
@@ -198,8 +206,52 @@ func (q *Quadrature) ring(s float64) (a, b []float64) {
 	return a, b
 }
 
-// newPanel samples g at the panel's nodes.
+// newPanel samples g at the panel's nodes with the fewest angular samples
+// that resolve every node's ring (sampledPanel).
 func (q *Quadrature) newPanel(lo, hi float64, infinite bool) panel {
+	n := q.Samples
+	if !infinite && !math.IsInf(q.R, 1) {
+		// A ring's bandwidth grows with its radius (a smooth source's mode k
+		// falls like (s/ρ)^k): start from the probes' count scaled to hi.
+		for n > 16 && float64(n/2) >= float64(q.Samples)*hi/q.R {
+			n /= 2
+		}
+	}
+	for {
+		p := q.sampledPanel(lo, hi, infinite, n)
+		done := q.resolved(p)
+		if done || n >= q.maxSamples() {
+			q.used, q.capped = max(q.used, n), q.capped || !done
+			for i := range p.a { // every mode above rounding's reach
+				for k := q.Modes + 1; k < len(p.a[i]); k++ {
+					if math.Hypot(p.a[i][k], p.b[i][k])*q.weight(k) > 1e-16*q.scale {
+						q.Modes = k
+					}
+				}
+			}
+			return p
+		}
+		n *= 2
+	}
+}
+
+// resolved reports every ring of the panel with its top band (modes from a
+// quarter of the samples up), weighted by its share of p, below Tol of the
+// probes' scale.
+func (q *Quadrature) resolved(p panel) bool {
+	for i := range p.a {
+		a, b := p.a[i], p.b[i]
+		for k := len(a) / 2; k < len(a); k++ {
+			if math.Hypot(a[k], b[k])*q.weight(k) > q.Tol*q.scale {
+				return false
+			}
+		}
+	}
+	return true
+}
+
+// sampledPanel samples g at the panel's nodes on rings of n samples.
+func (q *Quadrature) sampledPanel(lo, hi float64, infinite bool, n int) panel {
 	p := panel{lo: lo, hi: hi, infinite: infinite, s: make([]float64, glN), w: make([]float64, glN)}
 	p.a, p.b = make([][]float64, glN), make([][]float64, glN)
 	for i, x := range glX {
@@ -209,7 +261,7 @@ func (q *Quadrature) newPanel(lo, hi float64, infinite bool) panel {
 		} else {
 			p.s[i], p.w[i] = (lo+hi)/2+(hi-lo)/2*x, (hi-lo)/2*glW[i]
 		}
-		p.a[i], p.b[i] = q.ring(p.s[i])
+		p.a[i], p.b[i] = q.ring(p.s[i], n)
 	}
 	return p
 }
@@ -237,7 +289,38 @@ func (q *Quadrature) sums(p *panel) {
 		}
 	}
 	p.above[0] = p.below[0]
+	if p.lo == 0 { // s ln s is not smooth at the centre: its product rule
+		p.log0 = 0
+		w := centreLogWeights()
+		lnh := math.Log(p.hi)
+		for i := range p.s {
+			p.log0 += p.hi * p.hi * (lnh*(glW[i]/2)*(glX[i]+1)/2 + w[i]) * p.a[i][0]
+		}
+	}
 }
+
+// centreLogWeights are the product-integration weights W_j of
+// ∫_0^1 t ln t φ(t) dt ≈ Σ W_j φ(t_j) at the Legendre nodes t_j = (x_j + 1)/2
+// (exact for φ of degree 15): W_j = ∫_0^1 t ln t ℓ_j(t) dt, ℓ_j the Lagrange
+// basis, by the 16-point rule on the dyadic intervals [2^−m−1, 2^−m], where
+// the integrand is smooth, down to 2^−60. The log kernel of mode 0 meets the
+// centre of a disk this way on one panel, not on dozens graded towards it.
+var centreLogWeights = sync.OnceValue(func() []float64 {
+	w := make([]float64, glN)
+	ell := make([]float64, glN)
+	for m := 0; m < 60; m++ {
+		lo, hi := math.Ldexp(1, -m-1), math.Ldexp(1, -m)
+		for i, x := range glX {
+			t := (lo+hi)/2 + (hi-lo)/2*x
+			lagrange(2*t-1, ell)
+			f := (hi - lo) / 2 * glW[i] * t * math.Log(t)
+			for j := range w {
+				w[j] += f * ell[j]
+			}
+		}
+	}
+	return w
+})
 
 // tail is the largest Legendre coefficient of degree 14 or 15 of any mode on the panel.
 func (q *Quadrature) tail(p panel) float64 {
@@ -299,7 +382,7 @@ func (q *Quadrature) Prepare() error {
 		var sizes []float64
 		aliased := false
 		for _, r := range q.probes() {
-			a, b := q.ring(r)
+			a, b := q.ring(r, n)
 			if !aliased && q.offGrid(r, a, b) {
 				aliased = true
 			}
@@ -331,13 +414,14 @@ func (q *Quadrature) Prepare() error {
 				modes = k
 			}
 		}
-		q.Modes = modes
+		q.Modes, q.scale, q.used, q.capped = modes, scale, 0, false
 		mesh, err := q.mesh()
 		if err != nil {
 			return err
 		}
 		q.coarse = q.refine(mesh, scale)
 		q.fine = q.halve(q.coarse)
+		q.Samples = max(q.Samples, q.used)
 		// The modes left out: those not kept, and beyond the samples about
 		// the size of the last ones computed (bounds on their particular
 		// solutions); when the samples reached their cap, a tail like 1/k²
@@ -348,7 +432,7 @@ func (q *Quadrature) Prepare() error {
 		for k := q.Modes + 1; k < len(size); k++ {
 			q.dropped = math.Max(q.dropped, size[k])
 		}
-		if q.Converged = worst <= q.Tol*math.Max(scale, 1e-300); !q.Converged {
+		if q.Converged = resolved && !q.capped; !q.Converged {
 			for k := len(size) - 1; k > 0; k-- {
 				if size[k] > 0 {
 					q.Truncation = size[k] * float64(k)
@@ -403,7 +487,7 @@ func (q *Quadrature) probes() []float64 {
 			out = append(out, q.A*math.Pow(2, float64(i)+0.5))
 		}
 	case q.A == 0:
-		for i := 24; i >= 0; i-- {
+		for i := 6; i >= 0; i-- {
 			out = append(out, 0.75*q.R*math.Pow(0.5, float64(i)))
 		}
 	default:
@@ -415,9 +499,11 @@ func (q *Quadrature) probes() []float64 {
 }
 
 // peaks are the radii of the largest local maxima of max_θ |g| on a scan of
-// the region (out to 64 A when it is unbounded), at most eight of them.
+// the region (out to 64 A when it is unbounded), at most eight of them. The
+// scan's points are about 2π·hi/128 apart along each of its 128 rings (at
+// least 16 to a ring), and hi/128 across them.
 func (q *Quadrature) peaks() []float64 {
-	const rings, angles = 256, 256
+	const rings = 128
 	lo, hi := q.A, q.R
 	if math.IsInf(hi, 1) {
 		hi = 64 * q.A
@@ -427,8 +513,9 @@ func (q *Quadrature) peaks() []float64 {
 	P := q.period()
 	for i := range size {
 		r := radius(i)
+		angles := max(16, int(128*r/hi)+1)
 		for j := 0; j < angles; j++ {
-			if v := math.Abs(q.G(r, P*(float64(j)+0.5)/angles)); v > size[i] {
+			if v := math.Abs(q.G(r, P*(float64(j)+0.5)/float64(angles))); v > size[i] {
 				size[i] = v
 			}
 		}
@@ -472,7 +559,7 @@ func (q *Quadrature) mesh() ([]panel, error) {
 		mesh = append(mesh, q.newPanel(lo, math.Inf(1), true))
 	case q.A == 0:
 		edges := []float64{0}
-		for i := 24; i >= 0; i-- {
+		for i := 6; i >= 0; i-- {
 			edges = append(edges, q.R*math.Pow(0.5, float64(i)))
 		}
 		for i := 0; i+1 < len(edges); i++ {
@@ -546,10 +633,10 @@ func (q *Quadrature) halve(mesh []panel) []panel {
 	var out []panel
 	for _, p := range mesh {
 		if p.infinite {
-			out = append(out, q.newPanel(p.lo, 2*p.lo, false), q.newPanel(2*p.lo, math.Inf(1), true))
+			out = append(out, q.sampledPanel(p.lo, 2*p.lo, false, 2*len(p.a[0])), q.sampledPanel(2*p.lo, math.Inf(1), true, 2*len(p.a[0])))
 		} else {
 			mid := (p.lo + p.hi) / 2
-			out = append(out, q.newPanel(p.lo, mid, false), q.newPanel(mid, p.hi, false))
+			out = append(out, q.sampledPanel(p.lo, mid, false, 2*len(p.a[0])), q.sampledPanel(mid, p.hi, false, 2*len(p.a[0])))
 		}
 	}
 	for i := range out {
@@ -707,6 +794,10 @@ func (q *Quadrature) eval(mesh []panel, r float64) (p, dp [][2]float64) {
 func (q *Quadrature) split(pn *panel, r float64, p, dp [][2]float64) {
 	outside := math.IsInf(q.R, 1)
 	ell := make([]float64, glN)
+	// The modes at a point from the panel's nodes: ga[k] = Σ_j ℓ_j a_j[k],
+	// node by node so the inner loop runs along the modes.
+	top := min(q.Modes+1, len(pn.a[0]))
+	ga, gb := make([]float64, q.Modes+1), make([]float64, q.Modes+1)
 	for half := 0; half < 2; half++ {
 		lo, hi := pn.lo, r
 		if half == 1 {
@@ -716,15 +807,20 @@ func (q *Quadrature) split(pn *panel, r float64, p, dp [][2]float64) {
 			s := (lo+hi)/2 + (hi-lo)/2*x
 			ws := (hi - lo) / 2 * glW[n] * s
 			lagrange((2*s-pn.lo-pn.hi)/(pn.hi-pn.lo), ell)
-			g := func(k int) (ga, gb float64) {
-				for j, l := range ell {
-					ga += l * pn.a[j][k]
-					gb += l * pn.b[j][k]
+			clear(ga)
+			clear(gb)
+			for j, l := range ell {
+				aj, bj := pn.a[j][:top], pn.b[j][:top]
+				for k := range aj {
+					ga[k] += l * aj[k]
+					gb[k] += l * bj[k]
 				}
-				return ga, gb
 			}
-			g0, _ := g(0)
+			g0 := ga[0]
 			switch {
+			case half == 0 && !outside && pn.lo == 0: // s = r·t_n: the centre's product rule
+				p[0][0] -= r * r * centreLogWeights()[n] * g0
+				dp[0][0] += ws / r * g0
 			case half == 0 && !outside:
 				p[0][0] += ws * math.Log(r/s) * g0
 				dp[0][0] += ws / r * g0
@@ -739,16 +835,15 @@ func (q *Quadrature) split(pn *panel, r float64, p, dp [][2]float64) {
 			for k := 1; k <= q.Modes; k++ {
 				nu := q.nu(k)
 				xk *= x
-				ga, gb := g(k)
 				f := xk / (2 * nu)
 				K, dK := -f, f*nu/r
 				if half == 1 {
 					dK = -dK
 				}
-				p[k][0] += ws * K * ga
-				p[k][1] += ws * K * gb
-				dp[k][0] += ws * dK * ga
-				dp[k][1] += ws * dK * gb
+				p[k][0] += ws * K * ga[k]
+				p[k][1] += ws * K * gb[k]
+				dp[k][0] += ws * dK * ga[k]
+				dp[k][1] += ws * dK * gb[k]
 			}
 		}
 	}

@@ -359,6 +359,22 @@ func BenchmarkOffCentreGaussian(b *testing.B) {
 	benchRun(b, args)
 }
 
+// BenchmarkGaussianHotSpot is the speed issue's row: exp(−|x − (0.3, 0)|²/0.05)
+// on the unit disk with u = 0, five points, at two tolerances (the work
+// falls as the tolerance loosens).
+func BenchmarkGaussianHotSpot(b *testing.B) {
+	for _, tol := range []string{"1e-6", "1e-10"} {
+		b.Run("tol="+tol, func(b *testing.B) {
+			b.ReportAllocs()
+			args := []string{"solve", "lap(u) = exp(-((x-0.3)^2+y^2)/0.05)", "--disk", "1", "--bc", "u = 0", "--tol", tol}
+			for _, p := range []string{"x=0.3,y=0", "x=0,y=0", "x=0.5,y=0.5", "x=-0.5,y=0.1", "x=0.9,y=0"} {
+				args = append(args, "--at", p)
+			}
+			benchRun(b, args)
+		})
+	}
+}
+
 // BenchmarkKinkedSource is abs(y - 0.3) on the unit disk (the closed form
 // abs(l)^3/6 and its trace's ~2000 numeric modes), from text to one point.
 func BenchmarkKinkedSource(b *testing.B) {
