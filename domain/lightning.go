@@ -1,7 +1,6 @@
 package domain
 
 import (
-	"errors"
 	"fmt"
 	"math"
 	"math/cmplx"
@@ -90,7 +89,7 @@ type cornerPower struct {
 	w, rot complex128
 	beta   float64
 	// beta = (k − off)/alpha: ζ^β = (ζ^(1/α))^k·ζ^(−off/α), which lets a
-	// corner's powers come by multiplication (eachPower).
+	// corner's powers come by multiplication (powerTerms).
 	k          int
 	off, alpha float64
 	// pivot, at a hole's corner, is a point inside the hole: ζ is then
@@ -132,6 +131,7 @@ func cornerPowers(c corner, K int) []cornerPower {
 // rationalHarmonic is the fitted h: its poles and coefficients, and the
 // Arnoldi recurrence that evaluates the polynomial part anywhere.
 type rationalHarmonic struct {
+	scratch  []complex128 // terms' buffers (terms)
 	poles    []complex128
 	cPole    []complex128 // h's pole part: Re Σ cPole_j/(z − p_j)
 	powers   []cornerPower
@@ -408,8 +408,10 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	}
 	nc += 2 * len(uCol) // a pair, the second empty, like every column
 	rows := len(pts) + len(constraints)
-	A := mat.NewDense(rows, nc, nil)
-	b := mat.NewVecDense(rows, nil)
+	// nc rows more, empty: room for the ridge rows below, so the solve
+	// works in this one matrix.
+	A := mat.NewDense(rows+nc, nc, nil)
+	b := mat.NewVecDense(rows+nc, nil)
 	q := make([]complex128, degree+1)
 	dq := make([]complex128, degree+1)
 	// raw is each column's norm before the images' sum: a column the sum
@@ -422,23 +424,37 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 			raw[col] += v * v
 		}
 		z, nu := p.z, p.nu
-		val := func(f, df complex128) complex128 {
-			return (complex(p.a, 0)*f + complex(p.b, 0)*df*nu) * complex(p.w*scaleBy, 0)
-		}
+		// The row's operator on a term (f, f'): ca·f + cb·f'.
+		ca, cb := complex(p.a*p.w*scaleBy, 0), complex(p.b*p.w*scaleBy, 0)*nu
+		val := func(f, df complex128) complex128 { return ca*f + cb*df }
 		// u = Re(c·ψ) = a·Re ψ + b·Im ψ for c = a − ib; Re(c̄·ψ) = a·Re ψ − b·Im ψ.
-		image := func(first int, m imageTerm, f, df complex128) {
-			w := val(m.factor*f, m.factor*df)
-			col := first + 2*m.rep
-			add(i, col, real(w))
-			if m.conj {
-				add(i, col+1, -imag(w))
-			} else {
-				add(i, col+1, imag(w))
+		// The images' loops are written out: a call per term was most of the fit.
+		images := func(first int, img []imageTerm, f, df []complex128) {
+			for e, m := range img {
+				w := m.factor * (ca*f[e] + cb*df[e])
+				col := first + 2*m.rep
+				re, im := real(w), imag(w)
+				if m.conj {
+					im = -im
+				}
+				row[col] += re
+				raw[col] += re * re
+				row[col+1] += im
+				raw[col+1] += im * im
 			}
 		}
 		for e, pole := range h.poles {
 			d := recip(z - pole)
-			image(0, poleImg[e], d, -d*d)
+			m := poleImg[e]
+			w := m.factor * (ca*d - cb*d*d)
+			re, im := real(w), imag(w)
+			if m.conj {
+				im = -im
+			}
+			row[2*m.rep] += re
+			raw[2*m.rep] += re * re
+			row[2*m.rep+1] += im
+			raw[2*m.rep+1] += im * im
 		}
 		col := 2 * nPole
 		h.polyBasis(z, q, dq)
@@ -450,7 +466,9 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 			}
 			col += 2
 		}
-		h.eachPower(z, func(e int, f, df complex128) { image(col, powerImg[e], f, df) })
+		t, dt := h.terms(len(h.powers))
+		h.powerTerms(z, t, dt)
+		images(col, powerImg, t, dt)
 		col += 2 * nPower
 		for _, hb := range h.logs {
 			// log|z − c| alone (each hole's centre is fixed by a symmetry):
@@ -460,7 +478,9 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 			add(i, col, scaleBy*p.w*(p.a*math.Log(abs(d))+p.b*real(nu/d)))
 			col += 2
 		}
-		h.eachLaurent(z, func(e int, f, df complex128) { image(col, laurentImg[e], f, df) })
+		t, dt = h.terms(len(h.laurent))
+		h.laurentTerms(z, t, dt)
+		images(col, laurentImg, t, dt)
 		col += 2 * nLaurent
 		for _, j := range h.mobiusK {
 			w := val(h.mobius.term(z, j))
@@ -505,34 +525,30 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	// without it QR, which does not pivot, returns huge coefficients that
 	// cancel, and the residual is rounding of them.
 	const ridge = 1e-13
-	m := rows
-	B := mat.NewDense(m+len(live), len(live), nil)
-	for c, j := range live {
-		for i := 0; i < m; i++ {
-			B.Set(i, c, A.At(i, j)/norms[j])
+	// The live columns scaled, moved left in place (c ≤ j), and the ridge
+	// rows under them: the least-squares matrix is A's top-left corner.
+	raw2 := A.RawMatrix()
+	for i := 0; i < rows; i++ {
+		row := raw2.Data[i*raw2.Stride : i*raw2.Stride+nc]
+		for c, j := range live {
+			row[c] = row[j] / norms[j]
 		}
-		B.Set(m+c, c, ridge)
 	}
-	rhs := mat.NewVecDense(m+len(live), nil)
-	for i := 0; i < m; i++ {
-		rhs.SetVec(i, b.AtVec(i))
+	for c := range live {
+		A.Set(rows+c, c, ridge)
 	}
-	b = rhs
-	var y mat.VecDense
-	var qr mat.QR
-	qr.Factorize(B)
+	B := raw2
+	B.Rows, B.Cols = rows+len(live), len(live)
 	// An ill-conditioned basis (exponentially clustered poles) is expected:
 	// the least-squares fit is still good where the residual says so, and
 	// the residual is measured afterwards; only a failed solve is an error.
-	if err := qr.SolveVecTo(&y, false, b); err != nil {
-		var cond mat.Condition
-		if !errors.As(err, &cond) {
-			return nil, fmt.Errorf("the least-squares fit failed: %w", err)
-		}
+	y, err := leastSquaresInPlace(B, b.RawVector().Data[:rows+len(live)])
+	if err != nil {
+		return nil, fmt.Errorf("the least-squares fit failed: %w", err)
 	}
 	x := mat.NewVecDense(nc, nil)
 	for c, j := range live {
-		x.SetVec(j, y.AtVec(c))
+		x.SetVec(j, y[c])
 	}
 	coef := func(j int) float64 {
 		if norms[j] == 0 {

@@ -74,24 +74,24 @@ func (hb holeBasis) variable(z complex128) (v, dlog complex128) {
 	return 1 / w, -1 / (s * dir)
 }
 
-// eachLaurent calls fn with each Laurent term's value and derivative at z,
-// a run j = 1, 2, … of one hole's terms by multiplication (a power at each
-// term was the fit's largest cost).
-func (h *rationalHarmonic) eachLaurent(z complex128, fn func(k int, f, df complex128)) {
-	var v, dlog, f complex128
+// laurentTerms fills f and df with each Laurent term's value and derivative
+// at z, a run j = 1, 2, … of one hole's terms by multiplication (a power at
+// each term was the fit's largest cost; a callback per term, the next).
+func (h *rationalHarmonic) laurentTerms(z complex128, f, df []complex128) {
+	var v, dlog, fk complex128
 	for k, t := range h.laurent {
 		// A run is one hole's j = 1, 2, …: a new one wherever j does not
 		// follow on (comparing the holes themselves cost more than the terms).
 		if k == 0 || t.j != h.laurent[k-1].j+1 {
 			v, dlog = t.hole.variable(z)
-			f = v
+			fk = v
 			for i := 1; i < t.j; i++ {
-				f *= v
+				fk *= v
 			}
 		} else {
-			f *= v
+			fk *= v
 		}
-		fn(k, f, complex(float64(t.j), 0)*f*dlog)
+		f[k], df[k] = fk, complex(float64(t.j), 0)*fk*dlog
 	}
 }
 
@@ -102,11 +102,11 @@ func recip(w complex128) complex128 {
 	return complex(real(w)*s, -imag(w)*s)
 }
 
-// eachPower calls fn with each corner power's value and derivative at z. A
+// powerTerms fills f and df with each corner power's value and derivative at z. A
 // corner's powers ζ^β, β = (k − off)/α, share ζ and log ζ, and come by
 // multiplication: (ζ^(1/α))^k times one ζ^(−off/α) per family of offsets (an
 // exponential at each power was the fit's largest cost after the poles).
-func (h *rationalHarmonic) eachPower(z complex128, fn func(k int, f, df complex128)) {
+func (h *rationalHarmonic) powerTerms(z complex128, f, df []complex128) {
 	var zeta, logZeta, dlog, root, rootK complex128
 	var fam [2]struct {
 		off float64
@@ -129,7 +129,7 @@ func (h *rationalHarmonic) eachPower(z complex128, fn func(k int, f, df complex1
 			}
 		}
 		if zeta == 0 {
-			fn(k, 0, 0)
+			f[k], df[k] = 0, 0
 			continue
 		}
 		for ; kNow < c.k; kNow++ {
@@ -154,7 +154,7 @@ func (h *rationalHarmonic) eachPower(z complex128, fn func(k int, f, df complex1
 			}
 		}
 		v := rootK * ff
-		fn(k, v, complex(c.beta, 0)*v*dlog)
+		f[k], df[k] = v, complex(c.beta, 0)*v*dlog
 	}
 }
 
@@ -798,20 +798,34 @@ func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
 		f += complex(h.cLog[k], 0) * cmplx.Log(d)
 		df += complex(h.cLog[k], 0) / d
 	}
-	h.eachLaurent(z, func(k int, v, dv complex128) {
-		f += h.cLaurent[k] * v
-		df += h.cLaurent[k] * dv
-	})
+	t, dt := h.terms(len(h.laurent))
+	h.laurentTerms(z, t, dt)
+	for k, c := range h.cLaurent {
+		f += c * t[k]
+		df += c * dt[k]
+	}
 	for k, j := range h.mobiusK {
 		v, dv := h.mobius.term(z, j)
 		f += h.cMobius[k] * v
 		df += h.cMobius[k] * dv
 	}
-	h.eachPower(z, func(k int, v, dv complex128) {
-		f += h.cPower[k] * v
-		df += h.cPower[k] * dv
-	})
+	t, dt = h.terms(len(h.powers))
+	h.powerTerms(z, t, dt)
+	for k, c := range h.cPower {
+		f += c * t[k]
+		df += c * dt[k]
+	}
 	return f, df
+}
+
+// terms are h's scratch slices for n terms' values and derivatives: an
+// evaluation's buffers, reused (so a rationalHarmonic is not for concurrent
+// use; psol evaluates on one goroutine).
+func (h *rationalHarmonic) terms(n int) (f, df []complex128) {
+	if len(h.scratch) < 2*n {
+		h.scratch = make([]complex128, 2*n)
+	}
+	return h.scratch[:n], h.scratch[n : 2*n]
 }
 
 // sectionFigures: the area integral as the particular solution's exact
