@@ -217,6 +217,16 @@ func (q *Quadrature) newPanel(lo, hi float64, infinite bool) panel {
 			n /= 2
 		}
 	}
+	if !infinite { // the outermost node's ring first: one ring per doubling
+		s := (lo+hi)/2 + (hi-lo)/2*glX[glN-1]
+		for n < q.maxSamples() {
+			a, b := q.ring(s, n)
+			if q.ringResolved(a, b) {
+				break
+			}
+			n *= 2
+		}
+	}
 	for {
 		p := q.sampledPanel(lo, hi, infinite, n)
 		done := q.resolved(p)
@@ -240,11 +250,18 @@ func (q *Quadrature) newPanel(lo, hi float64, infinite bool) panel {
 // probes' scale.
 func (q *Quadrature) resolved(p panel) bool {
 	for i := range p.a {
-		a, b := p.a[i], p.b[i]
-		for k := len(a) / 2; k < len(a); k++ {
-			if math.Hypot(a[k], b[k])*q.weight(k) > q.Tol*q.scale {
-				return false
-			}
+		if !q.ringResolved(p.a[i], p.b[i]) {
+			return false
+		}
+	}
+	return true
+}
+
+// ringResolved is one ring's test in resolved.
+func (q *Quadrature) ringResolved(a, b []float64) bool {
+	for k := len(a) / 2; k < len(a); k++ {
+		if math.Hypot(a[k], b[k])*q.weight(k) > q.Tol*q.scale {
+			return false
 		}
 	}
 	return true
@@ -755,7 +772,10 @@ func (q *Quadrature) eval(mesh []panel, r float64) (p, dp [][2]float64) {
 				dp[0][0] += pn.below[0][0] / r
 			}
 			x, f := math.Pow(pn.hi/r, q.omega()), 1.0
-			for k := 1; k <= q.Modes; k++ {
+			// (hi/r)^ν_k falls with k: once below 1e-18 the rest of the
+			// modes add nothing a float64 holds (a far panel's sums stop
+			// after a few dozen modes, not a sector's thousand).
+			for k := 1; k <= q.Modes && f > 1e-18; k++ {
 				nu := q.nu(k)
 				f *= x
 				for j := 0; j < 2; j++ {
@@ -772,7 +792,7 @@ func (q *Quadrature) eval(mesh []panel, r float64) (p, dp [][2]float64) {
 			if pn.lo > 0 {
 				x = math.Pow(r/pn.lo, q.omega())
 			}
-			for k := 1; k <= q.Modes; k++ {
+			for k := 1; k <= q.Modes && f > 1e-18; k++ { // as below
 				nu := q.nu(k)
 				f *= x
 				for j := 0; j < 2; j++ {
