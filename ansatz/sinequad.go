@@ -41,6 +41,7 @@ type SineQuadrature struct {
 	coarse, fine []sinePanel
 	dropped      float64
 	fft          *fourier.FFT
+	modeBuf      []float64           // split's modes at a point
 	den          []float64           // 2k_m(1 − e^(−2k_m H))
 	lines        map[float64]*sineAt // lines already evaluated (a grid's rows), bounded
 }
@@ -285,11 +286,16 @@ func (q *SineQuadrature) sums(p *sinePanel) {
 			p.s0[j] += w * p.f[j][i]
 			p.s1[j] += w * t * p.f[j][i]
 		}
+		// e^(−k_m(hi − t)), e^(−2k_m t), … as powers of their m = 1 values
+		// (k_m = m·k_1): four exponentials per node, not per node and mode.
+		k1 := q.k(1)
+		Eb, Ab, Ea, Aa := math.Exp(-k1*(p.hi-t)), math.Exp(-2*k1*t), math.Exp(-k1*(t-p.lo)), math.Exp(-2*k1*(q.H-t))
+		eb, ab, ea, aa := 1.0, 1.0, 1.0, 1.0
 		for m := 1; m <= q.Modes; m++ {
-			k := q.k(m)
-			g := p.g[i][m-1]
-			p.below[m-1] += w * math.Exp(-k*(p.hi-t)) * -math.Expm1(-2*k*t) * g
-			p.above[m-1] += w * math.Exp(-k*(t-p.lo)) * -math.Expm1(-2*k*(q.H-t)) * g
+			eb, ab, ea, aa = eb*Eb, ab*Ab, ea*Ea, aa*Aa
+			g := w * p.g[i][m-1]
+			p.below[m-1] += eb * (1 - ab) * g
+			p.above[m-1] += ea * (1 - aa) * g
 		}
 	}
 }
@@ -346,6 +352,10 @@ func (q *SineQuadrature) integrals(mesh []sinePanel, y float64, modes bool) sine
 func (q *SineQuadrature) split(p *sinePanel, y float64, out *sineAt, modes bool) {
 	H := q.H
 	lw := make([]float64, glN)
+	if len(q.modeBuf) < q.Modes {
+		q.modeBuf = make([]float64, q.Modes)
+	}
+	gt := q.modeBuf[:q.Modes]
 	for half := 0; half < 2; half++ {
 		lo, hi := p.lo, y
 		if half == 1 {
@@ -383,15 +393,19 @@ func (q *SineQuadrature) split(p *sinePanel, y float64, out *sineAt, modes bool)
 			} else { // t > y: (1 − e^(−2k(H−t))) and (1 ∓ e^(−2ky))
 				E, A, B = math.Exp(-k1*(t-y)), math.Exp(-2*k1*(H-t)), math.Exp(-2*k1*y)
 			}
+			// The modes at t from the nodes, node by node so the inner
+			// loop runs along the modes.
+			clear(gt)
+			for j, l := range lw {
+				for m, v := range p.g[j][:q.Modes] {
+					gt[m] += l * v
+				}
+			}
 			e, a, b := 1.0, 1.0, 1.0
 			for m := 1; m <= q.Modes; m++ {
 				e, a, b = e*E, a*A, b*B
 				k, den := q.k(m), q.den[m-1]
-				g := 0.0
-				for j := range lw {
-					g += lw[j] * p.g[j][m-1]
-				}
-				g *= w * e * (1 - a) / den
+				g := gt[m-1] * w * e * (1 - a) / den
 				out.v[m-1] -= (1 - b) * g
 				if half == 0 {
 					out.dv[m-1] += k * (1 + b) * g
