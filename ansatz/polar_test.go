@@ -2,6 +2,7 @@ package ansatz
 
 import (
 	"fmt"
+	"math"
 	"math/big"
 	"math/rand"
 	"strings"
@@ -108,5 +109,22 @@ func BenchmarkParticular(b *testing.B) {
 				}
 			}
 		})
+	}
+}
+
+// The centre's product rule for mode 0's log kernel integrates t ln t·t^k
+// exactly for k ≤ 15: ∫_0^1 t^(k+1) ln t dt = −1/(k + 2)² (integration by
+// parts, common practice).
+func TestCentreLogWeights(t *testing.T) {
+	w := centreLogWeights()
+	for k := 0; k <= 15; k++ {
+		got := 0.0
+		for i, x := range GaussX {
+			got += w[i] * math.Pow((x+1)/2, float64(k))
+		}
+		want := -1 / float64((k+2)*(k+2))
+		if math.Abs(got-want) > 1e-15 {
+			t.Errorf("k = %d: %.17g, want %.17g", k, got, want)
+		}
 	}
 }
