@@ -136,6 +136,10 @@ func (lw *lowerer) interval(c *compare) (lo, hi *big.Rat, err error) {
 			return nil, nil, err
 		}
 		if v.f.IsExact() && v.f.Exact.Equal(series.Theta) {
+			if at >= 0 { // theta < theta: no break point to compare with
+				fail = lw.fail(sd.Pos, "a condition compares theta with constants, and names theta once")
+				continue
+			}
 			at = i
 			continue
 		}
