@@ -35,8 +35,8 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		return err
 	}
 	sol.Quadrature, sol.Rest, sol.Numeric = q, p.rest, true
-	if exact, ok := exactKinkTraces(d, p, q, traced); ok {
-		sol.Numeric = false
+	exact, kinksExact := exactKinkTraces(d, p, q, traced)
+	if kinksExact {
 		sol.KinkTraces = map[string]series.Field{}
 		for name, fc := range exact {
 			sol.KinkTraces[name] = series.FourierField(fc)
@@ -45,8 +45,11 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 			}
 			traced[name] = traced[name].Add(sol.KinkTraces[name].Neg())
 		}
-		sol.Notes = append(sol.Notes, "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable); its trace on each circle is given by exact Fourier coefficients, whose general term carries the angles where the line crosses the circle")
-		return nil
+		if q.Left == nil { // the kinks were the source's whole numeric part
+			sol.Numeric = false
+			sol.Notes = append(sol.Notes, "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable); its trace on each circle is given by exact Fourier coefficients, whose general term carries the angles where the line crosses the circle")
+			return nil
+		}
 	}
 	for _, c := range d.circles() {
 		r, err := c.radius.Float(p.env)
@@ -55,7 +58,7 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		}
 		pm, dpm, _ := q.Mode(r)
 		cond := p.conds[c.name]
-		if len(q.Kinks) > 0 {
+		if len(q.Kinks) > 0 && !kinksExact { // their modes by the FFT, with the rest's
 			var tail float64
 			// Between two circles the modes grow like (R2/R1)^n in the exact
 			// algebra's r^n, r^−n form: as many as circleData's numeric data
@@ -93,7 +96,7 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		traces[c.name] = traces[c.name].Add(series.NewSum(terms...))
 		sol.DataError += qerr
 	}
-	sol.Notes = append(sol.Notes, quadratureNote(q, p.rest, "", fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", q.Samples, q.Modes)))
+	sol.Notes = append(sol.Notes, quadratureNote(q, p.rest, "", fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", q.Samples, q.Modes), kinksExact))
 	return nil
 }
 
@@ -102,7 +105,7 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 // forms and radii and the data have exact coefficients too (numeric data
 // go by the FFT, and the kinks' modes with them); ok is false otherwise.
 func exactKinkTraces(d circular, p *posed, q *ansatz.Quadrature, traced map[string]series.Field) (map[string]series.FourierCoefficients, bool) {
-	if q.Left != nil || len(q.Kinks) == 0 || p.numeric {
+	if len(q.Kinks) == 0 || p.numeric {
 		return nil, false
 	}
 	out := map[string]series.FourierCoefficients{}
@@ -192,11 +195,14 @@ func kinkedQuadrature(p *posed, a, R float64) (*ansatz.Quadrature, error) {
 
 // quadratureNote says how the source's remainder was taken: the kinks'
 // closed parts, and the quadrature of what is left.
-func quadratureNote(q *ansatz.Quadrature, rest *series.Expr, where, how string) string {
+func quadratureNote(q *ansatz.Quadrature, rest *series.Expr, where, how string, kinksExact bool) string {
 	if len(q.Kinks) == 0 {
 		return fmt.Sprintf("psol has no closed-form rule for the source part %s: its particular solution is by quadrature%s (%s)", rest.Text(), where, how)
 	}
 	note := "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable; its trace's Fourier coefficients, which fall like k^-4, by an FFT of at least 16384 samples)"
+	if kinksExact {
+		note = "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable); its trace on each circle is given by exact Fourier coefficients, whose general term carries the angles where the line crosses the circle"
+	}
 	if q.Left != nil {
 		note += fmt.Sprintf("; the rest, %s, is by quadrature%s (%s)", q.Left.Text(), where, how)
 	}

@@ -427,7 +427,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 			qerr = math.Max(qerr, in.err)
 		}
 		sol.DataError += qerr
-		sol.Notes = append(sol.Notes, quadratureNote(quad, p.rest, fmt.Sprintf(" on the disk r < %.6g around the section", quad.R), fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", quad.Samples, quad.Modes)))
+		sol.Notes = append(sol.Notes, quadratureNote(quad, p.rest, fmt.Sprintf(" on the disk r < %.6g around the section", quad.R), fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", quad.Samples, quad.Modes), false))
 		qc, err := checkedQuadrature(d, sol, p)
 		if err != nil {
 			return nil, err

@@ -624,6 +624,27 @@ func (v *view) approximate(sol *domain.Solution) {
 	if sol.Rect != nil { // rectStages marks its own numeric stages
 		return
 	}
+	if ps := sol.Series; ps != nil && sol.Quadrature != nil && sol.KinkTraces != nil {
+		// A circle's exact kinks beside a numeric rest: the kinks' traces
+		// are exact series, the rest's modes decimals in the side's sums.
+		join := domain.JoinSeriesApprox
+		q, qTeX := quadratureText(sol)
+		mark(&v.Particular, "u_p = "+joinNonzero(sol.Particular.TextApprox(), q), joinNonzero(sol.Particular.LaTeXApprox(), qTeX))
+		var tr, trTeX, co, coTeX []string
+		for _, s := range sol.Sides {
+			kt, ktTeX := kinkTrace(sol, s)
+			tr = append(tr, sidePrefix(sol, s)+traceText(s)+" ≈ "+joinNonzero(s.Trace.TextApprox(), kt))
+			trTeX = append(trTeX, joinNonzero(s.Trace.LaTeXApprox(), ktTeX))
+			co = append(co, sidePrefix(sol, s)+"≈ "+join(s.Data.Sub(s.Trace), ps.BySide[s.Condition.Side], false))
+			coTeX = append(coTeX, join(s.Data.Sub(s.Trace), ps.BySide[s.Condition.Side], true))
+		}
+		mark(&v.Trace, strings.Join(tr, "; "), strings.Join(trTeX, ", "))
+		mark(&v.Correction, strings.Join(co, "; "), strings.Join(coTeX, ", "))
+		mark(&v.Harmonic, "≈ "+join(sol.Harmonic, ps.Harmonic, false), join(sol.Harmonic, ps.Harmonic, true))
+		w := sol.Particular.Add(sol.Harmonic)
+		mark(&v.Solution, "u ≈ "+joinNonzero(join(w, ps.U, false), q), joinNonzero(join(w, ps.U, true), qTeX))
+		return
+	}
 	if ps := sol.Series; ps != nil && sol.Quadrature != nil { // a sector: the numeric traces are in the modes
 		join := domain.JoinSeriesApprox
 		q := "quadrature(" + sol.Rest.Text() + ")"
