@@ -12,6 +12,7 @@ type cterm struct {
 	c, p    float64
 	l, k, m int
 	sin     bool
+	whole   bool // p is a small whole number: r^p by multiplication, not Pow
 }
 
 // Compile fixes the parameters from env and rounds the coefficients to float64.
@@ -23,7 +24,7 @@ func (s Sum) Compile(env Env) (Compiled, error) {
 			return Compiled{}, err
 		}
 		p, _ := t.power().Float64()
-		out.t[i] = cterm{c, p, t.L, t.K, t.M, t.Sin}
+		out.t[i] = cterm{c, p, t.L, t.K, t.M, t.Sin, p == math.Trunc(p) && math.Abs(p) <= 64}
 		out.hasLog = out.hasLog || t.L > 0
 	}
 	return out, nil
@@ -42,6 +43,8 @@ func (c Compiled) At(r, theta float64) float64 {
 		case t.p == 0:
 		case r == 0 && t.p > 0:
 			continue // r^p (ln r)^j → 0
+		case t.whole:
+			v *= powInt(r, int64(t.p))
 		default:
 			v *= math.Pow(r, t.p)
 		}

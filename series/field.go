@@ -635,7 +635,7 @@ func compileIndexed(s Sum, env Env) (indexedSum, error) {
 			return out, err
 		}
 		p, _ := t.power().Float64()
-		out.indexed = append(out.indexed, indexedTerm{cf, cterm{1, p, t.L, t.K, t.M, t.Sin}})
+		out.indexed = append(out.indexed, indexedTerm{cf, cterm{1, p, t.L, t.K, t.M, t.Sin, false}})
 	}
 	return out, nil
 }
@@ -725,9 +725,25 @@ func compileExpr(e *Expr, env Env) (evalFunc, error) {
 	}
 	if op, ok := binaryFloat[e.op]; ok {
 		a, b := args[0], args[1]
+		// The common operators inline: a call through the table per node
+		// was a good part of a sampled source's cost.
+		switch e.op {
+		case "+":
+			return func(r, theta, n float64) float64 { return a(r, theta, n) + b(r, theta, n) }, nil
+		case "*":
+			return func(r, theta, n float64) float64 { return a(r, theta, n) * b(r, theta, n) }, nil
+		}
 		return func(r, theta, n float64) float64 { return op(a(r, theta, n), b(r, theta, n)) }, nil
 	}
 	op, a := unaryFloat[e.op], args[0]
+	switch e.op {
+	case "exp":
+		return func(r, theta, n float64) float64 { return math.Exp(a(r, theta, n)) }, nil
+	case "cos":
+		return func(r, theta, n float64) float64 { return math.Cos(a(r, theta, n)) }, nil
+	case "sin":
+		return func(r, theta, n float64) float64 { return math.Sin(a(r, theta, n)) }, nil
+	}
 	return func(r, theta, n float64) float64 { return op(a(r, theta, n)) }, nil
 }
 
