@@ -504,7 +504,7 @@ func (q *Quadrature) probes() []float64 {
 			out = append(out, q.A*math.Pow(2, float64(i)+0.5))
 		}
 	case q.A == 0:
-		for i := 6; i >= 0; i-- {
+		for i := q.centreLevels(); i >= 0; i-- {
 			out = append(out, 0.75*q.R*math.Pow(0.5, float64(i)))
 		}
 	default:
@@ -551,6 +551,18 @@ func (q *Quadrature) peaks() []float64 {
 	return out
 }
 
+// centreLevels is how many halvings the starting mesh takes towards a
+// disk's centre. On a full turn the kernels s·(s/r)^k are polynomials and
+// mode 0's log has its product rule, so two serve (refine adds more where
+// the source needs them); a sector's ν = kπ/(2α) are fractional, and
+// s^(1+ν) is not smooth at the centre: six, down to R/64.
+func (q *Quadrature) centreLevels() int {
+	if q.Period == 0 && q.Keep == nil {
+		return 2
+	}
+	return 6
+}
+
 // mesh is the starting mesh: halving towards a disk's centre (the log kernel
 // and r^ν), four panels across an annulus, doublings out to infinity.
 func (q *Quadrature) mesh() ([]panel, error) {
@@ -576,7 +588,7 @@ func (q *Quadrature) mesh() ([]panel, error) {
 		mesh = append(mesh, q.newPanel(lo, math.Inf(1), true))
 	case q.A == 0:
 		edges := []float64{0}
-		for i := 6; i >= 0; i-- {
+		for i := q.centreLevels(); i >= 0; i-- {
 			edges = append(edges, q.R*math.Pow(0.5, float64(i)))
 		}
 		for i := 0; i+1 < len(edges); i++ {
