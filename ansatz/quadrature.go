@@ -73,6 +73,7 @@ type Quadrature struct {
 	used         int       // the most angular samples a panel took
 	capped       bool      // a panel reached the cap with its top band above Tol
 	recent       []*modeAt // the latest Modes, newest last: a stencil or a ring revisits a few radii
+	recentFine   []*modeAt // the latest values from the halved mesh alone (Value)
 }
 
 // panel is one Gauss–Legendre panel of the radial mesh with the source's
@@ -391,7 +392,7 @@ var ErrSlowDecay = errors.New("the source does not decay faster than r^-2, so it
 // each starting panel) is below Tol relative to the source's size; then each
 // panel is bisected until its Legendre tail is too.
 func (q *Quadrature) Prepare() error {
-	q.recent, q.peakRadii = nil, q.peaks()
+	q.recent, q.recentFine, q.peakRadii = nil, nil, q.peaks()
 	for n := min(32, q.maxSamples()); ; n *= 2 {
 		q.Samples = n
 		worst, scale, modes := 0.0, 0.0, 0
@@ -939,6 +940,33 @@ func (q *Quadrature) Flux(r, theta0, theta1 float64) float64 {
 // At is the particular solution at (r, θ), with the quadrature error estimate.
 func (q *Quadrature) At(r, theta float64) (float64, float64) {
 	p, _, err := q.Mode(r)
+	return q.sum(p, r, theta), err
+}
+
+// Value is the particular solution at (r, θ) from the halved mesh alone,
+// with no estimate (which needs the first mesh too): for checks, which
+// sample it at many radii. It equals At's value.
+func (q *Quadrature) Value(r, theta float64) float64 {
+	for _, m := range q.recent {
+		if m.r == r {
+			return q.sum(m.p, r, theta)
+		}
+	}
+	for _, m := range q.recentFine {
+		if m.r == r {
+			return q.sum(m.p, r, theta)
+		}
+	}
+	p, _ := q.eval(q.fine, r)
+	if len(q.recentFine) == 8 {
+		q.recentFine = q.recentFine[1:]
+	}
+	q.recentFine = append(q.recentFine, &modeAt{r: r, p: p})
+	return q.sum(p, r, theta)
+}
+
+// sum is Σ_k p_k(r)·T(ν_k θ) with the closed parts (lift, kinks) at (r, θ).
+func (q *Quadrature) sum(p [][2]float64, r, theta float64) float64 {
 	// cos kωθ and sin kωθ by the rotation (c, s) ← (c·c₁ − s·s₁, s·c₁ + c·s₁),
 	// exact to rounding; restarted from the functions every 64 modes.
 	c1, s1 := math.Cos(q.omega()*theta), math.Sin(q.omega()*theta)
@@ -956,7 +984,7 @@ func (q *Quadrature) At(r, theta float64) (float64, float64) {
 	for _, k := range q.Kinks {
 		v += k.Value(r, theta)
 	}
-	return v, err
+	return v
 }
 
 // KinkModes are the Fourier coefficients of the kinks' closed parts and of
