@@ -8,6 +8,7 @@ import (
 	"sync"
 
 	"gonum.org/v1/gonum/dsp/fourier"
+	"gonum.org/v1/gonum/floats"
 )
 
 // Quadrature is a particular solution of Δu = g for a source with no closed
@@ -87,6 +88,9 @@ type panel struct {
 	// for k = 0 both are Σ w s g_0, and log0 = Σ w s ln s g_0.
 	below, above [][2]float64
 	log0         float64
+	// hasCos and hasSin: whether any node has a cosine (sine) coefficient;
+	// a sector's family keeps one kind only, and the other is skipped.
+	hasCos, hasSin bool
 }
 
 type modeAt struct {
@@ -307,6 +311,12 @@ func (q *Quadrature) sums(p *panel) {
 		}
 	}
 	p.above[0] = p.below[0]
+	for i := range p.a {
+		for k := range p.a[i] {
+			p.hasCos = p.hasCos || p.a[i][k] != 0
+			p.hasSin = p.hasSin || p.b[i][k] != 0
+		}
+	}
 	if p.lo == 0 { // s ln s is not smooth at the centre: its product rule
 		p.log0 = 0
 		w := centreLogWeights()
@@ -842,11 +852,12 @@ func (q *Quadrature) split(pn *panel, r float64, p, dp [][2]float64) {
 			lagrange((2*s-pn.lo-pn.hi)/(pn.hi-pn.lo), ell)
 			clear(ga)
 			clear(gb)
-			for j, l := range ell {
-				aj, bj := pn.a[j][:top], pn.b[j][:top]
-				for k := range aj {
-					ga[k] += l * aj[k]
-					gb[k] += l * bj[k]
+			for j, l := range ell { // ga += ℓ_j·a_j by gonum's vector kernel
+				if pn.hasCos {
+					floats.AddScaled(ga[:top], l, pn.a[j][:top])
+				}
+				if pn.hasSin {
+					floats.AddScaled(gb[:top], l, pn.b[j][:top])
 				}
 			}
 			g0 := ga[0]
