@@ -40,7 +40,8 @@ type SineQuadrature struct {
 
 	coarse, fine []sinePanel
 	dropped      float64
-	fft          *fourier.FFT
+	ffts         map[int]*fourier.FFT // by length
+	scale        float64              // the probes' largest mode, weighted by its share of u
 	modeBuf      []float64           // split's modes at a point
 	den          []float64           // 2k_m(1 − e^(−2k_m H))
 	lines        map[float64]*sineAt // lines already evaluated (a grid's rows), bounded
@@ -104,9 +105,18 @@ func (q *SineQuadrature) edges(y float64) (a0, a1, c0, c1 float64) {
 
 // column is the sine coefficients of g̃(·, y), m = 1..Samples−1, with the edge functions.
 func (q *SineQuadrature) column(y float64) (g []float64, e [4]float64) {
-	n := q.Samples
-	if q.fft == nil || q.fft.Len() != 2*n {
-		q.fft = fourier.NewFFT(2 * n)
+	return q.columnOf(y, q.Samples)
+}
+
+// columnOf is column from n samples along x: m = 1..n−1.
+func (q *SineQuadrature) columnOf(y float64, n int) (g []float64, e [4]float64) {
+	if q.ffts == nil {
+		q.ffts = map[int]*fourier.FFT{}
+	}
+	fft, ok := q.ffts[2*n]
+	if !ok {
+		fft = fourier.NewFFT(2 * n)
+		q.ffts[2*n] = fft
 	}
 	e[0], e[1], e[2], e[3] = q.edges(y)
 	ext := make([]float64, 2*n)
@@ -117,7 +127,7 @@ func (q *SineQuadrature) column(y float64) (g []float64, e [4]float64) {
 		v := q.G(x, y) - p0*e[0] - r0*e[1] - p1*e[2] - r1*e[3]
 		ext[j], ext[2*n-j] = v, -v
 	}
-	c := q.fft.Coefficients(nil, ext)
+	c := fft.Coefficients(nil, ext)
 	g = make([]float64, n-1)
 	for m := 1; m < n; m++ {
 		g[m-1] = -imag(c[m]) / float64(n) // (2/L)∫ g̃ sin(k_m x) dx by the trapezoidal rule on the odd extension
@@ -125,15 +135,55 @@ func (q *SineQuadrature) column(y float64) (g []float64, e [4]float64) {
 	return g, e
 }
 
+// newPanel samples the panel's lines with the fewest points along x that
+// resolve them (the top half of each line's modes, weighted by their share
+// of u, below Tol of the probes' scale), at most Samples: a line far from
+// where the source lives needs fewer. Its coefficient rows are padded with
+// zeros to Samples − 1.
 func (q *SineQuadrature) newPanel(lo, hi float64) sinePanel {
+	n := q.Samples
+	for n > 32 { // the middle line first: one line per halving
+		g, _ := q.columnOf((lo+hi)/2, n/2)
+		if !q.lineResolved(g) {
+			break
+		}
+		n /= 2
+	}
+	for {
+		p := q.sampledPanel(lo, hi, n)
+		done := true
+		for _, g := range p.g {
+			done = done && q.lineResolved(g[:n-1])
+		}
+		if done || n >= q.Samples {
+			return p
+		}
+		n *= 2
+	}
+}
+
+// lineResolved reports a line's modes from half its samples up below Tol of
+// the scale, each weighted by its share of u.
+func (q *SineQuadrature) lineResolved(g []float64) bool {
+	n := len(g) + 1
+	for m := n / 2; m <= len(g); m++ {
+		if math.Abs(g[m-1])*q.weight(-1, m) > q.Tol*q.scale {
+			return false
+		}
+	}
+	return true
+}
+
+// sampledPanel samples the panel's lines at n points along x.
+func (q *SineQuadrature) sampledPanel(lo, hi float64, n int) sinePanel {
 	p := sinePanel{lo: lo, hi: hi, t: make([]float64, glN), w: make([]float64, glN), g: make([][]float64, glN)}
 	for j := range p.f {
 		p.f[j] = make([]float64, glN)
 	}
 	for i, x := range glX {
 		p.t[i], p.w[i] = (lo+hi)/2+(hi-lo)/2*x, (hi-lo)/2*glW[i]
-		var e [4]float64
-		p.g[i], e = q.column(p.t[i])
+		g, e := q.columnOf(p.t[i], n)
+		p.g[i] = append(g, make([]float64, q.Samples-n)...)
 		for j := range e {
 			p.f[j][i] = e[j]
 		}
@@ -174,6 +224,7 @@ func (q *SineQuadrature) Prepare() {
 		}
 	}
 	q.Converged = worst <= q.Tol*math.Max(scale, 1e-300)
+	q.scale = math.Max(scale, 1e-300)
 	q.den = make([]float64, q.Modes)
 	for m := range q.den {
 		k := q.k(m + 1)
@@ -224,19 +275,28 @@ func (q *SineQuadrature) Prepare() {
 func (q *SineQuadrature) refine(mesh []sinePanel, scale float64) []sinePanel {
 	var out []sinePanel
 	budget := 400 // bisections; past it the halved mesh's estimate tells what is left
-	var visit func(p sinePanel, depth int)
-	visit = func(p sinePanel, depth int) {
-		if depth < 20 && budget > 0 && q.tail(p)*(p.hi-p.lo) > 0.1*radialTol(q.Tol)*scale*q.H {
+	// A tail that a bisection did not shrink, and that is already at the
+	// level rounding leaves in the sampled functions (the edges' second
+	// differences amplify a source's rounding about 10⁵ times, and a source
+	// lowered to polar form rounds where its terms cancel), is noise: more
+	// panels would only resample it. A singularity's tail that does not
+	// shrink is far above that level and is still bisected.
+	noise := 1e-11 * scale
+	var visit func(p sinePanel, depth int, parentTail float64)
+	visit = func(p sinePanel, depth int, parentTail float64) {
+		t := q.tail(p)
+		stalled := depth > 0 && t > parentTail/1.5 && t <= noise
+		if depth < 20 && budget > 0 && !stalled && t*(p.hi-p.lo) > 0.1*radialTol(q.Tol)*scale*q.H {
 			budget--
 			mid := (p.lo + p.hi) / 2
-			visit(q.newPanel(p.lo, mid), depth+1)
-			visit(q.newPanel(mid, p.hi), depth+1)
+			visit(q.newPanel(p.lo, mid), depth+1, t)
+			visit(q.newPanel(mid, p.hi), depth+1, t)
 			return
 		}
 		out = append(out, p)
 	}
 	for _, p := range mesh {
-		visit(p, 0)
+		visit(p, 0, math.Inf(1))
 	}
 	return out
 }

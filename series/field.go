@@ -732,6 +732,15 @@ func compileExpr(e *Expr, env Env) (evalFunc, error) {
 			return func(r, theta, n float64) float64 { return a(r, theta, n) + b(r, theta, n) }, nil
 		case "*":
 			return func(r, theta, n float64) float64 { return a(r, theta, n) * b(r, theta, n) }, nil
+		case "^":
+			// A whole constant exponent, as in (x − 1/2)^2: by
+			// multiplication, not Pow (which was most of a sampled bump).
+			if c, ok := e.args[1].sum.Const(); ok && e.args[1].op == "sum" {
+				if q, ok := c.Rat(); ok && q.IsInt() && q.Num().IsInt64() && q.Num().Int64() >= 0 && q.Num().Int64() <= 64 {
+					k := q.Num().Int64()
+					return func(r, theta, n float64) float64 { return powInt(a(r, theta, n), k) }, nil
+				}
+			}
 		}
 		return func(r, theta, n float64) float64 { return op(a(r, theta, n), b(r, theta, n)) }, nil
 	}
