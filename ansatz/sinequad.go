@@ -42,9 +42,9 @@ type SineQuadrature struct {
 	dropped      float64
 	ffts         map[int]*fourier.FFT // by length
 	scale        float64              // the probes' largest mode, weighted by its share of u
-	modeBuf      []float64           // split's modes at a point
-	den          []float64           // 2k_m(1 − e^(−2k_m H))
-	lines        map[float64]*sineAt // lines already evaluated (a grid's rows), bounded
+	modeBuf      []float64            // split's modes at a point
+	den          []float64            // 2k_m(1 − e^(−2k_m H))
+	lines        map[float64]*sineAt  // lines already evaluated (a grid's rows), bounded
 }
 
 // The edge functions of a panel, by index: a_0, a_1, c_0, c_1 (values and
