@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"gonum.org/v1/gonum/dsp/fourier"
+	"gonum.org/v1/gonum/floats"
 )
 
 // SineQuadrature is a particular solution of Δu = g on the rectangle
@@ -456,10 +457,8 @@ func (q *SineQuadrature) split(p *sinePanel, y float64, out *sineAt, modes bool)
 			// The modes at t from the nodes, node by node so the inner
 			// loop runs along the modes.
 			clear(gt)
-			for j, l := range lw {
-				for m, v := range p.g[j][:q.Modes] {
-					gt[m] += l * v
-				}
+			for j, l := range lw { // gonum's vector kernel
+				floats.AddScaled(gt, l, p.g[j][:q.Modes])
 			}
 			e, a, b := 1.0, 1.0, 1.0
 			for m := 1; m <= q.Modes; m++ {

@@ -126,12 +126,8 @@ func (e *EigenSide) Prepare() error {
 		e.b[n] = proj[n] / norm
 	}
 	// Below the quadrature's rounding a coefficient is noise (a correction
-	// with no such mode): drop it. The rounding is that of the phase μs,
-	// up to μ_max·ℓ, in every cos(μs − δ): about ε·μ_max·ℓ of the data's
-	// size in each projection, at most twice that in b_n (the norm is
-	// about ℓ/2), and never below 1e-14.
+	// with no such mode): drop it.
 	floor := 1e-14 * maxAbsSlice(cs)
-
 	for n := range e.b {
 		if math.Abs(e.b[n]) < floor {
 			e.b[n] = 0
