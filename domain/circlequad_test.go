@@ -572,6 +572,23 @@ func TestKinkBesideNumericSource(t *testing.T) {
 	}
 }
 
+// max of two linear forms is a kink: Δu = max(x, y) = (x + y)/2 + |x − y|/2
+// is solved by v = (x³ + y³)/12 + |x − y|³/24 (Δ x³/12 = x/2, and
+// Δ|ℓ|³ = 6|ℓ||∇ℓ|² with |∇ℓ|² = 2: worked by hand), which takes its own
+// values on the rim as data; psol's answer inside is v, and exact.
+func TestMaxOfLinearFormsManufactured(t *testing.T) {
+	sol := solveWith(t, "lap(u) = max(x, y)", unitDisk, domain.Options{Tol: 1e-12}, "u = (x^3 + y^3)/12 + abs(x - y)^3/24")
+	ev := evaluator(t, sol, 1e-12)
+	for _, p := range [][2]float64{{0, 0}, {0.5, 0.3}, {-0.2, -0.7}, {0.6, 0.6}} {
+		x, y := p[0], p[1]
+		want := (x*x*x+y*y*y)/12 + math.Pow(math.Abs(x-y), 3)/24
+		got, est, _ := ev.AtXY(x, y)
+		if err := math.Abs(got - want); err > 1e-11 || err > 10*est+1e-14 {
+			t.Errorf("u(%g, %g) = %.14f, manufactured %.14f (estimate %.1g)", x, y, got, want, est)
+		}
+	}
+}
+
 // A manufactured solution with a kinked source: u = |y − 0.3|³/6 + x² − y²
 // has Δu = |y − 0.3| (d²/ds² |s|³/6 = |s|; x² − y² harmonic), and takes its
 // own values on the rim as data: psol's answer at points inside is u.

@@ -80,6 +80,36 @@ func TestLowering(t *testing.T) {
 	}
 }
 
+// max and min of two arguments are (a + b ± |a − b|)/2 (an identity for
+// all reals, common practice): the lowered field against math.Max and
+// math.Min at points, for linear and non-linear arguments.
+func TestMaxMin(t *testing.T) {
+	pts := [][2]float64{{0.3, 0.2}, {0.7, 2.5}, {1.1, 4.0}, {0.05, 5.9}}
+	for _, c := range []struct {
+		in   string
+		want func(x, y float64) float64
+	}{
+		{"max(x, y)", math.Max},
+		{"min(x - 1/5, 1 - y)", func(x, y float64) float64 { return math.Min(x-0.2, 1-y) }},
+		{"max(x^2, y) + 1", func(x, y float64) float64 { return math.Max(x*x, y) + 1 }},
+	} {
+		f, err := Expression("test", c.in, nil)
+		if err != nil {
+			t.Fatalf("%s: %v", c.in, err)
+		}
+		cf, err := f.Compile(nil)
+		if err != nil {
+			t.Fatalf("%s: %v", c.in, err)
+		}
+		for _, p := range pts {
+			x, y := p[0]*math.Cos(p[1]), p[0]*math.Sin(p[1])
+			if got, want := cf.At(p[0], p[1]), c.want(x, y); math.Abs(got-want) > 1e-14 {
+				t.Errorf("%s at (%g, %g): %.16g, want %.16g", c.in, x, y, got, want)
+			}
+		}
+	}
+}
+
 // Printed remainders read back as the same function: the text is psol's
 // syntax, so a claim or a formula copied from the output means what it did.
 func TestRemainderTextRoundTrip(t *testing.T) {
@@ -169,6 +199,9 @@ func TestBadInput(t *testing.T) {
 	}{
 		{"lap(u) = (1 + r", 16, "unexpected"},
 		{"lap(u) = sine(r)", 10, "unknown function"},
+		{"lap(u) = max(x)", 10, "max takes two arguments"},
+		{"lap(u) = min(x, y, 1)", 10, "min takes two arguments"},
+		{"lap(u) = max(u, 1)", 14, "may not appear inside max"},
 		{"u = 1", 1, "u appears outside lap(u)"},
 		{"lap(u) = u", 1, "u appears outside lap(u)"},
 		{"r*lap(u) = 1", 1, "must be a constant"},

@@ -486,6 +486,9 @@ func (lw *lowerer) call(c *call) (value, error) {
 	if c.Name == "delta" || c.Name == "δ" {
 		return lw.delta(c)
 	}
+	if c.Name == "max" || c.Name == "min" {
+		return lw.extremum(c)
+	}
 	if len(c.Args) != 1 {
 		return value{}, lw.fail(c.Pos, "%s takes one argument, not %d", c.Name, len(c.Args))
 	}
@@ -520,6 +523,37 @@ func (lw *lowerer) call(c *call) (value, error) {
 	return value{f: f}, nil
 }
 
+// extremum lowers max(a, b) and min(a, b) to (a + b ± abs(a − b))/2,
+// exact for every a and b: of linear forms it is a kink, whose particular
+// solution is closed (ansatz.Kink); of others, abs's pieces or quadrature.
+func (lw *lowerer) extremum(c *call) (value, error) {
+	if len(c.Args) != 2 {
+		return value{}, lw.fail(c.Pos, "%s takes two arguments, as in %s(x, 1 - y); not %d", c.Name, c.Name, len(c.Args))
+	}
+	var f [2]series.Field
+	for i, arg := range c.Args {
+		v, err := lw.choice(arg)
+		if err != nil {
+			return value{}, err
+		}
+		if v.hasUnknown() {
+			return value{}, lw.fail(arg.Pos, "%s may not appear inside %s(...); the problem must be linear", lw.unk(), c.Name)
+		}
+		if err := lw.noPoints(v, arg.Pos, "inside "+c.Name+"(...)"); err != nil {
+			return value{}, err
+		}
+		f[i] = v.f
+	}
+	gap, err := series.Apply("abs", f[0].Add(f[1].Neg()))
+	if err != nil {
+		return value{}, lw.fail(c.Pos, "%v", err)
+	}
+	if c.Name == "min" {
+		gap = gap.Neg()
+	}
+	return value{f: f[0].Add(f[1]).Add(gap).Scale(series.RatCoef(big.NewRat(1, 2)))}, nil
+}
+
 func knownFunctions() []string {
 	var names []string
 	for _, n := range []string{"sin", "cos", "tan", "exp", "log", "ln", "sqrt", "abs", "sinh", "cosh", "tanh", "atan"} {
@@ -527,6 +561,7 @@ func knownFunctions() []string {
 			names = append(names, n)
 		}
 	}
+	names = append(names, "max", "min") // of two arguments
 	sort.Strings(names)
 	return names
 }
