@@ -22,9 +22,9 @@ import (
 //	p_k(r) = −(1/2ν)[∫_A^r s (s/r)^ν g_k ds + ∫_r^R s (r/s)^ν g_k ds],
 //
 // which solves p” + p'/r − ν²p/r² = g_k. The integrals run on one mesh of
-// 16-point Gauss–Legendre panels shared by every point: halvings down to
-// R/64 towards the centre of a disk (where mode 0's kernel s ln s takes a
-// product rule, centreLogWeights), geometric out to infinity, and bisected
+// 16-point Gauss–Legendre panels shared by every point: halvings towards
+// the centre of a disk (centreLevels; mode 0's kernel s ln s takes a
+// product rule there, centreLogWeights), geometric out to infinity, and bisected
 // until each panel's Legendre tail of every g_k is below Tol. Each panel
 // takes the fewest angular samples that resolve all its rings, starting
 // from the probes' count scaled by its outer radius: a smooth source's
