@@ -739,37 +739,52 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 	return fit, check
 }
 
-// sectionHarmonicIntegral is ∬ h dA for h = Re F: by Green's theorem
-// ∬ F dA = (1/2i) ∮ F(z) z̄ dz, on each side with panels graded towards its
-// ends (the poles nearest a corner are close to it).
-func sectionHarmonicIntegral(h *rationalHarmonic, shape Shape) float64 {
+// sectionBoundary is, in one pass over each side's graded panels (F and F'
+// evaluated once a point), the harmonic part's area integral and each
+// side's flux ∫ ∂u/∂n ds, u_p's share by upOn(k) (a Neumann condition: its
+// operator is ∂u_p/∂n).
+//
+// The integral is by Green's theorem: with h = Re F (F analytic, less the
+// holes' logarithms), ∬ h dA = Re[(1/2i) ∮ F z̄ dz]; each hole's
+// c·log|z − c| enters through Δw = log|z − c| for w = |z − c|²(log|z − c| − 1)/4,
+// ∬ log|z − c| dA = ∮ ∂w/∂n ds.
+func sectionBoundary(h *rationalHarmonic, shape Shape, upOn func(k int) sideCondition) (integral float64, fluxes []float64) {
 	var total complex128
 	logs := 0.0
-	for _, side := range shape.Sides {
-		edges := gradedEdges()
+	edges := gradedEdges()
+	for k, side := range shape.Sides {
+		up := upOn(k)
+		flux := 0.0
 		for i := 0; i+1 < len(edges); i++ {
 			lo, hi := edges[i], edges[i+1]
 			for j, x := range ansatz.GaussX {
 				t := (lo+hi)/2 + (hi-lo)/2*x
 				px, py, nx, ny := side.At(t)
 				z := complex(px, py)
-				// dz = (tangent)·length·dt, the tangent being the normal turned left.
-				dz := complex(-ny, nx) * complex(side.Length*(hi-lo)/2*ansatz.GaussW[j], 0)
-				v, _ := h.complexValue(z)
+				ds := side.Length * (hi - lo) / 2 * ansatz.GaussW[j]
+				// dz = (tangent)·ds, the tangent being the normal turned left.
+				dz := complex(-ny, nx) * complex(ds, 0)
+				f, df := h.complexValue(z)
+				if h.shift != nil { // the flux takes ∇h whole: the shift's share too
+					_, dc := h.shift(z)
+					df += dc
+				}
+				_, dup := up.parts(t, px, py, nx, ny)
+				flux += ds * (dup + real(df*complex(nx, ny)))
 				// The holes' logarithms are not single-valued analytic
-				// functions: out of F here, and by Δw = log|z − c| for
-				// w = |z − c|²(log|z − c| − 1)/4 below.
-				for k, hb := range h.logs {
-					v -= complex(h.cLog[k], 0) * cmplx.Log(z-hb.c)
+				// functions: out of F for the integral, and by w below.
+				for m, hb := range h.logs {
+					f -= complex(h.cLog[m], 0) * cmplx.Log(z-hb.c)
 					d := z - hb.c
 					grad := d * complex((2*math.Log(abs(d))-1)/4, 0) // ∇w as x + iy
-					logs += h.cLog[k] * (real(grad)*nx + imag(grad)*ny) * side.Length * (hi - lo) / 2 * ansatz.GaussW[j]
+					logs += h.cLog[m] * (real(grad)*nx + imag(grad)*ny) * ds
 				}
-				total += v * cmplx.Conj(z) * dz
+				total += f * cmplx.Conj(z) * dz
 			}
 		}
+		fluxes = append(fluxes, flux)
 	}
-	return real(total/complex(0, 2)) + logs
+	return real(total/complex(0, 2)) + logs, fluxes
 }
 
 // complexValue is F(z), whose real part is h less a symmetric fit's shift,
@@ -868,7 +883,19 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 	if err != nil {
 		return err
 	}
-	rep.Integral = v + sectionHarmonicIntegral(s.Section.fit, shape)
+	up, err := compileSideCondition(Condition{Kind: Neumann, G: series.ExactField(series.Sum{})}, s.Particular, env)
+	if err != nil {
+		return err
+	}
+	upOn := func(k int) sideCondition {
+		c := up
+		if len(s.Section.quad) == len(shape.Sides) {
+			c.quad = s.Section.quad[k]
+		}
+		return c
+	}
+	hInt, fluxes := sectionBoundary(s.Section.fit, shape, upOn)
+	rep.Integral = v + hInt
 	if c, err := d.integral(s.Source); err == nil {
 		if c, v, err := sub(c, env); err == nil {
 			rep.SourceExact, rep.Source = &c, v
@@ -893,38 +920,12 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 	}
 	inside := InsideXY(d, env)
 	rep.Max, rep.ArgMax, rep.Min, rep.ArgMin = xyExtremes(shape, inside, ev)
-	up, err := compileSideCondition(Condition{Kind: Neumann, G: series.ExactField(series.Sum{})}, s.Particular, env)
-	if err != nil {
-		return err
-	}
 	rep.Sides, rep.Flux, rep.FluxExact = nil, 0, nil
 	for k, side := range shape.Sides {
-		if len(s.Section.quad) == len(shape.Sides) {
-			up.quad = s.Section.quad[k]
-		}
-		f := SideFlux{Side: side.Name, Value: sideFlux(side, up, s.Section.fit)}
+		f := SideFlux{Side: side.Name, Value: fluxes[k]}
 		rep.Sides, rep.Flux = append(rep.Sides, f), rep.Flux+f.Value
 	}
 	return nil
-}
-
-// sideFlux is ∫ ∂u/∂n ds over a side: u_p's normal derivative from its exact
-// derivatives and h's from F' (∂h/∂n = Re(F'ν)), by Gauss–Legendre on panels
-// graded towards the side's ends, where the poles crowd.
-func sideFlux(side SidePath, up sideCondition, h *rationalHarmonic) float64 {
-	total := 0.0
-	edges := gradedEdges()
-	for i := 0; i+1 < len(edges); i++ {
-		lo, hi := edges[i], edges[i+1]
-		for j, x := range ansatz.GaussX {
-			t := (lo+hi)/2 + (hi-lo)/2*x
-			px, py, nx, ny := side.At(t)
-			_, dup := up.parts(t, px, py, nx, ny) // up is Neumann: its operator is ∂u_p/∂n
-			_, df := h.value(complex(px, py))
-			total += ansatz.GaussW[j] * (hi - lo) / 2 * side.Length * (dup + real(df*complex(nx, ny)))
-		}
-	}
-	return total
 }
 
 // gradedEdges are panel edges on [0, 1], halving 40 times towards each end.
