@@ -506,21 +506,31 @@ func (lw *lowerer) call(c *call) (value, error) {
 	if !series.IsFunction(c.Name) {
 		return value{}, lw.fail(c.Pos, "unknown function %q (known: %s)", c.Name, strings.Join(knownFunctions(), " "))
 	}
-	v, err := lw.choice(arg)
+	v, err := lw.argument(c.Name, arg)
 	if err != nil {
 		return value{}, err
 	}
-	if v.hasUnknown() {
-		return value{}, lw.fail(arg.Pos, "%s may not appear inside %s(...); the problem must be linear", lw.unk(), c.Name)
-	}
-	if err := lw.noPoints(v, arg.Pos, "inside "+c.Name+"(...)"); err != nil {
-		return value{}, err
-	}
-	f, err := series.Apply(c.Name, v.f)
+	f, err := series.Apply(c.Name, v)
 	if err != nil {
 		return value{}, lw.fail(arg.Pos, "%v", err)
 	}
 	return value{f: f}, nil
+}
+
+// argument lowers a function's argument: a function of position alone
+// (no unknown, which would make the problem nonlinear, and no point source).
+func (lw *lowerer) argument(name string, arg *choice) (series.Field, error) {
+	v, err := lw.choice(arg)
+	if err != nil {
+		return series.Field{}, err
+	}
+	if v.hasUnknown() {
+		return series.Field{}, lw.fail(arg.Pos, "%s may not appear inside %s(...); the problem must be linear", lw.unk(), name)
+	}
+	if err := lw.noPoints(v, arg.Pos, "inside "+name+"(...)"); err != nil {
+		return series.Field{}, err
+	}
+	return v.f, nil
 }
 
 // extremum lowers max(a, b) and min(a, b) to (a + b ± abs(a − b))/2,
@@ -532,17 +542,10 @@ func (lw *lowerer) extremum(c *call) (value, error) {
 	}
 	var f [2]series.Field
 	for i, arg := range c.Args {
-		v, err := lw.choice(arg)
-		if err != nil {
+		var err error
+		if f[i], err = lw.argument(c.Name, arg); err != nil {
 			return value{}, err
 		}
-		if v.hasUnknown() {
-			return value{}, lw.fail(arg.Pos, "%s may not appear inside %s(...); the problem must be linear", lw.unk(), c.Name)
-		}
-		if err := lw.noPoints(v, arg.Pos, "inside "+c.Name+"(...)"); err != nil {
-			return value{}, err
-		}
-		f[i] = v.f
 	}
 	gap, err := series.Apply("abs", f[0].Add(f[1].Neg()))
 	if err != nil {
