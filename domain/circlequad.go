@@ -215,25 +215,37 @@ func quadratureNote(q *ansatz.Quadrature, rest *series.Expr, where, how string, 
 // modes stop after the last one above the tolerance's share.
 //
 // The tail returned is what the modes left out add up to, the bound on
-// their share of the data.
+// their share of the solution: a value datum of mode k moves u by about
+// itself, a slope datum by about r/k (the harmonic part's r^k or r^−k has
+// slope k/r), so slopes are weighted by r/k. Beyond the modes computed,
+// Σ_{k>n} a·(n/k)⁴ ≤ a·n/3 for values and Σ a·(n/k)⁴·r/k ≤ a·r/4 for slopes,
+// a the last coefficient.
 func addModes(pm, dpm [][2]float64, q *ansatz.Quadrature, r float64, slope bool, most int) (p, dp [][2]float64, tail float64) {
 	kp, kdp := q.KinkModes(r, most)
 	use := kp // the data the side's condition reads: values, or with a flux the slopes
 	if slope {
 		use = kdp
 	}
+	share := func(m int) float64 { // a mode's datum's share of u, per unit
+		if slope {
+			return r / float64(max(m, 1))
+		}
+		return 1
+	}
 	size := 0.0
-	for _, v := range use {
-		size = math.Max(size, math.Hypot(v[0], v[1]))
+	for m, v := range use {
+		size = math.Max(size, math.Hypot(v[0], v[1])*share(m))
 	}
 	// The fewest modes whose omitted rest — those computed, summed, and
-	// beyond them Σ_{k>n} a·(n/k)⁴ ≤ a·n/3, a the last coefficient — is
-	// within a quarter of the tolerance.
-	last := use[len(use)-1]
-	tail = math.Hypot(last[0], last[1]) * float64(len(use)) / 3
-	top := len(use) - 1
+	// beyond them the k⁻⁴ tail — is within a quarter of the tolerance.
+	last := len(use) - 1
+	tail = math.Hypot(use[last][0], use[last][1]) * float64(len(use)) / 3
+	if slope {
+		tail = math.Hypot(use[last][0], use[last][1]) * r / 4
+	}
+	top := last
 	for top > 0 {
-		a := math.Hypot(use[top][0], use[top][1])
+		a := math.Hypot(use[top][0], use[top][1]) * share(top)
 		if tail+a > q.Tol*size/4 {
 			break
 		}
