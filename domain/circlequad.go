@@ -47,7 +47,7 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		}
 		if q.Left == nil { // the kinks were the source's whole numeric part
 			sol.Numeric = false
-			sol.Notes = append(sol.Notes, "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable); its trace on each circle is given by exact Fourier coefficients, whose general term carries the angles where the line crosses the circle")
+			sol.Notes = append(sol.Notes, exactKinkNote)
 			return nil
 		}
 	}
@@ -193,6 +193,9 @@ func kinkedQuadrature(p *posed, a, R float64) (*ansatz.Quadrature, error) {
 	return q, nil
 }
 
+// exactKinkNote says how kinks with exact traces were taken.
+const exactKinkNote = "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable); its trace on each circle is given by exact Fourier coefficients, whose general term carries the angles where the line crosses the circle"
+
 // quadratureNote says how the source's remainder was taken: the kinks'
 // closed parts, and the quadrature of what is left.
 func quadratureNote(q *ansatz.Quadrature, rest *series.Expr, where, how string, kinksExact bool) string {
@@ -201,7 +204,7 @@ func quadratureNote(q *ansatz.Quadrature, rest *series.Expr, where, how string, 
 	}
 	note := "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable; its trace's Fourier coefficients, which fall like k^-4, by an FFT of at least 16384 samples)"
 	if kinksExact {
-		note = "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable); its trace on each circle is given by exact Fourier coefficients, whose general term carries the angles where the line crosses the circle"
+		note = exactKinkNote
 	}
 	if q.Left != nil {
 		note += fmt.Sprintf("; the rest, %s, is by quadrature%s (%s)", q.Left.Text(), where, how)

@@ -733,8 +733,9 @@ func compileExpr(e *Expr, env Env) (evalFunc, error) {
 		case "*":
 			return func(r, theta, n float64) float64 { return a(r, theta, n) * b(r, theta, n) }, nil
 		case "^":
-			// A whole constant exponent, as in (x − 1/2)^2: by
-			// multiplication, not Pow (which was most of a sampled bump).
+			// A whole constant exponent on an expression the lowering left
+			// unexpanded, as in 1/(1 + x)^2: by multiplication, not Pow
+			// (a costly call at every sample).
 			if c, ok := e.args[1].sum.Const(); ok && e.args[1].op == "sum" {
 				if q, ok := c.Rat(); ok && q.IsInt() && q.Num().IsInt64() && q.Num().Int64() >= 0 && q.Num().Int64() <= 64 {
 					k := q.Num().Int64()
