@@ -14,8 +14,6 @@ import (
 	"strings"
 	"testing"
 
-	"gonum.org/v1/plot/vg/draw"
-
 	"psol/domain"
 	"psol/parse"
 	"psol/series"
@@ -463,7 +461,7 @@ func TestIsolines(t *testing.T) {
 			}
 		}
 	}
-	l := newIsolines(f, []float64{0.25, 0.81}, draw.LineStyle{})
+	l := newIsolines(f, []float64{0.25, 0.81})
 	if len(l.segs) < 50 {
 		t.Fatalf("%d segments", len(l.segs))
 	}
@@ -497,20 +495,19 @@ func TestContourLabelsApart(t *testing.T) {
 	for i := 1; i <= 12; i++ {
 		levels = append(levels, f.min+(f.max-f.min)*float64(i)/13)
 	}
-	labels := contourLabels(f, levels, 2, 2)
-	if labels == nil || len(labels.XYs) < 4 {
+	bw, bh := 0.2, 0.08 // the box contourLabels keeps clear, in data units
+	labels := contourLabels(f, levels, bw, bh)
+	if len(labels) < 4 {
 		t.Fatalf("too few labels placed: %v", labels)
 	}
-	// The box contourLabels reserves, in data units.
-	bw, bh := 0.45/5.3*2, 0.17/4.6*2
-	for i, p := range labels.XYs {
-		for j, q := range labels.XYs[:i] {
-			if math.Abs(p.X-q.X) < bw && math.Abs(p.Y-q.Y) < bh {
+	for i, p := range labels {
+		for j, q := range labels[:i] {
+			if math.Abs(p.x-q.x) < bw && math.Abs(p.y-q.y) < bh {
 				t.Errorf("labels %d (%v) and %d (%v) overlap", i, p, j, q)
 			}
 		}
 		for _, d := range [][2]float64{{0, 0}, {bw, 0}, {0, bh}, {bw, bh}} {
-			if h := math.Hypot(p.X+d[0], p.Y+d[1]); h >= 1 || h <= 0.2 {
+			if h := math.Hypot(p.x+d[0], p.y+d[1]); h >= 1 || h <= 0.2 {
 				t.Errorf("label %d's box reaches outside the region at %v", i, d)
 			}
 		}

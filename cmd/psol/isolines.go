@@ -2,10 +2,6 @@ package main
 
 import (
 	"math"
-
-	"gonum.org/v1/plot"
-	"gonum.org/v1/plot/vg"
-	"gonum.org/v1/plot/vg/draw"
 )
 
 // isolines are contour lines of a sampled field by marching squares, drawn
@@ -14,12 +10,11 @@ import (
 // linear in the cells (the general contour tracer joins paths and excises
 // loops, which took seconds on fields with holes).
 type isolines struct {
-	segs  [][4]float64 // x0, y0, x1, y1 in data coordinates
-	style draw.LineStyle
+	segs [][4]float64 // x0, y0, x1, y1 in data coordinates
 }
 
-func newIsolines(f *field, levels []float64, style draw.LineStyle) *isolines {
-	out := &isolines{style: style}
+func newIsolines(f *field, levels []float64) *isolines {
+	out := &isolines{}
 	for r := 0; r+1 < f.ny; r++ {
 		for c := 0; c+1 < f.nx; c++ {
 			z := [4]float64{f.Z(c, r), f.Z(c+1, r), f.Z(c+1, r+1), f.Z(c, r+1)} // counter-clockwise from the lower left
@@ -55,16 +50,4 @@ func newIsolines(f *field, levels []float64, style draw.LineStyle) *isolines {
 		}
 	}
 	return out
-}
-
-// Plot implements plot.Plotter.
-func (l *isolines) Plot(c draw.Canvas, p *plot.Plot) {
-	tx, ty := p.Transforms(&c)
-	c.SetLineStyle(l.style)
-	for _, s := range l.segs {
-		var path vg.Path
-		path.Move(vg.Point{X: tx(s[0]), Y: ty(s[1])})
-		path.Line(vg.Point{X: tx(s[2]), Y: ty(s[3])})
-		c.Stroke(path)
-	}
 }

@@ -8,10 +8,8 @@ import (
 	"path/filepath"
 	"strings"
 
-	"gonum.org/v1/plot"
 	"gonum.org/v1/plot/palette"
 	"gonum.org/v1/plot/palette/moreland"
-	"gonum.org/v1/plot/plotter"
 	"gonum.org/v1/plot/vg"
 	"gonum.org/v1/plot/vg/draw"
 	"gonum.org/v1/plot/vg/vgimg"
@@ -53,20 +51,13 @@ func (f *field) Max() float64       { return f.max }
 
 // bounds is the region's bounding box (a window around an unbounded one)
 // and its sides as polylines.
-func bounds(d domain.Domain, env series.Env) (x0, x1, y0, y1 float64, edges []plotter.XYs, err error) {
+func bounds(d domain.Domain, env series.Env) (x0, x1, y0, y1 float64, edges [][][2]float64, err error) {
 	shape, err := d.Shape(env)
 	if err != nil {
 		return 0, 0, 0, 0, nil, err
 	}
-	for _, line := range shape.Outline(200) {
-		xy := make(plotter.XYs, len(line))
-		for i, p := range line {
-			xy[i] = plotter.XY{X: p[0], Y: p[1]}
-		}
-		edges = append(edges, xy)
-	}
 	b := shape.Box
-	return b.X0, b.X1, b.Y0, b.Y1, edges, nil
+	return b.X0, b.X1, b.Y0, b.Y1, shape.Outline(200), nil
 }
 
 // polarSampler evaluates u on nr + 1 rings from rlo to rhi, nt angles each
@@ -128,7 +119,7 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 	clip := 3 * math.Max(f.dx, f.dy)
 	nearSource := func(x, y float64) bool {
 		for _, s := range sources {
-			if math.Hypot(x-s.X, y-s.Y) < clip {
+			if math.Hypot(x-s[0], y-s[1]) < clip {
 				return true
 			}
 		}
@@ -165,56 +156,19 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 	cm := plotPalette()
 	cm.SetMin(f.min)
 	cm.SetMax(f.max)
-	p := plot.New()
-	p.Title.Text = title
-	p.X.Label.Text = "x"
-	p.Y.Label.Text = "y"
-	heat := plotter.NewHeatMap(f, cm.Palette(255))
-	heat.NaN = color.Transparent
-	heat.Rasterized = true // one image, without seams between the cells
-	heat.Min, heat.Max = f.min, f.max
-	p.Add(heat)
 	var levels []float64
 	for i := 1; i <= 8; i++ {
 		levels = append(levels, f.min+(f.max-f.min)*float64(i)/9)
 	}
-	p.Add(newIsolines(f, levels, draw.LineStyle{Color: color.NRGBA{A: 200}, Width: vg.Points(0.6)}))
-	for _, e := range edges {
-		l, err := plotter.NewLine(e)
-		if err != nil {
-			return err
-		}
-		l.Width = vg.Points(1.5)
-		p.Add(l)
-	}
-	if len(sources) > 0 { // each point source marked
-		sc, err := plotter.NewScatter(sources)
-		if err != nil {
-			return err
-		}
-		sc.GlyphStyle = draw.GlyphStyle{Shape: draw.CrossGlyph{}, Radius: vg.Points(4), Color: color.NRGBA{R: 200, A: 255}}
-		p.Add(sc)
-	}
 	// Equal scales on both axes, so that the domain keeps its true shape.
-	if w, h := x1-x0, y1-y0; w > h {
-		c := (y0 + y1) / 2
-		y0, y1 = c-w/2, c+w/2
-	} else {
-		c := (x0 + x1) / 2
-		x0, x1 = c-h/2, c+h/2
+	chart := &mapChart{
+		title: title, f: f, colours: cm, edges: edges, sources: sources,
+		lines:     newIsolines(f, levels),
+		lineStyle: draw.LineStyle{Color: color.NRGBA{A: 200}, Width: vg.Points(0.6)},
+		levels:    levels,
+		x0:        x0, x1: x1, y0: y0, y1: y1,
 	}
-	p.X.Min, p.X.Max, p.Y.Min, p.Y.Max = x0, x1, y0, y1
-	// Labels last: their boxes depend on the window's size in data units.
-	if labels := contourLabels(f, levels, x1-x0, y1-y0); labels != nil {
-		p.Add(labels)
-	}
-	cb := &plotter.ColorBar{ColorMap: cm, Vertical: true}
-	bar2 := plot.New()
-	bar2.Add(cb)
-	bar2.HideX()
-	bar2.Y.Label.Text = "u"
-
-	width, height := 7*vg.Inch, 5.6*vg.Inch
+	width, height := chart.size()
 	var canvas vg.CanvasWriterTo
 	switch format {
 	case "svg":
@@ -222,33 +176,18 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 	default:
 		canvas = vgimg.PngCanvas{Canvas: vgimg.New(width, height)}
 	}
-	dc := draw.New(canvas)
-	main := draw.Crop(dc, 0, -1.4*vg.Inch, 0, 0)
-	// The colour bar sits inside the canvas, with a margin on the right.
-	side := draw.Crop(dc, width-1.45*vg.Inch, -0.3*vg.Inch, 0.45*vg.Inch, -0.6*vg.Inch)
-	p.Draw(main)
-	bar2.Draw(side)
+	chart.draw(draw.New(canvas))
 	_, err = canvas.WriteTo(w)
 	return err
 }
 
-// plainPalette is a one-colour palette for contour lines.
-type plainPalette []color.Color
-
-func (p plainPalette) Colors() []color.Color { return p }
-
 // contourLabels puts each level's value beside a grid point where u is
-// closest to it, away from the others.
-func contourLabels(f *field, levels []float64, winW, winH float64) *plotter.Labels {
-	var xys plotter.XYs
-	var texts []string
-	// A label's box in cells: about six characters wide and one line tall
-	// on the 160-point field (a 10 pt font on a map about 5 inches wide).
-	// The text starts at its point and runs right and up from it: about
-	// 0.45 in by 0.17 in on a map about 5.3 in by 4.6 in (a 10 pt font),
-	// in cells of the field, which covers only part of the window.
-	bw := max(int(math.Ceil(0.45/5.3*winW/f.dx)), 2)
-	bh := max(int(math.Ceil(0.17/4.6*winH/f.dy)), 1)
+// closest to it, away from the others. A label's box is boxW by boxH in
+// data units; its text starts at its point and runs right and up.
+func contourLabels(f *field, levels []float64, boxW, boxH float64) []chartLabel {
+	var out []chartLabel
+	bw := max(int(math.Ceil(boxW/f.dx)), 2)
+	bh := max(int(math.Ceil(boxH/f.dy)), 1)
 	inside := func(c, r int) bool {
 		for _, d := range [][2]int{{0, 0}, {bw, 0}, {0, bh}, {bw, bh}, {bw / 2, bh / 2}, {-1, -1}, {bw + 1, bh + 1}} {
 			cc, rr := c+d[0], r+d[1]
@@ -289,17 +228,9 @@ func contourLabels(f *field, levels []float64, winW, winH float64) *plotter.Labe
 			continue // no clear place: drop the label rather than overlap
 		}
 		placed = append(placed, [2]int{bc, br})
-		xys = append(xys, plotter.XY{X: f.X(bc), Y: f.Y(br)})
-		texts = append(texts, fmt.Sprintf("%.3g", lv))
+		out = append(out, chartLabel{x: f.X(bc), y: f.Y(br), text: fmt.Sprintf("%.3g", lv)})
 	}
-	if len(xys) == 0 {
-		return nil
-	}
-	l, err := plotter.NewLabels(plotter.XYLabels{XYs: xys, Labels: texts})
-	if err != nil {
-		return nil
-	}
-	return l
+	return out
 }
 
 func abs(n int) int {
@@ -321,11 +252,11 @@ func plotFormat(path string) (string, error) {
 }
 
 // pointSources are the positions of the solution's point sources.
-func pointSources(sol *domain.Solution) (plotter.XYs, error) {
+func pointSources(sol *domain.Solution) ([][2]float64, error) {
 	if sol.Points == nil {
 		return nil, nil
 	}
-	var out plotter.XYs
+	var out [][2]float64
 	for _, p := range sol.Points.Sources {
 		x, err := p.X.Float(sol.Options.Env)
 		if err != nil {
@@ -335,7 +266,7 @@ func pointSources(sol *domain.Solution) (plotter.XYs, error) {
 		if err != nil {
 			return nil, err
 		}
-		out = append(out, plotter.XY{X: x, Y: y})
+		out = append(out, [2]float64{x, y})
 	}
 	return out, nil
 }
