@@ -302,6 +302,7 @@ func FuzzParse(f *testing.F) {
 		f.Add(s)
 	}
 	f.Fuzz(func(t *testing.T, in string) {
+		checkScanner(t, in)
 		if fld, err := Equation(in, nil); err == nil && fld.IsExact() && len(fld.Text()) <= MaxInput {
 			read := func(s string) (series.Field, error) { return Expression("fuzz", s, nil) }
 			if len(fld.Points) > 0 { // point sources read back as a source

@@ -157,27 +157,16 @@ type call struct {
 	Args []*choice `parser:"@@ ( \",\" @@ )* \")\""`
 }
 
-// tokens is the lexer, built on first use with the parsers.
-var tokens = sync.OnceValue(func() *lexer.StatefulDefinition {
-	return lexer.MustSimple([]lexer.SimpleRule{
-		{Name: "Space", Pattern: `\s+`},
-		{Name: "Lap", Pattern: `Δ|∇²|∇\^2`},
-		{Name: "Number", Pattern: `(\d+\.\d+|\d+|\.\d+)([eE][-+]?\d+)?`},
-		{Name: "Ident", Pattern: `[\p{L}_][\p{L}\p{N}_]*`},
-		{Name: "Punct", Pattern: `\*\*|<=|>=|!=|\.\.|[-+*/^()=?:<>,]`},
-	})
-})
-
 // The parsers are built once, on first use: a run that reads no input
 // (psol version, --help) does not pay the few milliseconds of building them.
 var (
 	statementParser = sync.OnceValue(func() *participle.Parser[statement] {
 		return participle.MustBuild[statement](
-			participle.Lexer(tokens()), participle.Elide("Space"), participle.UseLookahead(2))
+			participle.Lexer(scanner{}), participle.Elide("Space"), participle.UseLookahead(2))
 	})
 	bindingsParser = sync.OnceValue(func() *participle.Parser[bindings] {
 		return participle.MustBuild[bindings](
-			participle.Lexer(tokens()), participle.Elide("Space"), participle.UseLookahead(2))
+			participle.Lexer(scanner{}), participle.Elide("Space"), participle.UseLookahead(2))
 	})
 )
 
