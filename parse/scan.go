@@ -163,3 +163,19 @@ func scanIdent(in string) int {
 	}
 	return n
 }
+
+// Names are the identifiers in text, in order and with repeats, as the
+// scanner reads them; a character no token takes is skipped.
+func Names(text string) []string {
+	var out []string
+	for text != "" {
+		kind, n := scanToken(text)
+		if n == 0 {
+			_, n = utf8.DecodeRuneInString(text)
+		} else if kind == tokIdent {
+			out = append(out, text[:n])
+		}
+		text = text[n:]
+	}
+	return out
+}

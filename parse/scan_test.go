@@ -1,6 +1,7 @@
 package parse
 
 import (
+	"strings"
 	"sync"
 	"testing"
 
@@ -69,6 +70,21 @@ func BenchmarkScan(b *testing.B) {
 			if err != nil || tok.EOF() {
 				break
 			}
+		}
+	}
+}
+
+func TestNames(t *testing.T) {
+	for _, c := range []struct {
+		in   string
+		want string
+	}{
+		{"lap(u) = -q/k*exp(-2e5*r)", "lap u q k exp r"},
+		{"a@b ∇²c_1 x²", "a b c_1 x²"},
+		{"", ""},
+	} {
+		if got := strings.Join(Names(c.in), " "); got != c.want {
+			t.Errorf("Names(%q) = %q, want %q", c.in, got, c.want)
 		}
 	}
 }

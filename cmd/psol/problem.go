@@ -4,7 +4,6 @@ import (
 	"errors"
 	"fmt"
 	"math/big"
-	"regexp"
 	"sort"
 	"strings"
 
@@ -322,14 +321,12 @@ func (p *problemFlags) regionTexts() []string {
 	return append(out, p.holes...)
 }
 
-var identifier = regexp.MustCompile(`[\p{L}_][\p{L}\p{N}_]*`)
-
 // unusedLets are the --let names that no input text mentions (besides their
 // own binding), e.g. a misspelt parameter: they are likely a mistake.
 func (pr *problem) unusedLets(more ...string) []string {
 	count := map[string]int{}
 	for _, text := range append(append([]string(nil), pr.inputs...), more...) {
-		for _, id := range identifier.FindAllString(text, -1) {
+		for _, id := range parse.Names(text) {
 			count[id]++
 		}
 	}
