@@ -731,9 +731,19 @@ func (q *Quadrature) TraceError(r float64, slope bool) float64 {
 	return m.err
 }
 
+// recentRadii is how many radii's modes a quadrature keeps: a check
+// walks each side's points and a step inward from each, and a sector's two
+// rays visit the same radii (about 50 in all).
+const recentRadii = 32
+
+// sameRadius says whether a radius's cached modes serve r: equal to a few
+// units in the last place (two rays' points reach one radius by different
+// arithmetic), where the modes differ by rounding only.
+func sameRadius(a, r float64) bool { return math.Abs(a-r) <= 2e-15*r }
+
 func (q *Quadrature) mode(r float64) *modeAt {
 	for _, m := range q.recent {
-		if m.r == r {
+		if sameRadius(m.r, r) {
 			return m
 		}
 	}
@@ -761,7 +771,7 @@ func (q *Quadrature) mode(r float64) *modeAt {
 		tail = tailSum(size)
 	}
 	m := &modeAt{r, math.Max(errV, floor) + q.dropped, math.Max(errD, floor) + q.dropped, tail, p, dp}
-	if len(q.recent) == 8 {
+	if len(q.recent) == recentRadii {
 		q.recent = q.recent[1:]
 	}
 	q.recent = append(q.recent, m)
@@ -959,17 +969,17 @@ func (q *Quadrature) At(r, theta float64) (float64, float64) {
 // sample it at many radii. It equals At's value.
 func (q *Quadrature) Value(r, theta float64) float64 {
 	for _, m := range q.recent {
-		if m.r == r {
+		if sameRadius(m.r, r) {
 			return q.sum(m.p, r, theta)
 		}
 	}
 	for _, m := range q.recentFine {
-		if m.r == r {
+		if sameRadius(m.r, r) {
 			return q.sum(m.p, r, theta)
 		}
 	}
 	p, _ := q.eval(q.fine, r)
-	if len(q.recentFine) == 8 {
+	if len(q.recentFine) == recentRadii {
 		q.recentFine = q.recentFine[1:]
 	}
 	q.recentFine = append(q.recentFine, &modeAt{r: r, p: p})

@@ -205,12 +205,21 @@ func (e *Evaluator) costly() bool { return e.quad != nil || e.sq != nil }
 // The path differs from the straight normal by O(s²), which the one-sided
 // difference (exact for quadratics) does not see.
 func inwardLine(shape Shape, ev *Evaluator, u func(x, y float64) float64, px, py, nx, ny float64) func(s float64) float64 {
+	line, _ := inwardPath(shape, ev, u, px, py, nx, ny)
+	return func(s float64) float64 { v, _ := line(s); return v }
+}
+
+// inwardPath is inwardLine with the evaluator's own error estimate at each
+// point where the path curves; curved is false, and the estimate 0, where it
+// is straight and u gives none.
+func inwardPath(shape Shape, ev *Evaluator, u func(x, y float64) float64, px, py, nx, ny float64) (line func(s float64) (v, est float64), curved bool) {
+	straight := func(s float64) (float64, float64) { return u(px-s*nx, py-s*ny), 0 }
 	if shape.Polar == nil || ev.walls != nil {
-		return func(s float64) float64 { return u(px-s*nx, py-s*ny) }
+		return straight, false
 	}
 	r := math.Hypot(px, py)
 	if r < 100*shape.step() { // near the centre the angular step s/r is not small: go straight
-		return func(s float64) float64 { return u(px-s*nx, py-s*ny) }
+		return straight, false
 	}
 	th := math.Atan2(py, px)
 	if th < 0 {
@@ -221,8 +230,8 @@ func inwardLine(shape Shape, ev *Evaluator, u func(x, y float64) float64, px, py
 	}
 	nr := nx*math.Cos(th) + ny*math.Sin(th)
 	nt := -nx*math.Sin(th) + ny*math.Cos(th)
-	return func(s float64) float64 {
-		v, _, _ := ev.At(r-s*nr, th-s*nt/r)
-		return v
-	}
+	return func(s float64) (float64, float64) {
+		v, est, _ := ev.At(r-s*nr, th-s*nt/r)
+		return v, est
+	}, true
 }

@@ -94,8 +94,17 @@ func (s *Solution) verifyIndependently() (worst float64, side string, ok bool) {
 			}
 			gt := gAt(t)
 			px, py, nx, ny := path.At(t)
-			line := inwardLine(shape, ev, u, px, py, nx, ny)
-			_, est, _ := ev.AtXY(px-h*nx, py-h*ny) // the series' own tail there: not a defect
+			path, curved := inwardPath(shape, ev, u, px, py, nx, ny)
+			line := func(s float64) float64 { v, _ := path(s); return v }
+			// The series' own tail one step in: not a defect. Taken on the
+			// inward path where it curves, whose points keep the side's
+			// radius on a ray (a radius the quadrature has evaluated).
+			var est float64
+			if curved {
+				_, est = path(h)
+			} else {
+				_, est, _ = ev.AtXY(px-h*nx, py-h*ny)
+			}
 			if cond.Kind != Dirichlet {
 				est /= h // it enters the difference quotient
 			}
