@@ -218,11 +218,11 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		if errL != nil || errH != nil {
 			return nil, unsupported("the source part %s needs the rectangle's sides as numbers: %w", rest.Text(), errors.Join(errL, errH))
 		}
-		cf, err := series.Field{Rest: rest}.Compile(p.env)
+		cf, err := series.Field{Rest: rest}.CompileXY(p.env, cart.PolyLeaf(p.env))
 		if err != nil {
 			return nil, unsupported("the source %s needs every parameter's value: %w", rest.Text(), err)
 		}
-		sq = &ansatz.SineQuadrature{G: func(x, y float64) float64 { return cf.At(math.Hypot(x, y), math.Atan2(y, x)) }, L: L, H: H, Tol: p.tol}
+		sq = &ansatz.SineQuadrature{G: cf.At, L: L, H: H, Tol: p.tol}
 		sq.Prepare()
 	}
 	data := map[string]sideData{}
@@ -235,7 +235,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 				continue
 			}
 		}
-		cf, err := cond.G.Compile(p.env)
+		cf, err := cond.G.CompileXY(p.env, cart.PolyLeaf(p.env))
 		if err == nil && (errL != nil || errH != nil) {
 			err = fmt.Errorf("the rectangle's sides need values for numeric data: %w", errors.Join(errL, errH))
 		}
@@ -245,15 +245,15 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		geo := edgeNamed(name)
 		data[name] = sideData{fn: func(s float64) float64 {
 			x, y := geo.point(s, L, H)
-			return cf.At(math.Hypot(x, y), math.Atan2(y, x))
+			return cf.At(x, y)
 		}, text: cond.G.Text()}
 		if g, err := cart.FromPolar(cond.G.Exact); err == nil && cond.G.Rest != nil && !cond.G.IsPiecewise() {
-			if rf, err := (series.Field{Rest: cond.G.Rest}).Compile(p.env); err == nil {
+			if rf, err := (series.Field{Rest: cond.G.Rest}).CompileXY(p.env, cart.PolyLeaf(p.env)); err == nil {
 				tr := d.trace(name, Condition{Kind: Dirichlet}, g)
 				sd := data[name]
 				sd.base, sd.rest = &tr, func(s float64) float64 {
 					x, y := geo.point(s, L, H)
-					return rf.At(math.Hypot(x, y), math.Atan2(y, x))
+					return rf.At(x, y)
 				}
 				data[name] = sd
 			}
@@ -715,7 +715,7 @@ func negligible(correction, size func(float64) float64, length series.Coef, env 
 // step: an independent look at the quadrature.
 func sineQuadratureCheck(sq *ansatz.SineQuadrature, rest *series.Expr, env series.Env, L, H float64) Check {
 	out := Check{Name: "lap(u_q) - f_q (sampled, the numeric part)"}
-	fc, err := series.Field{Rest: rest}.Compile(env)
+	fc, err := series.Field{Rest: rest}.CompileXY(env, cart.PolyLeaf(env))
 	if err != nil {
 		return out
 	}
@@ -728,7 +728,7 @@ func sineQuadratureCheck(sq *ansatz.SineQuadrature, rest *series.Expr, env serie
 				return (u(x+h, y) + u(x-h, y) + u(x, y+h) + u(x, y-h) - 4*u(x, y)) / (h * h)
 			}
 			fd := (4*lap(h/2) - lap(h)) / 3
-			out.Numeric = math.Max(out.Numeric, math.Abs(fd-fc.At(math.Hypot(x, y), math.Atan2(y, x))))
+			out.Numeric = math.Max(out.Numeric, math.Abs(fd-fc.At(x, y)))
 		}
 	}
 	return out
@@ -762,8 +762,8 @@ func (d Rect) figures(s *Solution, ev *Evaluator, rep *Report, env series.Env, t
 	if s.Rect.Quadrature != nil {
 		L, _ := d.L.Float(env)
 		H, _ := d.H.Float(env)
-		if fc, err := (series.Field{Rest: s.Rect.QuadratureSource}).Compile(env); err == nil {
-			rep.Source += integrateRect(func(x, y float64) float64 { return fc.At(math.Hypot(x, y), math.Atan2(y, x)) }, L, H)
+		if fc, err := (series.Field{Rest: s.Rect.QuadratureSource}).CompileXY(env, cart.PolyLeaf(env)); err == nil {
+			rep.Source += integrateRect(fc.At, L, H)
 		}
 		rep.SourceExact = nil
 	}

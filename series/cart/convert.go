@@ -39,6 +39,22 @@ func FromPolar(s series.Sum) (Poly, error) {
 	return out, nil
 }
 
+// PolyLeaf gives series.Field.CompileXY the evaluators of the exact sums
+// that are polynomials in x and y, their parameters' values from env.
+func PolyLeaf(env series.Env) func(series.Sum) (func(x, y float64) float64, bool) {
+	return func(s series.Sum) (func(x, y float64) float64, bool) {
+		p, err := FromPolar(s)
+		if err != nil {
+			return nil, false
+		}
+		c, err := p.Compile(env)
+		if err != nil {
+			return nil, false
+		}
+		return c.At, true
+	}
+}
+
 // zPower is the real and imaginary parts of (x + iy)^m by the binomial theorem.
 func zPower(m int) (re, im Poly) {
 	binom := big.NewInt(1)
