@@ -63,6 +63,11 @@ type Quadrature struct {
 	Kinks []Kink
 	// Left is the source part G samples when Kinks are set (nil: none).
 	Left *series.Expr
+	// Fold, when set, says that sample j of n on a ring (θ_j = Period·j/n)
+	// is sign times sample i ≤ j, and i == j for a sample G must give: a
+	// sector's extension by reflections repeats its first quarter, so a
+	// ring evaluates G there only.
+	Fold func(j, n int) (i int, sign float64)
 
 	coarse, fine []panel
 	dropped      float64 // a bound on the particular solution of the modes not kept
@@ -184,6 +189,12 @@ func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
 	x := q.buf[:n]
 	P := q.period()
 	for j := range x {
+		if q.Fold != nil {
+			if i, sign := q.Fold(j, n); i != j {
+				x[j] = sign * x[i]
+				continue
+			}
+		}
 		x[j] = q.G(s, P*float64(j)/float64(n))
 		q.sourceSize = math.Max(q.sourceSize, math.Abs(x[j]))
 	}

@@ -251,30 +251,25 @@ func (b *sectorBuilder) concrete() []int {
 // Fourier modes are the rays' eigenfunctions Φ_n, and the particular solution
 // of each (ansatz.Quadrature) meets the ray conditions. Its arc traces join
 // the mode systems as decimals.
-func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) error {
-	cf, err := series.Field{Rest: p.rest}.Compile(p.env)
-	if err != nil {
-		return unsupported("the source %s needs every parameter's value: %w", p.rest.Text(), err)
-	}
-	R, err := b.s.R.Float(p.env)
-	if err != nil {
-		return err
-	}
-	alpha, _ := b.s.Alpha.Float(nil)
-	s0, s1 := 1.0, 1.0
+// raySigns are the extension's signs across the rays: odd (−1) about a
+// Dirichlet ray, even about a Neumann one.
+func raySigns(startD, endD bool) (s0, s1 float64) {
+	s0, s1 = 1, 1
 	if startD {
 		s0 = -1
 	}
 	if endD {
 		s1 = -1
 	}
-	// Take the source's values on Dirichlet rays and slopes on Neumann rays
-	// out first (RayLift): otherwise its extension jumps or kinks there and
-	// its modes fall like 1/k or 1/k².
-	lift, angles := ansatz.LiftRays(cf.At, R, b.s.Alpha, startD, endD, p.tol)
-	b.liftPolys = angles
-	src := func(r, th float64) float64 { return cf.At(r, th) - lift.Lap(r, th) }
-	ext := func(r, th float64) float64 {
+	return s0, s1
+}
+
+// sectorExtension is src on 0 ≤ θ ≤ α extended to the period 4α by a
+// reflection about each ray, odd about a Dirichlet ray and even about a
+// Neumann one, so that the extension's modes are the rays' eigenfunctions.
+func sectorExtension(src func(r, th float64) float64, alpha float64, startD, endD bool) func(r, th float64) float64 {
+	s0, s1 := raySigns(startD, endD)
+	return func(r, th float64) float64 {
 		sign := 1.0
 		if th >= 2*alpha { // a reflection about each ray: a shift by 2α
 			th, sign = th-2*alpha, s0*s1
@@ -288,6 +283,45 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 		}
 		return sign * src(r, th)
 	}
+}
+
+// sectorFold is sectorExtension's reflections on a ring's samples, by
+// index: sample j of n over the period 4α (n a multiple of 4) is sign
+// times sample i of the first quarter, where G is evaluated.
+func sectorFold(startD, endD bool) func(j, n int) (i int, sign float64) {
+	s0, s1 := raySigns(startD, endD)
+	return func(j, n int) (int, float64) {
+		if n%4 != 0 {
+			return j, 1
+		}
+		sign := 1.0
+		if j >= n/2 {
+			j, sign = j-n/2, s0*s1
+		}
+		if j > n/4 {
+			j, sign = n/2-j, sign*s1
+		}
+		return j, sign
+	}
+}
+
+func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) error {
+	cf, err := series.Field{Rest: p.rest}.Compile(p.env)
+	if err != nil {
+		return unsupported("the source %s needs every parameter's value: %w", p.rest.Text(), err)
+	}
+	R, err := b.s.R.Float(p.env)
+	if err != nil {
+		return err
+	}
+	alpha, _ := b.s.Alpha.Float(nil)
+	// Take the source's values on Dirichlet rays and slopes on Neumann rays
+	// out first (RayLift): otherwise its extension jumps or kinks there and
+	// its modes fall like 1/k or 1/k².
+	lift, angles := ansatz.LiftRays(cf.At, R, b.s.Alpha, startD, endD, p.tol)
+	b.liftPolys = angles
+	src := func(r, th float64) float64 { return cf.At(r, th) - lift.Lap(r, th) }
+	ext := sectorExtension(src, alpha, startD, endD)
 	// ν_k = kπ/(2α) = ν_n for k = 2n + 2(α/π)·offset, of the family's kind.
 	twoOff := new(big.Rat).Mul(new(big.Rat).Mul(b.a, b.fam.Offset), big.NewRat(2, 1))
 	off := int(twoOff.Num().Int64()) // 0 or −1
@@ -299,7 +333,7 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 		return n, n >= b.fam.From
 	}
 	q := &ansatz.Quadrature{G: ext, A: 0, R: R, Period: 4 * alpha, Tol: p.tol, Lift: lift, MaxSamples: p.quadSamples, MaxBisections: p.quadBisections,
-		Keep: func(k int, sin bool) bool { _, ok := index(k); return ok && sin == b.fam.Sin }}
+		Keep: func(k int, sin bool) bool { _, ok := index(k); return ok && sin == b.fam.Sin }, Fold: sectorFold(startD, endD)}
 	if err := q.Prepare(); err != nil {
 		return unsolvable("%s: %w", p.rest.Text(), err)
 	}
