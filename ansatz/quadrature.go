@@ -70,10 +70,10 @@ type Quadrature struct {
 	Fold func(j, n int) (i int, sign float64)
 
 	coarse, fine []panel
-	dropped      float64 // a bound on the particular solution of the modes not kept
-	ffts         map[int]*fourier.FFT
-	sourceSize   float64   // the largest |g| sampled (SourceSize)
-	peakRadii    []float64 // where |g| peaks (peaks), found once by Prepare
+	dropped      float64               // a bound on the particular solution of the modes not kept
+	plans        map[int]*ringSampling // by the number of samples
+	sourceSize   float64               // the largest |g| sampled (SourceSize)
+	peakRadii    []float64             // where |g| peaks (peaks), found once by Prepare
 	buf          []float64
 	scale        float64   // the probes' largest mode, weighted by its share of p
 	used         int       // the most angular samples a panel took
@@ -175,30 +175,21 @@ func (q *Quadrature) nu(k int) float64 { return float64(k) * q.omega() }
 // ring is the Fourier coefficients of g on the circle of radius s from n
 // samples: a[k] cos, b[k] sin, k < n/2.
 func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
-	if q.ffts == nil {
-		q.ffts = map[int]*fourier.FFT{}
-	}
-	fft, ok := q.ffts[n]
-	if !ok {
-		fft = fourier.NewFFT(n)
-		q.ffts[n] = fft
-	}
+	plan := q.ringPlan(n)
 	if len(q.buf) < n {
 		q.buf = make([]float64, n)
 	}
 	x := q.buf[:n]
 	P := q.period()
 	for j := range x {
-		if q.Fold != nil {
-			if i, sign := q.Fold(j, n); i != j {
-				x[j] = sign * x[i]
-				continue
-			}
+		if i := plan.from[j]; i != j {
+			x[j] = plan.sign[j] * x[i]
+			continue
 		}
 		x[j] = q.G(s, P*float64(j)/float64(n))
 		q.sourceSize = math.Max(q.sourceSize, math.Abs(x[j]))
 	}
-	c := fft.Coefficients(nil, x)
+	c := plan.fft.Coefficients(nil, x)
 	a, b = make([]float64, n/2), make([]float64, n/2)
 	for k := 0; k < n/2; k++ {
 		a[k] = 2 * real(c[k]) / float64(n)
@@ -212,14 +203,46 @@ func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
 		big = math.Max(big, math.Max(math.Abs(a[k]), math.Abs(b[k])))
 	}
 	for k := range a {
-		if math.Abs(a[k]) < 1e-14*big || q.Keep != nil && !q.Keep(k, false) {
+		if math.Abs(a[k]) < 1e-14*big || !plan.keepCos[k] {
 			a[k] = 0
 		}
-		if math.Abs(b[k]) < 1e-14*big || q.Keep != nil && !q.Keep(k, true) {
+		if math.Abs(b[k]) < 1e-14*big || !plan.keepSin[k] {
 			b[k] = 0
 		}
 	}
 	return a, b
+}
+
+// ringSampling is what every ring of n samples shares: the FFT, where each
+// sample comes from (Fold, as a table), and the modes kept (Keep).
+type ringSampling struct {
+	fft              *fourier.FFT
+	from             []int
+	sign             []float64
+	keepCos, keepSin []bool
+}
+
+func (q *Quadrature) ringPlan(n int) *ringSampling {
+	if plan, ok := q.plans[n]; ok {
+		return plan
+	}
+	plan := &ringSampling{fft: fourier.NewFFT(n), from: make([]int, n), sign: make([]float64, n),
+		keepCos: make([]bool, n/2), keepSin: make([]bool, n/2)}
+	for j := range plan.from {
+		plan.from[j], plan.sign[j] = j, 1
+		if q.Fold != nil {
+			plan.from[j], plan.sign[j] = q.Fold(j, n)
+		}
+	}
+	for k := range plan.keepCos {
+		plan.keepCos[k] = q.Keep == nil || q.Keep(k, false)
+		plan.keepSin[k] = q.Keep == nil || q.Keep(k, true)
+	}
+	if q.plans == nil {
+		q.plans = map[int]*ringSampling{}
+	}
+	q.plans[n] = plan
+	return plan
 }
 
 // newPanel samples g at the panel's nodes with the fewest angular samples
