@@ -189,7 +189,7 @@ func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
 		x[j] = q.G(s, P*float64(j)/float64(n))
 		q.sourceSize = math.Max(q.sourceSize, math.Abs(x[j]))
 	}
-	c := plan.fft.Coefficients(nil, x)
+	c := plan.fft.Coefficients(plan.coef, x)
 	a, b = make([]float64, n/2), make([]float64, n/2)
 	for k := 0; k < n/2; k++ {
 		a[k] = 2 * real(c[k]) / float64(n)
@@ -217,6 +217,7 @@ func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
 // sample comes from (Fold, as a table), and the modes kept (Keep).
 type ringSampling struct {
 	fft              *fourier.FFT
+	coef             []complex128 // the transform's output, reused
 	from             []int
 	sign             []float64
 	keepCos, keepSin []bool
@@ -226,7 +227,7 @@ func (q *Quadrature) ringPlan(n int) *ringSampling {
 	if plan, ok := q.plans[n]; ok {
 		return plan
 	}
-	plan := &ringSampling{fft: fourier.NewFFT(n), from: make([]int, n), sign: make([]float64, n),
+	plan := &ringSampling{fft: fourier.NewFFT(n), coef: make([]complex128, n/2+1), from: make([]int, n), sign: make([]float64, n),
 		keepCos: make([]bool, n/2), keepSin: make([]bool, n/2)}
 	for j := range plan.from {
 		plan.from[j], plan.sign[j] = j, 1

@@ -42,6 +42,7 @@ type SineQuadrature struct {
 	coarse, fine []sinePanel
 	dropped      float64
 	ffts         map[int]*fourier.FFT // by length
+	coef         []complex128         // the transforms' output, reused
 	scale        float64              // the probes' largest mode, weighted by its share of u
 	modeBuf      []float64            // split's modes at a point
 	den          []float64            // 2k_m(1 − e^(−2k_m H))
@@ -128,7 +129,10 @@ func (q *SineQuadrature) columnOf(y float64, n int) (g []float64, e [4]float64) 
 		v := q.G(x, y) - p0*e[0] - r0*e[1] - p1*e[2] - r1*e[3]
 		ext[j], ext[2*n-j] = v, -v
 	}
-	c := fft.Coefficients(nil, ext)
+	if len(q.coef) < n+1 {
+		q.coef = make([]complex128, n+1)
+	}
+	c := fft.Coefficients(q.coef[:n+1], ext)
 	g = make([]float64, n-1)
 	for m := 1; m < n; m++ {
 		g[m-1] = -imag(c[m]) / float64(n) // (2/L)∫ g̃ sin(k_m x) dx by the trapezoidal rule on the odd extension
