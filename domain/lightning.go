@@ -417,7 +417,16 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	// raw is each column's norm before the images' sum: a column the sum
 	// cancels to rounding (a term of the wrong parity) is dropped below.
 	raw := make([]float64, nc)
-	fill := func(i int, p boundaryPoint, scaleBy float64) {
+	logCol := 2*nPole + 2*(degree+1) + 2*nPower // the hole logarithms' first column
+	// fill adds point p's row (scaled) to row i. With netFlux, p is a point
+	// of a hole's net-flux quadrature and only the hole logarithms are
+	// filled: every other term is Re F of an F analytic and single-valued
+	// in the section (poles and powers have their singularities and cuts
+	// outside it, or at a corner where F vanishes), so its flux through a
+	// closed curve, Im ∮ F'(z) dz, is exactly 0 by Cauchy's theorem. The
+	// quadrature gave that 0 only to its own error, on some 7000 points a
+	// hole: three times the fit's rows, filled in full.
+	fill := func(i int, p boundaryPoint, scaleBy float64, netFlux bool) {
 		row := A.RawRowView(i) // the row in place: At and Set's checks were a fifth of the fit
 		add := func(_, col int, v float64) {
 			row[col] += v
@@ -442,6 +451,19 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 				row[col+1] += im
 				raw[col+1] += im * im
 			}
+		}
+		// log|z − c| alone (each hole's centre is fixed by a symmetry): the
+		// pair's second column, arg(z − c), is multivalued around the hole
+		// and stays 0 (dropped as empty).
+		logs := func() {
+			for k, hb := range h.logs {
+				d := z - hb.c
+				add(i, logCol+2*k, scaleBy*p.w*(p.a*math.Log(abs(d))+p.b*real(nu/d)))
+			}
+		}
+		if netFlux { // only the hole logarithms: see above
+			logs()
+			return
 		}
 		for e, pole := range h.poles {
 			d := recip(z - pole)
@@ -470,14 +492,8 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 		h.powerTerms(z, t, dt)
 		images(col, powerImg, t, dt)
 		col += 2 * nPower
-		for _, hb := range h.logs {
-			// log|z − c| alone (each hole's centre is fixed by a symmetry):
-			// the pair's second column, arg(z − c), is multivalued around
-			// the hole and stays 0 (dropped as empty).
-			d := z - hb.c
-			add(i, col, scaleBy*p.w*(p.a*math.Log(abs(d))+p.b*real(nu/d)))
-			col += 2
-		}
+		logs()
+		col += 2 * len(h.logs)
 		t, dt = h.terms(len(h.laurent))
 		h.laurentTerms(z, t, dt)
 		images(col, laurentImg, t, dt)
@@ -493,14 +509,14 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 		}
 	}
 	for i, p := range pts {
-		fill(i, p, 1)
+		fill(i, p, 1, false)
 		b.SetVec(i, p.w*(p.data-shiftOp(p)))
 	}
 	for k, c := range constraints {
 		const heavy = 1e3
 		target := c.target
 		for _, p := range c.pts {
-			fill(len(pts)+k, p, heavy)
+			fill(len(pts)+k, p, heavy, true)
 			target -= p.w * shiftOp(p)
 		}
 		b.SetVec(len(pts)+k, heavy*target)

@@ -744,3 +744,43 @@ func BenchmarkThinWalledTube(b *testing.B) {
 		})
 	}
 }
+
+// A hole's net-flux condition holds: the fit takes the condition's row from
+// the hole logarithms alone (every other term is single-valued, its flux 0
+// by Cauchy's theorem), and the report's own quadrature of the hole's side
+// fluxes, an independent path, finds the prescribed flux: a thin
+// rectangular tube (the hole's corners) and an off-centre circular hole (no
+// symmetry), each against the divergence theorem too.
+func TestHoleNetFluxHolds(t *testing.T) {
+	rim := polygonXY(0, 0, 0.1, 0, 0.1, 0.06, 0, 0.06)
+	for _, c := range []struct {
+		name       string
+		hole       domain.CircleHole
+		flux, area float64 // the hole's prescribed flux, the section's area
+	}{
+		{"thin tube", domain.CircleHole{Poly: polygonXY(0.005, 0.005, 0.095, 0.005, 0.095, 0.055, 0.005, 0.055)}, 2 * 0.09 * 0.05, 0.1*0.06 - 0.09*0.05},
+		{"off-centre circle", domain.CircleHole{X: decimalCoef(0.035), Y: decimalCoef(0.025), R: decimalCoef(0.01)}, 2 * math.Pi * 0.01 * 0.01, 0.1*0.06 - math.Pi*0.01*0.01},
+	} {
+		d := domain.Holed{Outer: rim, Holes: []domain.CircleHole{c.hole}}
+		conds := append(sidesOf(d, "s", "u = 0"), sidesOf(d, "hole1", fmt.Sprintf("u = const, flux = %.17g", c.flux))...)
+		sol := solveWith(t, "lap(u) = -2", d, domain.Options{Tol: 1e-12}, conds...)
+		rep, err := sol.Report(nil, 1e-12)
+		if err != nil {
+			t.Fatal(err)
+		}
+		hole, net := 0.0, 0.0
+		for _, f := range rep.Sides {
+			net += f.Value
+			if strings.HasPrefix(f.Side, "hole1") {
+				hole += f.Value
+			}
+		}
+		if math.Abs(hole-c.flux) > 1e-8*c.flux {
+			t.Errorf("%s: the hole's sides carry %.12g in all, want the prescribed %.12g", c.name, hole, c.flux)
+		}
+		// Δu = −2 over the section: the net outward flux is −2 × its area.
+		if math.Abs(net+2*c.area) > 1e-8*2*c.area {
+			t.Errorf("%s: net outward flux %.12g, want −2·area = %.12g", c.name, net, -2*c.area)
+		}
+	}
+}
