@@ -46,6 +46,13 @@ type boundaryPoint struct {
 
 // residual is the point's weighted condition residual for h.
 func (p boundaryPoint) residual(h *rationalHarmonic) float64 {
+	if p.b == 0 { // a value condition reads no derivative
+		v := h.valueOnly(p.z)
+		if p.floating >= 0 {
+			v -= h.floatingU[p.floating]
+		}
+		return p.w * math.Abs(p.a*v-p.data)
+	}
 	v, df := h.value(p.z)
 	if p.floating >= 0 {
 		v -= h.floatingU[p.floating]
@@ -186,8 +193,13 @@ func (h *rationalHarmonic) polyVar(z complex128) (Z, dZ complex128) {
 
 // polyBasis is q_0..q_D at z and their derivatives in z, by the stored
 // recurrence: q_{k+1} = (Z q_k − Σ_{j≤k} H[j][k] q_j)/H[k+1][k], Z from polyVar.
+// With dq nil only the values: half the work, which is O(D²).
 func (h *rationalHarmonic) polyBasis(z complex128, q, dq []complex128) {
 	Z, dZ := h.polyVar(z)
+	if dq == nil {
+		h.polyValues(Z, q)
+		return
+	}
 	q[0], dq[0] = 1, 0
 	for k := 0; k < h.degree; k++ {
 		v := Z * q[k]
@@ -210,6 +222,71 @@ func (h *rationalHarmonic) polyBasis(z complex128, q, dq []complex128) {
 	}
 }
 
+// polyValues is polyBasis's values alone, at Z = polyVar(z).
+func (h *rationalHarmonic) polyValues(Z complex128, q []complex128) {
+	q[0] = 1
+	for k := 0; k < h.degree; k++ {
+		v := Z * q[k]
+		if h.realHess {
+			vr, vi := real(v), imag(v)
+			for j, c := range h.hess[k][:k+1] {
+				vr -= real(c) * real(q[j])
+				vi -= real(c) * imag(q[j])
+			}
+			v = complex(vr, vi)
+		} else {
+			for j, c := range h.hess[k][:k+1] {
+				v -= c * q[j]
+			}
+		}
+		inv := 1 / real(h.hess[k][k+1])
+		q[k+1] = complex(real(v)*inv, imag(v)*inv)
+	}
+}
+
+// valueOnly is h(z) without the derivative (value), for points where a
+// value is all that is read: about half the work.
+func (h *rationalHarmonic) valueOnly(z complex128) float64 {
+	var f complex128
+	for j, p := range h.poles {
+		f += h.cPole[j] * recip(z-p)
+	}
+	var qa [64]complex128 // on the stack for the usual degrees
+	q := qa[:0]
+	if h.degree < len(qa) {
+		q = qa[:h.degree+1]
+	} else {
+		q = make([]complex128, h.degree+1)
+	}
+	h.polyBasis(z, q, nil)
+	for k := range q {
+		f += h.cPoly[k] * q[k]
+	}
+	for k, hb := range h.logs {
+		f += complex(h.cLog[k]*math.Log(abs(z-hb.c)), 0) // Re log = log|·|: the real part is all that is read
+	}
+	t, dt := h.terms(len(h.laurent))
+	h.laurentTerms(z, t, dt)
+	for k, c := range h.cLaurent {
+		f += c * t[k]
+	}
+	for k, j := range h.mobiusK {
+		v, _ := h.mobius.term(z, j)
+		f += h.cMobius[k] * v
+	}
+	t, dt = h.terms(len(h.powers))
+	h.powerTerms(z, t, dt)
+	for k, c := range h.cPower {
+		f += c * t[k]
+	}
+	v := real(f)
+	if h.shift != nil {
+		c, _ := h.shift(z)
+		v += c
+	}
+	return v
+}
+
 // value is h(z) and the derivative F'(z) of the F with h = Re F
 // (∇h = (Re F', −Im F')).
 func (h *rationalHarmonic) value(z complex128) (float64, complex128) {
@@ -222,10 +299,7 @@ func (h *rationalHarmonic) value(z complex128) (float64, complex128) {
 }
 
 // AtXY is h(x, y).
-func (h *rationalHarmonic) AtXY(x, y float64) float64 {
-	v, _ := h.value(complex(x, y))
-	return v
-}
+func (h *rationalHarmonic) AtXY(x, y float64) float64 { return h.valueOnly(complex(x, y)) }
 
 // arnoldi builds the Hessenberg matrix of the polynomial basis on the
 // sample points Z (scaled), orthonormal in the mean over them; with realCoef
