@@ -139,6 +139,7 @@ func cornerPowers(c corner, K int) []cornerPower {
 // Arnoldi recurrence that evaluates the polynomial part anywhere.
 type rationalHarmonic struct {
 	scratch  []complex128 // terms' buffers (terms)
+	basis    []complex128 // the polynomial basis's buffers (basisScratch)
 	poles    []complex128
 	cPole    []complex128 // h's pole part: Re Σ cPole_j/(z − p_j)
 	powers   []cornerPower
@@ -205,11 +206,29 @@ func (h *rationalHarmonic) polyBasis(z complex128, q, dq []complex128) {
 		v := Z * q[k]
 		dv := q[k]*dZ + Z*dq[k]
 		if h.realHess {
-			for j := 0; j <= k; j++ {
-				c := real(h.hess[k][j])
-				v -= complex(c*real(q[j]), c*imag(q[j]))
-				dv -= complex(c*real(dq[j]), c*imag(dq[j]))
+			// Even and odd j apart: eight independent sums (see polyValues).
+			vr, vi, dvr, dvi := real(v), imag(v), real(dv), imag(dv)
+			var wr, wi, dwr, dwi float64
+			row, j := h.hess[k][:k+1], 0
+			for ; j+1 < len(row); j += 2 {
+				c0, c1 := real(row[j]), real(row[j+1])
+				vr -= c0 * real(q[j])
+				vi -= c0 * imag(q[j])
+				dvr -= c0 * real(dq[j])
+				dvi -= c0 * imag(dq[j])
+				wr -= c1 * real(q[j+1])
+				wi -= c1 * imag(q[j+1])
+				dwr -= c1 * real(dq[j+1])
+				dwi -= c1 * imag(dq[j+1])
 			}
+			if j < len(row) {
+				c := real(row[j])
+				vr -= c * real(q[j])
+				vi -= c * imag(q[j])
+				dvr -= c * real(dq[j])
+				dvi -= c * imag(dq[j])
+			}
+			v, dv = complex(vr+wr, vi+wi), complex(dvr+dwr, dvi+dwi)
 		} else {
 			for j := 0; j <= k; j++ {
 				v -= h.hess[k][j] * q[j]
@@ -228,12 +247,22 @@ func (h *rationalHarmonic) polyValues(Z complex128, q []complex128) {
 	for k := 0; k < h.degree; k++ {
 		v := Z * q[k]
 		if h.realHess {
-			vr, vi := real(v), imag(v)
-			for j, c := range h.hess[k][:k+1] {
-				vr -= real(c) * real(q[j])
-				vi -= real(c) * imag(q[j])
+			// Two sums each, even and odd j: independent chains the
+			// processor overlaps (one chain waits on every add).
+			vr, vi, wr, wi := real(v), imag(v), 0.0, 0.0
+			row, j := h.hess[k][:k+1], 0
+			for ; j+1 < len(row); j += 2 {
+				c0, c1 := real(row[j]), real(row[j+1])
+				vr -= c0 * real(q[j])
+				vi -= c0 * imag(q[j])
+				wr -= c1 * real(q[j+1])
+				wi -= c1 * imag(q[j+1])
 			}
-			v = complex(vr, vi)
+			if j < len(row) {
+				vr -= real(row[j]) * real(q[j])
+				vi -= real(row[j]) * imag(q[j])
+			}
+			v = complex(vr+wr, vi+wi)
 		} else {
 			for j, c := range h.hess[k][:k+1] {
 				v -= c * q[j]
@@ -251,13 +280,7 @@ func (h *rationalHarmonic) valueOnly(z complex128) float64 {
 	for j, p := range h.poles {
 		f += h.cPole[j] * recip(z-p)
 	}
-	var qa [64]complex128 // on the stack for the usual degrees
-	q := qa[:0]
-	if h.degree < len(qa) {
-		q = qa[:h.degree+1]
-	} else {
-		q = make([]complex128, h.degree+1)
-	}
+	q, _ := h.basisScratch()
 	h.polyBasis(z, q, nil)
 	for k := range q {
 		f += h.cPoly[k] * q[k]

@@ -796,13 +796,7 @@ func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
 		f += h.cPole[j] * d
 		df -= h.cPole[j] * d * d
 	}
-	var qa, dqa [64]complex128 // on the stack for the usual degrees
-	q, dq := qa[:0], dqa[:0]
-	if h.degree < len(qa) {
-		q, dq = qa[:h.degree+1], dqa[:h.degree+1]
-	} else {
-		q, dq = make([]complex128, h.degree+1), make([]complex128, h.degree+1)
-	}
+	q, dq := h.basisScratch()
 	h.polyBasis(z, q, dq)
 	for k := range q {
 		f += h.cPoly[k] * q[k]
@@ -831,6 +825,17 @@ func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
 		df += c * dt[k]
 	}
 	return f, df
+}
+
+// basisScratch are h's scratch slices for the polynomial basis and its
+// derivatives (a fresh pair per point above degree 63 was a megabyte an
+// evaluation pass); like terms, not for concurrent use.
+func (h *rationalHarmonic) basisScratch() (q, dq []complex128) {
+	n := h.degree + 1
+	if len(h.basis) < 2*n {
+		h.basis = make([]complex128, 2*n)
+	}
+	return h.basis[:n], h.basis[n : 2*n]
 }
 
 // terms are h's scratch slices for n terms' values and derivatives: an
