@@ -364,7 +364,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 					t := (float64(i) + (x+1)/2) / 32
 					px, py, _, _ := side.At(t)
 					r, th := polarOf(px, py)
-					v, _ := best.value(complex(px, py))
+					v := best.valueOnly(complex(px, py))
 					v += conds[k].up.At(r, th)
 					if quad != nil {
 						q, _ := quad.At(r, th)
@@ -404,9 +404,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		change := 0.0
 		if prev != nil {
 			for _, p := range lastCheck {
-				a, _ := best.value(p.z)
-				b, _ := prev.value(p.z)
-				change = math.Max(change, math.Abs(a-b))
+				change = math.Max(change, math.Abs(best.valueOnly(p.z)-prev.valueOnly(p.z)))
 			}
 		}
 		sol.DataError = math.Max(best.residual*math.Max(1, geo.scale), change)
