@@ -37,6 +37,7 @@ func chartText(size vg.Length, xa draw.XAlignment, ya draw.YAlignment) draw.Text
 // region's outline, point sources, contour labels, axes, a colour bar and a title.
 type mapChart struct {
 	title          string
+	unknown        string // the colour bar's name: the equation's unknown
 	f              *field
 	colours        palette.ColorMap // over [f.min, f.max]
 	lines          *isolines
@@ -200,9 +201,10 @@ func (m *mapChart) draw(c draw.Canvas) {
 		c.FillText(yTick, vg.Point{X: yAxis - vg.Points(chartMajor+2), Y: y}, lbl)
 		last = y
 	}
-	yStyle := chartText(vg.Points(12), draw.XCenter, draw.YBottom)
+	// The name turned a quarter, centred half its height left of the values.
+	yStyle := chartText(vg.Points(12), draw.XCenter, draw.YCenter)
 	yStyle.Rotation = math.Pi / 2
-	c.FillText(yStyle, vg.Point{X: yAxis - vg.Points(chartMajor+4) - widest, Y: (mapMin.Y + mapMax.Y) / 2}, yName)
+	c.FillText(yStyle, vg.Point{X: yAxis - vg.Points(chartMajor+6) - widest - yStyle.FontExtents().Height/2, Y: (mapMin.Y + mapMax.Y) / 2}, yName)
 
 	// The title, centred over the map.
 	for i, line := range titleLines {
@@ -232,7 +234,7 @@ func (m *mapChart) draw(c draw.Canvas) {
 		c.StrokeLine2(axis, bx1, y, bx1+vg.Points(chartMajor), y)
 		c.FillText(valueStyle, vg.Point{X: bx1 + vg.Points(chartMajor+2), Y: y}, tickLabel(v, major))
 	}
-	c.FillText(chartText(vg.Points(12), draw.XCenter, draw.YBottom), vg.Point{X: (bx0 + bx1) / 2, Y: by1 + vg.Points(4)}, "u")
+	c.FillText(chartText(vg.Points(12), draw.XCenter, draw.YBottom), vg.Point{X: (bx0 + bx1) / 2, Y: by1 + vg.Points(4)}, m.unknown)
 }
 
 // colour is z's colour on the map's scale (clamped to its ends).

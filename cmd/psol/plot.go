@@ -86,7 +86,7 @@ func polarSampler(ev *domain.Evaluator, rlo, rhi float64, nr, nt int) func(r, th
 
 // plotSolution draws a filled map of u over the true domain, labelled
 // contour lines, the boundary, a colour bar, axes and a title.
-func plotSolution(w io.Writer, format string, title string, sol *domain.Solution, scale *[2]float64) error {
+func plotSolution(w io.Writer, format string, title, unknown string, sol *domain.Solution, scale *[2]float64) error {
 	env := sol.Options.Env
 	x0, x1, y0, y1, edges, err := bounds(sol.Domain, env)
 	if err != nil {
@@ -162,7 +162,7 @@ func plotSolution(w io.Writer, format string, title string, sol *domain.Solution
 	}
 	// Equal scales on both axes, so that the domain keeps its true shape.
 	chart := &mapChart{
-		title: title, f: f, colours: cm, edges: edges, sources: sources,
+		title: title, unknown: unknown, f: f, colours: cm, edges: edges, sources: sources,
 		lines:     newIsolines(f, levels),
 		lineStyle: draw.LineStyle{Color: color.NRGBA{A: 200}, Width: vg.Points(0.6)},
 		levels:    levels,

@@ -103,7 +103,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 	if o.plot != "" {
 		format, _ := plotFormat(o.plot)
 		title := plotTitle(pr)
-		if err := files.stage(o.plot, func(w io.Writer) error { return plotSolution(w, format, title, sol, o.scaleLH) }); err != nil {
+		if err := files.stage(o.plot, func(w io.Writer) error { return plotSolution(w, format, title, pr.unknown, sol, o.scaleLH) }); err != nil {
 			return err
 		}
 	}
