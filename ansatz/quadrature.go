@@ -223,6 +223,7 @@ type ringSampling struct {
 	keepCos, keepSin []bool
 }
 
+// ringPlan is the ringSampling for n samples, built on first use.
 func (q *Quadrature) ringPlan(n int) *ringSampling {
 	if plan, ok := q.plans[n]; ok {
 		return plan
@@ -232,7 +233,11 @@ func (q *Quadrature) ringPlan(n int) *ringSampling {
 	for j := range plan.from {
 		plan.from[j], plan.sign[j] = j, 1
 		if q.Fold != nil {
-			plan.from[j], plan.sign[j] = q.Fold(j, n)
+			// A sample may come only from one before it, which ring has
+			// filled; any other answer is taken as "evaluate".
+			if i, sign := q.Fold(j, n); i >= 0 && i < j {
+				plan.from[j], plan.sign[j] = i, sign
+			}
 		}
 	}
 	for k := range plan.keepCos {

@@ -228,10 +228,10 @@ func (e *EigenSide) projections(ns, ws, cs []float64) []float64 {
 	return proj
 }
 
-// uniformProjections are the projections of projections for P equal
-// panels of 16 nodes (data without breaks) and evenly spaced μ_n = (n₀ +
-// n)π/ℓ (a value or a flux at each end, so a constant δ), by FFT: node k of
-// panel p sits at s = (p + t_k)Δ, Δ = ℓ/P, t_k = (1 + x_k)/2, so
+// uniformProjections are projections' sums by FFT, for data on P equal
+// panels of 16 nodes (no breaks) and evenly spaced μ_n = (n₀ + n)π/ℓ (a
+// value or a flux at each end, so a constant δ): node k of panel p sits at
+// s = (p + t_k)Δ, Δ = ℓ/P, t_k = (1 + x_k)/2, so
 //
 //	Σ_{p,k} W_k c_pk cos(μ_n s − δ) = Re[e^(−iδ) Σ_k W_k e^(iμ_n t_k Δ) X_k(n)],
 //	X_k(n) = Σ_p c_pk e^(iπ n₀ p/P) e^(2πi n p/(2P)),

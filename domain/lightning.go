@@ -274,34 +274,9 @@ func (h *rationalHarmonic) polyValues(Z complex128, q []complex128) {
 }
 
 // valueOnly is h(z) without the derivative (value), for points where a
-// value is all that is read: about half the work.
+// value is all that is read: about half the work (evaluate).
 func (h *rationalHarmonic) valueOnly(z complex128) float64 {
-	var f complex128
-	for j, p := range h.poles {
-		f += h.cPole[j] * recip(z-p)
-	}
-	q, _ := h.basisScratch()
-	h.polyBasis(z, q, nil)
-	for k := range q {
-		f += h.cPoly[k] * q[k]
-	}
-	for k, hb := range h.logs {
-		f += complex(h.cLog[k]*math.Log(abs(z-hb.c)), 0) // Re log = log|·|: the real part is all that is read
-	}
-	t, dt := h.terms(len(h.laurent))
-	h.laurentTerms(z, t, dt)
-	for k, c := range h.cLaurent {
-		f += c * t[k]
-	}
-	for k, j := range h.mobiusK {
-		v, _ := h.mobius.term(z, j)
-		f += h.cMobius[k] * v
-	}
-	t, dt = h.terms(len(h.powers))
-	h.powerTerms(z, t, dt)
-	for k, c := range h.cPower {
-		f += c * t[k]
-	}
+	f, _ := h.evaluate(z, false)
 	v := real(f)
 	if h.shift != nil {
 		c, _ := h.shift(z)

@@ -804,20 +804,39 @@ func sectionBoundary(h *rationalHarmonic, shape Shape, upOn func(k int) sideCond
 // complexValue is F(z), whose real part is h less a symmetric fit's shift,
 // and F'(z); a symmetric fit's images are terms like any other.
 func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
+	return h.evaluate(z, true)
+}
+
+// evaluate is complexValue, with F' left 0 unless slope: without it the
+// polynomial basis takes half the work (polyBasis), the poles and the
+// logarithms less, and F's imaginary part is only what the terms give
+// (the logarithms' arg is left out: callers read Re F).
+func (h *rationalHarmonic) evaluate(z complex128, slope bool) (complex128, complex128) {
 	var f, df complex128
 	for j, p := range h.poles {
 		d := recip(z - p)
 		f += h.cPole[j] * d
-		df -= h.cPole[j] * d * d
+		if slope {
+			df -= h.cPole[j] * d * d
+		}
 	}
 	q, dq := h.basisScratch()
+	if !slope {
+		dq = nil
+	}
 	h.polyBasis(z, q, dq)
 	for k := range q {
 		f += h.cPoly[k] * q[k]
-		df += h.cPoly[k] * dq[k]
+		if slope {
+			df += h.cPoly[k] * dq[k]
+		}
 	}
 	for k, hb := range h.logs {
 		d := z - hb.c
+		if !slope {
+			f += complex(h.cLog[k]*math.Log(abs(d)), 0)
+			continue
+		}
 		f += complex(h.cLog[k], 0) * cmplx.Log(d)
 		df += complex(h.cLog[k], 0) / d
 	}
@@ -837,6 +856,9 @@ func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
 	for k, c := range h.cPower {
 		f += c * t[k]
 		df += c * dt[k]
+	}
+	if !slope {
+		df = 0
 	}
 	return f, df
 }

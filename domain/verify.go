@@ -94,14 +94,14 @@ func (s *Solution) verifyIndependently() (worst float64, side string, ok bool) {
 			}
 			gt := gAt(t)
 			px, py, nx, ny := path.At(t)
-			path, curved := inwardPath(shape, ev, u, px, py, nx, ny)
-			line := func(s float64) float64 { v, _ := path(s); return v }
+			stepIn, curved := inwardPath(shape, ev, u, px, py, nx, ny)
+			line := func(s float64) float64 { v, _ := stepIn(s); return v }
 			// The series' own tail one step in: not a defect. Taken on the
 			// inward path where it curves, whose points keep the side's
 			// radius on a ray (a radius the quadrature has evaluated).
 			var est float64
 			if curved {
-				_, est = path(h)
+				_, est = stepIn(h)
 			} else {
 				_, est, _ = ev.AtXY(px-h*nx, py-h*ny)
 			}
