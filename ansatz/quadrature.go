@@ -63,11 +63,13 @@ type Quadrature struct {
 	Kinks []Kink
 	// Left is the source part G samples when Kinks are set (nil: none).
 	Left *series.Expr
-	// Fold, when set, says that sample j of n on a ring (θ_j = Period·j/n)
-	// is sign times sample i ≤ j, and i == j for a sample G must give: a
-	// sector's extension by reflections repeats its first quarter, so a
-	// ring evaluates G there only.
-	Fold func(j, n int) (i int, sign float64)
+	// Reflect, when set, says that G over the period is its first quarter
+	// reflected about θ = 0 and about θ = Period/4, odd about each where
+	// its flag is true and even where false: a sector's extension about
+	// its rays. A ring then samples that quarter only and takes its modes
+	// by the quarter's own transform (reflections.go): a quarter of the
+	// samples and of the transform's length.
+	Reflect *[2]bool
 
 	coarse, fine []panel
 	dropped      float64               // a bound on the particular solution of the modes not kept
@@ -176,16 +178,17 @@ func (q *Quadrature) nu(k int) float64 { return float64(k) * q.omega() }
 // samples: a[k] cos, b[k] sin, k < n/2.
 func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
 	plan := q.ringPlan(n)
+	if plan.quarter != nil {
+		a, b = plan.quarter.modes(q, s, n)
+		q.dropNoise(plan, a, b)
+		return a, b
+	}
 	if len(q.buf) < n {
 		q.buf = make([]float64, n)
 	}
 	x := q.buf[:n]
 	P := q.period()
 	for j := range x {
-		if i := plan.from[j]; i != j {
-			x[j] = plan.sign[j] * x[i]
-			continue
-		}
 		x[j] = q.G(s, P*float64(j)/float64(n))
 		q.sourceSize = math.Max(q.sourceSize, math.Abs(x[j]))
 	}
@@ -196,8 +199,13 @@ func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
 		b[k] = -2 * imag(c[k]) / float64(n)
 	}
 	a[0] /= 2
-	// Below the FFT's rounding level a coefficient is noise, and the kernel's
-	// (r/s)^ν would magnify it near the centre: drop it.
+	q.dropNoise(plan, a, b)
+	return a, b
+}
+
+// dropNoise zeroes the modes below the transform's rounding, which the
+// kernel's (r/s)^ν would magnify near the centre, and those Keep leaves out.
+func (q *Quadrature) dropNoise(plan *ringSampling, a, b []float64) {
 	big := 0.0
 	for k := range a {
 		big = math.Max(big, math.Max(math.Abs(a[k]), math.Abs(b[k])))
@@ -210,16 +218,14 @@ func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
 			b[k] = 0
 		}
 	}
-	return a, b
 }
 
-// ringSampling is what every ring of n samples shares: the FFT, where each
-// sample comes from (Fold, as a table), and the modes kept (Keep).
+// ringSampling is what every ring of n samples shares: the FFT, or the
+// quarter's transform under Reflect, and the modes kept (Keep).
 type ringSampling struct {
 	fft              *fourier.FFT
 	coef             []complex128 // the transform's output, reused
-	from             []int
-	sign             []float64
+	quarter          *quarterRing
 	keepCos, keepSin []bool
 }
 
@@ -228,17 +234,11 @@ func (q *Quadrature) ringPlan(n int) *ringSampling {
 	if plan, ok := q.plans[n]; ok {
 		return plan
 	}
-	plan := &ringSampling{fft: fourier.NewFFT(n), coef: make([]complex128, n/2+1), from: make([]int, n), sign: make([]float64, n),
-		keepCos: make([]bool, n/2), keepSin: make([]bool, n/2)}
-	for j := range plan.from {
-		plan.from[j], plan.sign[j] = j, 1
-		if q.Fold != nil {
-			// A sample may come only from one before it, which ring has
-			// filled; any other answer is taken as "evaluate".
-			if i, sign := q.Fold(j, n); i >= 0 && i < j {
-				plan.from[j], plan.sign[j] = i, sign
-			}
-		}
+	plan := &ringSampling{keepCos: make([]bool, n/2), keepSin: make([]bool, n/2)}
+	if q.Reflect != nil && n >= 16 && n%4 == 0 {
+		plan.quarter = newQuarterRing(n, *q.Reflect)
+	} else {
+		plan.fft, plan.coef = fourier.NewFFT(n), make([]complex128, n/2+1)
 	}
 	for k := range plan.keepCos {
 		plan.keepCos[k] = q.Keep == nil || q.Keep(k, false)

@@ -89,38 +89,3 @@ func TestUniformProjections(t *testing.T) {
 		t.Error("FFT projections for a Robin end")
 	}
 }
-
-// A sector ring's samples folded by index are the extension's own values:
-// every sample of a ring over the period 4α is sign times a sample of the
-// first quarter, as sectorExtension reflects the angle, for each pair of
-// ray kinds (a source symmetric about nothing, so a wrong index or sign
-// shows). A sample on an image of a Dirichlet ray (θ = mα) is 0, the mean
-// of the odd extension's jump; the angle arithmetic of sectorExtension
-// meets that image only when the rounding falls right (at θ = 3α for
-// α = 5π/4 it gave the one-sided value), the index exactly.
-func TestSectorFold(t *testing.T) {
-	src := func(r, th float64) float64 { return math.Exp(r*math.Cos(th)) + 3*th*th - th + r }
-	for _, alpha := range []float64{math.Pi / 2, math.Pi / 3, 5 * math.Pi / 4} {
-		for _, kinds := range [][2]bool{{true, true}, {true, false}, {false, true}, {false, false}} {
-			ext := sectorExtension(src, alpha, kinds[0], kinds[1])
-			fold := sectorFold(kinds[0], kinds[1])
-			for _, n := range []int{32, 64, 256} {
-				for j := 0; j < n; j++ {
-					i, sign := fold(j, n)
-					if i > n/4 || i > j {
-						t.Fatalf("α %.3f %v n %d: sample %d folds to %d", alpha, kinds, n, j, i)
-					}
-					th := 4 * alpha * float64(j) / float64(n)
-					want := ext(0.7, th)
-					if m := 4 * j / n; 4*j%n == 0 && (m%2 == 0 && kinds[0] || m%2 == 1 && kinds[1]) {
-						want = 0
-					}
-					got := sign * ext(0.7, 4*alpha*float64(i)/float64(n))
-					if math.Abs(got-want) > 1e-12*math.Max(1, math.Abs(want)) {
-						t.Errorf("α %.3f %v n %d: sample %d: %v, want %v", alpha, kinds, n, j, got, want)
-					}
-				}
-			}
-		}
-	}
-}

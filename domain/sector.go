@@ -285,26 +285,6 @@ func sectorExtension(src func(r, th float64) float64, alpha float64, startD, end
 	}
 }
 
-// sectorFold is sectorExtension's reflections on a ring's samples, by
-// index: sample j of n over the period 4α (n a multiple of 4) is sign
-// times sample i of the first quarter, where G is evaluated.
-func sectorFold(startD, endD bool) func(j, n int) (i int, sign float64) {
-	s0, s1 := raySigns(startD, endD)
-	return func(j, n int) (int, float64) {
-		if n%4 != 0 {
-			return j, 1
-		}
-		sign := 1.0
-		if j >= n/2 {
-			j, sign = j-n/2, s0*s1
-		}
-		if j > n/4 {
-			j, sign = n/2-j, sign*s1
-		}
-		return j, sign
-	}
-}
-
 func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) error {
 	cf, err := series.Field{Rest: p.rest}.Compile(p.env)
 	if err != nil {
@@ -333,7 +313,7 @@ func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) e
 		return n, n >= b.fam.From
 	}
 	q := &ansatz.Quadrature{G: ext, A: 0, R: R, Period: 4 * alpha, Tol: p.tol, Lift: lift, MaxSamples: p.quadSamples, MaxBisections: p.quadBisections,
-		Keep: func(k int, sin bool) bool { _, ok := index(k); return ok && sin == b.fam.Sin }, Fold: sectorFold(startD, endD)}
+		Keep: func(k int, sin bool) bool { _, ok := index(k); return ok && sin == b.fam.Sin }, Reflect: &[2]bool{startD, endD}}
 	if err := q.Prepare(); err != nil {
 		return unsolvable("%s: %w", p.rest.Text(), err)
 	}
