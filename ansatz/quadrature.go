@@ -206,15 +206,21 @@ func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
 // dropNoise zeroes the modes below the transform's rounding, which the
 // kernel's (r/s)^ν would magnify near the centre, and those Keep leaves out.
 func (q *Quadrature) dropNoise(plan *ringSampling, a, b []float64) {
-	big := 0.0
+	big := 0.0 // plain comparisons: math.Max's NaN rules cost a third of a sector ring here
 	for k := range a {
-		big = math.Max(big, math.Max(math.Abs(a[k]), math.Abs(b[k])))
+		if v := math.Abs(a[k]); v > big {
+			big = v
+		}
+		if v := math.Abs(b[k]); v > big {
+			big = v
+		}
 	}
+	floor := 1e-14 * big
 	for k := range a {
-		if math.Abs(a[k]) < 1e-14*big || !plan.keepCos[k] {
+		if !plan.keepCos[k] || math.Abs(a[k]) < floor {
 			a[k] = 0
 		}
-		if math.Abs(b[k]) < 1e-14*big || !plan.keepSin[k] {
+		if !plan.keepSin[k] || math.Abs(b[k]) < floor {
 			b[k] = 0
 		}
 	}

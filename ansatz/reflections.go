@@ -47,11 +47,15 @@ func newQuarterRing(n int, odd [2]bool) *quarterRing {
 // modes are the ring's a_k, b_k, k < n/2, at radius s.
 func (r *quarterRing) modes(quad *Quadrature, s float64, n int) (a, b []float64) {
 	P, q := quad.period(), n/4
+	size := quad.sourceSize
 	for i := range r.x {
 		j := r.first + i
 		r.x[i] = quad.G(s, P*float64(j)/float64(n))
-		quad.sourceSize = math.Max(quad.sourceSize, math.Abs(r.x[i]))
+		if v := math.Abs(r.x[i]); v > size || v != v { // NaN kept, as math.Max would
+			size = v
+		}
 	}
+	quad.sourceSize = size
 	a, b = make([]float64, n/2), make([]float64, n/2)
 	scale := 1 / float64(q)
 	switch {
