@@ -246,11 +246,6 @@ func (b *sectorBuilder) concrete() []int {
 	return out
 }
 
-// quadrature takes the source's part with no closed form: extended to the
-// period 4α, odd about a Dirichlet ray and even about a Neumann one, its
-// Fourier modes are the rays' eigenfunctions Φ_n, and the particular solution
-// of each (ansatz.Quadrature) meets the ray conditions. Its arc traces join
-// the mode systems as decimals.
 // raySigns are the extension's signs across the rays: odd (−1) about a
 // Dirichlet ray, even about a Neumann one.
 func raySigns(startD, endD bool) (s0, s1 float64) {
@@ -285,6 +280,11 @@ func sectorExtension(src func(r, th float64) float64, alpha float64, startD, end
 	}
 }
 
+// quadrature takes the source's part with no closed form: extended to the
+// period 4α, odd about a Dirichlet ray and even about a Neumann one, its
+// Fourier modes are the rays' eigenfunctions Φ_n, and the particular solution
+// of each (ansatz.Quadrature) meets the ray conditions. Its arc traces join
+// the mode systems as decimals.
 func (b *sectorBuilder) quadrature(p *posed, sol *Solution, startD, endD bool) error {
 	cf, err := series.Field{Rest: p.rest}.Compile(p.env)
 	if err != nil {
