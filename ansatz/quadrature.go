@@ -77,6 +77,7 @@ type Quadrature struct {
 	sourceSize   float64               // the largest |g| sampled (SourceSize)
 	peakRadii    []float64             // where |g| peaks (peaks), found once by Prepare
 	buf          []float64
+	zero         []float64 // zeros
 	scale        float64   // the probes' largest mode, weighted by its share of p
 	used         int       // the most angular samples a panel took
 	capped       bool      // a panel reached the cap with its top band above Tol
@@ -176,10 +177,15 @@ func (q *Quadrature) nu(k int) float64 { return float64(k) * q.omega() }
 
 // ring is the Fourier coefficients of g on the circle of radius s from n
 // samples: a[k] cos, b[k] sin, k < n/2.
-func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
+func (q *Quadrature) ring(s float64, n int) (a, b []float64) { return q.ringTop(s, n, n/2) }
+
+// ringTop is ring's modes k < top only (top ≤ n/2): the halved mesh sums
+// only the modes the first kept (Modes), and a sector's kinked source
+// would otherwise hold several times the coefficients it uses.
+func (q *Quadrature) ringTop(s float64, n, top int) (a, b []float64) {
 	plan := q.ringPlan(n)
 	if plan.quarter != nil {
-		a, b = plan.quarter.modes(q, s, n)
+		a, b = plan.quarter.modes(q, s, n, top)
 		q.dropNoise(plan, a, b)
 		return a, b
 	}
@@ -193,8 +199,8 @@ func (q *Quadrature) ring(s float64, n int) (a, b []float64) {
 		q.sourceSize = math.Max(q.sourceSize, math.Abs(x[j]))
 	}
 	c := plan.fft.Coefficients(plan.coef, x)
-	a, b = make([]float64, n/2), make([]float64, n/2)
-	for k := 0; k < n/2; k++ {
+	a, b = make([]float64, top), make([]float64, top)
+	for k := 0; k < top; k++ {
 		a[k] = 2 * real(c[k]) / float64(n)
 		b[k] = -2 * imag(c[k]) / float64(n)
 	}
@@ -216,14 +222,24 @@ func (q *Quadrature) dropNoise(plan *ringSampling, a, b []float64) {
 		}
 	}
 	floor := 1e-14 * big
-	for k := range a {
-		if !plan.keepCos[k] || math.Abs(a[k]) < floor {
+	for k := range a { // zeros are not written: a quarter ring's empty family is shared (zeros)
+		if a[k] != 0 && (!plan.keepCos[k] || math.Abs(a[k]) < floor) {
 			a[k] = 0
 		}
-		if !plan.keepSin[k] || math.Abs(b[k]) < floor {
+		if b[k] != 0 && (!plan.keepSin[k] || math.Abs(b[k]) < floor) {
 			b[k] = 0
 		}
 	}
+}
+
+// zeros is a slice of n zeros shared by every ring of this quadrature that
+// has no modes of one family (a quarter ring's cosines or sines): read
+// only, never written (dropNoise leaves zeros alone).
+func (q *Quadrature) zeros(n int) []float64 {
+	if len(q.zero) < n {
+		q.zero = make([]float64, n)
+	}
+	return q.zero[:n:n]
 }
 
 // ringSampling is what every ring of n samples shares: the FFT, or the
@@ -320,6 +336,11 @@ func (q *Quadrature) ringResolved(a, b []float64) bool {
 
 // sampledPanel samples g at the panel's nodes on rings of n samples.
 func (q *Quadrature) sampledPanel(lo, hi float64, infinite bool, n int) panel {
+	return q.sampledPanelTop(lo, hi, infinite, n, n/2)
+}
+
+// sampledPanelTop is sampledPanel keeping the modes k < top (ringTop).
+func (q *Quadrature) sampledPanelTop(lo, hi float64, infinite bool, n, top int) panel {
 	p := panel{lo: lo, hi: hi, infinite: infinite, s: make([]float64, glN), w: make([]float64, glN)}
 	p.a, p.b = make([][]float64, glN), make([][]float64, glN)
 	for i, x := range glX {
@@ -329,14 +350,17 @@ func (q *Quadrature) sampledPanel(lo, hi float64, infinite bool, n int) panel {
 		} else {
 			p.s[i], p.w[i] = (lo+hi)/2+(hi-lo)/2*x, (hi-lo)/2*glW[i]
 		}
-		p.a[i], p.b[i] = q.ring(p.s[i], n)
+		p.a[i], p.b[i] = q.ringTop(p.s[i], n, top)
 	}
 	return p
 }
 
 // sums fills the panel's separated kernel sums for modes 0..Modes.
 func (q *Quadrature) sums(p *panel) {
-	p.below, p.above, p.log0 = make([][2]float64, q.Modes+1), make([][2]float64, q.Modes+1), 0
+	// Modes beyond the panel's samples are 0 here: a panel near a disk's
+	// centre takes few, and its sums stop there.
+	top := min(q.Modes+1, len(p.a[0]))
+	p.below, p.above, p.log0 = make([][2]float64, top), make([][2]float64, top), 0
 	for i, s := range p.s {
 		ws := p.w[i] * s
 		a, b := p.a[i], p.b[i]
@@ -348,7 +372,7 @@ func (q *Quadrature) sums(p *panel) {
 			xb = math.Pow(s/p.hi, q.omega())
 		}
 		fb, fa := ws, ws
-		for k := 1; k <= q.Modes && k < len(a); k++ {
+		for k := 1; k < top; k++ {
 			fb, fa = fb*xb, fa*xa
 			p.below[k][0] += fb * a[k]
 			p.below[k][1] += fb * b[k]
@@ -718,11 +742,13 @@ func (q *Quadrature) refine(mesh []panel, scale float64) []panel {
 func (q *Quadrature) halve(mesh []panel) []panel {
 	var out []panel
 	for _, p := range mesh {
+		n := 2 * len(p.a[0])       // the first mesh's samples
+		top := min(n/2, q.Modes+1) // the modes sums and eval read
 		if p.infinite {
-			out = append(out, q.sampledPanel(p.lo, 2*p.lo, false, 2*len(p.a[0])), q.sampledPanel(2*p.lo, math.Inf(1), true, 2*len(p.a[0])))
+			out = append(out, q.sampledPanelTop(p.lo, 2*p.lo, false, n, top), q.sampledPanelTop(2*p.lo, math.Inf(1), true, n, top))
 		} else {
 			mid := (p.lo + p.hi) / 2
-			out = append(out, q.sampledPanel(p.lo, mid, false, 2*len(p.a[0])), q.sampledPanel(mid, p.hi, false, 2*len(p.a[0])))
+			out = append(out, q.sampledPanelTop(p.lo, mid, false, n, top), q.sampledPanelTop(mid, p.hi, false, n, top))
 		}
 	}
 	for i := range out {
@@ -854,7 +880,7 @@ func (q *Quadrature) eval(mesh []panel, r float64) (p, dp [][2]float64) {
 			// (hi/r)^ν_k falls with k: once below 1e-18 the rest of the
 			// modes add nothing a float64 holds (a far panel's sums stop
 			// after a few dozen modes, not a sector's thousand).
-			for k := 1; k <= q.Modes && f > 1e-18; k++ {
+			for k := 1; k < len(pn.below) && f > 1e-18; k++ {
 				nu := q.nu(k)
 				f *= x
 				for j := 0; j < 2; j++ {
@@ -871,7 +897,7 @@ func (q *Quadrature) eval(mesh []panel, r float64) (p, dp [][2]float64) {
 			if pn.lo > 0 {
 				x = math.Pow(r/pn.lo, q.omega())
 			}
-			for k := 1; k <= q.Modes && f > 1e-18; k++ { // as below
+			for k := 1; k < len(pn.above) && f > 1e-18; k++ { // as below
 				nu := q.nu(k)
 				f *= x
 				for j := 0; j < 2; j++ {

@@ -44,8 +44,8 @@ func newQuarterRing(n int, odd [2]bool) *quarterRing {
 	return r
 }
 
-// modes are the ring's a_k, b_k, k < n/2, at radius s.
-func (r *quarterRing) modes(quad *Quadrature, s float64, n int) (a, b []float64) {
+// modes are the ring's a_k, b_k, k < top ≤ n/2, at radius s.
+func (r *quarterRing) modes(quad *Quadrature, s float64, n, top int) (a, b []float64) {
 	P, q := quad.period(), n/4
 	size := quad.sourceSize
 	for i := range r.x {
@@ -56,29 +56,35 @@ func (r *quarterRing) modes(quad *Quadrature, s float64, n int) (a, b []float64)
 		}
 	}
 	quad.sourceSize = size
-	a, b = make([]float64, n/2), make([]float64, n/2)
+	// One family only is nonzero (sines when the start ray is odd): the
+	// other is the quadrature's shared zeros.
+	if r.odd[0] {
+		a, b = quad.zeros(top), make([]float64, top)
+	} else {
+		a, b = make([]float64, top), quad.zeros(top)
+	}
 	scale := 1 / float64(q)
 	switch {
 	case r.dst != nil:
 		out := r.dst.Transform(r.x, r.x)
-		for m, v := range out {
-			b[2*(m+1)] = v * scale
+		for m := 0; m < len(out) && 2*(m+1) < top; m++ {
+			b[2*(m+1)] = out[m] * scale
 		}
 	case r.dct != nil:
 		out := r.dct.Transform(r.x, r.x)
 		a[0] = out[0] * scale / 2
-		for m := 1; m < len(out) && 2*m < n/2; m++ {
+		for m := 1; m < len(out) && 2*m < top; m++ {
 			a[2*m] = out[m] * scale
 		}
 	case r.odd[0]:
 		out := r.wave.SinCoefficients(r.x, r.x)
-		for m, v := range out {
-			b[2*m+1] = v * scale
+		for m := 0; m < len(out) && 2*m+1 < top; m++ {
+			b[2*m+1] = out[m] * scale
 		}
 	default:
 		out := r.wave.CosCoefficients(r.x, r.x)
-		for m, v := range out {
-			a[2*m+1] = v * scale
+		for m := 0; m < len(out) && 2*m+1 < top; m++ {
+			a[2*m+1] = out[m] * scale
 		}
 	}
 	return a, b
