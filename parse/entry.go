@@ -12,7 +12,20 @@ import (
 
 // Equation reads "c*lap(u) = f", or a bare source f, as the source of Δu = f.
 func Equation(text string, env series.Env) (series.Field, error) {
+	f, _, err := EquationAndUnknown(text, env)
+	return f, err
+}
+
+// EquationAndUnknown is Equation and the name of its unknown (Unknown)
+// from one parse: a command needs both, and the grammar's parse is most of
+// a short command's own work.
+func EquationAndUnknown(text string, env series.Env) (series.Field, string, error) {
 	lw := &lowerer{label: "equation", input: text, env: env, points: true}
+	f, err := lw.equation()
+	return f, lw.unknown, err
+}
+
+func (lw *lowerer) equation() (series.Field, error) {
 	st, err := lw.statement()
 	if err != nil {
 		return series.Field{}, err

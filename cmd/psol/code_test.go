@@ -380,6 +380,14 @@ func BenchmarkKinkedSource(b *testing.B) {
 	benchRun(b, []string{"solve", "lap(u) = abs(y - 0.3)", "--disk", "1", "--bc", "u = 0", "--at", "x=0.1,y=0.2"})
 }
 
+// BenchmarkKinkedSector is abs(y - 0.3) on a quarter disk: the sector's
+// quadrature of the kinked extension (no closed trace there), from text to
+// one point.
+func BenchmarkKinkedSector(b *testing.B) {
+	b.ReportAllocs()
+	benchRun(b, []string{"solve", "lap(u) = abs(y - 0.3)", "--sector", "1,pi/2", "--bc", "u = 0", "--at", "x=0.3,y=0.3"})
+}
+
 // BenchmarkSectorRayLift is a source that does not vanish on the Dirichlet
 // rays of a quarter disk with a convective arc (the quadrature's ray lift),
 // from source text to five evaluated points.

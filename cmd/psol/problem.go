@@ -178,10 +178,9 @@ func (p *problemFlags) pose(equation string) (*problem, error) {
 			return nil, err
 		}
 	}
-	if pr.source, err = parse.Equation(equation, env); err != nil {
+	if pr.source, pr.unknown, err = parse.EquationAndUnknown(equation, env); err != nil {
 		return nil, err
 	}
-	pr.unknown = parse.Unknown(equation)
 	if pr.conds, err = conditions(pr.unknown, p.bcs, pr.domain.Sides(), env); err != nil {
 		return nil, err
 	}
