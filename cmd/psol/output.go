@@ -49,7 +49,10 @@ type view struct {
 	Caution      string           `json:"caution,omitempty"`
 	Warnings     []string         `json:"warnings"`
 	showSteps    bool
-	checkScope   string // how far an exact check reaches, for series
+	// tex says whether the output shows LaTeX (the latex and json formats);
+	// text output never reads it, and the stages leave it empty there.
+	tex        bool
+	checkScope string // how far an exact check reaches, for series
 	// where defines, for LaTeX, the symbols the formulas use but do not
 	// spell out (u_q, a fitted h's poles and basis), one clause each.
 	where []string
@@ -59,12 +62,33 @@ type view struct {
 	independentFailed bool
 }
 
+// latex is f(), a stage's LaTeX, when the output shows LaTeX, and "" when
+// it does not: the LaTeX of a long numeric series took as long as its
+// text, a tenth of a short command's own work, for output that is text.
+func (v *view) latex(f func() string) string {
+	if !v.tex {
+		return ""
+	}
+	return f()
+}
+
+// joiner is join (domain.JoinSeries and its approximation) with its LaTeX
+// left out, as by latex, when the output shows none.
+func (v *view) joiner(join func(series.Sum, series.SeriesSum, bool) string) func(series.Sum, series.SeriesSum, bool) string {
+	return func(closed series.Sum, ser series.SeriesSum, latex bool) string {
+		if latex && !v.tex {
+			return ""
+		}
+		return join(closed, ser, latex)
+	}
+}
+
 func exactStage(label, text, latex, tex string) stage {
 	return stage{Label: label, Text: text, LaTeX: latex, Exact: true, tex: tex}
 }
 
-func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *view {
-	v := &view{Points: pts, Warnings: []string{}, showSteps: showSteps}
+func newView(pr *problem, sol *domain.Solution, pts []point, showSteps, tex bool) *view {
+	v := &view{Points: pts, Warnings: []string{}, showSteps: showSteps, tex: tex}
 	if v.Points == nil {
 		v.Points = []point{}
 	}
@@ -80,7 +104,7 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	for _, s := range sol.Sides {
 		if s.Condition.Kind == domain.Floating { // as the user gave it: one unknown value, a net flux
 			conds = append(conds, s.Condition.Side+": u = const, flux = "+s.Condition.G.Text())
-			condsTeX = append(condsTeX, `u = \text{const},\ \oint \partial_n u\,ds = `+s.Condition.G.LaTeX()+`\ \text{on `+s.Condition.Side+"}")
+			condsTeX = append(condsTeX, `u = \text{const},\ \oint \partial_n u\,ds = `+v.latex(s.Condition.G.LaTeX)+`\ \text{on `+s.Condition.Side+"}")
 			continue
 		}
 		conds = append(conds, s.Condition.Side+": "+domain.OperatorText(s.Condition, "u")+" = "+s.DataText)
@@ -88,19 +112,19 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	}
 	v.Problem = exactStage("problem",
 		"lap(u) = "+f.Text()+" on "+pr.domain.Describe()+"; "+strings.Join(conds, "; "),
-		`\Delta u = `+f.LaTeX()+`,\quad `+strings.Join(condsTeX, `,\quad `), "")
-	v.Particular = exactStage("particular", "u_p = "+sol.Particular.Text(), sol.Particular.LaTeX(), "u_p")
+		`\Delta u = `+v.latex(f.LaTeX)+`,\quad `+strings.Join(condsTeX, `,\quad `), "")
+	v.Particular = exactStage("particular", "u_p = "+sol.Particular.Text(), v.latex(sol.Particular.LaTeX), "u_p")
 	var tr, trTeX, co, coTeX []string
 	for _, s := range sol.Sides {
 		prefix := sidePrefix(sol, s)
-		trace, traceTeX := s.Trace.Text(), s.Trace.LaTeX()
+		trace, traceTeX := s.Trace.Text(), v.latex(s.Trace.LaTeX)
 		if kink, kinkTeX := kinkTrace(sol, s); kink != "" {
 			trace, traceTeX = joinNonzero(trace, kink), joinNonzero(traceTeX, kinkTeX)
 		}
 		tr = append(tr, prefix+traceText(s)+" = "+trace)
 		trTeX = append(trTeX, traceTeX)
 		co = append(co, prefix+series.JoinText(s.Data, s.Trace.Neg()))
-		coTeX = append(coTeX, series.JoinLaTeX(s.Data, s.Trace.Neg()))
+		coTeX = append(coTeX, v.latex(func() string { return series.JoinLaTeX(s.Data, s.Trace.Neg()) }))
 	}
 	side := sol.Sides[0]
 	if sol.RaysByShift { // rays carry no trace: their data is met by the eigenfunctions and the shift
@@ -108,8 +132,8 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 	}
 	v.Trace = exactStage("trace", strings.Join(tr, "; "), strings.Join(trTeX, ", "), traceTeX(side))
 	v.Correction = exactStage("correction", strings.Join(co, "; "), strings.Join(coTeX, ", "), `g - `+traceTeX(side))
-	v.Harmonic = exactStage("harmonic", sol.Harmonic.Text(), sol.Harmonic.LaTeX(), "u_h")
-	v.Solution = exactStage("solution", "u = "+series.JoinText(sol.Particular, sol.Harmonic), series.JoinLaTeX(sol.Particular, sol.Harmonic), "u")
+	v.Harmonic = exactStage("harmonic", sol.Harmonic.Text(), v.latex(sol.Harmonic.LaTeX), "u_h")
+	v.Solution = exactStage("solution", "u = "+series.JoinText(sol.Particular, sol.Harmonic), v.latex(func() string { return series.JoinLaTeX(sol.Particular, sol.Harmonic) }), "u")
 	if ps := sol.Series; ps != nil {
 		v.seriesStages(sol, ps)
 	}
@@ -121,13 +145,13 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps bool) *vi
 			if strings.HasPrefix(text, " - ") {
 				join = ""
 			}
-			text, tex = closed.Text()+join+text, closed.LaTeX()+join+tex
+			text, tex = closed.Text()+join+text, v.latex(closed.LaTeX)+join+tex
 		}
 		st := exactStage("closed form", "u = "+text, tex, "u")
 		v.ClosedForm = &st
 	}
 	if rest := quadratureSource(sol); rest != nil {
-		v.where = append(v.where, `$u_q$ is the particular solution of the source part $`+rest.LaTeX()+`$, by quadrature (numeric)`)
+		v.where = append(v.where, `$u_q$ is the particular solution of the source part $`+v.latex(rest.LaTeX)+`$, by quadrature (numeric)`)
 	}
 	if sol.Numeric {
 		v.approximate(sol)
@@ -584,7 +608,7 @@ func renderJSON(w io.Writer, v *view) error {
 // ray shift plus a series.
 func (v *view) seriesStages(sol *domain.Solution, ps *domain.SeriesParts) {
 	side := sol.Sides[0]
-	join := domain.JoinSeries
+	join := v.joiner(domain.JoinSeries)
 	up, upSer := sol.Particular, ps.Particular
 	h, hSer := sol.Harmonic, ps.Harmonic
 	v.Particular = exactStage("particular", "u_p = "+join(up, upSer, false), join(up, upSer, true), "u_p")
@@ -593,8 +617,8 @@ func (v *view) seriesStages(sol *domain.Solution, ps *domain.SeriesParts) {
 	}
 	if sol.RaysByShift {
 		v.Steps = append(v.Steps, "the rays' values are carried by the harmonic shift w = "+h.Text()+"; the modes vanish on the rays")
-		v.Correction = exactStage("correction", ps.Correction.Text(), ps.Correction.LaTeX(), `g - w - `+traceTeX(side))
-		v.where = append(v.where, `$w = `+h.LaTeX()+`$ is the harmonic shift that carries the rays' values, so that the modes vanish on the rays`)
+		v.Correction = exactStage("correction", ps.Correction.Text(), v.latex(ps.Correction.LaTeX), `g - w - `+traceTeX(side))
+		v.where = append(v.where, `$w = `+v.latex(h.LaTeX)+`$ is the harmonic shift that carries the rays' values, so that the modes vanish on the rays`)
 	} else {
 		var co, coTeX []string
 		for _, s := range sol.Sides {
@@ -627,14 +651,14 @@ func (v *view) approximate(sol *domain.Solution) {
 	if ps := sol.Series; ps != nil && sol.Quadrature != nil && sol.KinkTraces != nil {
 		// A circle's exact kinks beside a numeric rest: the kinks' traces
 		// are exact series, the rest's modes decimals in the side's sums.
-		join := domain.JoinSeriesApprox
+		join := v.joiner(domain.JoinSeriesApprox)
 		q, qTeX := quadratureText(sol)
-		mark(&v.Particular, "u_p = "+joinNonzero(sol.Particular.TextApprox(), q), joinNonzero(sol.Particular.LaTeXApprox(), qTeX))
+		mark(&v.Particular, "u_p = "+joinNonzero(sol.Particular.TextApprox(), q), joinNonzero(v.latex(sol.Particular.LaTeXApprox), qTeX))
 		var tr, trTeX, co, coTeX []string
 		for _, s := range sol.Sides {
 			kt, ktTeX := kinkTrace(sol, s)
 			tr = append(tr, sidePrefix(sol, s)+traceText(s)+" ≈ "+joinNonzero(s.Trace.TextApprox(), kt))
-			trTeX = append(trTeX, joinNonzero(s.Trace.LaTeXApprox(), ktTeX))
+			trTeX = append(trTeX, joinNonzero(v.latex(s.Trace.LaTeXApprox), ktTeX))
 			co = append(co, sidePrefix(sol, s)+"≈ "+join(s.Data.Sub(s.Trace), ps.BySide[s.Condition.Side], false))
 			coTeX = append(coTeX, join(s.Data.Sub(s.Trace), ps.BySide[s.Condition.Side], true))
 		}
@@ -646,7 +670,7 @@ func (v *view) approximate(sol *domain.Solution) {
 		return
 	}
 	if ps := sol.Series; ps != nil && sol.Quadrature != nil { // a sector: the numeric traces are in the modes
-		join := domain.JoinSeriesApprox
+		join := v.joiner(domain.JoinSeriesApprox)
 		q := "quadrature(" + sol.Rest.Text() + ")"
 		plus := func(s string) string {
 			if s == "0" {
@@ -663,7 +687,7 @@ func (v *view) approximate(sol *domain.Solution) {
 		side := sol.Sides[0]
 		mark(&v.Particular, "u_p = "+plus(join(sol.Particular, ps.Particular, false)), plusTeX(join(sol.Particular, ps.Particular, true)))
 		mark(&v.Trace, traceText(side)+" ≈ "+join(side.Trace, ps.Trace, false), join(side.Trace, ps.Trace, true))
-		mark(&v.Correction, "≈ "+ps.Correction.TextApprox(), ps.Correction.LaTeXApprox())
+		mark(&v.Correction, "≈ "+ps.Correction.TextApprox(), v.latex(ps.Correction.LaTeXApprox))
 		mark(&v.Harmonic, "≈ "+join(sol.Harmonic, ps.Harmonic, false), join(sol.Harmonic, ps.Harmonic, true))
 		mark(&v.Solution, "u ≈ "+plus(join(sol.Particular.Add(sol.Harmonic), ps.U, false)), plusTeX(join(sol.Particular.Add(sol.Harmonic), ps.U, true)))
 		return
@@ -671,12 +695,12 @@ func (v *view) approximate(sol *domain.Solution) {
 	var co, coTeX []string
 	for _, s := range sol.Sides {
 		c := s.Data.Sub(s.Trace)
-		co, coTeX = append(co, sidePrefix(sol, s)+"≈ "+c.TextApprox()), append(coTeX, c.LaTeXApprox())
+		co, coTeX = append(co, sidePrefix(sol, s)+"≈ "+c.TextApprox()), append(coTeX, v.latex(c.LaTeXApprox))
 	}
 	mark(&v.Correction, strings.Join(co, "; "), strings.Join(coTeX, ", "))
 	var tr, trTeX []string
 	for _, s := range sol.Sides {
-		tr, trTeX = append(tr, sidePrefix(sol, s)+traceText(s)+" ≈ "+s.Trace.TextApprox()), append(trTeX, s.Trace.LaTeXApprox())
+		tr, trTeX = append(tr, sidePrefix(sol, s)+traceText(s)+" ≈ "+s.Trace.TextApprox()), append(trTeX, v.latex(s.Trace.LaTeXApprox))
 	}
 	mark(&v.Trace, strings.Join(tr, "; "), strings.Join(trTeX, ", "))
 	if sol.Quadrature != nil {
@@ -685,7 +709,7 @@ func (v *view) approximate(sol *domain.Solution) {
 		if sol.Particular.IsZero() {
 			text = "u_p = " + q
 		}
-		tex := sol.Particular.LaTeX() + ` + ` + qTeX
+		tex := v.latex(sol.Particular.LaTeX) + ` + ` + qTeX
 		if sol.Particular.IsZero() {
 			tex = qTeX
 		}
@@ -694,8 +718,8 @@ func (v *view) approximate(sol *domain.Solution) {
 			v.Particular.Exact = true // closed: the kinks' forms alone
 		}
 	}
-	mark(&v.Harmonic, "≈ "+sol.Harmonic.TextApprox(), sol.Harmonic.LaTeXApprox())
-	solText, solTeX := sol.U.TextApprox(), sol.U.LaTeXApprox()
+	mark(&v.Harmonic, "≈ "+sol.Harmonic.TextApprox(), v.latex(sol.Harmonic.LaTeXApprox))
+	solText, solTeX := sol.U.TextApprox(), v.latex(sol.U.LaTeXApprox)
 	if sol.Quadrature != nil {
 		q, qTeX := quadratureText(sol)
 		solText, solTeX = solText+" + "+q, solTeX+` + `+qTeX
@@ -768,9 +792,9 @@ func (v *view) rectStages(sol *domain.Solution) {
 		if s.Name == "left" || s.Name == "right" {
 			coord = "y"
 		}
-		trText, trLaTeX := s.Trace.Text(), s.Trace.LaTeX()
+		trText, trLaTeX := s.Trace.Text(), v.latex(s.Trace.LaTeX)
 		if sol.Numeric {
-			trText, trLaTeX = s.Trace.TextApprox(), s.Trace.LaTeXApprox()
+			trText, trLaTeX = s.Trace.TextApprox(), v.latex(s.Trace.LaTeXApprox)
 		}
 		switch {
 		case s.NumericTrace != "" && s.Trace.IsZero():
@@ -781,19 +805,19 @@ func (v *view) rectStages(sol *domain.Solution) {
 		tr = append(tr, s.Name+": "+trText)
 		trTeX = append(trTeX, `\text{`+s.Name+`: } `+trLaTeX)
 		co = append(co, s.Name+": "+s.CorrectionText()+" (in "+coord+")")
-		coTeX = append(coTeX, `\text{`+s.Name+`: } `+s.CorrectionLaTeX())
+		coTeX = append(coTeX, `\text{`+s.Name+`: } `+v.latex(s.CorrectionLaTeX))
 		if t := s.HarmonicText(false); t != "0" {
 			h = append(h, t)
-			hTeX = append(hTeX, s.HarmonicText(true))
+			hTeX = append(hTeX, v.latex(func() string { return s.HarmonicText(true) }))
 		}
 	}
 	harm, harmTeX := strings.Join(h, " + "), strings.Join(hTeX, " + ")
 	if harm == "" {
 		harm, harmTeX = "0", "0"
 	}
-	upText, upTeX := rp.Particular.Text(), rp.Particular.LaTeX()
+	upText, upTeX := rp.Particular.Text(), v.latex(rp.Particular.LaTeX)
 	if sol.Numeric {
-		upText, upTeX = rp.Particular.TextApprox(), rp.Particular.LaTeXApprox()
+		upText, upTeX = rp.Particular.TextApprox(), v.latex(rp.Particular.LaTeXApprox)
 	}
 	if rp.Quadrature != nil {
 		q := "quadrature(" + rp.QuadratureSource.Text() + ")"
@@ -804,7 +828,7 @@ func (v *view) rectStages(sol *domain.Solution) {
 		}
 	}
 	if len(rp.Waves) > 0 {
-		w, wTeX := rp.Waves.Text(), rp.Waves.LaTeX()
+		w, wTeX := rp.Waves.Text(), v.latex(rp.Waves.LaTeX)
 		if rp.Particular.IsZero() {
 			upText, upTeX = w, wTeX
 		} else {

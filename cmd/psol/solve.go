@@ -128,7 +128,7 @@ func (o *solveOptions) run(w io.Writer, equation string) error {
 		return o.finish(w, &out, files, nil)
 	}
 	// JSON always lists the steps.
-	v := newView(pr, sol, pts, o.steps || o.format == "json")
+	v := newView(pr, sol, pts, o.steps || o.format == "json", o.format != "text")
 	var named []string // the --at texts that may name a parameter (plain numbers cannot)
 	for _, a := range o.at {
 		if _, plain := plainPoint(a); !plain {
