@@ -33,7 +33,12 @@ import (
 // panel's nodes by barycentric interpolation. A second mesh with every panel
 // halved gives the values; their difference from the first is the estimate.
 type Quadrature struct {
-	G      func(r, theta float64) float64
+	G func(r, theta float64) float64
+	// GXY, when set, is G in Cartesian coordinates: a ring then samples it
+	// at (s·cos θ_j, s·sin θ_j) from a table of its angles, shared by every
+	// ring of its size, instead of taking trigonometric functions of each
+	// sample's angle (which were a fifth of a smooth source's quadrature).
+	GXY    func(x, y float64) float64
 	A, R   float64
 	Period float64 // the angular period of G; 0 means 2π (a sector passes its symmetric extension)
 	// Keep selects the modes a region admits (nil keeps all): a sector keeps
@@ -194,10 +199,22 @@ func (q *Quadrature) ringTop(s float64, n, top int) (a, b []float64) {
 	}
 	x := q.buf[:n]
 	P := q.period()
-	for j := range x {
-		x[j] = q.G(s, P*float64(j)/float64(n))
-		q.sourceSize = math.Max(q.sourceSize, math.Abs(x[j]))
+	size := q.sourceSize
+	if q.GXY != nil { // the ring's points from the plan's table of angles
+		for j := range x {
+			x[j] = q.GXY(s*plan.cos[j], s*plan.sin[j])
+		}
+	} else {
+		for j := range x {
+			x[j] = q.G(s, P*float64(j)/float64(n))
+		}
 	}
+	for _, v := range x { // plain comparisons, NaN kept as math.Max would
+		if v := math.Abs(v); v > size || v != v {
+			size = v
+		}
+	}
+	q.sourceSize = size
 	c := plan.fft.Coefficients(plan.coef, x)
 	a, b = make([]float64, top), make([]float64, top)
 	for k := 0; k < top; k++ {
@@ -245,6 +262,7 @@ func (q *Quadrature) zeros(n int) []float64 {
 // ringSampling is what every ring of n samples shares: the FFT, or the
 // quarter's transform under Reflect, and the modes kept (Keep).
 type ringSampling struct {
+	cos, sin         []float64 // of the sample angles P·j/n, with GXY
 	fft              *fourier.FFT
 	coef             []complex128 // the transform's output, reused
 	quarter          *quarterRing
@@ -261,6 +279,12 @@ func (q *Quadrature) ringPlan(n int) *ringSampling {
 		plan.quarter = newQuarterRing(n, *q.Reflect)
 	} else {
 		plan.fft, plan.coef = fourier.NewFFT(n), make([]complex128, n/2+1)
+		if q.GXY != nil {
+			plan.cos, plan.sin = make([]float64, n), make([]float64, n)
+			for j := range plan.cos {
+				plan.sin[j], plan.cos[j] = math.Sincos(q.period() * float64(j) / float64(n))
+			}
+		}
 	}
 	for k := range plan.keepCos {
 		plan.keepCos[k] = q.Keep == nil || q.Keep(k, false)

@@ -66,3 +66,37 @@ func TestQuarterRingAgainstFFT(t *testing.T) {
 		}
 	}
 }
+
+// A source given in Cartesian coordinates too (GXY) is sampled on its rings
+// from the table of angles; the quadrature must be the polar one's to
+// rounding: the same samples chosen and the same values. The source is the
+// speed issue's off-centre hot spot, and a second with a mode of its own.
+func TestCartesianRingsMatchPolar(t *testing.T) {
+	for _, c := range []struct {
+		name string
+		xy   func(x, y float64) float64
+	}{
+		{"hot spot", func(x, y float64) float64 { return math.Exp(-((x-0.3)*(x-0.3) + y*y) / 0.05) }},
+		{"skewed", func(x, y float64) float64 { return x*x*y - 3*math.Sin(2*x+y) + 1/(2+x) }},
+	} {
+		polar := func(r, th float64) float64 { return c.xy(r*math.Cos(th), r*math.Sin(th)) }
+		a := &Quadrature{G: polar, R: 1, Tol: 1e-10}
+		b := &Quadrature{G: polar, GXY: c.xy, R: 1, Tol: 1e-10}
+		if err := a.Prepare(); err != nil {
+			t.Fatal(err)
+		}
+		if err := b.Prepare(); err != nil {
+			t.Fatal(err)
+		}
+		if a.Samples != b.Samples || len(a.coarse) != len(b.coarse) || a.Modes != b.Modes {
+			t.Errorf("%s: samples %d / %d, panels %d / %d, modes %d / %d", c.name, a.Samples, b.Samples, len(a.coarse), len(b.coarse), a.Modes, b.Modes)
+		}
+		for _, p := range [][2]float64{{0.05, 1}, {0.3, 0}, {0.5, 2.5}, {0.9, 4}, {1, 0.3}} {
+			va, ea := a.At(p[0], p[1])
+			vb, _ := b.At(p[0], p[1])
+			if d := math.Abs(va - vb); d > 1e-13*math.Max(math.Abs(va), 1e-3) || d > ea {
+				t.Errorf("%s at %v: polar %.17g, Cartesian %.17g (estimate %.1e)", c.name, p, va, vb, ea)
+			}
+		}
+	}
+}

@@ -686,3 +686,34 @@ func TestKinkedSourceAnnulusNumericData(t *testing.T) {
 		}
 	}
 }
+
+// A source is sampled in Cartesian coordinates on full circles only when
+// its Cartesian form agrees with its polar one at every angle: its terms
+// single-valued (cos 3θ, r², but not θ itself), its nodes operations.
+func TestSingleValuedSources(t *testing.T) {
+	mustApply := func(fn string, f series.Field) series.Field {
+		g, err := series.Apply(fn, f)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return g
+	}
+	r2 := series.ExactField(series.R.Mul(series.R))
+	for _, c := range []struct {
+		name string
+		f    series.Field
+		want bool
+	}{
+		{"exp(-r^2)", mustApply("exp", r2.Scale(series.IntCoef(-1))), true},
+		{"exp(cos(3theta)) + r", mustApply("exp", series.ExactField(series.Trig(3, false))).Add(series.ExactField(series.R)), true},
+		{"exp(theta)", mustApply("exp", series.ExactField(series.Theta)), false},
+		{"sqrt(1 + theta^2)", mustApply("sqrt", series.ExactField(series.Const(series.IntCoef(1)).Add(series.Theta.Mul(series.Theta)))), false},
+	} {
+		if c.f.Rest == nil {
+			t.Fatalf("%s: no remainder to sample", c.name)
+		}
+		if got := domain.SingleValued(c.f.Rest); got != c.want {
+			t.Errorf("%s: single-valued %v, want %v", c.name, got, c.want)
+		}
+	}
+}
