@@ -636,6 +636,17 @@ func (q *Quadrature) peaks() []float64 {
 	for i := range size {
 		r := radius(i)
 		angles := max(16, int(128*r/hi)+1)
+		if q.GXY != nil { // the scan's points by rotation: a scan needs no more than rounding's accuracy
+			s1, c1 := math.Sincos(P / float64(angles))
+			sn, c := math.Sincos(P / float64(2*angles))
+			for j := 0; j < angles; j++ {
+				if v := math.Abs(q.GXY(r*c, r*sn)); v > size[i] {
+					size[i] = v
+				}
+				c, sn = c*c1-sn*s1, sn*c1+c*s1
+			}
+			continue
+		}
 		for j := 0; j < angles; j++ {
 			if v := math.Abs(q.G(r, P*(float64(j)+0.5)/float64(angles))); v > size[i] {
 				size[i] = v

@@ -1,6 +1,7 @@
 package series
 
 import (
+	"math"
 	"math/big"
 	"strconv"
 	"strings"
@@ -233,6 +234,17 @@ func LaTeXNumber(text string) string {
 	return m + ` \cdot 10^{` + strconv.Itoa(exp) + `}`
 }
 
+// decimal12 is |q| to 12 significant digits, as big.Float's Text('g', 12)
+// of it: by strconv when q is a float64 exactly (a numeric coefficient,
+// nearly always), which is that text without big.Float's decimal
+// conversion (half of printing a numeric trace of a few hundred modes).
+func decimal12(q *big.Rat) string {
+	if f, exact := q.Float64(); exact {
+		return strconv.FormatFloat(math.Abs(f), 'g', 12, 64)
+	}
+	return new(big.Float).SetRat(new(big.Rat).Abs(q)).Text('g', 12)
+}
+
 // printMonomialTerm prints q·Π atoms·vars: in text as q*atoms*vars/atoms,
 // in LaTeX as \frac{q_num atoms}{q_den atoms} vars.
 func printMonomialTerm(t pterm, vars []string, st style) (bool, string) {
@@ -241,9 +253,13 @@ func printMonomialTerm(t pterm, vars []string, st style) (bool, string) {
 	num := new(big.Int).Abs(q.Num())
 	den := q.Denom()
 	if st.decimal && !q.IsInt() {
-		text := new(big.Float).SetRat(new(big.Rat).Abs(q)).Text('g', 12)
-		d, ok := new(big.Rat).SetString(text)
-		whole := ok && d.IsInt() && !strings.ContainsAny(text, "eE") // 6.8e+25 stays a decimal
+		text := decimal12(q)
+		d, ok := new(big.Rat), false
+		whole := !strings.ContainsAny(text, ".eE") // 6.8e+25 stays a decimal
+		if whole {
+			_, ok = d.SetString(text)
+			whole = ok
+		}
 		if st.latex {
 			text = LaTeXNumber(text)
 		}
