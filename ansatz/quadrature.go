@@ -82,7 +82,7 @@ type Quadrature struct {
 	sourceSize   float64               // the largest |g| sampled (SourceSize)
 	peakRadii    []float64             // where |g| peaks (peaks), found once by Prepare
 	buf          []float64
-	zero         []float64 // zeros
+	zero         []float64 // read-only zeros shared by quarter rings (zeros)
 	scale        float64   // the probes' largest mode, weighted by its share of p
 	used         int       // the most angular samples a panel took
 	capped       bool      // a panel reached the cap with its top band above Tol
