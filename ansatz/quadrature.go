@@ -199,7 +199,6 @@ func (q *Quadrature) ringTop(s float64, n, top int) (a, b []float64) {
 	}
 	x := q.buf[:n]
 	P := q.period()
-	size := q.sourceSize
 	if q.GXY != nil { // the ring's points from the plan's table of angles
 		for j := range x {
 			x[j] = q.GXY(s*plan.cos[j], s*plan.sin[j])
@@ -209,12 +208,7 @@ func (q *Quadrature) ringTop(s float64, n, top int) (a, b []float64) {
 			x[j] = q.G(s, P*float64(j)/float64(n))
 		}
 	}
-	for _, v := range x { // plain comparisons, NaN kept as math.Max would
-		if v := math.Abs(v); v > size || v != v {
-			size = v
-		}
-	}
-	q.sourceSize = size
+	q.noteSize(x)
 	c := plan.fft.Coefficients(plan.coef, x)
 	a, b = make([]float64, top), make([]float64, top)
 	for k := 0; k < top; k++ {
@@ -224,6 +218,19 @@ func (q *Quadrature) ringTop(s float64, n, top int) (a, b []float64) {
 	a[0] /= 2
 	q.dropNoise(plan, a, b)
 	return a, b
+}
+
+// noteSize raises SourceSize to the largest |g| among the samples x, by
+// plain comparisons (math.Max's NaN rules cost a third of a sector ring's
+// bookkeeping), a NaN kept as math.Max would.
+func (q *Quadrature) noteSize(x []float64) {
+	size := q.sourceSize
+	for _, v := range x {
+		if v := math.Abs(v); v > size || v != v {
+			size = v
+		}
+	}
+	q.sourceSize = size
 }
 
 // dropNoise zeroes the modes below the transform's rounding, which the

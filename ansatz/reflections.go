@@ -1,8 +1,6 @@
 package ansatz
 
 import (
-	"math"
-
 	"gonum.org/v1/gonum/dsp/fourier"
 )
 
@@ -47,15 +45,10 @@ func newQuarterRing(n int, odd [2]bool) *quarterRing {
 // modes are the ring's a_k, b_k, k < top ≤ n/2, at radius s.
 func (r *quarterRing) modes(quad *Quadrature, s float64, n, top int) (a, b []float64) {
 	P, q := quad.period(), n/4
-	size := quad.sourceSize
 	for i := range r.x {
-		j := r.first + i
-		r.x[i] = quad.G(s, P*float64(j)/float64(n))
-		if v := math.Abs(r.x[i]); v > size || v != v { // NaN kept, as math.Max would
-			size = v
-		}
+		r.x[i] = quad.G(s, P*float64(r.first+i)/float64(n))
 	}
-	quad.sourceSize = size
+	quad.noteSize(r.x)
 	// One family only is nonzero (sines when the start ray is odd): the
 	// other is the quadrature's shared zeros.
 	if r.odd[0] {

@@ -187,7 +187,7 @@ func kinkedQuadrature(p *posed, a, R float64) (*ansatz.Quadrature, error) {
 			return nil, unsupported("the source %s needs every parameter's value: %w", p.rest.Text(), err)
 		}
 		g = cf.At
-		if singleValued(left) {
+		if left.SingleValued() {
 			if xy, err := (series.Field{Rest: left}).CompileXY(p.env, cart.PolyLeaf(p.env)); err == nil {
 				gxy = xy.At
 			}
@@ -198,33 +198,6 @@ func kinkedQuadrature(p *posed, a, R float64) (*ansatz.Quadrature, error) {
 		return nil, unsolvable("%s: %w", p.rest.Text(), err)
 	}
 	return q, nil
-}
-
-// singleValued says that the source e is written in terms single-valued
-// around the origin (no power of θ itself) and in operations alone, so
-// that its Cartesian form (Quadrature.GXY) takes the same values as its
-// polar one at every angle. A source with θ^k is not (the two forms cut
-// the plane at different rays, 2π and π), nor are the node kinds that
-// evaluate in polar coordinates only (pieces in θ, series, conditions,
-// derived fields): those keep the polar form.
-func singleValued(e *series.Expr) bool {
-	switch e.Op() {
-	case "sum":
-		for _, t := range e.Leaf().Terms() {
-			if t.K != 0 {
-				return false
-			}
-		}
-		return true
-	case "fourier", "pieces", "series", "choose", "func":
-		return false
-	}
-	for _, a := range e.Args() {
-		if !singleValued(a) {
-			return false
-		}
-	}
-	return true
 }
 
 // exactKinkNote says how kinks with exact traces were taken.

@@ -712,7 +712,7 @@ func TestSingleValuedSources(t *testing.T) {
 		if c.f.Rest == nil {
 			t.Fatalf("%s: no remainder to sample", c.name)
 		}
-		if got := domain.SingleValued(c.f.Rest); got != c.want {
+		if got := c.f.Rest.SingleValued(); got != c.want {
 			t.Errorf("%s: single-valued %v, want %v", c.name, got, c.want)
 		}
 	}

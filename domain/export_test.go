@@ -6,6 +6,3 @@ func SectionFitValues(s *Solution, z complex128) (valueOnly, withSlope float64) 
 	v, _ := s.Section.fit.value(z)
 	return s.Section.fit.valueOnly(z), v
 }
-
-// SingleValued is singleValued, which chooses a disk's Cartesian sampling.
-var SingleValued = singleValued

@@ -839,6 +839,32 @@ func (e *Expr) HasSeries() bool { return e.has("series") }
 // HasChoice reports a remainder that contains a numeric choice (cond ? a : b).
 func (e *Expr) HasChoice() bool { return e.has("choose") }
 
+// SingleValued says that e is written in terms single-valued around the
+// origin (no power of θ itself) and in operations alone, so that its
+// Cartesian form (CompileXY) takes the same values as its polar one at
+// every angle. A power of θ is not (the two forms cut the plane at
+// different rays, 2π and π), nor are the node kinds that evaluate in polar
+// coordinates only (pieces in θ, series, conditions, derived fields).
+func (e *Expr) SingleValued() bool {
+	switch e.op {
+	case "sum":
+		for _, t := range e.sum.Terms() {
+			if t.K != 0 {
+				return false
+			}
+		}
+		return true
+	case "fourier", "pieces", "series", "choose", "func":
+		return false
+	}
+	for _, a := range e.args {
+		if !a.SingleValued() {
+			return false
+		}
+	}
+	return true
+}
+
 func (e *Expr) has(op string) bool {
 	if e == nil {
 		return false
