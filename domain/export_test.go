@@ -1,8 +1,45 @@
 package domain
 
+import (
+	"math"
+
+	"psol/series"
+)
+
 // SectionFitValues is a section's fitted harmonic part at z by its two
 // evaluations: the value alone, and the value with the derivative.
 func SectionFitValues(s *Solution, z complex128) (valueOnly, withSlope float64) {
 	v, _ := s.Section.fit.value(z)
 	return s.Section.fit.valueOnly(z), v
+}
+
+// SectionSampleDepth is, for section d with n poles at every corner, each
+// corner's nearest fit point and nearest check point, over the section's size.
+func SectionSampleDepth(d Domain, n int) (fit, check []float64, err error) {
+	g, err := d.(section).geometry(nil)
+	if err != nil {
+		return nil, nil, err
+	}
+	conds := make([]sideCondition, len(g.shape.Sides))
+	for k := range conds {
+		if conds[k], err = compileSideCondition(Condition{Kind: Dirichlet, G: series.ExactField(series.Sum{})}, series.Sum{}, nil); err != nil {
+			return nil, nil, err
+		}
+	}
+	poles := make([]int, len(g.corners))
+	for k := range poles {
+		poles[k] = n
+	}
+	fitPts, checkPts := g.samples(poles, 12, conds)
+	depth := func(pts []boundaryPoint) []float64 {
+		out := make([]float64, len(g.corners))
+		for k, c := range g.corners {
+			out[k] = math.Inf(1)
+			for _, p := range pts {
+				out[k] = math.Min(out[k], abs(p.z-c.w)/g.scale)
+			}
+		}
+		return out
+	}
+	return depth(fitPts), depth(checkPts), nil
 }

@@ -664,12 +664,22 @@ func (sc sideCondition) point(t, x, y, nx, ny float64, side int, geo *sectionGeo
 	return p
 }
 
-// worst is the side's largest (weighted) residual on a fine sampling.
+// worst is the side's largest (weighted) residual on a fine sampling of
+// its own: 400 points along it, and toward each end four points a decade
+// down to the depth the fit resolves (nearest), where a corner's error
+// gathers.
 func (sc sideCondition) worst(h *rationalHarmonic, k int, path SidePath, geo *sectionGeometry) float64 {
 	out := 0.0
+	at := func(t float64) {
+		x, y, nx, ny := path.At(t)
+		out = math.Max(out, sc.point(t, x, y, nx, ny, k, geo).residual(h))
+	}
 	for j := 0; j < 400; j++ {
-		x, y, nx, ny := path.At((float64(j) + 0.5) / 400)
-		out = math.Max(out, sc.point((float64(j)+0.5)/400, x, y, nx, ny, k, geo).residual(h))
+		at((float64(j) + 0.5) / 400)
+	}
+	for t := 0.5 / 400; t*path.Length >= nearest*geo.scale; t /= math.Sqrt(math.Sqrt(10)) {
+		at(t)
+		at(1 - t)
 	}
 	return out
 }
@@ -724,7 +734,20 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 			if end.corner < 0 {
 				continue
 			}
-			for _, d := range dists(end.corner) {
+			ds := dists(end.corner)
+			// Below its nearest pole a corner had no points: its value at
+			// the vertex went unfitted and unchecked, and a corner given
+			// few poles was looked at no closer than they reach (a hole's
+			// corner read 6e-8 there and 2e-5 at 1e-9 of the section's
+			// size). A fit point each decade down to the depth the fit
+			// resolves (nearest), a check point between each.
+			for d := ds[0] / 10; d >= nearest*g.scale; d /= 10 {
+				if s := d / side.Length; s < 0.5 {
+					add(&fit, k, end.at(s))
+					add(&check, k, end.at(0.3*s))
+				}
+			}
+			for _, d := range ds {
 				for _, f := range []float64{0.5, 1, 2} {
 					if s := f * d / side.Length; s < 0.5 {
 						add(&fit, k, end.at(s))
