@@ -195,9 +195,9 @@ const maxSectionSteps = 12
 // it. The first few carry the singularity; higher ones are smooth enough
 // for the poles and the polynomial, and cost columns: uncapped they grew
 // to a third of a hollow section's (168 of ~540 terms), and each fit's QR
-// grows with the columns squared. Capped at 10 the L shape's fit took 0.26 s
-// instead of 0.45, a triangular hole's 0.74 instead of 1.54, each to the same
-// residual within 20% and the same J to 12 digits.
+// grows with the columns squared. Capped at 10 (single runs) the L shape's
+// fit took 0.26 s instead of 0.45 and a triangular hole's 0.74 s instead of
+// 1.54, each to the same residual within 20% and the same J to 12 digits.
 const maxCornerPowers = 10
 
 // solveSection is the pipeline on a section: u_p from the ansatz rules

@@ -897,7 +897,7 @@ func TestSectionResidualsSeenAtCorners(t *testing.T) {
 				length := math.Hypot(bx-ax, by-ay)
 				worst := 0.0
 				for j := 3; j <= 27; j++ {
-					s := math.Pow(10, -float64(j)/3) * 2 / length // of the side, the section's size ~2
+					s := math.Pow(10, -float64(j)/3) * 2 / length // 2: about either section's size
 					for _, t := range []float64{s, 1 - s} {
 						u, _, _ := ev.AtXY(ax+(bx-ax)*t, ay+(by-ay)*t)
 						worst = math.Max(worst, math.Abs(u-g))
