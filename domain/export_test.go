@@ -2,6 +2,7 @@ package domain
 
 import (
 	"math"
+	"strings"
 
 	"psol/series"
 )
@@ -42,4 +43,32 @@ func SectionSampleDepth(d Domain, n int) (fit, check []float64, err error) {
 		return out
 	}
 	return depth(fitPts), depth(checkPts), nil
+}
+
+// SectionFitRowsByCurve counts section d's fit points on its outline and on
+// its holes, with n poles at every corner and the polynomial of the degree.
+func SectionFitRowsByCurve(d Domain, n, degree int) (outline, holes int, err error) {
+	g, err := d.(section).geometry(nil)
+	if err != nil {
+		return 0, 0, err
+	}
+	conds := make([]sideCondition, len(g.shape.Sides))
+	for k := range conds {
+		if conds[k], err = compileSideCondition(Condition{Kind: Dirichlet, G: series.ExactField(series.Sum{})}, series.Sum{}, nil); err != nil {
+			return 0, 0, err
+		}
+	}
+	poles := make([]int, len(g.corners))
+	for k := range poles {
+		poles[k] = n
+	}
+	fit, _ := g.samples(poles, degree, conds)
+	for _, p := range fit {
+		if strings.HasPrefix(g.shape.Sides[p.side].Name, "hole") {
+			holes++
+		} else {
+			outline++
+		}
+	}
+	return outline, holes, nil
 }

@@ -713,16 +713,25 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 	}
 	base := 3*(2*degree+2)*blocks/max(len(sides), 1)/2 + 12
 	// Around a hole its Laurent terms and the polynomial both act, up to
-	// the degree each way: a hole needs its own share, split among its sides.
+	// the degree each way: each closed curve, a hole or the outline, needs
+	// its own share, split among its sides. (The outline's sides once
+	// counted as a curve each: a rectangle's took four shares, two thirds
+	// of a hollow section's rows.)
+	curve := func(side string) string {
+		if g := holeGroup(side); strings.HasPrefix(g, "hole") {
+			return g
+		}
+		return "" // the outline
+	}
 	members := map[string]int{}
 	for _, s := range sides {
-		members[holeGroup(s.Name)]++
+		members[curve(s.Name)]++
 	}
 	perSide := func(k int) int {
 		if len(g.holes) == 0 {
 			return base
 		}
-		return max(base, (6*degree+12)/members[holeGroup(sides[k].Name)])
+		return max(base, (6*degree+12)/members[curve(sides[k].Name)])
 	}
 	dists := func(k int) []float64 { return poleDistances(poles[k], g.corners[k].poleScale(g.scale)) }
 	add := func(to *[]boundaryPoint, k int, t float64) {

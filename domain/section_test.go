@@ -242,6 +242,33 @@ func BenchmarkSectionSolve(b *testing.B) {
 	}
 }
 
+// Hollow sections with no mirror line (the fit keeps every corner), u = 0
+// outside and a constant on the hole, to the default 1e-12: a triangular
+// hole in the unit square, and a square hole near a corner of it.
+func BenchmarkHollowSectionNoSymmetry(b *testing.B) {
+	for _, c := range []struct {
+		name string
+		hole domain.Polygon
+	}{
+		{"triangle", polygonXY(0.3, 0.3, 0.7, 0.3, 0.5, 0.6)},
+		{"square", polygonXY(0.2, 0.2, 0.5, 0.2, 0.5, 0.5, 0.2, 0.5)},
+	} {
+		d := domain.Holed{Outer: polygonXY(0, 0, 1, 0, 1, 1, 0, 1), Holes: []domain.CircleHole{{Poly: c.hole}}}
+		f, conds, err := pose("lap(u) = -2", d, append(sidesOf(d, "s", "u = 0"), sidesOf(d, "hole1", "u = 0.01")...), nil)
+		if err != nil {
+			b.Fatal(err)
+		}
+		b.Run(c.name, func(b *testing.B) {
+			b.ReportAllocs()
+			for i := 0; i < b.N; i++ {
+				if _, err := domain.SolveWith(d, f, conds, domain.Options{Tol: 1e-12}); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
+
 // Evaluating the fitted solution at a point of the L shape.
 func BenchmarkSectionEval(b *testing.B) {
 	l := polygon([2]float64{0, 0}, [2]float64{2, 0}, [2]float64{2, 1}, [2]float64{1, 1}, [2]float64{1, 2}, [2]float64{0, 2})
@@ -912,6 +939,24 @@ func TestSectionResidualsSeenAtCorners(t *testing.T) {
 		sides(c.outer, "", 0)
 		if c.hole != nil {
 			sides(c.hole, "hole1.", c.hole1)
+		}
+	}
+}
+
+// Each closed curve of a holed section, the outline and every hole, takes
+// one share of the uniform rows for the polynomial and the Laurent terms,
+// split among its sides: the outline's four sides once took a share each,
+// four times the hole's rows for the same terms (and two thirds of a fit's
+// QR). Both curves here have four sides and four corners alike.
+func TestSectionRowsShareByCurve(t *testing.T) {
+	d := domain.Holed{Outer: polygonXY(0, 0, 1, 0, 1, 1, 0, 1), Holes: []domain.CircleHole{{Poly: polygonXY(0.2, 0.2, 0.5, 0.2, 0.5, 0.5, 0.2, 0.5)}}}
+	for _, degree := range []int{12, 50, 111} {
+		outline, holes, err := domain.SectionFitRowsByCurve(d, 4, degree)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if outline > 3*holes/2 || holes > 3*outline/2 {
+			t.Errorf("degree %d: %d fit rows on the outline, %d on the hole (want within 1.5×)", degree, outline, holes)
 		}
 	}
 }
