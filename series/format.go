@@ -133,6 +133,18 @@ func trigText(m int, sin bool, st style) string {
 
 // power is base^e in the style's syntax; e = 1 prints the bare base.
 func power(base string, e *big.Rat, st style) string {
+	if e.IsInt() && e.Num().IsInt64() { // a whole exponent, nearly always: no big text
+		switch n := e.Num().Int64(); {
+		case n == 1:
+			return base
+		case st.latex:
+			return base + "^{" + strconv.FormatInt(n, 10) + "}"
+		case n > 0:
+			return base + "^" + strconv.FormatInt(n, 10)
+		default:
+			return base + "^(" + strconv.FormatInt(n, 10) + ")"
+		}
+	}
 	switch {
 	case e.Cmp(one) == 0:
 		return base
@@ -250,8 +262,7 @@ func decimal12(q *big.Rat) string {
 func printMonomialTerm(t pterm, vars []string, st style) (bool, string) {
 	q := t.c
 	neg := q.Sign() < 0
-	num := new(big.Int).Abs(q.Num())
-	den := q.Denom()
+	var num, den *big.Int
 	if st.decimal && !q.IsInt() {
 		text := decimal12(q)
 		d, ok := new(big.Rat), false
@@ -281,6 +292,9 @@ func printMonomialTerm(t pterm, vars []string, st style) (bool, string) {
 			}
 			return neg, body
 		}
+	}
+	if num == nil {
+		num, den = new(big.Int).Abs(q.Num()), q.Denom()
 	}
 	var up, down []string
 	for _, f := range t.m.f {
