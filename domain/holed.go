@@ -140,15 +140,14 @@ func polygonHole(name string, p Polygon, env series.Env) (holeNumbers, error) {
 	for k := 0; k < n; k++ {
 		hn.x, hn.y = hn.x+xs[k]/float64(n), hn.y+ys[k]/float64(n)
 	}
-	hn.r = math.Inf(1)
 	for k := 0; k < n; k++ {
 		j := (k + 1) % n
 		// The edge from vertex k to k+1, its normal turned into the hole
 		// (the region's outward normal there).
 		s := orientedSegment(fmt.Sprintf("%s.s%d", name, k+1), xs[k], ys[k], xs[j], ys[j], -orient)
 		hn.sides = append(hn.sides, s)
-		hn.r = math.Min(hn.r, pointSegment(hn.x, hn.y, xs[k], ys[k], xs[j], ys[j]))
 	}
+	hn.x, hn.y, hn.r = holeCentre(xs, ys, hn.x, hn.y)
 	for k := 0; k < n; k++ {
 		i, j := (k+n-1)%n, (k+1)%n
 		w := complex(xs[k], ys[k])
@@ -188,6 +187,45 @@ func polygonHole(name string, p Polygon, env series.Env) (holeNumbers, error) {
 		return true
 	}
 	return hn, nil
+}
+
+// edgeDistance is the distance from (x, y) to the polygon's nearest edge.
+func edgeDistance(xs, ys []float64, x, y float64) float64 {
+	d := math.Inf(1)
+	for k := range xs {
+		j := (k + 1) % len(xs)
+		d = math.Min(d, pointSegment(x, y, xs[k], ys[k], xs[j], ys[j]))
+	}
+	return d
+}
+
+// holeCentre is the centre of a polygonal hole's logarithm and Laurent
+// terms, and the pivot of its corners' powers, with its distance to the
+// nearest edge (the terms' radius): the vertices' centroid (cx, cy), unless
+// it lies outside the hole or near an edge, as a non-convex hole's can (an
+// L-shaped hole's is its reflex vertex, where every term is singular and
+// the fit failed). Then the point of a 32 × 32 grid over the hole farthest
+// from its edges.
+func holeCentre(xs, ys []float64, cx, cy float64) (x, y, r float64) {
+	x0, y0, x1, y1 := xs[0], ys[0], xs[0], ys[0]
+	for k := range xs {
+		x0, y0, x1, y1 = math.Min(x0, xs[k]), math.Min(y0, ys[k]), math.Max(x1, xs[k]), math.Max(y1, ys[k])
+	}
+	bx, by, br := cx, cy, 0.0
+	for i := 0; i < 32; i++ {
+		for j := 0; j < 32; j++ {
+			px, py := x0+(x1-x0)*(float64(i)+0.5)/32, y0+(y1-y0)*(float64(j)+0.5)/32
+			if d := edgeDistance(xs, ys, px, py); d > br && insidePolygon(xs, ys, px, py) {
+				bx, by, br = px, py, d
+			}
+		}
+	}
+	// The centroid where it is well inside: a convex hole's, always (its
+	// distance is at least a third of the largest inscribed circle's).
+	if d := edgeDistance(xs, ys, cx, cy); insidePolygon(xs, ys, cx, cy) && d >= 0.25*br {
+		return cx, cy, d
+	}
+	return bx, by, br
 }
 
 // pointSegment is the distance from (x, y) to the segment from a to b.
