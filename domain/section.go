@@ -345,7 +345,14 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	// A fit far from the target is no answer: psol refuses it rather than
 	// print a value it cannot stand behind.
 	if best.residual > math.Max(target, 1e-9*scale) || math.IsNaN(best.residual) {
-		return nil, unsolvable("the harmonic part's fit on %s reached a residual of only %.1e (relative %.1e) in %d refinements, largest at (x, y) = (%.6g, %.6g) on %s: a corner where a value condition meets a flux or convection condition at an angle other than pi/2 converges slowly with psol's rational fit, and psol gives no answer it cannot stand behind", d.Describe(), best.residual, best.residual/math.Max(scale, 1e-300), maxSectionSteps, real(best.worstAt), imag(best.worstAt), geo.shape.Sides[best.worstOn].Name)
+		why := "the fit could not resolve the section there"
+		for k := range geo.corners {
+			if on, back := cornerSides(&geo, k); on >= 0 && back >= 0 && (conds[on].b == 0) != (conds[back].b == 0) {
+				why = "a corner where a value condition meets a flux or convection condition at an angle other than pi/2 converges slowly with psol's rational fit"
+				break
+			}
+		}
+		return nil, unsolvable("the harmonic part's fit on %s reached a residual of only %.1e (relative %.1e) in %d refinements, largest at (x, y) = (%.6g, %.6g) on %s: %s, and psol gives no answer it cannot stand behind", d.Describe(), best.residual, best.residual/math.Max(scale, 1e-300), maxSectionSteps, real(best.worstAt), imag(best.worstAt), geo.shape.Sides[best.worstOn].Name, why)
 	}
 	parts := &SectionParts{Corners: len(geo.corners), Degree: best.degree * best.polyPower, Residual: best.residual,
 		X: real(best.worstAt), Y: imag(best.worstAt), Side: geo.shape.Sides[best.worstOn].Name, Bound: true, fit: best, Poles: bestPoles,
