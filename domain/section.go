@@ -352,7 +352,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 				break
 			}
 		}
-		return nil, unsolvable("the harmonic part's fit on %s reached a residual of only %.1e (relative %.1e) in %d refinements, largest at (x, y) = (%.6g, %.6g) on %s: %s, and psol gives no answer it cannot stand behind", d.Describe(), best.residual, best.residual/math.Max(scale, 1e-300), maxSectionSteps, real(best.worstAt), imag(best.worstAt), geo.shape.Sides[best.worstOn].Name, why)
+		return nil, unsolvable("the harmonic part's fit on %s reached a residual of only %.1e (relative %.1e) in %d refinements, largest at (x, y) = (%.6g, %.6g) on %s: %s, and psol gives no answer it cannot stand behind", d.Describe(), best.residual, best.residual/math.Max(scale, 1e-300), steps, real(best.worstAt), imag(best.worstAt), geo.shape.Sides[best.worstOn].Name, why)
 	}
 	parts := &SectionParts{Corners: len(geo.corners), Degree: best.degree * best.polyPower, Residual: best.residual,
 		X: real(best.worstAt), Y: imag(best.worstAt), Side: geo.shape.Sides[best.worstOn].Name, Bound: true, fit: best, Poles: bestPoles,
