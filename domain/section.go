@@ -315,8 +315,12 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		// spent 15 of its 24 s on three, to go from 3.1e-13 to 4.6e-14
 		// against a target of 6.8e-15. The best stands, its residual
 		// printed. (A step that gains little but gains is no floor: an
-		// L-shaped section's fit gains 2.7 once, then 100 more.)
-		floor := stalled > 0 && best.residual <= 100*target
+		// L-shaped section's fit gains 2.7 once, then 100 more.) Floors
+		// lie near rounding, below 1e-9 of the data: above that a worse
+		// fit is a step of the loop, not a floor (an L-shaped hole at a
+		// loose tolerance had its refinement cut short at 1e-7 of the data,
+		// by rounding's luck, and was refused).
+		floor := stalled > 0 && best.residual <= 100*target && best.residual <= 1e-9*scale
 		// With a flux condition a second fit is needed for the estimate.
 		if best.residual <= target && (values || prev != nil) || stalled >= 3 || floor {
 			atFloor = floor && best.residual > target

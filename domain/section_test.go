@@ -997,3 +997,19 @@ func TestNonConvexHoleManufactured(t *testing.T) {
 		}
 	}
 }
+
+// A hole with a notch the region reaches into (a U shape) is beyond the
+// expansion about one point inside it: psol refuses it as unsolvable, with
+// the residual it reached, rather than print a poor answer.
+func TestNotchedHoleRefused(t *testing.T) {
+	hole := polygonXY(1, 1, 3, 1, 3, 2, 2.5, 2, 2.5, 1.5, 1.5, 1.5, 1.5, 2, 1, 2)
+	d := domain.Holed{Outer: domain.Rect{L: series.IntCoef(4), H: series.IntCoef(3)}, Holes: []domain.CircleHole{{Poly: hole}}}
+	f, conds, err := pose("lap(u) = -2", d, append(everySide(domain.Rect{L: series.IntCoef(4), H: series.IntCoef(3)}, "u = 0"), sidesOf(d, "hole1", "u = 0.1")...), nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var un *domain.Unsolvable
+	if _, err := domain.SolveWith(d, f, conds, domain.Options{Tol: 1e-12}); !errors.As(err, &un) || !strings.Contains(err.Error(), "residual of only") {
+		t.Errorf("a U-shaped hole: %v, want a refusal naming the residual reached", err)
+	}
+}
