@@ -221,9 +221,9 @@ func holeCentre(xs, ys []float64, cx, cy float64) (x, y, r float64) {
 		}
 	}
 	// The centroid where it is well inside, a quarter of the grid's best
-	// distance from every edge: so every hole psol took before keeps its
-	// centre (a triangle's centroid is two thirds of its inradius from each
-	// side, a rectangle's is the best point).
+	// distance from every edge: so the holes psol solved before keep their
+	// centre (every golden and test did; a triangle's centroid is two
+	// thirds of its inradius from each side, a rectangle's is the best).
 	if d := edgeDistance(xs, ys, cx, cy); insidePolygon(xs, ys, cx, cy) && d >= 0.25*br {
 		return cx, cy, d
 	}
