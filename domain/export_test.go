@@ -14,24 +14,33 @@ func SectionFitValues(s *Solution, z complex128) (valueOnly, withSlope float64) 
 	return s.Section.fit.valueOnly(z), v
 }
 
-// SectionSampleDepth is, for section d with n poles at every corner, each
-// corner's nearest fit point and nearest check point, over the section's size.
-func SectionSampleDepth(d Domain, n int) (fit, check []float64, err error) {
-	g, err := d.(section).geometry(nil)
-	if err != nil {
-		return nil, nil, err
+// sectionSamples are section d's fit and check points with n poles at
+// every corner, the polynomial of the degree, and value conditions.
+func sectionSamples(d Domain, n, degree int) (g sectionGeometry, fit, check []boundaryPoint, err error) {
+	if g, err = d.(section).geometry(nil); err != nil {
+		return g, nil, nil, err
 	}
 	conds := make([]sideCondition, len(g.shape.Sides))
 	for k := range conds {
 		if conds[k], err = compileSideCondition(Condition{Kind: Dirichlet, G: series.ExactField(series.Sum{})}, series.Sum{}, nil); err != nil {
-			return nil, nil, err
+			return g, nil, nil, err
 		}
 	}
 	poles := make([]int, len(g.corners))
 	for k := range poles {
 		poles[k] = n
 	}
-	fitPts, checkPts := g.samples(poles, 12, conds)
+	fit, check = g.samples(poles, degree, conds)
+	return g, fit, check, nil
+}
+
+// SectionSampleDepth is, for section d with n poles at every corner, each
+// corner's nearest fit point and nearest check point, over the section's size.
+func SectionSampleDepth(d Domain, n int) (fit, check []float64, err error) {
+	g, fitPts, checkPts, err := sectionSamples(d, n, 12)
+	if err != nil {
+		return nil, nil, err
+	}
 	depth := func(pts []boundaryPoint) []float64 {
 		out := make([]float64, len(g.corners))
 		for k, c := range g.corners {
@@ -48,21 +57,10 @@ func SectionSampleDepth(d Domain, n int) (fit, check []float64, err error) {
 // SectionFitRowsByCurve counts section d's fit points on its outline and on
 // its holes, with n poles at every corner and the polynomial of the degree.
 func SectionFitRowsByCurve(d Domain, n, degree int) (outline, holes int, err error) {
-	g, err := d.(section).geometry(nil)
+	g, fit, _, err := sectionSamples(d, n, degree)
 	if err != nil {
 		return 0, 0, err
 	}
-	conds := make([]sideCondition, len(g.shape.Sides))
-	for k := range conds {
-		if conds[k], err = compileSideCondition(Condition{Kind: Dirichlet, G: series.ExactField(series.Sum{})}, series.Sum{}, nil); err != nil {
-			return 0, 0, err
-		}
-	}
-	poles := make([]int, len(g.corners))
-	for k := range poles {
-		poles[k] = n
-	}
-	fit, _ := g.samples(poles, degree, conds)
 	for _, p := range fit {
 		if strings.HasPrefix(g.shape.Sides[p.side].Name, "hole") {
 			holes++
