@@ -890,7 +890,8 @@ func TestSectionSamplesReachEveryCorner(t *testing.T) {
 // The residuals psol prints for a section bound what an independent look
 // finds: |u − g| along every side toward each vertex, at distances a third
 // of a decade apart down to 1e-9 of the section's size (common practice:
-// a corner's error concentrates at the vertex). A printed residual from a
+// a corner's error concentrates at the vertex), within 1.5× of each side's
+// printed check and 2× of the fit's residual. A printed residual from a
 // sampling that stopped short of a corner read 6e-8 where 2e-5 was true.
 func TestSectionResidualsSeenAtCorners(t *testing.T) {
 	cases := []struct {
@@ -931,7 +932,9 @@ func TestSectionResidualsSeenAtCorners(t *testing.T) {
 					}
 				}
 				side := fmt.Sprintf("%ss%d", prefix, k+1)
-				if worst > 2*printed[side] || worst > 2*sol.DataError {
+				// The side's own check and this look sample different points
+				// near the vertex: they agree within a few percent.
+				if worst > 1.5*printed[side] || worst > 2*sol.DataError {
 					t.Errorf("%s, side %s: |u - g| reaches %.2g toward its ends; printed %.2g (the fit's %.2g)", c.name, side, worst, printed[side], sol.DataError)
 				}
 			}
