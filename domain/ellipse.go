@@ -58,7 +58,8 @@ func ellipseRim(A, B float64) SidePath {
 		table[i] = table[i-1] + arc(2*math.Pi*float64(i-1)/nodes, 2*math.Pi*float64(i)/nodes)
 	}
 	length := table[nodes]
-	return SidePath{Name: "rim", Length: length, At: func(t float64) (x, y, nx, ny float64) {
+	// τ at t, by Newton's method from the table.
+	tauAt := func(t float64) float64 {
 		s := t * length
 		i := sort.SearchFloat64s(table, s) - 1
 		i = max(0, min(i, nodes-1))
@@ -67,10 +68,21 @@ func ellipseRim(A, B float64) SidePath {
 		for it := 0; it < 6; it++ {
 			tau -= (table[i] + arc(lo, tau) - s) / speed(tau)
 		}
-		c, sn := math.Cos(tau), math.Sin(tau)
-		l := math.Hypot(B*c, A*sn)
-		return A * c, B * sn, B * c / l, A * sn / l
-	}}
+		return tau
+	}
+	// The even sampling is uniform in τ: t = s(τ)/length at τ = 2πu.
+	even := func(u float64) float64 {
+		tau := 2 * math.Pi * u
+		i := max(0, min(int(u*nodes), nodes-1))
+		return (table[i] + arc(2*math.Pi*float64(i)/nodes, tau)) / length
+	}
+	return SidePath{Name: "rim", Length: length, Even: even, EvenOf: func(t float64) float64 { return tauAt(t) / (2 * math.Pi) },
+		At: func(t float64) (x, y, nx, ny float64) {
+			tau := tauAt(t)
+			c, sn := math.Cos(tau), math.Sin(tau)
+			l := math.Hypot(B*c, A*sn)
+			return A * c, B * sn, B * c / l, A * sn / l
+		}}
 }
 
 // ellipsePerimeter by the trapezoidal rule (spectrally accurate for a

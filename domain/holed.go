@@ -379,7 +379,9 @@ func (h Holed) Shape(env series.Env) (Shape, error) {
 // the normal pointing into the hole.
 func holeEllipse(name string, c holeNumbers) SidePath {
 	rim := ellipseRim(c.a, c.b)
-	return SidePath{Name: name, Length: rim.Length, At: func(t float64) (x, y, nx, ny float64) {
+	even := func(u float64) float64 { return 1 - rim.Even(1-u) }
+	evenOf := func(t float64) float64 { return 1 - rim.EvenOf(1-t) }
+	return SidePath{Name: name, Length: rim.Length, Even: even, EvenOf: evenOf, At: func(t float64) (x, y, nx, ny float64) {
 		x, y, nx, ny = rim.At(1 - t)
 		return c.x + x, c.y + y, -nx, -ny
 	}}

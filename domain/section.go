@@ -575,18 +575,21 @@ func (sc sideCondition) particularGradient(r, th float64) complex128 {
 }
 
 // sideInterpolant is the numeric particular solution's value and normal
-// derivative along one side, as Chebyshev interpolants in the side's
-// parameter t: the fit asks for them at thousands of points, each a
-// quadrature evaluation otherwise. Its error, checked at the midpoints
-// between the nodes, joins the data's.
+// derivative along one side, as Chebyshev interpolants in the side's even
+// parameter u (SidePath.Even: arc length, but an ellipse's eccentric angle,
+// in which the trace of a thin one's tips is as smooth as its flanks): the
+// fit asks for them at thousands of points, each a quadrature evaluation
+// otherwise. Its error, checked at the midpoints between the nodes, joins
+// the data's.
 type sideInterpolant struct {
-	t, v, dn, w []float64 // nodes, values, weights (barycentric)
+	u, v, dn, w []float64 // nodes, values, weights (barycentric)
 	err         float64
+	evenOf      func(t float64) float64 // u at the side's t
 }
 
 func newSideInterpolant(q *ansatz.Quadrature, path SidePath, tol float64) *sideInterpolant {
-	eval := func(t float64) (float64, float64) {
-		x, y, nx, ny := path.At(t)
+	eval := func(u float64) (float64, float64) {
+		x, y, nx, ny := path.At(path.even(u))
 		r, th := polarOf(x, y)
 		v, _ := q.At(r, th)
 		rr := math.Max(r, 1e-300)
@@ -597,10 +600,10 @@ func newSideInterpolant(q *ansatz.Quadrature, path SidePath, tol float64) *sideI
 	}
 	var in *sideInterpolant
 	for n := 32; ; n *= 2 {
-		in = &sideInterpolant{}
+		in = &sideInterpolant{evenOf: path.evenOf}
 		for j := 0; j <= n; j++ {
-			t := (1 - math.Cos(math.Pi*float64(j)/float64(n))) / 2
-			v, dn := eval(t)
+			u := (1 - math.Cos(math.Pi*float64(j)/float64(n))) / 2
+			v, dn := eval(u)
 			w := 1.0
 			if j%2 == 1 {
 				w = -1
@@ -608,7 +611,7 @@ func newSideInterpolant(q *ansatz.Quadrature, path SidePath, tol float64) *sideI
 			if j == 0 || j == n {
 				w /= 2
 			}
-			in.t, in.v, in.dn, in.w = append(in.t, t), append(in.v, v), append(in.dn, dn), append(in.w, w)
+			in.u, in.v, in.dn, in.w = append(in.u, u), append(in.v, v), append(in.dn, dn), append(in.w, w)
 		}
 		size := 0.0
 		for j := range in.v {
@@ -616,9 +619,9 @@ func newSideInterpolant(q *ansatz.Quadrature, path SidePath, tol float64) *sideI
 		}
 		in.err = 0
 		for j := 0; j < n; j++ {
-			t := (1 - math.Cos(math.Pi*(float64(j)+0.5)/float64(n))) / 2
-			v, dn := eval(t)
-			a, b := in.at(t)
+			u := (1 - math.Cos(math.Pi*(float64(j)+0.5)/float64(n))) / 2
+			v, dn := eval(u)
+			a, b := in.atEven(u)
 			in.err = math.Max(in.err, math.Max(math.Abs(a-v), math.Abs(b-dn)))
 		}
 		if in.err <= tol*math.Max(size, 1e-300) || n >= 1024 {
@@ -627,14 +630,17 @@ func newSideInterpolant(q *ansatz.Quadrature, path SidePath, tol float64) *sideI
 	}
 }
 
-// at is the interpolated value and normal derivative at t.
-func (in *sideInterpolant) at(t float64) (v, dn float64) {
+// at is the interpolated value and normal derivative at the side's t.
+func (in *sideInterpolant) at(t float64) (v, dn float64) { return in.atEven(in.evenOf(t)) }
+
+// atEven is the interpolated value and normal derivative at u.
+func (in *sideInterpolant) atEven(u float64) (v, dn float64) {
 	var num, numD, den float64
-	for j, tj := range in.t {
-		if t == tj {
+	for j, uj := range in.u {
+		if u == uj {
 			return in.v[j], in.dn[j]
 		}
-		c := in.w[j] / (t - tj)
+		c := in.w[j] / (u - uj)
 		num, numD, den = num+c*in.v[j], numD+c*in.dn[j], den+c
 	}
 	return num / den, numD / den
@@ -703,7 +709,7 @@ func (sc sideCondition) worst(h *rationalHarmonic, k int, path SidePath, geo *se
 		out = math.Max(out, sc.point(t, x, y, nx, ny, k, geo).residual(h))
 	}
 	for j := 0; j < 400; j++ {
-		at((float64(j) + 0.5) / 400)
+		at(path.even((float64(j) + 0.5) / 400))
 	}
 	for t := 0.5 / 400; t*path.Length >= nearest*geo.scale; t /= math.Sqrt(math.Sqrt(10)) {
 		at(t)
@@ -754,7 +760,7 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 	}
 	for k, side := range sides {
 		uniform := perSide(k)
-		warp := func(t float64) float64 { return t }
+		warp := side.even
 		if k < len(g.warp) && g.warp[k] != nil {
 			warp = g.warp[k]
 		}

@@ -33,6 +33,31 @@ type SidePath struct {
 	// is proportional to arc length (t·Length along the side), which the
 	// flux and length integrals rely on.
 	At func(t float64) (x, y, nx, ny float64)
+	// Even, where set, maps u uniform in [0, 1] to the t of an even
+	// sampling of the side: one uniform in the variable its fitted terms
+	// oscillate in, where that runs unevenly against arc length. An
+	// ellipse's polynomial and exterior-map terms are trigonometric
+	// polynomials in its eccentric angle, which arc length samples ten
+	// times more thinly at the ends than at the flanks of a 10:1 ellipse.
+	Even func(u float64) float64
+	// EvenOf is Even's inverse, u at t (set with Even).
+	EvenOf func(t float64) float64
+}
+
+// even is the side's even sampling at u: Even, or arc length.
+func (p SidePath) even(u float64) float64 {
+	if p.Even == nil {
+		return u
+	}
+	return p.Even(u)
+}
+
+// evenOf is even's inverse: u at t.
+func (p SidePath) evenOf(t float64) float64 {
+	if p.EvenOf == nil {
+		return t
+	}
+	return p.EvenOf(t)
 }
 
 // PolarBox is RMin ≤ r ≤ RMax, 0 ≤ θ ≤ Span. RMax is +Inf outside a circle;
