@@ -87,6 +87,10 @@ type holeNumbers struct {
 	area    float64
 	inside  func(x, y float64) bool
 	circle  bool
+	// An elongated polygon's terms: its exterior-map ellipse's centre,
+	// focus and (A + B)/2 (slotMap); focus 0 otherwise.
+	mapC, focus complex128
+	mean        float64
 }
 
 func (h Holed) holes(env series.Env) ([]holeNumbers, error) {
@@ -148,6 +152,9 @@ func polygonHole(name string, p Polygon, env series.Env) (holeNumbers, error) {
 		hn.sides = append(hn.sides, s)
 	}
 	hn.x, hn.y, hn.r = holeCentre(xs, ys, hn.x, hn.y)
+	if c, f, m, ok := slotMap(xs, ys); ok {
+		hn.mapC, hn.focus, hn.mean = c, f, m
+	}
 	for k := 0; k < n; k++ {
 		i, j := (k+n-1)%n, (k+1)%n
 		w := complex(xs[k], ys[k])
@@ -434,6 +441,9 @@ func (h Holed) geometry(env series.Env) (sectionGeometry, error) {
 			g.starts, g.ends = append(g.starts, a), append(g.ends, b)
 		}
 		hb := holeBasis{c: complex(c.x, c.y), rho: c.r}
+		if c.focus != 0 { // an elongated polygon: the terms of an ellipse's exterior map
+			hb.c, hb.focus, hb.mean = c.mapC, c.focus, c.mean
+		}
 		if c.a > 0 && c.a != c.b { // an ellipse: the terms of its exterior map
 			hb.mean = (c.a + c.b) / 2
 			if c.a > c.b {

@@ -163,7 +163,7 @@ func (h *rationalHarmonic) powerTerms(z complex128, f, df []complex128) {
 type SectionParts struct {
 	Corners, Degree int
 	Holes           int   // holes, each with its logarithm and Laurent terms in the basis
-	Elliptic        bool  // some hole is an ellipse: its terms are powers of its exterior map's inverse
+	Elliptic        bool  // some hole is an ellipse or an elongated polygon: its terms are powers of an exterior map's inverse
 	Poles           []int // at each corner, in the order of the vertices
 	// Residual is the largest |condition residual| on a sampling of the
 	// sides finer than the fit's, at (X, Y) on side Side.
