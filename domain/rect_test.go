@@ -431,3 +431,57 @@ func TestRectanglePiecewiseSide(t *testing.T) {
 		}
 	}
 }
+
+// Side fluxes of the rectangle from the series in closed form, term by
+// term (rectflux.go), where panels of differences had erred by 1e-8 next to
+// the corners. The unit square with Δu = −1 and u = 0 sends −1/4 through
+// each side (symmetry and the divergence theorem); with its left side
+// insulated it is half of the 2 × 1 duct mirrored in that side, whose flux
+// through x = 1 is −Σ_(n odd) 8 tanh(nπ)/(π³n³) (the 2 × 1 duct's own series,
+// summed here to n = 4·10⁶ with its tail), the rest shared by the other two
+// walls. And a slab with convection on two faces and insulated on the others
+// is exact: u = 1/4 + x/2 − x²/2 (Incropera's plane wall with generation,
+// h/k = 2, T∞ = 0), with the particular solution taken along the insulated
+// walls so that they need no correction.
+func TestRectangleSideFluxesExact(t *testing.T) {
+	fluxes := func(sol *domain.Solution) map[string]float64 {
+		t.Helper()
+		rep, err := sol.Report(nil, 1e-12)
+		if err != nil {
+			t.Fatal(err)
+		}
+		out := map[string]float64{}
+		for _, f := range rep.Sides {
+			out[f.Side] = f.Value
+		}
+		return out
+	}
+	sq := fluxes(solve(t, "lap(u) = -1", rect(t, "1", "1"), "left: u = 0", "right: u = 0", "bottom: u = 0", "top: u = 0"))
+	for _, side := range []string{"left", "right", "bottom", "top"} {
+		if math.Abs(sq[side]+0.25) > 1e-12 {
+			t.Errorf("square: flux through %s %.15f, want -1/4", side, sq[side])
+		}
+	}
+	right := 0.0
+	for n := 4000001.0; n >= 1; n -= 2 {
+		right -= 8 * math.Tanh(n*math.Pi) / (math.Pi * math.Pi * math.Pi * n * n * n)
+	}
+	right -= 8 / (math.Pi * math.Pi * math.Pi) / (4 * 4000001.0 * 4000001.0) // Σ_(n > N, odd) n⁻³ ≈ 1/(4N²)
+	half := fluxes(solve(t, "lap(u) = -1", rect(t, "1", "1"), "left: dn(u) = 0", "right: u = 0", "bottom: u = 0", "top: u = 0"))
+	want := map[string]float64{"left": 0, "right": right, "bottom": (-1 - right) / 2, "top": (-1 - right) / 2}
+	for side, w := range want {
+		if math.Abs(half[side]-w) > 1e-12 {
+			t.Errorf("insulated left side: flux through %s %.15f, want %.15f", side, half[side], w)
+		}
+	}
+	slab := solve(t, "lap(u) = -1", rect(t, "1", "3/10"), "left: dn(u) + 2u = 0", "right: dn(u) + 2u = 0", "bottom: dn(u) = 0", "top: dn(u) = 0")
+	if len(slab.Rect.Sides[2].Correction.Terms())+len(slab.Rect.Sides[3].Correction.Terms()) > 0 {
+		t.Errorf("slab: the insulated walls got corrections %s, %s", slab.Rect.Sides[2].Correction.Text(), slab.Rect.Sides[3].Correction.Text())
+	}
+	ev := evaluator(t, slab, 1e-13)
+	for _, p := range [][2]float64{{0.5, 0.1}, {0, 0.2}, {0.9, 0.29}} {
+		if got, _, _ := ev.At(math.Hypot(p[0], p[1]), math.Atan2(p[1], p[0])); math.Abs(got-(0.25+p[0]/2-p[0]*p[0]/2)) > 1e-11 {
+			t.Errorf("slab: u%v = %.13f, want %.13f", p, got, 0.25+p[0]/2-p[0]*p[0]/2)
+		}
+	}
+}

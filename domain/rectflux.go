@@ -1,0 +1,202 @@
+package domain
+
+import (
+	"math"
+	"math/big"
+
+	"psol/series"
+	"psol/series/cart"
+)
+
+// rectSideFluxes are the outward fluxes ∫ ∂u/∂n ds through the rectangle's
+// sides: the polynomial part exactly, each side series term by term in
+// closed form (fluxes). The panels of differences that serve other regions
+// (sideFluxes) erred by 1e-8 here, next to corners where the series
+// converge slowly, and printed those digits. ok is false where some part
+// has no such form (a Robin side's numeric eigenfunctions, waves, a
+// quadrature) or a sum does not settle: the caller falls back on panels.
+func (rp *RectParts) rectSideFluxes(ev *Evaluator, env series.Env, tol float64) ([]SideFlux, bool) {
+	if ev.waves != nil || rp.Quadrature != nil {
+		return nil, false
+	}
+	var series4 [4]float64
+	for _, s := range ev.rect {
+		cs, ok := s.(*CompiledSide)
+		if !ok {
+			return nil, false
+		}
+		f, ok := cs.fluxes(tol, 1<<20)
+		if !ok {
+			return nil, false
+		}
+		for w := range series4 {
+			series4[w] += f[w]
+		}
+	}
+	var out []SideFlux
+	for _, e := range rectEdges {
+		c, err := rp.d.polyFlux(rp.Particular, e).Subst(env)
+		if err != nil {
+			return nil, false
+		}
+		v, err := c.Float(env)
+		if err != nil {
+			return nil, false
+		}
+		f := SideFlux{Side: e.name, Value: v + series4[e.wall]}
+		if len(ev.rect) == 0 {
+			f.Exact = &c
+		}
+		out = append(out, f)
+	}
+	return out, true
+}
+
+// polyFlux is the exact outward flux of the polynomial p through side e:
+// ∫ (∇p·n) along it.
+func (d Rect) polyFlux(p cart.Poly, e rectEdge) series.Coef {
+	var dn cart.Poly // ∂p/∂n on the side, a polynomial in the coordinate along it
+	length := d.L
+	if e.alongY {
+		length = d.H
+		at := series.Coef{}
+		if e.far {
+			at = d.L
+		}
+		dn = p.DX().AtX(at).Scale(series.IntCoef(int64(e.normal[0])))
+	} else {
+		at := series.Coef{}
+		if e.far {
+			at = d.H
+		}
+		dn = p.DY().AtY(at).Scale(series.IntCoef(int64(e.normal[1])))
+	}
+	total := series.Coef{}
+	for _, t := range dn.Terms() { // one of t.I, t.J is 0 after the restriction
+		k := t.I + t.J
+		lp, _ := length.Pow(big.NewRat(int64(k+1), 1))
+		total = total.Add(t.C.Mul(lp).MulRat(big.NewRat(1, int64(k+1))))
+	}
+	return total
+}
+
+// fluxes are the series' outward fluxes through the four walls (indexed by
+// Wall). A term b·T(ks)·A(d) — T sin or cos along the side (s from 0 to ℓ),
+// A the across factor (d from the opposite wall, 0, to the side's own, w) —
+// sends b·A′(w)·∫T through its own wall, −b·A′(0)·∫T through the opposite
+// one, and ∓b·T′·∫A through the walls at s = 0 and s = ℓ, each in closed
+// form. ok is false where a sum has not settled in maxTerms terms (data
+// that jump at a corner: the flux there is infinite).
+func (c *CompiledSide) fluxes(tol float64, maxTerms int) (out [4]float64, ok bool) {
+	if c.zero {
+		return out, true
+	}
+	e := rectEdges[c.side]
+	own, opposite := c.side, edgeNamed(e.away).wall
+	start, end := edgeNamed(e.start).wall, edgeNamed(e.end).wall
+	if c.b0 != 0 { // the constant mode: A = 1 (no flux), d, or d/w, with T = 1
+		slope := 0.0
+		switch {
+		case c.insulated:
+		case c.flux:
+			slope = 1
+		default:
+			slope = 1 / c.w
+		}
+		out[own] += c.b0 * slope * c.l
+		out[opposite] -= c.b0 * slope * c.l
+	}
+	if c.constantOnly {
+		return out, true
+	}
+	n0 := max(c.from, 1)
+	var stops [4]stopRule
+	for i := range stops {
+		stops[i].runs = 8
+	}
+	// The terms fall like a power of n (n⁻³ for data that meet at the
+	// corners), so a sum to 1e-12 takes a million of them. Aitken's Δ² on
+	// the partial sums at n = 64, 128, 256, … takes the power's tail exactly
+	// (S_N = S − C·N^(−q)); two extrapolations in a row that agree within
+	// tol settle the sum.
+	var sums [4]float64
+	var at [4][]float64 // the partial sums at the checkpoints
+	var prevX [4]float64
+	havePrev := false
+	next := 64
+	for n := n0; n < c.from+maxTerms; n++ {
+		b := c.b(float64(n)) // not coef: a million cached terms a side
+		k := (c.slope*float64(n) + c.offset) * math.Pi / c.l
+		kw := k * c.w
+		// ∫T over the side, T′ at its two ends.
+		var intT, dT0, dTl float64
+		if c.sin {
+			intT, dT0, dTl = (1-math.Cos(k*c.l))/k, k, k*math.Cos(k*c.l)
+		} else {
+			intT, dT0, dTl = math.Sin(k*c.l)/k, 0, -k*math.Sin(k*c.l)
+		}
+		// A′(w), A′(0) and ∫A over [0, w] (the forms of across, kept finite
+		// for large k).
+		var dAw, dA0, intA float64
+		q := math.Exp(-2 * kw) // e^(−2kw)
+		sech := 2 * math.Exp(-kw) / (1 + q)
+		csch := 2 * math.Exp(-kw) / (1 - q)
+		switch {
+		case c.insulated && c.flux:
+			dAw, dA0, intA = 1, 0, 1/(k*k)
+		case c.insulated:
+			dAw, dA0, intA = k*(1-q)/(1+q), 0, (1-q)/(1+q)/k
+		case c.flux:
+			dAw, dA0, intA = 1, sech, (1-sech)/(k*k)
+		default:
+			dAw, dA0, intA = k*(1+q)/(1-q), k*csch, math.Tanh(kw/2)/k
+		}
+		terms := [4]float64{}
+		terms[own] = b * dAw * intT
+		terms[opposite] = -b * dA0 * intT
+		terms[start] = -b * dT0 * intA
+		terms[end] = b * dTl * intA
+		direct := true
+		for w, t := range terms {
+			sums[w] += t
+			if !stops[w].small(float64(n)*math.Abs(t), sums[w], tol) {
+				direct = false
+			}
+		}
+		if direct {
+			for w := range out {
+				out[w] += sums[w]
+			}
+			return out, true
+		}
+		if n != next {
+			continue
+		}
+		next *= 2
+		settled, x := havePrev, [4]float64{}
+		for w := range at {
+			at[w] = append(at[w], sums[w])
+			m := len(at[w])
+			if m < 3 {
+				settled = false
+				continue
+			}
+			a, b2, c2 := at[w][m-3], at[w][m-2], at[w][m-1]
+			x[w] = c2
+			if d := (c2 - b2) - (b2 - a); d != 0 {
+				x[w] = c2 - (c2-b2)*(c2-b2)/d
+			}
+			if !(math.Abs(x[w]-prevX[w]) <= tol*math.Max(1, math.Abs(x[w]))) {
+				settled = false
+			}
+		}
+		if settled {
+			for w := range out {
+				out[w] += x[w]
+			}
+			return out, true
+		}
+		prevX, havePrev = x, len(at[0]) >= 3
+	}
+	return out, false
+}
