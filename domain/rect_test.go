@@ -439,7 +439,7 @@ func TestRectanglePiecewiseSide(t *testing.T) {
 // insulated it is half of the 2 × 1 duct mirrored in that side, whose flux
 // through x = 1 is −Σ_(n odd) 8 tanh(nπ)/(π³n³) (the 2 × 1 duct's own series,
 // summed here to n = 4·10⁶ with its tail), the rest shared by the other two
-// walls. And a slab with convection on two faces and insulated on the others
+// walls; a manufactured case with a Robin side. And a slab with convection on two faces and insulated on the others
 // is exact: u = 1/4 + x/2 − x²/2 (Incropera's plane wall with generation,
 // h/k = 2, T∞ = 0), with the particular solution taken along the insulated
 // walls so that they need no correction.
@@ -472,6 +472,15 @@ func TestRectangleSideFluxesExact(t *testing.T) {
 	for side, w := range want {
 		if math.Abs(half[side]-w) > 1e-12 {
 			t.Errorf("insulated left side: flux through %s %.15f, want %.15f", side, half[side], w)
+		}
+	}
+	// A Robin side makes every side's series numeric (eigenfunctions): a
+	// manufactured u = x − x²/2 − y²/2 + xy (Δu = −2) sends −3/2, 1/2, −1/2,
+	// −1/2 through left, right, bottom, top. By panels these erred by 1e-5.
+	robin := fluxes(solve(t, "lap(u) = -2", rect(t, "1", "1"), "left: dn(u) + 2u = -1 - y - y^2", "right: u = 1/2 + y - y^2/2", "bottom: u = x - x^2/2", "top: u = 2*x - x^2/2 - 1/2"))
+	for side, w := range map[string]float64{"left": -1.5, "right": 0.5, "bottom": -0.5, "top": -0.5} {
+		if math.Abs(robin[side]-w) > 1e-9 {
+			t.Errorf("Robin side: flux through %s %.15f, want %g", side, robin[side], w)
 		}
 	}
 	slab := solve(t, "lap(u) = -1", rect(t, "1", "3/10"), "left: dn(u) + 2u = 0", "right: dn(u) + 2u = 0", "bottom: dn(u) = 0", "top: dn(u) = 0")

@@ -13,19 +13,22 @@ import (
 // closed form (fluxes). The panels of differences that serve other regions
 // (sideFluxes) erred by 1e-8 here, next to corners where the series
 // converge slowly, and printed those digits. ok is false where some part
-// has no such form (a Robin side's numeric eigenfunctions, waves, a
-// quadrature) or a sum does not settle: the caller falls back on panels.
+// has no such form (waves, a quadrature) or a sum does not settle: the
+// caller falls back on panels. A Robin side's numeric eigenfunctions take
+// the same closed forms (EigenSide.fluxes): by panels they erred by 1e-5.
 func (rp *RectParts) rectSideFluxes(ev *Evaluator, env series.Env, tol float64) ([]SideFlux, bool) {
 	if ev.waves != nil || rp.Quadrature != nil {
 		return nil, false
 	}
 	var series4 [4]float64
 	for _, s := range ev.rect {
-		cs, ok := s.(*CompiledSide)
+		fl, ok := s.(interface {
+			fluxes(tol float64, maxTerms int) ([4]float64, bool)
+		})
 		if !ok {
 			return nil, false
 		}
-		f, ok := cs.fluxes(tol, 1<<20)
+		f, ok := fl.fluxes(tol, 1<<20)
 		if !ok {
 			return nil, false
 		}
@@ -199,4 +202,80 @@ func (c *CompiledSide) fluxes(tol float64, maxTerms int) (out [4]float64, ok boo
 		prevX, havePrev = x, len(at[0]) >= 3
 	}
 	return out, false
+}
+
+// fluxes are the numeric series' outward fluxes through the four walls,
+// term by term as for the exact family: X_n = cos(μs − δ) along the side
+// (∫X = (sin(μℓ − δ) + sin δ)/μ, X′ = −μ sin(μs − δ)) and the across factor
+// (P·e^(μ(d − w)) + M·e^(−μ(d + w)))/den of across, whose derivative and
+// integral are as plain; the constant mode's factor is linear. Its modes
+// are the ones computed (Modes), as everywhere it is summed.
+func (e *EigenSide) fluxes(tol float64, maxTerms int) (out [4]float64, ok bool) {
+	l, w := e.along()
+	edge := rectEdges[e.Wall]
+	own, opposite := e.Wall, edgeNamed(edge.away).wall
+	start, end := edgeNamed(edge.start).wall, edgeNamed(edge.end).wall
+	a, b := e.own()
+	if e.constant && e.b0 != 0 { // X = 1, Z = (z + dz·d)/den0
+		z, dz := 1.0, 0.0
+		switch e.Opposite.Kind {
+		case Dirichlet:
+			z, dz = 0, 1
+		case Robin:
+			dz = e.Opposite.H
+		}
+		if den := a*(z+dz*w) + b*dz; den != 0 {
+			out[own] += e.b0 * dz / den * l
+			out[opposite] -= e.b0 * dz / den * l
+		}
+	}
+	// The partial sums at 64, 128, … modes, for Aitken's Δ² on their tail
+	// (as in CompiledSide.fluxes; here the modes end at those computed).
+	var at [4][]float64
+	sums := out
+	checkpoint := func(n int) {
+		if n&(n-1) != 0 || n < 64 {
+			return
+		}
+		for w := range at {
+			at[w] = append(at[w], sums[w])
+		}
+	}
+	for n := 0; n < len(e.b) && n < maxTerms; n++ {
+		checkpoint(n)
+		mu, delta, c := e.mu[n], e.delta[n], e.b[n]
+		if c == 0 {
+			continue
+		}
+		var P, M float64
+		switch e.Opposite.Kind {
+		case Dirichlet:
+			P, M = 0.5, -0.5
+		case Neumann:
+			P, M = 0.5, 0.5
+		default:
+			P, M = (mu+e.Opposite.H)/2, (mu-e.Opposite.H)/2
+		}
+		ew := math.Exp(-mu * w)
+		den := (a+b*mu)*P + (a-b*mu)*M*ew*ew
+		dAw := mu * (P - M*ew*ew) / den
+		dA0 := mu * (P - M) * ew / den
+		intA := (P*(1-ew) + M*(ew-ew*ew)) / (mu * den)
+		intX := (math.Sin(mu*l-delta) + math.Sin(delta)) / mu
+		sums[own] += c * dAw * intX
+		sums[opposite] -= c * dA0 * intX
+		sums[start] -= c * mu * math.Sin(delta) * intA // outward at s = 0 is −∂s: −X′(0) = −μ sin δ
+		sums[end] += c * (-mu * math.Sin(mu*l-delta)) * intA
+	}
+	checkpoint(len(e.b))
+	for w := range at {
+		out[w] = sums[w]
+		if m := len(at[w]); m >= 3 {
+			a, b, c := at[w][m-3], at[w][m-2], at[w][m-1]
+			if d := (c - b) - (b - a); d != 0 && math.Abs(c-b) < math.Abs(b-a) {
+				out[w] = c - (c-b)*(c-b)/d
+			}
+		}
+	}
+	return out, true
 }
