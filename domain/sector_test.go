@@ -183,3 +183,36 @@ func TestSectorPiecewiseArc(t *testing.T) {
 		}
 	}
 }
+
+// A 60° sector with Δu = −1 and u = 0: its fluxes through the arc and the
+// rays in closed form (sectorflux.go), against the series derived by hand.
+// u_p = (r²/4)(cos(2θ − α)/cos α − 1) vanishes on both rays; its correction
+// on the arc has sine coefficients b_n = −(2/α)(1 − (−1)^n)/(ν(ν² − 4)),
+// ν = 3n, so the arc takes ½(tan α − α) + Σ b_n(1 − (−1)^n) and the rays
+// share the rest of −α/2 (the divergence theorem) equally. Panels of
+// differences had erred by 2e-8 here.
+func TestSectorSideFluxesExact(t *testing.T) {
+	alpha := math.Pi / 3
+	arc := (math.Tan(alpha) - alpha) / 2
+	const N = 4000001.0
+	for n := N; n >= 1; n -= 2 {
+		nu := 3 * n
+		arc -= 2 / alpha * 4 / (nu * (nu*nu - 4))
+	}
+	arc -= 2 / alpha * 4 / 27 / (4 * N * N) // the odd terms' tail, Σ_(n > N) n⁻³/2 ≈ 1/(4N²)
+	ray := (-alpha/2 - arc) / 2
+	sol := solve(t, "lap(u) = -1", sector(t, "1", "pi/3"), "arc: u = 0", "start: u = 0", "end: u = 0")
+	rep, err := sol.Report(nil, 1e-12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := map[string]float64{"arc": arc, "start": ray, "end": ray}
+	for _, f := range rep.Sides {
+		if math.Abs(f.Value-want[f.Side]) > 1e-11 {
+			t.Errorf("flux through %s %.14f, want %.14f", f.Side, f.Value, want[f.Side])
+		}
+	}
+	if len(rep.Sides) != 3 {
+		t.Errorf("%d side fluxes, want 3", len(rep.Sides))
+	}
+}
