@@ -13,6 +13,8 @@ type SideFlux struct {
 	Side  string
 	Value float64
 	Exact *series.Coef // where the solution is closed
+	// Infinite, where set, says why the flux is infinite (Value is NaN).
+	Infinite string
 }
 
 // pointValue is u at (x, y): regions evaluate in (r, θ) with θ in [0, 2π),
@@ -73,6 +75,8 @@ type GradientPeak struct {
 	// Exact marks a value from the exact derivatives of a closed solution
 	// (at the location found by sampling), not from differences.
 	Exact bool
+	// Unbounded, where set, says why |∇u| has no maximum (Value is +Inf).
+	Unbounded string
 }
 
 // gradientPeak samples |∇u| on the sides (the normal derivative one-sided

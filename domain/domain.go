@@ -123,13 +123,16 @@ func (c Check) Failed() bool { return c.independentFailed }
 
 // Solution is the assembled answer with its stages.
 type Solution struct {
-	Domain     Domain
-	Source     series.Sum
-	Particular series.Sum
-	Sides      []Side
-	Harmonic   series.Sum
-	U          series.Sum
-	Free       string // the name of a free additive constant in U, if any
+	// CornerJumps are the corners where two sides' values disagree: there
+	// |∇u| grows like 1/distance, and the two sides' fluxes are infinite.
+	CornerJumps []CornerJump
+	Domain      Domain
+	Source      series.Sum
+	Particular  series.Sum
+	Sides       []Side
+	Harmonic    series.Sum
+	U           series.Sum
+	Free        string // the name of a free additive constant in U, if any
 	// Floating are the constant values u takes on its floating sides, by side.
 	Floating map[string]series.Coef
 	FreeMean series.Coef // the value of Free that makes u's mean on the first boundary circle zero
@@ -414,4 +417,15 @@ func fieldHasSeries(f series.Field) bool {
 		}
 	}
 	return false
+}
+
+// CornerJump is a corner where the data of two sides with values disagree.
+type CornerJump struct {
+	At    [2]float64 // (x, y)
+	Sides [2]string
+}
+
+// Where is the jump's place in words.
+func (j CornerJump) Where() string {
+	return fmt.Sprintf("the data jump at the corner x = %.6g, y = %.6g", j.At[0], j.At[1])
 }

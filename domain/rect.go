@@ -613,6 +613,12 @@ func cornerWarnings(d Rect, data map[string]sideData, sol *Solution, conds map[s
 		}
 		va, vb := d.cornerData(c.a, data[c.a], c.aEnd, env), d.cornerData(c.b, data[c.b], c.bEnd, env)
 		if !va.Equal(vb) {
+			x, y := edgeNamed(c.a).corner(d, c.aEnd)
+			xf, errX := x.Float(env)
+			yf, errY := y.Float(env)
+			if errX == nil && errY == nil {
+				sol.CornerJumps = append(sol.CornerJumps, CornerJump{At: [2]float64{xf, yf}, Sides: [2]string{c.a, c.b}})
+			}
 			text := func(c series.Coef) string { return series.Const(c).TextApprox() }
 			if data[c.a].poly != nil && data[c.b].poly != nil {
 				text = series.Coef.Text

@@ -494,3 +494,36 @@ func TestRectangleSideFluxesExact(t *testing.T) {
 		}
 	}
 }
+
+// Where two sides' values disagree at a corner, ∂u/∂n grows like
+// 1/distance from it along both (u ≈ (2/π)·angle near a right-angled corner
+// whose sides hold 1 and 0: common practice), so their fluxes are infinite
+// and |∇u| has no maximum: the report says so, where panels and sums had
+// printed finite numbers (11.76 through a side, |∇u| = 1611). The side
+// whose ends agree keeps its flux; the sector's apex and arc ends alike.
+func TestCornerJumpsMakeFluxesInfinite(t *testing.T) {
+	for name, c := range map[string]struct {
+		sol      *domain.Solution
+		infinite map[string]bool
+	}{
+		"rectangle": {solve(t, "lap(u) = 0", rect(t, "1", "1"), "left: u = 1", "right: u = 0", "bottom: u = 0", "top: u = 0"),
+			map[string]bool{"left": true, "bottom": true, "top": true}},
+		"sector": {solve(t, "lap(u) = -1", sector(t, "1", "pi/4"), "arc: u = cos(theta)", "start: u = 1", "end: u = 0"),
+			map[string]bool{"arc": true, "start": true, "end": true}},
+		"sector, apex only": {solve(t, "lap(u) = 0", sector(t, "1", "pi/2"), "arc: u = 1 - 2*theta/pi", "start: u = 1", "end: u = 0"),
+			map[string]bool{"start": true, "end": true}},
+	} {
+		rep, err := c.sol.Report(nil, 1e-12)
+		if err != nil {
+			t.Fatal(err)
+		}
+		for _, f := range rep.Sides {
+			if got := f.Infinite != "" && math.IsNaN(f.Value); got != c.infinite[f.Side] {
+				t.Errorf("%s: %s's flux %g (infinite: %q), want infinite %v", name, f.Side, f.Value, f.Infinite, c.infinite[f.Side])
+			}
+		}
+		if rep.FluxInfinite == "" || rep.Gradient == nil || !math.IsInf(rep.Gradient.Value, 1) || rep.Gradient.Unbounded == "" {
+			t.Errorf("%s: net flux %g (%q), gradient %+v: want both flagged", name, rep.Flux, rep.FluxInfinite, rep.Gradient)
+		}
+	}
+}

@@ -28,6 +28,8 @@ type Report struct {
 	Bounded        string // a note where the region is unbounded
 	// Sides is the outward flux through each side, in the order of Sides().
 	Sides []SideFlux
+	// FluxInfinite, where set, says why the net flux is not finite.
+	FluxInfinite string
 	// Gradient is the largest |∇u| and where; nil in a symbolic report.
 	Gradient *GradientPeak
 	// Symbolic marks a report with parameters left without values: only
@@ -76,6 +78,7 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 		if err := s.pointFigures(rep, shape, env); err != nil {
 			return nil, err
 		}
+		s.markCornerJumps(rep)
 		return rep, nil
 	}
 	inside := func(x, y float64) bool {
@@ -98,7 +101,27 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 		}
 	}
 	rep.Gradient = &g
+	s.markCornerJumps(rep)
 	return rep, nil
+}
+
+// markCornerJumps makes the figures a jump in the data at a corner spoils
+// say so: the two sides' fluxes are infinite (∂u/∂n grows like 1/distance
+// from the corner, whose integral diverges), so is the balance, and |∇u| has
+// no maximum. Differences and sums had printed finite numbers there (11.76
+// through a side, |∇u| = 1611).
+func (s *Solution) markCornerJumps(rep *Report) {
+	for _, j := range s.CornerJumps {
+		for i := range rep.Sides {
+			if rep.Sides[i].Side == j.Sides[0] || rep.Sides[i].Side == j.Sides[1] {
+				rep.Sides[i].Value, rep.Sides[i].Exact, rep.Sides[i].Infinite = math.NaN(), nil, j.Where()
+			}
+		}
+		rep.Flux, rep.FluxExact, rep.FluxInfinite = math.NaN(), nil, "the data jump at a corner"
+		if rep.Gradient == nil || !math.IsInf(rep.Gradient.Value, 1) {
+			rep.Gradient = &GradientPeak{Value: math.Inf(1), At: j.At, Unbounded: j.Where()}
+		}
+	}
 }
 
 // exactGradient is |∇u| = √(u_r² + (u_θ/r)²) at (x, y) from the exact

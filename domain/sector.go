@@ -203,6 +203,7 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 		}
 		sol.Checks = append(sol.Checks, qc)
 	}
+	sol.CornerJumps = s.cornerJumps(start, end, arcCond, g, p.env)
 	if nu1 := fam.NuAt(max(fam.From, 1)); nu1.Cmp(big.NewRat(1, 1)) < 0 {
 		sol.Notes = append(sol.Notes, fmt.Sprintf("the corner exponent is %s < 1: the gradient of u is unbounded at the corner r = 0", nu1.RatString()))
 	}
@@ -915,4 +916,34 @@ func sectorFreeMean(d Sector, sol *Solution, p *posed) series.Coef {
 		mean = mean.Add(decimal(rest))
 	}
 	return mean.Neg()
+}
+
+// cornerJumps are the corners where two sides with values disagree: the
+// apex, where the rays' constants meet, and the arc's ends, where its data
+// meet a ray's (compared as numbers, to 1e-12 of their size).
+func (s Sector) cornerJumps(start, end rayKind, arcCond Condition, g series.Sum, env series.Env) []CornerJump {
+	var out []CornerJump
+	if start.dirichlet && end.dirichlet && !start.value.Equal(end.value) {
+		out = append(out, CornerJump{Sides: [2]string{"start", "end"}})
+	}
+	R, err1 := s.R.Float(env)
+	alpha, err2 := s.Alpha.Float(env)
+	cg, err3 := g.Compile(env)
+	if arcCond.Kind != Dirichlet || err1 != nil || err2 != nil || err3 != nil {
+		return out
+	}
+	for _, e := range []struct {
+		ray   rayKind
+		name  string
+		theta float64
+	}{{start, "start", 0}, {end, "end", alpha}} {
+		v, err := e.ray.value.Float(env)
+		if !e.ray.dirichlet || err != nil {
+			continue
+		}
+		if a := cg.At(R, e.theta); math.Abs(a-v) > 1e-12*math.Max(1, math.Max(math.Abs(a), math.Abs(v))) {
+			out = append(out, CornerJump{At: [2]float64{R * math.Cos(e.theta), R * math.Sin(e.theta)}, Sides: [2]string{"arc", e.name}})
+		}
+	}
+	return out
 }

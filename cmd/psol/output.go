@@ -368,6 +368,10 @@ func renderText(w io.Writer, v *view) error {
 		}
 		var sides []string
 		for _, f := range r.Sides {
+			if f.Infinite != "" {
+				sides = append(sides, f.Side+" infinite ("+f.Infinite+")")
+				continue
+			}
 			if f.Text == "" && f.Flux != nil {
 				sides = append(sides, f.Side+" "+noiseFloor(*f.Flux, fluxScale))
 				continue
@@ -377,13 +381,17 @@ func renderText(w io.Writer, v *view) error {
 		if len(sides) > 1 {
 			line(w, "report", "outward flux through each side: "+strings.Join(sides, "; "))
 		}
-		if r.Flux != nil {
+		if r.FluxInfinite != "" && r.SourceIntegral != nil {
+			line(w, "report", "net outward flux: infinite side by side ("+r.FluxInfinite+"); in the limit about the corners it is the source integral = "+figure(r.SourceText, *r.SourceIntegral)+" (divergence theorem)")
+		} else if r.Flux != nil {
 			line(w, "report", "net outward flux = "+figure(r.FluxText, *r.Flux)+", source integral = "+figure(r.SourceText, *r.SourceIntegral)+
 				fmt.Sprintf(" (divergence theorem: difference %.2g)", *r.Flux-*r.SourceIntegral))
 		} else if r.FluxText != "" {
 			line(w, "report", "net outward flux = source integral = "+r.FluxText+" (divergence theorem)")
 		}
-		if g := r.Gradient; g != nil && g.Unbounded {
+		if g := r.Gradient; g != nil && g.Unbounded && g.Why != "" {
+			line(w, "report", "largest |grad u|: unbounded where "+g.Why+" (|grad u| grows like 1/distance there)")
+		} else if g != nil && g.Unbounded {
 			line(w, "report", fmt.Sprintf("largest |grad u|: unbounded at the point source x = %.6g, y = %.6g (|grad u| grows like |Q|/(2*pi*distance) there)", g.At[0], g.At[1]))
 		} else if g != nil {
 			digits := 9 // by differences
@@ -433,15 +441,17 @@ type reportOut struct {
 	SourceIntegral *float64     `json:"source_integral"`
 	SourceText     string       `json:"source_integral_exact,omitempty"`
 	Sides          []sideOut    `json:"side_flux"`
+	FluxInfinite   string       `json:"flux_infinite,omitempty"` // why the sides' fluxes are not finite (flux is null)
 	Gradient       *gradientOut `json:"max_gradient,omitempty"`
 	Note           string       `json:"note,omitempty"`
 }
 
 // sideOut is the outward flux through one side.
 type sideOut struct {
-	Side string   `json:"side"`
-	Flux *float64 `json:"flux"`
-	Text string   `json:"exact,omitempty"`
+	Side     string   `json:"side"`
+	Flux     *float64 `json:"flux"`
+	Text     string   `json:"exact,omitempty"`
+	Infinite string   `json:"infinite,omitempty"` // why the flux is infinite (flux is null)
 }
 
 // gradientOut is the largest |∇u| and where (x, y).
@@ -451,8 +461,10 @@ type gradientOut struct {
 	Corner bool       `json:"at_reentrant_corner,omitempty"`
 	// Unbounded marks |grad u| growing without bound at a point source (value 0).
 	Unbounded bool `json:"unbounded,omitempty"`
-	note      string
-	exact     bool
+	// Why, where set, is the place it is unbounded other than a point source.
+	Why   string `json:"unbounded_where,omitempty"`
+	note  string
+	exact bool
 }
 
 func finite(v float64) *float64 {
@@ -471,7 +483,7 @@ func exactText(c *series.Coef) string {
 
 func newReportOut(r *domain.Report) *reportOut {
 	out := &reportOut{Max: finite(r.Max), Min: finite(r.Min), ArgMax: r.ArgMax, ArgMin: r.ArgMin, Integral: finite(r.Integral), IntegralText: exactText(r.IntegralExact),
-		Mean: finite(r.Mean), Flux: finite(r.Flux), FluxText: exactText(r.FluxExact), SourceIntegral: finite(r.Source), SourceText: exactText(r.SourceExact), Note: r.Bounded,
+		Mean: finite(r.Mean), Flux: finite(r.Flux), FluxText: exactText(r.FluxExact), SourceIntegral: finite(r.Source), SourceText: exactText(r.SourceExact), Note: r.Bounded, FluxInfinite: r.FluxInfinite,
 		Sides: []sideOut{}}
 	if r.Symbolic {
 		out.AreaText = r.Area.Text()
@@ -483,10 +495,10 @@ func newReportOut(r *domain.Report) *reportOut {
 		out.MinInf = "-inf"
 	}
 	for _, f := range r.Sides {
-		out.Sides = append(out.Sides, sideOut{Side: f.Side, Flux: finite(f.Value), Text: exactText(f.Exact)})
+		out.Sides = append(out.Sides, sideOut{Side: f.Side, Flux: finite(f.Value), Text: exactText(f.Exact), Infinite: f.Infinite})
 	}
 	if g := r.Gradient; g != nil && math.IsInf(g.Value, 1) {
-		out.Gradient = &gradientOut{At: g.At, Unbounded: true}
+		out.Gradient = &gradientOut{At: g.At, Unbounded: true, Why: g.Unbounded}
 	} else if g != nil && !math.IsNaN(g.Value) {
 		out.Gradient = &gradientOut{Value: g.Value, At: g.At, Corner: g.Corner, exact: g.Exact}
 		if g.Corner {
