@@ -2,6 +2,7 @@ package domain
 
 import (
 	"fmt"
+	"math"
 	"math/big"
 	"psol/series"
 	"strings"
@@ -122,6 +123,7 @@ func seriesData(d circular, c circle, cond Condition, data series.Field, fc seri
 	jumps := data.Jumps()
 	for _, j := range jumps {
 		sol.Notes = append(sol.Notes, fmt.Sprintf("the data on %s jumps by %s at theta = %s; the series converges to the mean of the two sides there", c.name, j.Size.Text(), series.SymCoef(series.Pi).MulRat(j.At).Text()))
+		sol.addCircleJump(c, j, nil)
 	}
 	ss := series.SeriesSum{Parts: harm, Inverse: inverse}
 	if cond.Kind == Dirichlet && len(skip) == 0 && constantPieces(data) {
@@ -285,6 +287,7 @@ func twoCircleSeries(d circular, p *posed, traced map[string]series.Field, trace
 	for _, c := range circles {
 		for _, j := range traced[c.name].Jumps() {
 			sol.Notes = append(sol.Notes, fmt.Sprintf("the data on %s jumps by %s at theta = %s; the series converges to the mean of the two sides there", c.name, j.Size.Text(), series.SymCoef(series.Pi).MulRat(j.At).Text()))
+			sol.addCircleJump(c, j, p.env)
 		}
 	}
 	ss := series.SeriesSum{Parts: harm}
@@ -337,4 +340,17 @@ func jumpClosedForm(jumps []series.Jump, radius series.Coef, inverse bool) (stri
 	}
 	t, x := strings.Join(text, ""), strings.Join(tex, "")
 	return strings.TrimPrefix(t, " + "), strings.TrimPrefix(x, " + ")
+}
+
+// addCircleJump records a jump of Dirichlet data on a circle: |∇u| grows
+// like 1/distance there (the circle's flux stays finite, its two sides'
+// 1/distance cancelling).
+func (s *Solution) addCircleJump(c circle, j series.Jump, env series.Env) {
+	R, err := c.radius.Float(env)
+	if err != nil {
+		return
+	}
+	at, _ := j.At.Float64()
+	th := at * math.Pi
+	s.CornerJumps = append(s.CornerJumps, CornerJump{At: [2]float64{R * math.Cos(th), R * math.Sin(th)}, Sides: [2]string{c.name, c.name}})
 }

@@ -419,7 +419,8 @@ func fieldHasSeries(f series.Field) bool {
 	return false
 }
 
-// CornerJump is a corner where the data of two sides with values disagree.
+// CornerJump is a corner where the data of two sides with values disagree,
+// or a jump of one side's values (both Sides the same).
 type CornerJump struct {
 	At    [2]float64 // (x, y)
 	Sides [2]string
@@ -427,5 +428,8 @@ type CornerJump struct {
 
 // Where is the jump's place in words.
 func (j CornerJump) Where() string {
+	if j.Sides[0] == j.Sides[1] {
+		return fmt.Sprintf("the data on %s jump at x = %.6g, y = %.6g", j.Sides[0], j.At[0], j.At[1])
+	}
 	return fmt.Sprintf("the data jump at the corner x = %.6g, y = %.6g", j.At[0], j.At[1])
 }

@@ -112,6 +112,12 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 // through a side, |∇u| = 1611).
 func (s *Solution) markCornerJumps(rep *Report) {
 	for _, j := range s.CornerJumps {
+		if j.Sides[0] == j.Sides[1] { // within a side: its flux stays finite
+			if rep.Gradient == nil || !math.IsInf(rep.Gradient.Value, 1) {
+				rep.Gradient = &GradientPeak{Value: math.Inf(1), At: j.At, Unbounded: j.Where()}
+			}
+			continue
+		}
 		for i := range rep.Sides {
 			if rep.Sides[i].Side == j.Sides[0] || rep.Sides[i].Side == j.Sides[1] {
 				rep.Sides[i].Value, rep.Sides[i].Exact, rep.Sides[i].Infinite = math.NaN(), nil, j.Where()
