@@ -774,17 +774,7 @@ func (d Rect) figures(s *Solution, ev *Evaluator, rep *Report, env series.Env, t
 		rep.SourceExact = nil
 	}
 	if sides, ok := s.Rect.rectSideFluxes(ev, env, tol); ok {
-		rep.Sides, rep.Flux, rep.FluxExact = sides, 0, nil
-		exact := series.Coef{}
-		for _, f := range sides {
-			rep.Flux += f.Value
-			if f.Exact != nil {
-				exact = exact.Add(*f.Exact)
-			}
-		}
-		if len(ev.rect) == 0 {
-			rep.FluxExact = &exact
-		}
+		rep.setSideFluxes(sides)
 	}
 	rep.Max, rep.ArgMax, rep.Min, rep.ArgMin, err = rectExtremes(d, ev, env)
 	return err

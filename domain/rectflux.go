@@ -216,18 +216,10 @@ func (e *EigenSide) fluxes(tol float64, maxTerms int) (out [4]float64, ok bool) 
 	own, opposite := e.Wall, edgeNamed(edge.away).wall
 	start, end := edgeNamed(edge.start).wall, edgeNamed(edge.end).wall
 	a, b := e.own()
-	if e.constant && e.b0 != 0 { // X = 1, Z = (z + dz·d)/den0
-		z, dz := 1.0, 0.0
-		switch e.Opposite.Kind {
-		case Dirichlet:
-			z, dz = 0, 1
-		case Robin:
-			dz = e.Opposite.H
-		}
-		if den := a*(z+dz*w) + b*dz; den != 0 {
-			out[own] += e.b0 * dz / den * l
-			out[opposite] -= e.b0 * dz / den * l
-		}
+	if e.constant && e.b0 != 0 { // X = 1 and across0 linear in d: its slope is its rise over w
+		slope := (e.across0(w) - e.across0(0)) / w
+		out[own] += e.b0 * slope * l
+		out[opposite] -= e.b0 * slope * l
 	}
 	// The partial sums at 64, 128, … modes, for Aitken's Δ² on their tail
 	// (as in CompiledSide.fluxes; here the modes end at those computed).

@@ -454,3 +454,21 @@ func (s *Solution) openParams(first string) []string {
 	}
 	return out
 }
+
+// setSideFluxes takes a region's side fluxes and their balance: exact where
+// every side's is.
+func (rep *Report) setSideFluxes(sides []SideFlux) {
+	rep.Sides, rep.Flux, rep.FluxExact = sides, 0, nil
+	exact, closed := series.Coef{}, true
+	for _, f := range sides {
+		rep.Flux += f.Value
+		if f.Exact == nil {
+			closed = false
+			continue
+		}
+		exact = exact.Add(*f.Exact)
+	}
+	if closed {
+		rep.FluxExact = &exact
+	}
+}

@@ -803,17 +803,7 @@ func (d Sector) figures(s *Solution, ev *Evaluator, rep *Report, env series.Env,
 		rep.Integral, rep.IntegralExact = rep.Integral+p, nil
 	}
 	if sides, ok := d.sectorSideFluxes(s, env, tol); ok {
-		rep.Sides, rep.Flux, rep.FluxExact = sides, 0, nil
-		exact := series.Coef{}
-		for _, f := range sides {
-			rep.Flux += f.Value
-			if f.Exact != nil {
-				exact = exact.Add(*f.Exact)
-			}
-		}
-		if sides[0].Exact != nil {
-			rep.FluxExact = &exact
-		}
+		rep.setSideFluxes(sides)
 	}
 	return polarExtremes(d, ev, rep, env)
 }

@@ -20,15 +20,9 @@ type IndexedSum struct {
 // Float sums in float64 until the tail estimate n·|c_n| is below tol·max(1, |sum|)
 // (sound for terms decaying like n^(−2) or faster), or maxTerms terms.
 func (s IndexedSum) Float(env Env, tol float64, maxTerms int) (Summed, error) {
-	g, err := compileCoef(s.General, env)
+	g, special, err := s.compile(env)
 	if err != nil {
 		return Summed{}, err
-	}
-	special := map[int]float64{}
-	for n, c := range s.Special {
-		if special[n], err = c.Float(env); err != nil {
-			return Summed{}, err
-		}
 	}
 	sum, tail, quiet, last := 0.0, math.Inf(1), 0, s.From
 	for n := s.From; n < s.From+maxTerms; n++ {
@@ -111,15 +105,9 @@ func (s Series) modeIntegral(ts []RadialTerm, aOverPi *big.Rat, n, sign Coef) (C
 // the sum (a flux's n⁻³ terms took a million to meet 1e-12 one by one).
 // Tail is then their difference.
 func (s IndexedSum) Extrapolated(env Env, tol float64, maxTerms int) (Summed, error) {
-	g, err := compileCoef(s.General, env)
+	g, special, err := s.compile(env)
 	if err != nil {
 		return Summed{}, err
-	}
-	special := map[int]float64{}
-	for n, c := range s.Special {
-		if special[n], err = c.Float(env); err != nil {
-			return Summed{}, err
-		}
 	}
 	var at []float64
 	prev, havePrev := 0.0, false
@@ -157,4 +145,20 @@ func (s IndexedSum) Extrapolated(env Env, tol float64, maxTerms int) (Summed, er
 		prev, havePrev = x, true
 	}
 	return Summed{Value: sum, Terms: s.From + maxTerms - 1, Tail: math.Inf(1)}, nil
+}
+
+// compile is the general coefficient as a function of n and the special
+// ones as numbers.
+func (s IndexedSum) compile(env Env) (coefFunc, map[int]float64, error) {
+	g, err := compileCoef(s.General, env)
+	if err != nil {
+		return g, nil, err
+	}
+	special := map[int]float64{}
+	for n, c := range s.Special {
+		if special[n], err = c.Float(env); err != nil {
+			return g, nil, err
+		}
+	}
+	return g, special, nil
 }
