@@ -44,9 +44,12 @@ type SidePath struct {
 	EvenOf func(t float64) float64
 }
 
-// even is the side's even sampling at u: Even, or arc length.
+// even is the side's even sampling at u: Even, or arc length (where Even
+// or its inverse is missing, so that even and evenOf stay inverses: the
+// quadrature's trace interpolant places its nodes by one and reads by the
+// other).
 func (p SidePath) even(u float64) float64 {
-	if p.Even == nil {
+	if p.Even == nil || p.EvenOf == nil {
 		return u
 	}
 	return p.Even(u)
@@ -54,7 +57,7 @@ func (p SidePath) even(u float64) float64 {
 
 // evenOf is even's inverse: u at t.
 func (p SidePath) evenOf(t float64) float64 {
-	if p.EvenOf == nil {
+	if p.Even == nil || p.EvenOf == nil {
 		return t
 	}
 	return p.EvenOf(t)
