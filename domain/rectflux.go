@@ -89,7 +89,7 @@ func (d Rect) polyFlux(p cart.Poly, e rectEdge) series.Coef {
 // sends b·A′(w)·∫T through its own wall, −b·A′(0)·∫T through the opposite
 // one, and ∓b·T′·∫A through the walls at s = 0 and s = ℓ, each in closed
 // form. ok is false where a sum has not settled in maxTerms terms (data
-// that jump at a corner: the flux there is infinite).
+// that jump at a corner, whose fluxes the report marks infinite).
 func (c *CompiledSide) fluxes(tol float64, maxTerms int) (out [4]float64, ok bool) {
 	if c.zero {
 		return out, true
@@ -184,11 +184,7 @@ func (c *CompiledSide) fluxes(tol float64, maxTerms int) (out [4]float64, ok boo
 				settled = false
 				continue
 			}
-			a, b2, c2 := at[w][m-3], at[w][m-2], at[w][m-1]
-			x[w] = c2
-			if d := (c2 - b2) - (b2 - a); d != 0 {
-				x[w] = c2 - (c2-b2)*(c2-b2)/d
-			}
+			x[w] = series.Aitken(at[w][m-3], at[w][m-2], at[w][m-1])
 			if !(math.Abs(x[w]-prevX[w]) <= tol*math.Max(1, math.Abs(x[w]))) {
 				settled = false
 			}
@@ -262,11 +258,8 @@ func (e *EigenSide) fluxes(tol float64, maxTerms int) (out [4]float64, ok bool) 
 	checkpoint(len(e.b))
 	for w := range at {
 		out[w] = sums[w]
-		if m := len(at[w]); m >= 3 {
-			a, b, c := at[w][m-3], at[w][m-2], at[w][m-1]
-			if d := (c - b) - (b - a); d != 0 && math.Abs(c-b) < math.Abs(b-a) {
-				out[w] = c - (c-b)*(c-b)/d
-			}
+		if m := len(at[w]); m >= 3 && math.Abs(at[w][m-1]-at[w][m-2]) < math.Abs(at[w][m-2]-at[w][m-3]) {
+			out[w] = series.Aitken(at[w][m-3], at[w][m-2], at[w][m-1])
 		}
 	}
 	return out, true

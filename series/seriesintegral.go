@@ -134,11 +134,7 @@ func (s IndexedSum) Extrapolated(env Env, tol float64, maxTerms int) (Summed, er
 		if m < 3 {
 			continue
 		}
-		a, b, c2 := at[m-3], at[m-2], at[m-1]
-		x := c2
-		if d := (c2 - b) - (b - a); d != 0 {
-			x = c2 - (c2-b)*(c2-b)/d
-		}
+		x := Aitken(at[m-3], at[m-2], at[m-1])
 		if havePrev && math.Abs(x-prev) <= tol*math.Max(1, math.Abs(x)) {
 			return Summed{Value: x, Terms: n, Tail: math.Abs(x - prev)}, nil
 		}
@@ -161,4 +157,14 @@ func (s IndexedSum) compile(env Env) (coefFunc, map[int]float64, error) {
 		}
 	}
 	return g, special, nil
+}
+
+// Aitken is the limit Aitken's Δ² takes from three partial sums s0, s1, s2
+// whose differences fall by a constant ratio: s2 − (s2 − s1)²/((s2 − s1) −
+// (s1 − s0)); s2 where they do not fall.
+func Aitken(s0, s1, s2 float64) float64 {
+	if d := (s2 - s1) - (s1 - s0); d != 0 {
+		return s2 - (s2-s1)*(s2-s1)/d
+	}
+	return s2
 }
