@@ -179,18 +179,21 @@ func gradientPeak(shape Shape, ev *Evaluator, inside func(x, y float64) bool) Gr
 }
 
 // nearReentrantCorner reports a point within frac of the region's size of a
-// corner where two sides meet turning right (an interior angle above π).
+// corner where two sides meet turning right (an interior angle above π),
+// travelling with the region on the left. A hole's sides may run either way
+// in their parameter (a hole given anticlockwise runs against that travel),
+// so each side's ends are taken in the order of travel, not of t: a convex
+// hole's every corner is re-entrant for the region round it.
 func nearReentrantCorner(shape Shape, p [2]float64, frac float64) bool {
 	size := math.Max(shape.Box.X1-shape.Box.X0, shape.Box.Y1-shape.Box.Y0)
 	for _, a := range shape.Sides {
-		ax, ay, anx, any := a.At(1)
+		ax, ay, atx, aty := travelEnd(a, true)
 		for _, b := range shape.Sides {
-			bx, by, bnx, bny := b.At(0)
+			bx, by, btx, bty := travelEnd(b, false)
 			if math.Hypot(ax-bx, ay-by) > 1e-9*size {
 				continue
 			}
-			// Tangents (−n_y, n_x) along the travel; a right turn is re-entrant.
-			if cross := (-any)*bnx - anx*(-bny); cross < -1e-9 && math.Hypot(p[0]-ax, p[1]-ay) <= frac*size {
+			if cross := atx*bty - aty*btx; cross < -1e-9 && math.Hypot(p[0]-ax, p[1]-ay) <= frac*size {
 				return true
 			}
 		}
@@ -198,6 +201,22 @@ func nearReentrantCorner(shape Shape, p [2]float64, frac float64) bool {
 	return false
 }
 
+// travelEnd is the side's last point (or first, with last false) in the
+// order of travel with the region on the left, and the unit tangent of that
+// travel there, (−n_y, n_x) for the outward normal n.
+func travelEnd(side SidePath, last bool) (x, y, tx, ty float64) {
+	x0, y0, nx0, ny0 := side.At(0)
+	x1, y1, nx1, ny1 := side.At(1)
+	// Does t run with the travel? The step from t = 0 to t = 1/4 against
+	// the travel's tangent at t = 1/8 (a side turns far less than π in an eighth).
+	xq, yq, _, _ := side.At(0.25)
+	_, _, nxe, nye := side.At(0.125)
+	forward := (xq-x0)*(-nye)+(yq-y0)*nxe >= 0
+	if last == forward {
+		return x1, y1, -ny1, nx1
+	}
+	return x0, y0, -ny0, nx0
+}
 // costly reports an evaluator with a numeric particular solution, whose
 // every new radius (or ordinate) costs a sum over its modes and panels.
 func (e *Evaluator) costly() bool { return e.quad != nil || e.sq != nil }

@@ -171,3 +171,44 @@ func TestPipeWallShear(t *testing.T) {
 		t.Errorf("side fluxes sum to %g, source integral %g", sum, rep.Source)
 	}
 }
+
+// TestReentrantCornerShear: at a corner where the section's boundary turns
+// inward (interior angle 3π/2) the stress function's gradient grows like
+// ρ^(−1/3), ρ the distance from the corner, so the peak shear has no finite
+// value in this model (Timoshenko & Goodier on the re-entrant corners of
+// rolled and hollow sections, which need a fillet). Every corner of a hole
+// is such a corner for the section round it, whichever way the hole's
+// vertices are listed; a solid bar's corners are not.
+func TestReentrantCornerShear(t *testing.T) {
+	square := polygonXY(0, 0, 1, 0, 1, 1, 0, 1)
+	flux := "u = const, flux = 2*0.25"
+	for _, c := range []struct {
+		name      string
+		d         domain.Domain
+		bcs       []string
+		reentrant bool
+	}{
+		{"solid square", square, sidesOf(square, "s", "u = 0"), false},
+		{"L shape", polygonXY(0, 0, 2, 0, 2, 1, 1, 1, 1, 2, 0, 2), nil, true},
+		{"square tube, hole anticlockwise", domain.Holed{Outer: square, Holes: []domain.CircleHole{{Poly: polygonXY(0.25, 0.25, 0.75, 0.25, 0.75, 0.75, 0.25, 0.75)}}}, nil, true},
+		{"square tube, hole clockwise", domain.Holed{Outer: square, Holes: []domain.CircleHole{{Poly: polygonXY(0.25, 0.25, 0.25, 0.75, 0.75, 0.75, 0.75, 0.25)}}}, nil, true},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			bcs := c.bcs
+			if bcs == nil {
+				bcs = sidesOf(c.d, "s", "u = 0")
+				if _, holed := c.d.(domain.Holed); holed {
+					bcs = append(bcs, sidesOf(c.d, "hole1", flux)...)
+				}
+			}
+			tau := figures(t, "torsion", "lap(u) = -2", c.d, nil, bcs...)["tau_max"]
+			warned := false
+			for _, w := range tau.Warnings {
+				warned = warned || strings.Contains(w, "re-entrant corner")
+			}
+			if warned != c.reentrant {
+				t.Errorf("tau_max = %g at %v, warnings %q: want the re-entrant corner's caution %v", tau.Value, *tau.At, tau.Warnings, c.reentrant)
+			}
+		})
+	}
+}
