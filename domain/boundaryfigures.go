@@ -217,6 +217,7 @@ func travelEnd(side SidePath, last bool) (x, y, tx, ty float64) {
 	}
 	return x0, y0, -ny0, nx0
 }
+
 // costly reports an evaluator with a numeric particular solution, whose
 // every new radius (or ordinate) costs a sum over its modes and panels.
 func (e *Evaluator) costly() bool { return e.quad != nil || e.sq != nil }
