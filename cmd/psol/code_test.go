@@ -67,8 +67,8 @@ func psolValues(t *testing.T, args []string, env string, xy bool) []float64 {
 		v, _ := cmd.Flags().GetString(k.flag)
 		o.problemFlags.regions[k.flag] = &v
 	}
-	o.bcs, _ = cmd.Flags().GetStringArray("bc")
-	o.holes, _ = cmd.Flags().GetStringArray("hole")
+	o.bcs = repeatedValues(cmd.Flags(), "bc")
+	o.holes = repeatedValues(cmd.Flags(), "hole")
 	if env != "" {
 		o.lets = []string{env}
 	}

@@ -27,7 +27,7 @@ func newParticularCmd() *cobra.Command {
 		RunE:    func(cmd *cobra.Command, args []string) error { return o.run(cmd.OutOrStdout(), args[0]) },
 	}
 	f := cmd.Flags()
-	f.StringArrayVar(&o.lets, "let", nil, `parameter values "a=0.05,q=2e5" (repeatable)`)
+	repeatableVar(f, &o.lets, "let", `parameter values "a=0.05,q=2e5" (repeatable)`)
 	f.BoolVar(&o.steps, "steps", false, "show the rule used for each source term")
 	f.StringVar(&o.format, "format", "text", "output format: text, latex or json")
 	return cmd

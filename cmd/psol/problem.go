@@ -83,9 +83,9 @@ func (p *problemFlags) bind(f *pflag.FlagSet) {
 	for _, k := range regionKinds {
 		p.regions[k.flag] = f.String(k.flag, "", k.usage)
 	}
-	f.StringArrayVar(&p.holes, "hole", nil, `a hole taken out of --disk, --rect, --ellipse or --polygon: "circle CX,CY,R", "ellipse CX,CY,A,B" (semi-axes along x and y) or "polygon X1,Y1 X2,Y2 ..." (repeatable); the K-th hole is side holeK (a polygon hole's edges holeK.s1, holeK.s2, ...)`)
-	f.StringArrayVar(&p.bcs, "bc", nil, `boundary condition "[SIDE:] u = g", "dn(u) = g", "dn(u) + h*u = g" or "u = const, flux = Q" (one unknown value with net outward flux Q; circles); one per side, repeatable; one without SIDE applies to every side not named`)
-	f.StringArrayVar(&p.lets, "let", nil, `parameter values "a=0.05,q=2e5" (repeatable)`)
+	repeatableVar(f, &p.holes, "hole", `a hole taken out of --disk, --rect, --ellipse or --polygon: "circle CX,CY,R", "ellipse CX,CY,A,B" (semi-axes along x and y) or "polygon X1,Y1 X2,Y2 ..." (repeatable); the K-th hole is side holeK (a polygon hole's edges holeK.s1, holeK.s2, ...)`)
+	repeatableVar(f, &p.bcs, "bc", `boundary condition "[SIDE:] u = g", "dn(u) = g", "dn(u) + h*u = g" or "u = const, flux = Q" (one unknown value with net outward flux Q; circles); one per side, repeatable; one without SIDE applies to every side not named`)
+	repeatableVar(f, &p.lets, "let", `parameter values "a=0.05,q=2e5" (repeatable)`)
 	f.StringVar(&p.fix, "fix", "", `pin the free constant of a pure Neumann problem: "u(R0, THETA0) = V" (polar point)`)
 }
 

@@ -18,8 +18,24 @@ import (
 
 const version = "0.1.0"
 
-// newRoot builds the command tree; each call is independent, for in-process tests.
-func newRoot() *cobra.Command {
+// newRoot builds the command tree; each call is independent, for in-process
+// tests. When the first argument names a command, only that command is
+// built: its flags are all a run of it reads, and building every command's
+// flag set cost a one-liner a tenth of its time in memory first touched.
+// Anything else (help, a typo cobra suggests a name for) gets them all.
+func newRoot(args []string) *cobra.Command {
+	// psol's commands, each built by its own file (a local table: the demo
+	// command runs psol, so a package-level one would be an init cycle).
+	subcommands := []struct {
+		name  string
+		build func() *cobra.Command
+	}{
+		{"solve", newSolveCmd},
+		{"particular", newParticularCmd},
+		{"check", newCheckCmd},
+		{"demo", newDemoCmd},
+		{"version", newVersionCmd},
+	}
 	root := &cobra.Command{
 		Use:   "psol",
 		Short: "Solve Poisson's equation lap(u) = f on a disk, annulus, sector, rectangle or outside a circle",
@@ -29,7 +45,15 @@ stage as an exact formula, and checks the result.`,
 		SilenceErrors: true,
 		SilenceUsage:  true,
 	}
-	root.AddCommand(newSolveCmd(), newParticularCmd(), newCheckCmd(), newDemoCmd(), newVersionCmd())
+	for _, c := range subcommands {
+		if len(args) > 0 && args[0] == c.name {
+			root.AddCommand(c.build())
+			return root
+		}
+	}
+	for _, c := range subcommands {
+		root.AddCommand(c.build())
+	}
 	return root
 }
 
@@ -46,7 +70,7 @@ func run(args []string, stdout, stderr io.Writer) (status int) {
 			status = 3
 		}
 	}()
-	root := newRoot()
+	root := newRoot(args)
 	root.SetArgs(protectNegatives(args))
 	root.SetOut(stdout)
 	root.SetErr(stderr)

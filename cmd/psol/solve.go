@@ -58,13 +58,13 @@ func newSolveCmd() *cobra.Command {
 	f.Float64Var(&o.tol, "tol", domain.SumTol, "numeric target for summed series")
 	f.IntVar(&o.grid, "grid", 0, "with --csv: evaluate u on an N x N grid over the domain (N at most 2000: about 320 MB of CSV)")
 	f.StringVar(&o.csv, "csv", "", "with --grid: the CSV file to write (replaced only when the run succeeds)")
-	f.StringArrayVar(&o.quantity, "quantity", nil, quantityHelp())
+	repeatableVar(f, &o.quantity, "quantity", quantityHelp())
 	f.StringVar(&o.plot, "plot", "", "draw u over the domain to FILE.png or FILE.svg")
 	f.StringVar(&o.scale, "plot-scale", "", "with --plot: the colour scale's ends LO,HI (default: the values' range)")
 	f.StringVar(&o.lang, "lang", "go", "language of --format code: go, c or python")
 	f.BoolVar(&o.report, "report", false, "add max, min, area integral, mean and the flux balance")
 	f.IntVar(&o.terms, "terms", 100000, "cap on the series terms summed")
-	f.StringArrayVar(&o.at, "at", nil, `evaluate at "r=0.5,theta=pi/4" or "x=0.1,y=0.2" (repeatable)`)
+	repeatableVar(f, &o.at, "at", `evaluate at "r=0.5,theta=pi/4" or "x=0.1,y=0.2" (repeatable)`)
 	return cmd
 }
 
