@@ -2,6 +2,7 @@ package ansatz
 
 import (
 	"math"
+	"math/big"
 	"sort"
 
 	"gonum.org/v1/gonum/dsp/fourier"
@@ -35,6 +36,16 @@ func (k Kink) Text() string { return k.factorText() + "*" + k.Abs.Text() + "^3" 
 
 // LaTeX is the closed form in LaTeX.
 func (k Kink) LaTeX() string { return series.Const(k.Factor).LaTeX() + ` ` + k.Abs.LaTeX() + `^{3}` }
+
+// SourceText is the source term the kink solves, c*abs(ℓ), with c =
+// Factor·6(A² + B²) exactly.
+func (k Kink) SourceText() string {
+	c := k.Factor.Mul(k.LA.Mul(k.LA).Add(k.LB.Mul(k.LB))).MulRat(big.NewRat(6, 1))
+	if c.Equal(series.IntCoef(1)) {
+		return k.Abs.Text()
+	}
+	return "(" + series.Const(c).Text() + ")*" + k.Abs.Text()
+}
 
 func (k Kink) factorText() string { return "(" + series.Const(k.Factor).Text() + ")" }
 

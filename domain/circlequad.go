@@ -91,6 +91,9 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 				if m == 0 && k == 1 {
 					continue
 				}
+				if math.IsInf(v, 0) || math.IsNaN(v) {
+					return unsolvable("the particular solution's trace on %s is beyond float64's range (mode %d is %g): the source is too large on this region for the quadrature", c.name, m, v)
+				}
 				terms = append(terms, series.Term{C: decimal(v), M: m, Sin: k == 1})
 			}
 		}

@@ -12,6 +12,7 @@ import (
 	"github.com/alecthomas/participle/v2/lexer"
 
 	"psol/series"
+	"psol/series/cart"
 )
 
 // lowerer turns the private syntax tree into series values; it is the only
@@ -510,11 +511,26 @@ func (lw *lowerer) call(c *call) (value, error) {
 	if err != nil {
 		return value{}, err
 	}
-	f, err := series.Apply(c.Name, v)
+	f, err := lw.apply(c.Name, v)
 	if err != nil {
 		return value{}, lw.fail(arg.Pos, "%v", err)
 	}
 	return value{f: f}, nil
+}
+
+// apply is series.Apply, except that in a source abs of a linear form in x
+// and y is kept whole (series.Kept): its particular solution is the kink's
+// closed form. Apply would expand abs(x) = abs(r·cos θ) into pieces in θ,
+// and a source in pieces has no particular solution psol can find, while
+// abs(x − 0.5), which Apply keeps, had one: max(x, 0) was refused and
+// max(x, 0.1) solved.
+func (lw *lowerer) apply(fn string, f series.Field) (series.Field, error) {
+	if fn == "abs" && lw.points && f.IsExact() && !f.IsPiecewise() {
+		if p, err := cart.FromPolar(f.Exact); err == nil && p.Degree() == 1 {
+			return series.Kept(fn, f), nil
+		}
+	}
+	return series.Apply(fn, f)
 }
 
 // argument lowers a function's argument: a function of position alone
@@ -547,7 +563,7 @@ func (lw *lowerer) extremum(c *call) (value, error) {
 			return value{}, err
 		}
 	}
-	gap, err := series.Apply("abs", f[0].Add(f[1].Neg()))
+	gap, err := lw.apply("abs", f[0].Add(f[1].Neg()))
 	if err != nil {
 		return value{}, lw.fail(c.Pos, "%v", err)
 	}

@@ -102,6 +102,12 @@ func (f Field) expr() *Expr {
 
 func opaque(e *Expr) Field { return Field{Rest: e} }
 
+// Kept is fn(f) kept whole: not expanded into pieces or exact terms as
+// Apply would. A source's abs of a linear form stays a kink, whose
+// particular solution is closed (ansatz.Kink); Apply would turn abs(x) into
+// pieces in θ, which serve boundary data but no source.
+func Kept(fn string, f Field) Field { return opaque(&Expr{op: fn, args: []*Expr{f.expr()}}) }
+
 // Add is f + g.
 func (f Field) Add(g Field) Field {
 	if f.IsPiecewise() || g.IsPiecewise() {

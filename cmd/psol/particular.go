@@ -46,11 +46,13 @@ func (o *particularOptions) run(w io.Writer, source string) error {
 	if err != nil {
 		return err
 	}
-	if f.IsPiecewise() || f.Rest.HasChoice() { // abs(x) is r*abs(cos(theta)): pieces in theta
-		return &domain.Unsupported{Reason: "psol has no closed-form rule for the source " + f.Text() + ", which is given piece by piece in theta (abs and cond ? a : b split it); psol solve takes it by quadrature on a given region"}
+	if f.IsPiecewise() || f.Rest.HasChoice() { // as psol solve, which refuses such a source too
+		return &domain.Unsupported{Reason: "psol has no closed-form rule for the source " + f.Text() + ", which is given piece by piece (cond ? a : b, or abs of what is not a linear form in x and y); psol takes no source in pieces"}
 	}
+	// Kinks c·abs(ℓ), ℓ linear: the closed form c·abs(ℓ)³/(6|∇ℓ|²).
+	kinks, rest := ansatz.SplitKinks(f.Rest, env)
 	// A remainder of exponentials and sines of x and y: the Cartesian wave ansatz.
-	split := ansatz.SplitWaves(f.Rest, false)
+	split := ansatz.SplitWaves(rest, false)
 	if split.Rest != nil {
 		return &domain.Unsupported{Reason: "psol has no closed-form rule for the source part " + split.Rest.Text() + " (" + split.Err.Error() + "); psol solve takes it by quadrature on a given region"}
 	}
@@ -70,6 +72,9 @@ func (o *particularOptions) run(w io.Writer, source string) error {
 			upText, upTeX = joinSigned(upText, waves.Text()), joinSigned(upTeX, waves.LaTeX())
 		}
 	}
+	for _, k := range kinks {
+		upText, upTeX = joinNonzero(upText, k.Text()), joinNonzero(upTeX, k.LaTeX())
+	}
 	pointStep := ""
 	if len(f.Points) > 0 { // the fundamental solution of each point source
 		pp := domain.SourcesField(f.Points)
@@ -87,8 +92,14 @@ func (o *particularOptions) run(w io.Writer, source string) error {
 		}
 		v.Checks = append(v.Checks, c)
 	}
+	if len(kinks) > 0 { // an identity: d²/dℓ² |ℓ|³/6 = |ℓ| and |∇ℓ|² = A² + B²
+		v.Checks = append(v.Checks, checkOut{Name: "lap(c*abs(l)^3/(6*|grad l|^2)) - c*abs(l)", Exact: true, Formula: "0"})
+	}
 	for _, st := range steps {
 		v.Steps = append(v.Steps, st.Source.Text()+" -> "+st.Result.Text()+" ("+st.Rule+")")
+	}
+	for _, k := range kinks {
+		v.Steps = append(v.Steps, k.SourceText()+" -> "+k.Text()+" (a kink c*abs(l), l linear in x and y: c*abs(l)^3/(6*|grad l|^2), twice continuously differentiable)")
 	}
 	if pointStep != "" {
 		v.Steps = append(v.Steps, pointStep)
