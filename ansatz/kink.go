@@ -59,6 +59,47 @@ func (k Kink) ValueXY(x, y float64) float64 {
 	return k.C * l * l * l / (6 * k.grad2())
 }
 
+// Distance is the distance from (x, y) to the kink's line ℓ = 0.
+func (k Kink) Distance(x, y float64) float64 { return math.Abs(k.form(x, y)) / math.Sqrt(k.grad2()) }
+
+// GradientXY is ∇v at (x, y): C·ℓ|ℓ|/(2(A² + B²))·(A, B).
+func (k Kink) GradientXY(x, y float64) (vx, vy float64) {
+	l := k.form(x, y)
+	g := k.C * l * math.Abs(l) / (2 * k.grad2())
+	return g * k.A, g * k.B
+}
+
+// Crossings are the t in (0, 1) where the kink's line ℓ = 0 crosses the
+// path at(t): sign changes of ℓ on n even steps, each narrowed by
+// bisection to rounding. A crossing is where the trace of v, C² elsewhere
+// smooth, has a jump in its third derivative: a fit to that trace needs
+// its terms gathered there as at a corner.
+func (k Kink) Crossings(at func(t float64) (x, y float64), n int) []float64 {
+	l := func(t float64) float64 { x, y := at(t); return k.form(x, y) }
+	var out []float64
+	prev := l(0)
+	for j := 1; j <= n; j++ {
+		t := float64(j) / float64(n)
+		v := l(t)
+		if v == 0 && j < n {
+			out = append(out, t)
+		} else if prev != 0 && (v < 0) != (prev < 0) && v != 0 {
+			lo, hi := float64(j-1)/float64(n), t
+			for it := 0; it < 60 && hi-lo > 1e-15; it++ {
+				mid := (lo + hi) / 2
+				if (l(mid) < 0) == (prev < 0) {
+					lo = mid
+				} else {
+					hi = mid
+				}
+			}
+			out = append(out, (lo+hi)/2)
+		}
+		prev = v
+	}
+	return out
+}
+
 // Value is v(r, θ).
 func (k Kink) Value(r, theta float64) float64 {
 	return k.ValueXY(r*math.Cos(theta), r*math.Sin(theta))

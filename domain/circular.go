@@ -461,14 +461,27 @@ func quadratureCheck(d Domain, sol *Solution, env series.Env) Check {
 	}
 	u := sol.Quadrature.Value // the values alone: the check needs no estimate
 	out.peak = sol.Quadrature.SourceSize()
+	rmax := 0.0
+	for _, p := range pts {
+		rmax = math.Max(rmax, p[0])
+	}
 	for k, p := range pts {
-		if k%4 != 0 {
+		if k%4 != 0 || p[0] < 1e-2*rmax {
+			// The polar stencil's angular step h/r is no small step near the
+			// centre (at r = 0 it divided by zero: a Gaussian on a hexagon
+			// about the origin was refused as "not a finite number").
 			continue
 		}
 		// A polar stencil: its points share five radii, and the quadrature
 		// evaluates every mode of a radius at once.
 		r, th := p[0], p[1]
 		h := 3e-3 * r
+		if nearKink(sol.Quadrature.Kinks, r, th, 2*h) {
+			// A stencil across a kink's line measures the difference
+			// formula's O(h) error where u_p's third derivative jumps (a
+			// polygon's samples on the line read 2.7e-4), not u_p's.
+			continue
+		}
 		centre := u(r, th)
 		lap := func(h float64) float64 {
 			k := h / r
@@ -481,6 +494,17 @@ func quadratureCheck(d Domain, sol *Solution, env series.Env) Check {
 		out.scale = math.Max(out.scale, math.Abs(f))
 	}
 	return out
+}
+
+// nearKink reports a point (r, θ) within d of a kink's line.
+func nearKink(kinks []ansatz.Kink, r, th, d float64) bool {
+	x, y := r*math.Cos(th), r*math.Sin(th)
+	for _, k := range kinks {
+		if k.Distance(x, y) < d {
+			return true
+		}
+	}
+	return false
 }
 
 // checkedQuadrature is the quadrature's sampled check, or the refusal when
