@@ -602,20 +602,11 @@ func (h Holed) areaNodes(env series.Env) ([][3]float64, error) {
 		}
 		nodes = diskNodes(0, 0, R, 1)
 	case Rect:
-		v, err := floats(env, o.L, o.H)
+		n, err := rectAreaNodes(o, env)
 		if err != nil {
 			return nil, err
 		}
-		for i := 0; i < 8; i++ {
-			for a, xa := range ansatz.GaussX {
-				for j := 0; j < 8; j++ {
-					for b, yb := range ansatz.GaussX {
-						x, y := v[0]*(float64(i)+(xa+1)/2)/8, v[1]*(float64(j)+(yb+1)/2)/8
-						nodes = append(nodes, [3]float64{x, y, ansatz.GaussW[a] * ansatz.GaussW[b] / 4 * v[0] * v[1] / 64})
-					}
-				}
-			}
-		}
+		nodes = n
 	}
 	for k, c := range h.Holes {
 		if c.isPolygon() {

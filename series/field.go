@@ -845,6 +845,10 @@ func (e *Expr) HasSeries() bool { return e.has("series") }
 // HasChoice reports a remainder that contains a numeric choice (cond ? a : b).
 func (e *Expr) HasChoice() bool { return e.has("choose") }
 
+// HasKink reports a remainder that contains abs (max and min lower to it):
+// continuous, but its derivative jumps where the argument changes sign.
+func (e *Expr) HasKink() bool { return e.has("abs") }
+
 // SingleValued says that e is written in terms single-valued around the
 // origin (no power of θ itself) and in operations alone, so that its
 // Cartesian form (CompileXY) takes the same values as its polar one at

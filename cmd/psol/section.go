@@ -79,7 +79,7 @@ func (v *view) sectionStages(sol *domain.Solution) {
 	v.where = append(v.where, fmt.Sprintf(`$z = x + iy$, the $p_j$ are poles outside the region at its corners, the $q_k$ polynomials of Arnoldi's orthogonal basis, and $c_j$, $d_k$ coefficients fitted numerically to the side conditions (largest residual $%s$)`,
 		latexNumber(sp.Residual)))
 	v.Harmonic = stage{Label: "harmonic", Text: h, LaTeX: `h(x, y) = \operatorname{Re}\Big[\sum_j \frac{c_j}{z - p_j} + \sum_k d_k q_k(z)\Big]`, tex: "u_h"}
-	v.Solution = stage{Label: "solution", Text: "u ≈ " + up + " + h(x, y)", LaTeX: upTeX + ` + h(x, y)`, tex: "u"}
+	v.Solution = stage{Label: "solution", Text: "u ≈ " + joinNonzero(up, "h(x, y)"), LaTeX: joinNonzero(upTeX, `h(x, y)`), tex: "u"}
 }
 
 // gradientText is grad u_p = (u_x, u_y) in x and y, where u_p is a polynomial.
