@@ -5,6 +5,7 @@ import (
 	"math"
 	"psol/ansatz"
 	"psol/series"
+	"psol/series/cart"
 )
 
 // rectSection is a rectangle solved as a section: its harmonic part fitted
@@ -51,6 +52,12 @@ func (d Rect) asSection(p *posed) (rectSection, bool) {
 	return rectSection{d}, true
 }
 
+// polynomialInXY reports a polar sum that is a polynomial in x and y.
+func polynomialInXY(s series.Sum) bool {
+	_, err := cart.FromPolar(s)
+	return err == nil
+}
+
 // rectAreaNodes: a tensor Gauss–Legendre rule on 8 × 8 equal panels.
 func rectAreaNodes(d Rect, env series.Env) ([][3]float64, error) {
 	v, err := floats(env, d.L, d.H)
@@ -72,8 +79,8 @@ func rectAreaNodes(d Rect, env series.Env) ([][3]float64, error) {
 }
 
 // rectShortfall is the note for numeric side series that miss the target:
-// their sampled side residuals against tol times the size of the data and
-// of u_p's trace. Data given in pieces or with kinks keep such series
+// their sampled side residuals against tol times scale, the largest size
+// of the data and of u_p's trace (its numeric part too) on those sides. Data given in pieces or with kinks keep such series
 // (asSection), which converge like the data's jumps allow, about 1/n for a
 // jump and 1/n² for a kink: 512 modes leave 1e-3 to 1e-4; so does a source
 // part for quadrature (the sine transform's u_q is smooth, but its traces
@@ -81,26 +88,14 @@ func rectAreaNodes(d Rect, env series.Env) ([][3]float64, error) {
 // beside 1/(1 + x + y)).
 // Without the note the residuals stood in the check line unexplained, and
 // a user asking for 1e-12 took 15 digits on trust.
-func rectShortfall(d Rect, sol *Solution, p *posed) (string, bool) {
+func rectShortfall(d Rect, sol *Solution, p *posed, scale float64) (string, bool) {
 	if sol.Rect == nil {
 		return "", false
 	}
-	L, errL := d.L.Float(p.env)
-	H, errH := d.H.Float(p.env)
-	if errL != nil || errH != nil {
-		return "", false
-	}
-	modes, scale := 0, 0.0
+	modes := 0
 	for _, side := range sol.Rect.Sides {
-		if side.Eigen == nil {
-			continue
-		}
-		modes = max(modes, side.Eigen.Modes)
-		l := edgeNamed(side.Name).lengthFloat(L, H)
-		for j := 0; j <= 64; j++ {
-			s := l * float64(j) / 64
-			tr, _ := side.Trace.Eval(s, s, p.env)
-			scale = math.Max(scale, math.Max(math.Abs(side.data.at(s, p.env)), math.Abs(tr)))
+		if side.Eigen != nil {
+			modes = max(modes, side.Eigen.Modes)
 		}
 	}
 	if modes == 0 {

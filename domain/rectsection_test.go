@@ -7,6 +7,7 @@ import (
 
 	"psol/domain"
 	"psol/series"
+	"psol/series/cart"
 )
 
 // TestRectKinkTakesTheFit: Δu = |x − 0.5| on the 2 × 1 rectangle given as a
@@ -58,5 +59,59 @@ func TestRectShortfallSaid(t *testing.T) {
 	}
 	if !said {
 		t.Errorf("no note of the side series' shortfall: %q", sol.Notes)
+	}
+}
+
+// TestRectEntireSourceTakesTheFit: a manufactured solution (common
+// practice), the Gaussian u* = exp(−ρ²), ρ² = (x − 1/2)² + (y − 1/4)², with
+// Δu* = (4ρ² − 4)u*, on the 1 × 1/2 rectangle with u = u* on the sides. The
+// source has no closed rule, so the rectangle's road was the sine
+// quadrature with side series, which stopped near 1e-8; an entire source
+// goes to the fit, whose extension of it to a disk meets no singularity.
+func TestRectEntireSourceTakesTheFit(t *testing.T) {
+	d := domain.Rect{L: series.IntCoef(1), H: series.FracCoef(1, 2)}
+	exact := func(x, y float64) float64 { return math.Exp(-((x-0.5)*(x-0.5) + (y-0.25)*(y-0.25))) }
+	g := "exp(-((x - 1/2)^2 + (y - 1/4)^2))"
+	sol := solveWith(t, "lap(u) = (4*((x - 1/2)^2 + (y - 1/4)^2) - 4)*"+g, d, domain.Options{Tol: 1e-12},
+		"left: u = "+g, "right: u = "+g, "bottom: u = "+g, "top: u = "+g)
+	ev := evaluator(t, sol, 1e-12)
+	for _, p := range [][2]float64{{0.5, 0.25}, {0.3, 1e-3}, {1e-3, 0.4}, {0.999, 0.1}, {0.7, 0.499}} {
+		got, _, _ := ev.AtXY(p[0], p[1])
+		if want := exact(p[0], p[1]); math.Abs(got-want) > 1e-11 {
+			t.Errorf("u(%g, %g) = %.14f, manufactured %.14f (error %.1e)", p[0], p[1], got, want, got-want)
+		}
+	}
+}
+
+// TestEntireSources: which sources extend to the whole plane without a
+// singularity (analytic everywhere: sums, products, integer powers and
+// exp, sin, cos, sinh, cosh of polynomials; common practice).
+func TestEntireSources(t *testing.T) {
+	leaf := func(s series.Sum) bool { _, err := cart.FromPolar(s); return err == nil }
+	d := domain.Rect{L: series.IntCoef(1), H: series.IntCoef(1)}
+	bcs := []string{"left: u = 0", "right: u = 0", "bottom: u = 0", "top: u = 0"}
+	for _, c := range []struct {
+		source string
+		entire bool
+	}{
+		{"exp(-((x - 0.3)^2 + y^2)/0.05)", true},
+		{"sin(3*x)*y^3 + cosh(x*y)", true},
+		{"(x + exp(y))^3", true},
+		{"1/(1 + x + y)", false},
+		{"sqrt(2 + x)", false},
+		{"ln(2 + x)", false},
+		{"(2 + x)^(1/2)", false},
+		{"exp(x)/(3 + y)", false},
+	} {
+		f, _, err := pose("lap(u) = "+c.source, d, bcs, nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if f.Rest == nil {
+			t.Fatalf("%s: no remainder to judge", c.source)
+		}
+		if got := f.Rest.Entire(leaf); got != c.entire {
+			t.Errorf("%s: Entire = %v, want %v", c.source, got, c.entire)
+		}
 	}
 }

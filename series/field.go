@@ -845,6 +845,42 @@ func (e *Expr) HasSeries() bool { return e.has("series") }
 // HasChoice reports a remainder that contains a numeric choice (cond ? a : b).
 func (e *Expr) HasChoice() bool { return e.has("choose") }
 
+// Entire reports a remainder built from leaves that leaf accepts by sums,
+// products, powers with a non-negative integer exponent, and exp, sin, cos,
+// sinh and cosh: with polynomial leaves, analytic in the whole plane, so an
+// extension of it beyond a region meets no singularity.
+func (e *Expr) Entire(leaf func(Sum) bool) bool {
+	if e == nil {
+		return true
+	}
+	switch e.op {
+	case "sum":
+		return leaf(e.sum)
+	case "+", "*", "exp", "sin", "cos", "sinh", "cosh":
+	case "^":
+		if e.args[1].op != "sum" {
+			return false
+		}
+		c, ok := e.args[1].sum.Const()
+		if !ok {
+			return false
+		}
+		q, ok := c.Rat()
+		if !ok || !q.IsInt() || q.Sign() < 0 {
+			return false
+		}
+		return e.args[0].Entire(leaf)
+	default:
+		return false
+	}
+	for _, a := range e.args {
+		if !a.Entire(leaf) {
+			return false
+		}
+	}
+	return true
+}
+
 // HasKink reports a remainder that contains abs (max and min lower to it):
 // continuous, but its derivative jumps where the argument changes sign.
 func (e *Expr) HasKink() bool { return e.has("abs") }
