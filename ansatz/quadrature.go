@@ -1082,22 +1082,37 @@ func (q *Quadrature) At(r, theta float64) (float64, float64) {
 // with no estimate (which needs the first mesh too): for checks, which
 // sample it at many radii. It equals At's value.
 func (q *Quadrature) Value(r, theta float64) float64 {
+	return q.sum(q.fineMode(r).p, r, theta)
+}
+
+// ValueGradient is Value with Gradient, from the halved mesh alone: for a
+// section's side samples, each at a radius of its own, where the first
+// mesh's sums (half the work) would serve no estimate.
+func (q *Quadrature) ValueGradient(r, theta float64) (v, pr, pt float64) {
+	m := q.fineMode(r)
+	pr, pt = q.gradient(m.p, m.dp, r, theta)
+	return q.sum(m.p, r, theta), pr, pt
+}
+
+// fineMode is the halved mesh's modes at r, from either cache.
+func (q *Quadrature) fineMode(r float64) *modeAt {
 	for _, m := range q.recent {
 		if sameRadius(m.r, r) {
-			return q.sum(m.p, r, theta)
+			return m
 		}
 	}
 	for _, m := range q.recentFine {
 		if sameRadius(m.r, r) {
-			return q.sum(m.p, r, theta)
+			return m
 		}
 	}
-	p, _ := q.eval(q.fine, r)
+	p, dp := q.eval(q.fine, r)
 	if len(q.recentFine) == recentRadii {
 		q.recentFine = q.recentFine[1:]
 	}
-	q.recentFine = append(q.recentFine, &modeAt{r: r, p: p})
-	return q.sum(p, r, theta)
+	m := &modeAt{r: r, p: p, dp: dp}
+	q.recentFine = append(q.recentFine, m)
+	return m
 }
 
 // sum is Σ_k p_k(r)·T(ν_k θ) with the closed parts (lift, kinks) at (r, θ).
@@ -1142,6 +1157,10 @@ func (q *Quadrature) KinkModes(r float64, top int) (p, dp [][2]float64) {
 // derivatives (no lift: regions with a lift do not ask).
 func (q *Quadrature) Gradient(r, theta float64) (pr, pt float64) {
 	p, dp, _ := q.Mode(r)
+	return q.gradient(p, dp, r, theta)
+}
+
+func (q *Quadrature) gradient(p, dp [][2]float64, r, theta float64) (pr, pt float64) {
 	for k := range p {
 		c, s := math.Cos(q.nu(k)*theta), math.Sin(q.nu(k)*theta)
 		pr += dp[k][0]*c + dp[k][1]*s

@@ -623,9 +623,8 @@ func newSideInterpolant(q *ansatz.Quadrature, path SidePath, tol float64) *sideI
 	eval := func(u float64) (float64, float64) {
 		x, y, nx, ny := path.At(path.even(u))
 		r, th := polarOf(x, y)
-		v, _ := q.At(r, th)
 		rr := math.Max(r, 1e-300)
-		pr, pt := q.Gradient(rr, th)
+		v, pr, pt := q.ValueGradient(rr, th)
 		pt /= rr
 		ux, uy := math.Cos(th)*pr-math.Sin(th)*pt, math.Sin(th)*pr+math.Cos(th)*pt
 		for _, k := range q.Kinks { // added back exactly by at
