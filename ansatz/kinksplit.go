@@ -136,3 +136,23 @@ func constantOf(e *series.Expr, env series.Env) (float64, bool) {
 	v, err := c.Float(env)
 	return v, err == nil
 }
+
+// KinkLines are the kinks of every abs(ℓ) in e with ℓ linear in x and y,
+// wherever it stands (in a product with a sum, inside a function): the
+// lines ℓ = 0 where e's derivative may jump. Their factors are those of a
+// bare abs(ℓ); what they are for is where, not how much.
+func KinkLines(e *series.Expr, env series.Env) []Kink {
+	if e == nil {
+		return nil
+	}
+	var out []Kink
+	if e.Op() == "abs" {
+		if k, ok := kinkOf(e, env); ok {
+			out = append(out, k)
+		}
+	}
+	for _, a := range e.Args() {
+		out = append(out, KinkLines(a, env)...)
+	}
+	return out
+}

@@ -4,6 +4,7 @@ import (
 	"math"
 
 	"psol/ansatz"
+	"psol/series"
 )
 
 // sideBreak is a point inside side at parameter t where the side's data
@@ -28,21 +29,52 @@ func addKinkBreaks(g *sectionGeometry, q *ansatz.Quadrature) {
 	if q == nil || len(q.Kinks) == 0 {
 		return
 	}
+	for k := range g.shape.Sides {
+		addBreaksOn(g, k, q.Kinks)
+	}
+}
+
+// addDataKinkBreaks does the same where a side's own data have kinks
+// c·|ℓ| (max and min lower to them): there the data's first derivative
+// jumps, and the harmonic part has a singularity like (z − z₀)log(z − z₀)
+// at the crossing (Gopal & Trefethen's boundary singularities again). The
+// fit had no poles there and stalled at 2.8e-3 (u = |x − 0.5| on a 2 × 1
+// rectangle, after twelve fits and 2.7 s).
+func addDataKinkBreaks(g *sectionGeometry, conds map[string]Condition, env series.Env) {
 	for k, side := range g.shape.Sides {
-		path := func(t float64) (float64, float64) { x, y, _, _ := side.At(t); return x, y }
-		x0, y0 := path(0)
-		x1, y1 := path(1)
-		closed := math.Hypot(x1-x0, y1-y0) <= 1e-12*g.scale
-		for _, kink := range q.Kinks {
-			for _, t := range kink.Crossings(path, 1024) {
-				// At a vertex the corner's own poles serve.
-				if !closed && math.Min(t, 1-t)*side.Length < 1e-9*g.scale {
-					continue
-				}
-				x, y, nx, ny := side.At(t)
-				g.breaks = append(g.breaks, sideBreak{side: k, corner: len(g.corners), t: t, closed: closed})
-				g.corners = append(g.corners, corner{w: complex(x, y), dir: complex(nx, ny), angle: 1, reach: 2 * g.scale})
+		c, ok := conds[side.Name]
+		if !ok || c.G.Rest == nil {
+			continue
+		}
+		if kinks := ansatz.KinkLines(c.G.Rest, env); len(kinks) > 0 {
+			addBreaksOn(g, k, kinks)
+		}
+	}
+}
+
+// addBreaksOn places a break where a kink's line crosses side k, unless a
+// vertex or a break already stands there.
+func addBreaksOn(g *sectionGeometry, k int, kinks []ansatz.Kink) {
+	side := g.shape.Sides[k]
+	path := func(t float64) (float64, float64) { x, y, _, _ := side.At(t); return x, y }
+	x0, y0 := path(0)
+	x1, y1 := path(1)
+	closed := math.Hypot(x1-x0, y1-y0) <= 1e-12*g.scale
+	for _, kink := range kinks {
+	crossings:
+		for _, t := range kink.Crossings(path, 1024) {
+			// At a vertex the corner's own poles serve.
+			if !closed && math.Min(t, 1-t)*side.Length < 1e-9*g.scale {
+				continue
 			}
+			for _, b := range g.breaks {
+				if b.side == k && math.Abs(b.t-t)*side.Length < 1e-9*g.scale {
+					continue crossings
+				}
+			}
+			x, y, nx, ny := side.At(t)
+			g.breaks = append(g.breaks, sideBreak{side: k, corner: len(g.corners), t: t, closed: closed})
+			g.corners = append(g.corners, corner{w: complex(x, y), dir: complex(nx, ny), angle: 1, reach: 2 * g.scale})
 		}
 	}
 }

@@ -17,10 +17,9 @@ import (
 // stop near 1e-8 of the data whatever the tolerance (Δu = eˣ on a 2 × 1
 // rectangle: 3.3e-8 on its long sides against a target of 1e-12), while
 // the fit meets the target and says how well (the maximum principle, or the
-// change between fits). Data given in pieces or with kinks (abs, max, min)
-// stay with the side series, whose panels break at the jumps, and which
-// say how far they fall short (rectShortfall); the fit takes no breaks
-// from the data (it stalled at 2.8e-3 after 12 fits on u = |x − 0.5|).
+// change between fits). Data given in pieces stay with the side series,
+// whose panels break at the jumps, and which say how far they fall short
+// (rectShortfall); the fit takes no breaks at jumps.
 type rectSection struct{ Rect }
 
 func (r rectSection) geometry(env series.Env) (sectionGeometry, error) {
@@ -38,14 +37,15 @@ func (r rectSection) figures(s *Solution, ev *Evaluator, rep *Report, env series
 }
 
 // asSection reports whether the rectangle's problem may go to the fit: its
-// sides are numbers and no side's data come in pieces or with kinks. The
+// sides are numbers and no side's data come in pieces (the fit places no
+// breaks at jumps; it does at kinks, addDataKinkBreaks). The
 // rectangle's solve sends it there where its own series would be numeric.
 func (d Rect) asSection(p *posed) (rectSection, bool) {
 	if _, err := floats(p.env, d.L, d.H); err != nil {
 		return rectSection{}, false
 	}
 	for _, c := range p.conds {
-		if c.G.IsPiecewise() || c.G.Rest.HasChoice() || c.G.Rest.HasKink() {
+		if c.G.IsPiecewise() || c.G.Rest.HasChoice() {
 			return rectSection{}, false
 		}
 	}

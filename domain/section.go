@@ -246,6 +246,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		}
 	}
 	addKinkBreaks(&geo, quad)
+	addDataKinkBreaks(&geo, p.conds, p.env)
 	markSingularCorners(&geo, conds)
 	scale := 0.0 // the problem's size on the boundary: the data and u_p's operator
 	for k, side := range geo.shape.Sides {
