@@ -28,6 +28,19 @@ import (
 // Fourier coefficients with a general term; ok is false where the kink's
 // form or the radius is not rational.
 func (k Kink) CircleTrace(radius series.Coef, deriv bool) (series.FourierCoefficients, bool) {
+	return k.circleSeries(radius, deriv, false)
+}
+
+// CircleAbs is the kink itself, c·|ℓ|, on the circle r = radius as exact
+// Fourier coefficients with a general term: boundary data with a kink. The
+// same integrals as CircleTrace's with ℓ in place of ℓ³ (e_0 = D, e_1 = ρ),
+// so its coefficients fall like n⁻², and in float64 an FFT would leave
+// about 1/N of them (3e-4 with 4096 samples).
+func (k Kink) CircleAbs(radius series.Coef) (series.FourierCoefficients, bool) {
+	return k.circleSeries(radius, false, true)
+}
+
+func (k Kink) circleSeries(radius series.Coef, deriv, bare bool) (series.FourierCoefficients, bool) {
 	out := series.FourierCoefficients{Special: map[int][2]series.Coef{}}
 	R, okR := radius.Rat()
 	A, okA := k.LA.Rat()
@@ -49,12 +62,16 @@ func (k Kink) CircleTrace(radius series.Coef, deriv bool) (series.FourierCoeffic
 	factor := k.Factor
 	half, quarter := big.NewRat(1, 2), big.NewRat(1, 4)
 	rhoSq := series.RatCoef(rho2)
-	if !deriv {
+	switch {
+	case bare: // c·|ℓ|: the factor 1/(6|∇ℓ|²) of the closed form undone
+		factor = factor.Mul(series.RatCoef(g2)).MulRat(big.NewRat(6, 1))
+		e[0], e[1] = d, rho
+	case !deriv:
 		e[0] = d.Mul(d).Mul(d).Add(rhoSq.Mul(d).MulRat(big.NewRat(3, 2)))
 		e[1] = rho.Mul(d).Mul(d).MulRat(big.NewRat(3, 1)).Add(rhoSq.Mul(rho).MulRat(big.NewRat(3, 4)))
 		e[2] = rhoSq.Mul(d).MulRat(big.NewRat(3, 2))
 		e[3] = rhoSq.Mul(rho).MulRat(quarter)
-	} else {
+	default:
 		g, err := series.RatCoef(g2).Pow(half)
 		if err != nil {
 			return out, false

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"psol/ansatz"
 	"psol/series"
 	"strings"
 )
@@ -23,6 +24,12 @@ func circleData(d circular, c circle, cond Condition, gf series.Field, tr series
 	if len(d.circles()) == 1 && pieces != nil && !p.numeric {
 		if fc, err := series.Fourier(pieces); err == nil {
 			return seriesData(d, c, cond, series.Field{Pieces: pieces}, fc, tr, sol)
+		}
+	}
+	if len(d.circles()) == 1 && !p.numeric && cond.Kind != Floating {
+		// Kinked data c·|ℓ|: exact coefficients with a general term.
+		if fc, ok := kinkedDataFourier(c, cond, p.env); ok {
+			return seriesData(d, c, cond, gf, fc, tr, sol)
 		}
 	}
 	if len(d.circles()) == 1 && !p.numeric {
@@ -353,4 +360,34 @@ func (s *Solution) addCircleJump(c circle, j series.Jump, env series.Env) {
 	at, _ := j.At.Float64()
 	th := at * math.Pi
 	s.CornerJumps = append(s.CornerJumps, CornerJump{At: [2]float64{R * math.Cos(th), R * math.Sin(th)}, Sides: [2]string{c.name, c.name}})
+}
+
+// kinkedDataFourier is data that are a closed part plus kinks c·|ℓ| (ℓ
+// linear in x and y, rational) as exact Fourier coefficients on the
+// circle: the closed part's and each kink's (Kink.CircleAbs). The FFT
+// took them to about 3e-4 (their coefficients fall like n⁻²).
+func kinkedDataFourier(c circle, cond Condition, env series.Env) (series.FourierCoefficients, bool) {
+	if cond.G.IsPiecewise() || cond.G.Rest == nil {
+		return series.FourierCoefficients{}, false
+	}
+	kinks, left := ansatz.SplitKinks(cond.G.Rest, env)
+	if len(kinks) == 0 || left != nil {
+		return series.FourierCoefficients{}, false
+	}
+	total, ok := series.ExactField(cond.G.Exact).FourierOn(c.radius)
+	if !ok {
+		return total, false
+	}
+	for _, k := range kinks {
+		fc, ok := k.CircleAbs(c.radius)
+		if !ok {
+			return total, false
+		}
+		sum, err := total.Add(fc)
+		if err != nil {
+			return total, false
+		}
+		total = sum
+	}
+	return total, true
 }

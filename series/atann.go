@@ -61,16 +61,42 @@ func quadrant(x, y Coef) (sx, sy int, t Coef, ok bool) {
 	return sx, sy, t, true
 }
 
-// quarterTurns is q with atan2(y, x) = qπ where that is a multiple of π/4.
+// quarterTurns is q with atan2(y, x) = qπ where that is a multiple of π/4
+// or of π/6 (t = |y/x| of 1, √3 or √3/3): a kinked line through a circle
+// meets it at such angles often (|x − 1/2| on the unit circle at ±π/3), and
+// π/3 reads better than atan(√3), and its cos(nπ/3) are the index atoms.
 func quarterTurns(sx, sy int, t Coef) (*big.Rat, bool) {
-	if sx != 0 && sy != 0 && !t.Equal(IntCoef(1)) {
+	if sx == 0 || sy == 0 {
+		q, ok := map[[2]int]*big.Rat{
+			{1, 0}: big.NewRat(0, 1), {0, 1}: big.NewRat(1, 2), {-1, 0}: big.NewRat(1, 1), {0, -1}: big.NewRat(3, 2),
+		}[[2]int{sx, sy}]
+		return q, ok
+	}
+	root3, err := IntCoef(3).Pow(big.NewRat(1, 2))
+	if err != nil {
 		return nil, false
 	}
-	q, ok := map[[2]int]*big.Rat{
-		{1, 0}: big.NewRat(0, 1), {1, 1}: big.NewRat(1, 4), {0, 1}: big.NewRat(1, 2), {-1, 1}: big.NewRat(3, 4),
-		{-1, 0}: big.NewRat(1, 1), {-1, -1}: big.NewRat(5, 4), {0, -1}: big.NewRat(3, 2), {1, -1}: big.NewRat(7, 4),
-	}[[2]int{sx, sy}]
-	return q, ok
+	var a *big.Rat // the angle in the first quadrant, over π
+	switch {
+	case t.Equal(IntCoef(1)):
+		a = big.NewRat(1, 4)
+	case t.Equal(root3):
+		a = big.NewRat(1, 3)
+	case t.Equal(root3.MulRat(big.NewRat(1, 3))):
+		a = big.NewRat(1, 6)
+	default:
+		return nil, false
+	}
+	one := big.NewRat(1, 1)
+	switch {
+	case sx > 0 && sy > 0:
+		return a, true
+	case sx < 0 && sy > 0:
+		return new(big.Rat).Sub(one, a), true
+	case sx < 0:
+		return new(big.Rat).Add(one, a), true
+	}
+	return new(big.Rat).Sub(big.NewRat(2, 1), a), true
 }
 
 // IndexTrig is (cos nφ, sin nφ) for the index n and φ = atan2(y, x), exact
