@@ -146,11 +146,23 @@ func (s Series) Text() string { return s.text(textStyle) }
 func (s Series) TextApprox() string { return s.text(style{mul: "*", decimal: true}) }
 
 func (s Series) text(st style) string {
-	head := "sum(" + Index + "=" + strconv.Itoa(s.Family.From) + "..inf"
-	for _, run := range runs(s.specials()) {
+	from, skip := s.lower()
+	head := "sum(" + Index + "=" + strconv.Itoa(from) + "..inf"
+	for _, run := range runs(skip) {
 		head += ", " + Index + " != " + run
 	}
 	return s.print(head+", ", ")", st)
+}
+
+// lower is the sum's first index and the exceptional indices past it:
+// exceptions that run on from the family's first index move the first
+// index on (sum(n=4..inf, ...), not sum(n=1..inf, n != 1..3, ...)).
+func (s Series) lower() (int, []int) {
+	from, skip := s.Family.From, s.specials()
+	for len(skip) > 0 && skip[0] == from {
+		from, skip = from+1, skip[1:]
+	}
+	return from, skip
 }
 
 // LaTeX prints the series with \sum.
@@ -160,13 +172,14 @@ func (s Series) LaTeX() string { return s.latex(latexStyle) }
 func (s Series) LaTeXApprox() string { return s.latex(style{latex: true, mul: " ", decimal: true}) }
 
 func (s Series) latex(st style) string {
-	lower := Index + "=" + strconv.Itoa(s.Family.From)
-	if len(s.Special) > 0 {
+	from, skip := s.lower()
+	lower := Index + "=" + strconv.Itoa(from)
+	if len(skip) > 0 {
 		var ex []string
-		for _, run := range runs(s.specials()) {
+		for _, run := range runs(skip) {
 			ex = append(ex, strings.Replace(run, "..", `,\dots,`, 1))
 		}
-		lower = Index + `\ge ` + strconv.Itoa(s.Family.From) + `,\ ` + Index + `\ne ` + strings.Join(ex, ",")
+		lower = Index + `\ge ` + strconv.Itoa(from) + `,\ ` + Index + `\ne ` + strings.Join(ex, ",")
 	}
 	return s.print(`\sum_{`+lower+`}^{\infty} `, "", st)
 }
