@@ -31,6 +31,15 @@ type Kink struct {
 	LA, LB, LD series.Coef
 }
 
+// Shifted is the kink in coordinates whose origin is the point (dx, dy):
+// ℓ(x) = ℓ'(x − (dx, dy)), so D' = D + A·dx + B·dy (exactly, dx and dy
+// taken as the rationals they are). Its text keeps the caller's ℓ.
+func (k Kink) Shifted(dx, dy float64) Kink {
+	k.D += k.A*dx + k.B*dy
+	k.LD = k.LD.Add(k.LA.Mul(series.RatCoef(new(big.Rat).SetFloat64(dx)))).Add(k.LB.Mul(series.RatCoef(new(big.Rat).SetFloat64(dy))))
+	return k
+}
+
 // Text is the closed form, Factor*abs(ℓ)^3.
 func (k Kink) Text() string { return k.factorText() + "*" + k.Abs.Text() + "^3" }
 

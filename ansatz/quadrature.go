@@ -68,6 +68,14 @@ type Quadrature struct {
 	Kinks []Kink
 	// Left is the source part G samples when Kinks are set (nil: none).
 	Left *series.Expr
+	// X0, Y0 are the centre of the quadrature's polar coordinates in the
+	// caller's plane: G, GXY, Kinks and every (r, θ) the methods take are
+	// about it (Local maps a point there). The circles' quadratures sit at
+	// the origin; a section's at its own centre, since a disk about the
+	// origin reached far outside a section away from it (a unit square at
+	// (100, 100) took a disk of radius 143, and was refused) and met a
+	// source's singularities there (1/(1 + x + y) beside the unit square).
+	X0, Y0 float64
 	// Reflect, when set, says that G over the period is its first quarter
 	// reflected about θ = 0 and about θ = Period/4, odd about each where
 	// its flag is true and even where false: a sector's extension about
@@ -1076,6 +1084,32 @@ func (q *Quadrature) Flux(r, theta0, theta1 float64) float64 {
 func (q *Quadrature) At(r, theta float64) (float64, float64) {
 	p, _, err := q.Mode(r)
 	return q.sum(p, r, theta), err
+}
+
+// Centred reports a centre away from the caller's origin.
+func (q *Quadrature) Centred() bool { return q.X0 != 0 || q.Y0 != 0 }
+
+// Local is the point (x, y) of the caller's plane in the quadrature's polar
+// coordinates, θ in [0, 2π).
+func (q *Quadrature) Local(x, y float64) (r, theta float64) {
+	x, y = x-q.X0, y-q.Y0
+	theta = math.Atan2(y, x)
+	if theta < 0 {
+		theta += 2 * math.Pi
+	}
+	return math.Hypot(x, y), theta
+}
+
+// GlobalKinks are the kinks in the caller's plane.
+func (q *Quadrature) GlobalKinks() []Kink {
+	if !q.Centred() {
+		return q.Kinks
+	}
+	out := make([]Kink, len(q.Kinks))
+	for i, k := range q.Kinks {
+		out[i] = k.Shifted(-q.X0, -q.Y0)
+	}
+	return out
 }
 
 // Value is the particular solution at (r, θ) from the halved mesh alone,

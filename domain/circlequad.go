@@ -31,7 +31,7 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 			return err
 		}
 	}
-	q, err := kinkedQuadrature(p, a, R)
+	q, err := kinkedQuadrature(p, a, R, 0, 0)
 	if err != nil {
 		return err
 	}
@@ -176,11 +176,15 @@ func kinksOperator(q *ansatz.Quadrature, d circular, p *posed, side string) func
 // kinkedQuadrature is the quadrature of the source's remainder with its
 // kinks c·abs(ℓ) taken out as closed parts (ansatz.SplitKinks) where the
 // region is bounded: the rest, if any, is sampled.
-func kinkedQuadrature(p *posed, a, R float64) (*ansatz.Quadrature, error) {
+func kinkedQuadrature(p *posed, a, R, x0, y0 float64) (*ansatz.Quadrature, error) {
 	var kinks []ansatz.Kink
 	left := p.rest
 	if !math.IsInf(R, 1) {
 		kinks, left = ansatz.SplitKinks(p.rest, p.env)
+	}
+	centred := x0 != 0 || y0 != 0
+	for i := range kinks {
+		kinks[i] = kinks[i].Shifted(x0, y0)
 	}
 	g := func(r, theta float64) float64 { return 0 }
 	var gxy func(x, y float64) float64
@@ -190,13 +194,21 @@ func kinkedQuadrature(p *posed, a, R float64) (*ansatz.Quadrature, error) {
 			return nil, unsupported("the source %s needs every parameter's value: %w", p.rest.Text(), err)
 		}
 		g = cf.At
+		if centred { // the source at the point of the caller's plane
+			g = func(r, theta float64) float64 {
+				return cf.At(polarOf(x0+r*math.Cos(theta), y0+r*math.Sin(theta)))
+			}
+		}
 		if left.SingleValued() {
 			if xy, err := (series.Field{Rest: left}).CompileXY(p.env, cart.PolyLeaf(p.env)); err == nil {
 				gxy = xy.At
+				if centred {
+					gxy = func(x, y float64) float64 { return xy.At(x0+x, y0+y) }
+				}
 			}
 		}
 	}
-	q := &ansatz.Quadrature{G: g, GXY: gxy, A: a, R: R, Tol: p.tol, MaxSamples: p.quadSamples, MaxBisections: p.quadBisections, Kinks: kinks, Left: left}
+	q := &ansatz.Quadrature{G: g, GXY: gxy, A: a, R: R, Tol: p.tol, MaxSamples: p.quadSamples, MaxBisections: p.quadBisections, Kinks: kinks, Left: left, X0: x0, Y0: y0}
 	if err := q.Prepare(); err != nil {
 		return nil, unsolvable("%s: %w", p.rest.Text(), err)
 	}
@@ -293,4 +305,12 @@ func decimalDigits(x float64, digits int) series.Coef {
 	}
 	q, _ := new(big.Rat).SetString(strconv.FormatFloat(x, 'g', digits, 64))
 	return series.RatCoef(q)
+}
+
+// quadratureDisk names a section's quadrature disk in its note.
+func quadratureDisk(q *ansatz.Quadrature) string {
+	if !q.Centred() {
+		return fmt.Sprintf(" on the disk r < %.6g around the section", q.R)
+	}
+	return fmt.Sprintf(" on the disk of radius %.6g about (%.6g, %.6g), around the section", q.R, q.X0, q.Y0)
 }

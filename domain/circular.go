@@ -461,12 +461,20 @@ func quadratureCheck(d Domain, sol *Solution, env series.Env) Check {
 	}
 	u := sol.Quadrature.Value // the values alone: the check needs no estimate
 	out.peak = sol.Quadrature.SourceSize()
+	// The points in the quadrature's own polar coordinates (a section's
+	// are about its centre).
+	local := make([][2]float64, len(pts))
 	rmax := 0.0
-	for _, p := range pts {
-		rmax = math.Max(rmax, p[0])
+	for k, p := range pts {
+		local[k] = p
+		if sol.Quadrature.Centred() {
+			local[k][0], local[k][1] = sol.Quadrature.Local(Cartesian(p[0], p[1]))
+		}
+		rmax = math.Max(rmax, local[k][0])
 	}
 	for k, p := range pts {
-		if k%4 != 0 || p[0] < 1e-2*rmax {
+		r, th := local[k][0], local[k][1]
+		if k%4 != 0 || r < 1e-2*rmax {
 			// The polar stencil's angular step h/r is no small step near the
 			// centre (at r = 0 it divided by zero: a Gaussian on a hexagon
 			// about the origin was refused as "not a finite number").
@@ -474,7 +482,6 @@ func quadratureCheck(d Domain, sol *Solution, env series.Env) Check {
 		}
 		// A polar stencil: its points share five radii, and the quadrature
 		// evaluates every mode of a radius at once.
-		r, th := p[0], p[1]
 		h := 3e-3 * r
 		if nearKink(sol.Quadrature.Kinks, r, th, 2*h) {
 			// A stencil across a kink's line measures the difference

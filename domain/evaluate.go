@@ -143,7 +143,7 @@ func (s *Solution) Compile(env series.Env, tol float64, maxTerms int) (*Evaluato
 func (e *Evaluator) At(r, theta float64) (u, errEst float64, terms int) {
 	if e.quad != nil {
 		u, errEst, terms = e.atClosedAndSeries(r, theta)
-		p, perr := e.quad.At(r, theta)
+		p, perr := e.quad.At(e.quadPolar(r, theta))
 		return u + p, errEst + perr + e.dataErr, terms
 	}
 	return e.atClosedAndSeries(r, theta)
@@ -234,7 +234,7 @@ func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
 	if e.quad != nil {
 		for i, r := range rs {
 			for j, th := range thetas {
-				p, perr := e.quad.At(r, th)
+				p, perr := e.quad.At(e.quadPolar(r, th))
 				u[i][j] += p
 				errs[i][j] += perr
 			}
@@ -322,4 +322,13 @@ func (e *Evaluator) AtXY(x, y float64) (u, errEst float64, terms int) {
 		th += 2 * math.Pi
 	}
 	return e.At(math.Hypot(x, y), th)
+}
+
+// quadPolar is the point (r, θ) in the quadrature's own polar coordinates
+// (a section's are about its centre).
+func (e *Evaluator) quadPolar(r, theta float64) (float64, float64) {
+	if !e.quad.Centred() {
+		return r, theta
+	}
+	return e.quad.Local(r*math.Cos(theta), r*math.Sin(theta))
 }

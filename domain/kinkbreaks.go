@@ -29,8 +29,9 @@ func addKinkBreaks(g *sectionGeometry, q *ansatz.Quadrature) {
 	if q == nil || len(q.Kinks) == 0 {
 		return
 	}
+	kinks := q.GlobalKinks()
 	for k := range g.shape.Sides {
-		addBreaksOn(g, k, q.Kinks)
+		addBreaksOn(g, k, kinks)
 	}
 }
 

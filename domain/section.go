@@ -422,7 +422,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 					v := best.valueOnly(complex(px, py))
 					v += conds[k].up.At(r, th)
 					if quad != nil {
-						q, _ := quad.At(r, th)
+						q, _ := quad.At(quad.Local(px, py))
 						v += q
 					}
 					w := ansatz.GaussW[j] / 2 / 32 * side.Length
@@ -478,8 +478,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		for _, side := range geo.shape.Sides {
 			for j := 0; j <= 32; j++ {
 				x, y, _, _ := side.At(float64(j) / 32)
-				r, th := polarOf(x, y)
-				_, e := quad.At(r, th)
+				_, e := quad.At(quad.Local(x, y))
 				qerr = math.Max(qerr, e)
 			}
 		}
@@ -487,7 +486,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 			qerr = math.Max(qerr, in.err)
 		}
 		sol.DataError += qerr
-		note := quadratureNote(quad, p.rest, fmt.Sprintf(" on the disk r < %.6g around the section", quad.R), fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", quad.Samples, quad.Modes), false)
+		note := quadratureNote(quad, p.rest, quadratureDisk(quad), fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", quad.Samples, quad.Modes), false)
 		if len(quad.Kinks) > 0 { // a section's sides read the kinks' closed form point by point
 			note = strings.Replace(note, "(twice continuously differentiable; its trace's Fourier coefficients, which fall like k^-4, by an FFT of at least 16384 samples)",
 				fmt.Sprintf("(twice continuously differentiable), evaluated at each boundary point; the fit gathers its poles where a kink's line crosses a side (%d such points), as at a corner", len(geo.breaks)), 1)
@@ -621,14 +620,15 @@ type sideInterpolant struct {
 }
 
 func newSideInterpolant(q *ansatz.Quadrature, path SidePath, tol float64) *sideInterpolant {
+	kinks := q.GlobalKinks()
 	eval := func(u float64) (float64, float64) {
 		x, y, nx, ny := path.At(path.even(u))
-		r, th := polarOf(x, y)
+		r, th := q.Local(x, y)
 		rr := math.Max(r, 1e-300)
 		v, pr, pt := q.ValueGradient(rr, th)
 		pt /= rr
 		ux, uy := math.Cos(th)*pr-math.Sin(th)*pt, math.Sin(th)*pr+math.Cos(th)*pt
-		for _, k := range q.Kinks { // added back exactly by at
+		for _, k := range kinks { // added back exactly by at
 			kx, ky := k.GradientXY(x, y)
 			v, ux, uy = v-k.ValueXY(x, y), ux-kx, uy-ky
 		}
@@ -655,7 +655,7 @@ func newSideInterpolant(q *ansatz.Quadrature, path SidePath, tol float64) *sideI
 		vs, dns = append(vs, v), append(dns, dn)
 	}
 	for n := first; ; n *= 2 {
-		in := &sideInterpolant{evenOf: path.evenOf, kinks: q.Kinks, path: path}
+		in := &sideInterpolant{evenOf: path.evenOf, kinks: kinks, path: path}
 		in.u, in.v, in.dn = points(n, false), vs, dns
 		in.w = make([]float64, n+1)
 		for j := range in.w {
@@ -738,24 +738,27 @@ func sectionQuadrature(d section, geo sectionGeometry, p *posed) (*ansatz.Quadra
 	if err != nil {
 		return nil, unsupported("the source %s needs every parameter's value: %w", p.rest.Text(), err)
 	}
+	// The disk is about the section's own centre (its box's), not the
+	// origin: the source's extension beyond the section stays near it.
+	x0, y0 := (geo.shape.Box.X0+geo.shape.Box.X1)/2, (geo.shape.Box.Y0+geo.shape.Box.Y1)/2
 	R := 0.0
 	for _, side := range geo.shape.Sides {
 		for j := 0; j <= 256; j++ {
 			x, y, _, _ := side.At(float64(j) / 256)
-			R = math.Max(R, math.Hypot(x, y))
+			R = math.Max(R, math.Hypot(x-x0, y-y0))
 		}
 	}
 	R *= 1 + 1e-9
 	for i := 1; i <= 64; i++ {
 		for j := 0; j < 64; j++ {
 			r, th := R*float64(i)/64, 2*math.Pi*float64(j)/64
-			if v := cf.At(r, th); math.IsNaN(v) || math.IsInf(v, 0) {
-				x, y := Cartesian(r, th)
-				return nil, unsolvable("the source %s is not a finite number at (x, y) = (%.4g, %.4g): psol's quadrature for %s needs it on the whole disk r < %.4g around the section, not only inside", p.rest.Text(), x, y, d.Describe(), R)
+			x, y := x0+r*math.Cos(th), y0+r*math.Sin(th)
+			if v := cf.At(polarOf(x, y)); math.IsNaN(v) || math.IsInf(v, 0) {
+				return nil, unsolvable("the source %s is not a finite number at (x, y) = (%.4g, %.4g): psol's quadrature for %s needs it on the whole disk of radius %.4g about (%.4g, %.4g), around the section, not only inside", p.rest.Text(), x, y, d.Describe(), R, x0, y0)
 			}
 		}
 	}
-	return kinkedQuadrature(p, 0, R)
+	return kinkedQuadrature(p, 0, R, x0, y0)
 }
 
 func (sc sideCondition) point(t, x, y, nx, ny float64, side int, geo *sectionGeometry) boundaryPoint {
@@ -1123,10 +1126,9 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 			return err
 		}
 		for _, n := range nodes {
-			r, th := polarOf(n[0], n[1])
-			p, _ := s.Quadrature.At(r, th)
+			p, _ := s.Quadrature.At(s.Quadrature.Local(n[0], n[1]))
 			rep.Integral += n[2] * p
-			rep.Source += n[2] * f.At(r, th)
+			rep.Source += n[2] * f.At(polarOf(n[0], n[1]))
 		}
 		rep.SourceExact = nil
 	}
