@@ -372,7 +372,16 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	// print a value it cannot stand behind.
 	if best.residual > math.Max(target, 1e-9*scale) || math.IsNaN(best.residual) {
 		why := "the fit could not resolve the section there"
+		if quad != nil {
+			// The quadrature samples the source on a disk about the
+			// section: a singularity there, outside the section, spoils
+			// u_q's trace (1/(x + 0.1) beside the unit square).
+			why = fmt.Sprintf("the fit could not resolve the section there; the source's part by quadrature is taken on the whole disk of radius %.4g about (%.4g, %.4g), and a singularity or steep growth of %s there, outside the section, would spoil it", quad.R, quad.X0, quad.Y0, p.rest.Text())
+		}
 		for k := range geo.corners {
+			if math.Abs(geo.corners[k].angle-0.5) < 1e-9 {
+				continue // at a right angle mixed conditions converge well
+			}
 			if on, back := cornerSides(&geo, k); on >= 0 && back >= 0 && (conds[on].b == 0) != (conds[back].b == 0) {
 				why = "a corner where a value condition meets a flux or convection condition at an angle other than pi/2 converges slowly with psol's rational fit"
 				break
