@@ -68,6 +68,17 @@ func (k Kink) ValueXY(x, y float64) float64 {
 	return k.C * l * l * l / (6 * k.grad2())
 }
 
+// AreaFlux is F·(nx, ny) at (x, y) for the field F = C·ℓ|ℓ|³/(24(A² +
+// B²)²)·(A, B), whose divergence is v: ∫∫ v dA over a region is the
+// integral of AreaFlux over its boundary (divergence theorem). An area rule
+// across the line met v's jump in third derivative and left 1e-9; the
+// boundary integrand is smooth but at the line's crossings.
+func (k Kink) AreaFlux(x, y, nx, ny float64) float64 {
+	l := k.form(x, y)
+	g2 := k.grad2()
+	return k.C * l * l * l * math.Abs(l) / (24 * g2 * g2) * (k.A*nx + k.B*ny)
+}
+
 // Distance is the distance from (x, y) to the kink's line ℓ = 0.
 func (k Kink) Distance(x, y float64) float64 { return math.Abs(k.form(x, y)) / math.Sqrt(k.grad2()) }
 

@@ -28,8 +28,7 @@ func pointValue(ev *Evaluator) func(x, y float64) float64 {
 		if th < 0 {
 			th += 2 * math.Pi
 		}
-		v, _, _ := ev.At(math.Hypot(x, y), th)
-		return v
+		return ev.value(math.Hypot(x, y), th)
 	}
 }
 

@@ -5,6 +5,8 @@ import (
 	"strconv"
 	"testing"
 
+	"gonum.org/v1/gonum/integrate/quad"
+
 	"psol/domain"
 )
 
@@ -42,3 +44,43 @@ func TestSectionQuadratureAboutItsCentre(t *testing.T) {
 }
 
 func ftoa(v float64) string { return strconv.FormatFloat(v, 'g', -1, 64) }
+
+// TestAreaIntegralByGreen: a section's area integral takes u_q's share by
+// Green's second identity from the sides' interpolants (greenBoundary),
+// not from u_q at 16384 area nodes. Against an independent path: gonum's
+// Gauss–Legendre in x and y of the evaluator's u over the rectangle (20 ×
+// 24 panels of 10 points, an edge on the kink's line).
+func TestAreaIntegralByGreen(t *testing.T) {
+	sq := polygon([2]float64{0, 0}, [2]float64{2, 0}, [2]float64{2, 1}, [2]float64{0, 1})
+	sol := solveWith(t, "lap(u) = exp(-((x - 0.7)^2 + (y - 0.4)^2)/0.1) + abs(x - 1.3)", sq, domain.Options{Tol: 1e-12}, sidesOf(sq, "s", "u = 0")...)
+	rep, err := sol.Report(nil, 1e-12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ev := evaluator(t, sol, 1e-12)
+	x, w := quadGL(10)
+	want := 0.0
+	// Panels 0.1 wide in x, so that x = 1.3 (the kink, where u's third
+	// derivative jumps) is an edge; 1/24 in y.
+	for i := 0; i < 20; i++ {
+		for j := 0; j < 24; j++ {
+			for a := range x {
+				for b := range x {
+					px, py := (float64(i)+(x[a]+1)/2)/10, (float64(j)+(x[b]+1)/2)/24
+					v, _, _ := ev.AtXY(px, py)
+					want += v * w[a] * w[b] / 4 * (1.0 / 10) * (1.0 / 24)
+				}
+			}
+		}
+	}
+	if math.Abs(rep.Integral-want) > 1e-11 {
+		t.Errorf("area integral %.14f, by Gauss–Legendre of u %.14f", rep.Integral, want)
+	}
+}
+
+// quadGL is gonum's n-point Gauss–Legendre rule on [−1, 1].
+func quadGL(n int) (x, w []float64) {
+	x, w = make([]float64, n), make([]float64, n)
+	quad.Legendre{}.FixedLocations(x, w, -1, 1)
+	return x, w
+}
