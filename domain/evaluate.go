@@ -333,6 +333,9 @@ func (e *Evaluator) quadPolar(r, theta float64) (float64, float64) {
 	return e.quad.Local(r*math.Cos(theta), r*math.Sin(theta))
 }
 
+// Value is u at (r, θ) with no estimate, for pictures.
+func (e *Evaluator) Value(r, theta float64) float64 { return e.value(r, theta) }
+
 // value is u at (r, θ) with no estimate: the quadrature's part from its
 // halved mesh alone (Quadrature.Value, the same value as At's). The
 // figures' scans take thousands of points, each at a radius of its own,

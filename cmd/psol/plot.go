@@ -100,15 +100,18 @@ func plotSolution(w io.Writer, format string, title, unknown string, sol *domain
 	f := &field{x0: x0, y0: y0, dx: (x1 - x0) / (n - 1), dy: (y1 - y0) / (n - 1), nx: n, ny: n, z: make([]float64, n*n), min: math.Inf(1), max: math.Inf(-1)}
 	at := func(r, th float64) float64 { u, _, _ := ev.At(r, th); return u }
 	if sol.Quadrature != nil { // its modes are per radius: sample rings, interpolate
-		box, err := polarBox(sol.Domain, env)
-		if err != nil {
-			return usagef("--plot: %w", err)
+		if box, err := polarBox(sol.Domain, env); err == nil {
+			rlo, rhi := box.RMin, box.RMax
+			if math.IsInf(rhi, 1) { // outside a circle: out to the picture's corner
+				rhi = math.Hypot(math.Max(-x0, x1), math.Max(-y0, y1))
+			}
+			at = polarSampler(ev, rlo, rhi, n, 2*n)
+		} else {
+			// A section's quadrature is about its own centre, not in the
+			// plane's rings: each pixel's value from the halved mesh alone
+			// (the plot refused these regions).
+			at = ev.Value
 		}
-		rlo, rhi := box.RMin, box.RMax
-		if math.IsInf(rhi, 1) { // outside a circle: out to the picture's corner
-			rhi = math.Hypot(math.Max(-x0, x1), math.Max(-y0, y1))
-		}
-		at = polarSampler(ev, rlo, rhi, n, 2*n)
 	}
 	sources, err := pointSources(sol)
 	if err != nil {
