@@ -141,6 +141,7 @@ type sideData struct {
 	poly *cart.Poly
 	fn   func(s float64) float64
 	text string
+	latex string
 	// base and rest split numeric data into an exact polynomial part and
 	// the rest (a point source's sampled trace, say), so that a corner where
 	// the rest is exactly 0 keeps the exact value.
@@ -252,7 +253,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		if cond.G.IsExact() {
 			if g, err := cart.FromPolar(cond.G.Exact); err == nil {
 				tr := d.trace(name, Condition{Kind: Dirichlet}, g)
-				data[name] = sideData{poly: &tr, text: tr.Text()}
+				data[name] = sideData{poly: &tr, text: tr.Text(), latex: tr.LaTeX()}
 				continue
 			}
 		}
@@ -267,7 +268,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		data[name] = sideData{fn: func(s float64) float64 {
 			x, y := geo.point(s, L, H)
 			return cf.At(x, y)
-		}, text: cond.G.Text()}
+		}, text: cond.G.Text(), latex: cond.G.LaTeX()}
 		if g, err := cart.FromPolar(cond.G.Exact); err == nil && cond.G.Rest != nil && !cond.G.IsPiecewise() {
 			if rf, err := (series.Field{Rest: cond.G.Rest}).CompileXY(p.env, cart.PolyLeaf(p.env)); err == nil {
 				tr := d.trace(name, Condition{Kind: Dirichlet}, g)
@@ -356,7 +357,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 			if negligible(correction, size, geo.length(d), env) { // data and trace agree: no series
 				side.Correction = cart.Poly{}
 				parts.Sides = append(parts.Sides, side)
-				sol.Sides = append(sol.Sides, Side{Condition: cond, DataText: data[name].text, DataLaTeX: data[name].text})
+				sol.Sides = append(sol.Sides, Side{Condition: cond, DataText: data[name].text, DataLaTeX: data[name].latex})
 				continue
 			}
 			es := &EigenSide{Wall: geo.wall, L: L, H: H, Start: endOf(p.conds[geo.start], env), End: endOf(p.conds[geo.end], env),
@@ -373,7 +374,7 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 		}
 		parts.Sides = append(parts.Sides, side)
 		where := edgeNamed(name).where(d)
-		sol.Sides = append(sol.Sides, Side{Condition: cond, At: where, AtLaTeX: where, DataText: data[name].text, DataLaTeX: data[name].text})
+		sol.Sides = append(sol.Sides, Side{Condition: cond, At: where, AtLaTeX: where, DataText: data[name].text, DataLaTeX: data[name].latex})
 	}
 	cornerWarnings(d, data, sol, p.conds, p.env)
 	res := up.Laplacian().Sub(f)
