@@ -4,6 +4,7 @@ import (
 	"math"
 	"math/big"
 	"sort"
+	"strings"
 
 	"gonum.org/v1/gonum/dsp/fourier"
 
@@ -20,10 +21,21 @@ import (
 // (common practice). v is twice continuously differentiable, so the
 // harmonic part sees a smooth enough trace; no quadrature of the kinked
 // source is needed (it took 10⁸ samples and a gigabyte for 1e-9).
+//
+// A step, Step set, is the source term C·step(ℓ), step(ℓ) = 1 where ℓ > 0
+// and 0 where ℓ < 0 (a conductor heated on one side of a line; `cond ? a
+// : b` with a linear comparison and constant branches lowers to it), with
+//
+//	v = C·max(ℓ, 0)²/(2(A² + B²)),  since d²/dℓ² max(ℓ, 0)²/2 = step(ℓ)
+//
+// (common practice): once continuously differentiable, its second
+// derivative jumping on ℓ = 0, where a section's fit gathers poles.
 type Kink struct {
+	Step       bool
 	C, A, B, D float64
-	// Factor is C/(6(A² + B²)) exactly, where the source's numbers are,
-	// and Abs the abs(ℓ) node: the closed form prints as Factor·Abs³.
+	// Factor is C/(6(A² + B²)) exactly (a step's C/(2(A² + B²))), where
+	// the source's numbers are, and Abs the abs(ℓ) node (a step's step(ℓ)):
+	// the closed form prints as Factor·Abs³ (Factor·max(ℓ, 0)²).
 	Factor series.Coef
 	Abs    *series.Expr
 	// LA, LB, LD are ℓ's coefficients exactly (the float ones above carry
@@ -40,16 +52,58 @@ func (k Kink) Shifted(dx, dy float64) Kink {
 	return k
 }
 
-// Text is the closed form, Factor*abs(ℓ)^3.
-func (k Kink) Text() string { return k.factorText() + "*" + k.Abs.Text() + "^3" }
+// Text is the closed form, Factor*abs(ℓ)^3 (a step's Factor*max(ℓ, 0)^2).
+func (k Kink) Text() string {
+	if k.Step {
+		return k.factorText() + "*max(" + unwrapped(k.Abs.Args()[0].Text()) + ", 0)^2"
+	}
+	return k.factorText() + "*" + k.Abs.Text() + "^3"
+}
+
+// unwrapped is s without one pair of brackets around the whole of it.
+func unwrapped(s string) string {
+	if !strings.HasPrefix(s, "(") || !strings.HasSuffix(s, ")") {
+		return s
+	}
+	depth := 0
+	for i, c := range s {
+		switch c {
+		case '(':
+			depth++
+		case ')':
+			depth--
+			if depth == 0 && i < len(s)-1 {
+				return s // the first bracket closes before the end
+			}
+		}
+	}
+	return s[1 : len(s)-1]
+}
 
 // LaTeX is the closed form in LaTeX.
-func (k Kink) LaTeX() string { return series.Const(k.Factor).LaTeX() + ` ` + k.Abs.LaTeX() + `^{3}` }
+func (k Kink) LaTeX() string {
+	if k.Step {
+		return series.Const(k.Factor).LaTeX() + ` \max\left(` + k.Abs.Args()[0].LaTeX() + `, 0\right)^{2}`
+	}
+	return series.Const(k.Factor).LaTeX() + ` ` + k.Abs.LaTeX() + `^{3}`
+}
+
+// Rule names the closed form for a step of the working.
+func (k Kink) Rule() string {
+	if k.Step {
+		return "a step c*step(l), l linear in x and y: c*max(l, 0)^2/(2*|grad l|^2), once continuously differentiable"
+	}
+	return "a kink c*abs(l), l linear in x and y: c*abs(l)^3/(6*|grad l|^2), twice continuously differentiable"
+}
 
 // SourceText is the source term the kink solves, c*abs(ℓ), with c =
-// Factor·6(A² + B²) exactly.
+// Factor·6(A² + B²) exactly (a step's c*step(ℓ), c = Factor·2(A² + B²)).
 func (k Kink) SourceText() string {
-	c := k.Factor.Mul(k.LA.Mul(k.LA).Add(k.LB.Mul(k.LB))).MulRat(big.NewRat(6, 1))
+	n := int64(6)
+	if k.Step {
+		n = 2
+	}
+	c := k.Factor.Mul(k.LA.Mul(k.LA).Add(k.LB.Mul(k.LB))).MulRat(big.NewRat(n, 1))
 	if c.Equal(series.IntCoef(1)) {
 		return k.Abs.Text()
 	}
@@ -64,8 +118,20 @@ func (k Kink) grad2() float64 { return k.A*k.A + k.B*k.B }
 
 // ValueXY is v(x, y).
 func (k Kink) ValueXY(x, y float64) float64 {
+	if k.Step {
+		l := math.Max(k.form(x, y), 0)
+		return k.C * l * l / (2 * k.grad2())
+	}
 	l := math.Abs(k.form(x, y))
 	return k.C * l * l * l / (6 * k.grad2())
+}
+
+// slope is dv/dℓ·/|∇ℓ|²: ∇v = slope·(A, B).
+func (k Kink) slope(l float64) float64 {
+	if k.Step {
+		return k.C * math.Max(l, 0) / k.grad2()
+	}
+	return k.C * l * math.Abs(l) / (2 * k.grad2())
 }
 
 // AreaFlux is F·(nx, ny) at (x, y) for the field F = C·ℓ|ℓ|³/(24(A² +
@@ -76,6 +142,10 @@ func (k Kink) ValueXY(x, y float64) float64 {
 func (k Kink) AreaFlux(x, y, nx, ny float64) float64 {
 	l := k.form(x, y)
 	g2 := k.grad2()
+	if k.Step { // F = C·max(ℓ, 0)³/(6(A² + B²)²)·(A, B)
+		p := math.Max(l, 0)
+		return k.C * p * p * p / (6 * g2 * g2) * (k.A*nx + k.B*ny)
+	}
 	return k.C * l * l * l * math.Abs(l) / (24 * g2 * g2) * (k.A*nx + k.B*ny)
 }
 
@@ -84,8 +154,7 @@ func (k Kink) Distance(x, y float64) float64 { return math.Abs(k.form(x, y)) / m
 
 // GradientXY is ∇v at (x, y): C·ℓ|ℓ|/(2(A² + B²))·(A, B).
 func (k Kink) GradientXY(x, y float64) (vx, vy float64) {
-	l := k.form(x, y)
-	g := k.C * l * math.Abs(l) / (2 * k.grad2())
+	g := k.slope(k.form(x, y))
 	return g * k.A, g * k.B
 }
 
@@ -125,16 +194,19 @@ func (k Kink) Value(r, theta float64) float64 {
 	return k.ValueXY(r*math.Cos(theta), r*math.Sin(theta))
 }
 
-// Source is C·|ℓ| at (r, θ): Δv.
+// Source is C·|ℓ| (a step's C·step(ℓ)) at (r, θ): Δv.
 func (k Kink) Source(r, theta float64) float64 {
-	return k.C * math.Abs(k.form(r*math.Cos(theta), r*math.Sin(theta)))
+	l := k.form(r*math.Cos(theta), r*math.Sin(theta))
+	if k.Step {
+		return k.C * series.Step(l)
+	}
+	return k.C * math.Abs(l)
 }
 
 // Gradient is (∂v/∂r, ∂v/∂θ) at (r, θ): ∇v = C·ℓ|ℓ|/(2(A² + B²))·(A, B).
 func (k Kink) Gradient(r, theta float64) (vr, vt float64) {
 	c, s := math.Cos(theta), math.Sin(theta)
-	l := k.form(r*c, r*s)
-	g := k.C * l * math.Abs(l) / (2 * k.grad2())
+	g := k.slope(k.form(r*c, r*s))
 	gx, gy := g*k.A, g*k.B
 	return gx*c + gy*s, r * (gy*c - gx*s)
 }

@@ -62,7 +62,21 @@ func (k Kink) circleSeries(radius series.Coef, deriv, bare bool) (series.Fourier
 	factor := k.Factor
 	half, quarter := big.NewRat(1, 2), big.NewRat(1, 4)
 	rhoSq := series.RatCoef(rho2)
+	// A step's v = Factor·ℓ²·1{|ψ| < β}: the indicator alone, where a
+	// kink's |ℓ|³ = ℓ³·(2·1{|ψ| < β} − 1).
+	step := k.Step && !bare
 	switch {
+	case step && !deriv: // ℓ² = D² + ρ²/2 + 2ρD cos ψ + (ρ²/2) cos 2ψ
+		e[0] = d.Mul(d).Add(rhoSq.MulRat(half))
+		e[1] = rho.Mul(d).MulRat(big.NewRat(2, 1))
+		e[2] = rhoSq.MulRat(half)
+	case step: // ∂v/∂r = 2·Factor·|∇ℓ|·ℓ cos ψ·1{}, ℓ cos ψ = ρ/2 + D cos ψ + (ρ/2) cos 2ψ
+		g, err := series.RatCoef(g2).Pow(half)
+		if err != nil {
+			return out, false
+		}
+		factor = factor.Mul(g).MulRat(big.NewRat(2, 1))
+		e[0], e[1], e[2] = rho.MulRat(half), d, rho.MulRat(half)
 	case bare: // c·|ℓ|: the factor 1/(6|∇ℓ|²) of the closed form undone
 		factor = factor.Mul(series.RatCoef(g2)).MulRat(big.NewRat(6, 1))
 		e[0], e[1] = d, rho
@@ -93,6 +107,9 @@ func (k Kink) circleSeries(radius series.Coef, deriv, bare bool) (series.Fourier
 	}
 	if sq(D).Cmp(rho2) >= 0 { // the line misses (or touches) the circle: one sign throughout
 		sign := series.IntCoef(int64(D.Sign()))
+		if step { // the indicator: 1 where ℓ > 0 throughout, else 0
+			sign = series.IntCoef(int64(max(D.Sign(), 0)))
+		}
 		out.A0 = e[0].Mul(sign).Mul(factor)
 		for n := 1; n <= 3; n++ {
 			ab, ok := inTheta(n, e[n].Mul(sign))
@@ -134,7 +151,11 @@ func (k Kink) circleSeries(radius series.Coef, deriv, bare bool) (series.Fourier
 		}
 		general = general.Add(e[j].Mul(minus.Add(plus)))
 	}
-	general, err = general.MulRat(big.NewRat(2, 1)).Div(pi)
+	twice := big.NewRat(2, 1) // 2·1{} − 1; a step's indicator once
+	if step {
+		twice = big.NewRat(1, 1)
+	}
+	general, err = general.MulRat(twice).Div(pi)
 	if err != nil {
 		return out, false
 	}
@@ -167,13 +188,15 @@ func (k Kink) circleSeries(radius series.Coef, deriv, bare bool) (series.Fourier
 			if !ok {
 				return out, false
 			}
-			a = a.Add(e[j].Mul(I.MulRat(big.NewRat(2, 1))))
+			a = a.Add(e[j].Mul(I.MulRat(twice)))
 		}
 		whole := pi // ∫_{−π}^{π} cos² mψ
 		if m == 0 {
 			whole = pi.MulRat(big.NewRat(2, 1))
 		}
-		a = a.Sub(e[m].Mul(whole))
+		if !step {
+			a = a.Sub(e[m].Mul(whole))
+		}
 		if m == 0 {
 			a0, err := a.Div(pi.MulRat(big.NewRat(2, 1)))
 			if err != nil {

@@ -7,8 +7,9 @@ import (
 	"psol/series/cart"
 )
 
-// SplitKinks takes the addends c·abs(ℓ) of a source's remainder, ℓ linear
-// in x and y, out as Kinks (their particular solutions are closed), and
+// SplitKinks takes the addends c·abs(ℓ) and c·step(ℓ) of a source's
+// remainder, ℓ linear in x and y, out as Kinks (their particular solutions
+// are closed), and
 // returns what is left for the quadrature (nil when nothing is). Constant
 // factors may stand on either side of the abs and divide it; parameters
 // need their values in env.
@@ -44,11 +45,11 @@ func kinkAddends(e *series.Expr) []*series.Expr {
 	return out
 }
 
-// kinkOf reads c·abs(ℓ): products and quotients of constants with one abs
-// of a linear form.
+// kinkOf reads c·abs(ℓ) or c·step(ℓ): products and quotients of constants
+// with one abs or step of a linear form.
 func kinkOf(e *series.Expr, env series.Env) (Kink, bool) {
 	switch e.Op() {
-	case "abs":
+	case "abs", "step":
 		if len(e.Args()) != 1 || e.Args()[0].Op() != "sum" {
 			return Kink{}, false
 		}
@@ -56,7 +57,7 @@ func kinkOf(e *series.Expr, env series.Env) (Kink, bool) {
 		if err != nil {
 			return Kink{}, false
 		}
-		k := Kink{C: 1, Abs: e, Factor: series.IntCoef(1)}
+		k := Kink{Step: e.Op() == "step", C: 1, Abs: e, Factor: series.IntCoef(1)}
 		grad2 := series.Coef{}
 		for _, t := range p.Terms() {
 			v, err := t.C.Float(env)
@@ -77,7 +78,11 @@ func kinkOf(e *series.Expr, env series.Env) (Kink, bool) {
 		if k.grad2() <= 0 {
 			return Kink{}, false
 		}
-		f, err := series.IntCoef(1).Div(grad2.MulRat(big.NewRat(6, 1)))
+		n := int64(6) // |ℓ|³/6; a step's max(ℓ, 0)²/2
+		if k.Step {
+			n = 2
+		}
+		f, err := series.IntCoef(1).Div(grad2.MulRat(big.NewRat(n, 1)))
 		if err != nil {
 			return Kink{}, false
 		}

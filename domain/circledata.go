@@ -379,6 +379,9 @@ func kinkedDataFourier(c circle, cond Condition, env series.Env) (series.Fourier
 		return total, false
 	}
 	for _, k := range kinks {
+		if k.Step { // a step in the data is a jump: not a kink's coefficients
+			return total, false
+		}
 		fc, ok := k.CircleAbs(c.radius)
 		if !ok {
 			return total, false

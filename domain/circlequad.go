@@ -48,7 +48,7 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		}
 		if q.Left == nil { // the kinks were the source's whole numeric part
 			sol.Numeric = false
-			sol.Notes = append(sol.Notes, exactKinkNote)
+			sol.Notes = append(sol.Notes, exactKinkNote(q.Kinks))
 			return nil
 		}
 	}
@@ -100,7 +100,7 @@ func quadratureParticular(d circular, p *posed, sol *Solution, traces map[string
 		traces[c.name] = traces[c.name].Add(series.NewSum(terms...))
 		sol.DataError += qerr
 	}
-	sol.Notes = append(sol.Notes, quadratureNote(q, p.rest, "", fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", q.Samples, q.Modes), kinksExact))
+	sol.Notes = append(sol.Notes, quadratureNote(q, p.rest, "", fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", q.Samples, q.Modes), fftKinkHow, kinksExact))
 	return nil
 }
 
@@ -215,24 +215,46 @@ func kinkedQuadrature(p *posed, a, R, x0, y0 float64) (*ansatz.Quadrature, error
 	return q, nil
 }
 
+// kinkPhrase says which closed forms the source's kinks and steps took,
+// up to their smoothness (the caller closes the bracket or goes on in it).
+func kinkPhrase(kinks []ansatz.Kink) string {
+	var abs, step bool
+	for _, k := range kinks {
+		abs, step = abs || !k.Step, step || k.Step
+	}
+	switch {
+	case abs && step:
+		return "the source's kinks c*abs(l) and steps c*step(l), l linear in x and y, take the closed particular solutions c*abs(l)^3/(6*|grad l|^2) and c*max(l, 0)^2/(2*|grad l|^2) (twice and once continuously differentiable"
+	case step:
+		return "the source's steps c*step(l), l linear in x and y, take the closed particular solution c*max(l, 0)^2/(2*|grad l|^2) (once continuously differentiable"
+	}
+	return "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable"
+}
+
 // exactKinkNote says how kinks with exact traces were taken.
-const exactKinkNote = "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable); its trace on each circle is given by exact Fourier coefficients, whose general term carries the angles where the line crosses the circle"
+func exactKinkNote(kinks []ansatz.Kink) string {
+	return kinkPhrase(kinks) + "); its trace on each circle is given by exact Fourier coefficients, whose general term carries the angles where the line crosses the circle"
+}
 
 // quadratureNote says how the source's remainder was taken: the kinks'
-// closed parts, and the quadrature of what is left.
-func quadratureNote(q *ansatz.Quadrature, rest *series.Expr, where, how string, kinksExact bool) string {
+// closed parts (their traces as kinkHow says, after the bracket's opening),
+// and the quadrature of what is left.
+func quadratureNote(q *ansatz.Quadrature, rest *series.Expr, where, how, kinkHow string, kinksExact bool) string {
 	if len(q.Kinks) == 0 {
 		return fmt.Sprintf("psol has no closed-form rule for the source part %s: its particular solution is by quadrature%s (%s)", rest.Text(), where, how)
 	}
-	note := "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable; its trace's Fourier coefficients, which fall like k^-4, by an FFT of at least 16384 samples)"
+	note := kinkPhrase(q.Kinks) + kinkHow
 	if kinksExact {
-		note = exactKinkNote
+		note = exactKinkNote(q.Kinks)
 	}
 	if q.Left != nil {
 		note += fmt.Sprintf("; the rest, %s, is by quadrature%s (%s)", q.Left.Text(), where, how)
 	}
 	return note
 }
+
+// fftKinkHow is how a circle's kinks' traces are taken where not exactly.
+const fftKinkHow = "; its trace's Fourier coefficients, which fall like k^-4 (a step's like k^-3), by an FFT of at least 16384 samples)"
 
 // addModes adds the kinks' modes on the circle of radius r to the
 // quadrature's, as many as the kinks need: their coefficients fall like

@@ -176,7 +176,7 @@ func solveCircular(d circular, p *posed) (*Solution, error) {
 		}
 		if !sol.Numeric { // kinks alone: closed forms, checked by differences too
 			sol.Checks[0].Name = "lap(u_p) - f (the terms with a rule)"
-			qc.Name = "lap(c*abs(l)^3/(6*|grad l|^2)) - c*abs(l) (sampled, by differences)"
+			qc.Name = KinkCheckName(sol.Quadrature.Kinks) + " (sampled, by differences)"
 		}
 		sol.Checks = append(sol.Checks, qc)
 		numericResiduals(d, sol, p.env)
@@ -654,4 +654,19 @@ func quadratureMean(sol *Solution, c circle, env series.Env) series.Coef {
 		return series.Coef{}
 	}
 	return decimal(pm[0][0])
+}
+
+// KinkCheckName is the check of the kinks' and steps' closed forms.
+func KinkCheckName(kinks []ansatz.Kink) string {
+	var abs, step bool
+	for _, k := range kinks {
+		abs, step = abs || !k.Step, step || k.Step
+	}
+	switch {
+	case abs && step:
+		return "lap(c*abs(l)^3/(6*|grad l|^2) + c*max(l, 0)^2/(2*|grad l|^2)) - c*abs(l) - c*step(l)"
+	case step:
+		return "lap(c*max(l, 0)^2/(2*|grad l|^2)) - c*step(l)"
+	}
+	return "lap(c*abs(l)^3/(6*|grad l|^2)) - c*abs(l)"
 }

@@ -198,7 +198,7 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 	}
 	switch {
 	case source.IsPiecewise() || source.Rest.HasChoice():
-		return nil, unsupported("a source given piece by piece (cond ? a : b) is not supported; pieces are for boundary data")
+		return nil, unsupported("a source given piece by piece (cond ? a : b) is taken as a step across a line only: one comparison of linear forms in x and y, and constant values either side (x < 0.2 ? q : 0); this one is not")
 	case !source.IsExact():
 		// The rectangle's wave ansatz or the quadrature fallback takes the part with no closed form.
 		if source.Rest.HasSeries() {

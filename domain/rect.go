@@ -138,9 +138,9 @@ func (s RectSide) HarmonicText(latex bool) string {
 // sideData is one side's data: a polynomial in the side's coordinate where
 // it is one, else a function of it.
 type sideData struct {
-	poly *cart.Poly
-	fn   func(s float64) float64
-	text string
+	poly  *cart.Poly
+	fn    func(s float64) float64
+	text  string
 	latex string
 	// base and rest split numeric data into an exact polynomial part and
 	// the rest (a point source's sampled trace, say), so that a corner where

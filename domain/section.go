@@ -495,11 +495,9 @@ func solveSection(d section, p *posed) (*Solution, error) {
 			qerr = math.Max(qerr, in.err)
 		}
 		sol.DataError += qerr
-		note := quadratureNote(quad, p.rest, quadratureDisk(quad), fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", quad.Samples, quad.Modes), false)
-		if len(quad.Kinks) > 0 { // a section's sides read the kinks' closed form point by point
-			note = strings.Replace(note, "(twice continuously differentiable; its trace's Fourier coefficients, which fall like k^-4, by an FFT of at least 16384 samples)",
-				fmt.Sprintf("(twice continuously differentiable), evaluated at each boundary point; the fit gathers its poles where a kink's line crosses a side (%d such points), as at a corner", len(geo.breaks)), 1)
-		}
+		// A section's sides read the kinks' closed form point by point.
+		kinkHow := fmt.Sprintf("), evaluated at each boundary point; the fit gathers its poles where the line crosses a side (%d such points), as at a corner", len(geo.breaks))
+		note := quadratureNote(quad, p.rest, quadratureDisk(quad), fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", quad.Samples, quad.Modes), kinkHow, false)
 		sol.Notes = append(sol.Notes, note)
 		qc, err := checkedQuadrature(d, sol, p)
 		if err != nil {

@@ -115,7 +115,42 @@ func (lw *lowerer) numericChoice(c *choice, a, b value) (value, error) {
 		}
 		fields = append(fields, v.f)
 	}
+	if f, ok := stepSource(lw.points, ops, fields, a.f, b.f); ok {
+		return value{f: f}, nil
+	}
 	return value{f: series.Choose(ops, fields, a.f, b.f)}, nil
+}
+
+// stepSource reads, in a source, `l < r ? a : b` with l − r linear in x
+// and y and constant branches as b + (a − b)·step(r − l) (> and >= as
+// step(l − r)): a conductor heated on one side of a line, whose particular
+// solution is closed (ansatz.Kink, a step). As a choice psol refused it.
+func stepSource(inSource bool, ops []string, sides []series.Field, a, b series.Field) (series.Field, bool) {
+	if !inSource || len(ops) != 1 || !a.IsExact() || !b.IsExact() {
+		return series.Field{}, false
+	}
+	if _, ok := a.Exact.Const(); !ok {
+		return series.Field{}, false
+	}
+	if _, ok := b.Exact.Const(); !ok {
+		return series.Field{}, false
+	}
+	l := sides[1].Add(sides[0].Neg()) // r − l: positive where l < r
+	switch ops[0] {
+	case "<", "<=":
+	case ">", ">=":
+		l = l.Neg()
+	default:
+		return series.Field{}, false
+	}
+	if !l.IsExact() || l.IsPiecewise() {
+		return series.Field{}, false
+	}
+	if p, err := cart.FromPolar(l.Exact); err != nil || p.Degree() != 1 {
+		return series.Field{}, false
+	}
+	step := series.Kept("step", l).Mul(a.Add(b.Neg()))
+	return b.Add(step), true
 }
 
 // interval reads a condition on θ, such as "theta < pi" or "0 < theta < pi/2",
@@ -575,7 +610,7 @@ func (lw *lowerer) extremum(c *call) (value, error) {
 
 func knownFunctions() []string {
 	var names []string
-	for _, n := range []string{"sin", "cos", "tan", "exp", "log", "ln", "sqrt", "abs", "sinh", "cosh", "tanh", "atan"} {
+	for _, n := range []string{"sin", "cos", "tan", "exp", "log", "ln", "sqrt", "abs", "step", "sinh", "cosh", "tanh", "atan"} {
 		if series.IsFunction(n) {
 			names = append(names, n)
 		}

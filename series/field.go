@@ -215,6 +215,19 @@ var unaryFloat = map[string]func(float64) float64{
 	"sqrt": func(x float64) float64 { return math.Sqrt(nonNegative(x)) }, "abs": math.Abs,
 	"sinh": math.Sinh, "cosh": math.Cosh, "tanh": math.Tanh,
 	"atan": math.Atan, // for closed forms such as the Poisson integral of a step
+	"step": Step,
+}
+
+// Step is the unit step of x: 1 for x > 0, 0 for x < 0, and 1/2 at 0 (the
+// mean of its sides, as a Fourier series of a step converges to).
+func Step(x float64) float64 {
+	switch {
+	case x > 0:
+		return 1
+	case x < 0:
+		return 0
+	}
+	return 0.5
 }
 
 // nonNegative takes a rounding-level negative argument to 0: a piece of
@@ -425,7 +438,7 @@ func (e *Expr) Text() string {
 var latexFunctions = map[string]string{
 	"sin": `\sin\left(%s\right)`, "cos": `\cos\left(%s\right)`, "tan": `\tan\left(%s\right)`,
 	"exp": `e^{%s}`, "ln": `\ln\left(%s\right)`, "log": `\ln\left(%s\right)`, "sqrt": `\sqrt{%s}`,
-	"abs": `\left|%s\right|`, "sinh": `\sinh\left(%s\right)`, "cosh": `\cosh\left(%s\right)`,
+	"abs": `\left|%s\right|`, "step": `\operatorname{step}\left(%s\right)`, "sinh": `\sinh\left(%s\right)`, "cosh": `\cosh\left(%s\right)`,
 	"tanh": `\tanh\left(%s\right)`, "atan": `\arctan\left(%s\right)`,
 }
 

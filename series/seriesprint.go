@@ -106,6 +106,12 @@ func (s Series) phiText(nu Coef, st style) string {
 	if s.Family.Sin {
 		fn = "sin"
 	}
+	if q, ok := nu.Rat(); ok && q.Cmp(big.NewRat(1, 1)) == 0 { // cos(theta), not cos(1*theta)
+		if st.latex {
+			return `\` + fn + `\theta`
+		}
+		return fn + "(theta)"
+	}
 	if st.latex {
 		arg := nu.LaTeX()
 		if _, ok := nu.Rat(); !ok && strings.ContainsAny(arg, "+-") {

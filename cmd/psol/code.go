@@ -100,6 +100,9 @@ func kinkCode(l series.Lang, sol *domain.Solution) ([]string, error) {
 		if k.LA.IsZero() && k.LB.IsZero() {
 			return nil, &domain.Unsupported{Reason: "a kink with no linear form has no code"}
 		}
+		if k.Step {
+			return nil, &domain.Unsupported{Reason: "generated code for a step source (cond ? a : b) is not written yet"}
+		}
 		code := func(c series.Coef) string { return c.Code(l, series.Index) }
 		form := "(" + code(k.LA) + "*r*" + l.Fn["cos"] + "(theta) + " + code(k.LB) + "*r*" + l.Fn["sin"] + "(theta) + " + code(k.LD) + ")"
 		a := l.Fn["abs"] + form

@@ -47,7 +47,7 @@ func (o *particularOptions) run(w io.Writer, source string) error {
 		return err
 	}
 	if f.IsPiecewise() || f.Rest.HasChoice() { // as psol solve, which refuses such a source too
-		return &domain.Unsupported{Reason: "psol has no closed-form rule for the source " + f.Text() + ", which is given piece by piece (cond ? a : b, or abs of what is not a linear form in x and y); psol takes no source in pieces"}
+		return &domain.Unsupported{Reason: "psol has no closed-form rule for the source " + f.Text() + ", which is given piece by piece (cond ? a : b, or abs of what is not a linear form in x and y); psol takes pieces in a source as a step across a line only (one comparison of linear forms in x and y, constant values either side: x < 0.2 ? q : 0)"}
 	}
 	// Kinks c·abs(ℓ), ℓ linear: the closed form c·abs(ℓ)³/(6|∇ℓ|²).
 	kinks, rest := ansatz.SplitKinks(f.Rest, env)
@@ -92,14 +92,14 @@ func (o *particularOptions) run(w io.Writer, source string) error {
 		}
 		v.Checks = append(v.Checks, c)
 	}
-	if len(kinks) > 0 { // an identity: d²/dℓ² |ℓ|³/6 = |ℓ| and |∇ℓ|² = A² + B²
-		v.Checks = append(v.Checks, checkOut{Name: "lap(c*abs(l)^3/(6*|grad l|^2)) - c*abs(l)", Exact: true, Formula: "0"})
+	if len(kinks) > 0 { // identities: d²/dℓ² |ℓ|³/6 = |ℓ|, d²/dℓ² max(ℓ, 0)²/2 = step(ℓ), |∇ℓ|² = A² + B²
+		v.Checks = append(v.Checks, checkOut{Name: domain.KinkCheckName(kinks), Exact: true, Formula: "0"})
 	}
 	for _, st := range steps {
 		v.Steps = append(v.Steps, st.Source.Text()+" -> "+st.Result.Text()+" ("+st.Rule+")")
 	}
 	for _, k := range kinks {
-		v.Steps = append(v.Steps, k.SourceText()+" -> "+k.Text()+" (a kink c*abs(l), l linear in x and y: c*abs(l)^3/(6*|grad l|^2), twice continuously differentiable)")
+		v.Steps = append(v.Steps, k.SourceText()+" -> "+k.Text()+" ("+k.Rule()+")")
 	}
 	if pointStep != "" {
 		v.Steps = append(v.Steps, pointStep)
