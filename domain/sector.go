@@ -80,6 +80,13 @@ func (s Sector) solve(p *posed) (*Solution, error) {
 	if !new(big.Rat).Mul(a, big.NewRat(12, 1)).IsInt() {
 		return nil, unsupported("sector angles with exact coefficients are multiples of pi/12; %s is not", s.Alpha.Text())
 	}
+	if kinks, _ := ansatz.SplitKinks(p.rest, p.env); len(kinks) > 0 {
+		for _, k := range kinks {
+			if k.Step { // the sector's quadrature would sample the jump (it was refused as aliased)
+				return nil, unsupported("a step source (cond ? a : b) on a sector is not taken yet: a sector's quadrature has no closed part for it; on a disk, an annulus, a rectangle or a section it is closed")
+			}
+		}
+	}
 	used := map[string]bool{}
 	p.f.Params(used)
 	for _, c := range p.conds {

@@ -60,3 +60,21 @@ func TestStepSourceOnASlab(t *testing.T) {
 		}
 	}
 }
+
+// TestStepCrossingAtTheStart: the step x + y < 1 on the unit circle given
+// as an ellipse (a fitted section, whose rim starts at (1, 0), where the
+// line crosses it) against the disk's exact series (Kink.CircleTrace): two
+// roads. A crossing at a closed side's start went unseen (Kink.Crossings):
+// the fit had no poles there and failed after 2.9 s.
+func TestStepCrossingAtTheStart(t *testing.T) {
+	ell := domain.Ellipse{A: series.IntCoef(1), B: series.IntCoef(1)}
+	fit := evaluator(t, solveWith(t, "lap(u) = x + y < 1 ? 5 : 0", ell, domain.Options{Tol: 1e-12}, "u = 0"), 1e-12)
+	exact := evaluator(t, solve(t, "lap(u) = x + y < 1 ? 5 : 0", unitDisk, "u = 0"), 1e-13)
+	for _, p := range [][2]float64{{0, 0.5}, {0.9, 0.05}, {-0.5, -0.5}, {0.45, 0.55}} {
+		a, _, _ := fit.AtXY(p[0], p[1])
+		b, _, _ := exact.AtXY(p[0], p[1])
+		if math.Abs(a-b) > 1e-11 {
+			t.Errorf("u(%g, %g): fit %.14f, series %.14f", p[0], p[1], a, b)
+		}
+	}
+}
