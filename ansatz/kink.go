@@ -55,7 +55,7 @@ func (k Kink) Shifted(dx, dy float64) Kink {
 // Text is the closed form, Factor*abs(ℓ)^3 (a step's Factor*max(ℓ, 0)^2).
 func (k Kink) Text() string {
 	if k.Step {
-		return k.factorText() + "*max(" + unwrapped(k.Abs.Args()[0].Text()) + ", 0)^2"
+		return k.timesText() + "max(" + unwrapped(k.Abs.Args()[0].Text()) + ", 0)^2"
 	}
 	return k.factorText() + "*" + k.Abs.Text() + "^3"
 }
@@ -83,7 +83,15 @@ func unwrapped(s string) string {
 // LaTeX is the closed form in LaTeX.
 func (k Kink) LaTeX() string {
 	if k.Step {
-		return series.Const(k.Factor).LaTeX() + ` \max\left(` + k.Abs.Args()[0].LaTeX() + `, 0\right)^{2}`
+		f := series.Const(k.Factor).LaTeX() + ` `
+		if k.Factor.Equal(series.IntCoef(1)) {
+			f = ""
+		}
+		arg := k.Abs.Args()[0].LaTeX()
+		if in, ok := strings.CutPrefix(arg, `\left(`); ok && strings.HasSuffix(in, `\right)`) && !strings.Contains(in, `\left(`) {
+			arg = strings.TrimSuffix(in, `\right)`)
+		}
+		return f + `\max\left(` + arg + `, 0\right)^{2}`
 	}
 	return series.Const(k.Factor).LaTeX() + ` ` + k.Abs.LaTeX() + `^{3}`
 }
@@ -111,6 +119,14 @@ func (k Kink) SourceText() string {
 }
 
 func (k Kink) factorText() string { return "(" + series.Const(k.Factor).Text() + ")" }
+
+// timesText is the factor and "*", or nothing for a factor of 1.
+func (k Kink) timesText() string {
+	if k.Factor.Equal(series.IntCoef(1)) {
+		return ""
+	}
+	return k.factorText() + "*"
+}
 
 func (k Kink) form(x, y float64) float64 { return k.A*x + k.B*y + k.D }
 

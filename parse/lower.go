@@ -149,7 +149,10 @@ func stepSource(inSource bool, ops []string, sides []series.Field, a, b series.F
 	if p, err := cart.FromPolar(l.Exact); err != nil || p.Degree() != 1 {
 		return series.Field{}, false
 	}
-	step := series.Kept("step", l).Mul(a.Add(b.Neg()))
+	step, jump := series.Kept("step", l), a.Add(b.Neg())
+	if c, _ := jump.Exact.Const(); !c.Equal(series.IntCoef(1)) {
+		step = step.Mul(jump)
+	}
 	return b.Add(step), true
 }
 
