@@ -55,29 +55,9 @@ func (k Kink) Shifted(dx, dy float64) Kink {
 // Text is the closed form, Factor*abs(ℓ)^3 (a step's Factor*max(ℓ, 0)^2).
 func (k Kink) Text() string {
 	if k.Step {
-		return k.timesText() + "max(" + unwrapped(k.Abs.Args()[0].Text()) + ", 0)^2"
+		return k.timesText() + "max(" + series.TrimParens(k.Abs.Args()[0].Text()) + ", 0)^2"
 	}
 	return k.factorText() + "*" + k.Abs.Text() + "^3"
-}
-
-// unwrapped is s without one pair of brackets around the whole of it.
-func unwrapped(s string) string {
-	if !strings.HasPrefix(s, "(") || !strings.HasSuffix(s, ")") {
-		return s
-	}
-	depth := 0
-	for i, c := range s {
-		switch c {
-		case '(':
-			depth++
-		case ')':
-			depth--
-			if depth == 0 && i < len(s)-1 {
-				return s // the first bracket closes before the end
-			}
-		}
-	}
-	return s[1 : len(s)-1]
 }
 
 // LaTeX is the closed form in LaTeX.

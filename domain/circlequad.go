@@ -215,14 +215,18 @@ func kinkedQuadrature(p *posed, a, R, x0, y0 float64) (*ansatz.Quadrature, error
 	return q, nil
 }
 
-// kinkPhrase says which closed forms the source's kinks and steps took,
-// up to their smoothness (the caller closes the bracket or goes on in it).
-func kinkPhrase(kinks []ansatz.Kink) string {
-	var abs, step bool
+// kinkKinds reports kinks c·abs(ℓ) and steps c·step(ℓ) among kinks.
+func kinkKinds(kinks []ansatz.Kink) (abs, step bool) {
 	for _, k := range kinks {
 		abs, step = abs || !k.Step, step || k.Step
 	}
-	switch {
+	return abs, step
+}
+
+// kinkPhrase says which closed forms the source's kinks and steps took,
+// up to their smoothness (the caller closes the bracket or goes on in it).
+func kinkPhrase(kinks []ansatz.Kink) string {
+	switch abs, step := kinkKinds(kinks); {
 	case abs && step:
 		return "the source's kinks c*abs(l) and steps c*step(l), l linear in x and y, take the closed particular solutions c*abs(l)^3/(6*|grad l|^2) and c*max(l, 0)^2/(2*|grad l|^2) (twice and once continuously differentiable"
 	case step:

@@ -658,11 +658,7 @@ func quadratureMean(sol *Solution, c circle, env series.Env) series.Coef {
 
 // KinkCheckName is the check of the kinks' and steps' closed forms.
 func KinkCheckName(kinks []ansatz.Kink) string {
-	var abs, step bool
-	for _, k := range kinks {
-		abs, step = abs || !k.Step, step || k.Step
-	}
-	switch {
+	switch abs, step := kinkKinds(kinks); {
 	case abs && step:
 		return "lap(c*abs(l)^3/(6*|grad l|^2) + c*max(l, 0)^2/(2*|grad l|^2)) - c*abs(l) - c*step(l)"
 	case step:

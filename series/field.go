@@ -409,9 +409,9 @@ func (e *Expr) Text() string {
 		for _, run := range runs(e.ser.skip) {
 			s += ", " + Index + " != " + run
 		}
-		return s + ", " + trimParens(e.args[0].Text()) + ")"
+		return s + ", " + TrimParens(e.args[0].Text()) + ")"
 	case "choose":
-		return "(" + e.condition(false) + " ? " + trimParens(e.args[0].Text()) + " : " + trimParens(e.args[1].Text()) + ")"
+		return "(" + e.condition(false) + " ? " + TrimParens(e.args[0].Text()) + " : " + TrimParens(e.args[1].Text()) + ")"
 	case "sum":
 		if e.sum.Len() > 1 {
 			return "(" + e.sum.Text() + ")"
@@ -428,9 +428,9 @@ func (e *Expr) Text() string {
 		}
 		return operand(e.args[0], true, false) + e.op + operand(e.args[1], false, e.op == "/")
 	case "^":
-		return operand(e.args[0], false, true) + "^(" + trimParens(e.args[1].Text()) + ")"
+		return operand(e.args[0], false, true) + "^(" + TrimParens(e.args[1].Text()) + ")"
 	}
-	return e.op + "(" + trimParens(e.args[0].Text()) + ")"
+	return e.op + "(" + TrimParens(e.args[0].Text()) + ")"
 }
 
 // latexFunctions are the LaTeX forms of the functions of a remainder: the
@@ -496,7 +496,7 @@ func (e *Expr) condition(latex bool) string {
 		if latex {
 			return a.bareLaTeX()
 		}
-		return trimParens(a.Text())
+		return TrimParens(a.Text())
 	}
 	out := side(e.args[2])
 	for i, op := range e.cmp {
@@ -560,9 +560,9 @@ func shapeOf(t string) (sum, product bool) {
 	return sum, product
 }
 
-// trimParens drops one pair of parentheses around the whole of s (not a
+// TrimParens drops one pair of parentheses around the whole of s (not a
 // first and a last that belong to different pairs, as in (a)*f(b)).
-func trimParens(s string) string {
+func TrimParens(s string) string {
 	if len(s) < 2 || s[0] != '(' || s[len(s)-1] != ')' {
 		return s
 	}
