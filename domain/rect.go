@@ -225,8 +225,10 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 	// so it goes there only where that extension is safe: an entire source
 	// (a Gaussian bump), or kinks c·|ℓ|, which take the closed c·|ℓ|³/(6|∇ℓ|²)
 	// there (a 2 × 1 rectangle with Δu = |x − 0.5| erred 3.4e-9 here).
-	// 1/(1 + x + y) has its pole inside that disk: the fit spent 21 s and
-	// failed. Should the fit fail, the rectangle's own road serves.
+	// 1/(x + 0.1) beside the unit square has its pole inside that disk
+	// (the fit spent 8.7 s and failed; about the origin, as the disk was,
+	// 1/(1 + x + y) did too, in 21 s). Should the fit fail, the
+	// rectangle's own road serves.
 	if rest != nil && routable {
 		kinks, left := ansatz.SplitKinks(rest, p.env)
 		if len(kinks) > 0 && left == nil || rest.Entire(polynomialInXY) {
@@ -396,10 +398,9 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 	}
 	if note, short := rectShortfall(d, sol, p, dataScale); short {
 		// The fit meets the target where the side series stop short
-		// (rectsection.go), but not with a source part for quadrature: the
-		// section's quadrature extends the source to a disk around the
-		// region, where 1/(1 + x + y) has its pole (the fit then spent 21 s
-		// and failed).
+		// (rectsection.go), but not with a source part for quadrature that
+		// is not entire (above): its extension to the disk around the
+		// region may meet a pole there.
 		// Data that jump at a corner defeat the fit too (it has no poles
 		// for a jump): it failed after 0.7 s on such a rectangle.
 		if routable && sq == nil && len(sol.CornerJumps) == 0 {
