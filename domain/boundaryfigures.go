@@ -28,7 +28,7 @@ func pointValue(ev *Evaluator) func(x, y float64) float64 {
 		if th < 0 {
 			th += 2 * math.Pi
 		}
-		return ev.value(math.Hypot(x, y), th)
+		return ev.Value(math.Hypot(x, y), th)
 	}
 }
 

@@ -333,14 +333,12 @@ func (e *Evaluator) quadPolar(r, theta float64) (float64, float64) {
 	return e.quad.Local(r*math.Cos(theta), r*math.Sin(theta))
 }
 
-// Value is u at (r, θ) with no estimate, for pictures.
-func (e *Evaluator) Value(r, theta float64) float64 { return e.value(r, theta) }
-
-// value is u at (r, θ) with no estimate: the quadrature's part from its
+// Value is u at (r, θ) with no estimate: the quadrature's part from its
 // halved mesh alone (Quadrature.Value, the same value as At's). The
-// figures' scans take thousands of points, each at a radius of its own,
-// and need no estimate each: the first mesh's sums doubled their cost.
-func (e *Evaluator) value(r, theta float64) float64 {
+// figures' scans and the pictures take thousands of points, each at a
+// radius of its own, and need no estimate each: the first mesh's sums
+// doubled their cost.
+func (e *Evaluator) Value(r, theta float64) float64 {
 	if e.quad == nil {
 		v, _, _ := e.At(r, theta)
 		return v
