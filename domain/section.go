@@ -643,8 +643,8 @@ func newSideInterpolant(q *ansatz.Quadrature, path SidePath, tol float64) *sideI
 	}
 	// The points of the second kind at n and the midpoints that check them
 	// are together the points at 2n (the even and the odd ones): each
-	// doubling reuses every value it has, and the source is evaluated once
-	// a point (it was three times, 40% of a Gaussian bump's solve).
+	// doubling reuses every value it has, and each point is evaluated once
+	// (to three doublings it took 451 evaluations where 257 serve).
 	const first = 32
 	points := func(n int, odd bool) []float64 {
 		var us []float64
