@@ -78,7 +78,17 @@ type corner struct {
 	// maxDist caps the poles' distance (0: none): half way to where the
 	// exterior bisector meets a side again.
 	maxDist float64
+	// logTop is the largest whole exponent β that takes ζ^β·log ζ
+	// (cornerPowers); 0: none.
+	logTop float64
+	// helper: of families {0, ½}, ½ only helps the poles (a re-entrant
+	// corner with the same kind of condition on both sides): its
+	// exponents are no singular functions here, and take no logarithm.
+	helper bool
 }
+
+// logTopAll is a corner's logTop where its sides' data set no bound.
+const logTopAll = 24
 
 // poleScale is the poles' largest distance: the section's size, or less
 // where the bisector meets a side.
@@ -105,6 +115,8 @@ type cornerPower struct {
 	// run through the hole into the region).
 	pivot    complex128
 	hasPivot bool
+	// log: the term is ζ^β·log ζ, β a whole number.
+	log bool
 }
 
 // zeta is ζ at z and dζ/dz.
@@ -116,19 +128,27 @@ func (c cornerPower) zeta(z complex128) (complex128, complex128) {
 	return (z - c.w) * c.rot, c.rot
 }
 
-// cornerPowers are a corner's exponents (k − offset)/α, k = 1..K, for its
-// families' offsets, the non-integer ones: the separated solutions of
-// Laplace's equation in a wedge of angle απ with Dirichlet or Neumann sides
-// (offset 0), and with one of each (offset ½) (common practice; e.g.
-// Grisvard, Elliptic Problems in Nonsmooth Domains). Integer powers are the
-// polynomial's; exponents stop at 24.
+// cornerPowers are a corner's exponents β = (k − offset)/α, k = 1..K, for
+// its families' offsets: the separated solutions of Laplace's equation in a
+// wedge of angle απ with Dirichlet or Neumann sides (offset 0), and with one
+// of each (offset ½) (common practice; e.g. Grisvard, Elliptic Problems in
+// Nonsmooth Domains). A whole β is the polynomial's as a power, but where
+// the data's Taylor term of that degree resonates with it the expansion
+// takes ζ^β·log ζ, which poles fit only slowly (a right angle with u = 0
+// and Δu = −2 takes (2/π)·Re(i·z²·log z)): those up to the corner's logTop
+// join as such. Exponents stop at 24.
 func cornerPowers(c corner, K int) []cornerPower {
 	var out []cornerPower
 	rot := 1 / -c.dir / complex(c.reach, 0) // the exterior bisector onto −1, the farthest vertex to |ζ| = 1
 	for k := 1; k <= K; k++ {
 		for _, off := range c.families {
-			if beta := (float64(k) - off) / c.angle; math.Abs(beta-math.Round(beta)) > 1e-9 && beta <= 24 {
-				out = append(out, cornerPower{w: c.w, rot: rot, beta: beta, k: k, off: off, alpha: c.angle, pivot: c.pivot, hasPivot: c.hasPivot})
+			beta := (float64(k) - off) / c.angle
+			whole := math.Abs(beta-math.Round(beta)) <= 1e-9
+			if whole {
+				beta = math.Round(beta)
+			}
+			if beta <= 24 && (!whole || beta <= c.logTop && !(c.helper && off != 0)) {
+				out = append(out, cornerPower{w: c.w, rot: rot, beta: beta, k: k, off: off, alpha: c.angle, pivot: c.pivot, hasPivot: c.hasPivot, log: whole})
 			}
 		}
 	}
@@ -438,9 +458,9 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	// basis is expanded into every image of each term (symmetry.go), each
 	// image adding its share to its representative's pair.
 	nPole, nPower, nLaurent := len(h.poles), len(h.powers), len(h.laurent)
-	pivoted := make([]bool, nPower) // a hole corner's powers, by representative (their ridge below)
+	pivoted := make([]bool, nPower) // a hole corner's powers and every log power, by representative (their ridge below)
 	for e, c := range h.powers {
-		pivoted[e] = c.hasPivot
+		pivoted[e] = c.hasPivot || c.log
 	}
 	poleImg, powerImg, laurentImg := identityImages(nPole), identityImages(nPower), identityImages(nLaurent)
 	if geo.sym != nil {
@@ -625,6 +645,9 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	// (the square hole 6.5e-13, a triangular hole 3.7e-13 against 5e-13) and
 	// the tube needs fewer fits; lowered everywhere, an L shape's re-entrant
 	// corner stalled at 1e-10. Anything from 1e-16 to 0 gave the same fits.
+	// A corner's ζ^β·log ζ likewise: at 1e-13 the L-shaped hole's fit
+	// stalled near 3e-9 of its 12.5 (with fused multiply-add, or without:
+	// the path was rounding's), and with 1e-16 reached 2e-12 either way.
 	const pivotRidge = 1e-16
 	// The live columns scaled, moved left in place (c ≤ j), and the ridge
 	// rows under them: the least-squares matrix is A's top-left corner.

@@ -68,8 +68,13 @@ func U(x, y float64) float64 {
 		if sr == 0 && si == 0 {
 			continue
 		}
-		mag, arg := math.Exp(psolBeta[m]*math.Log(math.Hypot(sr, si))), psolBeta[m]*math.Atan2(si, sr)
-		u += mag * (psolERe[m]*math.Cos(arg) - psolEIm[m]*math.Sin(arg))
+		lr, at := math.Log(math.Hypot(sr, si)), math.Atan2(si, sr)
+		mag, arg := math.Exp(psolBeta[m]*lr), psolBeta[m]*at
+		pr, pi := mag*math.Cos(arg), mag*math.Sin(arg)
+		if psolPLog[m] != 0 { // ζ^β·log ζ
+			pr, pi = pr*lr-pi*at, pi*lr+pr*at
+		}
+		u += psolERe[m]*pr - psolEIm[m]*pi
 	}
 	for j := range psolLogK {
 		dx, dy := x-psolLogRe[j], y-psolLogIm[j]
@@ -230,8 +235,15 @@ double u(double x, double y) {
 		double sr = dx*psolRotRe[m] - dy*psolRotIm[m], si = dx*psolRotIm[m] + dy*psolRotRe[m];
 		if (psolPiv[m] != 0) psolDiv(dx, dy, x - psolPivRe[m], y - psolPivIm[m], &sr, &si); /* a hole's corner */
 		if (sr == 0 && si == 0) continue;
-		double mag = exp(psolBeta[m]*log(hypot(sr, si))), arg = psolBeta[m]*atan2(si, sr);
-		u += mag*(psolERe[m]*cos(arg) - psolEIm[m]*sin(arg));
+		double lr = log(hypot(sr, si)), at = atan2(si, sr);
+		double mag = exp(psolBeta[m]*lr), arg = psolBeta[m]*at;
+		double pr = mag*cos(arg), pi = mag*sin(arg);
+		if (psolPLog[m] != 0) { /* zeta^beta*log(zeta) */
+			double t = pr*lr - pi*at;
+			pi = pi*lr + pr*at;
+			pr = t;
+		}
+		u += psolERe[m]*pr - psolEIm[m]*pi;
 	}
 	for (int j = 0; j < psolLogs; j++) {
 		double dx = x - psolLogRe[j], dy = y - psolLogIm[j];
@@ -297,8 +309,12 @@ def u(x, y):
             sr, si = _psol_div(dx, dy, x - PSOL_PIVRE[m], y - PSOL_PIVIM[m])
         if sr == 0 and si == 0:
             continue
-        mag, arg = math.exp(PSOL_BETA[m]*math.log(math.hypot(sr, si))), PSOL_BETA[m]*math.atan2(si, sr)
-        u += mag*(PSOL_ERE[m]*math.cos(arg) - PSOL_EIM[m]*math.sin(arg))
+        lr, at = math.log(math.hypot(sr, si)), math.atan2(si, sr)
+        mag, arg = math.exp(PSOL_BETA[m]*lr), PSOL_BETA[m]*at
+        pr, pi = mag*math.cos(arg), mag*math.sin(arg)
+        if PSOL_PLOG[m] != 0:  # zeta^beta*log(zeta)
+            pr, pi = pr*lr - pi*at, pi*lr + pr*at
+        u += PSOL_ERE[m]*pr - PSOL_EIM[m]*pi
     for j in range(len(PSOL_LOGK)):
         dx, dy = x - PSOL_LOGRE[j], y - PSOL_LOGIM[j]
         u += PSOL_LOGK[j]*0.5*math.log(dx*dx + dy*dy)
@@ -432,6 +448,13 @@ func writeSectionCode(w io.Writer, l series.Lang, pr *problem, sol *domain.Solut
 		}
 	}
 	b.WriteString(shape.array("Piv", piv))
+	plog := make([]float64, len(f.PowerLog))
+	for m, l := range f.PowerLog {
+		if l {
+			plog[m] = 1
+		}
+	}
+	b.WriteString(shape.array("PLog", plog))
 	table("Log", f.LogAt)
 	b.WriteString(shape.array("LogK", f.LogK))
 	var kind, s1, s2 []float64
