@@ -61,6 +61,13 @@ func SectionFitRowsByCurve(d Domain, n, degree int) (outline, holes int, err err
 	if err != nil {
 		return 0, 0, err
 	}
+	// The rows the hole's corner images add on the walls are the images'
+	// own (cornerimages.go), not the curve's share.
+	images := 0
+	for _, im := range g.images {
+		images += len(im.imageRows(imageFitRows, 0.5))
+	}
+	outline -= images
 	for _, p := range fit {
 		if strings.HasPrefix(g.shape.Sides[p.side].Name, "hole") {
 			holes++

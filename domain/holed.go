@@ -421,6 +421,7 @@ func (h Holed) geometry(env series.Env) (sectionGeometry, error) {
 	if err != nil {
 		return g, err
 	}
+	mirrors := straightSides(g.shape.Sides) // the outline's, before the holes' join
 	for _, c := range hs {
 		first := len(g.corners)
 		g.corners = append(g.corners, c.corners...)
@@ -454,6 +455,7 @@ func (h Holed) geometry(env series.Env) (sectionGeometry, error) {
 		}
 		g.holes = append(g.holes, hb)
 	}
+	g.images = cornerImages(g.corners, mirrors)
 	if disk, ok := h.Outer.(Disk); ok && len(hs) == 1 && hs[0].circle {
 		// Two circles: the solution's singularities (images of images)
 		// gather at the limiting points of the pair, the points inverse in

@@ -453,6 +453,12 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 		}
 		h.poles = append(h.poles, lightningPoles(c, c.poleScale(scale), n[k])...)
 		h.powers = append(h.powers, cornerPowers(c, powers)...)
+		for _, im := range geo.images { // the corner's images in the walls beside it (cornerimages.go)
+			if im.corner == k {
+				ps, pw := im.imageTerms(c, scale, n[k], powers)
+				h.poles, h.powers = append(h.poles, ps...), append(h.powers, pw...)
+			}
+		}
 	}
 	// With a symmetry the columns are the representatives' pairs, and the
 	// basis is expanded into every image of each term (symmetry.go), each

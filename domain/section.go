@@ -43,6 +43,9 @@ type sectionGeometry struct {
 	breaks []sideBreak
 	// sym is the problem's symmetry, where it has one (symmetry.go).
 	sym *symmetry
+	// images are the holes' corners mirrored in the outline's straight
+	// sides near them (cornerimages.go).
+	images []cornerImage
 	// shift goes with sym: the particular solution's asymmetric share (particularShift).
 	shift func(z complex128) (float64, complex128)
 }
@@ -974,6 +977,14 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 					}
 				}
 			}
+		}
+	}
+	for _, im := range g.images { // each image's wall, by its harmonic measure
+		for _, t := range im.imageRows(imageFitRows, 0.5) {
+			add(&fit, im.mirror.side, t)
+		}
+		for _, t := range im.imageRows(3*imageFitRows, 0.25) {
+			add(&check, im.mirror.side, t)
 		}
 	}
 	if g.sym != nil { // the chamber's share: the rest are its images
