@@ -791,8 +791,17 @@ func (q *Quadrature) refine(mesh []panel, scale float64) []panel {
 // halve is the mesh with every panel split in two (an infinite one at t = ½).
 func (q *Quadrature) halve(mesh []panel) []panel {
 	var out []panel
+	// The halved rings need only the modes kept (Modes, the last above
+	// rounding's reach on any ring of the first mesh): fewer samples than
+	// the first mesh's, which doubled until its top band fell below Tol,
+	// serve them, the modes beyond aliasing onto them at rounding's level.
+	// A quarter more than Modes is the margin for the rings between.
+	need := q.Modes + 1 + q.Modes/4
 	for _, p := range mesh {
-		n := 2 * len(p.a[0])       // the first mesh's samples
+		n := 2 * len(p.a[0]) // the first mesh's samples
+		for n > 16 && n/4 >= need {
+			n /= 2
+		}
 		top := min(n/2, q.Modes+1) // the modes sums and eval read
 		if p.infinite {
 			out = append(out, q.sampledPanelTop(p.lo, 2*p.lo, false, n, top), q.sampledPanelTop(2*p.lo, math.Inf(1), true, n, top))
