@@ -7,40 +7,51 @@ import (
 
 // A hole near a straight wall: the harmonic part continues across the wall
 // (Schwarz's reflection: the wall's data are analytic), and the continuation
-// is singular at the mirror images of the hole's corners, as far outside the
-// wall as the corners are inside it. The polynomial and the hole's Laurent
-// terms converge no faster than that distance allows against the section's
-// size, and the outline's corner poles are the nearest other singular terms:
-// a 30 × 30 hole 10 from two walls of a 100 × 60 section took nine fits,
-// a polynomial of degree 142 and 65 poles at four corners (7 s). Each
-// image takes the corner's singular powers and a few of its poles, mirrored
-// (the method of images, common practice; e.g. Jackson, Classical
-// Electrodynamics, on images in a plane), and the wall takes rows spread by
-// the image's harmonic measure (a Cauchy distribution about its foot, of
-// the image's distance), so that the image's columns are determined where
-// they act.
+// is singular at the mirror images of the hole's singularities, as far
+// outside the wall as they are inside it. The polynomial and the hole's
+// Laurent terms converge no faster than that distance allows against the
+// section's size, and the outline's corner poles are the nearest other
+// singular terms: a 30 × 30 hole 10 from two walls of a 100 × 60 section
+// took nine fits, a polynomial of degree 142 and 65 poles at four corners
+// (15 s); a circle of radius 1 a quarter radius above a wall, degree 181.
+// So the basis takes images (the method of images, common practice; e.g.
+// Jackson, Classical Electrodynamics, on images in a plane): a polygonal
+// hole's corner near a wall its singular powers and a few of its poles,
+// mirrored; a smooth hole (a circle, an ellipse) its Laurent terms,
+// mirrored. The wall takes rows spread by the image's harmonic measure, a
+// Cauchy distribution about its foot of the image's distance, two a column,
+// so that the image's columns are determined where they act: the mirrored
+// poles alone, with the wall's rows as they were, overfit between them (a
+// residual of 1e-4 on the check rows where the fit's read 3e-8).
 
-// imageReach: a corner is mirrored in a wall nearer than this many times
-// its reach (its distance to its hole's farthest vertex).
+// imageReach: a hole's corner is mirrored in a wall nearer than this many
+// times its reach (its distance to its hole's farthest vertex). Half is a
+// compromise: a whole reach mirrored in farther walls too and slowed a thin
+// tube; a third left a hole 5 from two walls at its 37 s.
 const imageReach = 0.5
 
-// imagePoles caps the poles an image takes: it lies a corner's distance
-// outside the wall, where a few resolve it.
+// holeImageReach: a smooth hole is mirrored in a wall its boundary comes
+// nearer than this many times its size (its largest distance from its
+// centre). Half missed a circle 8 from a wall at radius 12 (0.9 s against
+// 0.2 s).
+const holeImageReach = 1.0
+
+// imagePoles caps the poles a corner's image takes: it lies a corner's
+// distance outside the wall, where a few resolve it.
 const imagePoles = 8
+
+// imageFitRows is the fit's rows for a corner's image: two a column of
+// its, its poles and powers each a pair.
+const imageFitRows = 2 * 2 * (imagePoles + 2*maxCornerPowers)
+
+// holeImageTerms is how many of a hole's Laurent terms its image takes.
+func holeImageTerms(degree int) int { return degree / 2 }
 
 // mirrorLine is a straight side of the outline: from a to b, its outward
 // normal nu, its index among the sides.
 type mirrorLine struct {
 	a, b, nu complex128
 	side     int
-}
-
-// cornerImage is corner's image in mirror: where on the side its foot is
-// (t0 in [0, 1]) and how far outside it lies.
-type cornerImage struct {
-	corner int
-	mirror mirrorLine
-	t0, d  float64
 }
 
 // straightSides are the straight sides among sides.
@@ -59,6 +70,48 @@ func straightSides(sides []SidePath) []mirrorLine {
 	return out
 }
 
+// isometry is the reflection in the mirror's line: z ↦ a + u²·conj(z − a),
+// u the line's unit direction.
+func (m mirrorLine) isometry() isometry {
+	u := (m.b - m.a) / complex(abs(m.b-m.a), 0)
+	return isometry{rot: u * u, shift: m.a - u*u*cmplx.Conj(m.a), flip: true}
+}
+
+// foot is where the perpendicular from z meets the mirror's line, as the
+// parameter t along a → b, and z's distance from the line.
+func (m mirrorLine) foot(z complex128) (t, d float64) {
+	along := (z - m.a) / (m.b - m.a)
+	return real(along), math.Abs(imag(along)) * abs(m.b-m.a)
+}
+
+// wallImage is an image in a wall: the wall, its foot there (t0 in (0, 1))
+// and the scale of the rows it takes about the foot.
+type wallImage struct {
+	mirror mirrorLine
+	t0     float64
+	scale  float64
+}
+
+// rows are m parameters on the wall spread by the image's harmonic measure:
+// t0 + (scale/L)·tan(π(u − ½)) at u = (i + off)/m, those inside (0, 1).
+func (im wallImage) rows(m int, off float64) []float64 {
+	L := abs(im.mirror.b - im.mirror.a)
+	var out []float64
+	for i := 0; i < m; i++ {
+		t := im.t0 + im.scale/L*math.Tan(math.Pi*((float64(i)+off)/float64(m)-0.5))
+		if t > 0 && t < 1 {
+			out = append(out, t)
+		}
+	}
+	return out
+}
+
+// cornerImage is a hole corner's image in a wall.
+type cornerImage struct {
+	wallImage
+	corner int
+}
+
 // cornerImages are the holes' corners (those with a pivot) mirrored in each
 // wall whose segment lies beside them, nearer than imageReach times their
 // reach.
@@ -69,25 +122,12 @@ func cornerImages(corners []corner, mirrors []mirrorLine) []cornerImage {
 			continue
 		}
 		for _, m := range mirrors {
-			along := (c.w - m.a) / (m.b - m.a)
-			t0, d := real(along), imag(along)*abs(m.b-m.a)
-			if d < 0 { // the region lies to the left of a side run with the region on its left
-				d = -d
+			if t0, d := m.foot(c.w); t0 > 0 && t0 < 1 && d < imageReach*c.reach {
+				out = append(out, cornerImage{wallImage{m, t0, d}, k})
 			}
-			if t0 <= 0 || t0 >= 1 || d >= imageReach*c.reach {
-				continue
-			}
-			out = append(out, cornerImage{corner: k, mirror: m, t0: t0, d: d})
 		}
 	}
 	return out
-}
-
-// isometry is the reflection in the mirror's line: z ↦ a + u²·conj(z − a),
-// u the line's unit direction.
-func (m mirrorLine) isometry() isometry {
-	u := (m.b - m.a) / complex(abs(m.b-m.a), 0)
-	return isometry{rot: u * u, shift: m.a - u*u*cmplx.Conj(m.a), flip: true}
 }
 
 // imageTerms are the image's poles (of the corner's n, at most imagePoles)
@@ -106,19 +146,38 @@ func (im cornerImage) imageTerms(c corner, scale float64, n, K int) ([]complex12
 	return poles, powers
 }
 
-// imageFitRows is the fit's rows for an image: two a column of its, its
-// poles and powers each a pair.
-const imageFitRows = 2 * 2 * (imagePoles + 2*maxCornerPowers)
+// holeImageSpec is a smooth hole's image in a wall.
+type holeImageSpec struct {
+	wallImage
+	hole int
+}
 
-// imageRows are m parameters on the image's side spread by its harmonic
-// measure: t0 + (d/L)·tan(π(u − ½)) at u = (i + off)/m, those inside (0, 1).
-func (im cornerImage) imageRows(m int, off float64) []float64 {
-	L := abs(im.mirror.b - im.mirror.a)
-	var out []float64
-	for i := 0; i < m; i++ {
-		t := im.t0 + im.d/L*math.Tan(math.Pi*((float64(i)+off)/float64(m)-0.5))
-		if t > 0 && t < 1 {
-			out = append(out, t)
+// smoothHoleImages are smooth hole k's images in the walls its boundary
+// (sides) comes nearer than holeImageReach times its size; their rows
+// spread by the distance half way from the nearest point to the centre.
+func smoothHoleImages(k int, sides []SidePath, hb holeBasis, mirrors []mirrorLine) []holeImageSpec {
+	var boundary []complex128
+	size := 0.0
+	for _, side := range sides {
+		for j := 0; j < 64; j++ {
+			x, y, _, _ := side.At(float64(j) / 64)
+			boundary = append(boundary, complex(x, y))
+			size = math.Max(size, abs(complex(x, y)-hb.c))
+		}
+	}
+	var out []holeImageSpec
+	for _, m := range mirrors {
+		t0, d := m.foot(hb.c)
+		if t0 <= 0 || t0 >= 1 {
+			continue
+		}
+		gap := math.Inf(1)
+		for _, z := range boundary {
+			_, dz := m.foot(z)
+			gap = math.Min(gap, dz)
+		}
+		if gap < holeImageReach*size {
+			out = append(out, holeImageSpec{wallImage{m, t0, gap + (d-gap)/2}, k})
 		}
 	}
 	return out

@@ -1,10 +1,13 @@
 package domain_test
 
 import (
+	"fmt"
 	"math"
+	"strings"
 	"testing"
 
 	"psol/domain"
+	"psol/series"
 )
 
 // fdHoledTorsion is the torsion constant 2∫u of Δu = −2 on [0, L] × [0, H]
@@ -85,4 +88,45 @@ func solve3(A [][]float64, b []float64) float64 {
 	}
 	col := [][]float64{{b[0], A[0][1], A[0][2]}, {b[1], A[1][1], A[1][2]}, {b[2], A[2][1], A[2][2]}}
 	return det(col) / det(A)
+}
+
+// A cylinder of radius a at unit potential above a grounded plane, its
+// centre h above it (h/a = 1.25: a gap of a quarter radius), in a box whose
+// other walls carry the exact potential: u = ln(|z − is|/|z + is|)/ln k,
+// s = √(h² − a²), k = (h − s)/a, and the charge per unit length on the
+// cylinder, the hole's flux, 2π/arccosh(h/a) (bipolar coordinates; Smythe,
+// Static and Dynamic Electricity; Jackson, Classical Electrodynamics, the
+// image line charges). The hole's Laurent terms mirrored in the plane join
+// the basis: a polynomial of degree 37 where without them it took 181 and
+// 65 poles at each corner.
+func TestCylinderAboveWall(t *testing.T) {
+	h, a := 1.25, 1.0
+	s := math.Sqrt(h*h - a*a)
+	k := (h - s) / a
+	d := domain.Holed{Outer: polygonXY(-3, 0, 3, 0, 3, 4, -3, 4), Holes: []domain.CircleHole{{X: series.Coef{}, Y: decimalCoef(h), R: decimalCoef(a)}}}
+	exact := fmt.Sprintf("u = ln((x^2 + (y - %.17g)^2)/(x^2 + (y + %.17g)^2))/%.17g", s, s, 2*math.Log(k))
+	sol := solveWith(t, "lap(u) = 0", d, domain.Options{Tol: 1e-12}, "s1: u = 0", "s2: "+exact, "s3: "+exact, "s4: "+exact, "hole1: u = 1")
+	ev := evaluator(t, sol, 1e-12)
+	for _, p := range [][2]float64{{0, 0.1}, {0.5, 0.2}, {2, 3}, {-1.2, 1.3}} {
+		got, _, _ := ev.AtXY(p[0], p[1])
+		if want := math.Log(math.Hypot(p[0], p[1]-s)/math.Hypot(p[0], p[1]+s)) / math.Log(k); math.Abs(got-want) > 1e-12 {
+			t.Errorf("u%v = %.15f, bipolar closed form %.15f", p, got, want)
+		}
+	}
+	rep, err := sol.Report(nil, 1e-12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	hole := 0.0
+	for _, sf := range rep.Sides {
+		if strings.HasPrefix(sf.Side, "hole1") {
+			hole += sf.Value
+		}
+	}
+	if want := 2 * math.Pi / math.Acosh(h/a); math.Abs(hole-want) > 1e-10*want {
+		t.Errorf("flux through the cylinder %.13g, 2π/arccosh(h/a) = %.13g", hole, want)
+	}
+	if deg := sol.Section.Degree; deg > 50 {
+		t.Errorf("the fit took a polynomial of degree %d: the hole's image should keep it at 50 or less", deg)
+	}
 }

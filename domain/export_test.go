@@ -65,7 +65,7 @@ func SectionFitRowsByCurve(d Domain, n, degree int) (outline, holes int, err err
 	// own (cornerimages.go), not the curve's share.
 	images := 0
 	for _, im := range g.images {
-		images += len(im.imageRows(imageFitRows, 0.5))
+		images += len(im.rows(imageFitRows, 0.5))
 	}
 	outline -= images
 	for _, p := range fit {

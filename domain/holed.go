@@ -456,6 +456,11 @@ func (h Holed) geometry(env series.Env) (sectionGeometry, error) {
 		g.holes = append(g.holes, hb)
 	}
 	g.images = cornerImages(g.corners, mirrors)
+	for k, c := range hs { // a smooth hole near a wall: its Laurent terms' image
+		if len(c.corners) == 0 {
+			g.holeImages = append(g.holeImages, smoothHoleImages(k, c.sides, g.holes[k], mirrors)...)
+		}
+	}
 	if disk, ok := h.Outer.(Disk); ok && len(hs) == 1 && hs[0].circle {
 		// Two circles: the solution's singularities (images of images)
 		// gather at the limiting points of the pair, the points inverse in

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"math/cmplx"
+	"slices"
 
 	"gonum.org/v1/gonum/mat"
 )
@@ -447,6 +448,27 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	}
 	for _, hb := range geo.holes {
 		for j := 1; j <= degree && geo.mobius == nil; j++ { // the Möbius series has them
+			h.laurent = append(h.laurent, laurentTerm{hb, j})
+		}
+	}
+	var imaged []complex128 // the image centres taken, with their images under the symmetry
+	for _, im := range geo.holeImages {
+		if geo.mobius != nil {
+			break
+		}
+		g := im.mirror.isometry()
+		first, _ := holeImage(g, geo.holes[im.hole], 1)
+		if slices.ContainsFunc(imaged, func(c complex128) bool { return abs(c-first.c) <= 1e-9*scale }) {
+			continue // the symmetry's image of one taken: its terms come with that one's
+		}
+		imaged = append(imaged, first.c)
+		if geo.sym != nil {
+			for _, e := range geo.sym.group {
+				imaged = append(imaged, e.inverse().apply(first.c))
+			}
+		}
+		for j := 1; j <= holeImageTerms(degree); j++ {
+			hb, _ := holeImage(g, geo.holes[im.hole], j)
 			h.laurent = append(h.laurent, laurentTerm{hb, j})
 		}
 	}

@@ -46,6 +46,8 @@ type sectionGeometry struct {
 	// images are the holes' corners mirrored in the outline's straight
 	// sides near them (cornerimages.go).
 	images []cornerImage
+	// holeImages are the smooth holes' Laurent terms mirrored likewise.
+	holeImages []holeImageSpec
 	// shift goes with sym: the particular solution's asymmetric share (particularShift).
 	shift func(z complex128) (float64, complex128)
 }
@@ -979,11 +981,20 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 			}
 		}
 	}
-	for _, im := range g.images { // each image's wall, by its harmonic measure
-		for _, t := range im.imageRows(imageFitRows, 0.5) {
+	for _, im := range g.holeImages {
+		m := 2 * 2 * holeImageTerms(degree)
+		for _, t := range im.rows(m, 0.5) {
 			add(&fit, im.mirror.side, t)
 		}
-		for _, t := range im.imageRows(3*imageFitRows, 0.25) {
+		for _, t := range im.rows(3*m, 0.25) {
+			add(&check, im.mirror.side, t)
+		}
+	}
+	for _, im := range g.images { // each image's wall, by its harmonic measure
+		for _, t := range im.rows(imageFitRows, 0.5) {
+			add(&fit, im.mirror.side, t)
+		}
+		for _, t := range im.rows(3*imageFitRows, 0.25) {
 			add(&check, im.mirror.side, t)
 		}
 	}
