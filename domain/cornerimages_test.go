@@ -91,23 +91,24 @@ func solve3(A [][]float64, b []float64) float64 {
 }
 
 // A cylinder of radius a at unit potential above a grounded plane, its
-// centre h above it (h/a = 1.25: a gap of a quarter radius), in a box whose
-// other walls carry the exact potential: u = ln(|z − is|/|z + is|)/ln k,
+// centre h above it (h/a = 1.25: a gap of a quarter radius), in a 20 × 8
+// box whose other walls carry the exact potential: u = ln(|z − is|/|z + is|)/ln k,
 // s = √(h² − a²), k = (h − s)/a, and the charge per unit length on the
 // cylinder, the hole's flux, 2π/arccosh(h/a) (bipolar coordinates; Smythe,
 // Static and Dynamic Electricity; Jackson, Classical Electrodynamics, the
 // image line charges). The hole's Laurent terms mirrored in the plane join
-// the basis: a polynomial of degree 37 where without them it took 181 and
-// 65 poles at each corner.
+// the basis, and the wall the image's rows: without the image the fit was
+// refused after 5 s and 12 refinements (7.6e-9 against 1e-12), without its
+// rows at once.
 func TestCylinderAboveWall(t *testing.T) {
 	h, a := 1.25, 1.0
 	s := math.Sqrt(h*h - a*a)
 	k := (h - s) / a
-	d := domain.Holed{Outer: polygonXY(-3, 0, 3, 0, 3, 4, -3, 4), Holes: []domain.CircleHole{{X: series.Coef{}, Y: decimalCoef(h), R: decimalCoef(a)}}}
+	d := domain.Holed{Outer: polygonXY(-10, 0, 10, 0, 10, 8, -10, 8), Holes: []domain.CircleHole{{X: series.Coef{}, Y: decimalCoef(h), R: decimalCoef(a)}}}
 	exact := fmt.Sprintf("u = ln((x^2 + (y - %.17g)^2)/(x^2 + (y + %.17g)^2))/%.17g", s, s, 2*math.Log(k))
 	sol := solveWith(t, "lap(u) = 0", d, domain.Options{Tol: 1e-12}, "s1: u = 0", "s2: "+exact, "s3: "+exact, "s4: "+exact, "hole1: u = 1")
 	ev := evaluator(t, sol, 1e-12)
-	for _, p := range [][2]float64{{0, 0.1}, {0.5, 0.2}, {2, 3}, {-1.2, 1.3}} {
+	for _, p := range [][2]float64{{0, 0.1}, {0.5, 0.2}, {2, 3}, {-1.2, 1.3}, {8, 6}} {
 		got, _, _ := ev.AtXY(p[0], p[1])
 		if want := math.Log(math.Hypot(p[0], p[1]-s)/math.Hypot(p[0], p[1]+s)) / math.Log(k); math.Abs(got-want) > 1e-12 {
 			t.Errorf("u%v = %.15f, bipolar closed form %.15f", p, got, want)
