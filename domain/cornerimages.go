@@ -31,11 +31,14 @@ import (
 // tube; a third left a hole 5 from two walls at its 37 s.
 const imageReach = 0.5
 
-// holeImageReach: a smooth hole is mirrored in a wall its boundary comes
-// nearer than this many times its size (its largest distance from its
-// centre). Half missed a circle 8 from a wall at radius 12 (0.9 s against
-// 0.2 s).
-const holeImageReach = 1.0
+// holeImageDecay: a smooth hole is mirrored in a wall where its own terms
+// v^j decay slowly there, |v| above this somewhere on the wall. A circle's
+// |v| is ρ/d at the wall's nearest point; a thin ellipse's falls fast past
+// its tips (0.18 at 0.2 beyond the tips of a 10:1 ellipse of half-length
+// 0.3, whose images in the walls there cost a second and gained nothing),
+// while an ellipse 25 × 12 twenty above a wall reads 0.37 and gained
+// 1.5 → 0.4 s.
+const holeImageDecay = 0.3
 
 // imagePoles caps the poles a corner's image takes: it lies a corner's
 // distance outside the wall, where a few resolve it.
@@ -153,17 +156,16 @@ type holeImageSpec struct {
 	hole int
 }
 
-// smoothHoleImages are smooth hole k's images in the walls its boundary
-// (sides) comes nearer than holeImageReach times its size; their rows
-// spread by the distance half way from the nearest point to the centre.
+// smoothHoleImages are smooth hole k's images in the walls where its terms
+// decay slowly (holeImageDecay, on 64 points of the wall); their rows
+// spread by the distance half way from the hole's nearest point (of its
+// sides) to its centre.
 func smoothHoleImages(k int, sides []SidePath, hb holeBasis, mirrors []mirrorLine) []holeImageSpec {
 	var boundary []complex128
-	size := 0.0
 	for _, side := range sides {
 		for j := 0; j < 64; j++ {
 			x, y, _, _ := side.At(float64(j) / 64)
 			boundary = append(boundary, complex(x, y))
-			size = math.Max(size, abs(complex(x, y)-hb.c))
 		}
 	}
 	var out []holeImageSpec
@@ -172,14 +174,20 @@ func smoothHoleImages(k int, sides []SidePath, hb holeBasis, mirrors []mirrorLin
 		if t0 <= 0 || t0 >= 1 {
 			continue
 		}
+		slow := false
+		for j := 0; j <= 64 && !slow; j++ {
+			v, _ := hb.variable(m.a + (m.b-m.a)*complex(float64(j)/64, 0))
+			slow = abs(v) > holeImageDecay
+		}
+		if !slow {
+			continue
+		}
 		gap := math.Inf(1)
 		for _, z := range boundary {
 			_, dz := m.foot(z)
 			gap = math.Min(gap, dz)
 		}
-		if gap < holeImageReach*size {
-			out = append(out, holeImageSpec{wallImage{m, t0, gap + (d-gap)/2}, k})
-		}
+		out = append(out, holeImageSpec{wallImage{m, t0, gap + (d-gap)/2}, k})
 	}
 	return out
 }
