@@ -89,13 +89,12 @@ type corner struct {
 }
 
 // logTopAll is a corner's logTop where its sides' data set no bound (no
-// polynomial, or a Robin side): every whole exponent may then resonate,
-// but the logarithms' coefficients fall with the data's Taylor terms, and
-// past the first few the poles carry them at the fit's accuracy. Up to 24
-// a Gaussian bump on a rectangle took 80 more columns and 67 ms against
-// 42; the cases that gain from logarithms at all (a Robin side: 2 s and
-// short of the target without, 0.05 s with; e^x on an L shape 0.6 → 0.08 s)
-// gained as much with 6 as with 24.
+// polynomial) and the corner is re-entrant, mixed or on a Robin side
+// (markSingularCorners): every whole exponent may then resonate, but the
+// logarithms' coefficients fall with the data's Taylor terms, and past the
+// first few the poles carry them at the fit's accuracy. A Robin rectangle
+// went from 2 s, short of its target, to 0.05 s, e^x on an L shape from
+// 0.6 to 0.16 s, as much with 6 as with 24, which cost more columns.
 const logTopAll = 6
 
 // poleScale is the poles' largest distance: the section's size, or less
