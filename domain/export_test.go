@@ -67,6 +67,9 @@ func SectionFitRowsByCurve(d Domain, n, degree int) (outline, holes int, err err
 	for _, im := range g.images {
 		images += len(im.rows(imageFitRows, 0.5))
 	}
+	for _, im := range g.holeImages {
+		images += len(im.rows(2*2*holeImageTerms(degree), 0.5))
+	}
 	outline -= images
 	for _, p := range fit {
 		if strings.HasPrefix(g.shape.Sides[p.side].Name, "hole") {

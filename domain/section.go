@@ -981,8 +981,9 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 			}
 		}
 	}
-	for _, im := range g.holeImages {
-		m := 2 * 2 * holeImageTerms(degree)
+	// Each image's wall, by its harmonic measure (cornerimages.go): m fit
+	// rows, three times as many to check.
+	wallRows := func(im wallImage, m int) {
 		for _, t := range im.rows(m, 0.5) {
 			add(&fit, im.mirror.side, t)
 		}
@@ -990,13 +991,11 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 			add(&check, im.mirror.side, t)
 		}
 	}
-	for _, im := range g.images { // each image's wall, by its harmonic measure
-		for _, t := range im.rows(imageFitRows, 0.5) {
-			add(&fit, im.mirror.side, t)
-		}
-		for _, t := range im.rows(3*imageFitRows, 0.25) {
-			add(&check, im.mirror.side, t)
-		}
+	for _, im := range g.holeImages {
+		wallRows(im.wallImage, 2*2*holeImageTerms(degree))
+	}
+	for _, im := range g.images {
+		wallRows(im.wallImage, imageFitRows)
 	}
 	if g.sym != nil { // the chamber's share: the rest are its images
 		keep := func(pts []boundaryPoint) []boundaryPoint {
@@ -1496,7 +1495,7 @@ func (h *rationalHarmonic) residualsByCorner(pts []boundaryPoint, corners []corn
 func markSingularCorners(g *sectionGeometry, conds []sideCondition) {
 	for k := range g.corners {
 		c := &g.corners[k]
-		c.families = nil
+		c.families, c.logTop, c.helper = nil, 0, false
 		// The poles stay outside the region: at most half way to where
 		// their ray meets a side (a hole's far side, a non-convex outline).
 		hit := rayHit(g.shape, c.w, c.dir)
@@ -1528,7 +1527,6 @@ func markSingularCorners(g *sectionGeometry, conds []sideCondition) {
 			// bump a third of its time (31 → 42 ms).
 			c.logTop = 0
 		}
-		c.helper = false
 		switch {
 		// A Robin side, or a re-entrant corner (where the other family
 		// helps the poles to fit what its own leave: the L shape converges
