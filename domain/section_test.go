@@ -835,6 +835,24 @@ func BenchmarkThinWalledTube(b *testing.B) {
 	}
 }
 
+// A thin (10:1) elliptical hole off the unit square's mirror lines, u = 0
+// on both: the slowest hollow section left. Its flanks stay the worst
+// residual for ten fits, while the square's corners need few poles (they
+// took 65 each, 11 s, while they grew with the worst corner alone).
+func BenchmarkThinEllipseOffAxis(b *testing.B) {
+	d := domain.Holed{Outer: polygonXY(0, 0, 1, 0, 1, 1, 0, 1), Holes: []domain.CircleHole{{X: decimalCoef(0.45), Y: decimalCoef(0.5), A: decimalCoef(0.3), B: decimalCoef(0.03)}}}
+	f, conds, err := pose("lap(u) = -2", d, append(sidesOf(d, "s", "u = 0"), sidesOf(d, "hole1", "u = 0")...), nil)
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ReportAllocs()
+	for i := 0; i < b.N; i++ {
+		if _, err := domain.SolveWith(d, f, conds, domain.Options{Tol: 1e-12}); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
 // A hole's net-flux condition holds: the fit takes the condition's row from
 // the hole logarithms alone (every other term is single-valued, its flux 0
 // by Cauchy's theorem), and the report's own quadrature of the hole's side
