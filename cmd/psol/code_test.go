@@ -41,6 +41,9 @@ var codeCases = []struct {
 	// the mirror maps): two mirror lines, and one with an elliptical hole.
 	{[]string{"solve", "lap(u) = -1", "--rect", "1,0.6", "--hole", "polygon 0.35,0.15 0.65,0.15 0.65,0.45 0.35,0.45", "--bc", "u = 0", "--tol", "1e-10"}, "", true},
 	{[]string{"solve", "lap(u) = -1 + (x - 0.5)^2", "--rect", "1,0.6", "--hole", "ellipse 0.5,0.3,0.1,0.05", "--bc", "u = 0", "--bc", "top: dn(u) + 2u = 1", "--tol", "1e-10"}, "", true},
+	// Holes near walls: a circle's Laurent terms and a polygon hole's corner
+	// powers and poles, mirrored in the walls (domain/cornerimages.go).
+	{[]string{"solve", "lap(u) = -1", "--rect", "1,0.6", "--hole", "circle 0.2,0.2,0.15", "--hole", "polygon 0.6,0.1 0.9,0.1 0.9,0.3 0.6,0.3", "--bc", "u = 0", "--tol", "1e-10"}, "", true},
 	// A tilted slot, 7:1: its terms are powers of an ellipse's exterior map too.
 	{[]string{"solve", "lap(u) = -1", "--rect", "1,0.6", "--hole", "polygon 0.45,0.2 0.9,0.35 0.88,0.41 0.43,0.26", "--bc", "u = 0", "--tol", "1e-10"}, "", true},
 	// Point sources off the image systems: the logarithm's exact series on
