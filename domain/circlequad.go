@@ -8,6 +8,7 @@ import (
 	"psol/series"
 	"psol/series/cart"
 	"strconv"
+	"strings"
 )
 
 // quadratureParticular adds to each circle's trace that of the numeric
@@ -215,24 +216,49 @@ func kinkedQuadrature(p *posed, a, R, x0, y0 float64) (*ansatz.Quadrature, error
 	return q, nil
 }
 
-// kinkKinds reports kinks c·abs(ℓ) and steps c·step(ℓ) among kinks.
-func kinkKinds(kinks []ansatz.Kink) (abs, step bool) {
+// kinkForms are the closed forms of the two kinds of kink a source can
+// carry, for the notes and checks that name them: c·abs(ℓ) and c·step(ℓ).
+var kinkForms = [2]struct {
+	noun, source, particular, smooth string
+}{
+	{"kinks", "c*abs(l)", "c*abs(l)^3/(6*|grad l|^2)", "twice"},
+	{"steps", "c*step(l)", "c*max(l, 0)^2/(2*|grad l|^2)", "once"},
+}
+
+// kinkKinds are the kinkForms present among kinks, kinks c·abs(ℓ) first
+// (and alone where there are none, as the phrases always had it).
+func kinkKinds(kinks []ansatz.Kink) (forms []int) {
+	has := [2]bool{len(kinks) == 0, false}
 	for _, k := range kinks {
-		abs, step = abs || !k.Step, step || k.Step
+		if k.Step {
+			has[1] = true
+		} else {
+			has[0] = true
+		}
 	}
-	return abs, step
+	for i, h := range has {
+		if h {
+			forms = append(forms, i)
+		}
+	}
+	return forms
 }
 
 // kinkPhrase says which closed forms the source's kinks and steps took,
 // up to their smoothness (the caller closes the bracket or goes on in it).
 func kinkPhrase(kinks []ansatz.Kink) string {
-	switch abs, step := kinkKinds(kinks); {
-	case abs && step:
-		return "the source's kinks c*abs(l) and steps c*step(l), l linear in x and y, take the closed particular solutions c*abs(l)^3/(6*|grad l|^2) and c*max(l, 0)^2/(2*|grad l|^2) (twice and once continuously differentiable"
-	case step:
-		return "the source's steps c*step(l), l linear in x and y, take the closed particular solution c*max(l, 0)^2/(2*|grad l|^2) (once continuously differentiable"
+	var nouns, sources, particulars, smooth []string
+	for _, i := range kinkKinds(kinks) {
+		f := kinkForms[i]
+		nouns, sources = append(nouns, f.noun+" "+f.source), append(sources, f.source)
+		particulars, smooth = append(particulars, f.particular), append(smooth, f.smooth)
 	}
-	return "the source's kinks c*abs(l), l linear in x and y, take the closed particular solution c*abs(l)^3/(6*|grad l|^2) (twice continuously differentiable"
+	solution := "solution"
+	if len(particulars) > 1 {
+		solution += "s"
+	}
+	return fmt.Sprintf("the source's %s, l linear in x and y, take the closed particular %s %s (%s continuously differentiable",
+		strings.Join(nouns, " and "), solution, strings.Join(particulars, " and "), strings.Join(smooth, " and "))
 }
 
 // exactKinkNote says how kinks with exact traces were taken.

@@ -658,11 +658,9 @@ func quadratureMean(sol *Solution, c circle, env series.Env) series.Coef {
 
 // KinkCheckName is the check of the kinks' and steps' closed forms.
 func KinkCheckName(kinks []ansatz.Kink) string {
-	switch abs, step := kinkKinds(kinks); {
-	case abs && step:
-		return "lap(c*abs(l)^3/(6*|grad l|^2) + c*max(l, 0)^2/(2*|grad l|^2)) - c*abs(l) - c*step(l)"
-	case step:
-		return "lap(c*max(l, 0)^2/(2*|grad l|^2)) - c*step(l)"
+	var particulars, sources []string
+	for _, i := range kinkKinds(kinks) {
+		particulars, sources = append(particulars, kinkForms[i].particular), append(sources, kinkForms[i].source)
 	}
-	return "lap(c*abs(l)^3/(6*|grad l|^2)) - c*abs(l)"
+	return "lap(" + strings.Join(particulars, " + ") + ") - " + strings.Join(sources, " - ")
 }
