@@ -76,7 +76,8 @@ func ellipseRim(A, B float64) SidePath {
 		i := max(0, min(int(u*nodes), nodes-1))
 		return (table[i] + arc(2*math.Pi*float64(i)/nodes, tau)) / length
 	}
-	return SidePath{Name: "rim", Length: length, Even: even, EvenOf: func(t float64) float64 { return tauAt(t) / (2 * math.Pi) },
+	rate := func(u float64) float64 { return 2 * math.Pi * speed(2*math.Pi*u) / length }
+	return SidePath{Name: "rim", Length: length, Even: even, EvenRate: rate, EvenOf: func(t float64) float64 { return tauAt(t) / (2 * math.Pi) },
 		At: func(t float64) (x, y, nx, ny float64) {
 			tau := tauAt(t)
 			c, sn := math.Cos(tau), math.Sin(tau)

@@ -88,9 +88,9 @@ type holeNumbers struct {
 	inside  func(x, y float64) bool
 	circle  bool
 	// An elongated polygon's terms: its exterior-map ellipse's centre,
-	// focus and (A + B)/2 (slotMap); focus 0 otherwise.
+	// focus and A + B (slotMap); focus 0 otherwise.
 	mapC, focus complex128
-	mean        float64
+	span        float64
 }
 
 func (h Holed) holes(env series.Env) ([]holeNumbers, error) {
@@ -153,7 +153,7 @@ func polygonHole(name string, p Polygon, env series.Env) (holeNumbers, error) {
 	}
 	hn.x, hn.y, hn.r = holeCentre(xs, ys, hn.x, hn.y)
 	if c, f, m, ok := slotMap(xs, ys); ok {
-		hn.mapC, hn.focus, hn.mean = c, f, m
+		hn.mapC, hn.focus, hn.span = c, f, m
 	}
 	for k := 0; k < n; k++ {
 		i, j := (k+n-1)%n, (k+1)%n
@@ -388,7 +388,8 @@ func holeEllipse(name string, c holeNumbers) SidePath {
 	rim := ellipseRim(c.a, c.b)
 	even := func(u float64) float64 { return 1 - rim.Even(1-u) }
 	evenOf := func(t float64) float64 { return 1 - rim.EvenOf(1-t) }
-	return SidePath{Name: name, Length: rim.Length, Even: even, EvenOf: evenOf, At: func(t float64) (x, y, nx, ny float64) {
+	rate := func(u float64) float64 { return rim.EvenRate(1 - u) }
+	return SidePath{Name: name, Length: rim.Length, Even: even, EvenOf: evenOf, EvenRate: rate, At: func(t float64) (x, y, nx, ny float64) {
 		x, y, nx, ny = rim.At(1 - t)
 		return c.x + x, c.y + y, -nx, -ny
 	}}
@@ -443,10 +444,10 @@ func (h Holed) geometry(env series.Env) (sectionGeometry, error) {
 		}
 		hb := holeBasis{c: complex(c.x, c.y), rho: c.r}
 		if c.focus != 0 { // an elongated polygon: the terms of an ellipse's exterior map
-			hb.c, hb.focus, hb.mean = c.mapC, c.focus, c.mean
+			hb.c, hb.focus, hb.span = c.mapC, c.focus, c.span
 		}
 		if c.a > 0 && c.a != c.b { // an ellipse: the terms of its exterior map
-			hb.mean = (c.a + c.b) / 2
+			hb.span = c.a + c.b
 			if c.a > c.b {
 				hb.focus = complex(math.Sqrt(c.a*c.a-c.b*c.b), 0)
 			} else {

@@ -13,12 +13,12 @@ const slotAspect = 1.5
 // series in ρ/(z − c) about one point cannot serve a slot: its terms at the
 // flanks, a half-width from c, are (A/B)^j times those at the ends, so a
 // 5:1 slot's fit diverged (a residual of 1e5 for data of size 10). The
-// ellipse's terms w^(−j), w = (ζ + √(ζ − f)·√(ζ + f))/m, are level on
+// ellipse's terms w^(−j), w = (ζ + √(ζ − f)·√(ζ + f))/(A + B), are level on
 // confocal ellipses, and a rectangle's sides and corners lie between two of
 // them (1.3 apart for 5:1). ok is false for a hole less elongated than
 // slotAspect, or where the centre or the segment between the foci (the
 // terms' branch cut) leaves the hole.
-func slotMap(xs, ys []float64) (c, focus complex128, mean float64, ok bool) {
+func slotMap(xs, ys []float64) (c, focus complex128, span float64, ok bool) {
 	n := len(xs)
 	var area, cx, cy float64
 	for k := 0; k < n; k++ {
@@ -62,5 +62,5 @@ func slotMap(xs, ys []float64) (c, focus complex128, mean float64, ok bool) {
 			return 0, 0, 0, false
 		}
 	}
-	return c, focus, (A + B) / 2, true
+	return c, focus, A + B, true
 }

@@ -587,8 +587,12 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 		// and stays 0 (dropped as empty).
 		logs := func() {
 			for k, hb := range h.logs {
-				d := z - hb.c
-				add(i, logCol+2*k, scaleBy*p.w*(p.a*math.Log(abs(d))+p.b*real(nu/d)))
+				v, dv := hb.logValue(z), 0.0
+				if p.b != 0 {
+					_, dlg := hb.logTerm(z)
+					dv = real(nu * dlg)
+				}
+				add(i, logCol+2*k, scaleBy*p.w*(p.a*v+p.b*dv))
 			}
 		}
 		if netFlux { // only the hole logarithms: see above

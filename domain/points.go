@@ -690,23 +690,18 @@ func (pe *pointEval) logsArea(shape Shape) float64 {
 	for k := range pe.c {
 		total += pe.c[k] * math.Log(pe.s[k]) * shape.Area
 	}
-	const panels = 64
 	for _, side := range shape.Sides {
-		for i := 0; i < panels; i++ {
-			a, b := float64(i)/panels, float64(i+1)/panels
-			for j, xg := range legendreX {
-				x, y, nx, ny := side.At((a+b)/2 + (b-a)/2*xg)
-				w := (b - a) / 2 * legendreW[j] * side.Length
-				for k := range pe.c {
-					dx, dy := x-pe.x[k], y-pe.y[k]
-					rho := math.Hypot(dx, dy)
-					if rho == 0 {
-						continue
-					}
-					total += w * pe.c[k] * (math.Log(rho) - 0.5) * (dx*nx + dy*ny)
+		side.panelNodes(uniformEdges(64), legendreX, legendreW, func(t, w float64) {
+			x, y, nx, ny := side.At(t)
+			for k := range pe.c {
+				dx, dy := x-pe.x[k], y-pe.y[k]
+				rho := math.Hypot(dx, dy)
+				if rho == 0 {
+					continue
 				}
+				total += w * pe.c[k] * (math.Log(rho) - 0.5) * (dx*nx + dy*ny)
 			}
-		}
+		})
 	}
 	return total
 }
@@ -788,15 +783,11 @@ func pointsBalance(d Domain, source series.Field, conds []Condition, pts []serie
 		if err != nil {
 			return nil
 		}
-		const panels = 64
-		for i := 0; i < panels; i++ {
-			a, b := float64(i)/panels, float64(i+1)/panels
-			for j, xg := range legendreX {
-				x, y, _, _ := side.At((a+b)/2 + (b-a)/2*xg)
-				r, th := polarOf(x, y)
-				flux += (b - a) / 2 * legendreW[j] * side.Length * g.At(r, th)
-			}
-		}
+		side.panelNodes(uniformEdges(64), legendreX, legendreW, func(t, ds float64) {
+			x, y, _, _ := side.At(t)
+			r, th := polarOf(x, y)
+			flux += ds * g.At(r, th)
+		})
 	}
 	if math.Abs(flux-f-q) > 1e-9*(1+math.Abs(flux)+math.Abs(f)+math.Abs(q)) {
 		return unsolvable("with a flux condition on every side the net outward flux of the data, %.12g, must equal the source's integral over the region plus the point sources' strengths, %.12g + %.12g = %.12g (divergence theorem); they differ by %.3g, so the problem has no solution", flux, f, q, f+q, flux-f-q)

@@ -53,9 +53,10 @@ type sectionGeometry struct {
 }
 
 // holeBasis is a hole's share of the basis: log|z − c| and the Laurent
-// terms (ρ/(z − c))^j, or for an elliptical hole (focus f ≠ 0) the terms
-// w^(−j) of the map w = (ζ + √(ζ − f)·√(ζ + f))/m, ζ = z − c, m the mean of
-// the semi-axes, which takes the outside of the ellipse onto |w| > 1: the
+// terms (ρ/(z − c))^j, or for an elliptical hole (focus f ≠ 0) log|w| and
+// the terms w^(−j) of the map w = (ζ + √(ζ − f)·√(ζ + f))/m, ζ = z − c, m
+// the sum of the semi-axes, which takes the outside of the ellipse onto
+// |w| > 1 (|v| = |1/w| is 1 on the ellipse as ρ/|z − c| is on a circle): the
 // terms decay from the ellipse outwards as the outside's own harmonic
 // functions do, where the Laurent series about the centre of an elongated
 // hole would not converge on the near parts of the region (common practice:
@@ -64,7 +65,7 @@ type holeBasis struct {
 	c     complex128
 	rho   float64
 	focus complex128 // the focus on the major axis relative to c; 0 for a circle
-	mean  float64    // (A + B)/2, for an ellipse
+	span  float64    // A + B, for an ellipse: |w| = 1 on it
 }
 
 // variable is the terms' variable v at z (term j is v^j) and d(log v)/dz.
@@ -78,9 +79,50 @@ func (hb holeBasis) variable(z complex128) (v, dlog complex128) {
 	dir := hb.focus / complex(abs(hb.focus), 0)
 	z1, fl := zeta/dir, complex(abs(hb.focus), 0)
 	s := cmplx.Sqrt(z1-fl) * cmplx.Sqrt(z1+fl)
-	w := (z1 + s) / complex(hb.mean, 0)
+	// On the major axis beyond a focus, z1 is real and its imaginary part
+	// a signed zero: z1 + fl turns −0 into +0 while z1 − fl keeps it, and
+	// the two roots then come from opposite sides of their cuts. s is
+	// √(z1² − f²) on the branch that runs like z1 far out (|w| > 1); a
+	// mirrored hole's image (focus −f) read 9 for |v| there, and its terms
+	// 10⁶ at points of the section.
+	if real(s)*real(z1)+imag(s)*imag(z1) < 0 {
+		s = -s
+	}
+	w := (z1 + s) / complex(hb.span, 0)
 	// v = 1/w, dw/dz = w/(s·dir).
 	return 1 / w, -1 / (s * dir)
+}
+
+// logTerm is the hole's logarithm L(z), whose real part is the basis's
+// log term, and L'(z): log(z − c) about a circle's centre or a round
+// polygon's; log w for an ellipse or an elongated polygon, w its exterior
+// map (variable). Both carry the hole's flux, 2π, but log|z − c| differs
+// from log|w| by Re log(w/(z − c)), analytic outside the focal segment,
+// whose series in 1/w decays on the ellipse only as (f/m)^j (f the focal
+// distance, m the sum of the semi-axes): 0.9 a term for a 10:1 ellipse. The
+// hole's terms had to supply it, and a thin ellipse took 230 of them.
+// L = log(z − c) + log(e·w/(z − c)), e the major axis's direction: the
+// second argument lies in the right half-plane (w/ζ = (1 + √(1 − f²/ζ²))/m
+// in the ellipse's frame), so Im L jumps only where arg(z − c) does, and
+// L − log(z − c) is single-valued (the area integral relies on it); L is
+// log w up to an imaginary constant.
+func (hb holeBasis) logTerm(z complex128) (complex128, complex128) {
+	d := z - hb.c
+	if hb.focus == 0 {
+		return cmplx.Log(d), 1 / d
+	}
+	v, dlog := hb.variable(z) // v = 1/w, dlog = −w'/w
+	dir := hb.focus / complex(abs(hb.focus), 0)
+	return cmplx.Log(d) + cmplx.Log(dir/(v*d)), -dlog
+}
+
+// logValue is Re logTerm(z), the log term's value: log|z − c| or log|w|.
+func (hb holeBasis) logValue(z complex128) float64 {
+	if hb.focus == 0 {
+		return math.Log(abs(z - hb.c))
+	}
+	v, _ := hb.variable(z)
+	return -math.Log(abs(v))
 }
 
 // laurentTerms fills f and df with each Laurent term's value and derivative
@@ -445,21 +487,17 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		// −5/12 (at 1e-16 it does not, but nothing in the fit promises it).
 		mean, hMean, length := 0.0, 0.0, 0.0
 		for k, side := range geo.shape.Sides {
-			for j, x := range ansatz.GaussX {
-				for i := 0; i < 32; i++ {
-					t := (float64(i) + (x+1)/2) / 32
-					px, py, _, _ := side.At(t)
-					r, th := polarOf(px, py)
-					w := ansatz.GaussW[j] / 2 / 32 * side.Length
-					hMean += w * best.valueOnly(complex(px, py))
-					v := conds[k].up.At(r, th)
-					if quad != nil {
-						q, _ := quad.At(quad.Local(px, py))
-						v += q
-					}
-					mean, length = mean+w*v, length+w
+			side.panelNodes(uniformEdges(32), ansatz.GaussX, ansatz.GaussW, func(t, w float64) {
+				px, py, _, _ := side.At(t)
+				r, th := polarOf(px, py)
+				hMean += w * best.valueOnly(complex(px, py))
+				v := conds[k].up.At(r, th)
+				if quad != nil {
+					q, _ := quad.At(quad.Local(px, py))
+					v += q
 				}
-			}
+				mean, length = mean+w*v, length+w
+			})
 		}
 		best.cPoly[0] -= complex(hMean/length, 0)
 		sol.FreeMean = decimal(-mean / length)
@@ -1033,33 +1071,28 @@ func sectionBoundary(h *rationalHarmonic, shape Shape, upOn func(k int) sideCond
 	for k, side := range shape.Sides {
 		up := upOn(k)
 		flux := 0.0
-		for i := 0; i+1 < len(edges); i++ {
-			lo, hi := edges[i], edges[i+1]
-			for j, x := range ansatz.GaussX {
-				t := (lo+hi)/2 + (hi-lo)/2*x
-				px, py, nx, ny := side.At(t)
-				z := complex(px, py)
-				ds := side.Length * (hi - lo) / 2 * ansatz.GaussW[j]
-				// dz = (tangent)·ds, the tangent being the normal turned left.
-				dz := complex(-ny, nx) * complex(ds, 0)
-				f, df := h.complexValue(z)
-				if h.shift != nil { // the flux takes ∇h whole: the shift's share too
-					_, dc := h.shift(z)
-					df += dc
-				}
-				_, dup := up.parts(t, px, py, nx, ny)
-				flux += ds * (dup + real(df*complex(nx, ny)))
-				// The holes' logarithms are not single-valued analytic
-				// functions: out of F for the integral, and by w below.
-				for m, hb := range h.logs {
-					f -= complex(h.cLog[m], 0) * cmplx.Log(z-hb.c)
-					d := z - hb.c
-					grad := d * complex((2*math.Log(abs(d))-1)/4, 0) // ∇w as x + iy
-					logs += h.cLog[m] * (real(grad)*nx + imag(grad)*ny) * ds
-				}
-				total += f * cmplx.Conj(z) * dz
+		side.panelNodes(edges, ansatz.GaussX, ansatz.GaussW, func(t, ds float64) {
+			px, py, nx, ny := side.At(t)
+			z := complex(px, py)
+			// dz = (tangent)·ds, the tangent being the normal turned left.
+			dz := complex(-ny, nx) * complex(ds, 0)
+			f, df := h.complexValue(z)
+			if h.shift != nil { // the flux takes ∇h whole: the shift's share too
+				_, dc := h.shift(z)
+				df += dc
 			}
-		}
+			_, dup := up.parts(t, px, py, nx, ny)
+			flux += ds * (dup + real(df*complex(nx, ny)))
+			// The holes' logarithms are not single-valued analytic
+			// functions: out of F for the integral, and by w below.
+			for m, hb := range h.logs {
+				f -= complex(h.cLog[m], 0) * cmplx.Log(z-hb.c)
+				d := z - hb.c
+				grad := d * complex((2*math.Log(abs(d))-1)/4, 0) // ∇w as x + iy
+				logs += h.cLog[m] * (real(grad)*nx + imag(grad)*ny) * ds
+			}
+			total += f * cmplx.Conj(z) * dz
+		})
 		fluxes = append(fluxes, flux)
 	}
 	return real(total/complex(0, 2)) + logs, fluxes
@@ -1096,13 +1129,13 @@ func (h *rationalHarmonic) evaluate(z complex128, slope bool) (complex128, compl
 		}
 	}
 	for k, hb := range h.logs {
-		d := z - hb.c
 		if !slope {
-			f += complex(h.cLog[k]*math.Log(abs(d)), 0)
+			f += complex(h.cLog[k]*hb.logValue(z), 0)
 			continue
 		}
-		f += complex(h.cLog[k], 0) * cmplx.Log(d)
-		df += complex(h.cLog[k], 0) / d
+		lg, dlg := hb.logTerm(z)
+		f += complex(h.cLog[k], 0) * lg
+		df += complex(h.cLog[k], 0) * dlg
 	}
 	t, dt := h.terms(len(h.laurent))
 	h.laurentTerms(z, t, dt)
@@ -1270,23 +1303,18 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 // rectangle; f_q at those nodes costs a source evaluation.
 func greenBoundary(shape Shape, quad []*sideInterpolant, kinks []ansatz.Kink, cx, cy float64) float64 {
 	total := 0.0
-	const panels = 64
+	edges := uniformEdges(64)
 	for k, side := range shape.Sides {
-		for i := 0; i < panels; i++ {
-			lo, hi := float64(i)/panels, float64(i+1)/panels
-			for j, x := range ansatz.GaussX {
-				t := (lo+hi)/2 + (hi-lo)/2*x
-				px, py, nx, ny := side.At(t)
-				ds := side.Length * (hi - lo) / 2 * ansatz.GaussW[j]
-				v, dn := quad[k].smooth(t)
-				dx, dy := px-cx, py-cy
-				w, dw := (dx*dx+dy*dy)/4, (dx*nx+dy*ny)/2
-				total += ds * (v*dw - w*dn)
-				for _, kk := range kinks { // ∫∫ v_k dA = ∮ F_k·n ds
-					total += ds * kk.AreaFlux(px, py, nx, ny)
-				}
+		side.panelNodes(edges, ansatz.GaussX, ansatz.GaussW, func(t, ds float64) {
+			px, py, nx, ny := side.At(t)
+			v, dn := quad[k].smooth(t)
+			dx, dy := px-cx, py-cy
+			w, dw := (dx*dx+dy*dy)/4, (dx*nx+dy*ny)/2
+			total += ds * (v*dw - w*dn)
+			for _, kk := range kinks { // ∫∫ v_k dA = ∮ F_k·n ds
+				total += ds * kk.AreaFlux(px, py, nx, ny)
 			}
-		}
+		})
 	}
 	return total
 }
@@ -1605,14 +1633,11 @@ func neumannBalance(d section, geo sectionGeometry, conds []sideCondition, up se
 	flux := 0.0
 	edges := gradedEdges()
 	for k, side := range geo.shape.Sides {
-		for i := 0; i+1 < len(edges); i++ {
-			lo, hi := edges[i], edges[i+1]
-			for j, x := range ansatz.GaussX {
-				px, py, _, _ := side.At((lo+hi)/2 + (hi-lo)/2*x)
-				r, th := polarOf(px, py)
-				flux += ansatz.GaussW[j] * (hi - lo) / 2 * side.Length * conds[k].g.At(r, th)
-			}
-		}
+		side.panelNodes(edges, ansatz.GaussX, ansatz.GaussW, func(t, ds float64) {
+			px, py, _, _ := side.At(t)
+			r, th := polarOf(px, py)
+			flux += ds * conds[k].g.At(r, th)
+		})
 	}
 	source := 0.0
 	c, err := d.integral(p.f)
@@ -1661,9 +1686,12 @@ type FittedPart struct {
 	Pivoted []bool
 	// PowerLog[m]: power m is E·ζ^β·log ζ (β whole), not E·ζ^β.
 	PowerLog []bool
-	// LogAt and LogK are the holes' logarithms: Σ LogK_k·ln|z − LogAt_k|.
-	LogAt []complex128
-	LogK  []float64
+	// LogAt and LogK are the holes' logarithms: Σ LogK_k·ln|z − LogAt_k|,
+	// or where LogVar_k ≥ 0 (an elliptical or elongated hole), LogK_k·ln|w|
+	// = −LogK_k·ln|v|, v = Vars[LogVar_k] (holeBasis.logTerm).
+	LogAt  []complex128
+	LogK   []float64
+	LogVar []int
 	// Vars and Terms are the holes' other terms: Re Σ E_t·v(z)^J_t, v one
 	// of Vars (HoleVar).
 	Vars  []HoleVar
@@ -1690,6 +1718,15 @@ type HoleVar struct {
 	S, S2 float64
 }
 
+// holeVar is the hole's variable (holeBasis.variable) as a HoleVar.
+func (hb holeBasis) holeVar() HoleVar {
+	if hb.focus == 0 {
+		return HoleVar{Kind: 0, A: hb.c, S: hb.rho}
+	}
+	dir := hb.focus / complex(abs(hb.focus), 0)
+	return HoleVar{Kind: 1, A: hb.c, B: dir, S: abs(hb.focus), S2: hb.span}
+}
+
 // HoleTerm is E·v^J for the variable Vars[Var].
 type HoleTerm struct {
 	Var, J int
@@ -1712,9 +1749,6 @@ func (sp *SectionParts) Fitted() FittedPart {
 		out.Pivot, out.Pivoted = append(out.Pivot, c.pivot), append(out.Pivoted, c.hasPivot)
 		out.PowerLog = append(out.PowerLog, c.log)
 	}
-	for k, hb := range h.logs {
-		out.LogAt, out.LogK = append(out.LogAt, hb.c), append(out.LogK, h.cLog[k])
-	}
 	vars := map[HoleVar]int{}
 	variable := func(v HoleVar) int {
 		if i, ok := vars[v]; ok {
@@ -1724,13 +1758,16 @@ func (sp *SectionParts) Fitted() FittedPart {
 		out.Vars = append(out.Vars, v)
 		return vars[v]
 	}
-	for k, t := range h.laurent {
-		v := HoleVar{Kind: 0, A: t.hole.c, S: t.hole.rho}
-		if t.hole.focus != 0 {
-			dir := t.hole.focus / complex(abs(t.hole.focus), 0)
-			v = HoleVar{Kind: 1, A: t.hole.c, B: dir, S: abs(t.hole.focus), S2: t.hole.mean}
+	for k, hb := range h.logs {
+		out.LogAt, out.LogK = append(out.LogAt, hb.c), append(out.LogK, h.cLog[k])
+		at := -1
+		if hb.focus != 0 {
+			at = variable(hb.holeVar())
 		}
-		out.Terms = append(out.Terms, HoleTerm{Var: variable(v), J: t.j, E: h.cLaurent[k]})
+		out.LogVar = append(out.LogVar, at)
+	}
+	for k, t := range h.laurent {
+		out.Terms = append(out.Terms, HoleTerm{Var: variable(t.hole.holeVar()), J: t.j, E: h.cLaurent[k]})
 	}
 	for k, j := range h.mobiusK {
 		m := h.mobius
@@ -1769,20 +1806,15 @@ func floatingConstraints(geo sectionGeometry, conds []sideCondition, up series.S
 				fc.target -= w * dn
 				fc.pts = append(fc.pts, boundaryPoint{z: complex(x, y), nu: complex(nx, ny), b: 1, w: w, floating: -1})
 			}
-			if geo.starts[m] < 0 { // a circle: the trapezoidal rule, spectral for a periodic integrand
+			if geo.starts[m] < 0 { // a circle or an ellipse: the trapezoidal rule in its even variable, spectral for a periodic integrand
 				const n = 256
 				for j := 0; j < n; j++ {
-					add(float64(j)/n, side.Length/n)
+					u := float64(j) / n
+					add(side.even(u), side.Length*side.evenRate(u)/n)
 				}
 				continue
 			}
-			edges := gradedEdges() // an edge: panels graded towards its corners
-			for i := 0; i+1 < len(edges); i++ {
-				lo, hi := edges[i], edges[i+1]
-				for j, x := range ansatz.GaussX {
-					add((lo+hi)/2+(hi-lo)/2*x, ansatz.GaussW[j]*(hi-lo)/2*side.Length)
-				}
-			}
+			side.panelNodes(gradedEdges(), ansatz.GaussX, ansatz.GaussW, add) // an edge: panels graded towards its corners
 		}
 		out = append(out, fc)
 	}

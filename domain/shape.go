@@ -42,6 +42,42 @@ type SidePath struct {
 	Even func(u float64) float64
 	// EvenOf is Even's inverse, u at t (set with Even).
 	EvenOf func(t float64) float64
+	// EvenRate is dt/du of Even (set with Even): integrals along the side
+	// take their nodes in u (panelNodes). A thin ellipse's fluxes gather
+	// at its tips within a length b²/a, which panels in arc length missed:
+	// the flux out of a 14.5:1 confocal hole read 0.8% short.
+	EvenRate func(u float64) float64
+}
+
+// panelNodes calls node with each node of the Gauss–Legendre rule (xs,
+// ws on [−1, 1]) on the panels between consecutive edges of [0, 1], taken
+// in the side's even variable u: t = even(u), and its weight in arc length,
+// Length·dt/du·(panel width)/2·w.
+func (p SidePath) panelNodes(edges, xs, ws []float64, node func(t, ds float64)) {
+	for i := 0; i+1 < len(edges); i++ {
+		lo, hi := edges[i], edges[i+1]
+		for j, x := range xs {
+			u := (lo+hi)/2 + (hi-lo)/2*x
+			node(p.even(u), p.Length*p.evenRate(u)*(hi-lo)/2*ws[j])
+		}
+	}
+}
+
+// uniformEdges are n equal panels' edges on [0, 1].
+func uniformEdges(n int) []float64 {
+	edges := make([]float64, n+1)
+	for i := range edges {
+		edges[i] = float64(i) / float64(n)
+	}
+	return edges
+}
+
+// evenRate is dt/du of even: EvenRate, or 1 where even is arc length.
+func (p SidePath) evenRate(u float64) float64 {
+	if p.Even == nil || p.EvenOf == nil || p.EvenRate == nil {
+		return 1
+	}
+	return p.EvenRate(u)
 }
 
 // even is the side's even sampling at u: Even, or arc length (where Even
@@ -49,7 +85,7 @@ type SidePath struct {
 // quadrature's trace interpolant places its nodes by one and reads by the
 // other).
 func (p SidePath) even(u float64) float64 {
-	if p.Even == nil || p.EvenOf == nil {
+	if p.Even == nil || p.EvenOf == nil || p.EvenRate == nil {
 		return u
 	}
 	return p.Even(u)
@@ -57,7 +93,7 @@ func (p SidePath) even(u float64) float64 {
 
 // evenOf is even's inverse: u at t.
 func (p SidePath) evenOf(t float64) float64 {
-	if p.Even == nil || p.EvenOf == nil {
+	if p.Even == nil || p.EvenOf == nil || p.EvenRate == nil {
 		return t
 	}
 	return p.EvenOf(t)

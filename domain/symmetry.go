@@ -303,17 +303,12 @@ func sideImage(m isometry, k int, sides []SidePath, eps float64) (func(t float64
 func boundaryCentroid(shape Shape) (complex128, bool) {
 	var area, mx, my float64
 	for _, side := range shape.Sides {
-		const panels = 16
-		for p := 0; p < panels; p++ {
-			for i, x := range ansatz.GaussX {
-				t := (float64(p) + (x+1)/2) / panels
-				px, py, nx, ny := side.At(t)
-				w := ansatz.GaussW[i] / 2 / panels * side.Length
-				area += w * px * nx
-				mx += w * px * px / 2 * nx
-				my += w * py * py / 2 * ny
-			}
-		}
+		side.panelNodes(uniformEdges(16), ansatz.GaussX, ansatz.GaussW, func(t, w float64) {
+			px, py, nx, ny := side.At(t)
+			area += w * px * nx
+			mx += w * px * px / 2 * nx
+			my += w * py * py / 2 * ny
+		})
 	}
 	if !(area > 0) || math.IsInf(area, 0) {
 		return 0, false

@@ -70,7 +70,7 @@ func (v *view) sectionStages(sol *domain.Solution) {
 	if sp.Holes > 0 {
 		form += ", with each hole's a*log|z - c| and Laurent terms in 1/(z - c) (c inside the hole)"
 		if sp.Elliptic {
-			form += ", for an elliptical or elongated hole in 1/w, w = ((z - c) + sqrt((z - c)^2 - f^2))/m (f and m its ellipse's focal distance and mean semi-axis; an elongated polygon's ellipse has the polygon's half-extents along its principal axes), which maps the ellipse's outside onto |w| > 1"
+			form += ", for an elliptical or elongated hole a*log|w| and terms in 1/w, w = ((z - c) + sqrt((z - c)^2 - f^2))/m (f its ellipse's focal distance and m the sum of its semi-axes; an elongated polygon's ellipse has the polygon's half-extents along its principal axes), which maps the ellipse's outside onto |w| > 1"
 		}
 	}
 	// The poles and the degree the adaptive fit chose are in --steps: they

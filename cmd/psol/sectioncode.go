@@ -76,13 +76,17 @@ func U(x, y float64) float64 {
 		}
 		u += psolERe[m]*pr - psolEIm[m]*pi
 	}
-	for j := range psolLogK {
-		dx, dy := x-psolLogRe[j], y-psolLogIm[j]
-		u += psolLogK[j] * 0.5 * math.Log(dx*dx+dy*dy)
-	}
 	var vr, vi [%[3]d]float64
 	for k := range psolVarKind {
 		vr[k], vi[k] = psolVar(k, x, y)
+	}
+	for j := range psolLogK {
+		if k := int(psolLogVar[j]); k >= 0 { // an elliptical hole: ln|w| = −ln|v|
+			u -= psolLogK[j] * 0.5 * math.Log(vr[k]*vr[k]+vi[k]*vi[k])
+			continue
+		}
+		dx, dy := x-psolLogRe[j], y-psolLogIm[j]
+		u += psolLogK[j] * 0.5 * math.Log(dx*dx+dy*dy)
 	}
 	for t := range psolTermJ {
 		k := int(psolTermVar[t])
@@ -245,13 +249,18 @@ double u(double x, double y) {
 		}
 		u += psolERe[m]*pr - psolEIm[m]*pi;
 	}
-	for (int j = 0; j < psolLogs; j++) {
-		double dx = x - psolLogRe[j], dy = y - psolLogIm[j];
-		u += psolLogK[j]*0.5*log(dx*dx + dy*dy);
-	}
 	double vr[%[3]d] = {0}, vi[%[3]d] = {0};
 	for (int k = 0; k < psolVars; k++) {
 		psolVar(k, x, y, &vr[k], &vi[k]);
+	}
+	for (int j = 0; j < psolLogs; j++) {
+		int k = (int)psolLogVar[j];
+		if (k >= 0) { /* an elliptical hole: ln|w| = -ln|v| */
+			u -= psolLogK[j]*0.5*log(vr[k]*vr[k] + vi[k]*vi[k]);
+			continue;
+		}
+		double dx = x - psolLogRe[j], dy = y - psolLogIm[j];
+		u += psolLogK[j]*0.5*log(dx*dx + dy*dy);
 	}
 	for (int t = 0; t < psolTerms; t++) {
 		int k = (int)psolTermVar[t];
@@ -315,10 +324,14 @@ def u(x, y):
         if PSOL_PLOG[m] != 0:  # zeta^beta*log(zeta)
             pr, pi = pr*lr - pi*at, pi*lr + pr*at
         u += PSOL_ERE[m]*pr - PSOL_EIM[m]*pi
+    v = [_psol_var(k, x, y) for k in range(len(PSOL_VARKIND))]
     for j in range(len(PSOL_LOGK)):
+        k = int(PSOL_LOGVAR[j])
+        if k >= 0:  # an elliptical hole: ln|w| = -ln|v|
+            u -= PSOL_LOGK[j]*0.5*math.log(v[k][0]*v[k][0] + v[k][1]*v[k][1])
+            continue
         dx, dy = x - PSOL_LOGRE[j], y - PSOL_LOGIM[j]
         u += PSOL_LOGK[j]*0.5*math.log(dx*dx + dy*dy)
-    v = [_psol_var(k, x, y) for k in range(len(PSOL_VARKIND))]
     for t in range(len(PSOL_TERMJ)):
         vr, vi = v[int(PSOL_TERMVAR[t])]
         pr, pi = 1.0, 0.0
@@ -457,6 +470,11 @@ func writeSectionCode(w io.Writer, l series.Lang, pr *problem, sol *domain.Solut
 	b.WriteString(shape.array("PLog", plog))
 	table("Log", f.LogAt)
 	b.WriteString(shape.array("LogK", f.LogK))
+	logVar := make([]float64, len(f.LogVar))
+	for j, k := range f.LogVar {
+		logVar[j] = float64(k)
+	}
+	b.WriteString(shape.array("LogVar", logVar))
 	var kind, s1, s2 []float64
 	var va, vb, te []complex128
 	for _, v := range f.Vars {
