@@ -589,8 +589,7 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 			for k, hb := range h.logs {
 				v, dv := hb.logValue(z), 0.0
 				if p.b != 0 {
-					_, dlg := hb.logTerm(z)
-					dv = real(nu * dlg)
+					dv = real(nu * hb.logSlope(z))
 				}
 				add(i, logCol+2*k, scaleBy*p.w*(p.a*v+p.b*dv))
 			}

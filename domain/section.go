@@ -76,7 +76,7 @@ func (hb holeBasis) variable(z complex128) (v, dlog complex128) {
 	}
 	// In the frame with the foci on the real axis, where the two square
 	// roots' cuts join into the segment between the foci, inside the hole.
-	dir := hb.focus / complex(abs(hb.focus), 0)
+	dir := hb.axis()
 	z1, fl := zeta/dir, complex(abs(hb.focus), 0)
 	s := cmplx.Sqrt(z1-fl) * cmplx.Sqrt(z1+fl)
 	// On the major axis beyond a focus, z1 is real and its imaginary part
@@ -112,9 +112,20 @@ func (hb holeBasis) logTerm(z complex128) (complex128, complex128) {
 		return cmplx.Log(d), 1 / d
 	}
 	v, dlog := hb.variable(z) // v = 1/w, dlog = −w'/w
-	dir := hb.focus / complex(abs(hb.focus), 0)
-	return cmplx.Log(d) + cmplx.Log(dir/(v*d)), -dlog
+	return cmplx.Log(d) + cmplx.Log(hb.axis()/(v*d)), -dlog
 }
+
+// logSlope is L'(z) alone (logTerm): a flux row's share, without the logs.
+func (hb holeBasis) logSlope(z complex128) complex128 {
+	if hb.focus == 0 {
+		return 1 / (z - hb.c)
+	}
+	_, dlog := hb.variable(z)
+	return -dlog
+}
+
+// axis is the ellipse's major-axis direction, a unit complex number.
+func (hb holeBasis) axis() complex128 { return hb.focus / complex(abs(hb.focus), 0) }
 
 // logValue is Re logTerm(z), the log term's value: log|z − c| or log|w|.
 func (hb holeBasis) logValue(z complex128) float64 {
@@ -1723,8 +1734,7 @@ func (hb holeBasis) holeVar() HoleVar {
 	if hb.focus == 0 {
 		return HoleVar{Kind: 0, A: hb.c, S: hb.rho}
 	}
-	dir := hb.focus / complex(abs(hb.focus), 0)
-	return HoleVar{Kind: 1, A: hb.c, B: dir, S: abs(hb.focus), S2: hb.span}
+	return HoleVar{Kind: 1, A: hb.c, B: hb.axis(), S: abs(hb.focus), S2: hb.span}
 }
 
 // HoleTerm is E·v^J for the variable Vars[Var].
