@@ -21,7 +21,7 @@ import (
 // Static and Dynamic Electricity, §4.25; Moon & Spencer, Field Theory
 // Handbook). Here f = 0.21, the outer ellipse 0.35 × 0.28 and the hole
 // 0.2105 × 0.0145 (14.5:1), a² − b² = f² for both; ξ_out = ln 3 and
-// ξ_in = ln(0.225/0.21). With log|z − c| the hole's fit reached degree 200
+// ξ_in = ln(0.225/0.21); ∫∫ u dA below. With log|z − c| the hole's fit reached degree 200
 // and more; with log|w| the exact solution is in the basis.
 func TestEllipseHoleLogConfocal(t *testing.T) {
 	const f = 0.21
@@ -60,6 +60,14 @@ func TestEllipseHoleLogConfocal(t *testing.T) {
 	// 6.051 for 6.102 (SidePath.EvenRate).
 	if want := 2 * math.Pi / (xiOut - xiIn); math.Abs(hole-want) > 1e-9*want {
 		t.Errorf("flux through the hole %.12g, closed form %.12g", hole, want)
+	}
+	// ∫∫ u dA in elliptic coordinates, dA = f²(sinh²ξ + sin²η) dξ dη:
+	// (πf²/Δξ)·∫(ξ_out − ξ)·cosh 2ξ dξ over [ξ_in, ξ_out]
+	// = (πf²/Δξ)·[(cosh 2ξ_out − cosh 2ξ_in)/4 − Δξ·sinh(2ξ_in)/2].
+	dxi := xiOut - xiIn
+	wantInt := math.Pi * f * f / dxi * ((math.Cosh(2*xiOut)-math.Cosh(2*xiIn))/4 - dxi*math.Sinh(2*xiIn)/2)
+	if math.Abs(rep.Integral-wantInt) > 1e-10*wantInt {
+		t.Errorf("area integral of u %.12g, closed form %.12g", rep.Integral, wantInt)
 	}
 	if deg := sol.Section.Degree; deg > 30 {
 		t.Errorf("the fit took degree %d: the hole's logarithm is not log|w|", deg)
