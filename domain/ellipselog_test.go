@@ -16,13 +16,15 @@ import (
 // Two confocal ellipses, u = 1 on the inner, 0 on the outer: in elliptic
 // coordinates z = f·cosh(ξ + iη) the solution is linear in ξ,
 // u = (ξ_out − ξ)/(ξ_out − ξ_in), ξ = ln|(z + √(z² − f²))/f|, and the flux
-// out of the region through the inner ellipse is 2π/(ξ_out − ξ_in) (the
-// capacitance per unit length of confocal elliptic cylinders over ε; Smythe,
-// Static and Dynamic Electricity, §4.25; Moon & Spencer, Field Theory
-// Handbook). Here f = 0.21, the outer ellipse 0.35 × 0.28 and the hole
+// out of the region through the inner ellipse is 2π/(ξ_out − ξ_in): the
+// capacitance per unit length of confocal elliptic cylinders over ε, a
+// classical result (from memory: Smythe, Static and Dynamic Electricity;
+// Moon & Spencer, Field Theory Handbook), and elementary since ξ + iη is
+// analytic. Here f = 0.21, the outer ellipse 0.35 × 0.28 and the hole
 // 0.2105 × 0.0145 (14.5:1), a² − b² = f² for both; ξ_out = ln 3 and
-// ξ_in = ln(0.225/0.21); ∫∫ u dA below. With log|z − c| the hole's fit reached degree 200
-// and more; with log|w| the exact solution is in the basis.
+// ξ_in = ln(0.225/0.21); ∫∫ u dA below. With log|z − c| the hole's fit
+// reached degree 200 and more; with log|w| the exact solution is in the
+// basis.
 func TestEllipseHoleLogConfocal(t *testing.T) {
 	const f = 0.21
 	d := domain.Holed{
