@@ -31,7 +31,7 @@ type SidePath struct {
 	Length float64
 	// At is the point at t ∈ [0, 1] and the outward unit normal there; t
 	// is proportional to arc length (t·Length along the side), which the
-	// flux and length integrals rely on.
+	// integrals along the side rely on (panelNodes weighs by it).
 	At func(t float64) (x, y, nx, ny float64)
 	// Even, where set, maps u uniform in [0, 1] to the t of an even
 	// sampling of the side: one uniform in the variable its fitted terms
