@@ -681,6 +681,18 @@ func TestSlotHolesManufactured(t *testing.T) {
 	}
 }
 
+// fluxThrough is the report's outward flux summed over the sides whose
+// names start with prefix (a hole's, "hole1").
+func fluxThrough(rep *domain.Report, prefix string) float64 {
+	total := 0.0
+	for _, f := range rep.Sides {
+		if strings.HasPrefix(f.Side, prefix) {
+			total += f.Value
+		}
+	}
+	return total
+}
+
 // quantityOf is the named figure set of a solution's report at tol.
 func quantityOf(t *testing.T, sol *domain.Solution, name string, tol float64) []domain.Figure {
 	t.Helper()
