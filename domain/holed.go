@@ -179,6 +179,12 @@ func polygonHole(name string, p Polygon, env series.Env) (holeNumbers, error) {
 				cn.hasPivot = false
 			}
 		}
+		if hn.focus != 0 {
+			spread := holeBasis{c: hn.mapC, focus: hn.focus, span: hn.span}
+			if spreadCutInside(xs, ys, k, spread) {
+				cn.spread, cn.centrePivot, cn.hasPivot = spread, cn.hasPivot, true
+			}
+		}
 		hn.corners = append(hn.corners, cn)
 	}
 	hn.inside = func(x, y float64) bool {

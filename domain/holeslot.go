@@ -1,6 +1,9 @@
 package domain
 
-import "math"
+import (
+	"math"
+	"math/cmplx"
+)
 
 // slotAspect is the elongation from which a polygonal hole's terms are
 // powers of an ellipse's exterior map rather than of 1/(z − c).
@@ -63,4 +66,68 @@ func slotMap(xs, ys []float64) (c, focus complex128, span float64, ok bool) {
 		}
 	}
 	return c, focus, A + B, true
+}
+
+// spreadZeta is a slot corner's power variable ζ and dζ/dz: the pivot of
+// (z − w)/(z − p) spread over the slot's focal segment. A point pivot at
+// the slot's centre lies a half-width from its flanks and ten half-widths
+// from a 10:1 slot's corners: |ζ| reached 10 at the flanks' middles, the
+// powers ζ^β were spikes there, and the fit stalled near 1e-11 at a flank
+// (2.5 s). Spread, log ζ = log(z − w) − Φ(z), Φ the logarithmic potential
+// ∫ log(z − t) dμ(t) of the semicircle density μ(t) = 2√(f² − t²)/(πf²) on
+// the segment [c − f·e, c + f·e] (e the major axis). With s = √(ζ₁² − f²),
+// ζ₁ = (z − c)/e, on the branch of variable, and T = e·(ζ₁ + s) (≈ 2(z − c)
+// far out):
+//
+//	Φ(z) = log T + (z − c)/T + const,  Φ'(z) = 2/T,
+//	ζ = ((z − w)/T)·exp(−(z − c)/T),   dζ/dz = (exp(−(z − c)/T)/T)·(1 − 2(z − w)/T).
+//
+// (∫ √(f² − t²)/(z − t) dt = π(z − √(z² − f²)) on [−f, f], and
+// z − s = f²/(z + s), without the cancellation far out.) As f → 0 it is the
+// centre's pivot, times e^(−1/2)/2. The semicircle rather than the
+// segment's equilibrium density (1/T alone): that one's 1/√ ends made the
+// foci, a slot's half-width from its ends, a square-root singularity of
+// every power, and its fits stalled near there. ζ vanishes only at w and
+// is analytic outside the segment; the principal branch's cut runs from w
+// to the segment, inside the hole where spreadCutInside says so.
+func (hb holeBasis) spreadZeta(z, w complex128) (complex128, complex128) {
+	v, _ := hb.variable(z) // v = 1/w_map, T = e·span/v
+	t := hb.axis() * complex(hb.span, 0) / v
+	rt := recip(t)
+	e := cmplx.Exp(-(z - hb.c) * rt)
+	return (z - w) * rt * e, e * rt * (1 - 2*(z-w)*rt)
+}
+
+// spreadCutInside reports whether the principal cut of vertex k's spread
+// variable (spreadZeta) stays inside the polygonal hole: it leaves the
+// vertex into the hole, and ζ's argument runs without a jump along the
+// hole's sides (the cut, a curve from the vertex to the focal segment,
+// would cross a side to leave). A hole that fails keeps its centre's pivot.
+func spreadCutInside(xs, ys []float64, k int, hb holeBasis) bool {
+	n := len(xs)
+	w := complex(xs[k], ys[k])
+	size := hb.span
+	_, dz := hb.spreadZeta(w, w)
+	start := w - complex(1e-6*size, 0)*cmplx.Conj(dz)/complex(abs(dz), 0) // ζ ≈ ζ'(w)·(z − w): negative along −1/ζ'(w)
+	if !insidePolygon(xs, ys, real(start), imag(start)) {
+		return false
+	}
+	const per = 256
+	prev := math.NaN()
+	for j := 0; j < n; j++ {
+		a, b := complex(xs[(k+j)%n], ys[(k+j)%n]), complex(xs[(k+j+1)%n], ys[(k+j+1)%n])
+		for s := 0; s < per; s++ {
+			if j == 0 && s == 0 {
+				continue // the vertex itself, where ζ = 0
+			}
+			z := a + (b-a)*complex(float64(s)/per, 0)
+			zeta, _ := hb.spreadZeta(z, w)
+			arg := cmplx.Phase(zeta)
+			if !math.IsNaN(prev) && math.Abs(arg-prev) > math.Pi {
+				return false
+			}
+			prev = arg
+		}
+	}
+	return true
 }

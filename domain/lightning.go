@@ -86,6 +86,12 @@ type corner struct {
 	// corner with the same kind of condition on both sides): its
 	// exponents are no singular functions here, and take no logarithm.
 	helper bool
+	// spread, where its focus is set (a slot's corner), spreads the pivot
+	// over the slot's focal segment (holeBasis.spreadZeta); centrePivot is
+	// then hasPivot for the centre's pivot, should the data call for it
+	// (keepSpread).
+	spread      holeBasis
+	centrePivot bool
 }
 
 // logTopAll is a corner's logTop where its sides' data set no bound (no
@@ -124,10 +130,16 @@ type cornerPower struct {
 	hasPivot bool
 	// log: the term is ζ^β·log ζ, β a whole number.
 	log bool
+	// spread, where its focus is set, makes ζ the slot's spread-pivot
+	// variable (holeBasis.spreadZeta) instead of (z − w)/(z − pivot).
+	spread holeBasis
 }
 
 // zeta is ζ at z and dζ/dz.
 func (c cornerPower) zeta(z complex128) (complex128, complex128) {
+	if c.spread.focus != 0 {
+		return c.spread.spreadZeta(z, c.w)
+	}
 	if c.hasPivot {
 		d := z - c.pivot
 		return (z - c.w) / d, (c.w - c.pivot) / (d * d)
@@ -155,7 +167,7 @@ func cornerPowers(c corner, K int) []cornerPower {
 				beta = math.Round(beta)
 			}
 			if beta <= 24 && (!whole || beta <= c.logTop && !(c.helper && off != 0)) {
-				out = append(out, cornerPower{w: c.w, rot: rot, beta: beta, k: k, off: off, alpha: c.angle, pivot: c.pivot, hasPivot: c.hasPivot, log: whole})
+				out = append(out, cornerPower{w: c.w, rot: rot, beta: beta, k: k, off: off, alpha: c.angle, pivot: c.pivot, hasPivot: c.hasPivot, log: whole, spread: c.spread})
 			}
 		}
 	}

@@ -413,6 +413,9 @@ func powerImage(g isometry, c cornerPower) (cornerPower, imageTerm) {
 	inv := g.inverse()
 	out := c
 	out.w, out.pivot = inv.apply(c.w), inv.apply(c.pivot)
+	if c.spread.focus != 0 {
+		out.spread, _ = holeImage(g, c.spread, 0)
+	}
 	if g.flip {
 		out.rot = cmplx.Conj(c.rot * g.rot)
 		return out, imageTerm{conj: true, factor: 1}

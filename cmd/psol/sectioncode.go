@@ -59,11 +59,23 @@ func U(x, y float64) float64 {
 	for k := 0; k < %[2]d; k++ {
 		u += psolDRe[k]*qr[k] - psolDIm[k]*qi[k]
 	}
+	var vr, vi [%[3]d]float64
+	for k := range psolVarKind {
+		vr[k], vi[k] = psolVar(k, x, y)
+	}
 	for m := range psolBeta {
 		dx, dy := x-psolWRe[m], y-psolWIm[m]
 		sr, si := dx*psolRotRe[m]-dy*psolRotIm[m], dx*psolRotIm[m]+dy*psolRotRe[m]
 		if psolPiv[m] != 0 { // a hole's corner: ζ = (z − W)/(z − pivot)
 			sr, si = psolDiv(dx, dy, x-psolPivRe[m], y-psolPivIm[m])
+		}
+		if k := int(psolPowVar[m]); k >= 0 { // a slot's corner: ζ = ((z − W)/T)·exp(−(z − A)/T), T = B·S2/v
+			tr, ti := psolDiv(psolVarBRe[k]*psolVarS2[k], psolVarBIm[k]*psolVarS2[k], vr[k], vi[k])
+			ar, ai := psolDiv(dx, dy, tr, ti)
+			er, ei := psolDiv(x-psolVarARe[k], y-psolVarAIm[k], tr, ti)
+			mag := math.Exp(-er)
+			cr, ci := mag*math.Cos(ei), -mag*math.Sin(ei)
+			sr, si = ar*cr-ai*ci, ar*ci+ai*cr
 		}
 		if sr == 0 && si == 0 {
 			continue
@@ -75,10 +87,6 @@ func U(x, y float64) float64 {
 			pr, pi = pr*lr-pi*at, pi*lr+pr*at
 		}
 		u += psolERe[m]*pr - psolEIm[m]*pi
-	}
-	var vr, vi [%[3]d]float64
-	for k := range psolVarKind {
-		vr[k], vi[k] = psolVar(k, x, y)
 	}
 	for j := range psolLogK {
 		if k := int(psolLogVar[j]); k >= 0 { // an elliptical hole: ln|w| = −ln|v|
@@ -234,10 +242,24 @@ double u(double x, double y) {
 	for (int k = 0; k < %[2]d; k++) {
 		u += psolDRe[k]*qr[k] - psolDIm[k]*qi[k];
 	}
+	double vr[%[3]d] = {0}, vi[%[3]d] = {0};
+	for (int k = 0; k < psolVars; k++) {
+		psolVar(k, x, y, &vr[k], &vi[k]);
+	}
 	for (int m = 0; m < psolPowers; m++) {
 		double dx = x - psolWRe[m], dy = y - psolWIm[m];
 		double sr = dx*psolRotRe[m] - dy*psolRotIm[m], si = dx*psolRotIm[m] + dy*psolRotRe[m];
 		if (psolPiv[m] != 0) psolDiv(dx, dy, x - psolPivRe[m], y - psolPivIm[m], &sr, &si); /* a hole's corner */
+		int k = (int)psolPowVar[m];
+		if (k >= 0) { /* a slot's corner: zeta = ((z - W)/T)*exp(-(z - A)/T), T = B*S2/v */
+			double tr, ti, ar, ai, er, ei;
+			psolDiv(psolVarBRe[k]*psolVarS2[k], psolVarBIm[k]*psolVarS2[k], vr[k], vi[k], &tr, &ti);
+			psolDiv(dx, dy, tr, ti, &ar, &ai);
+			psolDiv(x - psolVarARe[k], y - psolVarAIm[k], tr, ti, &er, &ei);
+			double mag = exp(-er), cr = mag*cos(ei), ci = -mag*sin(ei);
+			sr = ar*cr - ai*ci;
+			si = ar*ci + ai*cr;
+		}
 		if (sr == 0 && si == 0) continue;
 		double lr = log(hypot(sr, si)), at = atan2(si, sr);
 		double mag = exp(psolBeta[m]*lr), arg = psolBeta[m]*at;
@@ -248,10 +270,6 @@ double u(double x, double y) {
 			pr = t;
 		}
 		u += psolERe[m]*pr - psolEIm[m]*pi;
-	}
-	double vr[%[3]d] = {0}, vi[%[3]d] = {0};
-	for (int k = 0; k < psolVars; k++) {
-		psolVar(k, x, y, &vr[k], &vi[k]);
 	}
 	for (int j = 0; j < psolLogs; j++) {
 		int k = (int)psolLogVar[j];
@@ -311,11 +329,20 @@ def u(x, y):
         qr[k + 1], qi[k + 1] = vr/PSOL_HRE[row + k + 1], vi/PSOL_HRE[row + k + 1]
     for k in range(%[2]d):
         u += PSOL_DRE[k]*qr[k] - PSOL_DIM[k]*qi[k]
+    v = [_psol_var(k, x, y) for k in range(len(PSOL_VARKIND))]
     for m in range(len(PSOL_BETA)):
         dx, dy = x - PSOL_WRE[m], y - PSOL_WIM[m]
         sr, si = dx*PSOL_ROTRE[m] - dy*PSOL_ROTIM[m], dx*PSOL_ROTIM[m] + dy*PSOL_ROTRE[m]
         if PSOL_PIV[m] != 0:  # a hole's corner: (z - W)/(z - pivot)
             sr, si = _psol_div(dx, dy, x - PSOL_PIVRE[m], y - PSOL_PIVIM[m])
+        k = int(PSOL_POWVAR[m])
+        if k >= 0:  # a slot's corner: zeta = ((z - W)/T)*exp(-(z - A)/T), T = B*S2/v
+            tr, ti = _psol_div(PSOL_VARBRE[k]*PSOL_VARS2[k], PSOL_VARBIM[k]*PSOL_VARS2[k], v[k][0], v[k][1])
+            ar, ai = _psol_div(dx, dy, tr, ti)
+            er, ei = _psol_div(x - PSOL_VARARE[k], y - PSOL_VARAIM[k], tr, ti)
+            mag = math.exp(-er)
+            cr, ci = mag*math.cos(ei), -mag*math.sin(ei)
+            sr, si = ar*cr - ai*ci, ar*ci + ai*cr
         if sr == 0 and si == 0:
             continue
         lr, at = math.log(math.hypot(sr, si)), math.atan2(si, sr)
@@ -324,7 +351,6 @@ def u(x, y):
         if PSOL_PLOG[m] != 0:  # zeta^beta*log(zeta)
             pr, pi = pr*lr - pi*at, pi*lr + pr*at
         u += PSOL_ERE[m]*pr - PSOL_EIM[m]*pi
-    v = [_psol_var(k, x, y) for k in range(len(PSOL_VARKIND))]
     for j in range(len(PSOL_LOGK)):
         k = int(PSOL_LOGVAR[j])
         if k >= 0:  # an elliptical hole: ln|w| = -ln|v|
@@ -468,6 +494,11 @@ func writeSectionCode(w io.Writer, l series.Lang, pr *problem, sol *domain.Solut
 		}
 	}
 	b.WriteString(shape.array("PLog", plog))
+	powVar := make([]float64, len(f.PowerVar))
+	for m, k := range f.PowerVar {
+		powVar[m] = float64(k)
+	}
+	b.WriteString(shape.array("PowVar", powVar))
 	table("Log", f.LogAt)
 	b.WriteString(shape.array("LogK", f.LogK))
 	logVar := make([]float64, len(f.LogVar))
