@@ -291,7 +291,7 @@ func (lw *lowerer) mul(v value, vpos lexer.Position, w value, wpos lexer.Positio
 		return value{}, lw.fail(wpos, "the expanded expression would exceed %d terms", MaxSize)
 	}
 	if lw.work += v.f.Exact.Size() * w.f.Exact.Size(); lw.work > MaxWork {
-		return value{}, lw.fail(wpos, "expanding the expression would take more than %d term products (the work budget); write repeated factors as a power", MaxWork)
+		return value{}, lw.fail(wpos, "expanding the expression would take more than %d term products (the work budget): a long product, or a high power of a sum, expands into too many terms (write repeated factors as one power)", MaxWork)
 	}
 	if v.f.Exact.Bits()+w.f.Exact.Bits() > MaxBits {
 		return value{}, lw.fail(wpos, "a number in the product would exceed %d bits", MaxBits)
@@ -418,6 +418,18 @@ func (lw *lowerer) raise(v value, vpos lexer.Position, exp *unary) (value, error
 			}
 		}
 		return acc, nil
+	}
+	if _, isConst := constant(v); q.IsInt() && q.Sign() < 0 && isConst && expands {
+		// A sum of parameters to a negative power is 1/(its expansion):
+		// expanded within the work budget as a positive power is
+		// ((B+A+C+D)^(-49) took 8 s and printed a megabyte).
+		acc := v
+		for i := int64(1); i < -q.Num().Int64(); i++ {
+			if acc, err = lw.mul(acc, vpos, v, vpos); err != nil {
+				return value{}, err
+			}
+		}
+		v, q = acc, big.NewRat(-1, 1)
 	}
 	f, err := v.f.Pow(q)
 	if err != nil {
