@@ -179,7 +179,7 @@ func polygonHole(name string, p Polygon, env series.Env) (holeNumbers, error) {
 				cn.hasPivot = false
 			}
 		}
-		if hn.focus != 0 {
+		if spreadFits(xs, ys, hn.mapC, hn.focus) {
 			spread := holeBasis{c: hn.mapC, focus: hn.focus, span: hn.span}
 			if spreadCutInside(xs, ys, k, spread) {
 				cn.spread, cn.centrePivot, cn.hasPivot = spread, cn.hasPivot, true
