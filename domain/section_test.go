@@ -1255,3 +1255,29 @@ func TestNotchedHoleRefused(t *testing.T) {
 		t.Errorf("a U-shaped hole: %v, want a refusal naming the residual reached", err)
 	}
 }
+
+// TestInsulatedSlotVerified: a 10:1 slot with an insulated boundary
+// (dn(u) = 0) in the unit square, u = 0 outside. The independent check
+// differences ∂u/∂n one step in from each side; its step was 0.003 on the
+// slot's 0.06-long ends, where ∂u/∂n changes on the scale of the distance
+// to the re-entrant corner, and it failed the solve (exit 3) with the fit's
+// residual at 2e-13. Outside references: the divergence theorem (the
+// outline's flux is the source's integral, the slot's none).
+func TestInsulatedSlotVerified(t *testing.T) {
+	d := domain.Holed{Outer: polygonXY(0, 0, 1, 0, 1, 1, 0, 1), Holes: []domain.CircleHole{{Poly: polygonXY(0.2, 0.47, 0.8, 0.47, 0.8, 0.53, 0.2, 0.53)}}}
+	sol := solveWith(t, "lap(u) = -2", d, domain.Options{Tol: 1e-10}, append(sidesOf(d, "s", "u = 0"), sidesOf(d, "hole1", "dn(u) = 0")...)...)
+	if sol.Independent == nil || sol.Independent.Failed() {
+		t.Fatalf("the independent check failed or did not run: %+v (fit residual %.1e)", sol.Independent, sol.Section.Residual)
+	}
+	rep, err := sol.Report(nil, 1e-10)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if f := fluxThrough(rep, "hole1"); math.Abs(f) > 1e-9 {
+		t.Errorf("outward flux through the insulated slot %.3g, want 0", f)
+	}
+	area := 1 - 0.6*0.06
+	if f := fluxThrough(rep, "s"); math.Abs(f+2*area) > 1e-9 {
+		t.Errorf("outline's outward flux %.13g, want %.13g (divergence theorem)", f, -2*area)
+	}
+}
