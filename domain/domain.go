@@ -85,8 +85,9 @@ type posed struct {
 	rest    *series.Expr // the source's part with no closed form, for quadrature
 	// forceQuadrature keeps rest from any ansatz (Options.NumericSource).
 	forceQuadrature bool
-	quadSamples     int // Options.QuadratureSamples
-	quadBisections  int // Options.QuadratureBisections
+	quadSamples     int  // Options.QuadratureSamples
+	quadBisections  int  // Options.QuadratureBisections
+	wholeBoundary   bool // Options.WholeBoundary
 }
 
 // Side is what one boundary part contributes: the condition, the particular
@@ -208,7 +209,7 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 	if opt.NumericSource && source.IsExact() {
 		source = series.Field{Rest: series.ExprOf(source.Exact)}
 	}
-	p := &posed{f: source.Exact, rest: source.Rest, conds: map[string]Condition{}, env: opt.Env, tol: opt.Tol, numeric: opt.NumericData, forceQuadrature: opt.NumericSource, quadSamples: opt.QuadratureSamples, quadBisections: opt.QuadratureBisections}
+	p := &posed{f: source.Exact, rest: source.Rest, conds: map[string]Condition{}, env: opt.Env, tol: opt.Tol, numeric: opt.NumericData, forceQuadrature: opt.NumericSource, quadSamples: opt.QuadratureSamples, quadBisections: opt.QuadratureBisections, wholeBoundary: opt.WholeBoundary}
 	for _, c := range conds {
 		if _, dup := p.conds[c.Side]; dup {
 			return nil, unsupported("side %s has two conditions; give one", c.Side)

@@ -213,11 +213,12 @@ type rationalHarmonic struct {
 }
 
 // polyVar is the polynomial's variable at z and its derivative in z:
-// Z = (z − z_c)/s, or with a symmetry of order 2n, Z = W^n, W = (z − z_c)·ρ/s
-// with ρ turning a mirror line onto the real axis. Then the symmetric analytic
-// functions are those of W^n with real coefficients (a mirror: F(W̄) is the
-// conjugate of F(W); the rotation by 2π/n: F(W·e^{2πi/n}) = F(W)), and the
-// basis is one real column a degree of Z.
+// Z = (z − z_c)/s, or with a symmetry whose turns are by 2π/n, Z = W^n,
+// W = (z − z_c)·ρ/s with ρ turning a mirror line (if any) onto the real axis.
+// Then the symmetric analytic functions are those of W^n (the turn by 2π/n:
+// F(W·e^{2πi/n}) = F(W)), with real coefficients where there are mirror
+// lines (a mirror: F(W̄) is the conjugate of F(W)) and the basis one real
+// column a degree of Z; with turns alone, two columns a degree.
 func (h *rationalHarmonic) polyVar(z complex128) (Z, dZ complex128) {
 	d := h.polyRot / complex(h.scale, 0)
 	W := (z - h.centre) * d
@@ -438,7 +439,7 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	}
 	h := &rationalHarmonic{centre: centre, scale: scale, degree: degree, logs: geo.holes, mobius: geo.mobius, sym: geo.sym, shift: geo.shift, polyRot: 1, polyPower: 1}
 	if geo.sym != nil {
-		h.polyRot, h.polyPower = cmplx.Conj(geo.sym.walls[0]), len(geo.sym.group)/2
+		h.polyRot, h.polyPower = cmplx.Conj(geo.sym.walls[0]), geo.sym.turnOrder()
 	}
 	// The rows' data less the known shift's share: what the fitted part must supply.
 	shiftOp := func(p boundaryPoint) float64 {
@@ -522,6 +523,9 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 			}
 			for j, c := range h.powers {
 				c2, m := powerImage(g, c)
+				if k := cornerAt(corners, c2.w, geo.sym.eps); k >= 0 {
+					c2.w = corners[k].w // the branch point on the corner itself, not 1e-16 off
+				}
 				m.rep = j
 				powers, powerImg = append(powers, c2), append(powerImg, m)
 			}
@@ -538,7 +542,8 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	for i, p := range pts {
 		Z[i], _ = h.polyVar(p.z)
 	}
-	h.hess, h.realHess = arnoldi(Z, degree, geo.sym != nil), geo.sym != nil
+	mirrored := geo.sym != nil && geo.sym.mirrored // real coefficients
+	h.hess, h.realHess = arnoldi(Z, degree, mirrored), mirrored
 	// Columns: Re and Im of each pole's and each polynomial's operator value.
 	nc := 2*nPole + 2*(degree+1) + 2*nPower + 2*len(h.logs) + 2*nLaurent + 2*len(h.mobiusK)
 	// A floating side's value U is one more unknown (its column: −1 on its
@@ -628,7 +633,7 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 		for k := range q {
 			w := val(q[k], dq[k])
 			add(i, col, real(w))
-			if geo.sym == nil { // with a symmetry, real coefficients: the Im column would be antisymmetric
+			if !mirrored { // with a mirror line, real coefficients: the Im column would be antisymmetric
 				add(i, col+1, imag(w))
 			}
 			col += 2

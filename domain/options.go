@@ -39,6 +39,9 @@ type Options struct {
 	// QuadratureBisections caps the quadrature's radial bisections (0: its
 	// own default), the same kind of hook for the radial mesh's estimate.
 	QuadratureBisections int
+	// WholeBoundary fits a section on its whole boundary even where the
+	// problem has a symmetry (for comparing the two).
+	WholeBoundary bool
 }
 
 // SumTol is the series truncation used where no tolerance is given.

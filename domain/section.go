@@ -243,8 +243,10 @@ type SectionParts struct {
 	// (1: none): the fit's rows lie on one of that many congruent parts of
 	// the boundary, its terms summed over their images (symmetry.go).
 	Symmetries int
-	fit        *rationalHarmonic
-	quad       []*sideInterpolant // the numeric particular part on each side, if any
+	// Turns marks a symmetry group of turns alone (no mirror line).
+	Turns bool
+	fit   *rationalHarmonic
+	quad  []*sideInterpolant // the numeric particular part on each side, if any
 }
 
 // attach adds the fitted harmonic part to the evaluator.
@@ -321,7 +323,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		}
 	}
 	target := p.tol * math.Max(scale, 1e-300)
-	if quad == nil && !allNeumann && len(geo.breaks) == 0 { // a symmetric problem fits on one chamber (symmetry.go)
+	if quad == nil && !allNeumann && len(geo.breaks) == 0 && !p.wholeBoundary { // a symmetric problem fits on one chamber (symmetry.go)
 		if geo.sym, err = sectionSymmetry(d, &geo, conds, p, 0.01*target); err != nil {
 			return nil, err
 		}
@@ -460,7 +462,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	}
 	parts := &SectionParts{Corners: len(geo.corners), Degree: best.degree * best.polyPower, Residual: best.residual,
 		X: real(best.worstAt), Y: imag(best.worstAt), Side: geo.shape.Sides[best.worstOn].Name, Bound: true, fit: best, Poles: bestPoles,
-		Holes: len(geo.holes), Symmetries: geo.sym.order()}
+		Holes: len(geo.holes), Symmetries: geo.sym.order(), Turns: geo.sym != nil && !geo.sym.mirrored}
 	for _, hb := range geo.holes {
 		parts.Elliptic = parts.Elliptic || hb.focus != 0
 	}
@@ -1530,7 +1532,11 @@ func shapeSamples(d Domain, env series.Env) ([][2]float64, error) {
 func (sp *SectionParts) Describe() string {
 	symmetric := ""
 	if sp.Symmetries > 1 {
-		symmetric = fmt.Sprintf(", each term with its images under the problem's %d symmetries (mirror lines through the centroid), fitted on 1/%d of the boundary", sp.Symmetries, sp.Symmetries)
+		kind := "mirror lines through the centroid"
+		if sp.Turns {
+			kind = "turns about the centroid"
+		}
+		symmetric = fmt.Sprintf(", each term with its images under the problem's %d symmetries (%s), fitted on 1/%d of the boundary", sp.Symmetries, kind, sp.Symmetries)
 	}
 	if sp.Corners == 0 {
 		return fmt.Sprintf("a polynomial of degree %d%s", sp.Degree, symmetric)

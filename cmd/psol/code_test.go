@@ -46,6 +46,10 @@ var codeCases = []struct {
 	{[]string{"solve", "lap(u) = -1", "--rect", "1,0.6", "--hole", "circle 0.2,0.2,0.15", "--hole", "polygon 0.6,0.1 0.9,0.1 0.9,0.3 0.6,0.3", "--bc", "u = 0", "--tol", "1e-10"}, "", true},
 	// A tilted slot, 7:1: its terms are powers of an ellipse's exterior map too.
 	{[]string{"solve", "lap(u) = -1", "--rect", "1,0.6", "--hole", "polygon 0.45,0.2 0.9,0.35 0.88,0.41 0.43,0.26", "--bc", "u = 0", "--tol", "1e-10"}, "", true},
+	// A 10:1 slot turned 20° about the rectangle's centre: the half turn is
+	// the problem's only symmetry, and the polynomial's coefficients in Z = W²
+	// are complex (symmetry.go's turns).
+	{[]string{"solve", "lap(u) = -1", "--rect", "1,0.6", "--hole", "polygon 0.273627,0.191003 0.743474,0.362013 0.726373,0.408997 0.256526,0.237987", "--bc", "u = 0", "--tol", "1e-10"}, "", true},
 	// Point sources off the image systems: the logarithm's exact series on
 	// the circles (cos(n*atan t), sin(n*atan t) and ρ^n in the terms).
 	{[]string{"solve", "lap(u) = delta(x + 0.3, y - 0.2) - 1", "--disk", "1", "--bc", "dn(u) + 2u = 0"}, "", false},
