@@ -152,7 +152,10 @@ func polygonHole(name string, p Polygon, env series.Env) (holeNumbers, error) {
 		hn.sides = append(hn.sides, s)
 	}
 	hn.x, hn.y, hn.r = holeCentre(xs, ys, hn.x, hn.y)
-	if c, f, m, ok := slotMap(xs, ys); ok {
+	spreads := func(c, focus complex128) bool { return spreadFits(xs, ys, c, focus) }
+	if c, f, m, ok := slotMap(xs, ys, spreads); ok {
+		hn.mapC, hn.focus, hn.span = c, f, m
+	} else if c, f, m, ok := slotMap(xs, ys, nil); ok {
 		hn.mapC, hn.focus, hn.span = c, f, m
 	}
 	for k := 0; k < n; k++ {

@@ -26,7 +26,16 @@ const slotAspect = 1.5
 // refused, its series about the centre diverging, residual 1.7e3). ok is
 // false for a hole less elongated than slotAspect, or where the centre or
 // that segment at 0.6 of f leaves the hole.
-func slotMap(xs, ys []float64) (c, focus complex128, span float64, ok bool) {
+//
+// With fits (the spread pivot's test, spreadFits), a focus is taken only
+// where fits holds, and a shortened one only where its segment keeps half
+// of B from every edge. A slot with pointed tips on its axis has them
+// beside the full foci, where the spread pivot fails (spreadFits); with the
+// foci moved in until they are clear, the spread serves it: a 10:1 hexagon
+// took 12 s about its centre, 1.6 s so. A blunt narrow end is another
+// matter: a 6:1 trapezium's foci moved in by a tenth ran 0.012 (a quarter
+// of B) from its flanks, and the fit was refused at 1.4e-6.
+func slotMap(xs, ys []float64, fits func(c, focus complex128) bool) (c, focus complex128, span float64, ok bool) {
 	n := len(xs)
 	var area, cx, cy float64
 	for k := 0; k < n; k++ {
@@ -63,21 +72,28 @@ func slotMap(xs, ys []float64) (c, focus complex128, span float64, ok bool) {
 		return 0, 0, 0, false
 	}
 	c = complex(cx, cy) + dir*complex((hi+lo)/2, (hiN+loN)/2)
-	inside := func(focus complex128) bool {
+	inside := func(focus complex128, clearance float64) bool {
+		if fits != nil && !fits(c, focus) {
+			return false
+		}
 		for s := -32; s <= 32; s++ {
 			p := c + focus*complex(float64(s)/32, 0)
-			if !insidePolygon(xs, ys, real(p), imag(p)) || edgeDistance(xs, ys, real(p), imag(p)) < 1e-3*B {
+			if !insidePolygon(xs, ys, real(p), imag(p)) || edgeDistance(xs, ys, real(p), imag(p)) < clearance {
 				return false
 			}
 		}
 		return true
 	}
-	if focus = dir * complex(math.Sqrt(A*A-B*B), 0); inside(focus) {
+	if focus = dir * complex(math.Sqrt(A*A-B*B), 0); inside(focus, 1e-3*B) {
 		return c, focus, A + B, true
+	}
+	clearance := 1e-3 * B
+	if fits != nil {
+		clearance = B / 2
 	}
 	for t := 0.95; t > 0.55; t -= 0.05 {
 		f := t * math.Sqrt(A*A-B*B)
-		if focus = dir * complex(f, 0); inside(focus) {
+		if focus = dir * complex(f, 0); inside(focus, clearance) {
 			return c, focus, A + math.Sqrt(A*A-f*f), true
 		}
 	}

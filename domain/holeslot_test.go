@@ -56,7 +56,7 @@ func TestSpreadCutInside(t *testing.T) {
 		for i := 0; i < len(v); i += 2 {
 			xs, ys = append(xs, v[i]), append(ys, v[i+1])
 		}
-		c, f, m, ok := slotMap(xs, ys)
+		c, f, m, ok := slotMap(xs, ys, nil)
 		if !ok {
 			t.Fatalf("%s: no slot map", name)
 		}

@@ -1326,3 +1326,28 @@ func TestInsulatedSlotVerified(t *testing.T) {
 		t.Errorf("outline's outward flux %.13g, want %.13g (divergence theorem)", f, -2*area)
 	}
 }
+
+// A 10:1 hexagonal slot whose pointed tips lie on its axis, beside the full
+// foci: the spread pivot fails there (spreadFits), and about the centre the
+// fit took degree 291 and 12 s at tol 1e-12. With the foci moved in until
+// they keep clear of the tips (slotMap), the spread serves it. Against the
+// centre pivot's fit (data 1e-30·e^x on the slot keep it, keepSpread) at
+// points by the tips and flanks, and the divergence theorem.
+func TestPointedSlotShortFoci(t *testing.T) {
+	d := domain.Holed{Outer: polygonXY(0, 0, 1, 0, 1, 1, 0, 1), Holes: []domain.CircleHole{{Poly: polygonXY(0.15, 0.5, 0.2, 0.47, 0.7, 0.47, 0.75, 0.5, 0.7, 0.53, 0.2, 0.53)}}}
+	spread := solveWith(t, "lap(u) = -2", d, domain.Options{Tol: 1e-12}, append(sidesOf(d, "s", "u = 0"), sidesOf(d, "hole1", "u = 0")...)...)
+	centre := solveWith(t, "lap(u) = -2", d, domain.Options{Tol: 1e-8}, append(sidesOf(d, "s", "u = 0"), sidesOf(d, "hole1", "u = 1e-30*exp(x)")...)...)
+	t.Logf("degree %d spread, %d about the centre; residual %.1e, %.1e", spread.Section.Degree, centre.Section.Degree, spread.Section.Residual, centre.Section.Residual)
+	if spread.Section.Residual > 1e-11 || spread.Section.Degree > 100 {
+		t.Errorf("the spread fit stopped at %.1e, degree %d", spread.Section.Residual, spread.Section.Degree)
+	}
+	a, b := evaluator(t, spread, 1e-12), evaluator(t, centre, 1e-8)
+	for _, p := range [][2]float64{{0.14, 0.5}, {0.76, 0.5}, {0.17, 0.52}, {0.45, 0.535}, {0.45, 0.465}, {0.2, 0.8}, {0.9, 0.1}} {
+		u, _, _ := a.AtXY(p[0], p[1])
+		v, _, _ := b.AtXY(p[0], p[1])
+		if math.Abs(u-v) > 10*(spread.DataError+centre.DataError) {
+			t.Errorf("u%v = %.14f spread, %.14f about the centre (the fits' residuals %.1e, %.1e)", p, u, v, spread.DataError, centre.DataError)
+		}
+	}
+	checkDivergence(t, "pointed slot", spread, 1e-12, 1e-9)
+}
