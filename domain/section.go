@@ -1445,7 +1445,12 @@ func xyExtremes(shape Shape, inside func(x, y float64) bool, ev *Evaluator) (max
 	refine := func(p [2]float64, sign float64) ([2]float64, float64) {
 		best := sign * u(p[0], p[1])
 		dx, dy := (b.X1-b.X0)/n, (b.Y1-b.Y0)/n
-		for it := 0; it < 80 && (dx > 1e-12*(b.X1-b.X0) || dy > 1e-12*(b.Y1-b.Y0)); it++ {
+		// Steps down to 1e-9 of the box, not below: the containment test
+		// takes a point 1e-12 outside for one on the side, and 1e-12 inside
+		// a hole, by a re-entrant corner, u's continuation is
+		// -(1e-12)^(2/3) in size. A slot's minimum read -2.1e-9 there, where
+		// u = 0 on every side. (The place is printed to 1e-6 of the box.)
+		for it := 0; it < 80 && (dx > 1e-9*(b.X1-b.X0) || dy > 1e-9*(b.Y1-b.Y0)); it++ {
 			moved := false
 			for _, st := range [][2]float64{{dx, 0}, {-dx, 0}, {0, dy}, {0, -dy}} {
 				q := [2]float64{p[0] + st[0], p[1] + st[1]}

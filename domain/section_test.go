@@ -915,6 +915,17 @@ func TestSymmetricSections(t *testing.T) {
 				}
 			}
 			checkDivergence(t, c.name, half, 1e-12, 1e-9)
+			// Δu = −2 < 0 with u = 0 on every side: u ≥ 0 (the maximum
+			// principle), its least value 0, on the sides. The report's
+			// search once stepped 1e-12 into the slot by a corner and read
+			// −2.1e-9 there.
+			rep, err := half.Report(nil, 1e-12)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if rep.Min < -1e-9*rep.Max {
+				t.Errorf("min u = %.3g (max %.6g): below 0", rep.Min, rep.Max)
+			}
 		})
 	}
 	// Data that break the symmetry (an insulated side) leave the full fit.
@@ -1350,4 +1361,14 @@ func TestPointedSlotShortFoci(t *testing.T) {
 		}
 	}
 	checkDivergence(t, "pointed slot", spread, 1e-12, 1e-9)
+	// u ≥ 0 (Δu < 0, u = 0 on the sides: the maximum principle). The
+	// report's search once stepped 1e-12 into the slot by a tip, where
+	// u's continuation read −2.3e-9.
+	rep, err := spread.Report(nil, 1e-12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if rep.Min < -1e-9*rep.Max {
+		t.Errorf("min u = %.3g (max %.6g): below 0", rep.Min, rep.Max)
+	}
 }
