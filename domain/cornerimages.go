@@ -143,11 +143,11 @@ func cornerImages(corners []corner, mirrors []mirrorLine) []cornerImage {
 
 // imageTerms are the image's poles (of the corner's n, at most imagePoles)
 // and singular powers, the corner's mirrored.
-func (im cornerImage) imageTerms(c corner, scale float64, n, K int) ([]complex128, []cornerPower) {
+func (im cornerImage) imageTerms(c corner, scale float64, n, K int) ([]pole, []cornerPower) {
 	g := im.mirror.isometry()
 	poles := lightningPoles(c, c.poleScale(scale), min(n, imagePoles))
 	for j, p := range poles {
-		poles[j] = g.apply(p)
+		poles[j] = pole{g.apply(p.base), g.direction(p.off)}
 	}
 	var powers []cornerPower
 	for _, cp := range cornerPowers(c, min(K, imagePowers)) {

@@ -179,7 +179,7 @@ func cornerPowers(c corner, K int) []cornerPower {
 type rationalHarmonic struct {
 	scratch  []complex128 // terms' buffers (terms)
 	basis    []complex128 // the polynomial basis's buffers (basisScratch)
-	poles    []complex128
+	poles    []pole
 	cPole    []complex128 // h's pole part: Re Σ cPole_j/(z − p_j)
 	powers   []cornerPower
 	cPower   []complex128
@@ -397,11 +397,27 @@ type laurentTerm struct {
 	j    int
 }
 
+// A pole p = base + off is kept as its corner (base) and its offset from
+// it: 1/(z − p) is taken as 1/((z − base) − off), and z − base is exact
+// for z near the corner (Sterbenz), where the pole's own position, rounded
+// to 1e-16 of the section's size, is 1e-7 of its distance off at 1e-9 from
+// the corner. A symmetric fit's image of a pole is then exact to rounding
+// relative to its distance: across a mirror line through a corner the
+// images of that corner's poles, rounded apiece, made the symmetrised terms
+// asymmetric by 1e-7 of their size there.
+type pole struct{ base, off complex128 }
+
+// at is the pole's position.
+func (p pole) at() complex128 { return p.base + p.off }
+
+// recip is 1/(z − p).
+func (p pole) recip(z complex128) complex128 { return recip((z - p.base) - p.off) }
+
 // lightningPoles are n poles at a corner: w + dir·d_j (poleDistances).
-func lightningPoles(c corner, s float64, n int) []complex128 {
-	out := make([]complex128, n)
+func lightningPoles(c corner, s float64, n int) []pole {
+	out := make([]pole, n)
 	for j, d := range poleDistances(n, s) {
-		out[j] = c.w + c.dir*complex(d, 0)
+		out[j] = pole{c.w, c.dir * complex(d, 0)}
 	}
 	return out
 }
@@ -511,13 +527,16 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 	}
 	poleImg, powerImg, laurentImg := identityImages(nPole), identityImages(nPower), identityImages(nLaurent)
 	if geo.sym != nil {
-		var poles []complex128
+		var poles []pole
 		var powers []cornerPower
 		var laurent []laurentTerm
 		poleImg, powerImg, laurentImg = nil, nil, nil
 		for _, g := range geo.sym.group {
 			for j, p := range h.poles {
 				q, m := poleImage(g, p)
+				if k := cornerAt(corners, q.base, geo.sym.eps); k >= 0 {
+					q.base = corners[k].w // anchored on the corner itself
+				}
 				m.rep = j
 				poles, poleImg = append(poles, q), append(poleImg, m)
 			}
@@ -616,7 +635,7 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 			return
 		}
 		for e, pole := range h.poles {
-			d := recip(z - pole)
+			d := pole.recip(z)
 			m := poleImg[e]
 			w := m.factor * (ca*d - cb*d*d)
 			re, im := real(w), imag(w)

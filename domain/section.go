@@ -1160,7 +1160,7 @@ func (h *rationalHarmonic) complexValue(z complex128) (complex128, complex128) {
 func (h *rationalHarmonic) evaluate(z complex128, slope bool) (complex128, complex128) {
 	var f, df complex128
 	for j, p := range h.poles {
-		d := recip(z - p)
+		d := p.recip(z)
 		f += h.cPole[j] * d
 		if slope {
 			df -= h.cPole[j] * d * d
@@ -1726,18 +1726,21 @@ func neumannBalance(d section, geo sectionGeometry, conds []sideCondition, up se
 }
 
 // FittedPart is a section's fitted harmonic part in numbers, for generated
-// code: h(x, y) = Re[Σ_j C_j/(z − P_j) + Σ_k D_k q_k(Z) + Σ_m E_m ζ_m^β_m],
+// code: h(x, y) = Re[Σ_j C_j/((z − P_j) − O_j) + Σ_k D_k q_k(Z) + Σ_m E_m ζ_m^β_m],
 // z = x + iy, Z = (z − Centre)/Scale, q_0 = 1 and
 // q_{k+1} = (Z q_k − Σ_{j≤k} H_k[j] q_j)/H_k[k+1] (Arnoldi's recurrence),
 // ζ_m = (z − W_m)·Rot_m on the principal branch.
 type FittedPart struct {
-	Poles, C  []complex128
-	Centre    complex128
-	Scale     float64
-	H         [][]complex128
-	D         []complex128
-	W, Rot, E []complex128
-	Beta      []float64
+	// Poles are the poles' corners P_j, PoleOff their offsets O_j from them
+	// (the pole is at P_j + O_j; the difference in that order keeps its
+	// digits near the corner).
+	Poles, PoleOff, C []complex128
+	Centre            complex128
+	Scale             float64
+	H                 [][]complex128
+	D                 []complex128
+	W, Rot, E         []complex128
+	Beta              []float64
 	// Pivot, where Pivoted[m], makes power m's variable ζ = (z − W)/(z − Pivot)
 	// (a hole's corner) instead of (z − W)·Rot.
 	Pivot   []complex128
@@ -1797,8 +1800,11 @@ type HoleTerm struct {
 // Fitted is the fitted part in numbers.
 func (sp *SectionParts) Fitted() FittedPart {
 	h := sp.fit
-	out := FittedPart{Poles: h.poles, C: h.cPole, Centre: h.centre, Scale: h.scale, H: h.hess, D: h.cPoly, E: h.cPower,
+	out := FittedPart{C: h.cPole, Centre: h.centre, Scale: h.scale, H: h.hess, D: h.cPoly, E: h.cPower,
 		PolyRot: h.polyRot, PolyPower: h.polyPower, Maps: [][6]float64{isometry{rot: 1}.Matrix()}}
+	for _, p := range h.poles {
+		out.Poles, out.PoleOff = append(out.Poles, p.base), append(out.PoleOff, p.off)
+	}
 	if h.sym != nil {
 		out.Maps = nil
 		for _, g := range h.sym.group {

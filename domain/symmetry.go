@@ -474,9 +474,11 @@ func (m imageTerm) coef(c complex128) complex128 {
 // and an ellipse's terms with its focus turned by L⁻¹ (the exterior map
 // commutes with conjugation), with factor 1.
 
-// poleImage is the pole p's image under g.
-func poleImage(g isometry, p complex128) (complex128, imageTerm) {
-	q := g.inverse().apply(p)
+// poleImage is the pole p's image under g: its corner's image, and its
+// offset turned by g⁻¹'s linear part.
+func poleImage(g isometry, p pole) (pole, imageTerm) {
+	inv := g.inverse()
+	q := pole{inv.apply(p.base), inv.direction(p.off)}
 	if g.flip {
 		return q, imageTerm{conj: true, factor: g.rot}
 	}

@@ -37,7 +37,7 @@ func U(x, y float64) float64 {
 		u += psolClosed(psolMapA[m]*x+psolMapB[m]*y+psolMapE[m], psolMapC[m]*x+psolMapD[m]*y+psolMapF[m]) / float64(len(psolMapA))
 	}
 	for j := range psolPoleRe {
-		dx, dy := x-psolPoleRe[j], y-psolPoleIm[j]
+		dx, dy := (x-psolPoleRe[j])-psolPoleOffRe[j], (y-psolPoleIm[j])-psolPoleOffIm[j] // from the corner, then the offset: digits kept near it
 		u += (psolCRe[j]*dx + psolCIm[j]*dy) / (dx*dx + dy*dy)
 	}
 	var qr, qi [%[2]d]float64
@@ -215,7 +215,7 @@ double u(double x, double y) {
 	for (int m = 0; m < psolMaps; m++) /* the closed part's mean over the section's symmetries (the identity alone where it has none) */
 		u += psolClosed(psolMapA[m]*x + psolMapB[m]*y + psolMapE[m], psolMapC[m]*x + psolMapD[m]*y + psolMapF[m]) / psolMaps;
 	for (int j = 0; j < psolPoles; j++) {
-		double dx = x - psolPoleRe[j], dy = y - psolPoleIm[j];
+		double dx = (x - psolPoleRe[j]) - psolPoleOffRe[j], dy = (y - psolPoleIm[j]) - psolPoleOffIm[j]; /* from the corner, then the offset: digits kept near it */
 		u += (psolCRe[j]*dx + psolCIm[j]*dy) / (dx*dx + dy*dy);
 	}
 	double qr[%[2]d] = {1}, qi[%[2]d] = {0};
@@ -312,7 +312,7 @@ def u(x, y):
     for m in range(len(PSOL_MAPA)):  # the closed part's mean over the section's symmetries (the identity alone where it has none)
         u += _psol_closed(PSOL_MAPA[m]*x + PSOL_MAPB[m]*y + PSOL_MAPE[m], PSOL_MAPC[m]*x + PSOL_MAPD[m]*y + PSOL_MAPF[m]) / len(PSOL_MAPA)
     for j in range(len(PSOL_POLERE)):
-        dx, dy = x - PSOL_POLERE[j], y - PSOL_POLEIM[j]
+        dx, dy = (x - PSOL_POLERE[j]) - PSOL_POLEOFFRE[j], (y - PSOL_POLEIM[j]) - PSOL_POLEOFFIM[j]  # from the corner, then the offset: digits kept near it
         u += (PSOL_CRE[j]*dx + PSOL_CIM[j]*dy) / (dx*dx + dy*dy)
     qr, qi = [1.0] + [0.0]*(%[2]d - 1), [0.0]*%[2]d
     zr, zi = (x - PSOL_CENTRERE)/PSOL_SCALE, (y - PSOL_CENTREIM)/PSOL_SCALE
@@ -468,6 +468,7 @@ func writeSectionCode(w io.Writer, l series.Lang, pr *problem, sol *domain.Solut
 		b.WriteString(shape.array(name+"Im", im))
 	}
 	table("Pole", f.Poles)
+	table("PoleOff", f.PoleOff)
 	table("C", f.C)
 	var flat []complex128
 	for _, row := range f.H {
