@@ -820,9 +820,9 @@ func TestSymmetricSections(t *testing.T) {
 			t.Errorf("J = %.13g, want %.13g (Saint-Venant's series, Timoshenko & Goodier)", figs[0].Value, want)
 		}
 	})
-	// A flat-topped regular hexagon: the mirror x = 0 only (the line y = 0
-	// runs through two vertices, refused: a corner on a mirror line). A
-	// manufactured solution even in x: u = cosh x·cos y + x²y, Δu = 2y.
+	// A flat-topped regular hexagon with data even in x alone: the mirror
+	// x = 0 only (the hexagon's other five are not the data's). A
+	// manufactured solution: u = cosh x·cos y + x²y, Δu = 2y.
 	t.Run("hexagon, one mirror", func(t *testing.T) {
 		h := math.Sqrt(3) / 2
 		d := polygonXY(1, 0, 0.5, h, -0.5, h, -1, 0, -0.5, -h, 0.5, -h)
@@ -842,7 +842,7 @@ func TestSymmetricSections(t *testing.T) {
 	})
 	// A square tube (outer side 1, wall 0.1), its hole's value from
 	// single-valued warping: the two mirror lines through the sides'
-	// midpoints (the diagonals run through corners: refused). Bredt's
+	// midpoints and the two diagonals, through its corners. Bredt's
 	// thin-walled formula J ≈ 4A_m²t/s_m (A_m, s_m the mean line's area and
 	// length; Timoshenko & Goodier §115) within the 6% a wall of a tenth
 	// allows, and the symmetric fit against the full one: the same tube
@@ -865,8 +865,8 @@ func TestSymmetricSections(t *testing.T) {
 			return append(sidesOf(d, "s", "u = 0"), sidesOf(d, "hole1", "u = const, flux = 2*0.64")...)
 		}
 		sym := solveWith(t, "lap(u) = -2", tube(0), domain.Options{Tol: 1e-10}, conds(tube(0))...)
-		if n := sym.Section.Symmetries; n != 4 {
-			t.Errorf("the fit used %d symmetries, want 4", n)
+		if n := sym.Section.Symmetries; n != 8 {
+			t.Errorf("the fit used %d symmetries, want 8", n)
 		}
 		turned := solveWith(t, "lap(u) = -2", tube(0.1), domain.Options{Tol: 1e-10}, conds(tube(0.1))...)
 		if n := turned.Section.Symmetries; n != 4 || !turned.Section.Turns {
@@ -926,6 +926,53 @@ func TestSymmetricSections(t *testing.T) {
 			if rep.Min < -1e-9*rep.Max {
 				t.Errorf("min u = %.3g (max %.6g): below 0", rep.Min, rep.Max)
 			}
+		})
+	}
+	// Corners on mirror lines. An equilateral triangle's three mirrors run
+	// through its vertices: J = √3·a⁴/80 (Timoshenko & Goodier, §112). The
+	// L shape's diagonal runs through its re-entrant corner, and a
+	// hexagonal slot's axis through its tips: each against its fit on the
+	// whole boundary.
+	t.Run("triangle, mirrors through its corners", func(t *testing.T) {
+		d := polygonXY(0, 0, 1, 0, 0.5, math.Sqrt(3)/2)
+		sol := solveWith(t, "lap(u) = -2", d, domain.Options{Tol: 1e-12}, sidesOf(d, "", "u = 0")...)
+		if n := sol.Section.Symmetries; n != 6 {
+			t.Errorf("the fit used %d symmetries, want 6", n)
+		}
+		if j, want := quantityOf(t, sol, "torsion", 1e-12)[0].Value, math.Sqrt(3)/80; math.Abs(j-want) > 1e-12*want {
+			t.Errorf("J = %.14g, want √3/80 = %.14g (Timoshenko & Goodier)", j, want)
+		}
+	})
+	for _, c := range []struct {
+		name string
+		d    domain.Domain
+		sym  int
+		pts  [][2]float64
+	}{
+		{"L shape, diagonal", polygonXY(0, 0, 2, 0, 2, 1, 1, 1, 1, 2, 0, 2), 2, [][2]float64{{1.001, 1.001}, {1.01, 0.99}, {0.5, 1.5}, {1.5, 0.5}, {0.2, 0.3}}},
+		{"hexagonal slot, its axis", domain.Holed{Outer: polygonXY(0, 0, 1, 0, 1, 1, 0, 1), Holes: []domain.CircleHole{{Poly: polygonXY(0.15, 0.5, 0.2, 0.47, 0.7, 0.47, 0.75, 0.5, 0.7, 0.53, 0.2, 0.53)}}}, 2, [][2]float64{{0.149, 0.5}, {0.751, 0.5}, {0.17, 0.51}, {0.45, 0.535}, {0.2, 0.8}}},
+	} {
+		t.Run(c.name, func(t *testing.T) {
+			var conds []string
+			if h, ok := c.d.(domain.Holed); ok {
+				conds = append(sidesOf(h, "s", "u = 0"), sidesOf(h, "hole1", "u = 0")...)
+			} else {
+				conds = sidesOf(c.d, "", "u = 0")
+			}
+			sym := solveWith(t, "lap(u) = -2", c.d, domain.Options{Tol: 1e-12}, conds...)
+			if n := sym.Section.Symmetries; n != c.sym {
+				t.Errorf("the fit used %d symmetries, want %d", n, c.sym)
+			}
+			full := solveWith(t, "lap(u) = -2", c.d, domain.Options{Tol: 1e-12, WholeBoundary: true}, conds...)
+			a, b := evaluator(t, sym, 1e-12), evaluator(t, full, 1e-12)
+			for _, p := range c.pts {
+				u, _, _ := a.AtXY(p[0], p[1])
+				v, _, _ := b.AtXY(p[0], p[1])
+				if math.Abs(u-v) > 10*(sym.DataError+full.DataError) {
+					t.Errorf("u%v = %.14f with the mirror, %.14f on the whole boundary", p, u, v)
+				}
+			}
+			checkDivergence(t, c.name, sym, 1e-12, 1e-9)
 		})
 	}
 	// Data that break the symmetry (an insulated side) leave the full fit.

@@ -283,13 +283,15 @@ func invariantUnder(m isometry, g *sectionGeometry, conds []sideCondition, eps, 
 		}
 	}
 	for _, c := range g.corners {
-		// A corner on the mirror line is refused too: its poles, within
-		// rounding of the line (10⁻¹⁶ absolute at 10⁻⁹ from the corner),
-		// would make the symmetrised terms asymmetric by 10⁻⁷ of their
-		// size there, which the fit on one side cannot see (the L shape's
-		// re-entrant corner then stalled at 4·10⁻¹² instead of 1.6·10⁻¹²).
-		j := cornerAt(g.corners, m.apply(c.w), eps)
-		if j < 0 || abs(g.corners[j].w-c.w) < 100*eps {
+		// A corner on a mirror line is its own image. Its poles were
+		// refused once: placed within rounding of the line (10⁻¹⁶
+		// absolute at 10⁻⁹ from the corner) they made the symmetrised
+		// terms asymmetric by 10⁻⁷ of their size there, which the fit on
+		// one side cannot see (the L shape's re-entrant corner stalled at
+		// 4·10⁻¹² instead of 1.6·10⁻¹²). Kept as the corner and an offset
+		// (pole), their images are exact to rounding relative to their
+		// distance, and the corner is taken.
+		if cornerAt(g.corners, m.apply(c.w), eps) < 0 {
 			return false
 		}
 	}
