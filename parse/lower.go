@@ -268,6 +268,11 @@ func (lw *lowerer) product(p *product) (value, error) {
 }
 
 func (lw *lowerer) mul(v value, vpos lexer.Position, w value, wpos lexer.Position) (value, error) {
+	// The numbers' bound, on every kind of factor: a point source's
+	// strength or an unknown's factor too must read back from its print.
+	if v.bits()+w.bits() > MaxBits {
+		return value{}, lw.fail(wpos, "a number in the product would exceed %d bits", MaxBits)
+	}
 	switch {
 	case v.hasUnknown() && w.hasUnknown():
 		return value{}, lw.fail(wpos, "%s appears in a product with itself; the problem must be linear", lw.unk())
@@ -292,9 +297,6 @@ func (lw *lowerer) mul(v value, vpos lexer.Position, w value, wpos lexer.Positio
 	}
 	if lw.work += v.f.Exact.Size() * w.f.Exact.Size(); lw.work > MaxWork {
 		return value{}, lw.fail(wpos, "expanding the expression would take more than %d term products (the work budget): a long product, or a high power of a sum, expands into too many terms (write repeated factors as one power)", MaxWork)
-	}
-	if v.f.Exact.Bits()+w.f.Exact.Bits() > MaxBits {
-		return value{}, lw.fail(wpos, "a number in the product would exceed %d bits", MaxBits)
 	}
 	return lw.printable(value{f: v.f.Mul(w.f)}, wpos)
 }
@@ -321,6 +323,12 @@ func (lw *lowerer) unknownName(v value) string {
 func (lw *lowerer) div(v, w value, wpos lexer.Position) (value, error) {
 	if w.hasUnknown() {
 		return value{}, lw.fail(wpos, "cannot divide by %s", lw.unknownName(w))
+	}
+	// The product's bound holds for a quotient too: A/70000^900/7^700 built
+	// a 16455-bit denominator that its own printed form, 1/N*A, could not
+	// read back (found by the fuzzer); so did delta(x,y)/70000^900/7^700.
+	if v.bits()+w.bits() > MaxBits {
+		return value{}, lw.fail(wpos, "a number in the quotient would exceed %d bits", MaxBits)
 	}
 	if v.hasUnknown() {
 		c, ok := constant(w)

@@ -30,6 +30,19 @@ func total(terms []value) value {
 	return total(terms[:half]).add(total(terms[half:]))
 }
 
+// bits is the size of v's largest exact number, in bits: of its source,
+// its point sources' strengths and its unknowns' factors.
+func (v value) bits() int {
+	n := v.f.Exact.Bits()
+	for _, c := range []series.Coef{v.lap, v.dn, v.u} {
+		n = max(n, series.Const(c).Bits())
+	}
+	for _, p := range v.f.Points {
+		n = max(n, series.Const(p.Q).Bits())
+	}
+	return n
+}
+
 // constant reports v as an exact constant without unknowns.
 func constant(v value) (series.Coef, bool) {
 	if v.hasUnknown() || !v.f.IsExact() {
