@@ -267,12 +267,20 @@ func (lw *lowerer) product(p *product) (value, error) {
 	return v, nil
 }
 
+// mul is v·w, its numbers within MaxBits. The bound is on the result, of
+// every kind of number in it (a point source's strength and an unknown's
+// factor too): what psol prints must read back, and a bound on the
+// factors' bits together refused the print of a result within it
+// (1/700^900 + 1 prints as N/D, D·A's bits one more than D's).
 func (lw *lowerer) mul(v value, vpos lexer.Position, w value, wpos lexer.Position) (value, error) {
-	// The numbers' bound, on every kind of factor: a point source's
-	// strength or an unknown's factor too must read back from its print.
-	if v.bits()+w.bits() > MaxBits {
+	r, err := lw.times(v, vpos, w, wpos)
+	if err == nil && r.bits() > MaxBits {
 		return value{}, lw.fail(wpos, "a number in the product would exceed %d bits", MaxBits)
 	}
+	return r, err
+}
+
+func (lw *lowerer) times(v value, vpos lexer.Position, w value, wpos lexer.Position) (value, error) {
 	switch {
 	case v.hasUnknown() && w.hasUnknown():
 		return value{}, lw.fail(wpos, "%s appears in a product with itself; the problem must be linear", lw.unk())
@@ -320,15 +328,20 @@ func (lw *lowerer) unknownName(v value) string {
 	return lw.unk()
 }
 
+// div is v/w, its numbers within MaxBits as mul's: A/70000^900/7^700 built
+// a 16455-bit denominator that its own print, 1/N*A, could not read back
+// (found by the fuzzer); so did delta(x,y)/70000^900/7^700.
 func (lw *lowerer) div(v, w value, wpos lexer.Position) (value, error) {
+	r, err := lw.quotient(v, w, wpos)
+	if err == nil && r.bits() > MaxBits {
+		return value{}, lw.fail(wpos, "a number in the quotient would exceed %d bits", MaxBits)
+	}
+	return r, err
+}
+
+func (lw *lowerer) quotient(v, w value, wpos lexer.Position) (value, error) {
 	if w.hasUnknown() {
 		return value{}, lw.fail(wpos, "cannot divide by %s", lw.unknownName(w))
-	}
-	// The product's bound holds for a quotient too: A/70000^900/7^700 built
-	// a 16455-bit denominator that its own printed form, 1/N*A, could not
-	// read back (found by the fuzzer); so did delta(x,y)/70000^900/7^700.
-	if v.bits()+w.bits() > MaxBits {
-		return value{}, lw.fail(wpos, "a number in the quotient would exceed %d bits", MaxBits)
 	}
 	if v.hasUnknown() {
 		c, ok := constant(w)
