@@ -728,6 +728,32 @@ func TestThinSlotSpreadAgrees(t *testing.T) {
 	}
 }
 
+// againstWholeBoundary solves torsion (Δu = −2, u = 0 on every side) on d
+// with its symmetry and on its whole boundary (Options.WholeBoundary),
+// compares u at pts within ten times the fits' residuals, checks the
+// symmetric fit's net flux (divergence theorem), and returns that fit.
+func againstWholeBoundary(t *testing.T, name string, d domain.Domain, pts [][2]float64) *domain.Solution {
+	t.Helper()
+	var conds []string
+	if h, ok := d.(domain.Holed); ok {
+		conds = append(sidesOf(h, "s", "u = 0"), sidesOf(h, "hole1", "u = 0")...)
+	} else {
+		conds = sidesOf(d, "", "u = 0")
+	}
+	sym := solveWith(t, "lap(u) = -2", d, domain.Options{Tol: 1e-12}, conds...)
+	full := solveWith(t, "lap(u) = -2", d, domain.Options{Tol: 1e-12, WholeBoundary: true}, conds...)
+	a, b := evaluator(t, sym, 1e-12), evaluator(t, full, 1e-12)
+	for _, p := range pts {
+		u, _, _ := a.AtXY(p[0], p[1])
+		v, _, _ := b.AtXY(p[0], p[1])
+		if math.Abs(u-v) > 10*(sym.DataError+full.DataError) {
+			t.Errorf("%s: u%v = %.14f with the symmetry, %.14f on the whole boundary", name, p, u, v)
+		}
+	}
+	checkDivergence(t, name, sym, 1e-12, 1e-9)
+	return sym
+}
+
 // checkDivergence checks the report's net outward flux against the source's
 // integral (the divergence theorem), relative to the latter, within rel;
 // the report at tol.
@@ -900,21 +926,10 @@ func TestSymmetricSections(t *testing.T) {
 	} {
 		t.Run(c.name, func(t *testing.T) {
 			d := domain.Holed{Outer: polygonXY(0, 0, 1, 0, 1, 1, 0, 1), Holes: []domain.CircleHole{{Poly: c.hole}}}
-			conds := append(sidesOf(d, "s", "u = 0"), sidesOf(d, "hole1", "u = 0")...)
-			half := solveWith(t, "lap(u) = -2", d, domain.Options{Tol: 1e-12}, conds...)
+			half := againstWholeBoundary(t, c.name, d, c.pts)
 			if n := half.Section.Symmetries; n != 2 || !half.Section.Turns {
 				t.Errorf("the fit used %d symmetries (turns: %v), want the half turn's 2", n, half.Section.Turns)
 			}
-			full := solveWith(t, "lap(u) = -2", d, domain.Options{Tol: 1e-12, WholeBoundary: true}, conds...)
-			a, b := evaluator(t, half, 1e-12), evaluator(t, full, 1e-12)
-			for _, p := range c.pts {
-				u, _, _ := a.AtXY(p[0], p[1])
-				v, _, _ := b.AtXY(p[0], p[1])
-				if math.Abs(u-v) > 10*(half.DataError+full.DataError) {
-					t.Errorf("u%v = %.14f with the half turn, %.14f on the whole boundary", p, u, v)
-				}
-			}
-			checkDivergence(t, c.name, half, 1e-12, 1e-9)
 			// Δu = −2 < 0 with u = 0 on every side: u ≥ 0 (the maximum
 			// principle), its least value 0, on the sides. The report's
 			// search once stepped 1e-12 into the slot by a corner and read
@@ -953,26 +968,9 @@ func TestSymmetricSections(t *testing.T) {
 		{"hexagonal slot, its axis", domain.Holed{Outer: polygonXY(0, 0, 1, 0, 1, 1, 0, 1), Holes: []domain.CircleHole{{Poly: polygonXY(0.15, 0.5, 0.2, 0.47, 0.7, 0.47, 0.75, 0.5, 0.7, 0.53, 0.2, 0.53)}}}, 2, [][2]float64{{0.149, 0.5}, {0.751, 0.5}, {0.17, 0.51}, {0.45, 0.535}, {0.2, 0.8}}},
 	} {
 		t.Run(c.name, func(t *testing.T) {
-			var conds []string
-			if h, ok := c.d.(domain.Holed); ok {
-				conds = append(sidesOf(h, "s", "u = 0"), sidesOf(h, "hole1", "u = 0")...)
-			} else {
-				conds = sidesOf(c.d, "", "u = 0")
-			}
-			sym := solveWith(t, "lap(u) = -2", c.d, domain.Options{Tol: 1e-12}, conds...)
-			if n := sym.Section.Symmetries; n != c.sym {
+			if n := againstWholeBoundary(t, c.name, c.d, c.pts).Section.Symmetries; n != c.sym {
 				t.Errorf("the fit used %d symmetries, want %d", n, c.sym)
 			}
-			full := solveWith(t, "lap(u) = -2", c.d, domain.Options{Tol: 1e-12, WholeBoundary: true}, conds...)
-			a, b := evaluator(t, sym, 1e-12), evaluator(t, full, 1e-12)
-			for _, p := range c.pts {
-				u, _, _ := a.AtXY(p[0], p[1])
-				v, _, _ := b.AtXY(p[0], p[1])
-				if math.Abs(u-v) > 10*(sym.DataError+full.DataError) {
-					t.Errorf("u%v = %.14f with the mirror, %.14f on the whole boundary", p, u, v)
-				}
-			}
-			checkDivergence(t, c.name, sym, 1e-12, 1e-9)
 		})
 	}
 	// Data that break the symmetry (an insulated side) leave the full fit.
