@@ -65,7 +65,17 @@ func (lw *lowerer) equation() (series.Field, error) {
 	if err != nil {
 		return series.Field{}, lw.fail(st.Pos, "%v", err)
 	}
-	return v.f.Scale(inv), nil
+	return lw.readsBack(st.Pos, value{f: v.f.Scale(inv)})
+}
+
+// readsBack is v's field, within the numbers' bound: moving a side across
+// the = sign or dividing by the Laplacian's factor makes new numbers, and
+// what psol prints must read back (lap(u) + 1/700^900 = -700^900).
+func (lw *lowerer) readsBack(pos lexer.Position, v value) (series.Field, error) {
+	if v.bits() > MaxBits {
+		return series.Field{}, lw.fail(pos, "a number in the result would exceed %d bits", MaxBits)
+	}
+	return v.f, nil
 }
 
 func (lw *lowerer) statement() (*statement, error) {
@@ -319,7 +329,9 @@ func ConditionIn(unknown, text string, sides []string, env series.Env) (domain.C
 		return domain.Condition{}, lw.fail(st.Pos, "a condition must involve %s or dn(%s)", lw.unk(), lw.unk())
 	}
 	inv, _ := series.IntCoef(-1).Div(lead)
-	cond.G = v.f.Scale(inv)
+	if cond.G, err = lw.readsBack(st.Pos, value{u: cond.H, f: v.f.Scale(inv)}); err != nil {
+		return domain.Condition{}, err
+	}
 	return cond, nil
 }
 

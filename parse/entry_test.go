@@ -215,7 +215,9 @@ func TestBadInput(t *testing.T) {
 		{"lap(u) = r^999*r^2", 16, "exponent in the result would exceed"},
 		{"lap(u) = A/70000^900/7^700", 22, "quotient would exceed 16384 bits"},           // its print, 1/N*A, did not read back (the fuzzer)
 		{"lap(u) = delta(x, y)/70000^900/7^700", 32, "quotient would exceed 16384 bits"}, // nor a point source's strength
-		{"lap(u) = 1E0700800", 10, "beyond"},                                             // a leading 0 is decimal, not octal
+		{"lap(u) = 1/700^900 + 700^900", 10, "sum would exceed 16384 bits"},
+		{"lap(u) + 1/700^900 = -700^900", 1, "result would exceed 16384 bits"},
+		{"lap(u) = 1E0700800", 10, "beyond"}, // a leading 0 is decimal, not octal
 		{"lap(v) = dn(u)", 13, "applies to the unknown v only"},
 		{"lap(theta) = 1", 1, "cannot be the unknown"},
 		{"lap(u) = 1e5000", 10, "beyond"},

@@ -241,7 +241,13 @@ func (lw *lowerer) additive(a *additive) (value, error) {
 		}
 		terms = append(terms, w)
 	}
-	return total(terms), nil
+	// A sum's numbers within the bound too: 1/700^900 + 700^900 has a
+	// 17012-bit numerator, and its print did not read back (the fuzzer).
+	sum := total(terms)
+	if sum.bits() > MaxBits {
+		return value{}, lw.fail(a.Pos, "a number in the sum would exceed %d bits", MaxBits)
+	}
+	return sum, nil
 }
 
 func (lw *lowerer) product(p *product) (value, error) {
