@@ -943,6 +943,23 @@ func TestSymmetricSections(t *testing.T) {
 			}
 		})
 	}
+	// Third turns: an equilateral triangle less a smaller one turned 0.35
+	// rad about their common centre, no mirror line.
+	t.Run("triangle less a turned triangle", func(t *testing.T) {
+		tri := func(r, turn float64) domain.Polygon {
+			var xy []float64
+			for k := 0; k < 3; k++ {
+				s, c := math.Sincos(math.Pi/2 + turn + 2*math.Pi*float64(k)/3)
+				xy = append(xy, r*c, r*s)
+			}
+			return polygonXY(xy...)
+		}
+		d := domain.Holed{Outer: tri(1, 0), Holes: []domain.CircleHole{{Poly: tri(0.3, 0.35)}}}
+		sol := againstWholeBoundary(t, "triangle less a turned triangle", d, [][2]float64{{0, 0.4}, {0.3, -0.2}, {-0.45, -0.2}, {0.05, 0.45}})
+		if n := sol.Section.Symmetries; n != 3 || !sol.Section.Turns {
+			t.Errorf("the fit used %d symmetries (turns: %v), want the third turns' 3", n, sol.Section.Turns)
+		}
+	})
 	// Corners on mirror lines. An equilateral triangle's three mirrors run
 	// through its vertices: J = √3·a⁴/80 (Timoshenko & Goodier, §112). The
 	// L shape's diagonal runs through its re-entrant corner, and a
