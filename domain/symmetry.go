@@ -8,9 +8,9 @@ import (
 )
 
 // A section whose outline, holes and side data are all unchanged by some
-// reflections (or, without any, by turns about its centroid) has a harmonic part with the same symmetry: h(g(z)) = h(z) for
-// every g of the group G the reflections generate (the problem's solution is
-// unique, and h∘g solves it too). The fit then needs only the functions
+// reflections (or, without any, by turns about its centroid) has a harmonic
+// part with the same symmetry: h(g(z)) = h(z) for every g of the group G
+// they generate (the problem's solution is unique, and h∘g solves it too). The fit then needs only the functions
 // h = Σ_{g∈G} φ∘g, φ from the basis at the corners of one chamber (a
 // fundamental domain: the wedge between two adjacent mirror lines, or a
 // wedge of a turn's angle), and
@@ -118,9 +118,10 @@ func (s *symmetry) order() int {
 // the region's centroid at multiples of 15°, that maps the outline, every
 // side's condition and given data (to within tolData), the source f (at the
 // interior nodes) and every hole's centre onto themselves; without any
-// such mirror line, the turns of findTurns; nil if there is neither. The sides must map onto sides, t ↦ 1 − t (t is proportional to arc
-// length, and a reflection reverses it), or a closed side onto a closed side
-// with a shift of t. The particular solution need not be symmetric
+// such mirror line, the turns of findTurns; nil if there is neither. The
+// sides must map onto sides, t ↦ 1 − t (t is proportional to arc length,
+// and a reflection reverses it), or a closed side onto a closed side with a
+// shift of t. The particular solution need not be symmetric
 // (particularShift).
 func findSymmetry(g *sectionGeometry, conds []sideCondition, tolData float64, interior [][3]float64, f func(x, y float64) float64) *symmetry {
 	if g.mobius != nil || len(g.shape.Sides) == 0 {
