@@ -310,50 +310,48 @@ func FuzzParse(f *testing.F) {
 
 // fuzzParseOne is FuzzParse's check of one input.
 func fuzzParseOne(t *testing.T, in string) {
-	{
-		checkScanner(t, in)
-		if fld, err := Equation(in, nil); err == nil && fld.IsExact() && len(fld.Text()) <= MaxInput {
-			read := func(s string) (series.Field, error) { return Expression("fuzz", s, nil) }
-			if len(fld.Points) > 0 { // point sources read back as a source
-				read = func(s string) (series.Field, error) { return Equation(s, nil) }
-			}
-			back, err := read(fld.Text())
-			if err != nil || !back.Exact.Equal(fld.Exact) || series.PointsText(back.Points) != series.PointsText(fld.Points) {
-				t.Fatalf("%q printed as %q, which parses back as %v (%v)", in, fld.Text(), back.Text(), err)
-			}
+	checkScanner(t, in)
+	if fld, err := Equation(in, nil); err == nil && fld.IsExact() && len(fld.Text()) <= MaxInput {
+		read := func(s string) (series.Field, error) { return Expression("fuzz", s, nil) }
+		if len(fld.Points) > 0 { // point sources read back as a source
+			read = func(s string) (series.Field, error) { return Equation(s, nil) }
 		}
-		// Every refusal is a positioned parse error whose offset lies in the input.
-		positioned := func(what string, err error) {
-			if err == nil {
-				return
-			}
-			var pe *Error
-			if !errors.As(err, &pe) {
-				t.Fatalf("%s(%q): %v is not a parse error", what, in, err)
-			}
-			if pe.Offset < 0 || pe.Offset > len(pe.Input) {
-				t.Fatalf("%s(%q): offset %d outside the input", what, in, pe.Offset)
-			}
-			_ = pe.Error() // the caret line must not panic on any input
+		back, err := read(fld.Text())
+		if err != nil || !back.Exact.Equal(fld.Exact) || series.PointsText(back.Points) != series.PointsText(fld.Points) {
+			t.Fatalf("%q printed as %q, which parses back as %v (%v)", in, fld.Text(), back.Text(), err)
 		}
-		_, err := Condition(in, []string{"rim"}, series.Env{"a": series.IntCoef(2)})
-		positioned("Condition", err)
-		_, err = ConditionIn(Unknown(in), in, []string{"inner", "outer"}, nil)
-		positioned("ConditionIn", err)
-		_, _, _, err = Fix(in, nil)
-		positioned("Fix", err)
-		_, err = Bindings("fuzz", in, nil)
-		positioned("Bindings", err)
-		_, err = Lengths("--rect", in, 2, nil)
-		positioned("Lengths", err)
-		_, err = ExpressionIn("T", "--claim", in, nil)
-		positioned("Expression", err)
-		_, _, offsets, err := Vertices("--polygon", in, nil)
-		positioned("Vertices", err)
-		for _, o := range offsets {
-			if o < 0 || o >= len(in) {
-				t.Fatalf("Vertices(%q): vertex offset %d outside the input", in, o)
-			}
+	}
+	// Every refusal is a positioned parse error whose offset lies in the input.
+	positioned := func(what string, err error) {
+		if err == nil {
+			return
+		}
+		var pe *Error
+		if !errors.As(err, &pe) {
+			t.Fatalf("%s(%q): %v is not a parse error", what, in, err)
+		}
+		if pe.Offset < 0 || pe.Offset > len(pe.Input) {
+			t.Fatalf("%s(%q): offset %d outside the input", what, in, pe.Offset)
+		}
+		_ = pe.Error() // the caret line must not panic on any input
+	}
+	_, err := Condition(in, []string{"rim"}, series.Env{"a": series.IntCoef(2)})
+	positioned("Condition", err)
+	_, err = ConditionIn(Unknown(in), in, []string{"inner", "outer"}, nil)
+	positioned("ConditionIn", err)
+	_, _, _, err = Fix(in, nil)
+	positioned("Fix", err)
+	_, err = Bindings("fuzz", in, nil)
+	positioned("Bindings", err)
+	_, err = Lengths("--rect", in, 2, nil)
+	positioned("Lengths", err)
+	_, err = ExpressionIn("T", "--claim", in, nil)
+	positioned("Expression", err)
+	_, _, offsets, err := Vertices("--polygon", in, nil)
+	positioned("Vertices", err)
+	for _, o := range offsets {
+		if o < 0 || o >= len(in) {
+			t.Fatalf("Vertices(%q): vertex offset %d outside the input", in, o)
 		}
 	}
 }
