@@ -960,6 +960,17 @@ func TestSymmetricSections(t *testing.T) {
 			t.Errorf("the fit used %d symmetries (turns: %v), want the third turns' 3", n, sol.Section.Turns)
 		}
 	})
+	// Quarter turns with a round hole: a square turned 10° (no mirror line
+	// at a multiple of 15°) less a circle at its centre, whose Laurent
+	// terms turn with it (holeImage).
+	t.Run("turned square less a circle", func(t *testing.T) {
+		s, c := math.Sincos(10 * math.Pi / 180)
+		d := domain.Holed{Outer: polygonXY(-c+s, -s-c, c+s, s-c, c-s, s+c, -c-s, c-s), Holes: []domain.CircleHole{{R: decimalCoef(0.3)}}}
+		sol := againstWholeBoundary(t, "turned square less a circle", d, [][2]float64{{0.5, 0.1}, {-0.2, 0.6}, {0.8, 0.8}})
+		if n := sol.Section.Symmetries; n != 4 || !sol.Section.Turns {
+			t.Errorf("the fit used %d symmetries (turns: %v), want the quarter turns' 4", n, sol.Section.Turns)
+		}
+	})
 	// Corners on mirror lines. An equilateral triangle's three mirrors run
 	// through its vertices: J = √3·a⁴/80 (Timoshenko & Goodier, §112). The
 	// L shape's diagonal runs through its re-entrant corner, and a
