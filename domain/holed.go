@@ -713,18 +713,31 @@ type mobiusMap struct {
 
 func (m *mobiusMap) w(z complex128) complex128 { return (z - m.l1) / (z - m.l2) }
 
-// term is (w/hi)^k for k > 0, (lo/w)^−k for k < 0, and its derivative in z.
-func (m *mobiusMap) term(z complex128, k int) (f, df complex128) {
+// terms are the basis's terms at z, (w/hi)^k for k > 0 and (lo/w)^−k for
+// k < 0, one for each k of ks, into f, and their derivatives in z into df.
+// The powers come by multiplication: one cmplx.Pow a term was two thirds of
+// an eccentric annulus's evaluation at degree 86.
+func (m *mobiusMap) terms(z complex128, ks []int, f, df []complex128) {
 	w := m.w(z)
 	dw := (m.l1 - m.l2) / ((z - m.l2) * (z - m.l2))
-	var base complex128
-	if k > 0 {
-		base = w / complex(m.hi, 0)
-	} else {
-		base = complex(m.lo, 0) / w
+	up, down := w/complex(m.hi, 0), complex(m.lo, 0)/w
+	pu, pd, n := complex128(1), complex128(1), 0 // (w/hi)^n, (lo/w)^n
+	slope := dw / w
+	for i, k := range ks {
+		a := max(k, -k)
+		if a < n {
+			pu, pd, n = 1, 1, 0 // out of order: start again
+		}
+		for ; n < a; n++ {
+			pu, pd = pu*up, pd*down
+		}
+		if k > 0 {
+			f[i] = pu
+		} else {
+			f[i] = pd
+		}
+		df[i] = complex(float64(k), 0) * f[i] * slope
 	}
-	f = cmplx.Pow(base, complex(math.Abs(float64(k)), 0))
-	return f, complex(float64(k), 0) * f / w * dw
 }
 
 // bipolarWarps sample the rim (side 0) and the hole (side n−1) of an

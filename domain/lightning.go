@@ -667,10 +667,19 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 		h.laurentTerms(z, t, dt)
 		images(col, laurentImg, t, dt)
 		col += 2 * nLaurent
-		for _, j := range h.mobiusK {
-			w := val(h.mobius.term(z, j))
+		t, dt = h.terms(len(h.mobiusK))
+		if h.mobius != nil {
+			h.mobius.terms(z, h.mobiusK, t, dt)
+		}
+		for k := range h.mobiusK {
+			w := val(t[k], dt[k])
 			add(i, col, real(w))
-			add(i, col+1, imag(w))
+			// Two circles' only mirror runs through their centres, and so
+			// through the limiting points: there w(g(z)) = conj(w(z)), and
+			// the symmetric terms are those with real coefficients.
+			if !mirrored {
+				add(i, col+1, imag(w))
+			}
 			col += 2
 		}
 		if c, ok := uCol[p.floating]; ok && p.floating >= 0 {

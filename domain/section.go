@@ -1192,10 +1192,13 @@ func (h *rationalHarmonic) evaluate(z complex128, slope bool) (complex128, compl
 		f += c * t[k]
 		df += c * dt[k]
 	}
-	for k, j := range h.mobiusK {
-		v, dv := h.mobius.term(z, j)
-		f += h.cMobius[k] * v
-		df += h.cMobius[k] * dv
+	t, dt = h.terms(len(h.mobiusK))
+	if h.mobius != nil {
+		h.mobius.terms(z, h.mobiusK, t, dt)
+	}
+	for k := range h.mobiusK {
+		f += h.cMobius[k] * t[k]
+		df += h.cMobius[k] * dt[k]
 	}
 	t, dt = h.terms(len(h.powers))
 	h.powerTerms(z, t, dt)

@@ -124,8 +124,8 @@ func (s *symmetry) order() int {
 // shift of t. The particular solution need not be symmetric
 // (particularShift).
 func findSymmetry(g *sectionGeometry, conds []sideCondition, tolData float64, interior [][3]float64, f func(x, y float64) float64) *symmetry {
-	if g.mobius != nil || len(g.shape.Sides) == 0 {
-		return nil // two circles: the bipolar series is fast already
+	if len(g.shape.Sides) == 0 {
+		return nil
 	}
 	c, ok := boundaryCentroid(g.shape)
 	if !ok {
