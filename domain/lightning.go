@@ -500,6 +500,11 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 			h.laurent = append(h.laurent, laurentTerm{hb, j})
 		}
 	}
+	for _, hb := range geo.rimImages { // smooth holes' reflections in a curved outline
+		for j := 1; j <= holeImageTerms(degree); j++ {
+			h.laurent = append(h.laurent, laurentTerm{hb, j})
+		}
+	}
 	if h.polyPower > 1 { // degree in z, over n: the same resolution in Z = W^n
 		degree = (degree + h.polyPower - 1) / h.polyPower
 		h.degree = degree

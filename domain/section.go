@@ -48,6 +48,9 @@ type sectionGeometry struct {
 	images []cornerImage
 	// holeImages are the smooth holes' Laurent terms mirrored likewise.
 	holeImages []holeImageSpec
+	// rimImages are Laurent bases about the reflections of smooth holes
+	// in a curved outline (ellipseRimImages).
+	rimImages []holeBasis
 	// shift goes with sym: the particular solution's asymmetric share (particularShift).
 	shift func(z complex128) (float64, complex128)
 }
@@ -1088,6 +1091,29 @@ func (g sectionGeometry) samples(poles []int, degree int, conds []sideCondition)
 	}
 	for _, im := range g.images {
 		wallRows(im.wallImage, imageFitRows)
+	}
+	for _, hb := range g.rimImages { // rows on the rim by each reflection's harmonic measure
+		rim := sides[0]
+		at := func(t float64) complex128 { x, y, _, _ := rim.At(t - math.Floor(t)); return complex(x, y) }
+		t0, d := 0.0, math.Inf(1)
+		for j := 0; j < 1024; j++ {
+			if dj := abs(at(float64(j)/1024) - hb.c); dj < d {
+				t0, d = float64(j)/1024, dj
+			}
+		}
+		const dt = 1e-6
+		speed := abs(at(t0+dt)-at(t0-dt)) / (2 * dt)
+		m := 2 * 2 * holeImageTerms(degree)
+		spread := func(to *[]boundaryPoint, m int, off float64) {
+			for i := 0; i < m; i++ {
+				t := t0 + d/speed*math.Tan(math.Pi*((float64(i)+off)/float64(m)-0.5))
+				if math.Abs(t-t0) < 0.5 {
+					add(to, 0, t-math.Floor(t))
+				}
+			}
+		}
+		spread(&fit, m, 0.5)
+		spread(&check, 3*m, 0.25)
 	}
 	if g.sym != nil { // the chamber's share: the rest are its images
 		keep := func(pts []boundaryPoint) []boundaryPoint {

@@ -46,6 +46,9 @@ var codeCases = []struct {
 	{[]string{"solve", "lap(u) = -1", "--rect", "1,0.6", "--hole", "circle 0.2,0.2,0.15", "--hole", "polygon 0.6,0.1 0.9,0.1 0.9,0.3 0.6,0.3", "--bc", "u = 0", "--tol", "1e-10"}, "", true},
 	// A tilted slot, 7:1: its terms are powers of an ellipse's exterior map too.
 	{[]string{"solve", "lap(u) = -1", "--rect", "1,0.6", "--hole", "polygon 0.45,0.2 0.9,0.35 0.88,0.41 0.43,0.26", "--bc", "u = 0", "--tol", "1e-10"}, "", true},
+	// A round hole near an elliptical rim: its reflections there, Laurent
+	// terms about points outside the ellipse.
+	{[]string{"solve", "lap(u) = -1", "--ellipse", "1,0.6", "--hole", "circle -0.5,0,0.2", "--bc", "u = 0", "--tol", "1e-10"}, "", true},
 	// An L shape whose diagonal mirror runs through its re-entrant corner:
 	// that corner's poles and their images, anchored on it (PoleOff).
 	{[]string{"solve", "lap(u) = -2", "--polygon", "0,0 2,0 2,1 1,1 1,2 0,2", "--bc", "u = 0", "--tol", "1e-10"}, "", true},
