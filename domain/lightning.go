@@ -501,6 +501,15 @@ func fitHarmonic(pts []boundaryPoint, geo sectionGeometry, n []int, degree, powe
 		}
 	}
 	for _, hb := range geo.rimImages { // smooth holes' reflections in a curved outline
+		if slices.ContainsFunc(imaged, func(c complex128) bool { return abs(c-hb.c) <= 1e-9*scale }) {
+			continue // the symmetry's image of one taken, as above
+		}
+		imaged = append(imaged, hb.c)
+		if geo.sym != nil {
+			for _, e := range geo.sym.group {
+				imaged = append(imaged, e.inverse().apply(hb.c))
+			}
+		}
 		for j := 1; j <= holeImageTerms(degree); j++ {
 			h.laurent = append(h.laurent, laurentTerm{hb, j})
 		}
