@@ -1146,7 +1146,7 @@ func sectionBoundary(h *rationalHarmonic, shape Shape, upOn func(k int) sideCond
 	for k, side := range shape.Sides {
 		up := upOn(k)
 		flux := 0.0
-		side.panelNodes(edges, ansatz.GaussX, ansatz.GaussW, func(t, ds float64) {
+		side.closedNodes(edges, func(t, ds float64) {
 			px, py, nx, ny := side.At(t)
 			z := complex(px, py)
 			// dz = (tangent)·ds, the tangent being the normal turned left.
