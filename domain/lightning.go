@@ -407,9 +407,6 @@ type laurentTerm struct {
 // asymmetric by 1e-7 of their size there.
 type pole struct{ base, off complex128 }
 
-// at is the pole's position.
-func (p pole) at() complex128 { return p.base + p.off }
-
 // recip is 1/(z − p).
 func (p pole) recip(z complex128) complex128 { return recip((z - p.base) - p.off) }
 
