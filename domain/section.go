@@ -1146,7 +1146,7 @@ func sectionBoundary(h *rationalHarmonic, shape Shape, upOn func(k int) sideCond
 	for k, side := range shape.Sides {
 		up := upOn(k)
 		flux := 0.0
-		side.closedNodes(edges, func(t, ds float64) {
+		side.closedNodes(edges, closedTrapezoid, func(t, ds float64) {
 			px, py, nx, ny := side.At(t)
 			z := complex(px, py)
 			// dz = (tangent)·ds, the tangent being the normal turned left.
@@ -1907,15 +1907,9 @@ func floatingConstraints(geo sectionGeometry, conds []sideCondition, up series.S
 				fc.target -= w * dn
 				fc.pts = append(fc.pts, boundaryPoint{z: complex(x, y), nu: complex(nx, ny), b: 1, w: w, floating: -1})
 			}
-			if geo.starts[m] < 0 { // a circle or an ellipse: the trapezoidal rule in its even variable, spectral for a periodic integrand
-				const n = 256
-				for j := 0; j < n; j++ {
-					u := float64(j) / n
-					add(side.even(u), side.Length*side.evenRate(u)/n)
-				}
-				continue
-			}
-			side.panelNodes(gradedEdges(), ansatz.GaussX, ansatz.GaussW, add) // an edge: panels graded towards its corners
+			// A circle or an ellipse: 256 nodes of the trapezoidal rule; an
+			// edge: panels graded towards its corners.
+			side.closedNodes(gradedEdges(), 256, add)
 		}
 		out = append(out, fc)
 	}

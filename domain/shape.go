@@ -65,26 +65,25 @@ func (p SidePath) panelNodes(edges, xs, ws []float64, node func(t, ds float64)) 
 }
 
 // closedTrapezoid is the node count of the trapezoidal rule on a closed
-// side (closedNodes).
+// side for the report's side integrals (closedNodes).
 const closedTrapezoid = 2048
 
 // closedNodes are a side integral's nodes: on a closed side (a circle, an
-// ellipse) the trapezoidal rule in the even variable, spectral for a
-// periodic integrand, with closedTrapezoid nodes; on an open one panelNodes
-// on the edges given. A round hole 0.023 from a 1 × 0.05 ellipse's rim,
+// ellipse) the trapezoidal rule in the even variable with n nodes, spectral
+// for a periodic integrand; on an open one panelNodes on the edges given. A round hole 0.023 from a 1 × 0.05 ellipse's rim,
 // 0.004 of the turn in the eccentric angle, made the rim's flux by the
 // graded panels (1/32 of the turn in the middle) 2.6e-9 short of 0.30; the
 // rule's error falls like e^(−2π·n·0.004), under 1e-20 at 2048 nodes.
-func (p SidePath) closedNodes(edges []float64, node func(t, ds float64)) {
+func (p SidePath) closedNodes(edges []float64, n int, node func(t, ds float64)) {
 	x0, y0, _, _ := p.At(0)
 	x1, y1, _, _ := p.At(1)
 	if math.Hypot(x1-x0, y1-y0) > 1e-12*math.Max(1, p.Length) {
 		p.panelNodes(edges, ansatz.GaussX, ansatz.GaussW, node)
 		return
 	}
-	for j := 0; j < closedTrapezoid; j++ {
-		u := float64(j) / closedTrapezoid
-		node(p.even(u), p.Length*p.evenRate(u)/closedTrapezoid)
+	for j := 0; j < n; j++ {
+		u := float64(j) / float64(n)
+		node(p.even(u), p.Length*p.evenRate(u)/float64(n))
 	}
 }
 
