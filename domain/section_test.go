@@ -1506,3 +1506,41 @@ func TestEllipseRimImages(t *testing.T) {
 	// too; the trapezoidal rule on closed sides (closedNodes) gets it.
 	checkDivergence(t, "thin ellipse with a hole near its rim", torsion, 1e-12, 1e-11)
 }
+
+// The symmetry a fit takes follows the source, as the probes see it
+// (symmetryProbes): a hollow ellipse keeps both mirror lines under a
+// constant source, the x axis's alone under x (odd about the y axis), and
+// only the half turn under x·y (odd about both). Each fit against the same
+// problem on its whole boundary (u = 0 on both sides).
+func TestSymmetryFollowsTheSource(t *testing.T) {
+	d := domain.Holed{Outer: domain.Ellipse{A: decimalCoef(2), B: decimalCoef(1)}, Holes: []domain.CircleHole{{X: decimalCoef(0), Y: decimalCoef(0), A: decimalCoef(0.5), B: decimalCoef(0.3)}}}
+	conds := sidesOf(d, "", "u = 0")
+	for _, c := range []struct {
+		source string
+		order  int
+		turns  bool
+	}{{"-2", 4, false}, {"x", 2, false}, {"x*y", 2, true}} {
+		sym := solveWith(t, "lap(u) = "+c.source, d, domain.Options{Tol: 1e-12}, conds...)
+		full := solveWith(t, "lap(u) = "+c.source, d, domain.Options{Tol: 1e-12, WholeBoundary: true}, conds...)
+		if n := sym.Section.Symmetries; n != c.order || sym.Section.Turns != c.turns {
+			t.Errorf("lap(u) = %s: %d symmetries (turns %v), want %d (turns %v)", c.source, n, sym.Section.Turns, c.order, c.turns)
+		}
+		a, b := evaluator(t, sym, 1e-12), evaluator(t, full, 1e-12)
+		for _, p := range [][2]float64{{1.2, 0.3}, {-1.1, 0.4}, {0.3, -0.7}, {-0.9, -0.2}, {0, 0.6}} {
+			u, _, _ := a.AtXY(p[0], p[1])
+			v, _, _ := b.AtXY(p[0], p[1])
+			if math.Abs(u-v) > 10*(sym.DataError+full.DataError) {
+				t.Errorf("lap(u) = %s: u%v = %.14f with the symmetry, %.14f on the whole boundary", c.source, p, u, v)
+			}
+		}
+		// Divergence theorem: the net outward flux is the source's integral
+		// (0 for the odd sources), to 1e-9 of the constant source's 2·area.
+		rep, err := sym.Report(nil, 1e-12)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if math.Abs(rep.Flux-rep.Source) > 1e-9*2*math.Pi*(2-0.15) {
+			t.Errorf("lap(u) = %s: net outward flux %.13g, source integral %.13g", c.source, rep.Flux, rep.Source)
+		}
+	}
+}

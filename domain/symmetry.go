@@ -132,15 +132,16 @@ func findSymmetry(g *sectionGeometry, conds []sideCondition, tolData float64, in
 		return nil
 	}
 	eps := 1e-9 * g.scale
+	scan := newClosedScan(g.shape.Sides)
 	var axes []float64
 	for k := 0; k < 12; k++ {
 		alpha := float64(k) * math.Pi / 12
-		if invariantUnder(mirror(c, cmplx.Rect(1, alpha)), g, conds, eps, tolData, interior, f) {
+		if invariantUnder(mirror(c, cmplx.Rect(1, alpha)), g, conds, eps, tolData, interior, f, scan) {
 			axes = append(axes, alpha)
 		}
 	}
 	if len(axes) == 0 {
-		return findTurns(g, c, conds, eps, tolData, interior, f)
+		return findTurns(g, c, conds, eps, tolData, interior, f, scan)
 	}
 	// The chamber's walls: the two adjacent mirror lines closest in angle
 	// (the group they generate is dihedral of order 2π/angle and contains
@@ -178,11 +179,11 @@ func findSymmetry(g *sectionGeometry, conds []sideCondition, tolData float64, in
 // as they can: a wall 10⁻⁴ from a slot's corner split the rows graded
 // toward it between the chamber and its image, and the fit stalled at 4e-11
 // against a target of 1e-12.
-func findTurns(g *sectionGeometry, c complex128, conds []sideCondition, eps, tolData float64, interior [][3]float64, f func(x, y float64) float64) *symmetry {
+func findTurns(g *sectionGeometry, c complex128, conds []sideCondition, eps, tolData float64, interior [][3]float64, f func(x, y float64) float64, scan closedScan) *symmetry {
 	for _, n := range []int{6, 4, 3, 2} {
 		turn := cmplx.Rect(1, 2*math.Pi/float64(n))
 		m := isometry{rot: turn, shift: c - turn*c}
-		if !invariantUnder(m, g, conds, eps, tolData, interior, f) {
+		if !invariantUnder(m, g, conds, eps, tolData, interior, f, scan) {
 			continue
 		}
 		s := &symmetry{centre: c, eps: eps}
@@ -264,7 +265,7 @@ func cornerAt(corners []corner, w complex128, eps float64) int {
 // itself: sides onto sides with the same condition and data, corners onto
 // corners, each hole's centre onto itself (the holes' logarithms stay out of
 // the symmetrised basis).
-func invariantUnder(m isometry, g *sectionGeometry, conds []sideCondition, eps, tolData float64, interior [][3]float64, f func(x, y float64) float64) bool {
+func invariantUnder(m isometry, g *sectionGeometry, conds []sideCondition, eps, tolData float64, interior [][3]float64, f func(x, y float64) float64, scan closedScan) bool {
 	step := max(1, len(interior)/97)
 	size := 0.0 // the source's size, for a tolerance that a zero of f does not defeat
 	for i := 0; i < len(interior); i += step {
@@ -298,7 +299,7 @@ func invariantUnder(m isometry, g *sectionGeometry, conds []sideCondition, eps, 
 	}
 	sides := g.shape.Sides
 	for k, side := range sides {
-		image, ok := sideImage(m, k, sides, eps)
+		image, ok := sideImage(m, k, sides, eps, scan)
 		if !ok {
 			return false
 		}
@@ -320,8 +321,33 @@ func invariantUnder(m isometry, g *sectionGeometry, conds []sideCondition, eps, 
 	return true
 }
 
+// closedScanPoints is the scan's count of points on a closed side.
+const closedScanPoints = 2048
+
+// closedScan is each closed side's points at t = i/closedScanPoints, read
+// on first use and kept for every isometry tried: an ellipse's point costs
+// an arc length's inversion, and scanning both closed sides of a hollow
+// elliptical shaft afresh for each of the twelve mirror lines was a third
+// of its solve.
+type closedScan func(side int) []complex128
+
+func newClosedScan(sides []SidePath) closedScan {
+	cache := make([][]complex128, len(sides))
+	return func(j int) []complex128 {
+		if cache[j] == nil {
+			pts := make([]complex128, closedScanPoints)
+			for i := range pts {
+				x, y, _, _ := sides[j].At(float64(i) / closedScanPoints)
+				pts[i] = complex(x, y)
+			}
+			cache[j] = pts
+		}
+		return cache[j]
+	}
+}
+
 // sideImage finds the side that m maps side k onto, and the map of t.
-func sideImage(m isometry, k int, sides []SidePath, eps float64) (func(t float64) (int, float64), bool) {
+func sideImage(m isometry, k int, sides []SidePath, eps float64, scan closedScan) (func(t float64) (int, float64), bool) {
 	point := func(s SidePath, t float64) complex128 {
 		x, y, _, _ := s.At(t)
 		return complex(x, y)
@@ -347,10 +373,10 @@ func sideImage(m isometry, k int, sides []SidePath, eps float64) (func(t float64
 		}
 		// A closed side: t ↦ shift − t (a turn: shift + t); the shift puts
 		// m's image of t = 0.
-		const n = 2048
+		const n = closedScanPoints
 		shift, best := 0.0, math.Inf(1)
-		for i := 0; i < n; i++ {
-			if d := abs(point(s, float64(i)/n) - a); d < best {
+		for i, p := range scan(j) {
+			if d := abs(p - a); d < best {
 				shift, best = float64(i)/n, d
 			}
 		}
@@ -425,18 +451,42 @@ func particularShift(s *symmetry, sc sideCondition) func(z complex128) (float64,
 }
 
 // sectionSymmetry is findSymmetry for a posed section problem: the source
-// tested at the section's area nodes.
+// tested at symmetryProbes points of the section.
 func sectionSymmetry(d section, g *sectionGeometry, conds []sideCondition, p *posed, tolData float64) (*symmetry, error) {
-	nodes, err := d.areaNodes(p.env)
-	if err != nil {
-		return nil, err
-	}
 	f, err := p.f.Compile(p.env)
 	if err != nil {
 		return nil, nil // a source that needs parameters: no symmetry test, the full fit
 	}
 	at := func(x, y float64) float64 { return f.At(polarOf(x, y)) }
-	return findSymmetry(g, conds, tolData, nodes, at), nil
+	return findSymmetry(g, conds, tolData, symmetryProbes(g.shape.Box, InsideXY(d, p.env)), at), nil
+}
+
+// symmetryProbes are about a hundred points of the region, inside(x, y),
+// where a symmetry's source is tested: the Halton sequence in bases 2 and 3
+// over its box (well spread, and symmetric under none of the box's mirror
+// lines, so that no probe is another's image), until 97 fall inside or
+// 20,000 were tried (a thin slab's box is mostly outside). The section's
+// area rule served once: 10⁵ nodes built for the 97 taken, a third of a
+// hollow elliptical shaft's solve.
+func symmetryProbes(box Box, inside func(x, y float64) bool) [][3]float64 {
+	const want, tries = 97, 20000
+	halton := func(i, base int) float64 {
+		f, r := 1.0, 0.0
+		for ; i > 0; i /= base {
+			f /= float64(base)
+			r += f * float64(i%base)
+		}
+		return r
+	}
+	var out [][3]float64
+	for i := 1; i <= tries && len(out) < want; i++ {
+		x := box.X0 + (box.X1-box.X0)*halton(i, 2)
+		y := box.Y0 + (box.Y1-box.Y0)*halton(i, 3)
+		if inside(x, y) {
+			out = append(out, [3]float64{x, y, 1})
+		}
+	}
+	return out
 }
 
 // inverse is g⁻¹: a reflection is its own; a rotation's turns back.
