@@ -81,14 +81,11 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 		s.markCornerJumps(rep)
 		return rep, nil
 	}
-	inside := func(x, y float64) bool {
-		th := math.Atan2(y, x)
-		if th < 0 {
-			th += 2 * math.Pi
-		}
-		ok, err := s.Domain.Contains(math.Hypot(x, y), th, env)
-		return ok && err == nil
-	}
+	// The containment test built once: a holed section's Contains builds
+	// its holes' numbers afresh (a polygonal hole's centre by a 32 × 32
+	// search), and the interior scan asks it 16,000 times: 1.2 s of an L
+	// shape's report with a square hole and a non-constant source.
+	inside := InsideXY(s.Domain, env)
 	if _, constant := s.constantSource(); constant {
 		inside = nil // the peak of |∇u| is on the boundary
 	}

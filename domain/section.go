@@ -1550,11 +1550,13 @@ func shapeSamples(d Domain, env series.Env) ([][2]float64, error) {
 		return nil, err
 	}
 	b := shape.Box
+	inside := InsideXY(d, env)
 	var pts [][2]float64
 	for i := 1; i < 12; i++ {
 		for j := 1; j < 12; j++ {
-			r, th := polarOf(b.X0+(b.X1-b.X0)*float64(i)/12, b.Y0+(b.Y1-b.Y0)*float64(j)/12)
-			if ok, _ := d.Contains(r, th, env); ok {
+			x, y := b.X0+(b.X1-b.X0)*float64(i)/12, b.Y0+(b.Y1-b.Y0)*float64(j)/12
+			if inside(x, y) {
+				r, th := polarOf(x, y)
 				pts = append(pts, [2]float64{r, th})
 			}
 		}

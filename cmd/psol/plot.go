@@ -128,6 +128,7 @@ func plotSolution(w io.Writer, format string, title, unknown string, sol *domain
 		}
 		return false
 	}
+	inside := domain.InsideXY(sol.Domain, env) // built once: a holed region's Contains rebuilds its holes
 	for r := 0; r < n; r++ {
 		for c := 0; c < n; c++ {
 			x, y := f.X(c), f.Y(r)
@@ -136,7 +137,7 @@ func plotSolution(w io.Writer, format string, title, unknown string, sol *domain
 				th += 2 * math.Pi
 			}
 			v := math.NaN()
-			if in, _ := sol.Domain.Contains(rad, th, env); in {
+			if inside(x, y) {
 				v = at(rad, th)
 				if !nearSource(x, y) {
 					f.min, f.max = math.Min(f.min, v), math.Max(f.max, v)

@@ -139,10 +139,17 @@ func evaluate(sol *domain.Solution, pts []point) error {
 	if err != nil {
 		return usagef("--at: %w", err)
 	}
+	var insideXY func(x, y float64) bool // built once, on the second point in x and y: a holed region's test builds its holes
 	for i := range pts {
 		var in bool
-		if pts[i].inXY {
-			in, err = domain.ContainsXY(sol.Domain, pts[i].X, pts[i].Y, env)
+		if pts[i].inXY && insideXY != nil {
+			in = insideXY(pts[i].X, pts[i].Y)
+		} else if pts[i].inXY {
+			// The first point asks the region itself, which reports what it
+			// cannot decide (a parameter without a value) as an error.
+			if in, err = domain.ContainsXY(sol.Domain, pts[i].X, pts[i].Y, env); err == nil {
+				insideXY = domain.InsideXY(sol.Domain, env)
+			}
 		} else {
 			in, err = sol.Domain.Contains(pts[i].R, pts[i].Theta, env)
 		}
