@@ -427,6 +427,26 @@ func BenchmarkRectangleBump(b *testing.B) {
 	benchRun(b, args)
 }
 
+// BenchmarkHollowEllipticShaft is the README's hollow elliptical shaft
+// with --quantity torsion: the symmetry test's probes and the closed sides'
+// scan once (it built a 10⁵-node area rule for 97 probes, and scanned each
+// closed side afresh for each of twelve mirror lines).
+func BenchmarkHollowEllipticShaft(b *testing.B) {
+	b.ReportAllocs()
+	benchRun(b, []string{"solve", "lap(u) = -2", "--ellipse", "0.05,0.03", "--hole", "ellipse 0,0,0.025,0.015",
+		"--bc", "rim: u = 0", "--bc", "hole1: u = const, flux = 2*pi*0.025*0.015", "--quantity", "torsion"})
+}
+
+// BenchmarkHoledReportNumericSource is an L shape less a square, with a
+// source the quadrature takes, to its flow figures: the report's interior
+// scan asks for containment 16,000 times (a holed region's Contains
+// rebuilt its holes each time).
+func BenchmarkHoledReportNumericSource(b *testing.B) {
+	b.ReportAllocs()
+	benchRun(b, []string{"solve", "lap(u) = exp(x*y)", "--polygon", "0,0 2,0 2,1 1,1 1,2 0,2",
+		"--hole", "polygon 0.2,0.2 0.6,0.2 0.6,0.6 0.2,0.6", "--bc", "u = 0", "--quantity", "flow"})
+}
+
 // A plot of a solution with a numeric part: the title names the whole
 // source, and the rings it is sampled on give the values At gives (to the
 // bilinear interpolation's h², common practice).
