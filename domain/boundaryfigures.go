@@ -153,6 +153,43 @@ func gradientPeak(shape Shape, ev *Evaluator, inside func(x, y float64) bool) Gr
 			}
 		}
 	}
+	if bestSide < 0 && inside != nil && best.Value >= 0 { // refine inside, by a shrinking compass search
+		// from the grid's (or the rings') spacing, on fourth-order central
+		// differences. The samples alone left the value a few 10⁻⁷ of
+		// itself short, and the second order's error, h²·u‴/6, was 6·10⁻⁷
+		// of a bump's peak (width 0.1), both printed to ten digits; the
+		// fourth order's, h⁴·u⁽⁵⁾/30, is about 10⁻¹³ there.
+		gain = 1e-11
+		grad := func(x, y float64) (float64, bool) {
+			for _, s := range []float64{-2 * h, -h, h, 2 * h} {
+				if !inside(x+s, y) || !inside(x, y+s) {
+					return 0, false
+				}
+			}
+			d := func(f func(s float64) float64) float64 { return (f(-2*h) - 8*f(-h) + 8*f(h) - f(2*h)) / (12 * h) }
+			gx := d(func(s float64) float64 { return u(x+s, y) })
+			gy := d(func(s float64) float64 { return u(x, y+s) })
+			return math.Hypot(gx, gy), true
+		}
+		if g, ok := grad(best.At[0], best.At[1]); ok {
+			best.Value = g // the sample's value on the same differences as its neighbours'
+		}
+		box := shape.Box
+		size := math.Max(box.X1-box.X0, box.Y1-box.Y0)
+		step := size / 64
+		for it := 0; it < 80 && step > 1e-7*size; it++ {
+			moved := false
+			for _, d := range [4][2]float64{{step, 0}, {-step, 0}, {0, step}, {0, -step}} {
+				x, y := best.At[0]+d[0], best.At[1]+d[1]
+				if g, ok := grad(x, y); ok && better(g) {
+					best.Value, best.At, moved = g, [2]float64{x, y}, true
+				}
+			}
+			if !moved {
+				step /= 2
+			}
+		}
+	}
 	if bestSide >= 0 { // refine along the side
 		gain = 1e-11
 		side := shape.Sides[bestSide]
