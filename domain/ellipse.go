@@ -236,28 +236,14 @@ func (e Ellipse) integral(u series.Sum) (series.Coef, error) {
 	return total, nil
 }
 
-// areaNodes: x = Aρ cos φ, y = Bρ sin φ, dA = AB ρ dρ dφ, by Gauss–Legendre
-// on 8 panels in ρ and 32 in φ.
-func (e Ellipse) areaNodes(env series.Env) ([][3]float64, error) {
+// areaCells: x = Aρ cos φ, y = Bρ sin φ, dA = AB ρ dρ dφ, 8 panels in ρ
+// and 32 in φ.
+func (e Ellipse) areaCells(env series.Env) ([]areaCell, error) {
 	v, err := floats(env, e.A, e.B)
 	if err != nil {
 		return nil, err
 	}
-	A, B := v[0], v[1]
-	var out [][3]float64
-	for i := 0; i < 8; i++ {
-		for ki, xi := range ansatz.GaussX {
-			rho := (float64(i) + (xi+1)/2) / 8
-			for j := 0; j < 32; j++ {
-				for kj, xj := range ansatz.GaussX {
-					phi := 2 * math.Pi * (float64(j) + (xj+1)/2) / 32
-					w := ansatz.GaussW[ki] / 16 * ansatz.GaussW[kj] * math.Pi / 32 * A * B * rho
-					out = append(out, [3]float64{A * rho * math.Cos(phi), B * rho * math.Sin(phi), w})
-				}
-			}
-		}
-	}
-	return out, nil
+	return polarCells(0, 0, v[0], v[1], 1), nil
 }
 
 func doubleFactorial(n int) int64 {

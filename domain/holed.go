@@ -7,7 +7,6 @@ import (
 	"math/cmplx"
 	"strings"
 
-	"psol/ansatz"
 	"psol/series"
 	"psol/series/cart"
 )
@@ -611,39 +610,40 @@ func shiftPoly(p cart.Poly, a, b series.Coef) cart.Poly {
 	return out
 }
 
-// areaNodes: the outer region's rule, less a rule on each hole's disk
-// (negative weights): exact for what is smooth across the holes, as the
-// quadrature's particular solution is.
-func (h Holed) areaNodes(env series.Env) ([][3]float64, error) {
-	var nodes [][3]float64
+// areaCells: the outer region's cells, less cells on each hole (negative
+// weights): exact for what is smooth across the holes, as the quadrature's
+// particular solution is.
+func (h Holed) areaCells(env series.Env) ([]areaCell, error) {
+	var cells []areaCell
 	switch o := h.Outer.(type) {
 	case section:
-		n, err := o.areaNodes(env)
+		c, err := o.areaCells(env)
 		if err != nil {
 			return nil, err
 		}
-		nodes = n
+		cells = c
 	case Disk:
 		R, err := o.R.Float(env)
 		if err != nil {
 			return nil, err
 		}
-		nodes = diskNodes(0, 0, R, 1)
+		cells = polarCells(0, 0, R, R, 1)
 	case Rect:
-		n, err := rectAreaNodes(o, env)
+		c, err := rectCells(o, env)
 		if err != nil {
 			return nil, err
 		}
-		nodes = n
+		cells = c
 	}
 	for k, c := range h.Holes {
 		if c.isPolygon() {
-			hn, err := c.Poly.areaNodes(env)
+			hc, err := c.Poly.areaCells(env)
 			if err != nil {
 				return nil, err
 			}
-			for _, n := range hn {
-				nodes = append(nodes, [3]float64{n[0], n[1], -n[2]})
+			for _, p := range hc {
+				p.sign = -p.sign
+				cells = append(cells, p)
 			}
 			continue
 		}
@@ -651,34 +651,13 @@ func (h Holed) areaNodes(env series.Env) ([][3]float64, error) {
 		if err != nil {
 			return nil, err
 		}
-		if c.isEllipse() { // the unit disk's rule stretched onto the ellipse
-			for _, n := range diskNodes(0, 0, 1, -1) {
-				nodes = append(nodes, [3]float64{hs[k].x + hs[k].a*n[0], hs[k].y + hs[k].b*n[1], hs[k].a * hs[k].b * n[2]})
-			}
+		if c.isEllipse() {
+			cells = append(cells, polarCells(hs[k].x, hs[k].y, hs[k].a, hs[k].b, -1)...)
 			continue
 		}
-		nodes = append(nodes, diskNodes(hs[k].x, hs[k].y, hs[k].r, -1)...)
+		cells = append(cells, polarCells(hs[k].x, hs[k].y, hs[k].r, hs[k].r, -1)...)
 	}
-	return nodes, nil
-}
-
-// diskNodes are Gauss–Legendre nodes on a disk (8 panels in ρ, 32 in φ),
-// weights times sign.
-func diskNodes(cx, cy, R, sign float64) [][3]float64 {
-	var out [][3]float64
-	for i := 0; i < 8; i++ {
-		for ki, xi := range ansatz.GaussX {
-			rho := R * (float64(i) + (xi+1)/2) / 8
-			for j := 0; j < 32; j++ {
-				for kj, xj := range ansatz.GaussX {
-					phi := 2 * math.Pi * (float64(j) + (xj+1)/2) / 32
-					w := sign * ansatz.GaussW[ki] / 16 * R * ansatz.GaussW[kj] * math.Pi / 32 * rho
-					out = append(out, [3]float64{cx + rho*math.Cos(phi), cy + rho*math.Sin(phi), w})
-				}
-			}
-		}
-	}
-	return out
+	return cells, nil
 }
 
 func (h Holed) figures(s *Solution, ev *Evaluator, rep *Report, env series.Env, tol float64) error {

@@ -7,7 +7,6 @@ import (
 	"math/cmplx"
 	"strings"
 
-	"psol/ansatz"
 	"psol/series"
 	"psol/series/cart"
 )
@@ -219,42 +218,20 @@ func (p Polygon) geometry(env series.Env) (sectionGeometry, error) {
 	return g, nil
 }
 
-// areaNodes: the polygon cut into triangles by ear clipping, each triangle
-// into 64 by its midpoints three times over, and a collapsed 16 × 16
-// Gauss–Legendre rule (Duffy's map of the square onto the triangle) on
-// each: 2¹⁴ nodes an ear, as fine as the disk's rule. Cut into 4 only, a
-// square's 8 triangles took the integral of a bump of width 0.1 7·10⁻⁶ of
-// it wrong, and a pure Neumann problem with that source, compatible, was
-// refused as incompatible.
-func (p Polygon) areaNodes(env series.Env) ([][3]float64, error) {
+// areaCells: the polygon cut into triangles by ear clipping, each triangle
+// into 4 by its midpoints (areaNodes refines them further where the
+// integrand needs it).
+func (p Polygon) areaCells(env series.Env) ([]areaCell, error) {
 	xs, ys, orient, err := p.vertices(env)
 	if err != nil {
 		return nil, err
 	}
-	out := make([][3]float64, 0, 64*len(ansatz.GaussX)*len(ansatz.GaussX)*max(len(xs)-2, 1))
-	var split func(a, b, c [2]float64, depth int)
-	split = func(a, b, c [2]float64, depth int) {
-		if depth > 0 {
-			mid := func(p, q [2]float64) [2]float64 { return [2]float64{(p[0] + q[0]) / 2, (p[1] + q[1]) / 2} }
-			ab, bc, ca := mid(a, b), mid(b, c), mid(c, a)
-			split(a, ab, ca, depth-1)
-			split(ab, b, bc, depth-1)
-			split(ca, bc, c, depth-1)
-			split(ab, bc, ca, depth-1)
-			return
-		}
-		area := math.Abs((b[0]-a[0])*(c[1]-a[1])-(c[0]-a[0])*(b[1]-a[1])) / 2
-		for i, u := range ansatz.GaussX {
-			s := (u + 1) / 2
-			for j, v := range ansatz.GaussX {
-				t := (v + 1) / 2 * (1 - s)
-				w := ansatz.GaussW[i] / 2 * ansatz.GaussW[j] / 2 * (1 - s) * 2 * area
-				out = append(out, [3]float64{a[0] + s*(b[0]-a[0]) + t*(c[0]-a[0]), a[1] + s*(b[1]-a[1]) + t*(c[1]-a[1]), w})
-			}
-		}
-	}
+	var out []areaCell
 	for _, tri := range earClip(xs, ys, orient) {
-		split([2]float64{xs[tri[0]], ys[tri[0]]}, [2]float64{xs[tri[1]], ys[tri[1]]}, [2]float64{xs[tri[2]], ys[tri[2]]}, 3)
+		c := areaCell{shape: triangleCell, a: [2]float64{xs[tri[0]], ys[tri[0]]}, b: [2]float64{xs[tri[1]], ys[tri[1]]}, c: [2]float64{xs[tri[2]], ys[tri[2]]}, sign: 1}
+		for _, piece := range c.split() {
+			out = append(out, piece)
+		}
 	}
 	return out, nil
 }

@@ -3,7 +3,6 @@ package domain
 import (
 	"fmt"
 	"math"
-	"psol/ansatz"
 	"psol/series"
 	"psol/series/cart"
 )
@@ -26,8 +25,8 @@ func (r rectSection) geometry(env series.Env) (sectionGeometry, error) {
 	return plainGeometry(r.Rect, env)
 }
 
-func (r rectSection) areaNodes(env series.Env) ([][3]float64, error) {
-	return rectAreaNodes(r.Rect, env)
+func (r rectSection) areaCells(env series.Env) ([]areaCell, error) {
+	return rectCells(r.Rect, env)
 }
 
 func (r rectSection) solve(p *posed) (*Solution, error) { return solveSection(r, p) }
@@ -58,24 +57,19 @@ func polynomialInXY(s series.Sum) bool {
 	return err == nil
 }
 
-// rectAreaNodes: a tensor Gauss–Legendre rule on 8 × 8 equal panels.
-func rectAreaNodes(d Rect, env series.Env) ([][3]float64, error) {
+// rectCells: 8 × 8 equal boxes.
+func rectCells(d Rect, env series.Env) ([]areaCell, error) {
 	v, err := floats(env, d.L, d.H)
 	if err != nil {
 		return nil, err
 	}
-	var nodes [][3]float64
+	var out []areaCell
 	for i := 0; i < 8; i++ {
-		for a, xa := range ansatz.GaussX {
-			for j := 0; j < 8; j++ {
-				for b, yb := range ansatz.GaussX {
-					x, y := v[0]*(float64(i)+(xa+1)/2)/8, v[1]*(float64(j)+(yb+1)/2)/8
-					nodes = append(nodes, [3]float64{x, y, ansatz.GaussW[a] * ansatz.GaussW[b] / 4 * v[0] * v[1] / 64})
-				}
-			}
+		for j := 0; j < 8; j++ {
+			out = append(out, areaCell{shape: boxCell, a: [2]float64{v[0] * float64(i) / 8, v[1] * float64(j) / 8}, b: [2]float64{v[0] * float64(i+1) / 8, v[1] * float64(j+1) / 8}, sign: 1})
 		}
 	}
-	return nodes, nil
+	return out, nil
 }
 
 // rectShortfall is the note for numeric side series that miss the target:

@@ -16,9 +16,10 @@ import (
 type section interface {
 	Domain
 	geometry(env series.Env) (sectionGeometry, error)
-	// areaNodes are points and weights of a rule for ∬ f dA over the
-	// section, exact to rounding for smooth f (the numeric parts' integrals).
-	areaNodes(env series.Env) ([][3]float64, error)
+	// areaCells are the pieces of a rule for ∬ f dA over the section,
+	// exact to rounding for smooth f, and refined where f is not
+	// (areaNodes): the numeric parts' integrals.
+	areaCells(env series.Env) ([]areaCell, error)
 }
 
 // sectionGeometry is a section's boundary for the fit: the sides as paths,
@@ -1318,11 +1319,11 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 		}
 	}
 	if s.Quadrature != nil { // the numeric particular part and its source, by the area rule
-		nodes, err := d.areaNodes(env)
+		f, err := series.Field{Rest: s.Rest}.Compile(env)
 		if err != nil {
 			return err
 		}
-		f, err := series.Field{Rest: s.Rest}.Compile(env)
+		nodes, err := areaNodes(d, env, func(x, y float64) float64 { return f.At(polarOf(x, y)) })
 		if err != nil {
 			return err
 		}
@@ -1737,11 +1738,11 @@ func neumannBalance(d section, geo sectionGeometry, conds []sideCondition, up se
 		return unsupported("the source's integral needs every parameter's value: %w", err)
 	}
 	if quad != nil {
-		nodes, err := d.areaNodes(p.env)
+		f, err := series.Field{Rest: p.rest}.Compile(p.env)
 		if err != nil {
 			return err
 		}
-		f, err := series.Field{Rest: p.rest}.Compile(p.env)
+		nodes, err := areaNodes(d, p.env, func(x, y float64) float64 { return f.At(polarOf(x, y)) })
 		if err != nil {
 			return err
 		}
