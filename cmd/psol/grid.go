@@ -50,7 +50,7 @@ func writeGrid(files *stagedFiles, path string, sol *domain.Solution, n int, pro
 		return usagef("--grid: %w", err)
 	}
 	if shape.Polar == nil {
-		return writeCartesianGrid(files, path, shape.Box, ev, n)
+		return writeCartesianGrid(files, path, shape.Box, domain.InsideXY(sol.Domain, env), ev, n, sol.DataError)
 	}
 	rs, ths := gridAxes(shape.Polar, n)
 	u, errs := ev.Grid(rs, ths)
@@ -98,20 +98,32 @@ func terminal(w io.Writer) bool {
 	return err == nil && st.Mode()&os.ModeCharDevice != 0
 }
 
-// writeCartesianGrid writes u on an N×N Cartesian grid over the region's box: x,y,u,error.
-func writeCartesianGrid(files *stagedFiles, path string, box domain.Box, ev *domain.Evaluator, n int) error {
+// writeCartesianGrid writes u on an N×N Cartesian grid over the region's box,
+// its points in the region: x,y,u,error.
+// dataErr, the numeric parts' error (a section's fit residual, by the
+// maximum principle a bound inside), joins each point's own, as on the
+// polar grid: without it a section's column read 0.
+func writeCartesianGrid(files *stagedFiles, path string, box domain.Box, inside func(x, y float64) bool, ev *domain.Evaluator, n int, dataErr float64) error {
 	return files.stage(path, func(w io.Writer) error {
 		fmt.Fprintln(w, "x,y,u,error")
 		var line []byte
 		for i := 0; i < n; i++ {
 			for j := 0; j < n; j++ {
 				x, y := box.X0+(box.X1-box.X0)*float64(i)/float64(n-1), box.Y0+(box.Y1-box.Y0)*float64(j)/float64(n-1)
+				if !inside(x, y) {
+					// The box's points outside the region (an L shape's
+					// missing quadrant, an ellipse's corners, a hole): the
+					// fit's continuation there is no answer (it read
+					// 1.8e13 at an L shape's far corner), and a hole's
+					// read NaN.
+					continue
+				}
 				u, e, _ := ev.AtXY(x, y)
 				if math.IsInf(u, 0) {
 					continue // a point source: u is infinite there (its regular part is --at's)
 				}
 				line = line[:0]
-				for k, v := range [4]float64{x, y, u, e} {
+				for k, v := range [4]float64{x, y, u, e + dataErr} {
 					if k > 0 {
 						line = append(line, ',')
 					}

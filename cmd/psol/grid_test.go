@@ -207,3 +207,34 @@ func TestGridCappedSeriesHonest(t *testing.T) {
 		}
 	}
 }
+
+// A section's CSV grid holds the box's points in the region only, and each
+// point's error column carries the fit's residual bound. An L shape's
+// missing quadrant printed the fit's continuation (1.8e13 at the far
+// corner), a hole's points NaN, and every error read 0. Torsion of the L
+// (u = 0 outside, Δu = −2): u ≥ 0 inside (maximum principle) and 0 on the
+// sides, to the error printed.
+func TestSectionGridInRegion(t *testing.T) {
+	_, rows := readCSV(t, "solve", "lap(u) = -2", "--polygon", "0,0 2,0 2,1 1,1 1,2 0,2", "--bc", "u = 0")
+	if len(rows) != 49-9 { // 7 × 7, less the 3 × 3 beyond x = 1 and y = 1
+		t.Errorf("%d rows, want %d", len(rows), 49-9)
+	}
+	for _, r := range rows {
+		x, y, u, e := r[0], r[1], r[2], r[3]
+		if x > 1+1e-12 && y > 1+1e-12 {
+			t.Errorf("point (%g, %g) in the L's missing quadrant", x, y)
+		}
+		if e <= 0 || e > 1e-9 {
+			t.Errorf("error %g at (%g, %g): want the fit's residual bound", e, x, y)
+		}
+		if u < -e || math.IsNaN(u) {
+			t.Errorf("u(%g, %g) = %g below 0 by more than its error %g", x, y, u, e)
+		}
+	}
+	_, rows = readCSV(t, "solve", "lap(u) = -2", "--rect", "1,1", "--hole", "circle 0.5,0.5,0.3", "--bc", "u = 0")
+	for _, r := range rows {
+		if math.Hypot(r[0]-0.5, r[1]-0.5) < 0.3-1e-12 || math.IsNaN(r[2]) {
+			t.Errorf("point (%g, %g), u = %g, inside the hole", r[0], r[1], r[2])
+		}
+	}
+}
