@@ -144,7 +144,7 @@ const areaRuleBudget = 1 << 18
 // narrow source: a polygon's cut into 4 triangles an ear took a bump of
 // width 0.1 on a square 7·10⁻⁶ of its integral wrong, and a compatible
 // pure Neumann problem with it was refused as incompatible; a disk's, one
-// of width 0.01 7·10⁻⁴. Where f is nil, the base cells' rule.
+// of width 0.01 7·10⁻⁴.
 func areaNodes(d section, env series.Env, f func(x, y float64) float64) ([][3]float64, error) {
 	cells, err := d.areaCells(env)
 	if err != nil {
@@ -153,12 +153,6 @@ func areaNodes(d section, env series.Env, f func(x, y float64) float64) ([][3]fl
 	var out [][3]float64
 	emit := func(c areaCell) {
 		c.nodes(func(x, y, w float64) { out = append(out, [3]float64{x, y, w}) })
-	}
-	if f == nil {
-		for _, c := range cells {
-			emit(c)
-		}
-		return out, nil
 	}
 	x8, w8 := gauss8()
 	evals := 0

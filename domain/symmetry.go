@@ -117,13 +117,13 @@ func (s *symmetry) order() int {
 // findSymmetry is the largest group of reflections, in mirror lines through
 // the region's centroid at multiples of 15°, that maps the outline, every
 // side's condition and given data (to within tolData), the source f (at the
-// interior nodes) and every hole's centre onto themselves; without any
+// interior probes) and every hole's centre onto themselves; without any
 // such mirror line, the turns of findTurns; nil if there is neither. The
 // sides must map onto sides, t ↦ 1 − t (t is proportional to arc length,
 // and a reflection reverses it), or a closed side onto a closed side with a
 // shift of t. The particular solution need not be symmetric
 // (particularShift).
-func findSymmetry(g *sectionGeometry, conds []sideCondition, tolData float64, interior [][3]float64, f func(x, y float64) float64) *symmetry {
+func findSymmetry(g *sectionGeometry, conds []sideCondition, tolData float64, interior [][2]float64, f func(x, y float64) float64) *symmetry {
 	if len(g.shape.Sides) == 0 {
 		return nil
 	}
@@ -179,7 +179,7 @@ func findSymmetry(g *sectionGeometry, conds []sideCondition, tolData float64, in
 // as they can: a wall 10⁻⁴ from a slot's corner split the rows graded
 // toward it between the chamber and its image, and the fit stalled at 4e-11
 // against a target of 1e-12.
-func findTurns(g *sectionGeometry, c complex128, conds []sideCondition, eps, tolData float64, interior [][3]float64, f func(x, y float64) float64, scan closedScan) *symmetry {
+func findTurns(g *sectionGeometry, c complex128, conds []sideCondition, eps, tolData float64, interior [][2]float64, f func(x, y float64) float64, scan closedScan) *symmetry {
 	for _, n := range []int{6, 4, 3, 2} {
 		turn := cmplx.Rect(1, 2*math.Pi/float64(n))
 		m := isometry{rot: turn, shift: c - turn*c}
@@ -265,14 +265,13 @@ func cornerAt(corners []corner, w complex128, eps float64) int {
 // itself: sides onto sides with the same condition and data, corners onto
 // corners, each hole's centre onto itself (the holes' logarithms stay out of
 // the symmetrised basis).
-func invariantUnder(m isometry, g *sectionGeometry, conds []sideCondition, eps, tolData float64, interior [][3]float64, f func(x, y float64) float64, scan closedScan) bool {
-	step := max(1, len(interior)/97)
+func invariantUnder(m isometry, g *sectionGeometry, conds []sideCondition, eps, tolData float64, interior [][2]float64, f func(x, y float64) float64, scan closedScan) bool {
 	size := 0.0 // the source's size, for a tolerance that a zero of f does not defeat
-	for i := 0; i < len(interior); i += step {
-		size = math.Max(size, math.Abs(f(interior[i][0], interior[i][1])))
+	for _, p := range interior {
+		size = math.Max(size, math.Abs(f(p[0], p[1])))
 	}
-	for i := 0; i < len(interior); i += step {
-		z := complex(interior[i][0], interior[i][1])
+	for _, p := range interior {
+		z := complex(p[0], p[1])
 		w := m.apply(z)
 		a, b := f(real(z), imag(z)), f(real(w), imag(w))
 		if math.Abs(a-b) > 1e-12*size || math.IsNaN(a-b) {
@@ -468,7 +467,7 @@ func sectionSymmetry(d section, g *sectionGeometry, conds []sideCondition, p *po
 // 20,000 were tried (a thin slab's box is mostly outside). The section's
 // area rule served once: 10⁵ nodes built for the 97 taken, a third of a
 // hollow elliptical shaft's solve.
-func symmetryProbes(box Box, inside func(x, y float64) bool) [][3]float64 {
+func symmetryProbes(box Box, inside func(x, y float64) bool) [][2]float64 {
 	const want, tries = 97, 20000
 	halton := func(i, base int) float64 {
 		f, r := 1.0, 0.0
@@ -478,12 +477,12 @@ func symmetryProbes(box Box, inside func(x, y float64) bool) [][3]float64 {
 		}
 		return r
 	}
-	var out [][3]float64
+	var out [][2]float64
 	for i := 1; i <= tries && len(out) < want; i++ {
 		x := box.X0 + (box.X1-box.X0)*halton(i, 2)
 		y := box.Y0 + (box.Y1-box.Y0)*halton(i, 3)
 		if inside(x, y) {
-			out = append(out, [3]float64{x, y, 1})
+			out = append(out, [2]float64{x, y})
 		}
 	}
 	return out
