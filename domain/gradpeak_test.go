@@ -16,23 +16,7 @@ import (
 // golden-section search along the line on central differences extrapolated
 // (Richardson), and no larger value a step off it.
 func TestInteriorGradientPeakRefined(t *testing.T) {
-	square := polygonXY(-1, -1, 1, -1, 1, 1, -1, 1)
-	sol := solveWith(t, "lap(u) = exp(-((x-0.2)^2+y^2)/0.01)", square, domain.Options{Tol: 1e-12}, everySide(square, "u = 0")...)
-	rep, err := sol.Report(nil, 1e-12)
-	if err != nil {
-		t.Fatal(err)
-	}
-	ev := evaluator(t, sol, 1e-12)
-	// Central differences with Richardson's extrapolation from steps 2e-3
-	// and 1e-3 (fourth order, another stencil than the report's).
-	u := func(x, y float64) float64 { v, _, _ := ev.AtXY(x, y); return v }
-	g := func(x, y float64) float64 {
-		d := func(f func(s float64) float64, h float64) float64 { return (f(h) - f(-h)) / (2 * h) }
-		rich := func(f func(s float64) float64) float64 { return (4*d(f, 1e-3) - d(f, 2e-3)) / 3 }
-		gx := rich(func(s float64) float64 { return u(x+s, y) })
-		gy := rich(func(s float64) float64 { return u(x, y+s) })
-		return math.Hypot(gx, gy)
-	}
+	rep, g := bumpOnSquare(t, "exp(-((x-0.2)^2+y^2)/0.01)", 1e-3)
 	lo, hi := 0.25, 0.4
 	r := (math.Sqrt(5) - 1) / 2
 	for hi-lo > 1e-7 {
@@ -93,19 +77,7 @@ func TestRadialGradientPeak(t *testing.T) {
 // Richardson-extrapolated differences): no smaller, and its own value
 // read back at its place.
 func TestInteriorGradientPeakOnARidge(t *testing.T) {
-	square := polygonXY(-1, -1, 1, -1, 1, 1, -1, 1)
-	sol := solveWith(t, "lap(u) = exp(-((x-0.3)^2+(y-0.1)^2)/0.001)", square, domain.Options{Tol: 1e-12}, everySide(square, "u = 0")...)
-	rep, err := sol.Report(nil, 1e-12)
-	if err != nil {
-		t.Fatal(err)
-	}
-	ev := evaluator(t, sol, 1e-12)
-	u := func(x, y float64) float64 { v, _, _ := ev.AtXY(x, y); return v }
-	g := func(x, y float64) float64 {
-		d := func(f func(s float64) float64, h float64) float64 { return (f(h) - f(-h)) / (2 * h) }
-		rich := func(f func(s float64) float64) float64 { return (4*d(f, 2.5e-4) - d(f, 5e-4)) / 3 }
-		return math.Hypot(rich(func(s float64) float64 { return u(x+s, y) }), rich(func(s float64) float64 { return u(x, y+s) }))
-	}
+	rep, g := bumpOnSquare(t, "exp(-((x-0.3)^2+(y-0.1)^2)/0.001)", 2.5e-4)
 	best, ba, br := 0.0, 0.0, 0.0
 	search := func(a0, a1, r0, r1 float64, na, nr int) {
 		for i := 0; i <= na; i++ {
@@ -125,5 +97,26 @@ func TestInteriorGradientPeakOnARidge(t *testing.T) {
 	}
 	if v := g(got.At[0], got.At[1]); math.Abs(v-got.Value) > 1e-8*v {
 		t.Errorf("largest |grad u| %.12g at %v, but %.12g there by Richardson", got.Value, got.At, v)
+	}
+}
+
+// bumpOnSquare solves Δu = bump on the square (−1, 1)² as a polygon, u = 0,
+// and returns its report and |∇u| by central differences with Richardson's
+// extrapolation from steps h and 2h (fourth order, another stencil than
+// the report's).
+func bumpOnSquare(t *testing.T, bump string, h float64) (*domain.Report, func(x, y float64) float64) {
+	t.Helper()
+	square := polygonXY(-1, -1, 1, -1, 1, 1, -1, 1)
+	sol := solveWith(t, "lap(u) = "+bump, square, domain.Options{Tol: 1e-12}, everySide(square, "u = 0")...)
+	rep, err := sol.Report(nil, 1e-12)
+	if err != nil {
+		t.Fatal(err)
+	}
+	ev := evaluator(t, sol, 1e-12)
+	u := func(x, y float64) float64 { v, _, _ := ev.AtXY(x, y); return v }
+	return rep, func(x, y float64) float64 {
+		d := func(f func(s float64) float64, h float64) float64 { return (f(h) - f(-h)) / (2 * h) }
+		rich := func(f func(s float64) float64) float64 { return (4*d(f, h) - d(f, 2*h)) / 3 }
+		return math.Hypot(rich(func(s float64) float64 { return u(x+s, y) }), rich(func(s float64) float64 { return u(x, y+s) }))
 	}
 }
