@@ -45,3 +45,40 @@ func TestLeastSquaresInPlace(t *testing.T) {
 		}
 	}
 }
+
+// columnNorms reads the matrix row by row, and each norm must be bit for bit
+// gonum's own (mat.Norm of the column, BLAS's dnrm2): the adaptive fits'
+// paths turn on the last bit of a column's scale. Entries span 1e-200 to
+// 1e200, with zeros (leading, inside, a whole column), an infinity and a NaN.
+func TestColumnNormsMatchGonum(t *testing.T) {
+	rng := rand.New(rand.NewPCG(3, 4))
+	const m, nc = 257, 40
+	A := mat.NewDense(m+nc, nc+3, nil) // ridge rows below, spare columns right: both ignored
+	for i := 0; i < m; i++ {
+		for j := 0; j < nc; j++ {
+			if j == 7 || rng.IntN(5) == 0 || (j == 11 && i < 100) {
+				continue
+			}
+			v := rng.NormFloat64() * math.Pow(10, float64(rng.IntN(41)-20))
+			if j == 30 {
+				v *= 1e180
+			}
+			if j == 31 {
+				v *= 1e-180
+			}
+			A.Set(i, j, v)
+		}
+	}
+	A.Set(50, 20, math.Inf(-1))
+	A.Set(60, 21, math.NaN())
+	got := columnNorms(A, m, nc)
+	for j := 0; j < nc; j++ {
+		want := mat.Norm(A.ColView(j), 2) // the fit's old call, the zero ridge rows included
+		if math.Float64bits(got[j]) != math.Float64bits(want) && !(math.IsNaN(got[j]) && math.IsNaN(want)) {
+			t.Errorf("column %d: %v, gonum's norm %v", j, got[j], want)
+		}
+	}
+	if got[7] != 0 || !math.IsInf(got[20], 1) || !math.IsNaN(got[21]) {
+		t.Errorf("zero, infinite and NaN columns: %v %v %v", got[7], got[20], got[21])
+	}
+}
