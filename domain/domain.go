@@ -158,6 +158,9 @@ type Solution struct {
 	// Points is the point sources' field u_s and how it meets the
 	// conditions, where the source has point sources; U is then w, and u = u_s + U.
 	Points *PointPart
+	// Waves is a section's particular part in exponentials and
+	// trigonometric functions of x and y, where the source has any.
+	Waves  *WavePart
 	stages []stage       // region parts that evaluation attaches (see Compile)
 	Rules  []ansatz.Step // how each source term was solved
 	Steps  []string      // how the harmonic part was found, beyond the per-mode records

@@ -152,7 +152,7 @@ func flowFigures(s *Solution, rep *Report) ([]Figure, error) {
 	c, ok := s.constantSource()
 	switch {
 	case !ok:
-		dh.Warnings = append(dh.Warnings, "no fRe: it needs a constant source, lap(u) = -G/mu (a uniform pressure gradient), and this source is "+series.Field{Exact: s.Source, Rest: s.Rest}.Text())
+		dh.Warnings = append(dh.Warnings, "no fRe: it needs a constant source, lap(u) = -G/mu (a uniform pressure gradient), and this source is "+series.Field{Exact: s.Source, Rest: s.NonPolarSource()}.Text())
 		return append(out, dh), nil
 	case c.IsZero():
 		dh.Warnings = append(dh.Warnings, "no fRe: the source is zero (no pressure gradient)")
@@ -191,7 +191,7 @@ func torsionFigures(s *Solution, rep *Report) ([]Figure, error) {
 	}
 	c, ok := s.constantSource()
 	if !ok || c.IsZero() {
-		return nil, unsupported("torsion figures need a constant source, lap(u) = -2 (or any constant); this source is %s", series.Field{Exact: s.Source, Rest: s.Rest}.Text())
+		return nil, unsupported("torsion figures need a constant source, lap(u) = -2 (or any constant); this source is %s", series.Field{Exact: s.Source, Rest: s.NonPolarSource()}.Text())
 	}
 	var outer *series.Coef
 	holeValue := map[string]series.Coef{}

@@ -281,7 +281,11 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	for _, c := range p.conds {
 		allNeumann = allNeumann && c.Kind == Neumann
 	}
-	up, rules, err := ansatz.Particular(p.f)
+	// The waves (exponentials and trigonometric functions of x and y) in
+	// closed form; pq is the problem left to the polar rules and the
+	// quadrature, whose source's rest is what no rule closes.
+	waves, pq, fPolar := splitSectionWaves(p)
+	up, rules, err := ansatz.Particular(fPolar)
 	if err != nil {
 		return nil, unsupported("%w", err)
 	}
@@ -290,9 +294,15 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		return nil, unsupported("the region needs its sizes as numbers: %w", err)
 	}
 	var quad *ansatz.Quadrature
-	if p.rest != nil {
-		if quad, err = sectionQuadrature(d, geo, p); err != nil {
+	if pq.rest != nil {
+		if quad, err = sectionQuadrature(d, geo, pq); err != nil {
 			return nil, err
+		}
+	}
+	var we *waveEval
+	if waves != nil {
+		if we, err = waves.compile(p.env); err != nil {
+			return nil, unsupported("the source's waves need every parameter's value: %w", err)
 		}
 	}
 	conds := make([]sideCondition, len(geo.shape.Sides))
@@ -303,6 +313,9 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		if quad != nil {
 			conds[k].quad = newSideInterpolant(quad, side, p.tol)
 			conds[k].degree = -1
+		}
+		if we != nil { // u_w's trace: no polynomial
+			conds[k].waves, conds[k].degree, conds[k].polynomial = we, -1, false
 		}
 	}
 	for k := range conds { // a hole's sides share its value and its flux
@@ -326,8 +339,15 @@ func solveSection(d section, p *posed) (*Solution, error) {
 			scale = math.Max(scale, math.Max(math.Abs(g), math.Abs(op)))
 		}
 	}
+	if we != nil {
+		// The waves' size inside counts too: their trace can vanish to
+		// rounding on every side (sin(x)·sin(y) on the square (0, π)²),
+		// where the data's size alone, 1e-16, made the fit's rounding a
+		// residual of 0.8 of it and the problem was refused.
+		scale = math.Max(scale, waveSize(we, geo.shape.Box, InsideXY(d, p.env)))
+	}
 	target := p.tol * math.Max(scale, 1e-300)
-	if quad == nil && !allNeumann && len(geo.breaks) == 0 && !p.wholeBoundary { // a symmetric problem fits on one chamber (symmetry.go)
+	if quad == nil && waves == nil && !allNeumann && len(geo.breaks) == 0 && !p.wholeBoundary { // a symmetric problem fits on one chamber (symmetry.go)
 		if geo.sym, err = sectionSymmetry(d, &geo, conds, p, 0.01*target); err != nil {
 			return nil, err
 		}
@@ -451,7 +471,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 			// The quadrature samples the source on a disk about the
 			// section: a singularity there, outside the section, spoils
 			// u_q's trace (1/(x + 0.1) beside the unit square).
-			why = fmt.Sprintf("the fit could not resolve the section there; the source's part by quadrature is taken on the whole disk of radius %.4g about (%.4g, %.4g), and a singularity or steep growth of %s there, outside the section, would spoil it", quad.R, quad.X0, quad.Y0, p.rest.Text())
+			why = fmt.Sprintf("the fit could not resolve the section there; the source's part by quadrature is taken on the whole disk of radius %.4g about (%.4g, %.4g), and a singularity or steep growth of %s there, outside the section, would spoil it", quad.R, quad.X0, quad.Y0, pq.rest.Text())
 		}
 		for k := range geo.corners {
 			if math.Abs(geo.corners[k].angle-0.5) < 1e-9 {
@@ -476,7 +496,10 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		}
 	}
 	sol := &Solution{Domain: d, Source: p.f, Particular: up, U: up, Rules: rules, Section: parts, stages: []stage{parts}, Numeric: true,
-		Quadrature: quad, Rest: p.rest}
+		Quadrature: quad, Rest: pq.rest, Waves: waves}
+	if waves != nil {
+		sol.stages = append(sol.stages, waves)
+	}
 	for k, c := range conds {
 		if c.floating && c.group == k {
 			if sol.Floating == nil {
@@ -510,6 +533,9 @@ func solveSection(d section, p *posed) (*Solution, error) {
 				r, th := polarOf(px, py)
 				hMean += w * best.valueOnly(complex(px, py))
 				v := conds[k].up.At(r, th)
+				if w := conds[k].waves; w != nil {
+					v += w.AtXY(px, py)
+				}
 				if quad != nil {
 					q, _ := quad.At(quad.Local(px, py))
 					v += q
@@ -521,10 +547,13 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		sol.FreeMean = decimal(-mean / length)
 	}
 	eq := Check{Name: "lap(u_p) - f", Exact: true}
-	if r := up.Laplacian().Sub(p.f); !r.IsZero() {
+	if r := up.Laplacian().Sub(fPolar); !r.IsZero() {
 		eq.Exact, eq.Residual = false, r
 	}
 	sol.Checks = append(sol.Checks, eq)
+	if waves != nil {
+		sol.Checks = append(sol.Checks, waves.check())
+	}
 	for k, side := range geo.shape.Sides {
 		cond := p.conds[side.Name]
 		parts.Bound = parts.Bound && cond.Kind == Dirichlet
@@ -585,9 +614,9 @@ func solveSection(d section, p *posed) (*Solution, error) {
 		sol.DataError += qerr
 		// A section's sides read the kinks' closed form point by point.
 		kinkHow := fmt.Sprintf("), evaluated at each boundary point; the fit gathers its poles where the line crosses a side (%d such points), as at a corner", len(geo.breaks))
-		note := quadratureNote(quad, p.rest, quadratureDisk(quad), fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", quad.Samples, quad.Modes), kinkHow, false)
+		note := quadratureNote(quad, pq.rest, quadratureDisk(quad), fmt.Sprintf("FFT in theta with %d samples, modes up to %d; Gauss–Legendre in r", quad.Samples, quad.Modes), kinkHow, false)
 		sol.Notes = append(sol.Notes, note)
-		qc, err := checkedQuadrature(d, sol, p)
+		qc, err := checkedQuadrature(d, sol, pq)
 		if err != nil {
 			return nil, err
 		}
@@ -617,6 +646,7 @@ type sideCondition struct {
 	flux     float64          // the flux, for a floating side (of its whole hole)
 	group    int              // the first side of its hole: one U, one flux for all its sides
 	quad     *sideInterpolant // the numeric particular part on the side, where the source has one
+	waves    *waveEval        // the particular solution's waves (WavePart), where the source has any
 	a, b     float64
 	g        series.CompiledField
 	up       series.Compiled
@@ -747,6 +777,13 @@ func (sc sideCondition) parts(t, x, y, nx, ny float64) (g, op float64) {
 	if sc.b != 0 {
 		grad := sc.particularGradient(r, th)
 		op += sc.b * (nx*real(grad) + ny*imag(grad))
+	}
+	if w := sc.waves; w != nil {
+		op += sc.a * w.AtXY(x, y)
+		if sc.b != 0 {
+			wx, wy := w.grad(x, y)
+			op += sc.b * (nx*wx + ny*wy)
+		}
 	}
 	return g, op
 }
@@ -1304,11 +1341,18 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 	if err != nil {
 		return err
 	}
+	var we *waveEval
+	if s.Waves != nil {
+		if we, err = s.Waves.compile(env); err != nil {
+			return err
+		}
+	}
 	upOn := func(k int) sideCondition {
 		c := up
 		if len(s.Section.quad) == len(shape.Sides) {
 			c.quad = s.Section.quad[k]
 		}
+		c.waves = we // the fluxes take ∂u_w/∂n with ∂u_p/∂n
 		return c
 	}
 	hInt, fluxes := sectionBoundary(s.Section.fit, shape, upOn)
@@ -1356,6 +1400,15 @@ func sectionFigures(d section, s *Solution, ev *Evaluator, rep *Report, env seri
 		if green {
 			rep.Integral += greenBoundary(shape, s.Section.quad, kinks, cx, cy)
 		}
+		rep.SourceExact = nil
+	}
+	if s.Waves != nil { // u_w and f_w (with the polynomial the waves leave) by the area rule
+		u, f, err := s.Waves.integrals(d, env)
+		if err != nil {
+			return err
+		}
+		rep.Integral += u
+		rep.Source += f
 		rep.SourceExact = nil
 	}
 	inside := InsideXY(d, env)
@@ -1737,7 +1790,7 @@ func neumannBalance(d section, geo sectionGeometry, conds []sideCondition, up se
 	if source, err = c.Float(p.env); err != nil {
 		return unsupported("the source's integral needs every parameter's value: %w", err)
 	}
-	if quad != nil {
+	if p.rest != nil { // the quadrature's part and the waves' (p is the problem as posed)
 		f, err := series.Field{Rest: p.rest}.Compile(p.env)
 		if err != nil {
 			return err

@@ -96,8 +96,8 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps, tex bool
 		v.Warnings = append(v.Warnings, "the output writes the unknown "+pr.unknown+" as u (and its particular part as u_p)")
 	}
 	f := series.ExactField(sol.Source)
-	if sol.Rest != nil { // the part the quadrature took
-		f = f.Add(series.Field{Rest: sol.Rest})
+	if rest := sol.NonPolarSource(); rest != nil { // the part the waves and the quadrature took
+		f = f.Add(series.Field{Rest: rest})
 	}
 	f = sourceWithPoints(f, sol)
 	var conds, condsTeX []string

@@ -20,10 +20,20 @@ func (v *view) sectionStages(sol *domain.Solution) {
 	if p, err := cart.FromPolar(sol.Particular); err == nil {
 		upTeX = p.LaTeX()
 	}
+	minusW, minusWTeX := "", ""   // the waves, in the corrections
+	if w := sol.Waves; w != nil { // the source's exponentials and trigonometric functions, in closed form
+		wText, wTeX := w.Waves.Text(), v.latex(w.Waves.LaTeX)
+		if sol.Particular.IsZero() {
+			up, upTeX = wText, wTeX
+		} else {
+			up, upTeX = joinSigned(up, wText), joinSigned(upTeX, wTeX)
+		}
+		minusW, minusWTeX = " - ("+wText+")", ` - (`+wTeX+`)`
+	}
 	closedUp := up             // the closed part alone, for the corrections
 	if sol.Quadrature != nil { // the source's part with no closed form, by quadrature
 		q, _ := quadratureText(sol)
-		if sol.Particular.IsZero() {
+		if sol.Particular.IsZero() && sol.Waves == nil {
 			up, upTeX = "u_q, u_q = "+q, `u_q`
 		} else {
 			up, upTeX = up+" + u_q, u_q = "+q, upTeX+` + u_q`
@@ -33,7 +43,7 @@ func (v *view) sectionStages(sol *domain.Solution) {
 	minusQ, minusQTeX := "", ""
 	if sol.Quadrature != nil {
 		up, minusQ, minusQTeX = closedUp+" + u_q", " - u_q", ` - u_q`
-		if sol.Particular.IsZero() {
+		if sol.Particular.IsZero() && sol.Waves == nil {
 			up = "u_q"
 		}
 	}
@@ -52,7 +62,7 @@ func (v *view) sectionStages(sol *domain.Solution) {
 			tr, trTeX = append(tr, c.Side+": u_p = "+up), append(trTeX, side+upTeX)
 			if c.G.IsExact() {
 				d := c.G.Exact.Sub(sol.Particular)
-				co, coTeX = append(co, c.Side+": "+domain.FieldText(sol.Domain, d)+minusQ), append(coTeX, side+xyTeX(d)+minusQTeX)
+				co, coTeX = append(co, c.Side+": "+domain.FieldText(sol.Domain, d)+minusW+minusQ), append(coTeX, side+xyTeX(d)+minusWTeX+minusQTeX)
 			} else {
 				co, coTeX = append(co, c.Side+": "+s.DataText+" - u_p"), append(coTeX, side+s.DataLaTeX+" - u_p")
 			}
@@ -88,7 +98,22 @@ func gradientText(sol *domain.Solution) string {
 	if err != nil {
 		return "(grad of " + series.JoinText(sol.Particular) + ")"
 	}
-	return "(" + p.DX().Text() + ", " + p.DY().Text() + ")"
+	dx, dy := p.DX().Text(), p.DY().Text()
+	if w := sol.Waves; w != nil { // the waves' derivatives beside the polynomial's
+		dx, dy = sumText(dx, w.Waves.DX().Text()), sumText(dy, w.Waves.DY().Text())
+	}
+	return "(" + dx + ", " + dy + ")"
+}
+
+// sumText is a + b as printed, a 0 on either side left out.
+func sumText(a, b string) string {
+	switch {
+	case b == "0":
+		return a
+	case a == "0":
+		return b
+	}
+	return joinSigned(a, b)
 }
 
 // xyClosedStages reprints a closed solution on a section (the ellipse's

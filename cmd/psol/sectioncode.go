@@ -445,6 +445,13 @@ func writeSectionCode(w io.Writer, l series.Lang, pr *problem, sol *domain.Solut
 		}
 		poly = poly.Add(cart.Monomial(decimalCoef(c), 0, 0))
 	}
+	closed, closedText := poly.Code(l), poly.Text()
+	if w := sol.Waves; w != nil { // the source's waves in closed form, with the polynomial
+		if _, err := w.Waves.Compile(nil); err != nil {
+			return &domain.Unsupported{Reason: "generated code for a section whose particular solution's exponentials or trigonometric functions carry parameters is not written yet; give the numbers in the equation"}
+		}
+		closed, closedText = closed+" + "+w.Waves.Code(l), sumText(closedText, w.Waves.Text())
+	}
 	shape := sectionCodeShapes[l.Name]
 	f := sol.Section.Fitted()
 	split := func(z []complex128) (re, im []float64) {
@@ -455,7 +462,7 @@ func writeSectionCode(w io.Writer, l series.Lang, pr *problem, sol *domain.Solut
 	}
 	var b strings.Builder
 	fmt.Fprintf(&b, "%s psol %s: u(x, y) = %s + h(x, y), h fitted to the side conditions (largest residual %.1e)\n",
-		codeShapes[l.Name].comment, version, poly.Text(), sol.Section.Residual)
+		codeShapes[l.Name].comment, version, closedText, sol.Section.Residual)
 	switch l.Name {
 	case "python":
 		b.WriteString("import math\n\n")
@@ -543,7 +550,7 @@ func writeSectionCode(w io.Writer, l series.Lang, pr *problem, sol *domain.Solut
 	if l.Name == "c" {
 		fmt.Fprintf(&b, "enum { psolPoles = %d, psolPowers = %d, psolLogs = %d, psolVars = %d, psolTerms = %d, psolMaps = %d };\n", len(f.Poles), len(f.Beta), len(f.LogK), len(f.Vars), len(f.Terms), len(f.Maps))
 	}
-	fmt.Fprintf(&b, shape.body, poly.Code(l), len(f.D), max(1, len(f.Vars)))
+	fmt.Fprintf(&b, shape.body, closed, len(f.D), max(1, len(f.Vars)))
 	_, err = io.WriteString(w, b.String())
 	return err
 }
