@@ -186,6 +186,9 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps, tex bool
 	for _, st := range sol.Rules {
 		v.Steps = append(v.Steps, fmt.Sprintf("ansatz %s -> %s (%s)", st.Source.Text(), st.Result.Text(), st.Rule))
 	}
+	if w := sol.Waves; w != nil {
+		v.Steps = append(v.Steps, fmt.Sprintf("ansatz %s -> %s (exponential-trigonometric in x and y)", w.Source.Text(), w.Waves.Text()))
+	}
 	if showSteps { // a line per mode: thousands with numeric data
 		v.Steps = append(v.Steps, sol.StepLines()...)
 	}

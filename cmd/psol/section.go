@@ -20,7 +20,6 @@ func (v *view) sectionStages(sol *domain.Solution) {
 	if p, err := cart.FromPolar(sol.Particular); err == nil {
 		upTeX = p.LaTeX()
 	}
-	minusW, minusWTeX := "", ""   // the waves, in the corrections
 	if w := sol.Waves; w != nil { // the source's exponentials and trigonometric functions, in closed form
 		wText, wTeX := w.Waves.Text(), v.latex(w.Waves.LaTeX)
 		if sol.Particular.IsZero() {
@@ -28,7 +27,6 @@ func (v *view) sectionStages(sol *domain.Solution) {
 		} else {
 			up, upTeX = joinSigned(up, wText), joinSigned(upTeX, wTeX)
 		}
-		minusW, minusWTeX = " - ("+wText+")", ` - (`+wTeX+`)`
 	}
 	closedUp := up             // the closed part alone, for the corrections
 	if sol.Quadrature != nil { // the source's part with no closed form, by quadrature
@@ -62,7 +60,12 @@ func (v *view) sectionStages(sol *domain.Solution) {
 			tr, trTeX = append(tr, c.Side+": u_p = "+up), append(trTeX, side+upTeX)
 			if c.G.IsExact() {
 				d := c.G.Exact.Sub(sol.Particular)
-				co, coTeX = append(co, c.Side+": "+domain.FieldText(sol.Domain, d)+minusW+minusQ), append(coTeX, side+xyTeX(d)+minusWTeX+minusQTeX)
+				dText, dTeX := domain.FieldText(sol.Domain, d), xyTeX(d)
+				if w := sol.Waves; w != nil { // g − u_p less the waves, their signs turned: y + e^(−x)/3·cos 2y, not y − (−…)
+					neg := w.Waves.Scale(cart.Monomial(series.IntCoef(-1), 0, 0))
+					dText, dTeX = sumText(dText, neg.Text()), sumText(dTeX, v.latex(neg.LaTeX))
+				}
+				co, coTeX = append(co, c.Side+": "+dText+minusQ), append(coTeX, side+dTeX+minusQTeX)
 			} else {
 				co, coTeX = append(co, c.Side+": "+s.DataText+" - u_p"), append(coTeX, side+s.DataLaTeX+" - u_p")
 			}

@@ -360,6 +360,9 @@ func (w Wave) print(latex bool) string {
 		if p.Equal(Monomial(series.IntCoef(1), 0, 0)) {
 			return f
 		}
+		if p.Equal(Monomial(series.IntCoef(-1), 0, 0)) { // -sin(x), not -1*sin(x)
+			return "-" + f
+		}
 		if latex {
 			return poly(p) + ` \, ` + f
 		}
@@ -400,8 +403,11 @@ func (w Wave) print(latex bool) string {
 	}
 	_, constant := w.Cos.Coefficients()
 	if constant && len(w.Cos.Terms()) == 1 && w.Cos.Terms()[0].I == 0 && w.Cos.Terms()[0].J == 0 && w.Gamma.IsZero() && w.Delta.IsZero() {
-		if body == "1" {
+		switch body {
+		case "1":
 			return e
+		case "-1":
+			return "-" + e
 		}
 		return body + mul + e
 	}
