@@ -1955,7 +1955,7 @@ func floatingConstraints(geo sectionGeometry, conds []sideCondition, up series.S
 			if err != nil {
 				return nil, err
 			}
-			flux.quad = member.quad
+			flux.quad, flux.waves = member.quad, member.waves
 			side := geo.shape.Sides[m]
 			add := func(t, w float64) {
 				x, y, nx, ny := side.At(t)

@@ -45,7 +45,7 @@ func TestSectionWavesEigenfunction(t *testing.T) {
 // the quadrature (Options.NumericSource: an independent numeric particular
 // solution, a Green's-kernel quadrature on a disk about the section): values
 // and every figure agree, on a triangle with a Robin side, an ellipse with
-// a flux side, a rectangle less a disk, and a source whose waves leave a
+// a flux side, a rectangle less a disk (its hole at a flux, then floating at one unknown value with a net flux), and a source whose waves leave a
 // polynomial (sin(x)² = 1/2 − cos(2x)/2), and beside a bump that only the
 // quadrature takes. The closed road takes no quadrature for the waves.
 func TestSectionWavesAgainstQuadrature(t *testing.T) {
@@ -61,6 +61,7 @@ func TestSectionWavesAgainstQuadrature(t *testing.T) {
 		{"triangle", "lap(u) = exp(x + 2*y) - 1", triangle, []string{"s1: u = 0", "s2: dn(u) + 3u = 1", "s3: u = x"}, false},
 		{"ellipse", "lap(u) = sin(3*x)*cosh(y) + x*cos(y)", ellipse, []string{"rim: dn(u) + u = 0"}, false},
 		{"rectangle less a disk", "lap(u) = cos(2*x)*exp(-y)", holed, append(everySide(holed.Outer, "u = 0"), "hole1: dn(u) = 1"), false},
+		{"a floating hole", "lap(u) = sin(2*x)*exp(y)", holed, append(everySide(holed.Outer, "u = 0"), "hole1: u = const, flux = 0.1"), false},
 		{"a polynomial left over", "lap(u) = sin(x)^2 + x", triangle, everySide(triangle, "u = 0"), false},
 		{"waves beside a bump", "lap(u) = cos(x + y) + exp(-((x - 0.5)^2 + (y - 0.3)^2)/0.05)", triangle, []string{"s1: u = 0", "s2: dn(u) + 3u = 1", "s3: u = 0"}, true},
 	} {
