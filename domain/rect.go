@@ -681,6 +681,12 @@ type numericPart struct {
 }
 
 func newNumericPart(w cart.Waves, sq *ansatz.SineQuadrature, env series.Env, L, H float64) (*numericPart, error) {
+	// The waves' traces are sampled: every parameter needs its value (a
+	// polynomial factor's parameter evaluated as 0, and Δu = q·exp(x) with u
+	// = 0 printed u = q·exp(x), its trace read 0).
+	if err := WavesBound(w, env); err != nil {
+		return nil, unsupported("the source's exponential and trigonometric part on the rectangle needs every parameter's value: %w", err)
+	}
 	u, err := w.Compile(env)
 	if err != nil {
 		return nil, err

@@ -2,9 +2,11 @@ package domain_test
 
 import (
 	"math"
+	"strings"
 	"testing"
 
 	"psol/domain"
+	"psol/series"
 )
 
 // Δu = −2·sin x·sin y on the square (0, π)² with u = 0: u = sin x·sin y, the
@@ -100,6 +102,44 @@ func TestSectionWavesAgainstQuadrature(t *testing.T) {
 			a, _, _ := ec.AtXY(p[0], p[1])
 			b, _, _ := en.AtXY(p[0], p[1])
 			near("u at a point", a, b)
+		}
+	}
+}
+
+// A wave whose polynomial factor carries a parameter with no value is
+// refused, on a section and on the rectangle, with the parameter named: the
+// waves' compiled form took it as 0 between points, and Δu = q·exp(x) with
+// u = 0 printed u = q·exp(x) on the rectangle (its trace read 0) and
+// u ≈ −q·sin(x) + h with h fitted for q = 0 on a triangle. With its value
+// the answer is linear in it (common practice: linearity of Δ).
+func TestWavesNeedTheirParameters(t *testing.T) {
+	triangle := polygonXY(0, 0, 1, 0, 0, 1)
+	rect := domain.Rect{L: decimalCoef(1), H: decimalCoef(1)}
+	for _, c := range []struct {
+		d      domain.Domain
+		source string
+	}{{triangle, "lap(u) = q*sin(x)"}, {rect, "lap(u) = q*exp(x)"}, {triangle, "lap(u) = (1 + q*y)*exp(x)"}} {
+		f, conds, err := pose(c.source, c.d, everySide(c.d, "u = 0"), nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if _, err := domain.SolveWith(c.d, f, conds, domain.Options{}); err == nil || !strings.Contains(err.Error(), "parameter q") {
+			t.Errorf("%s on %s with q unset: %v, want a refusal naming q", c.source, c.d.Describe(), err)
+		}
+		var at [2]float64
+		for i, q := range []float64{1, 3} {
+			f, conds, err := pose(c.source, c.d, everySide(c.d, "u = 0"), series.Env{"q": decimalCoef(q)})
+			if err != nil {
+				t.Fatal(err)
+			}
+			sol, err := domain.SolveWith(c.d, f, conds, domain.Options{})
+			if err != nil {
+				t.Fatal(err)
+			}
+			at[i], _, _ = evaluator(t, sol, 1e-12).AtXY(0.25, 0.25)
+		}
+		if c.source != "lap(u) = (1 + q*y)*exp(x)" && (at[0] == 0 || math.Abs(at[1]-3*at[0]) > 1e-11) {
+			t.Errorf("%s: u(1/4, 1/4) = %.15g at q = 1 and %.15g at q = 3, want three times", c.source, at[0], at[1])
 		}
 	}
 }
