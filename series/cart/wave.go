@@ -442,6 +442,14 @@ func (s Waves) Compile(env series.Env) (*CompiledWaves, error) {
 				return nil, err
 			}
 		}
+		// The polynomial factors are evaluated at each point, where an
+		// error has nowhere to go: a parameter with no value is refused
+		// here (At took it as 0, and a wave's trace read 0).
+		for _, p := range []Poly{w.Cos, w.Sin} {
+			if _, err := p.Eval(0, 0, env); err != nil {
+				return nil, err
+			}
+		}
 		cw.cos, cw.sin, cw.env = w.Cos, w.Sin, env
 		out.waves = append(out.waves, cw)
 	}
