@@ -332,6 +332,18 @@ func (d Rect) solve(p *posed) (*Solution, error) {
 			if errL != nil || errH != nil {
 				return nil, unsupported("a Robin side or numeric data on the rectangle need its sides' values: %w", errors.Join(errL, errH))
 			}
+			// The numeric side series sample the data and the trace: every
+			// parameter needs its value. Eval's error was dropped, a
+			// parameter read 0, and Δu = b with a convective top printed
+			// u = b·x(x − 1)/2, which is not 0 on the bottom.
+			for _, q := range []*cart.Poly{&tr, data[name].poly} {
+				if q == nil {
+					continue
+				}
+				if _, err := q.Eval(0, 0, p.env); err != nil {
+					return nil, unsupported("a Robin side or numeric data on the rectangle are solved by numeric side series, which need every parameter's value: %w", err)
+				}
+			}
 			if g := data[name].poly; g != nil {
 				side.Data, side.Correction = *g, g.Sub(tr)
 			}

@@ -4,6 +4,7 @@ import (
 	"math"
 	"math/rand"
 	"strconv"
+	"strings"
 	"testing"
 
 	"psol/domain"
@@ -548,6 +549,25 @@ func TestLongChannelKeepsItsParticularSolution(t *testing.T) {
 		want := p[1] - p[1]*p[1]/2
 		if got, _, _ := ev.At(math.Hypot(p[0], p[1]), math.Atan2(p[1], p[0])); math.Abs(got-want) > 1e-12 {
 			t.Errorf("u%v = %.15f, want %.15f", p, got, want)
+		}
+	}
+}
+
+// The rectangle's numeric side series (a Robin side) sample the data and
+// u_p's trace: a parameter with no value is refused, naming it. Its error
+// was dropped and the parameter read 0: Δu = b with u = 0 on three sides
+// and dn(u) + 2u = 0 on the top printed u = b·x(x − 1)/2, which is not 0
+// on the bottom, with an exact check.
+func TestRectNumericSidesNeedTheirParameters(t *testing.T) {
+	rect := domain.Rect{L: decimalCoef(1), H: decimalCoef(1)}
+	bcs := []string{"left: u = 0", "right: u = 0", "bottom: u = 0", "top: dn(u) + 2u = 0"}
+	for _, c := range []struct{ source, top string }{{"lap(u) = b", "top: dn(u) + 2u = 0"}, {"lap(u) = 1", "top: dn(u) + 2u = b*x"}} {
+		f, conds, err := pose(c.source, rect, append(bcs[:3:3], c.top), nil)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if _, err := domain.SolveWith(rect, f, conds, domain.Options{}); err == nil || !strings.Contains(err.Error(), "parameter b") {
+			t.Errorf("%s with %s, b unset: %v, want a refusal naming b", c.source, c.top, err)
 		}
 	}
 }
