@@ -49,7 +49,8 @@ func TestSectionWavesEigenfunction(t *testing.T) {
 // and every figure agree, on a triangle with a Robin side, an ellipse with
 // a flux side, a rectangle less a disk (its hole at a flux, then floating at one unknown value with a net flux), and a source whose waves leave a
 // polynomial (sin(x)² = 1/2 − cos(2x)/2), and beside a bump that only the
-// quadrature takes. The closed road takes no quadrature for the waves.
+// quadrature takes, and on a millimetre triangle with waves of 300 and
+// 200 per unit length. The closed road takes no quadrature for the waves.
 func TestSectionWavesAgainstQuadrature(t *testing.T) {
 	triangle := polygonXY(0, 0, 1.5, 0, 0.4, 1)
 	holed := domain.Holed{Outer: polygonXY(0, 0, 1, 0, 1, 0.6, 0, 0.6), Holes: []domain.CircleHole{{X: decimalCoef(0.3), Y: decimalCoef(0.3), R: decimalCoef(0.12)}}}
@@ -58,14 +59,16 @@ func TestSectionWavesAgainstQuadrature(t *testing.T) {
 		name, equation string
 		d              domain.Domain
 		bcs            []string
-		rest           bool // a part for the quadrature beside the waves
+		rest           bool    // a part for the quadrature beside the waves
+		size           float64 // the figures' scale, for the comparison (1 where 0)
 	}{
-		{"triangle", "lap(u) = exp(x + 2*y) - 1", triangle, []string{"s1: u = 0", "s2: dn(u) + 3u = 1", "s3: u = x"}, false},
-		{"ellipse", "lap(u) = sin(3*x)*cosh(y) + x*cos(y)", ellipse, []string{"rim: dn(u) + u = 0"}, false},
-		{"rectangle less a disk", "lap(u) = cos(2*x)*exp(-y)", holed, append(everySide(holed.Outer, "u = 0"), "hole1: dn(u) = 1"), false},
-		{"a floating hole", "lap(u) = sin(2*x)*exp(y)", holed, append(everySide(holed.Outer, "u = 0"), "hole1: u = const, flux = 0.1"), false},
-		{"a polynomial left over", "lap(u) = sin(x)^2 + x", triangle, everySide(triangle, "u = 0"), false},
-		{"waves beside a bump", "lap(u) = cos(x + y) + exp(-((x - 0.5)^2 + (y - 0.3)^2)/0.05)", triangle, []string{"s1: u = 0", "s2: dn(u) + 3u = 1", "s3: u = 0"}, true},
+		{"triangle", "lap(u) = exp(x + 2*y) - 1", triangle, []string{"s1: u = 0", "s2: dn(u) + 3u = 1", "s3: u = x"}, false, 0},
+		{"ellipse", "lap(u) = sin(3*x)*cosh(y) + x*cos(y)", ellipse, []string{"rim: dn(u) + u = 0"}, false, 0},
+		{"rectangle less a disk", "lap(u) = cos(2*x)*exp(-y)", holed, append(everySide(holed.Outer, "u = 0"), "hole1: dn(u) = 1"), false, 0},
+		{"a floating hole", "lap(u) = sin(2*x)*exp(y)", holed, append(everySide(holed.Outer, "u = 0"), "hole1: u = const, flux = 0.1"), false, 0},
+		{"a millimetre triangle", "lap(u) = exp(300*x)*cos(200*y)", polygonXY(0, 0, 0.015, 0, 0.004, 0.01), []string{"s1: u = 0", "s2: dn(u) + 50u = 0", "s3: u = 0"}, false, 1e-4},
+		{"a polynomial left over", "lap(u) = sin(x)^2 + x", triangle, everySide(triangle, "u = 0"), false, 0},
+		{"waves beside a bump", "lap(u) = cos(x + y) + exp(-((x - 0.5)^2 + (y - 0.3)^2)/0.05)", triangle, []string{"s1: u = 0", "s2: dn(u) + 3u = 1", "s3: u = 0"}, true, 0},
 	} {
 		closed := solveWith(t, c.equation, c.d, domain.Options{Tol: 1e-12}, c.bcs...)
 		numeric := solveWith(t, c.equation, c.d, domain.Options{Tol: 1e-12, NumericSource: true}, c.bcs...)
@@ -81,12 +84,18 @@ func TestSectionWavesAgainstQuadrature(t *testing.T) {
 			t.Fatal(err)
 		}
 		const tol = 1e-9
-		near := func(what string, a, b float64) {
-			if math.Abs(a-b) > tol*math.Max(1, math.Abs(b)) {
+		size := c.size // u's scale; an integral's is it times the area
+		if size == 0 {
+			size = 1
+		}
+		area, _ := rc.Area.Float(nil)
+		nearScaled := func(what string, a, b, size float64) {
+			if math.Abs(a-b) > tol*math.Max(size, math.Abs(b)) {
 				t.Errorf("%s: %s %.15g by the waves, %.15g by the quadrature", c.name, what, a, b)
 			}
 		}
-		near("area integral", rc.Integral, rn.Integral)
+		near := func(what string, a, b float64) { nearScaled(what, a, b, size) }
+		nearScaled("area integral", rc.Integral, rn.Integral, size*area)
 		near("source integral", rc.Source, rn.Source)
 		near("max u", rc.Max, rn.Max)
 		near("min u", rc.Min, rn.Min)
@@ -95,7 +104,7 @@ func TestSectionWavesAgainstQuadrature(t *testing.T) {
 		}
 		near("net flux less the source's integral", rc.Flux-rc.Source, 0)
 		ec, en := evaluator(t, closed, 1e-12), evaluator(t, numeric, 1e-12)
-		for _, p := range [][2]float64{{0.3, 0.2}, {0.6, 0.1}, {0.5, 0.4}} {
+		for _, p := range [][2]float64{{0.3, 0.2}, {0.6, 0.1}, {0.5, 0.4}, {0.004, 0.003}} {
 			if !domain.InsideXY(c.d, nil)(p[0], p[1]) {
 				continue
 			}
