@@ -23,7 +23,11 @@ type Evaluator struct {
 	dataErr float64                // what numeric traces bring to every value
 	parts   []xyPart               // numeric parts evaluated in x and y (a section's harmonic part)
 	pts     *pointEval             // the point sources' field u_s, where the source has any
-	arcs    []*compiledArc         // Dirichlet data on circular sides, exact on the circles themselves
+	// after are closed parts added after the region's own sum, whose
+	// shortcuts on a circle with values (the rim's Poisson integral, the
+	// data on an arc) give the rest of u alone: the source's waves.
+	after []xyPart
+	arcs  []*compiledArc // Dirichlet data on circular sides, exact on the circles themselves
 }
 
 // onArc is u where (r, θ) lies on a circular side with Dirichlet data.
@@ -158,6 +162,9 @@ func (e *Evaluator) atClosedAndSeries(r, theta float64) (u, errEst float64, term
 	if e.pts != nil {
 		u += e.pts.at(r*math.Cos(theta), r*math.Sin(theta))
 	}
+	for _, p := range e.after {
+		u += p.AtXY(r*math.Cos(theta), r*math.Sin(theta))
+	}
 	return u, errEst, terms
 }
 
@@ -215,17 +222,22 @@ func (e *Evaluator) Grid(rs, thetas []float64) (u, errs [][]float64) {
 			}
 		}
 	}
-	if len(e.parts) > 0 {
-		for i, r := range rs {
-			for j, th := range thetas {
+	// The parts beside the sums, on the far rows only: a near row's
+	// atClosedAndSeries has them already (the point sources' field was
+	// added twice there, and a CSV grid's centre row read −0.463 where u
+	// is −0.271).
+	for k, i := range farRows {
+		r := far[k]
+		for j, th := range thetas {
+			x, y := r*math.Cos(th), r*math.Sin(th)
+			if len(e.parts) > 0 {
 				u[i][j] += e.partsAt(r, th)
 			}
-		}
-	}
-	if e.pts != nil {
-		for i, r := range rs {
-			for j, th := range thetas {
-				u[i][j] += e.pts.at(r*math.Cos(th), r*math.Sin(th))
+			for _, p := range e.after {
+				u[i][j] += p.AtXY(x, y)
+			}
+			if e.pts != nil {
+				u[i][j] += e.pts.at(x, y)
 			}
 		}
 	}

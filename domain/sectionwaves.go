@@ -56,7 +56,7 @@ func (w *WavePart) attach(e *Evaluator, _ *Solution, env series.Env) error {
 	if err != nil {
 		return err
 	}
-	e.parts = append(e.parts, we)
+	e.after = append(e.after, we)
 	return nil
 }
 
