@@ -244,6 +244,9 @@ func SolveWith(d Domain, source series.Field, conds []Condition, opt Options) (*
 	if err := finiteSource(d, source, opt.Env); err != nil {
 		return nil, err
 	}
+	if sol, handled, err := solveCircleWaves(d, source, conds, opt); handled {
+		return sol, err
+	}
 	sol, err := d.solve(p)
 	if sol != nil {
 		sol.Options = opt

@@ -74,6 +74,11 @@ func (s *Solution) Report(env series.Env, tol float64) (*Report, error) {
 		}
 	}
 	ev.pts = pts
+	if s.Waves != nil && s.Section == nil { // a disk's or an annulus's waves (sections count theirs)
+		if err := s.circleWaveFigures(rep, shape, env); err != nil {
+			return nil, err
+		}
+	}
 	if s.Points != nil {
 		if err := s.pointFigures(rep, shape, env); err != nil {
 			return nil, err

@@ -28,6 +28,9 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 	if sol.Section != nil { // the fitted harmonic part, from its tables
 		return writeSectionCode(w, l, pr, sol)
 	}
+	if sol.Waves != nil { // a disk's or an annulus's: its code is in r and theta
+		return &domain.Unsupported{Reason: "generated code for a disk's or an annulus's source with exponentials or trigonometric functions of x and y is not written yet (on a polygon, an ellipse or the rectangle it is)"}
+	}
 	var kinks []string
 	if sol.Quadrature != nil { // the numeric particular part has no formula to write
 		if sol.Numeric || len(sol.Quadrature.Kinks) == 0 {

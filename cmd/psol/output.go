@@ -172,6 +172,9 @@ func newView(pr *problem, sol *domain.Solution, pts []point, showSteps, tex bool
 	} else if _, ok := sol.Domain.(domain.Ellipse); ok {
 		v.xyClosedStages(sol)
 	}
+	if sol.Waves != nil && sol.Section == nil && sol.Rect == nil {
+		v.circleWaveStages(sol)
+	}
 	if sol.Points != nil {
 		v.pointStages(sol)
 	}
