@@ -63,19 +63,7 @@ func TestCircleWavesAgainstQuadrature(t *testing.T) {
 		{"disk with a point source", "lap(u) = cos(2*x) + delta(x - 0.3, y - 0.1)", unitDisk, []string{"dn(u) + u = 0"}},
 		{"disk, a polynomial left over", "lap(u) = cos(x)^2", unitDisk, []string{"u = x"}},
 	} {
-		closed := solveWith(t, c.equation, c.d, domain.Options{}, c.bcs...)
-		numeric := solveWith(t, c.equation, c.d, domain.Options{NumericSource: true}, c.bcs...)
-		if closed.Waves == nil || closed.Quadrature != nil || numeric.Quadrature == nil {
-			t.Fatalf("%s: waves %v, quadrature %v; the numeric road's quadrature %v", c.name, closed.Waves != nil, closed.Quadrature != nil, numeric.Quadrature != nil)
-		}
-		rc, err := closed.Report(nil, 1e-12)
-		if err != nil {
-			t.Fatal(err)
-		}
-		rn, err := numeric.Report(nil, 1e-12)
-		if err != nil {
-			t.Fatal(err)
-		}
+		closed, numeric, rc, rn := bothRoads(t, c.name, c.equation, c.d, false, c.bcs)
 		near := func(what string, a, b float64) {
 			if math.Abs(a-b) > 1e-9*math.Max(1, math.Abs(b)) {
 				t.Errorf("%s: %s %.15g by the waves, %.15g by the quadrature", c.name, what, a, b)

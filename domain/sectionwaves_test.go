@@ -70,19 +70,7 @@ func TestSectionWavesAgainstQuadrature(t *testing.T) {
 		{"a polynomial left over", "lap(u) = sin(x)^2 + x", triangle, everySide(triangle, "u = 0"), false, 0},
 		{"waves beside a bump", "lap(u) = cos(x + y) + exp(-((x - 0.5)^2 + (y - 0.3)^2)/0.05)", triangle, []string{"s1: u = 0", "s2: dn(u) + 3u = 1", "s3: u = 0"}, true, 0},
 	} {
-		closed := solveWith(t, c.equation, c.d, domain.Options{Tol: 1e-12}, c.bcs...)
-		numeric := solveWith(t, c.equation, c.d, domain.Options{Tol: 1e-12, NumericSource: true}, c.bcs...)
-		if closed.Waves == nil || (closed.Quadrature != nil) != c.rest || numeric.Quadrature == nil {
-			t.Fatalf("%s: the closed road took waves %v and quadrature %v; the numeric road quadrature %v", c.name, closed.Waves != nil, closed.Quadrature != nil, numeric.Quadrature != nil)
-		}
-		rc, err := closed.Report(nil, 1e-12)
-		if err != nil {
-			t.Fatal(err)
-		}
-		rn, err := numeric.Report(nil, 1e-12)
-		if err != nil {
-			t.Fatal(err)
-		}
+		closed, numeric, rc, rn := bothRoads(t, c.name, c.equation, c.d, c.rest, c.bcs)
 		const tol = 1e-9
 		size := c.size // u's scale; an integral's is it times the area
 		if size == 0 {
@@ -151,4 +139,25 @@ func TestWavesNeedTheirParameters(t *testing.T) {
 			t.Errorf("%s: u(1/4, 1/4) = %.15g at q = 1 and %.15g at q = 3, want three times", c.source, at[0], at[1])
 		}
 	}
+}
+
+// bothRoads solves a problem with the source's waves in closed form and by
+// the quadrature (Options.NumericSource), checks which road each took (rest:
+// the closed road keeps a quadrature for a part beside the waves), and
+// reports both.
+func bothRoads(t *testing.T, name, equation string, d domain.Domain, rest bool, bcs []string) (closed, numeric *domain.Solution, rc, rn *domain.Report) {
+	t.Helper()
+	closed = solveWith(t, equation, d, domain.Options{Tol: 1e-12}, bcs...)
+	numeric = solveWith(t, equation, d, domain.Options{Tol: 1e-12, NumericSource: true}, bcs...)
+	if closed.Waves == nil || (closed.Quadrature != nil) != rest || numeric.Quadrature == nil {
+		t.Fatalf("%s: the closed road took waves %v and quadrature %v; the numeric road quadrature %v", name, closed.Waves != nil, closed.Quadrature != nil, numeric.Quadrature != nil)
+	}
+	var err error
+	if rc, err = closed.Report(nil, 1e-12); err != nil {
+		t.Fatal(err)
+	}
+	if rn, err = numeric.Report(nil, 1e-12); err != nil {
+		t.Fatal(err)
+	}
+	return closed, numeric, rc, rn
 }
