@@ -83,19 +83,11 @@ func solveCircleWaves(d Domain, source series.Field, conds []Condition, opt Opti
 	for _, c := range conds {
 		byside[c.Side] = c
 	}
-	for k := range sol.Sides {
-		if orig, ok := byside[sol.Sides[k].Condition.Side]; ok {
-			sol.Sides[k].Condition = orig
-			sol.Sides[k].DataText, sol.Sides[k].DataLaTeX = orig.G.Text(), orig.G.LaTeX()
-		}
-	}
+	sol.restoreConditions(byside)
 	sol.stages = append(sol.stages, wp)
 	sol.Checks = append(sol.Checks, wp.check())
 	sol.Numeric = true
-	sol.Independent = nil
-	if c, ok := sol.independentCheck(); ok {
-		sol.Independent = &c
-	}
+	sol.recheck()
 	return sol, true, nil
 }
 

@@ -356,12 +356,7 @@ func solvePoints(d Domain, source series.Field, conds []Condition, opt Options) 
 		return nil, err
 	}
 	sol.Points = pp
-	for k := range sol.Sides {
-		if orig, ok := byside[sol.Sides[k].Condition.Side]; ok {
-			sol.Sides[k].Condition = orig
-			sol.Sides[k].DataText, sol.Sides[k].DataLaTeX = orig.G.Text(), orig.G.LaTeX()
-		}
-	}
+	sol.restoreConditions(byside)
 	sol.stages = append(sol.stages, pp)
 	if pp.Images != "" {
 		sol.Checks = append(sol.Checks, exactImageCheck(pp, pp.verify))
@@ -371,11 +366,28 @@ func solvePoints(d Domain, source series.Field, conds []Condition, opt Options) 
 			sol.Checks = append(sol.Checks, c)
 		}
 	}
-	sol.Independent = nil
-	if c, ok := sol.independentCheck(); ok {
-		sol.Independent = &c
-	}
+	sol.recheck()
 	return sol, nil
+}
+
+// restoreConditions gives the sides back their conditions as posed, after a
+// solve with data less a part's trace (a point sources' field, the waves).
+func (s *Solution) restoreConditions(byside map[string]Condition) {
+	for k := range s.Sides {
+		if orig, ok := byside[s.Sides[k].Condition.Side]; ok {
+			s.Sides[k].Condition = orig
+			s.Sides[k].DataText, s.Sides[k].DataLaTeX = orig.G.Text(), orig.G.LaTeX()
+		}
+	}
+}
+
+// recheck runs the independent check again, on u whole and the conditions
+// as posed.
+func (s *Solution) recheck() {
+	s.Independent = nil
+	if c, ok := s.independentCheck(); ok {
+		s.Independent = &c
+	}
 }
 
 // pointsInside refuses a point source outside the region or on its
