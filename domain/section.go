@@ -284,7 +284,7 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	// The waves (exponentials and trigonometric functions of x and y) in
 	// closed form; pq is the problem left to the polar rules and the
 	// quadrature, whose source's rest is what no rule closes.
-	waves, pq, fPolar := splitSectionWaves(p)
+	waves, we, pq, fPolar := splitSectionWaves(p)
 	up, rules, err := ansatz.Particular(fPolar)
 	if err != nil {
 		return nil, unsupported("%w", err)
@@ -297,12 +297,6 @@ func solveSection(d section, p *posed) (*Solution, error) {
 	if pq.rest != nil {
 		if quad, err = sectionQuadrature(d, geo, pq); err != nil {
 			return nil, err
-		}
-	}
-	var we *waveEval
-	if waves != nil {
-		if we, err = waves.compile(p.env); err != nil {
-			return nil, unsupported("the source's waves need every parameter's value: %w", err)
 		}
 	}
 	conds := make([]sideCondition, len(geo.shape.Sides))

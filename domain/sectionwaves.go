@@ -61,26 +61,27 @@ func (w *WavePart) attach(e *Evaluator, _ *Solution, env series.Env) error {
 }
 
 // splitSectionWaves takes the waves out of a section's source: the wave
-// part, the posed problem left for the polar rules and the quadrature (its
+// part and its numbers, the posed problem left for the polar rules and the quadrature (its
 // rest what no rule closes, nil when the waves took it all), and the
 // polynomial the waves leave over (sin(x)² = 1/2 − cos(2x)/2), which joins
 // the polar rules' source. Nil where the source has no waves, or they need
 // parameters without values (the quadrature then refuses them as before).
-func splitSectionWaves(p *posed) (*WavePart, *posed, series.Sum) {
+func splitSectionWaves(p *posed) (*WavePart, *waveEval, *posed, series.Sum) {
 	if p.rest == nil || p.forceQuadrature {
-		return nil, p, p.f
+		return nil, nil, p, p.f
 	}
 	split := ansatz.SplitWaves(p.rest, false)
 	if len(split.Waves) == 0 {
-		return nil, p, p.f
+		return nil, nil, p, p.f
 	}
 	wp := &WavePart{Waves: split.Waves, Source: split.Source, Poly: split.Poly, Posed: p.rest}
-	if _, err := wp.compile(p.env); err != nil {
-		return nil, p, p.f
+	we, err := wp.compile(p.env)
+	if err != nil {
+		return nil, nil, p, p.f
 	}
 	left := *p
 	left.rest = split.Rest
-	return wp, &left, p.f.Add(split.Poly.Polar())
+	return wp, we, &left, p.f.Add(split.Poly.Polar())
 }
 
 // integrals are ∬ u_w dA and ∬ (f_w + Poly) dA by the section's adaptive
