@@ -9,6 +9,13 @@ import (
 // closed parts, then any series.
 func (s *Solution) Formula(latex bool) string {
 	rest := s.formulaOfW(latex)
+	if w := s.Waves; w != nil && s.Section == nil { // a circle's waves, beside w (a section's formula is its own)
+		wt := w.Waves.Text()
+		if latex {
+			wt = w.Waves.LaTeX()
+		}
+		rest = joinPrinted(wt, rest, rest == "0", false)
+	}
 	if s.Points == nil {
 		return rest
 	}

@@ -28,8 +28,12 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 	if sol.Section != nil { // the fitted harmonic part, from its tables
 		return writeSectionCode(w, l, pr, sol)
 	}
-	if sol.Waves != nil { // a disk's or an annulus's: its code is in r and theta
-		return &domain.Unsupported{Reason: "generated code for a disk's or an annulus's source with exponentials or trigonometric functions of x and y is not written yet (on a polygon, an ellipse or the rectangle it is)"}
+	var waves []string
+	if w := sol.Waves; w != nil { // a disk's or an annulus's, in x = r*cos(theta), y = r*sin(theta)
+		if err := domain.WavesBound(w.Waves, nil); err != nil {
+			return &domain.Unsupported{Reason: "generated code for waves (exponentials or trigonometric functions of x and y) that carry parameters is not written yet; give the numbers in the equation"}
+		}
+		waves = append(waves, w.Waves.CodeIn(l, "(r*"+l.Fn["cos"]+"(theta))", "(r*"+l.Fn["sin"]+"(theta))"))
 	}
 	var kinks []string
 	if sol.Quadrature != nil { // the numeric particular part has no formula to write
@@ -87,7 +91,7 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 		params = append(params, p)
 	}
 	sort.Strings(params)
-	g := codeGen{l: l, vars: []string{"r", "theta"}, params: params, closed: closed.Code(l), parts: parts, terms: terms, extra: append(logs, kinks...)}
+	g := codeGen{l: l, vars: []string{"r", "theta"}, params: params, closed: closed.Code(l), parts: parts, terms: terms, extra: append(append(logs, kinks...), waves...)}
 	fmt.Fprintf(w, "%s psol %s: %s\n", g.comment(), version, sol.Formula(false))
 	if len(parts) > 0 {
 		fmt.Fprintf(w, "%s The series are summed to n = %d.\n", g.comment(), terms)

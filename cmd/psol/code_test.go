@@ -62,6 +62,10 @@ var codeCases = []struct {
 	{[]string{"solve", "lap(u) = 2*delta(x - 0.5, y + 0.4)", "--annulus", "0.1,1", "--bc", "inner: u = 0", "--bc", "outer: dn(u) + u = 1"}, "", false},
 	// A section's waves in closed form beside the polynomial (sectionwaves.go).
 	{[]string{"solve", "lap(u) = sin(3*x)*cosh(y) - 1", "--polygon", "0,0 1,0 1,0.6 0,0.6", "--bc", "u = 0", "--bc", "s2: dn(u) = 0", "--tol", "1e-10"}, "", true},
+	// A disk's and an annulus's waves, in x = r*cos(theta), y = r*sin(theta)
+	// beside the numeric modes of w (circlewaves.go).
+	{[]string{"solve", "lap(u) = exp(x) + sin(2*y)", "--disk", "1", "--bc", "dn(u) + u = 0"}, "", false},
+	{[]string{"solve", "lap(u) = cos(x)*exp(y) - 1", "--annulus", "0.2,1", "--bc", "inner: dn(u) = 0", "--bc", "outer: u = 0"}, "", false},
 	// Kinks: the closed form |l|^3 and the trace's general term in the
 	// crossing angle's atoms (atan of a square root).
 	{[]string{"solve", "lap(u) = abs(y - 0.3) - 1", "--disk", "1", "--bc", "dn(u) + 2u = 0"}, "", false},
