@@ -30,8 +30,8 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 	}
 	var waves []string
 	if w := sol.Waves; w != nil { // a disk's or an annulus's, in x = r*cos(theta), y = r*sin(theta)
-		if err := domain.WavesBound(w.Waves, nil); err != nil {
-			return &domain.Unsupported{Reason: "generated code for waves (exponentials or trigonometric functions of x and y) that carry parameters is not written yet; give the numbers in the equation"}
+		if err := wavesWritable(w); err != nil {
+			return err
 		}
 		waves = append(waves, w.Waves.CodeIn(l, "(r*"+l.Fn["cos"]+"(theta))", "(r*"+l.Fn["sin"]+"(theta))"))
 	}
@@ -97,6 +97,15 @@ func writeCode(w io.Writer, lang string, pr *problem, sol *domain.Solution, term
 		fmt.Fprintf(w, "%s The series are summed to n = %d.\n", g.comment(), terms)
 	}
 	return g.write(w)
+}
+
+// wavesWritable refuses generated code for waves whose factors still carry
+// a parameter (the code takes none for them): sections and circles alike.
+func wavesWritable(w *domain.WavePart) error {
+	if domain.WavesBound(w.Waves, nil) != nil {
+		return &domain.Unsupported{Reason: "generated code for waves (exponentials or trigonometric functions of x and y) that carry parameters is not written yet; give the numbers in the equation"}
+	}
+	return nil
 }
 
 // kinkCode is each kink's closed form, Factor*|A*x + B*y + D|^3, as a term

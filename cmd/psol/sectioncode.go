@@ -447,8 +447,8 @@ func writeSectionCode(w io.Writer, l series.Lang, pr *problem, sol *domain.Solut
 	}
 	closed, closedText := poly.Code(l), poly.Text()
 	if w := sol.Waves; w != nil { // the source's waves in closed form, with the polynomial
-		if err := domain.WavesBound(w.Waves, nil); err != nil {
-			return &domain.Unsupported{Reason: "generated code for a section whose particular solution's exponentials or trigonometric functions carry parameters is not written yet; give the numbers in the equation"}
+		if err := wavesWritable(w); err != nil {
+			return err
 		}
 		closed, closedText = closed+" + "+w.Waves.Code(l), sumText(closedText, w.Waves.Text())
 	}
